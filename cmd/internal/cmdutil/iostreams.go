@@ -1,0 +1,42 @@
+package cmdutil
+
+import (
+	"io"
+	"os"
+
+	"golang.org/x/term"
+)
+
+// IOStreams carries the command's standard streams and whether each is a
+// terminal. Data goes to Out, progress and warnings to ErrOut.
+type IOStreams struct {
+	In     io.Reader
+	Out    io.Writer
+	ErrOut io.Writer
+
+	outTTY bool
+	errTTY bool
+}
+
+// System returns the process's own streams.
+func System() *IOStreams {
+	return &IOStreams{
+		In:     os.Stdin,
+		Out:    os.Stdout,
+		ErrOut: os.Stderr,
+		outTTY: term.IsTerminal(int(os.Stdout.Fd())),
+		errTTY: term.IsTerminal(int(os.Stderr.Fd())),
+	}
+}
+
+// Test returns streams over the given buffers, none of them a terminal.
+func Test(in io.Reader, out, errOut io.Writer) *IOStreams {
+	return &IOStreams{In: in, Out: out, ErrOut: errOut}
+}
+
+// IsStdoutTTY reports whether Out is a terminal.
+func (s *IOStreams) IsStdoutTTY() bool { return s.outTTY }
+
+// IsStderrTTY reports whether ErrOut is a terminal (progress indicators
+// are drawn only then).
+func (s *IOStreams) IsStderrTTY() bool { return s.errTTY }

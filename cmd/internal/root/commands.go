@@ -1,0 +1,12 @@
+package root
+
+import (
+	"github.com/spf13/cobra"
+
+	"biasbin/cmd/internal/cmdutil"
+)
+
+// subcommands lists the top-level commands in help order.
+func subcommands(f *cmdutil.Factory) []*cobra.Command {
+	return []*cobra.Command{}
+}

@@ -1,0 +1,2 @@
+-- placeholder; replaced by the store work
+SELECT 1;
