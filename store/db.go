@@ -1,0 +1,83 @@
+package store
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"net/url"
+	"strings"
+
+	"github.com/jmoiron/sqlx"
+	_ "modernc.org/sqlite" // database/sql driver "sqlite"
+
+	"biasbin/migrations"
+)
+
+// DB is an open stock database.
+type DB struct{ x *sqlx.DB }
+
+// busyTimeoutMS is how long a connection waits on another process's lock
+// before SQLite reports SQLITE_BUSY.
+const busyTimeoutMS = 10000
+
+// dsn returns the data source name for path: the pragmas are in the DSN so
+// that every pooled connection gets them, and write transactions begin
+// IMMEDIATE.
+func dsn(path string) string {
+	q := url.Values{}
+	q.Add("_pragma", fmt.Sprintf("busy_timeout(%d)", busyTimeoutMS))
+	q.Add("_pragma", "foreign_keys(1)")
+	q.Add("_pragma", "journal_mode(wal)")
+	q.Add("_pragma", "synchronous(full)")
+	q.Set("_txlock", "immediate")
+	return "file:" + escapePath(path) + "?" + q.Encode()
+}
+
+// escapePath keeps a file name with '?' or '#' from being read as a query.
+func escapePath(p string) string {
+	r := strings.NewReplacer("%", "%25", "?", "%3F", "#", "%23")
+	return r.Replace(p)
+}
+
+// Open opens the stock database at path, creating the file if needed and
+// bringing an older schema up to date. A database written by a newer
+// biasbin is refused with ErrNewerSchema and left as it was.
+func Open(ctx context.Context, path string) (*DB, error) {
+	x, err := sqlx.Open("sqlite", dsn(path))
+	if err != nil {
+		return nil, fmt.Errorf("open stock file %s: %w", path, err)
+	}
+	db := &DB{x: x}
+	if err := db.setup(ctx, path); err != nil {
+		x.Close()
+		return nil, err
+	}
+	return db, nil
+}
+
+func (db *DB) setup(ctx context.Context, path string) error {
+	var mode string
+	if err := retry(ctx, func() error {
+		return db.x.GetContext(ctx, &mode, "PRAGMA journal_mode")
+	}); err != nil {
+		return fmt.Errorf("open stock file %s: %w", path, err)
+	}
+	if !strings.EqualFold(mode, "wal") {
+		return fmt.Errorf("open stock file %s: %w (journal_mode is %q)", path, ErrNotWAL, mode)
+	}
+	if err := migrate(ctx, db.x, migrations.FS); err != nil {
+		if errors.Is(err, ErrNewerSchema) {
+			return fmt.Errorf("open stock file %s: %w", path, err)
+		}
+		return fmt.Errorf("upgrade stock file %s: %w", path, err)
+	}
+	return nil
+}
+
+// Close closes the database.
+func (db *DB) Close() error {
+	if db == nil || db.x == nil {
+		return nil
+	}
+	return db.x.Close()
+}

@@ -1,0 +1,259 @@
+package store
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+	"unicode"
+)
+
+// MaxQty is the largest quantity one stock line may hold.
+const MaxQty = 1_000_000_000
+
+// canon rounds v to 12 significant digits, so that the same value written
+// two ways (4K7, 4.7e3) is stored as the same float.
+func canon(v float64) float64 {
+	if v == 0 || math.IsNaN(v) || math.IsInf(v, 0) {
+		return v
+	}
+	c, err := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 12, 64), 64)
+	if err != nil {
+		return v
+	}
+	return c
+}
+
+// fmtKey writes v exactly for an identity key.
+func fmtKey(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+
+// NormalizeTags lower-cases, trims, de-duplicates and sorts tags, dropping
+// empty ones.
+func NormalizeTags(tags []string) []string {
+	seen := make(map[string]bool, len(tags))
+	out := make([]string, 0, len(tags))
+	for _, t := range tags {
+		t = strings.ToLower(strings.TrimSpace(t))
+		if t == "" || seen[t] {
+			continue
+		}
+		seen[t] = true
+		out = append(out, t)
+	}
+	sort.Strings(out)
+	return out
+}
+
+// checkTag reports what is wrong with a normalized tag, or "".
+func checkTag(t string) string {
+	if len(t) > 64 {
+		return fmt.Sprintf("tag %q is longer than 64 characters", t)
+	}
+	for _, r := range t {
+		if unicode.IsSpace(r) || r == ';' || r == ',' || unicode.IsControl(r) {
+			return fmt.Sprintf("tag %q: a tag is one word without spaces, commas or semicolons", t)
+		}
+	}
+	return ""
+}
+
+// checkText reports what is wrong with a bin, label or note, or "".
+func checkText(s string, multiline bool) string {
+	if len(s) > 1000 {
+		return "longer than 1000 characters"
+	}
+	for _, r := range s {
+		if r == '\n' && multiline {
+			continue
+		}
+		if unicode.IsControl(r) || r == unicode.ReplacementChar {
+			return fmt.Sprintf("contains the control or invalid character %q", r)
+		}
+	}
+	return ""
+}
+
+// finiteIn reports whether lo < v < hi and v is a number.
+func finiteIn(v, lo, hi float64) bool {
+	return !math.IsNaN(v) && v > lo && v < hi
+}
+
+// WithDefaults returns r with the documented defaults filled in (knee and
+// maximum temperature, TCR by technology, thick film when no technology is
+// given), values rounded to 12 significant digits, text trimmed and tags
+// normalized.
+func (r Resistor) WithDefaults() Resistor {
+	r.Tech = strings.ToLower(strings.TrimSpace(r.Tech))
+	if r.Tech == "" {
+		r.Tech = TechThickFilm
+	}
+	if r.Knee_C == 0 {
+		r.Knee_C = DefaultKnee_C
+	}
+	if r.Max_C == 0 {
+		r.Max_C = DefaultMax_C
+	}
+	if r.TCR_PPMPerK == 0 {
+		if tcr, ok := DefaultTCR_PPMPerK(r.Tech); ok {
+			r.TCR_PPMPerK = tcr
+		}
+	}
+	r.Ohm, r.Tol, r.Rated_W = canon(r.Ohm), canon(r.Tol), canon(r.Rated_W)
+	r.Knee_C, r.Max_C, r.TCR_PPMPerK = canon(r.Knee_C), canon(r.Max_C), canon(r.TCR_PPMPerK)
+	r.Bin = strings.TrimSpace(r.Bin)
+	r.Note = strings.TrimSpace(r.Note)
+	r.Tags = NormalizeTags(r.Tags)
+	return r
+}
+
+// Validate returns every rule r breaks (call it on r.WithDefaults()). Each
+// problem's Field is the CSV column the value comes from.
+func (r Resistor) Validate() []Problem {
+	var ps []Problem
+	add := func(field, format string, a ...any) {
+		ps = append(ps, Problem{Kind: KindResistor, Field: field, Msg: fmt.Sprintf(format, a...)})
+	}
+	if !finiteIn(r.Ohm, 0, 1e13) {
+		add("value", "resistance %g Ω is not between 0 and 10 TΩ", r.Ohm)
+	}
+	if !finiteIn(r.Tol, 0, 1) {
+		add("tolerance", "tolerance %g %% is not above 0 %% and below 100 %%", r.Tol*100)
+	}
+	if !finiteIn(r.Rated_W, 0, 1e6) {
+		add("power", "rated power %g W is not above 0 W (and below 1 MW)", r.Rated_W)
+	}
+	if !finiteIn(r.Knee_C, -273.15, 1000) {
+		add("knee_c", "knee temperature %g °C is out of range", r.Knee_C)
+	}
+	if !finiteIn(r.Max_C, -273.15, 1000) {
+		add("max_c", "maximum temperature %g °C is out of range", r.Max_C)
+	} else if r.Max_C <= r.Knee_C {
+		add("max_c", "maximum temperature %g °C is not above the knee %g °C", r.Max_C, r.Knee_C)
+	}
+	if !finiteIn(r.TCR_PPMPerK, -1e5, 1e5) {
+		add("tcr", "TCR %g ppm/K is out of range", r.TCR_PPMPerK)
+	}
+	if _, ok := DefaultTCR_PPMPerK(r.Tech); !ok {
+		add("tech", "unknown technology %q (want %s)", r.Tech, strings.Join(Technologies(), ", "))
+	}
+	ps = append(ps, commonProblems(KindResistor, r.Qty, r.Bin, r.Note, r.Tags)...)
+	return ps
+}
+
+// commonProblems checks the fields every kind has.
+func commonProblems(k Kind, qty int, bin, note string, tags []string) []Problem {
+	var ps []Problem
+	add := func(field, msg string) { ps = append(ps, Problem{Kind: k, Field: field, Msg: msg}) }
+	if qty < 0 {
+		add("qty", fmt.Sprintf("quantity %d is negative", qty))
+	} else if qty > MaxQty {
+		add("qty", fmt.Sprintf("quantity %d is above %d", qty, MaxQty))
+	}
+	if m := checkText(bin, false); m != "" {
+		add("bin", m)
+	}
+	if m := checkText(note, true); m != "" {
+		add("note", m)
+	}
+	for _, t := range tags {
+		if m := checkTag(t); m != "" {
+			add("tags", m)
+		}
+	}
+	return ps
+}
+
+// ident is the line's identity within its kind and bin.
+func (r Resistor) ident() string {
+	return fmtKey(r.Ohm) + "|" + fmtKey(r.Tol) + "|" + fmtKey(r.Rated_W) + "|" + r.Tech
+}
+
+// WithDefaults returns t with the documented defaults filled in (VBE(on)
+// 0.65 V at 1 mA, Tj max 150 °C), values rounded to 12 significant digits,
+// polarity lower-cased, text trimmed and tags normalized.
+func (t Transistor) WithDefaults() Transistor {
+	t.Label = strings.TrimSpace(t.Label)
+	t.Polarity = strings.ToLower(strings.TrimSpace(t.Polarity))
+	if t.VBEOn_V == 0 {
+		t.VBEOn_V = DefaultVBEOn_V
+	}
+	if t.VBEAt_A == 0 {
+		t.VBEAt_A = DefaultVBEAt_A
+	}
+	if t.TjMax_C == 0 {
+		t.TjMax_C = DefaultTjMax_C
+	}
+	for _, p := range []*float64{&t.HFEMin, &t.HFEMax, &t.HFETyp, &t.HFEAt_A, &t.VBEOn_V, &t.VBEAt_A,
+		&t.VCESat_V, &t.VCEO_V, &t.ICMax_A, &t.PD25_W, &t.ThetaJA_KPerW, &t.TjMax_C, &t.VAF_V, &t.ICBO_A} {
+		*p = canon(*p)
+	}
+	t.Bin = strings.TrimSpace(t.Bin)
+	t.Note = strings.TrimSpace(t.Note)
+	t.Tags = NormalizeTags(t.Tags)
+	return t
+}
+
+// Validate returns every rule t breaks (call it on t.WithDefaults()). Each
+// problem's Field is the CSV column the value comes from.
+func (t Transistor) Validate() []Problem {
+	var ps []Problem
+	add := func(field, format string, a ...any) {
+		ps = append(ps, Problem{Kind: KindTransistor, Field: field, Msg: fmt.Sprintf(format, a...)})
+	}
+	if t.Label == "" {
+		add("label", "empty label")
+	} else if m := checkText(t.Label, false); m != "" {
+		add("label", "%s", m)
+	}
+	if t.Polarity != "npn" && t.Polarity != "pnp" {
+		add("polarity", "unknown polarity %q (want npn or pnp)", t.Polarity)
+	}
+	hfeOK := true
+	if !finiteIn(t.HFEMin, 0, 1e6) {
+		add("hfe_min", "hFE min %g is not above 0", t.HFEMin)
+		hfeOK = false
+	}
+	if !finiteIn(t.HFEMax, 0, 1e6) {
+		add("hfe_max", "hFE max %g is not above 0 (and below 1e6)", t.HFEMax)
+		hfeOK = false
+	}
+	if hfeOK && t.HFEMin > t.HFEMax {
+		add("hfe_max", "hFE min %g is above hFE max %g", t.HFEMin, t.HFEMax)
+	}
+	if t.HFETyp != 0 && (!finiteIn(t.HFETyp, 0, 1e6) || (hfeOK && (t.HFETyp < t.HFEMin || t.HFETyp > t.HFEMax))) {
+		add("hfe_typ", "typical hFE %g is not between hFE min and max", t.HFETyp)
+	}
+	optional := []struct {
+		field, what, unit string
+		v, hi             float64
+	}{
+		{"hfe_at", "hFE test current", "A", t.HFEAt_A, 1e4},
+		{"vce_sat", "VCE(sat)", "V", t.VCESat_V, 100},
+		{"vceo", "VCEO", "V", t.VCEO_V, 1e5},
+		{"ic_max", "IC max", "A", t.ICMax_A, 1e4},
+		{"pd", "dissipation", "W", t.PD25_W, 1e6},
+		{"theta_ja", "θJA", "K/W", t.ThetaJA_KPerW, 1e5},
+		{"vaf", "Early voltage", "V", t.VAF_V, 1e6},
+		{"icbo", "ICBO", "A", t.ICBO_A, 1},
+	}
+	for _, o := range optional {
+		if math.IsNaN(o.v) || o.v < 0 || o.v >= o.hi {
+			add(o.field, "%s %g %s is negative or out of range", o.what, o.v, o.unit)
+		}
+	}
+	if !finiteIn(t.VBEOn_V, 0, 10) {
+		add("vbe", "VBE(on) %g V is not between 0 V and 10 V", t.VBEOn_V)
+	}
+	if !finiteIn(t.VBEAt_A, 0, 1e4) {
+		add("vbe_at", "VBE(on) test current %g A is not above 0 A", t.VBEAt_A)
+	}
+	if !finiteIn(t.TjMax_C, 25, 1000) {
+		add("tj_max", "Tj max %g °C is not above 25 °C", t.TjMax_C)
+	}
+	ps = append(ps, commonProblems(KindTransistor, t.Qty, t.Bin, t.Note, t.Tags)...)
+	return ps
+}
+
+// ident is the line's identity within its kind and bin.
+func (t Transistor) ident() string { return t.Label }
