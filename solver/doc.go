@@ -1,0 +1,98 @@
+// Package solver is biasbin's circuit math: the transistor model built from
+// datasheet ranges, the exact DC operating point of the three bias
+// topologies, self-heating, stability factors, and the analyses built on
+// them. It is pure: value types in, value types out, no I/O.
+//
+// # Units and conventions
+//
+// SI base units everywhere, the unit in the name (VCC_V, IC_A, R_Ohm, P_W);
+// temperatures are in °C (Tj_C, TNOM_C) and converted to kelvin inside
+// with T = t + 273.15. Tolerances are fractions.
+//
+// Rails and node voltages are signed and relative to ground. A PNP stage is
+// the mirror of the NPN one: VCC_V < 0 (and VEE_V > 0 for split supply).
+// Every PNP stage is solved as the mirrored NPN circuit (all node voltages
+// negated) and its node voltages are negated back. Currents, VCE_V and
+// VBE_V are forward-referenced: for an NPN IC flows into the collector, IB
+// into the base, IE out of the emitter, VCE = VC−VE, VBE = VB−VE; for a
+// PNP every one of these is reversed (VCE = VE−VC, VBE = VE−VB). So all are
+// positive in the forward-active region for both polarities.
+// IE_A = IC_A + IB_A always. Terminal currents include the optional
+// collector-base leakage.
+//
+// # Device model
+//
+// The transistor is the Ebers–Moll transport model, i.e. SPICE's
+// Gummel–Poon model with no high-level injection (IKF, IKR = ∞), no
+// leakage diodes (ISE, ISC = 0), no ohmic resistances and no reverse Early
+// effect (VAR = ∞), written exactly as ngspice evaluates it (bjtload.c),
+// in the mirrored-NPN frame with junction voltages VBE and VBC:
+//
+//	Ibe = IS·(exp(VBE/(NF·VT)) − 1)
+//	Ibc = IS·(exp(VBC/VT) − 1)                    (NR = 1)
+//	IC  = (Ibe − Ibc)·(1 − VBC/VAF) − Ibc/BR + ICBO
+//	IB  = Ibe/BF + Ibc/BR − ICBO
+//
+// VAF = 0 means infinite (the factor is 1). ICBO is an optional constant
+// current source from collector to base (the collector-base leakage); it
+// is not part of SPICE's model and the netlist writer adds it as a source.
+// SPICE adds GMIN (1e-12 S) across each junction for numerical reasons;
+// the solver does not, which only matters for currents below a nanoampere.
+//
+// ModelFor fills the parameters from a Datasheet: IS from VBE(on) at its
+// test current at TNOM (IC = IS·(exp(VBE/VT) − 1), NF = 1; no base-current
+// correction because datasheets state VBE(on) against IC, which in the
+// forward-active region is exactly the transport term), BF = the hFE under
+// analysis, BR = 1, VAF from the datasheet (0 = infinite), XTI = 3 and
+// EG = 1.11 eV (the SPICE defaults, ngspice manual §8.2), XTB = 1.5
+// (common practice for silicon; SPICE's own default XTB = 0 keeps beta
+// constant over temperature, which no silicon transistor does), and
+// TNOM = 25 °C because datasheet figures are given at 25 °C (SPICE's own
+// default TNOM is 27 °C; every netlist states TNOM explicitly).
+//
+// # Temperature
+//
+// Exactly as SPICE (ngspice manual §1.3.1 eqs. (1)–(2), bjttemp.c with
+// TLEV = 0), with T and T0 = TNOM in kelvin and k, q the exact SI constants
+// (k = 1.380649e-23 J/K, q = 1.602176634e-19 C):
+//
+//	VT     = k·T/q
+//	IS(T)  = IS·(T/T0)^XTI·exp((EG·q/k)·(1/T0 − 1/T))
+//	BF(T)  = BF·(T/T0)^XTB,   BR(T) = BR·(T/T0)^XTB
+//	ICBO(T) = ICBO·2^((T−T0)/10 K)      (doubling every 10 K, common practice)
+//
+// # Operating point
+//
+// Each topology is reduced by hand to the junction voltages VBE, VBC as
+// the two unknowns (the divider by its Thevenin equivalent; every node
+// voltage is affine in IB and IC), and the two loop equations are solved by
+// Newton's method with SPICE's junction-voltage limiting (pnjlim, ngspice
+// devsup.c) from the forward-active hand solution; if that fails, a
+// source-stepping continuation ramps every source from zero. A Newton step
+// is accepted as converged when no limiting was applied and both junction
+// voltages moved by less than 1e-10 V. Results never contain NaN or Inf;
+// a failure is an error wrapping ErrNoConvergence.
+//
+// # Regions
+//
+// The region is named from the junction biases. A junction conducts when
+// its ideal diode current IS(T)·(exp(V/(N·VT)) − 1) reaches 100 nA, which
+// is VBE ≈ 0.41 V for IS = 1e-14 A at 25 °C:
+//
+//	cutoff          neither junction conducts
+//	active          base-emitter conducts, base-collector injection < 1 % of it
+//	                (VBC < VBE − VT·ln 100, i.e. VCE > ≈ 0.12 V at 25 °C)
+//	reverse-active  base-collector conducts, base-emitter injection < 1 % of it
+//	saturation      otherwise (both junctions injecting)
+//
+// The 1 % bound is where IC/IB has fallen about 2 % below BF (with BR = 1).
+// A design margin above the datasheet's VCE(sat) is a separate check made
+// by the analyses.
+//
+// # Self-heating
+//
+// SolveSelfHeated finds the junction temperature where
+// Tj = Ta + θJA·PTransistor(Tj), PTransistor = VCE·IC + VBE·IB (the power
+// ngspice reports as @q[p]); no stable equilibrium at or below Tj max is
+// thermal runaway (ErrThermalRunaway).
+package solver

@@ -1,0 +1,357 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+)
+
+// Newton iteration settings.
+const (
+	newtonMaxIter = 150
+	// newtonTol_V is the junction-voltage step below which an unlimited
+	// Newton step counts as converged; the currents are then exact to
+	// about newtonTol_V/VT ≈ 4e-9 relative (quadratic convergence makes
+	// the real error far smaller).
+	newtonTol_V = 1e-10
+	// regionOn_A is the diode current at which a junction counts as
+	// conducting (see doc.go, "Regions").
+	regionOn_A = 100e-9
+	// regionSatRatio: saturation once the base-collector injection reaches
+	// this share of the base-emitter injection.
+	regionSatRatio = 0.01
+	// expArgMax caps exponent arguments; beyond it the exponential is
+	// continued linearly (never reached at a converged point).
+	expArgMax = 200.0
+)
+
+// Solve returns the exact DC operating point of s with the transistor m at
+// device temperature tj_C (no self-heating).
+//
+// The stage is reduced by hand to two unknowns, the junction voltages VBE
+// and VBC of the mirrored NPN circuit, and solved by Newton's method with
+// SPICE's junction-voltage limiting; when that fails a source-stepping
+// continuation takes over. Errors: *InputError for bad input, an error
+// wrapping ErrNoConvergence when no solution is found. The result never
+// holds NaN or Inf.
+func Solve(s Stage, m Model, tj_C float64) (OperatingPoint, error) {
+	if err := checkSolveInput(s, m, tj_C); err != nil {
+		return OperatingPoint{}, err
+	}
+	return solveChecked(s, m, tj_C, nil)
+}
+
+func checkSolveInput(s Stage, m Model, tj_C float64) error {
+	if err := m.Validate(); err != nil {
+		return fmt.Errorf("solve: model: %w", err)
+	}
+	if err := s.Validate(m.Polarity); err != nil {
+		return fmt.Errorf("solve: %v stage: %w", s.Topology, err)
+	}
+	if !finite(tj_C) || tj_C < MinTemp_C || tj_C > MaxTj_C {
+		return fmt.Errorf("solve: %w", &InputError{Field: "tj", Problem: fmt.Sprintf("%g °C is outside %g..%g °C", tj_C, MinTemp_C, MaxTj_C)})
+	}
+	return nil
+}
+
+// solveChecked solves validated input; guess, when not nil, holds a
+// starting (VBE, VBC) and receives the solution's junction voltages.
+func solveChecked(s Stage, m Model, tj_C float64, guess *[2]float64) (OperatingPoint, error) {
+	sg := m.Polarity.sign()
+	ck := reduce(s, sg)
+	d := m.at(tj_C)
+	var x [2]float64
+	ok := false
+	if guess != nil && (guess[0] != 0 || guess[1] != 0) {
+		x = *guess
+		ok = ck.newton(&d, &x, 1)
+	}
+	if !ok {
+		x = ck.initialGuess(&d)
+		ok = ck.newton(&d, &x, 1)
+	}
+	if !ok {
+		ok = ck.sourceStepping(&d, &x)
+	}
+	if !ok {
+		return OperatingPoint{}, fmt.Errorf("solve %v %v stage at %g °C: %w", m.Polarity, s.Topology, tj_C, ErrNoConvergence)
+	}
+	if guess != nil {
+		*guess = x
+	}
+	op := ck.operatingPoint(s, &d, x, sg)
+	op.Tj_C = tj_C
+	if !op.finite() {
+		return OperatingPoint{}, fmt.Errorf("solve %v %v stage at %g °C: result not finite: %w", m.Polarity, s.Topology, tj_C, ErrNoConvergence)
+	}
+	return op, nil
+}
+
+// circuit is a stage reduced to the mirrored-NPN frame: each node voltage
+// is affine in the terminal currents, V = v0 + vb·IB + vc·IC.
+type circuit struct {
+	b0, bb, bc float64 // base node
+	c0, cb, cc float64 // collector node
+	e0, eb, ec float64 // emitter node
+}
+
+// reduce writes the node voltages of s as affine functions of the base and
+// collector terminal currents (Thevenin form of the divider).
+func reduce(s Stage, sg float64) circuit {
+	vcc := s.VCC_V * sg
+	r := &s.R_Ohm
+	var ck circuit
+	switch s.Topology {
+	case Divider:
+		sum := r[R1] + r[R2]
+		ck.b0 = vcc * r[R2] / sum
+		ck.bb = -r[R1] * r[R2] / sum
+		ck.c0, ck.cc = vcc, -r[RC]
+		ck.eb, ck.ec = r[RE], r[RE]
+	case CollectorFeedback:
+		ck.c0, ck.cb, ck.cc = vcc, -r[RC], -r[RC]
+		ck.b0, ck.bb, ck.bc = vcc, -r[RC]-r[RF], -r[RC]
+		ck.eb, ck.ec = r[RE], r[RE]
+	case SplitSupply:
+		ck.bb = -r[RB]
+		ck.c0, ck.cc = vcc, -r[RC]
+		ck.e0, ck.eb, ck.ec = s.VEE_V*sg, r[RE], r[RE]
+	}
+	return ck
+}
+
+// currents evaluates the transport model (mirrored NPN) at junction
+// voltages vbe, vbc: terminal currents and their partial derivatives.
+// It is the ngspice Gummel–Poon load with IKF, ISE, ISC and VAR at their
+// defaults: IC = (Ibe−Ibc)·(1−VBC/VAF) − Ibc/BR, IB = Ibe/BF + Ibc/BR.
+func (d *device) currents(vbe, vbc float64) (ib, ic, dibdbe, dibdbc, dicdbe, dicdbc float64) {
+	ebe, gbe := expLin(vbe / d.nvt)
+	ebc, gbc := expLin(vbc / d.vt)
+	ibe := d.is * (ebe - 1)
+	ibc := d.is * (ebc - 1)
+	gbe *= d.is / d.nvt
+	gbc *= d.is / d.vt
+	qf := 1 - vbc*d.invVAF
+	ic = (ibe-ibc)*qf - ibc/d.br + d.ileak
+	ib = ibe/d.bf + ibc/d.br - d.ileak
+	dicdbe = gbe * qf
+	dicdbc = -gbc*qf - (ibe-ibc)*d.invVAF - gbc/d.br
+	dibdbe = gbe / d.bf
+	dibdbc = gbc / d.br
+	return
+}
+
+// expLin returns exp(a) and its derivative, continued linearly above
+// expArgMax so that no step can overflow.
+func expLin(a float64) (e, de float64) {
+	if a <= expArgMax {
+		e = math.Exp(a)
+		return e, e
+	}
+	e0 := math.Exp(expArgMax)
+	return e0 * (1 + a - expArgMax), e0
+}
+
+// newton runs the damped Newton iteration from x with the sources scaled
+// by lambda; it reports whether it converged, leaving the solution in x.
+func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
+	a0 := lambda * (ck.b0 - ck.e0)
+	ab, ac := ck.bb-ck.eb, ck.bc-ck.ec
+	b0 := lambda * (ck.b0 - ck.c0)
+	bb, bc := ck.bb-ck.cb, ck.bc-ck.cc
+	leak := d.ileak
+	dd := *d
+	dd.ileak = leak * lambda
+	critBE := d.nvt * math.Log(d.nvt/(math.Sqrt2*d.is))
+	critBC := d.vt * math.Log(d.vt/(math.Sqrt2*d.is))
+	vbe, vbc := x[0], x[1]
+	for it := 0; it < newtonMaxIter; it++ {
+		ib, ic, gbb, gbc, gcb, gcc := dd.currents(vbe, vbc)
+		f1 := a0 + ab*ib + ac*ic - vbe
+		f2 := b0 + bb*ib + bc*ic - vbc
+		j11 := ab*gbb + ac*gcb - 1
+		j12 := ab*gbc + ac*gcc
+		j21 := bb*gbb + bc*gcb
+		j22 := bb*gbc + bc*gcc - 1
+		det := j11*j22 - j12*j21
+		if det == 0 || math.IsNaN(det) || math.IsInf(det, 0) {
+			return false
+		}
+		dbe := (-f1*j22 + f2*j12) / det
+		dbc := (-f2*j11 + f1*j21) / det
+		nbe, limBE := pnjlim(vbe+dbe, vbe, d.nvt, critBE)
+		nbc, limBC := pnjlim(vbc+dbc, vbc, d.vt, critBC)
+		if math.IsNaN(nbe) || math.IsNaN(nbc) {
+			return false
+		}
+		stepBE, stepBC := math.Abs(nbe-vbe), math.Abs(nbc-vbc)
+		vbe, vbc = nbe, nbc
+		if !limBE && !limBC && stepBE <= newtonTol_V && stepBC <= newtonTol_V {
+			x[0], x[1] = vbe, vbc
+			return true
+		}
+	}
+	return false
+}
+
+// pnjlim is SPICE's junction-voltage limiting (ngspice devsup.c
+// DEVpnjlim): a forward step above vcrit larger than 2·vt is replaced by a
+// logarithmic one, and large reverse steps are capped.
+func pnjlim(vnew, vold, vt, vcrit float64) (float64, bool) {
+	if vnew > vcrit && math.Abs(vnew-vold) > vt+vt {
+		if vold > 0 {
+			arg := 1 + (vnew-vold)/vt
+			if arg > 0 {
+				return vold + vt*math.Log(arg), true
+			}
+			return vcrit, true
+		}
+		return vt * math.Log(vnew/vt), true
+	}
+	if vnew < 0 {
+		var arg float64
+		if vold > 0 {
+			arg = -vold - 1
+		} else {
+			arg = 2*vold - 1
+		}
+		if vnew < arg {
+			return arg, true
+		}
+	}
+	return vnew, false
+}
+
+// initialGuess estimates the junction voltages from the forward-active
+// hand solution (IC = BF·IB) with VBE from the model at that current, so
+// that Newton usually needs only a few steps.
+func (ck *circuit) initialGuess(d *device) [2]float64 {
+	a0, ab, ac := ck.b0-ck.e0, ck.bb-ck.eb, ck.bc-ck.ec
+	b0, bb, bc := ck.b0-ck.c0, ck.bb-ck.cb, ck.bc-ck.cc
+	crit := d.nvt * math.Log(d.nvt/(math.Sqrt2*d.is))
+	den := ab + ac*d.bf
+	if !(den < 0) {
+		return [2]float64{crit, 0}
+	}
+	vbe := math.Min(crit, d.nvt*math.Log(1e-3/d.is))
+	var ib, ic float64
+	for range 2 {
+		ib = (vbe - a0) / den
+		if ib <= 0 {
+			// Cut off: the junctions see the open-circuit voltages.
+			return [2]float64{math.Min(a0, crit), math.Min(b0, crit)}
+		}
+		ic = d.bf * ib
+		vbe = d.nvt * math.Log1p(ic/d.is)
+	}
+	vbc := b0 + bb*ib + bc*ic
+	if vbc > vbe-0.1 {
+		vbc = vbe - 0.1
+	}
+	return [2]float64{vbe, vbc}
+}
+
+// sourceStepping ramps every source from zero to its value, solving at
+// each step from the previous solution; the step shrinks on failure.
+func (ck *circuit) sourceStepping(d *device, x *[2]float64) bool {
+	cur := [2]float64{0, 0}
+	lambda, step := 0.0, 0.1
+	for lambda < 1 {
+		next := math.Min(1, lambda+step)
+		try := cur
+		if ck.newton(d, &try, next) {
+			cur, lambda = try, next
+			step = math.Min(0.5, step*2)
+			continue
+		}
+		step /= 4
+		if step < 1e-6 {
+			return false
+		}
+	}
+	*x = cur
+	return true
+}
+
+// operatingPoint fills the result from converged junction voltages.
+func (ck *circuit) operatingPoint(s Stage, d *device, x [2]float64, sg float64) OperatingPoint {
+	ib, ic, _, _, _, _ := d.currents(x[0], x[1])
+	vb := ck.b0 + ck.bb*ib + ck.bc*ic
+	vc := ck.c0 + ck.cb*ib + ck.cc*ic
+	ve := ck.e0 + ck.eb*ib + ck.ec*ic
+	op := OperatingPoint{
+		Region: d.region(x[0], x[1]),
+		IB_A:   ib,
+		IC_A:   ic,
+		IE_A:   ib + ic,
+		VB_V:   vb * sg,
+		VC_V:   vc * sg,
+		VE_V:   ve * sg,
+		VCE_V:  vc - ve,
+		VBE_V:  vb - ve,
+	}
+	r := &s.R_Ohm
+	vcc := s.VCC_V * sg
+	pw := func(v, rr float64) float64 {
+		if rr <= 0 {
+			return 0
+		}
+		return v * v / rr
+	}
+	switch s.Topology {
+	case Divider:
+		op.P_W[R1] = pw(vcc-vb, r[R1])
+		op.P_W[R2] = pw(vb, r[R2])
+		op.P_W[RC] = pw(vcc-vc, r[RC])
+		op.P_W[RE] = pw(ve, r[RE])
+		op.IDivider_A = vb / r[R2]
+	case CollectorFeedback:
+		op.P_W[RF] = pw(vc-vb, r[RF])
+		op.P_W[RC] = pw(vcc-vc, r[RC])
+		op.P_W[RE] = pw(ve, r[RE])
+	case SplitSupply:
+		op.P_W[RB] = pw(vb, r[RB])
+		op.P_W[RC] = pw(vcc-vc, r[RC])
+		op.P_W[RE] = pw(ve-ck.e0, r[RE])
+		if r[RB] > 0 {
+			op.IDivider_A = -vb / r[RB]
+		} else {
+			op.IDivider_A = ib
+		}
+	}
+	op.PTransistor_W = op.VCE_V*op.IC_A + op.VBE_V*op.IB_A
+	return op
+}
+
+// region names the operating region from the junction biases: a junction
+// conducts once its ideal diode current reaches regionOn_A, and the stage
+// is saturated once the base-collector injection reaches regionSatRatio of
+// the base-emitter injection (see doc.go).
+func (d *device) region(vbe, vbc float64) Region {
+	fwd := d.is * math.Expm1(math.Min(vbe/d.nvt, expArgMax))
+	rev := d.is * math.Expm1(math.Min(vbc/d.vt, expArgMax))
+	switch {
+	case fwd < regionOn_A && rev < regionOn_A:
+		return Cutoff
+	case fwd >= regionOn_A && rev < regionSatRatio*fwd:
+		return Active
+	case rev >= regionOn_A && fwd < regionSatRatio*rev:
+		return ReverseActive
+	}
+	return Saturation
+}
+
+func (op *OperatingPoint) finite() bool {
+	vals := []float64{op.IB_A, op.IC_A, op.IE_A, op.VB_V, op.VC_V, op.VE_V, op.VCE_V, op.VBE_V,
+		op.IDivider_A, op.PTransistor_W, op.Tj_C}
+	for _, v := range vals {
+		if !finite(v) {
+			return false
+		}
+	}
+	for _, v := range op.P_W {
+		if !finite(v) {
+			return false
+		}
+	}
+	return true
+}
