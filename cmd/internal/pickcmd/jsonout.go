@@ -1,0 +1,256 @@
+package pickcmd
+
+import (
+	"encoding/json"
+	"io"
+	"math"
+
+	"biasbin/cmd/internal/report"
+	"biasbin/picker"
+	"biasbin/solver"
+)
+
+// jsonResult is the --json document. Units are SI base units; keys carry
+// the unit (ic_a, vce_v).
+type jsonResult struct {
+	Request    jsonRequest     `json:"request"`
+	Evaluated  int64           `json:"evaluated"`
+	Considered int64           `json:"considered"`
+	Fits       bool            `json:"fits"`
+	Candidates []jsonCandidate `json:"candidates"`
+	Shortfall  *jsonShortfall  `json:"shortfall"`
+	Cautions   []string        `json:"cautions"`
+}
+
+type jsonRequest struct {
+	Topology     string   `json:"topology"`
+	Polarity     string   `json:"polarity"`
+	VCC_V        float64  `json:"vcc_v"`
+	VCCTol       float64  `json:"vcc_tol"`
+	IC_A         float64  `json:"ic_a"`
+	VCE_V        float64  `json:"vce_v"` // 0 = the maximum-symmetrical-swing rule
+	AmbientMin_C float64  `json:"ambient_min_c"`
+	AmbientMax_C float64  `json:"ambient_max_c"`
+	Boards       int      `json:"boards"`
+	Load_Ohm     float64  `json:"load_ohms"`
+	Bypass       bool     `json:"bypass"`
+	Pairs        bool     `json:"pairs"`
+	RequireTags  []string `json:"require_tags"`
+	Top          int      `json:"top"`
+	Exhaustive   bool     `json:"exhaustive"`
+	Seed         uint64   `json:"seed"`
+}
+
+type jsonCandidate struct {
+	ID              string                  `json:"id"`
+	Rank            int                     `json:"rank"`
+	Score           float64                 `json:"score"`
+	Terms           jsonTerms               `json:"terms"`
+	Transistor      jsonTransistor          `json:"transistor"`
+	Resistors       map[string]jsonPosition `json:"resistors"`
+	Nominal         jsonNominal             `json:"nominal"`
+	Worst           jsonWorst               `json:"worst"`
+	TestPoints      map[string]jsonBand     `json:"test_points"`
+	Yield           float64                 `json:"yield"`
+	YieldStdErr     float64                 `json:"yield_stderr"`
+	YieldBoards     int                     `json:"yield_boards"`
+	BetaSensitivity float64                 `json:"beta_sensitivity"`
+	MaxUtilization  float64                 `json:"max_utilization"`
+	Model           report.Model            `json:"model"`
+	Pull            []jsonPull              `json:"pull"`
+	Failing         []string                `json:"failing"`
+}
+
+type jsonTerms struct {
+	QPoint      float64 `json:"qpoint"`
+	Beta        float64 `json:"beta"`
+	Headroom    float64 `json:"headroom"`
+	Utilization float64 `json:"utilization"`
+	Yield       float64 `json:"yield"`
+}
+
+type jsonTransistor struct {
+	Label string `json:"label"`
+	ID    int64  `json:"id"`
+	Bin   string `json:"bin"`
+}
+
+type jsonPosition struct {
+	Ohms        float64    `json:"ohms"`
+	Code        string     `json:"code"`
+	Arrangement string     `json:"arrangement"`
+	Tol         float64    `json:"tol"`
+	Rated_W     float64    `json:"rated_w"`
+	Parts       []jsonPart `json:"parts"`
+}
+
+type jsonPart struct {
+	ID   int64   `json:"id"`
+	Ohms float64 `json:"ohms"`
+	Bin  string  `json:"bin"`
+}
+
+type jsonNominal struct {
+	IC_A  float64 `json:"ic_a"`
+	IB_A  float64 `json:"ib_a"`
+	VCE_V float64 `json:"vce_v"`
+	VB_V  float64 `json:"vb_v"`
+	VE_V  float64 `json:"ve_v"`
+	VC_V  float64 `json:"vc_v"`
+	Beta  float64 `json:"beta"`
+	Tj_C  float64 `json:"tj_c"`
+}
+
+type jsonWorst struct {
+	ICMin_A   float64 `json:"ic_min_a"`
+	ICMax_A   float64 `json:"ic_max_a"`
+	VCEMin_V  float64 `json:"vce_min_v"`
+	VCEMax_V  float64 `json:"vce_max_v"`
+	AllActive bool    `json:"all_active"`
+}
+
+type jsonBand struct {
+	Nominal_V float64 `json:"nominal_v"`
+	Min_V     float64 `json:"min_v"`
+	Max_V     float64 `json:"max_v"`
+}
+
+type jsonPull struct {
+	ID      int64  `json:"id"`
+	Kind    string `json:"kind"`
+	Value   string `json:"value"`
+	Bin     string `json:"bin"`
+	Qty     int    `json:"qty"`
+	OnHand  int    `json:"on_hand"`
+	Missing int    `json:"missing"`
+}
+
+type jsonShortfall struct {
+	Reasons []string `json:"reasons"`
+	Buy     []string `json:"buy"`
+}
+
+// writeJSON writes the whole result as one indented JSON document.
+func writeJSON(w io.Writer, v view) error {
+	doc := jsonResult{
+		Request:    jsonRequestOf(v.req),
+		Evaluated:  v.res.Evaluated,
+		Considered: v.res.Considered,
+		Fits:       v.fits(),
+		Candidates: []jsonCandidate{},
+		Cautions:   v.cautions(),
+	}
+	if doc.Cautions == nil {
+		doc.Cautions = []string{}
+	}
+	for _, c := range v.res.Candidates {
+		doc.Candidates = append(doc.Candidates, v.jsonCandidate(c))
+	}
+	if s := v.res.Shortfall; s != nil {
+		doc.Shortfall = &jsonShortfall{Reasons: nonNil(s.Reasons), Buy: nonNil(s.Buy)}
+	}
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(doc)
+}
+
+func jsonRequestOf(r picker.Request) jsonRequest {
+	return jsonRequest{
+		Topology:     r.Topology.String(),
+		Polarity:     r.Polarity.String(),
+		VCC_V:        r.VCC_V,
+		VCCTol:       r.VCCTol,
+		IC_A:         r.IC_A,
+		VCE_V:        r.VCE_V,
+		AmbientMin_C: r.AmbientMin_C,
+		AmbientMax_C: r.AmbientMax_C,
+		Boards:       r.Boards,
+		Load_Ohm:     r.RL_Ohm,
+		Bypass:       r.Bypass,
+		Pairs:        r.Pairs,
+		RequireTags:  nonNil(r.RequireTags),
+		Top:          r.Top,
+		Exhaustive:   r.Exhaustive,
+		Seed:         r.Seed,
+	}
+}
+
+func (v view) jsonCandidate(c picker.Candidate) jsonCandidate {
+	jc := jsonCandidate{
+		ID:    c.ID,
+		Rank:  c.Rank,
+		Score: c.Score,
+		Terms: jsonTerms{
+			QPoint:      c.Terms.QPoint,
+			Beta:        c.Terms.Beta,
+			Headroom:    c.Terms.Headroom,
+			Utilization: c.Terms.Utilization,
+			Yield:       c.Terms.Yield,
+		},
+		Transistor: jsonTransistor{Label: c.Transistor.Sheet.Label, ID: c.Transistor.ID, Bin: c.Transistor.Bin},
+		Resistors:  map[string]jsonPosition{},
+		Nominal: jsonNominal{
+			IC_A:  c.Nominal.IC_A,
+			IB_A:  c.Nominal.IB_A,
+			VCE_V: c.Nominal.VCE_V,
+			VB_V:  c.Nominal.VB_V,
+			VE_V:  c.Nominal.VE_V,
+			VC_V:  c.Nominal.VC_V,
+			Beta:  betaAt(c.Nominal),
+			Tj_C:  c.Nominal.Tj_C,
+		},
+		Worst: jsonWorst{
+			ICMin_A:   c.Worst.ICMin_A,
+			ICMax_A:   c.Worst.ICMax_A,
+			VCEMin_V:  c.Worst.VCEMin_V,
+			VCEMax_V:  c.Worst.VCEMax_V,
+			AllActive: c.Worst.AllActive,
+		},
+		TestPoints:      map[string]jsonBand{},
+		Yield:           c.Yield.Yield,
+		YieldStdErr:     c.Yield.StdErr,
+		YieldBoards:     c.Yield.Boards,
+		BetaSensitivity: c.BetaSensitivity,
+		MaxUtilization:  c.MaxUtilization,
+		Model:           report.ModelOf(c.Model),
+		Failing:         nonNil(c.Failing),
+	}
+	for _, slot := range slotsOf(c) {
+		p := c.Positions[slot]
+		jp := jsonPosition{
+			Ohms:        p.Ohm,
+			Code:        positionCode(p),
+			Arrangement: p.Arrangement,
+			Tol:         p.Spec.Tol,
+			Rated_W:     p.Spec.Rated_W,
+			Parts:       []jsonPart{},
+		}
+		for _, part := range p.Parts {
+			jp.Parts = append(jp.Parts, jsonPart{ID: part.ID, Ohms: part.Ohm, Bin: part.Bin})
+		}
+		jc.Resistors[slot] = jp
+	}
+	for _, tp := range testPoints(c) {
+		jc.TestPoints[tp.name] = jsonBand{Nominal_V: tp.nominal, Min_V: tp.lo, Max_V: tp.hi}
+	}
+	for _, p := range v.pullList(c) {
+		jc.Pull = append(jc.Pull, jsonPull{ID: p.id, Kind: p.kind, Value: p.value, Bin: p.bin, Qty: p.qty, OnHand: p.onHand, Missing: max(0, p.qty-p.onHand)})
+	}
+	return jc
+}
+
+// betaAt is IC/IB at the operating point (0 when IB is zero).
+func betaAt(op solver.OperatingPoint) float64 {
+	if op.IB_A == 0 || math.IsNaN(op.IB_A) {
+		return 0
+	}
+	return op.IC_A / op.IB_A
+}
+
+// nonNil turns a nil slice into an empty one so JSON shows [] not null.
+func nonNil[T any](s []T) []T {
+	if s == nil {
+		return []T{}
+	}
+	return s
+}

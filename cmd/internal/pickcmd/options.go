@@ -1,0 +1,61 @@
+package pickcmd
+
+import (
+	"context"
+	"time"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/picker"
+	"biasbin/store"
+)
+
+// Options are the pick command's inputs: the flags as typed (parsed by
+// request) and what the command needs from outside, injectable by tests.
+type Options struct {
+	IO *cmdutil.IOStreams
+	// Store opens the stock (the factory's lazy store outside tests).
+	Store func(context.Context) (*store.DB, error)
+	// Pick runs the search (picker.Pick outside tests).
+	Pick func(picker.Stock, picker.Request) (picker.Result, error)
+	// Now reads the clock for the progress indicator (time.Now outside tests).
+	Now func() time.Time
+
+	VCC         string
+	VCCTol      string
+	IC          string
+	VCE         string
+	Polarity    string
+	Topology    string
+	Ambient     string
+	Boards      int
+	Load        string
+	Bypass      bool
+	ICWindow    string
+	VCEWindow   string
+	Weights     string
+	Pairs       bool
+	RequireTags []string
+	Top         int
+	Exhaustive  bool
+	ShowFailing bool
+	Seed        uint64
+	JSON        bool
+}
+
+// Flag defaults, shown in --help.
+const (
+	defaultVCCTol    = "5%"
+	defaultAmbient   = "0..50"
+	defaultICWindow  = "10%"
+	defaultVCEWindow = "20%"
+	defaultTop       = 5
+	defaultBoards    = 1
+	defaultSeed      = 1
+	// hotSupply_V is the supply above which pick prints its hot-parts
+	// caution: 50 V is the usual extra-low-voltage boundary for DC work
+	// (common practice; local rules differ).
+	hotSupply_V = 50.0
+	// nearRating is the utilization of the design limit above which a part
+	// earns a caution (common practice).
+	nearRating = 0.8
+)

@@ -1,0 +1,290 @@
+// Package pickcmd implements `biasbin pick`: search the stock for the best
+// bias builds for a target operating point and show what to pull from
+// which bin.
+package pickcmd
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/picker"
+	"biasbin/solver"
+	"biasbin/store"
+)
+
+// New returns the pick command.
+func New(f *cmdutil.Factory) *cobra.Command { return newCmd(f, nil) }
+
+// newCmd builds the command; runF, when not nil, replaces Run so flag
+// tests can inspect the parsed options.
+func newCmd(f *cmdutil.Factory, runF func(*Options) error) *cobra.Command {
+	o := &Options{IO: f.IO, Store: f.Store, Pick: picker.Pick, Now: time.Now}
+	cmd := &cobra.Command{
+		Use:   "pick --vcc V --ic I [flags]",
+		Short: "Find the best bias builds from the parts in stock",
+		Long: `Search the stocked resistors and transistors for divider-bias builds that
+hit the target Q-point and hold it over the transistor's hFE spread, part
+tolerances, supply tolerance and the ambient range, without running any part
+beyond its derated rating. Builds are ranked; each shows the parts to pull
+from which bin for the number of boards, the nominal Q-point, the worst-case
+band, the voltages to measure at bring-up and the Monte Carlo yield.
+
+Values take the letter-and-digit code or SI: 12V, 2mA, 4K7, 470R, 10k.
+
+Without --vce the target VCE is the one that gives the largest symmetrical
+swing: VCE - VCE(sat) = IC * r_ac, where r_ac = RC‖RL plus the unbypassed
+part of RE (RC alone with no --load), chosen per build.
+
+Yield windows: a percentage is a band around the target (--ic-window 10%),
+a range is absolute (--vce-window 4V..8V). Without --vce, the VCE band is
+the picker's per-build default (±20 % of that build's target) unless given
+as a range.
+
+Ranking weights (--weights NAME=VALUE,...; NAME one of q, beta, headroom,
+util, yield): every term is at least 0 and lower is better; the score is
+their weighted sum. A weight of 0 ignores a term; negative weights are
+refused. Terms left out keep their default of 1.
+
+When nothing fits, pick writes the reasons and the parts to buy on stderr,
+the nearest builds (each with the limit it fails) on stdout, and exits 1.
+Bad flags exit 2. pick only reads the stock; it never changes it.`,
+		Example: `  biasbin pick --vcc 12V --ic 2mA
+  biasbin pick --vcc 9V --ic 500uA --polarity pnp --boards 20 --pairs
+  biasbin pick --vcc 15V --ic 1mA --vce 6V --load 10K --bypass --weights q=2,yield=0.5 --json`,
+		Args: func(_ *cobra.Command, args []string) error {
+			if len(args) > 0 {
+				return cmdutil.Usagef("pick takes no arguments, only flags (got %q); e.g. biasbin pick --vcc 12V --ic 2mA", args[0])
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, _ []string) error {
+			if runF != nil {
+				return runF(o)
+			}
+			return Run(cmd.Context(), o)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&o.VCC, "vcc", "", "supply voltage, e.g. 12V (a magnitude; the rail is negative for --polarity pnp)")
+	fl.StringVar(&o.VCCTol, "vcc-tol", defaultVCCTol, "supply tolerance")
+	fl.StringVar(&o.IC, "ic", "", "target collector current, e.g. 2mA")
+	fl.StringVar(&o.VCE, "vce", "", "target VCE (default: the maximum-symmetrical-swing rule, see above)")
+	fl.StringVar(&o.Polarity, "polarity", "npn", "transistor polarity: npn or pnp")
+	fl.StringVar(&o.Topology, "topology", "divider", "bias circuit (divider; others not yet supported)")
+	fl.StringVar(&o.Ambient, "ambient", defaultAmbient, "ambient temperature range in °C, MIN..MAX")
+	fl.IntVar(&o.Boards, "boards", defaultBoards, "boards to build; every part is needed this many times")
+	fl.StringVar(&o.Load, "load", "", "AC load on the collector, e.g. 10K (for the AC load line)")
+	fl.BoolVar(&o.Bypass, "bypass", false, "RE is bypassed by a capacitor for AC")
+	fl.StringVar(&o.ICWindow, "ic-window", defaultICWindow, "yield window for IC: ±percent of --ic, or MIN..MAX")
+	fl.StringVar(&o.VCEWindow, "vce-window", defaultVCEWindow, "yield window for VCE: ±percent of --vce, or MIN..MAX")
+	fl.StringVar(&o.Weights, "weights", "", "ranking weights, e.g. q=2,beta=1,headroom=1,util=1,yield=1")
+	fl.BoolVar(&o.Pairs, "pairs", false, "also use series and parallel pairs of two stocked resistors")
+	fl.StringArrayVar(&o.RequireTags, "require-tag", nil, "use only parts carrying this tag (repeatable)")
+	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
+	fl.BoolVar(&o.Exhaustive, "exhaustive", false, "evaluate every combination instead of the pruned search")
+	fl.BoolVar(&o.ShowFailing, "show-failing", false, "also show builds that break a hard limit, with the reason")
+	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "seed of the Monte Carlo yield runs")
+	fl.BoolVar(&o.JSON, "json", false, "write the result as JSON")
+	return cmd
+}
+
+// Run executes a pick with o; tests call it with buffer streams.
+func Run(ctx context.Context, o *Options) error {
+	if ctx == nil {
+		ctx = context.Background()
+	}
+	req, err := o.request()
+	if err != nil {
+		return err
+	}
+	db, err := o.Store(ctx)
+	if err != nil {
+		return err
+	}
+	stock, err := readStock(ctx, db)
+	if err != nil {
+		return err
+	}
+	if err := checkStock(stock, req); err != nil {
+		return err
+	}
+	if o.IO.IsStderrTTY() {
+		now := o.Now
+		if now == nil {
+			now = time.Now
+		}
+		p := newProgress(o.IO.ErrOut, now)
+		req.Progress = p.update
+		defer p.finish()
+	}
+	res, err := o.Pick(stock, req)
+	if err != nil {
+		return pickError(err)
+	}
+	if !req.ShowFailing && !(view{res: res}).fits() {
+		// Nothing fits: search again for the nearest builds, which the
+		// picker lists only on request, each with the limit it breaks.
+		near := req
+		near.ShowFailing = true
+		nres, err := o.Pick(stock, near)
+		if err != nil {
+			return pickError(err)
+		}
+		if nres.Shortfall == nil {
+			nres.Shortfall = res.Shortfall
+		}
+		res = nres
+	}
+	req.Progress = nil
+	v := view{req: req, res: res, stock: stock}
+	if o.JSON {
+		if err := writeJSON(o.IO.Out, v); err != nil {
+			return fmt.Errorf("write JSON: %w", err)
+		}
+	} else {
+		writeText(o.IO.Out, v)
+	}
+	writeNotes(o.IO.ErrOut, v)
+	if !v.fits() {
+		return cmdutil.ErrSilent
+	}
+	return nil
+}
+
+// pickError wraps a search error; a bad request is a usage error (exit 2).
+func pickError(err error) error {
+	var in *solver.InputError
+	if errors.As(err, &in) {
+		return &cmdutil.UsageError{Err: fmt.Errorf("pick: %w", err)}
+	}
+	return fmt.Errorf("pick: %w", err)
+}
+
+// readStock reads every stock line and converts it for the picker.
+func readStock(ctx context.Context, db *store.DB) (picker.Stock, error) {
+	rs, err := db.ListResistors(ctx, store.Filter{})
+	if err != nil {
+		return picker.Stock{}, fmt.Errorf("read resistor stock: %w", err)
+	}
+	ts, err := db.ListTransistors(ctx, store.Filter{})
+	if err != nil {
+		return picker.Stock{}, fmt.Errorf("read transistor stock: %w", err)
+	}
+	return toStock(rs, ts)
+}
+
+// checkStock refuses a search that cannot find anything because a kind of
+// part is missing altogether, naming what to add.
+func checkStock(st picker.Stock, req picker.Request) error {
+	tagged := func(tags []string) bool {
+		for _, want := range req.RequireTags {
+			found := false
+			for _, t := range tags {
+				if strings.EqualFold(t, want) {
+					found = true
+				}
+			}
+			if !found {
+				return false
+			}
+		}
+		return true
+	}
+	tagNote := ""
+	if len(req.RequireTags) > 0 {
+		tagNote = " tagged " + strings.Join(req.RequireTags, " and ")
+	}
+	var nRes int
+	for _, r := range st.Resistors {
+		if r.Qty > 0 && tagged(r.Tags) {
+			nRes++
+		}
+	}
+	if nRes == 0 {
+		if tagNote != "" {
+			return fmt.Errorf("no resistor in stock is%s: tag the approved lines with `biasbin stock tag ID TAG`, or drop --require-tag", tagNote)
+		}
+		return errors.New("the stock holds no resistors: add them with `biasbin stock import FILE.csv` or `biasbin stock add resistor VALUE ...` (`biasbin demo` shows a stocked run)")
+	}
+	var same, other int
+	for _, t := range st.Transistors {
+		if t.Qty == 0 || !tagged(t.Tags) {
+			continue
+		}
+		if t.Sheet.Polarity == req.Polarity {
+			same++
+		} else {
+			other++
+		}
+	}
+	if same == 0 {
+		pol := strings.ToUpper(req.Polarity.String())
+		msg := fmt.Sprintf("no %s transistor in stock%s: add one with `biasbin stock add transistor LABEL --polarity %s --hfe MIN..MAX ...`",
+			pol, tagNote, req.Polarity)
+		if other > 0 {
+			flip := solver.NPN
+			if req.Polarity == solver.NPN {
+				flip = solver.PNP
+			}
+			msg += fmt.Sprintf(", or design for --polarity %s (%d line%s in stock)", flip, other, plural(other))
+		}
+		return errors.New(msg)
+	}
+	return nil
+}
+
+// writeText writes the readable result: the request, each build, and the
+// pull list of the best build that fits. When nothing fits the builds shown
+// are the nearest ones, each with the limit it breaks.
+func writeText(w io.Writer, v view) {
+	writeHeader(w, v)
+	if len(v.res.Candidates) == 0 {
+		fmt.Fprintln(w, "\nno build to show")
+		return
+	}
+	if !v.fits() {
+		fmt.Fprintln(w, "\nNothing fits. The nearest builds, each with the limit it breaks:")
+	}
+	for _, c := range v.res.Candidates {
+		writeCandidate(w, v, c)
+	}
+	for _, c := range v.res.Candidates {
+		if len(c.Failing) == 0 {
+			writePullList(w, v, c)
+			break
+		}
+	}
+}
+
+// writeNotes writes the shortfall explanation, the parts to buy and the
+// hot-part cautions on stderr.
+func writeNotes(w io.Writer, v view) {
+	if s := v.res.Shortfall; s != nil && (len(s.Reasons) > 0 || len(s.Buy) > 0) {
+		if v.fits() {
+			fmt.Fprintln(w, "note: the stock limits this search:")
+		} else {
+			fmt.Fprintln(w, "nothing fits this request:")
+		}
+		for _, r := range s.Reasons {
+			fmt.Fprintf(w, "  - %s\n", r)
+		}
+		if len(s.Buy) > 0 {
+			fmt.Fprintln(w, "parts to buy for a good build:")
+			for _, b := range s.Buy {
+				fmt.Fprintf(w, "  - %s\n", b)
+			}
+		}
+	} else if !v.fits() {
+		fmt.Fprintln(w, "nothing fits this request; the nearest builds above show which limit each breaks")
+	}
+	for _, c := range v.cautions() {
+		fmt.Fprintf(w, "caution: %s\n", c)
+	}
+}

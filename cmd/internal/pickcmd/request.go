@@ -1,0 +1,256 @@
+package pickcmd
+
+import (
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/picker"
+	"biasbin/solver"
+	"biasbin/solver/notation"
+)
+
+// request turns the flags into a picker request. Every mistake comes back
+// as a *cmdutil.UsageError naming the flag, what is wrong and how to fix it.
+func (o *Options) request() (picker.Request, error) {
+	var req picker.Request
+	top, err := parseTopology(o.Topology)
+	if err != nil {
+		return req, err
+	}
+	req.Topology = top
+
+	pol, err := solver.ParsePolarity(strings.TrimSpace(o.Polarity))
+	if err != nil {
+		return req, cmdutil.Usagef("--polarity %q: want npn or pnp", o.Polarity)
+	}
+	req.Polarity = pol
+
+	if o.VCC == "" {
+		return req, cmdutil.Usagef("--vcc is required: the supply voltage, e.g. --vcc 12V")
+	}
+	vcc, err := notation.ParseVoltage(o.VCC)
+	if err != nil {
+		return req, cmdutil.Usagef("--vcc: %v", err)
+	}
+	switch {
+	case vcc == 0:
+		return req, cmdutil.Usagef("--vcc 0: a stage needs a supply; give its voltage, e.g. --vcc 12V")
+	case vcc < 0 && pol == solver.NPN:
+		return req, cmdutil.Usagef("--vcc %s: an NPN stage needs a positive supply; give --vcc %s, or --polarity pnp", o.VCC, strings.TrimPrefix(strings.TrimSpace(o.VCC), "-"))
+	}
+	mag := math.Abs(vcc)
+	req.VCC_V = mag
+	if pol == solver.PNP {
+		req.VCC_V = -mag // PNP rails are signed: the mirror of the NPN stage
+	}
+
+	if req.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
+		return req, cmdutil.Usagef("--vcc-tol: %v", err)
+	}
+	if req.VCCTol >= 0.5 {
+		return req, cmdutil.Usagef("--vcc-tol %s: a supply tolerance must be below 50 %%; typical is 5%%", o.VCCTol)
+	}
+
+	if o.IC == "" {
+		return req, cmdutil.Usagef("--ic is required: the target collector current, e.g. --ic 2mA")
+	}
+	if req.IC_A, err = notation.ParseCurrent(o.IC); err != nil {
+		return req, cmdutil.Usagef("--ic: %v", err)
+	}
+	if req.IC_A <= 0 {
+		return req, cmdutil.Usagef("--ic %s: the collector current must be positive (a magnitude for PNP too), e.g. --ic 2mA", o.IC)
+	}
+
+	if o.VCE != "" {
+		if req.VCE_V, err = notation.ParseVoltage(o.VCE); err != nil {
+			return req, cmdutil.Usagef("--vce: %v", err)
+		}
+		req.VCE_V = math.Abs(req.VCE_V)
+		if req.VCE_V == 0 {
+			return req, cmdutil.Usagef("--vce 0: the transistor would sit in saturation; give a VCE between 1 V and the supply, or leave --vce out for the swing rule")
+		}
+		if req.VCE_V >= mag*(1-req.VCCTol) {
+			return req, cmdutil.Usagef("--vce %s cannot exist on a %s supply (lowest %s at -%s): VCE must stay below the supply; lower --vce or raise --vcc",
+				o.VCE, trimV(mag), trimV(mag*(1-req.VCCTol)), strings.TrimSpace(o.VCCTol))
+		}
+	}
+
+	if req.AmbientMin_C, req.AmbientMax_C, err = parseAmbient(o.Ambient); err != nil {
+		return req, err
+	}
+
+	if o.Boards < 1 {
+		return req, cmdutil.Usagef("--boards %d: build at least one board", o.Boards)
+	}
+	req.Boards = o.Boards
+
+	if o.Load != "" {
+		if req.RL_Ohm, err = notation.ParseOhms(o.Load); err != nil {
+			return req, cmdutil.Usagef("--load: %v", err)
+		}
+		if req.RL_Ohm <= 0 {
+			return req, cmdutil.Usagef("--load %s: the AC load must be a positive resistance, e.g. --load 10K", o.Load)
+		}
+	}
+	req.Bypass = o.Bypass
+
+	if req.Window, err = o.window(req); err != nil {
+		return req, err
+	}
+	if req.Weights, err = parseWeights(o.Weights); err != nil {
+		return req, err
+	}
+	if o.Top < 1 {
+		return req, cmdutil.Usagef("--top %d: show at least one build", o.Top)
+	}
+	req.Top = o.Top
+	req.Pairs = o.Pairs
+	req.Exhaustive = o.Exhaustive
+	req.ShowFailing = o.ShowFailing
+	req.Seed = o.Seed
+	for _, t := range o.RequireTags {
+		t = strings.ToLower(strings.TrimSpace(t))
+		if t == "" {
+			return req, cmdutil.Usagef("--require-tag: empty tag; give a word such as approved")
+		}
+		if !slices.Contains(req.RequireTags, t) {
+			req.RequireTags = append(req.RequireTags, t)
+		}
+	}
+	return req, nil
+}
+
+// parseTopology accepts the divider; the other topologies are known but not
+// searched yet.
+func parseTopology(s string) (solver.Topology, error) {
+	t, err := solver.ParseTopology(strings.TrimSpace(s))
+	if err != nil {
+		return 0, cmdutil.Usagef("--topology %q: want divider", s)
+	}
+	if t != solver.Divider {
+		return 0, cmdutil.Usagef("--topology %s: not yet supported by pick; use --topology divider (biasbin check analyses a %s build you name)", t, t)
+	}
+	return t, nil
+}
+
+// parseAmbient reads "MIN..MAX" in °C.
+func parseAmbient(s string) (lo, hi float64, err error) {
+	if !strings.Contains(s, "..") {
+		return 0, 0, cmdutil.Usagef("--ambient %q: want a range in °C like 0..50 or -10..60", s)
+	}
+	if lo, hi, err = notation.ParseRange(s, notation.ParseTemperature); err != nil {
+		return 0, 0, cmdutil.Usagef("--ambient: %v (want a range in °C like 0..50 or -10..60)", err)
+	}
+	if lo < -55 || hi > 150 {
+		return 0, 0, cmdutil.Usagef("--ambient %s: outside -55..150 °C, the range the device model covers", s)
+	}
+	return lo, hi, nil
+}
+
+// window builds the yield window. A percentage is a band around the target;
+// a range "A..B" is absolute. Without --vce the VCE target is chosen per
+// build, so a VCE percentage is left to the picker's documented default and
+// only an absolute range can replace it.
+func (o *Options) window(req picker.Request) (solver.Window, error) {
+	var w solver.Window
+	icDefault := strings.TrimSpace(o.ICWindow) == defaultICWindow
+	vceDefault := strings.TrimSpace(o.VCEWindow) == defaultVCEWindow
+	if req.VCE_V == 0 && icDefault && vceDefault {
+		return w, nil // the picker's own default window, per build
+	}
+	var err error
+	if w.ICMin_A, w.ICMax_A, err = band("--ic-window", o.ICWindow, req.IC_A, "A", notation.ParseCurrent); err != nil {
+		return w, err
+	}
+	if req.VCE_V == 0 && isPercent(o.VCEWindow) {
+		if !vceDefault {
+			return w, cmdutil.Usagef("--vce-window %s: a percentage needs a target --vce; without it give a range such as 4V..8V", o.VCEWindow)
+		}
+		// Only the IC band was changed: any VCE inside the supply passes.
+		w.VCEMin_V, w.VCEMax_V = 0, math.Abs(req.VCC_V)*(1+req.VCCTol)
+		return w, nil
+	}
+	if w.VCEMin_V, w.VCEMax_V, err = band("--vce-window", o.VCEWindow, req.VCE_V, "V", notation.ParseVoltage); err != nil {
+		return w, err
+	}
+	return w, nil
+}
+
+// isPercent reports whether a window flag is written as a percentage.
+func isPercent(s string) bool { return strings.HasSuffix(strings.TrimSpace(s), "%") }
+
+// band reads "±P%" around target or an absolute "A..B".
+func band(flag, s string, target float64, unit string, parse func(string) (float64, error)) (lo, hi float64, err error) {
+	if strings.Contains(s, "..") {
+		if lo, hi, err = notation.ParseRange(s, parse); err != nil {
+			return 0, 0, cmdutil.Usagef("%s: %v", flag, err)
+		}
+		if lo == hi || lo < 0 {
+			return 0, 0, cmdutil.Usagef("%s %s: the band is empty or negative; give MIN..MAX magnitudes, e.g. 1.8m%s..2.2m%s", flag, s, unit, unit)
+		}
+		return lo, hi, nil
+	}
+	if !isPercent(s) {
+		return 0, 0, cmdutil.Usagef("%s %q: want a percentage like 10%% or a range like A..B", flag, s)
+	}
+	f, err := notation.ParseTolerance(s)
+	if err != nil {
+		return 0, 0, cmdutil.Usagef("%s: %v", flag, err)
+	}
+	if f <= 0 || f >= 1 {
+		return 0, 0, cmdutil.Usagef("%s %s: want a band between 0 and 100 %%, e.g. 10%%", flag, s)
+	}
+	return target * (1 - f), target * (1 + f), nil
+}
+
+// weightNames maps the names --weights accepts to the field they set.
+var weightNames = map[string]func(*picker.Weights) *float64{
+	"q":           func(w *picker.Weights) *float64 { return &w.QPoint },
+	"qpoint":      func(w *picker.Weights) *float64 { return &w.QPoint },
+	"beta":        func(w *picker.Weights) *float64 { return &w.Beta },
+	"headroom":    func(w *picker.Weights) *float64 { return &w.Headroom },
+	"util":        func(w *picker.Weights) *float64 { return &w.Utilization },
+	"utilization": func(w *picker.Weights) *float64 { return &w.Utilization },
+	"yield":       func(w *picker.Weights) *float64 { return &w.Yield },
+}
+
+// parseWeights reads "q=2,beta=1,..." on top of the default weights.
+// An empty string means the defaults.
+func parseWeights(s string) (picker.Weights, error) {
+	if strings.TrimSpace(s) == "" {
+		return picker.Weights{}, nil
+	}
+	w := defaultWeights()
+	for item := range strings.SplitSeq(s, ",") {
+		name, val, ok := strings.Cut(strings.TrimSpace(item), "=")
+		name = strings.ToLower(strings.TrimSpace(name))
+		field, known := weightNames[name]
+		if !ok || !known {
+			return picker.Weights{}, cmdutil.Usagef("--weights %q: want NAME=VALUE pairs with NAME one of q, beta, headroom, util, yield, e.g. --weights q=2,yield=0.5", item)
+		}
+		v, err := strconv.ParseFloat(strings.TrimSpace(val), 64)
+		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+			return picker.Weights{}, cmdutil.Usagef("--weights %s: %q is not a number", name, val)
+		}
+		if v < 0 {
+			return picker.Weights{}, cmdutil.Usagef("--weights %s=%s: a weight cannot be negative; use 0 to ignore the term or a positive number to stress it", name, strings.TrimSpace(val))
+		}
+		*field(&w) = v
+	}
+	return w, nil
+}
+
+// trimV writes a voltage for messages, e.g. "12 V".
+func trimV(v float64) string { return trimNum(v) + " V" }
+
+// trimNum writes a number with no trailing zeros.
+func trimNum(v float64) string { return strconv.FormatFloat(v, 'g', 4, 64) }
+
+// defaultWeights returns the picker's documented default weights, used for
+// the terms --weights leaves out.
+func defaultWeights() picker.Weights {
+	return picker.Weights{QPoint: 1, Beta: 1, Headroom: 1, Utilization: 1, Yield: 1} // PENDING: picker.DefaultWeights
+}

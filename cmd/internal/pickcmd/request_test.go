@@ -1,0 +1,187 @@
+package pickcmd
+
+import (
+	"bytes"
+	"errors"
+	"math"
+	"slices"
+	"strings"
+	"testing"
+
+	"github.com/spf13/cobra"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/picker"
+	"biasbin/solver"
+)
+
+// parseFlags runs the command's flag parsing on args and returns the
+// request it builds, or the error a user would see.
+func parseFlags(t *testing.T, args []string) (picker.Request, error) {
+	t.Helper()
+	var out, errOut bytes.Buffer
+	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	var req picker.Request
+	cmd := newCmd(f, func(o *Options) error {
+		var err error
+		req, err = o.request()
+		return err
+	})
+	cmd.SetArgs(args)
+	cmd.SetOut(&out)
+	cmd.SetErr(&errOut)
+	cmd.SilenceUsage, cmd.SilenceErrors = true, true
+	cmd.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return &cmdutil.UsageError{Err: err} })
+	err := cmd.Execute()
+	if out.Len() != 0 {
+		t.Errorf("flag parsing wrote to stdout: %q", out.String())
+	}
+	return req, err
+}
+
+func near(a, b float64) bool { return math.Abs(a-b) <= 1e-12*math.Max(1, math.Abs(b)) }
+
+func TestFlags(t *testing.T) {
+	base := []string{"--vcc", "12V", "--ic", "2mA"}
+	tests := []struct {
+		name  string
+		args  []string
+		check func(t *testing.T, r picker.Request)
+	}{
+		{"defaults", base, func(t *testing.T, r picker.Request) {
+			if r.Topology != solver.Divider || r.Polarity != solver.NPN {
+				t.Errorf("topology/polarity = %v/%v, want divider/npn", r.Topology, r.Polarity)
+			}
+			if !near(r.VCC_V, 12) || !near(r.IC_A, 2e-3) || r.VCE_V != 0 {
+				t.Errorf("vcc, ic, vce = %g, %g, %g; want 12, 0.002, 0 (swing rule)", r.VCC_V, r.IC_A, r.VCE_V)
+			}
+			if !near(r.VCCTol, 0.05) || r.AmbientMin_C != 0 || r.AmbientMax_C != 50 {
+				t.Errorf("vcc tol %g, ambient %g..%g; want 0.05, 0..50", r.VCCTol, r.AmbientMin_C, r.AmbientMax_C)
+			}
+			if r.Boards != 1 || r.Top != 5 || r.Pairs || r.Exhaustive || r.ShowFailing || r.Bypass || r.Seed != 1 {
+				t.Errorf("boards %d top %d pairs %v exhaustive %v show-failing %v bypass %v seed %d",
+					r.Boards, r.Top, r.Pairs, r.Exhaustive, r.ShowFailing, r.Bypass, r.Seed)
+			}
+			if r.Window != (solver.Window{}) || r.Weights != (picker.Weights{}) {
+				t.Errorf("window %+v weights %+v; want zero (the picker's defaults)", r.Window, r.Weights)
+			}
+		}},
+		{"pnp signs the rail", []string{"--vcc", "9V", "--ic", "500uA", "--polarity", "pnp"}, func(t *testing.T, r picker.Request) {
+			if r.Polarity != solver.PNP || !near(r.VCC_V, -9) || !near(r.IC_A, 500e-6) {
+				t.Errorf("polarity %v vcc %g ic %g; want pnp -9 0.0005", r.Polarity, r.VCC_V, r.IC_A)
+			}
+		}},
+		{"pnp accepts a signed rail", []string{"--vcc", "-9V", "--ic", "1mA", "--polarity", "PNP"}, func(t *testing.T, r picker.Request) {
+			if !near(r.VCC_V, -9) {
+				t.Errorf("vcc %g, want -9", r.VCC_V)
+			}
+		}},
+		{"vce and windows around it", append(base, "--vce", "5V", "--ic-window", "5%", "--vce-window", "10%"), func(t *testing.T, r picker.Request) {
+			w := solver.Window{ICMin_A: 1.9e-3, ICMax_A: 2.1e-3, VCEMin_V: 4.5, VCEMax_V: 5.5}
+			if !near(r.Window.ICMin_A, w.ICMin_A) || !near(r.Window.ICMax_A, w.ICMax_A) ||
+				!near(r.Window.VCEMin_V, w.VCEMin_V) || !near(r.Window.VCEMax_V, w.VCEMax_V) || !near(r.VCE_V, 5) {
+				t.Errorf("window %+v, want %+v", r.Window, w)
+			}
+		}},
+		{"absolute windows", append(base, "--ic-window", "1.5mA..2.5mA", "--vce-window", "4V..8V"), func(t *testing.T, r picker.Request) {
+			if !near(r.Window.ICMin_A, 1.5e-3) || !near(r.Window.ICMax_A, 2.5e-3) || r.Window.VCEMin_V != 4 || r.Window.VCEMax_V != 8 {
+				t.Errorf("window %+v", r.Window)
+			}
+		}},
+		{"ic window alone without vce", append(base, "--ic-window", "20%"), func(t *testing.T, r picker.Request) {
+			if !near(r.Window.ICMin_A, 1.6e-3) || !near(r.Window.ICMax_A, 2.4e-3) || r.Window.VCEMin_V != 0 || !near(r.Window.VCEMax_V, 12.6) {
+				t.Errorf("window %+v; want IC 1.6..2.4 mA, VCE 0..12.6 V (any VCE on the supply)", r.Window)
+			}
+		}},
+		{"everything else", append(base, "--vcc-tol", "±2 %", "--ambient", "-10..60", "--boards", "25", "--load", "10K",
+			"--bypass", "--pairs", "--require-tag", "Approved", "--require-tag", "rohs", "--require-tag", "approved",
+			"--top", "3", "--exhaustive", "--show-failing", "--seed", "42", "--json"), func(t *testing.T, r picker.Request) {
+			if !near(r.VCCTol, 0.02) || r.AmbientMin_C != -10 || r.AmbientMax_C != 60 || r.Boards != 25 || !near(r.RL_Ohm, 10e3) {
+				t.Errorf("tol %g ambient %g..%g boards %d load %g", r.VCCTol, r.AmbientMin_C, r.AmbientMax_C, r.Boards, r.RL_Ohm)
+			}
+			if !r.Bypass || !r.Pairs || !r.Exhaustive || !r.ShowFailing || r.Top != 3 || r.Seed != 42 {
+				t.Errorf("switches: %+v", r)
+			}
+			if !slices.Equal(r.RequireTags, []string{"approved", "rohs"}) {
+				t.Errorf("tags %q, want [approved rohs]", r.RequireTags)
+			}
+		}},
+		{"weights on top of the defaults", append(base, "--weights", "q=2, yield=0.5,util=0"), func(t *testing.T, r picker.Request) {
+			want := defaultWeights()
+			want.QPoint, want.Yield, want.Utilization = 2, 0.5, 0
+			if r.Weights != want {
+				t.Errorf("weights %+v, want %+v", r.Weights, want)
+			}
+		}},
+		{"resistance in SI for the load", append(base, "--load", "4.7k"), func(t *testing.T, r picker.Request) {
+			if !near(r.RL_Ohm, 4700) {
+				t.Errorf("load %g, want 4700", r.RL_Ohm)
+			}
+		}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			r, err := parseFlags(t, tt.args)
+			if err != nil {
+				t.Fatalf("%v: %v", tt.args, err)
+			}
+			tt.check(t, r)
+		})
+	}
+}
+
+func TestFlagErrors(t *testing.T) {
+	base := []string{"--vcc", "12V", "--ic", "2mA"}
+	tests := []struct {
+		name string
+		args []string
+		want []string // substrings of the message: the problem and the fix
+	}{
+		{"no vcc", []string{"--ic", "2mA"}, []string{"--vcc is required", "--vcc 12V"}},
+		{"no ic", []string{"--vcc", "12V"}, []string{"--ic is required", "--ic 2mA"}},
+		{"bad vcc", []string{"--vcc", "12X", "--ic", "2mA"}, []string{"--vcc"}},
+		{"zero vcc", []string{"--vcc", "0", "--ic", "2mA"}, []string{"--vcc 0", "needs a supply"}},
+		{"negative rail for npn", []string{"--vcc", "-12V", "--ic", "2mA"}, []string{"positive supply", "--polarity pnp"}},
+		{"negative ic", []string{"--vcc", "12V", "--ic", "-2mA"}, []string{"--ic", "negative"}},
+		{"vce above the supply", append(base, "--vce", "15V"), []string{"--vce 15V cannot exist", "12 V supply", "lower --vce or raise --vcc"}},
+		{"vce at the supply's low end", append(base, "--vce", "11.5V"), []string{"cannot exist", "11.4 V"}},
+		{"unknown polarity", append(base, "--polarity", "fet"), []string{"--polarity", "npn or pnp"}},
+		{"other topology", append(base, "--topology", "collector-feedback"), []string{"not yet supported", "--topology divider"}},
+		{"unknown topology", append(base, "--topology", "cascode"), []string{"--topology", "want divider"}},
+		{"ambient backwards", append(base, "--ambient", "60..-10"), []string{"--ambient"}},
+		{"ambient not a range", append(base, "--ambient", "25"), []string{"--ambient", "0..50"}},
+		{"ambient too hot", append(base, "--ambient", "0..200"), []string{"-55..150"}},
+		{"zero boards", append(base, "--boards", "0"), []string{"--boards 0"}},
+		{"zero top", append(base, "--top", "0"), []string{"--top 0"}},
+		{"negative weight", append(base, "--weights", "beta=-1"), []string{"beta=-1", "cannot be negative", "use 0"}},
+		{"unknown weight", append(base, "--weights", "speed=1"), []string{"speed=1", "q, beta, headroom, util, yield"}},
+		{"weight not a number", append(base, "--weights", "q=lots"), []string{"not a number"}},
+		{"vce window percent without vce", append(base, "--vce-window", "5%"), []string{"needs a target --vce", "4V..8V"}},
+		{"window not a band", append(base, "--ic-window", "wide"), []string{"--ic-window", "10%"}},
+		{"zero load", append(base, "--load", "0R"), []string{"--load", "positive"}},
+		{"huge supply tolerance", append(base, "--vcc-tol", "60%"), []string{"--vcc-tol"}},
+		{"empty tag", append(base, "--require-tag", " "), []string{"--require-tag", "empty"}},
+		{"unknown flag", append(base, "--frobnicate"), []string{"frobnicate"}},
+		{"stray argument", append(base, "extra"), []string{"extra"}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, err := parseFlags(t, tt.args)
+			if err == nil {
+				t.Fatalf("%v: no error", tt.args)
+			}
+			var u *cmdutil.UsageError
+			if !errors.As(err, &u) {
+				t.Errorf("%v: %T is not a usage error (exit 2)", tt.args, err)
+			}
+			if cmdutil.ExitCode(err) == 0 {
+				t.Errorf("exit code 0 for %v", tt.args)
+			}
+			for _, w := range tt.want {
+				if !strings.Contains(err.Error(), w) {
+					t.Errorf("%v: message %q lacks %q", tt.args, err, w)
+				}
+			}
+		})
+	}
+}

@@ -1,0 +1,137 @@
+package pickcmd
+
+import (
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
+
+	"biasbin/picker"
+	"biasbin/solver"
+	"biasbin/solver/notation"
+)
+
+// writeHeader writes what was asked and how much was searched.
+func writeHeader(w io.Writer, v view) {
+	r := v.req
+	vce := "VCE by the swing rule"
+	if r.VCE_V != 0 {
+		vce = "VCE " + quantity(r.VCE_V, "V")
+	}
+	pairs := "singles only"
+	if r.Pairs {
+		pairs = "pairs allowed"
+	}
+	fmt.Fprintf(w, "%s %s stage on %s ±%s: IC %s, %s, ambient %s..%s °C, %d board%s, %s\n",
+		strings.ToUpper(r.Polarity.String()), r.Topology, quantity(r.VCC_V, "V"), strings.TrimSuffix(percent(r.VCCTol), " %")+" %",
+		quantity(r.IC_A, "A"), vce, trimNum(r.AmbientMin_C), trimNum(r.AmbientMax_C), v.boards(), plural(v.boards()), pairs)
+	if r.RL_Ohm > 0 || r.Bypass {
+		load := "no AC load"
+		if r.RL_Ohm > 0 {
+			load = "AC load " + notation.FormatResistance(r.RL_Ohm)
+		}
+		byp := "RE not bypassed"
+		if r.Bypass {
+			byp = "RE bypassed"
+		}
+		fmt.Fprintf(w, "%s, %s\n", load, byp)
+	}
+	if len(r.RequireTags) > 0 {
+		fmt.Fprintf(w, "only parts tagged %s\n", strings.Join(r.RequireTags, ", "))
+	}
+	mode := "pruned search"
+	if r.Exhaustive {
+		mode = "exhaustive search"
+	}
+	fmt.Fprintf(w, "%s: %d combinations covered, %d builds solved in full\n", mode, v.res.Considered, v.res.Evaluated)
+}
+
+// writeCandidate writes one build as a block: what to pull, the Q-point,
+// the worst-case band, the test points, yield and the score terms.
+func writeCandidate(w io.Writer, v view, c picker.Candidate) {
+	fmt.Fprintf(w, "\n#%d  %s  score %.3f  (id %s)\n", c.Rank, c.Transistor.Sheet.Label, c.Score, c.ID)
+	for _, why := range c.Failing {
+		fmt.Fprintf(w, "    FAILS: %s\n", why)
+	}
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (line: per board × %d)\n", v.boards())
+	for _, slot := range slotsOf(c) {
+		p := c.Positions[slot]
+		var from []string
+		for _, part := range p.Parts {
+			from = append(from, fmt.Sprintf("bin %s #%d %s", binName(part.Bin), part.ID, notation.FormatResistance(part.Ohm)))
+		}
+		fmt.Fprintf(tw, "    %s\t%s\t%s %s\t%s\n", strings.ToUpper(slot), positionCode(p), p.Arrangement, specNote(p.Spec), strings.Join(from, " + "))
+	}
+	fmt.Fprintf(tw, "    Q\t%s\t%s hFE %s..%s\tbin %s #%d\n", c.Transistor.Sheet.Label, c.Transistor.Sheet.Polarity,
+		trimNum(c.Transistor.Sheet.HFEMin), trimNum(c.Transistor.Sheet.HFEMax), binName(c.Transistor.Bin), c.Transistor.ID)
+	tw.Flush()
+
+	n := c.Nominal
+	fmt.Fprintf(w, "    Q-point   IC %s  VCE %s  IB %s  (β %.0f, Tj %s °C)\n",
+		quantity(n.IC_A, "A"), quantity(n.VCE_V, "V"), quantity(n.IB_A, "A"), betaAt(n), trimNum(n.Tj_C))
+	active := "every corner active"
+	if !c.Worst.AllActive {
+		active = "NOT every corner active"
+	}
+	fmt.Fprintf(w, "    worst     IC %s..%s  VCE %s..%s  (%s)\n",
+		quantity(c.Worst.ICMin_A, "A"), quantity(c.Worst.ICMax_A, "A"),
+		quantity(c.Worst.VCEMin_V, "V"), quantity(c.Worst.VCEMax_V, "V"), active)
+	var tps []string
+	for _, tp := range testPoints(c) {
+		s := fmt.Sprintf("%s %s", strings.ToUpper(tp.name), quantity(tp.nominal, "V"))
+		if tp.haveBand {
+			s += fmt.Sprintf(" (%s..%s)", quantity(tp.lo, "V"), quantity(tp.hi, "V"))
+		}
+		tps = append(tps, s)
+	}
+	fmt.Fprintf(w, "    measure   %s\n", strings.Join(tps, "   "))
+	if c.Yield.Boards > 0 {
+		fmt.Fprintf(w, "    yield     %s ± %s of %d simulated boards inside the window\n",
+			percent(c.Yield.Yield), percent(c.Yield.StdErr), c.Yield.Boards)
+	}
+	fmt.Fprintf(w, "    load      hottest part at %s of its design limit; IC moves %s across the hFE spread\n",
+		percent(c.MaxUtilization), percent(c.BetaSensitivity))
+	t := c.Terms
+	fmt.Fprintf(w, "    terms     Q-point %.3f  beta %.3f  headroom %.3f  utilization %.3f  yield %.3f\n",
+		t.QPoint, t.Beta, t.Headroom, t.Utilization, t.Yield)
+}
+
+// writePullList writes the best build's parts for the whole run, one line
+// per stock line, with what each bin holds.
+func writePullList(w io.Writer, v view, c picker.Candidate) {
+	fmt.Fprintf(w, "\nPull list for #%d, %d board%s:\n", c.Rank, v.boards(), plural(v.boards()))
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintf(tw, "    bin\tline\tpart\ttake\ton hand\n")
+	for _, p := range v.pullList(c) {
+		short := ""
+		if p.qty > p.onHand {
+			short = fmt.Sprintf("  SHORT by %d", p.qty-p.onHand)
+		}
+		fmt.Fprintf(tw, "    %s\t#%d\t%s\t%d\t%d%s\n", binName(p.bin), p.id, p.value, p.qty, p.onHand, short)
+	}
+	tw.Flush()
+}
+
+// specNote writes a position's tolerance and rating, e.g. "1 % 0.25 W".
+func specNote(s solver.ResistorSpec) string {
+	if s.Tol == 0 && s.Rated_W == 0 {
+		return ""
+	}
+	return fmt.Sprintf("%s %s", percent(s.Tol), quantity(s.Rated_W, "W"))
+}
+
+// binName shows an empty bin as "-".
+func binName(b string) string {
+	if b == "" {
+		return "-"
+	}
+	return b
+}
+
+func plural(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return "s"
+}
