@@ -4,9 +4,12 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/pickcmd"
 )
 
 // subcommands lists the top-level commands in help order.
 func subcommands(f *cmdutil.Factory) []*cobra.Command {
-	return []*cobra.Command{}
+	return []*cobra.Command{
+		pickcmd.New(f),
+	}
 }
