@@ -95,7 +95,8 @@ func Contains(s Series, ohm float64) bool {
 
 // Of returns the coarsest series that contains ohm (E3 before E6 before E12
 // ...) and true, or 0 and false when no series contains it. 4700 gives E3,
-// 5600 gives E12, 4750 gives E48, 4870 gives E96, 4810 gives E192.
+// 5600 gives E12, 5100 gives E24, 4640 gives E48, 4750 gives E96 and 4810
+// gives E192.
 func Of(ohm float64) (Series, bool) {
 	for _, s := range All() {
 		if Contains(s, ohm) {
