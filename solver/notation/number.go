@@ -167,20 +167,35 @@ func (set suffixSet) match(rest string) (int, *problem) {
 	if e, ok := set[t]; ok && (t != "" || rest == "") {
 		return e, nil
 	}
-	// Point at the first character after the longest known start.
-	longest := 0
-	for k := range set {
-		if len(k) > longest && strings.HasPrefix(t, k) {
-			longest = len(k)
-		}
-	}
 	if t == "" {
 		return 0, syntaxf("trailing space")
 	}
-	if longest == len(t) { // a valid start alone is not enough (e.g. "4 k" without unit)
+	// Point at the first character no known suffix explains.
+	longest := 0
+	for k := range set {
+		n := commonPrefix(t, k)
+		if n == len(k) && n == len(t) {
+			// t is a complete suffix that needs more (a prefix needing its unit).
+			return 0, syntaxf("missing unit after %q", t)
+		}
+		longest = max(longest, n)
+	}
+	for longest > 0 && longest < len(t) && !utf8.RuneStart(t[longest]) {
+		longest--
+	}
+	if longest == len(t) {
 		return 0, syntaxf("missing unit after %q", t)
 	}
 	return 0, unexpected(t[longest:])
+}
+
+// commonPrefix returns the length in bytes of the common start of a and b.
+func commonPrefix(a, b string) int {
+	n := 0
+	for n < len(a) && n < len(b) && a[n] == b[n] {
+		n++
+	}
+	return n
 }
 
 // siPrefixes are the prefixes every quantity except resistance takes.

@@ -70,11 +70,11 @@ func ParseThermalResistance(s string) (float64, error) { return thermalResistanc
 // magnitude (±50 ppm/K reads as 50).
 func ParseTCR(s string) (float64, error) {
 	t, p := clean(s)
-	if p == nil {
-		t, _ = cutPlusMinus(t)
-	}
 	if p != nil {
 		return 0, p.wrap(tcr.name, s)
+	}
+	if t, _ = cutPlusMinus(t); t == "" {
+		return 0, syntaxf("missing number").wrap(tcr.name, s)
 	}
 	v, p := tcr.value(t)
 	if p != nil {

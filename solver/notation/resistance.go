@@ -195,12 +195,22 @@ func siResistance(t string) (float64, *problem) {
 	e, p := resistanceSuffix.match(rest)
 	if p != nil {
 		r := strings.TrimLeftFunc(rest, unicode.IsSpace)
-		if strings.HasPrefix(r, "m") && !strings.HasPrefix(r, "meg") {
+		if strings.HasPrefix(r, "m") && !strings.HasPrefix(r, "meg") && !startsWithAny(r[1:], ohmUnits) {
 			return 0, syntaxf("ambiguous 'm' (milli or mega?): write mΩ for milliohm, M for megohm")
 		}
 		return 0, p
 	}
 	return n.float(e)
+}
+
+// startsWithAny reports whether s starts with one of prefixes.
+func startsWithAny(s string, prefixes []string) bool {
+	for _, p := range prefixes {
+		if strings.HasPrefix(s, p) {
+			return true
+		}
+	}
+	return false
 }
 
 // rkmLetters maps a multiplier exponent to its IEC 60062 letter.
