@@ -54,7 +54,7 @@ func writeCandidate(w io.Writer, v view, c picker.Candidate) {
 		fmt.Fprintf(w, "    FAILS: %s\n", why)
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (line: per board × %d)\n", v.boards())
+	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (bin, stock line)\n")
 	for _, slot := range slotsOf(c) {
 		p := c.Positions[slot]
 		var from []string

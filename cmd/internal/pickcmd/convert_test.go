@@ -1,0 +1,73 @@
+package pickcmd
+
+import (
+	"strings"
+	"testing"
+
+	"biasbin/picker"
+	"biasbin/solver"
+	"biasbin/store"
+)
+
+func TestToStock(t *testing.T) {
+	rs := []store.Resistor{
+		// A line that states everything keeps it.
+		{ID: 7, Ohm: 4700, Tol: 0.01, Rated_W: 0.25, Knee_C: 85, Max_C: 125, TCR_PPMPerK: 25, Tech: store.TechThinFilm, Qty: 12, Bin: "A1", Tags: []string{"approved"}},
+		// Zero ratings take the store's documented defaults: 70 °C knee,
+		// 155 °C zero power (IEC 60115-1 style, from memory), carbon film
+		// -500 ppm/K (common practice).
+		{ID: 8, Ohm: 330, Tol: 0.05, Rated_W: 0.5, Tech: store.TechCarbonFilm, Qty: 3, Bin: "B2"},
+		// No technology: thick film, 100 ppm/K (common practice).
+		{ID: 9, Ohm: 1e6, Tol: 0.05, Rated_W: 0.125, Qty: 0},
+	}
+	ts := []store.Transistor{
+		{ID: 20, Label: "QP-220", Polarity: "pnp", HFEMin: 100, HFEMax: 300, HFETyp: 170, HFEAt_A: 2e-3, VBEOn_V: 0.68, VBEAt_A: 2e-3,
+			VCESat_V: 0.25, VCEO_V: 45, ICMax_A: 0.5, PD25_W: 0.625, ThetaJA_KPerW: 200, TjMax_C: 150, VAF_V: 90, ICBO_A: 1e-8,
+			Qty: 14, Bin: "D4", Tags: []string{"rohs"}},
+		// Zero VBE(on), its current and Tj max take 0.65 V at 1 mA and
+		// 150 °C (common practice).
+		{ID: 21, Label: "QN-104A", Polarity: "NPN", HFEMin: 110, HFEMax: 330, Qty: 2, Bin: "D1"},
+	}
+	got, err := toStock(rs, ts)
+	if err != nil {
+		t.Fatal(err)
+	}
+	wantR := []picker.Resistor{
+		{ID: 7, Ohm: 4700, Tol: 0.01, TCR_PPMPerK: 25, Rated_W: 0.25, Knee_C: 85, Max_C: 125, Qty: 12, Bin: "A1", Tags: []string{"approved"}},
+		{ID: 8, Ohm: 330, Tol: 0.05, TCR_PPMPerK: -500, Rated_W: 0.5, Knee_C: 70, Max_C: 155, Qty: 3, Bin: "B2"},
+		{ID: 9, Ohm: 1e6, Tol: 0.05, TCR_PPMPerK: 100, Rated_W: 0.125, Knee_C: 70, Max_C: 155, Qty: 0},
+	}
+	if len(got.Resistors) != len(wantR) {
+		t.Fatalf("%d resistors, want %d", len(got.Resistors), len(wantR))
+	}
+	for i, w := range wantR {
+		g := got.Resistors[i]
+		if g.ID != w.ID || g.Ohm != w.Ohm || g.Tol != w.Tol || g.TCR_PPMPerK != w.TCR_PPMPerK || g.Rated_W != w.Rated_W ||
+			g.Knee_C != w.Knee_C || g.Max_C != w.Max_C || g.Qty != w.Qty || g.Bin != w.Bin || strings.Join(g.Tags, ",") != strings.Join(w.Tags, ",") {
+			t.Errorf("resistor %d:\n got %+v\nwant %+v", w.ID, g, w)
+		}
+	}
+	wantT := []picker.Transistor{
+		{ID: 20, Qty: 14, Bin: "D4", Tags: []string{"rohs"}, Sheet: solver.Datasheet{Label: "QP-220", Polarity: solver.PNP,
+			HFEMin: 100, HFEMax: 300, HFETyp: 170, HFEAt_A: 2e-3, VBEOn_V: 0.68, VBEAt_A: 2e-3, VCESat_V: 0.25, VCEO_V: 45,
+			ICMax_A: 0.5, PD25_W: 0.625, ThetaJA_KPerW: 200, TjMax_C: 150, VAF_V: 90, ICBO_A: 1e-8}},
+		{ID: 21, Qty: 2, Bin: "D1", Sheet: solver.Datasheet{Label: "QN-104A", Polarity: solver.NPN, HFEMin: 110, HFEMax: 330,
+			VBEOn_V: 0.65, VBEAt_A: 1e-3, TjMax_C: 150}},
+	}
+	if len(got.Transistors) != len(wantT) {
+		t.Fatalf("%d transistors, want %d", len(got.Transistors), len(wantT))
+	}
+	for i, w := range wantT {
+		g := got.Transistors[i]
+		if g.ID != w.ID || g.Qty != w.Qty || g.Bin != w.Bin || g.Sheet != w.Sheet || strings.Join(g.Tags, ",") != strings.Join(w.Tags, ",") {
+			t.Errorf("transistor %d:\n got %+v\nwant %+v", w.ID, g, w)
+		}
+	}
+}
+
+func TestToStockBadPolarity(t *testing.T) {
+	_, err := toStock(nil, []store.Transistor{{ID: 5, Label: "QX-1", Polarity: "fet", HFEMin: 1, HFEMax: 2}})
+	if err == nil || !strings.Contains(err.Error(), "stock line 5 (QX-1)") {
+		t.Fatalf("err = %v, want one naming stock line 5 (QX-1)", err)
+	}
+}

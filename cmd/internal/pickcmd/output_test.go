@@ -1,0 +1,151 @@
+package pickcmd
+
+import (
+	"bytes"
+	"encoding/json"
+	"flag"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+
+	"biasbin/picker"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files under testdata/")
+
+// golden compares got with testdata/name, or rewrites it with -update.
+func golden(t *testing.T, name, got string) {
+	t.Helper()
+	path := filepath.Join("testdata", name)
+	if *update {
+		if err := os.MkdirAll("testdata", 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test -update to create it)", err)
+	}
+	if got != string(want) {
+		t.Errorf("output differs from %s (go test -update rewrites it after review):\n--- got\n%s\n--- want\n%s", path, got, want)
+	}
+}
+
+// render writes v as the command would: data on one stream, notes on the other.
+func render(v view, asJSON bool) (stdout, stderr string) {
+	var out, errOut bytes.Buffer
+	if asJSON {
+		if err := writeJSON(&out, v); err != nil {
+			panic(err)
+		}
+	} else {
+		writeText(&out, v)
+	}
+	writeNotes(&errOut, v)
+	return out.String(), errOut.String()
+}
+
+func TestOutputGolden(t *testing.T) {
+	hot := fakeRequest()
+	hot.VCC_V = 60
+	hotCand := fakeCandidate(1)
+	hotCand.MaxUtilization = 0.9
+	tests := []struct {
+		name string
+		v    view
+		json bool
+	}{
+		{"table", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
+			Candidates: []picker.Candidate{fakeCandidate(1), fakeCandidate(2)}, Evaluated: 321, Considered: 12345}}, false},
+		{"json", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
+			Candidates: []picker.Candidate{fakeCandidate(1)}, Evaluated: 321, Considered: 12345}}, true},
+		{"nothing_fits", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
+			Candidates: []picker.Candidate{fakeCandidate(1, "needs 4 of QN-104A... only 3 of 4K7 in bin B1")},
+			Evaluated:  12, Considered: 400,
+			Shortfall: &picker.Shortfall{
+				Reasons: []string{"bin B1 holds 3 of 4K7 5 % 0.25 W; 4 boards need 4"},
+				Buy:     []string{"4K7 5 % 0.25 W (E24) for R2: at least 1 more"},
+			}}}, false},
+		{"hot", view{req: hot, stock: fakeStock(), res: picker.Result{Candidates: []picker.Candidate{hotCand}}}, false},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			out, errOut := render(tt.v, tt.json)
+			golden(t, tt.name+".stdout", out)
+			golden(t, tt.name+".stderr", errOut)
+		})
+	}
+}
+
+// TestOutputContent checks the facts the golden files must hold, so a
+// rewritten golden file cannot silently drop them.
+func TestOutputContent(t *testing.T) {
+	v := view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}
+	out, errOut := render(v, false)
+	for _, want := range []string{
+		"4K7+330R", "series", // a series pair shown as a pair
+		"10K‖10K", "parallel", // a parallel pair
+		"39K", "2K2", "QN-104A",
+		"bin B1 #2 4K7", "bin C2 #3 330R", // where each part of a pair comes from
+		"VB 1.62 V (1.55 V..1.7 V)", "VE 950 mV", "VC 7.58 V", // test points with bands
+		"IC 1.82 mA..2.21 mA",    // worst-case band
+		"98.7 % ± 0.4 %",          // yield
+		"Q-point 0.010", "beta 0.052", // score terms
+		"SHORT by 1", // 4 boards need 4 of line 2, which holds 3
+	} {
+		if !strings.Contains(out, want) {
+			t.Errorf("table lacks %q:\n%s", want, out)
+		}
+	}
+	// Line 5 feeds both halves of RE's parallel pair: 2 per board, 8 for 4 boards.
+	if !regexp.MustCompile(`#5\s+10K\s+8\s+50\n`).MatchString(out) {
+		t.Errorf("pull list should take 8 of line 5 (two per board, 4 boards):\n%s", out)
+	}
+	if errOut != "" {
+		t.Errorf("notes on stderr for a clean fit: %q", errOut)
+	}
+
+	js, _ := render(v, true)
+	var doc map[string]any
+	if err := json.Unmarshal([]byte(js), &doc); err != nil {
+		t.Fatal(err)
+	}
+	c := doc["candidates"].([]any)[0].(map[string]any)
+	for _, key := range []string{"id", "rank", "score", "transistor", "resistors", "nominal", "worst", "yield", "beta_sensitivity", "max_utilization", "model"} {
+		if _, ok := c[key]; !ok {
+			t.Errorf("JSON candidate lacks %q", key)
+		}
+	}
+	r2 := c["resistors"].(map[string]any)["r2"].(map[string]any)
+	if r2["arrangement"] != "series" || len(r2["parts"].([]any)) != 2 {
+		t.Errorf("r2 = %v, want a series pair of two parts", r2)
+	}
+	part := r2["parts"].([]any)[1].(map[string]any)
+	if part["id"].(float64) != 3 || part["ohms"].(float64) != 330 || part["bin"] != "C2" {
+		t.Errorf("r2 second part = %v, want id 3, 330 ohms, bin C2", part)
+	}
+	for _, k := range []string{"ic_a", "ib_a", "vce_v", "vb_v", "ve_v", "vc_v", "beta"} {
+		if _, ok := c["nominal"].(map[string]any)[k]; !ok {
+			t.Errorf("nominal lacks %q", k)
+		}
+	}
+	for _, k := range []string{"ic_min_a", "ic_max_a", "vce_min_v", "vce_max_v"} {
+		if _, ok := c["worst"].(map[string]any)[k]; !ok {
+			t.Errorf("worst lacks %q", k)
+		}
+	}
+	for _, k := range []string{"is_a", "bf", "br", "nf", "vaf_v", "xti", "xtb", "eg_ev", "tnom_c"} {
+		if _, ok := c["model"].(map[string]any)[k]; !ok {
+			t.Errorf("model lacks %q", k)
+		}
+	}
+	if tr := c["transistor"].(map[string]any); tr["label"] != "QN-104A" || tr["id"].(float64) != 10 {
+		t.Errorf("transistor = %v", tr)
+	}
+}
