@@ -235,4 +235,3 @@ func TestProgress(t *testing.T) {
 		t.Errorf("a search under a second left %q on stderr", quiet.String())
 	}
 }
-

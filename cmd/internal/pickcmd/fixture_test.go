@@ -37,10 +37,10 @@ func fakeCandidate(rank int, failing ...string) picker.Candidate {
 		return solver.OperatingPoint{Region: solver.Active, IC_A: ic, IB_A: ic / 180, VB_V: vb, VE_V: ve, VC_V: vc, VCE_V: vc - ve, Tj_C: 27.4}
 	}
 	return picker.Candidate{
-		ID:    "b-" + string(rune('0'+rank)) + "f3a9c01",
-		Rank:  rank,
-		Score: 0.1234 * float64(rank),
-		Terms: picker.Terms{QPoint: 0.01, Beta: 0.052, Headroom: 0.02, Utilization: 0.3, Yield: 0.013},
+		ID:         "b-" + string(rune('0'+rank)) + "f3a9c01",
+		Rank:       rank,
+		Score:      0.1234 * float64(rank),
+		Terms:      picker.Terms{QPoint: 0.01, Beta: 0.052, Headroom: 0.02, Utilization: 0.3, Yield: 0.013},
 		Transistor: tr,
 		Positions: map[string]picker.Position{
 			"r1": {Ohm: 39e3, Arrangement: "single", Parts: []picker.Part{{ID: 1, Ohm: 39e3, Bin: "A3"}},
