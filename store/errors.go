@@ -27,12 +27,14 @@ var (
 
 // Problem is one rule a part breaks. Index is the part's position in the
 // slice given to Import (or 0 for a single part), Field the CSV column
-// name the value comes from.
+// name the value comes from. Ref, when not 0, is 1 + the index of another
+// part of the same slice the problem is about (an earlier duplicate).
 type Problem struct {
 	Kind  Kind
 	Index int
 	Field string
 	Msg   string
+	Ref   int
 }
 
 func (p Problem) String() string { return p.Field + ": " + p.Msg }

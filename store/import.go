@@ -57,8 +57,8 @@ func (db *DB) Import(ctx context.Context, b Batch, opt ImportOptions) (ImportRes
 			if k.kind == KindTransistor {
 				field = "label"
 			}
-			problems = append(problems, Problem{Kind: k.kind, Index: i, Field: field,
-				Msg: fmt.Sprintf("same part and bin as item %d; with replace each part may appear once", j+1)})
+			problems = append(problems, Problem{Kind: k.kind, Index: i, Field: field, Ref: j + 1,
+				Msg: "same part and bin as an earlier one; with replace each part may appear once"})
 			return
 		}
 		first[k] = i

@@ -5,11 +5,13 @@ import (
 
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/pickcmd"
+	"biasbin/cmd/internal/stockcmd"
 )
 
 // subcommands lists the top-level commands in help order.
 func subcommands(f *cmdutil.Factory) []*cobra.Command {
 	return []*cobra.Command{
 		pickcmd.New(f),
+		stockcmd.New(f),
 	}
 }

@@ -1,0 +1,100 @@
+package stockcmd
+
+import (
+	"context"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+
+	"github.com/spf13/cobra"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/stockcsv"
+	"biasbin/store"
+)
+
+// ExportOptions are the arguments of `stock export`.
+type ExportOptions struct {
+	IO    *cmdutil.IOStreams
+	Store StoreFunc
+
+	Kind string
+	File string // "" writes standard output
+}
+
+func newExportCmd(f *cmdutil.Factory, runF func(*ExportOptions) error) *cobra.Command {
+	o := &ExportOptions{IO: f.IO, Store: f.Store}
+	cmd := &cobra.Command{
+		Use:   "export --kind resistor|transistor [FILE]",
+		Short: "Write one kind's stock as CSV in the import format",
+		Long: `Write the resistor or transistor stock as CSV with every import column, to
+FILE or standard output. Importing the file into an empty stock gives the
+same stock back.`,
+		Example: `  biasbin stock export --kind resistor > resistors.csv
+  biasbin stock export --kind transistor transistors.csv`,
+		Args: cobra.MaximumNArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			k, err := parseKind(o.Kind, false)
+			if err != nil {
+				return err
+			}
+			o.Kind = string(k)
+			if len(args) == 1 {
+				o.File = args[0]
+			}
+			if runF != nil {
+				return runF(o)
+			}
+			return runExport(cmd.Context(), o)
+		},
+	}
+	cmd.Flags().StringVar(&o.Kind, "kind", "", "resistor or transistor (required)")
+	return cmd
+}
+
+func runExport(ctx context.Context, o *ExportOptions) error {
+	db, err := o.Store(ctx)
+	if err != nil {
+		return err
+	}
+	write := func(w io.Writer) error {
+		if o.Kind == string(store.KindResistor) {
+			rs, err := db.ListResistors(ctx, store.Filter{})
+			if err != nil {
+				return err
+			}
+			return stockcsv.WriteResistors(w, rs)
+		}
+		ts, err := db.ListTransistors(ctx, store.Filter{})
+		if err != nil {
+			return err
+		}
+		return stockcsv.WriteTransistors(w, ts)
+	}
+	if o.File == "" {
+		return write(o.IO.Out)
+	}
+	return writeFileAtomic(o.File, write)
+}
+
+// writeFileAtomic writes a temporary file beside path and renames it into
+// place, so an interrupted export never leaves half a file.
+func writeFileAtomic(path string, write func(io.Writer) error) error {
+	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*")
+	if err != nil {
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	defer os.Remove(tmp.Name())
+	if err := write(tmp); err != nil {
+		tmp.Close()
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	if err := tmp.Close(); err != nil {
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	if err := os.Rename(tmp.Name(), path); err != nil {
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	return nil
+}
