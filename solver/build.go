@@ -1,0 +1,305 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+)
+
+// ResistorSpec is one fitted resistor (or series/parallel pair treated as
+// one part) with its tolerance, temperature coefficient and rating.
+type ResistorSpec struct {
+	Nominal_Ohm float64 // marked value; 0 in an unused slot (RE: 0 = emitter tied to its rail)
+	Tol         float64 // tolerance as a fraction (0.05 = ±5 %)
+	TCR_PPMPerK float64 // temperature coefficient, ppm/K, referred to 25 °C
+	Rated_W     float64 // rated power at the knee temperature; 0 = not rated (not checked)
+	Knee_C      float64 // derating knee (rated ambient); 0 = 70 °C
+	Max_C       float64 // zero-power temperature; 0 = 155 °C
+}
+
+// Resistor temperature defaults, IEC 60115-1 style (REFERENCE.md §3; from
+// memory for the clause): full rating up to the rated ambient, linear
+// derating to zero at the upper category temperature.
+const (
+	// DefaultResistorKnee_C is the rated ambient temperature where
+	// derating starts.
+	DefaultResistorKnee_C = 70.0
+	// DefaultResistorMax_C is the upper category temperature where the
+	// allowed dissipation reaches zero.
+	DefaultResistorMax_C = 155.0
+	// TCRReference_C is the temperature resistor values are marked at and
+	// TCR is referred to.
+	TCRReference_C = 25.0
+)
+
+// Build is a complete stage to analyse: nominal circuit, parts with their
+// tolerances and ratings, the supply tolerance and the ambient range.
+//
+// Temperatures are taken literally: a zero NominalAmbient_C means 0 °C
+// (callers wanting the usual 25 °C set it). Resistors are assumed to sit at
+// the ambient temperature (their own heating is not added to their TCR
+// shift); the transistor is self-heated through its θJA.
+type Build struct {
+	Topology         Topology
+	VCC_V            float64 // signed collector rail
+	VEE_V            float64 // signed emitter rail (split supply)
+	VCCTol           float64 // supply tolerance as a fraction, applied to both rails
+	Resistors        [NumSlots]ResistorSpec
+	RBypass_Ohm      float64 // part of RE bypassed for AC (0..RE nominal); scales with RE
+	RL_Ohm           float64
+	Device           Datasheet
+	AmbientMin_C     float64
+	AmbientMax_C     float64
+	NominalAmbient_C float64 // nominal point ambient (the CLI default is 25 °C)
+	NominalBeta      float64 // 0 = Device's typical hFE
+}
+
+// Limits are the design margins an analysis checks against. The zero value
+// means the documented defaults.
+type Limits struct {
+	ResistorMaxFraction   float64 // of the derated rating; 0 = 0.5 (common practice)
+	TransistorMaxFraction float64 // of (TjMax-Ta)/thetaJA; 0 = 0.75 (common practice)
+	VCEMargin_V           float64 // required above VCE(sat) at every corner; 0 = 0.5 V
+}
+
+// Limit defaults.
+const (
+	// DefaultResistorMaxFraction keeps a resistor at or below 50 % of its
+	// derated rating (common practice; REFERENCE.md §3).
+	DefaultResistorMaxFraction = 0.5
+	// DefaultTransistorMaxFraction keeps the transistor at or below 75 %
+	// of its derated dissipation (common practice; REFERENCE.md §8).
+	DefaultTransistorMaxFraction = 0.75
+	// DefaultVCEMargin_V is the headroom above VCE(sat) every corner must
+	// keep (common practice).
+	DefaultVCEMargin_V = 0.5
+)
+
+// withDefaults returns l with its zero fields replaced by the defaults.
+func (l Limits) withDefaults() Limits {
+	if l.ResistorMaxFraction == 0 {
+		l.ResistorMaxFraction = DefaultResistorMaxFraction
+	}
+	if l.TransistorMaxFraction == 0 {
+		l.TransistorMaxFraction = DefaultTransistorMaxFraction
+	}
+	if l.VCEMargin_V == 0 {
+		l.VCEMargin_V = DefaultVCEMargin_V
+	}
+	return l
+}
+
+// vceSatOf returns the datasheet VCE(sat) or its default.
+func vceSatOf(d Datasheet) float64 {
+	if d.VCESat_V > 0 {
+		return d.VCESat_V
+	}
+	return DefaultVCESat_V
+}
+
+// tjMaxOf returns the datasheet TjMax or its default.
+func tjMaxOf(d Datasheet) float64 {
+	if d.TjMax_C != 0 {
+		return d.TjMax_C
+	}
+	return DefaultTjMax_C
+}
+
+// ThermalResistance returns the junction-to-ambient thermal resistance the
+// analyses use: the datasheet θJA, else the one implied by a PD25 rating
+// derated linearly to zero at TjMax, θJA = (TjMax − 25 °C)/PD25
+// (REFERENCE.md §8), else 0 (no self-heating, dissipation not checked).
+func ThermalResistance(d Datasheet) float64 {
+	if d.ThetaJA_KPerW > 0 {
+		return d.ThetaJA_KPerW
+	}
+	if d.PD25_W > 0 {
+		return (tjMaxOf(d) - 25) / d.PD25_W
+	}
+	return 0
+}
+
+// TypicalHFE returns the datasheet's typical hFE, or the geometric mean of
+// its minimum and maximum when no typical is given.
+func TypicalHFE(d Datasheet) float64 {
+	if d.HFETyp > 0 {
+		return d.HFETyp
+	}
+	return math.Sqrt(d.HFEMin * d.HFEMax)
+}
+
+// nominalBeta returns the beta of b's nominal point.
+func (b Build) nominalBeta() float64 {
+	if b.NominalBeta > 0 {
+		return b.NominalBeta
+	}
+	return TypicalHFE(b.Device)
+}
+
+// usedSlot reports whether slot i carries a part in b: a slot of the
+// topology with a non-zero value.
+func (b Build) usedSlot(i Slot) bool {
+	return b.Topology.uses(i) && b.Resistors[i].Nominal_Ohm > 0
+}
+
+// uses reports whether the topology has a position i.
+func (t Topology) uses(i Slot) bool {
+	switch t {
+	case Divider:
+		return i == R1 || i == R2 || i == RC || i == RE
+	case CollectorFeedback:
+		return i == RF || i == RC || i == RE
+	case SplitSupply:
+		return i == RB || i == RC || i == RE
+	}
+	return false
+}
+
+// Resolve returns the Stage of b at resistor deviations dev (fractions of
+// nominal, before TCR), supply factor vccFactor and resistor temperature
+// temp_C (TCR applied from 25 °C):
+//
+//	R = R_nominal·(1 + dev)·(1 + TCR·10⁻⁶·(temp_C − 25))
+//
+// which is the first-order form of R(T) = R₀[1 + TC1(T−T₀)] (ngspice manual
+// eq. (6), §1.3.1). Both rails are multiplied by vccFactor. The bypassed
+// part of RE keeps its share of RE. Unused slots stay 0.
+func (b Build) Resolve(dev [NumSlots]float64, vccFactor, temp_C float64) Stage {
+	s := Stage{
+		Topology: b.Topology,
+		VCC_V:    b.VCC_V * vccFactor,
+		RL_Ohm:   b.RL_Ohm,
+	}
+	if b.Topology == SplitSupply {
+		s.VEE_V = b.VEE_V * vccFactor
+	}
+	dt := temp_C - TCRReference_C
+	for i := range NumSlots {
+		if !b.usedSlot(i) {
+			continue
+		}
+		r := b.Resistors[i]
+		s.R_Ohm[i] = r.Nominal_Ohm * (1 + dev[i]) * (1 + r.TCR_PPMPerK*1e-6*dt)
+	}
+	if re := b.Resistors[RE].Nominal_Ohm; re > 0 && b.RBypass_Ohm > 0 {
+		s.RBypass_Ohm = s.R_Ohm[RE] * math.Min(b.RBypass_Ohm/re, 1)
+	}
+	return s
+}
+
+// Input ranges the analyses accept.
+const (
+	// maxTol is the largest tolerance (as a fraction) accepted.
+	maxTol = 0.5
+	// maxTCR_PPMPerK bounds |TCR|.
+	maxTCR_PPMPerK = 10000.0
+)
+
+// Validate reports the first bad input of b as an *InputError naming the
+// field as the user knows it ("r1", "vcc", "hfe", "ambient" ...).
+func (b Build) Validate() error {
+	bad := func(field, format string, a ...any) error {
+		return &InputError{Field: field, Problem: fmt.Sprintf(format, a...)}
+	}
+	finite := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+	switch b.Topology {
+	case Divider, CollectorFeedback, SplitSupply:
+	default:
+		return bad("topology", "unknown topology %d", int(b.Topology))
+	}
+	d := b.Device
+	if d.Polarity != NPN && d.Polarity != PNP {
+		return bad("polarity", "want npn or pnp")
+	}
+	sign := d.Polarity.sign()
+	if !finite(b.VCC_V) || b.VCC_V*sign <= 0 {
+		return bad("vcc", "%g V: an %s stage needs a %s collector rail", b.VCC_V, d.Polarity, signWord(sign))
+	}
+	if b.Topology == SplitSupply {
+		if !finite(b.VEE_V) || b.VEE_V*sign >= 0 {
+			return bad("vee", "%g V: an %s split-supply stage needs a %s emitter rail", b.VEE_V, d.Polarity, signWord(-sign))
+		}
+	}
+	if !finite(b.VCCTol) || b.VCCTol < 0 || b.VCCTol >= maxTol {
+		return bad("vcc_tol", "%g: want a fraction from 0 to %g", b.VCCTol, maxTol)
+	}
+	for _, i := range b.Topology.Slots() {
+		r := b.Resistors[i]
+		name := i.String()
+		if !finite(r.Nominal_Ohm) || r.Nominal_Ohm < 0 {
+			return bad(name, "%g Ω: want a positive resistance", r.Nominal_Ohm)
+		}
+		if r.Nominal_Ohm == 0 && (i == R1 || i == R2 || i == RF) {
+			return bad(name, "missing: the %s stage needs %s > 0", b.Topology, name)
+		}
+		if r.Nominal_Ohm == 0 {
+			continue
+		}
+		if !finite(r.Tol) || r.Tol < 0 || r.Tol >= maxTol {
+			return bad(name+" tolerance", "%g: want a fraction from 0 to %g", r.Tol, maxTol)
+		}
+		if !finite(r.TCR_PPMPerK) || math.Abs(r.TCR_PPMPerK) > maxTCR_PPMPerK {
+			return bad(name+" tcr", "%g ppm/K: want at most ±%g", r.TCR_PPMPerK, maxTCR_PPMPerK)
+		}
+		if !finite(r.Rated_W) || r.Rated_W < 0 {
+			return bad(name+" power", "%g W: want a positive rating (or 0 for unrated)", r.Rated_W)
+		}
+		knee, top := r.derating()
+		if !finite(knee) || !finite(top) || knee >= top {
+			return bad(name+" derating", "knee %g °C must be below the zero-power temperature %g °C", knee, top)
+		}
+	}
+	if !finite(b.RBypass_Ohm) || b.RBypass_Ohm < 0 || b.RBypass_Ohm > b.Resistors[RE].Nominal_Ohm*(1+1e-12) {
+		return bad("bypass", "%g Ω: want 0 up to re (%g Ω)", b.RBypass_Ohm, b.Resistors[RE].Nominal_Ohm)
+	}
+	if !finite(b.RL_Ohm) || b.RL_Ohm < 0 {
+		return bad("load", "%g Ω: want a positive load (or 0 for none)", b.RL_Ohm)
+	}
+	if err := d.Validate(); err != nil {
+		return err
+	}
+	if b.NominalBeta != 0 && (!finite(b.NominalBeta) || b.NominalBeta <= 0) {
+		return bad("beta", "%g: want a positive beta", b.NominalBeta)
+	}
+	if tjMax := tjMaxOf(d); tjMax <= TCRReference_C {
+		return bad("tj_max", "%g °C: want above 25 °C", tjMax)
+	}
+	if err := b.Resolve([NumSlots]float64{}, 1, TCRReference_C).Validate(d.Polarity); err != nil {
+		return err
+	}
+	for _, t := range []struct {
+		field string
+		val   float64
+	}{{"ambient", b.AmbientMin_C}, {"ambient", b.AmbientMax_C}, {"temp", b.NominalAmbient_C}} {
+		if !finite(t.val) || t.val < MinTemp_C || t.val > MaxTemp_C {
+			return bad(t.field, "%g °C outside %g..%g °C", t.val, MinTemp_C, MaxTemp_C)
+		}
+	}
+	if tjMax := tjMaxOf(d); b.AmbientMax_C >= tjMax || b.NominalAmbient_C >= tjMax {
+		return bad("ambient", "%g °C reaches the junction limit %g °C", math.Max(b.AmbientMax_C, b.NominalAmbient_C), tjMax)
+	}
+	if b.AmbientMin_C > b.AmbientMax_C {
+		return bad("ambient", "minimum %g °C above maximum %g °C", b.AmbientMin_C, b.AmbientMax_C)
+	}
+	return nil
+}
+
+// signWord names the sign of a rail.
+func signWord(sign float64) string {
+	if sign > 0 {
+		return "positive"
+	}
+	return "negative"
+}
+
+// derating returns the resistor's knee and zero-power temperatures with
+// the defaults applied.
+func (r ResistorSpec) derating() (knee_C, max_C float64) {
+	knee_C, max_C = r.Knee_C, r.Max_C
+	if knee_C == 0 {
+		knee_C = DefaultResistorKnee_C
+	}
+	if max_C == 0 {
+		max_C = DefaultResistorMax_C
+	}
+	return knee_C, max_C
+}

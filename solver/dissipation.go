@@ -1,0 +1,128 @@
+package solver
+
+import "math"
+
+// Dissipation compares each part's power with its derated rating.
+type Dissipation struct {
+	Resistor       [NumSlots]PartLoad
+	Transistor     PartLoad
+	MaxUtilization float64 // largest utilization of any part (1 = at the design limit)
+	Ok             bool    // every part within its limit
+}
+
+// PartLoad is one part's dissipation against its derated, margined limit.
+type PartLoad struct {
+	Power_W     float64
+	Allowed_W   float64 // derated rating at the ambient, times the margin fraction
+	Utilization float64 // Power_W / Allowed_W
+	// Rated is false when the part has no rating to check against (an
+	// unused slot, a resistor with Rated_W = 0, a transistor with neither
+	// θJA nor PD25); Allowed_W and Utilization are then 0.
+	Rated bool
+}
+
+// OverloadUtilization is the utilization reported for a part that
+// dissipates power where its derated allowance is zero (at or above its
+// zero-power temperature): a finite stand-in for "infinitely over", so
+// results stay free of Inf.
+const OverloadUtilization = 1e9
+
+// ResistorAllowed_W returns the power a resistor rated ratedW at the knee
+// temperature may dissipate at ambient_C, derated linearly from the knee to
+// zero at max_C (IEC 60115-1 style derating curve, REFERENCE.md §3):
+//
+//	P(T) = P_rated                          T ≤ knee
+//	     = P_rated·(max − T)/(max − knee)   knee < T < max
+//	     = 0                                T ≥ max
+func ResistorAllowed_W(ratedW, knee_C, max_C, ambient_C float64) float64 {
+	switch {
+	case ambient_C <= knee_C:
+		return ratedW
+	case ambient_C >= max_C:
+		return 0
+	}
+	return ratedW * (max_C - ambient_C) / (max_C - knee_C)
+}
+
+// TransistorAllowed_W returns the transistor's maximum dissipation at
+// ambient_C: (TjMax − Ta)/θJA (REFERENCE.md §8), with θJA as
+// ThermalResistance gives it, never more than PD25 when that is given
+// (the rating holds at and below 25 °C). It returns 0 and false when the
+// datasheet has neither θJA nor PD25.
+func TransistorAllowed_W(d Datasheet, ambient_C float64) (float64, bool) {
+	theta := ThermalResistance(d)
+	if theta <= 0 {
+		return 0, false
+	}
+	p := math.Max(0, (tjMaxOf(d)-ambient_C)/theta)
+	if d.PD25_W > 0 && p > d.PD25_W {
+		p = d.PD25_W
+	}
+	return p, true
+}
+
+// EvalDissipation checks op's powers against the parts' ratings derated
+// at ambient_C. Each resistor is taken to be at ambient_C; its allowance
+// is ResistorAllowed_W times lim.ResistorMaxFraction. The transistor's
+// allowance is TransistorAllowed_W times lim.TransistorMaxFraction.
+func EvalDissipation(b Build, op OperatingPoint, ambient_C float64, lim Limits) Dissipation {
+	lim = lim.withDefaults()
+	d := Dissipation{Ok: true}
+	for i := range NumSlots {
+		r := b.Resistors[i]
+		if !b.usedSlot(i) {
+			continue
+		}
+		pl := PartLoad{Power_W: op.P_W[i]}
+		if r.Rated_W > 0 {
+			knee, top := r.derating()
+			pl.rate(ResistorAllowed_W(r.Rated_W, knee, top, ambient_C) * lim.ResistorMaxFraction)
+		}
+		d.Resistor[i] = pl
+		d.note(pl)
+	}
+	d.Transistor = PartLoad{Power_W: op.PTransistor_W}
+	if p, ok := TransistorAllowed_W(b.Device, ambient_C); ok {
+		d.Transistor.rate(p * lim.TransistorMaxFraction)
+	}
+	d.note(d.Transistor)
+	return d
+}
+
+// rate sets the allowance and utilization of a rated part.
+func (pl *PartLoad) rate(allowed_W float64) {
+	pl.Rated = true
+	pl.Allowed_W = allowed_W
+	switch {
+	case allowed_W > 0:
+		pl.Utilization = pl.Power_W / allowed_W
+	case pl.Power_W > 0:
+		pl.Utilization = OverloadUtilization
+	}
+}
+
+// note folds one part's load into the totals.
+func (d *Dissipation) note(pl PartLoad) {
+	if !pl.Rated {
+		return
+	}
+	d.MaxUtilization = math.Max(d.MaxUtilization, pl.Utilization)
+	if pl.Utilization > 1 {
+		d.Ok = false
+	}
+}
+
+// worse folds another evaluation of the same build into d, keeping each
+// part's highest utilization (used to collect the worst over corners).
+func (d *Dissipation) worse(o Dissipation) {
+	for i := range NumSlots {
+		if o.Resistor[i].Utilization > d.Resistor[i].Utilization || (!d.Resistor[i].Rated && o.Resistor[i].Power_W > d.Resistor[i].Power_W) {
+			d.Resistor[i] = o.Resistor[i]
+		}
+	}
+	if o.Transistor.Utilization > d.Transistor.Utilization || (!d.Transistor.Rated && o.Transistor.Power_W > d.Transistor.Power_W) {
+		d.Transistor = o.Transistor
+	}
+	d.MaxUtilization = math.Max(d.MaxUtilization, o.MaxUtilization)
+	d.Ok = d.Ok && o.Ok
+}

@@ -1,0 +1,279 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+)
+
+// Corner is one worst-case corner solved.
+type Corner struct {
+	// BF is the forward-gain parameter at TNOM: the datasheet hFE bound
+	// itself. hFE is specified at 25 °C, which is the model's TNOM, so the
+	// bound is what a simulator's .model line takes; the model's XTB then
+	// moves beta with the junction temperature.
+	BF     float64
+	Temp_C float64           // ambient (and resistor) temperature
+	Tj_C   float64           // device temperature after self-heating
+	VCC_V  float64           // collector rail at this corner
+	VEE_V  float64           // emitter rail at this corner
+	R_Ohm  [NumSlots]float64 // effective values (tolerance and TCR applied)
+	OP     OperatingPoint
+}
+
+// WorstCase is the extreme-value analysis over all corners plus the
+// linearised root-sum-square spread.
+type WorstCase struct {
+	Corners      []Corner // nil when WorstCaseOptions.SkipCorners is set
+	ICMin_A      float64
+	ICMax_A      float64
+	VCEMin_V     float64
+	VCEMax_V     float64
+	ICMinCorner  int // index into Corners (the corner number, see CornerCount)
+	ICMaxCorner  int
+	VCEMinCorner int
+	VCEMaxCorner int
+	AllActive    bool    // every corner active with VCE >= VCE(sat) + margin
+	RSSIC_A      float64 // linearised RSS spread (one-sided) of IC, JCGM 100 style
+	RSSVCE_V     float64
+
+	// Count is the number of corners solved.
+	Count int
+	// ICMinAt, ICMaxAt, VCEMinAt and VCEMaxAt are the extreme corners
+	// themselves (filled also when Corners is not kept).
+	ICMinAt, ICMaxAt, VCEMinAt, VCEMaxAt Corner
+	// VBMin_V .. VEMax_V are the extremes of the test-point voltages over
+	// the corners (signed node voltages, as measured against ground).
+	VBMin_V, VBMax_V float64
+	VCMin_V, VCMax_V float64
+	VEMin_V, VEMax_V float64
+	// TjMax_C is the hottest junction over the corners.
+	TjMax_C float64
+	// Dissipation holds each part's highest utilization over the corners,
+	// each corner's powers checked against the ratings derated at that
+	// corner's ambient.
+	Dissipation Dissipation
+	// NotActive counts corners that fail the AllActive condition.
+	NotActive int
+}
+
+// WorstCaseOptions tunes EvalWorstCaseWith. The zero value is what
+// EvalWorstCase does.
+type WorstCaseOptions struct {
+	// SkipCorners leaves WorstCase.Corners nil (no allocation): the
+	// extremes, their corners and the RSS figures are still filled. For
+	// search loops.
+	SkipCorners bool
+	// SkipRSS leaves the RSS figures zero (saves about 15 solves).
+	SkipRSS bool
+}
+
+// EvalWorstCase solves every corner of b: each combination of {hFE min,
+// max} × {each used resistor −tol, +tol} × {supply −tol, +tol} ×
+// {ambient min, max} (an input without spread contributes one level, so a
+// divider with four toleranced resistors has 2⁷ = 128 corners). Every
+// resistor's TCR is applied at the corner's ambient (resistors are taken
+// to be at the ambient temperature); the transistor is self-heated through
+// ThermalResistance(b.Device). The corner evaluation is exact only where
+// IC and VCE are monotonic in each input (REFERENCE.md §9).
+//
+// The RSS figures are the GUM law of propagation of uncertainty (JCGM
+// 100:2008 §5.1.2, eq. (10); from memory for the clause) for uncorrelated
+// inputs, u_c(Y) = √Σ(∂Y/∂x_i·u_i)², with every input taken as uniform
+// (rectangular) over its range, u_i = a_i/√3 for the half-width a_i (GUM
+// §4.3.7; from memory for the clause): resistors and supply over their
+// tolerance, hFE over [min, max], ambient over [min, max]. The sensitivity
+// coefficients are central finite differences of the self-heated solve at
+// the midpoint of every range. The figure is one standard uncertainty
+// (coverage factor 1), one-sided.
+//
+// A corner whose solve fails (no convergence, thermal runaway) makes the
+// whole evaluation fail with an error naming the corner.
+func EvalWorstCase(b Build, lim Limits) (WorstCase, error) {
+	return EvalWorstCaseWith(b, lim, WorstCaseOptions{})
+}
+
+// WorstCaseExtremes is EvalWorstCase without keeping the corner list: the
+// fast path for search loops.
+func WorstCaseExtremes(b Build, lim Limits) (WorstCase, error) {
+	return EvalWorstCaseWith(b, lim, WorstCaseOptions{SkipCorners: true})
+}
+
+// axis kinds of the corner enumeration.
+const (
+	axisBeta = iota
+	axisSupply
+	axisAmbient
+	axisResistor
+)
+
+// cornerAxis is one input with two levels.
+type cornerAxis struct {
+	kind int
+	slot Slot
+}
+
+// cornerPlan is the corner enumeration of one build: its axes and the two
+// device models.
+type cornerPlan struct {
+	b        Build
+	axes     [NumSlots + 3]cornerAxis
+	n        int
+	mLo, mHi Model
+	theta    float64
+	tjMax    float64
+}
+
+// newCornerPlan lists the axes of b (ambient first, so consecutive corners
+// differ in the fastest-changing inputs) and builds the two models.
+func newCornerPlan(b Build) (cornerPlan, error) {
+	p := cornerPlan{b: b, theta: ThermalResistance(b.Device), tjMax: tjMaxOf(b.Device)}
+	add := func(kind int, slot Slot) { p.axes[p.n] = cornerAxis{kind, slot}; p.n++ }
+	for i := range NumSlots {
+		if b.usedSlot(i) && b.Resistors[i].Tol > 0 {
+			add(axisResistor, i)
+		}
+	}
+	if b.VCCTol > 0 {
+		add(axisSupply, 0)
+	}
+	if b.Device.HFEMax > b.Device.HFEMin {
+		add(axisBeta, 0)
+	}
+	if b.AmbientMax_C > b.AmbientMin_C {
+		add(axisAmbient, 0)
+	}
+	var err error
+	if p.mLo, err = ModelFor(b.Device, b.Device.HFEMin); err != nil {
+		return p, err
+	}
+	p.mHi = p.mLo
+	p.mHi.BF = b.Device.HFEMax // ModelFor depends on bf only through BF
+	return p, nil
+}
+
+// CornerCount returns the number of corners EvalWorstCase solves for b.
+func CornerCount(b Build) int {
+	n := 0
+	for i := range NumSlots {
+		if b.usedSlot(i) && b.Resistors[i].Tol > 0 {
+			n++
+		}
+	}
+	for _, spread := range []bool{b.VCCTol > 0, b.Device.HFEMax > b.Device.HFEMin, b.AmbientMax_C > b.AmbientMin_C} {
+		if spread {
+			n++
+		}
+	}
+	return 1 << n
+}
+
+// solve solves corner k: bit j of k picks the high level of axis j.
+func (p *cornerPlan) solve(k int) (Corner, error) {
+	var dev [NumSlots]float64
+	vccFactor, ambient, m := 1.0, p.b.AmbientMin_C, &p.mLo
+	for j := 0; j < p.n; j++ {
+		hi := k>>j&1 == 1
+		ax := p.axes[j]
+		switch ax.kind {
+		case axisResistor:
+			tol := p.b.Resistors[ax.slot].Tol
+			if hi {
+				dev[ax.slot] = tol
+			} else {
+				dev[ax.slot] = -tol
+			}
+		case axisSupply:
+			if hi {
+				vccFactor = 1 + p.b.VCCTol
+			} else {
+				vccFactor = 1 - p.b.VCCTol
+			}
+		case axisBeta:
+			if hi {
+				m = &p.mHi
+			}
+		case axisAmbient:
+			if hi {
+				ambient = p.b.AmbientMax_C
+			}
+		}
+	}
+	s := p.b.Resolve(dev, vccFactor, ambient)
+	c := Corner{BF: m.BF, Temp_C: ambient, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm}
+	op, err := SolveSelfHeated(s, *m, ambient, p.theta, p.tjMax)
+	if err != nil {
+		return c, fmt.Errorf("worst case: corner %d (hFE %g, ambient %g °C, vcc %.4g V): %w", k, m.BF, ambient, s.VCC_V, err)
+	}
+	c.OP = op
+	c.Tj_C = op.Tj_C
+	return c, nil
+}
+
+// EvalWorstCaseWith is EvalWorstCase with options.
+func EvalWorstCaseWith(b Build, lim Limits, opt WorstCaseOptions) (WorstCase, error) {
+	if err := b.Validate(); err != nil {
+		return WorstCase{}, fmt.Errorf("worst case: %w", err)
+	}
+	lim = lim.withDefaults()
+	p, err := newCornerPlan(b)
+	if err != nil {
+		return WorstCase{}, fmt.Errorf("worst case: %w", err)
+	}
+	n := 1 << p.n
+	wc := WorstCase{Count: n, AllActive: true, Dissipation: Dissipation{Ok: true}}
+	if !opt.SkipCorners {
+		wc.Corners = make([]Corner, n)
+	}
+	vceFloor := vceSatOf(b.Device) + lim.VCEMargin_V
+	for k := range n {
+		c, err := p.solve(k)
+		if err != nil {
+			return WorstCase{}, err
+		}
+		if !opt.SkipCorners {
+			wc.Corners[k] = c
+		}
+		wc.fold(k, &c)
+		if c.OP.Region != Active || c.OP.VCE_V < vceFloor {
+			wc.AllActive = false
+			wc.NotActive++
+		}
+		wc.Dissipation.worse(EvalDissipation(b, c.OP, c.Temp_C, lim))
+	}
+	if !opt.SkipRSS {
+		if wc.RSSIC_A, wc.RSSVCE_V, err = rssSpread(b, p.theta, p.tjMax); err != nil {
+			return WorstCase{}, err
+		}
+	}
+	return wc, nil
+}
+
+// fold takes corner k into the running extremes.
+func (wc *WorstCase) fold(k int, c *Corner) {
+	op := &c.OP
+	if k == 0 {
+		wc.ICMin_A, wc.ICMax_A, wc.VCEMin_V, wc.VCEMax_V = op.IC_A, op.IC_A, op.VCE_V, op.VCE_V
+		wc.ICMinAt, wc.ICMaxAt, wc.VCEMinAt, wc.VCEMaxAt = *c, *c, *c, *c
+		wc.VBMin_V, wc.VBMax_V = op.VB_V, op.VB_V
+		wc.VCMin_V, wc.VCMax_V = op.VC_V, op.VC_V
+		wc.VEMin_V, wc.VEMax_V = op.VE_V, op.VE_V
+		wc.TjMax_C = op.Tj_C
+		return
+	}
+	if op.IC_A < wc.ICMin_A {
+		wc.ICMin_A, wc.ICMinCorner, wc.ICMinAt = op.IC_A, k, *c
+	}
+	if op.IC_A > wc.ICMax_A {
+		wc.ICMax_A, wc.ICMaxCorner, wc.ICMaxAt = op.IC_A, k, *c
+	}
+	if op.VCE_V < wc.VCEMin_V {
+		wc.VCEMin_V, wc.VCEMinCorner, wc.VCEMinAt = op.VCE_V, k, *c
+	}
+	if op.VCE_V > wc.VCEMax_V {
+		wc.VCEMax_V, wc.VCEMaxCorner, wc.VCEMaxAt = op.VCE_V, k, *c
+	}
+	wc.VBMin_V, wc.VBMax_V = math.Min(wc.VBMin_V, op.VB_V), math.Max(wc.VBMax_V, op.VB_V)
+	wc.VCMin_V, wc.VCMax_V = math.Min(wc.VCMin_V, op.VC_V), math.Max(wc.VCMax_V, op.VC_V)
+	wc.VEMin_V, wc.VEMax_V = math.Min(wc.VEMin_V, op.VE_V), math.Max(wc.VEMax_V, op.VE_V)
+	wc.TjMax_C = math.Max(wc.TjMax_C, op.Tj_C)
+}

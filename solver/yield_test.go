@@ -1,0 +1,184 @@
+package solver
+
+import (
+	"math"
+	"math/rand/v2"
+	"testing"
+)
+
+// oneInputBuild varies only the named input: no supply tolerance, no
+// ambient range, no self-heating.
+func oneInputBuild(keep Slot, betaSpread bool) Build {
+	b := dividerBuild()
+	b.VCCTol = 0
+	b.Device.ThetaJA_KPerW = 0
+	b.AmbientMin_C, b.AmbientMax_C = 25, 25
+	if !betaSpread {
+		b.Device.HFEMin, b.Device.HFEMax = 200, 200
+	}
+	for s := range NumSlots {
+		if s != keep {
+			b.Resistors[s].Tol = 0
+		}
+	}
+	return b
+}
+
+// icAt solves b with RE moved by dev (a fraction) and forward beta bf.
+func icAt(t *testing.T, b Build, devRE, bf float64) float64 {
+	t.Helper()
+	m, err := ModelFor(b.Device, bf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var dev [NumSlots]float64
+	dev[RE] = devRE
+	op, err := Solve(b.Resolve(dev, 1, 25), m, 25)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return op.IC_A
+}
+
+func TestYieldFractions(t *testing.T) {
+	// Hand-derived: when IC is a monotonic function of one random input,
+	// the pass share is the probability of the preimage of the window. IC
+	// falls as RE rises (REFERENCE.md §9 [D]) and rises with beta.
+	reBuild := oneInputBuild(RE, false)
+	betaBuild := oneInputBuild(-1, true)
+	gm := math.Sqrt(100 * 300)
+	tests := []struct {
+		name string
+		b    Build
+		w    Window
+		opt  YieldOptions
+		want float64
+	}{
+		// RE uniform on ±5 % (REFERENCE.md §9): P(dev ≥ +2.5 %) = 0.25.
+		{"RE uniform, upper quarter", reBuild, Window{ICMax_A: icAt(t, reBuild, 0.025, 200)}, YieldOptions{}, 0.25},
+		// RE normal σ = tol/3 truncated at ±tol (REFERENCE.md §9):
+		// P(Z ≥ 1.5 | |Z| ≤ 3) = (Φ(3) − Φ(1.5))/(2Φ(3) − 1)
+		// = (0.998650 − 0.933193)/0.997300 = 0.065634 (standard normal table).
+		{"RE truncated normal, beyond 1.5 sigma", reBuild, Window{ICMax_A: icAt(t, reBuild, 0.025, 200)}, YieldOptions{Resistors: ResistorNormal}, 0.065634},
+		// hFE uniform on [100, 300]: P(β ≥ √(100·300)) = (300 − 173.205)/200.
+		{"hFE uniform above the geometric mean", betaBuild, Window{ICMin_A: icAt(t, betaBuild, 0, gm)}, YieldOptions{}, (300 - gm) / 200},
+		// hFE log-uniform: the geometric mean is the median, P = 0.5.
+		{"hFE log-uniform above the geometric mean", betaBuild, Window{ICMin_A: icAt(t, betaBuild, 0, gm)}, YieldOptions{Beta: BetaLogUniform}, 0.5},
+	}
+	for i, tt := range tests {
+		y, err := EvalYieldSeeded(tt.b, tt.w, 4000, uint64(i+1), tt.opt)
+		if err != nil {
+			t.Fatalf("%s: %v", tt.name, err)
+		}
+		se := math.Sqrt(tt.want * (1 - tt.want) / 4000)
+		if math.Abs(y.Yield-tt.want) > 3*se {
+			t.Errorf("%s: yield %.4f ± %.4f, want %.4f within 3 standard errors (%.4f)", tt.name, y.Yield, y.StdErr, tt.want, 3*se)
+		}
+		// source: REFERENCE.md §9, standard error √(p̂(1−p̂)/M).
+		if want := math.Sqrt(y.Yield * (1 - y.Yield) / 4000); math.Abs(y.StdErr-want) > 1e-15 {
+			t.Errorf("%s: StdErr %g, want √(p(1−p)/n) = %g", tt.name, y.StdErr, want)
+		}
+		if y.Boards != 4000 || y.Pass != int(math.Round(y.Yield*4000)) || y.Failed != 0 || y.Seed != uint64(i+1) {
+			t.Errorf("%s: counts %+v inconsistent", tt.name, y)
+		}
+	}
+}
+
+func TestYieldInsideCorners(t *testing.T) {
+	// source: REFERENCE.md §9: when IC and VCE are monotonic in every
+	// input, every board lies between the corner extremes, so a window
+	// spanning the corners passes every board: yield exactly 1, StdErr 0.
+	b := dividerBuild()
+	wc, err := WorstCaseExtremes(b, Limits{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := Window{ICMin_A: wc.ICMin_A * (1 - 1e-9), ICMax_A: wc.ICMax_A * (1 + 1e-9), VCEMin_V: wc.VCEMin_V - 1e-9, VCEMax_V: wc.VCEMax_V + 1e-9}
+	for _, opt := range []YieldOptions{{}, {Resistors: ResistorNormal, Beta: BetaLogUniform, Ambient: AmbientExtremes}} {
+		y, err := EvalYieldWith(b, w, 2000, rand.New(rand.NewPCG(7, 7)), opt)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if y.Pass != 2000 || y.Yield != 1 || y.StdErr != 0 {
+			t.Errorf("options %+v: yield %+v, want every board to pass", opt, y)
+		}
+	}
+	// A window that only the nominal neighbourhood meets loses boards.
+	w.ICMax_A = 0.5 * (wc.ICMin_A + wc.ICMax_A)
+	y, err := EvalYield(b, w, 2000, rand.New(rand.NewPCG(7, 7)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if y.Yield <= 0 || y.Yield >= 1 {
+		t.Errorf("half window: yield %g, want strictly between 0 and 1", y.Yield)
+	}
+}
+
+func TestYieldReproducible(t *testing.T) {
+	b := dividerBuild()
+	wc, err := WorstCaseExtremes(b, Limits{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := Window{ICMax_A: 0.5 * (wc.ICMin_A + wc.ICMax_A)}
+	a, err := EvalYieldSeeded(b, w, 1000, 42, YieldOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	again, err := EvalYieldSeeded(b, w, 1000, 42, YieldOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a != again {
+		t.Errorf("same seed gave %+v then %+v", a, again)
+	}
+}
+
+func TestYieldBadInput(t *testing.T) {
+	b := dividerBuild()
+	rng := rand.New(rand.NewPCG(1, 1))
+	for _, tt := range []struct {
+		name string
+		w    Window
+		n    int
+	}{
+		{"no boards", Window{}, 0},
+		{"inverted IC window", Window{ICMin_A: 2e-3, ICMax_A: 1e-3}, 10},
+		{"NaN bound", Window{VCEMin_V: math.NaN()}, 10},
+	} {
+		if _, err := EvalYield(b, tt.w, tt.n, rng); err == nil {
+			t.Errorf("%s: no error", tt.name)
+		}
+	}
+}
+
+func TestModelForBetaOnlyInBF(t *testing.T) {
+	// The analyses build one model and move BF; this holds only while
+	// ModelFor depends on its bf argument through BF alone.
+	d := dividerBuild().Device
+	base, err := ModelFor(d, 100)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, bf := range []float64{50, 173.2, 300} {
+		m, err := ModelFor(d, bf)
+		if err != nil {
+			t.Fatal(err)
+		}
+		moved := base
+		moved.BF = bf
+		if m != moved {
+			t.Errorf("ModelFor(bf=%g) = %+v, want the bf=100 model with BF moved: %+v", bf, m, moved)
+		}
+	}
+}
+
+func BenchmarkYield10k(b *testing.B) {
+	bd := dividerBuild()
+	w := Window{ICMin_A: 3.5e-3, ICMax_A: 4.5e-3, VCEMin_V: 4, VCEMax_V: 9}
+	for b.Loop() {
+		if _, err := EvalYieldSeeded(bd, w, 10000, 1, YieldOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
