@@ -1,0 +1,373 @@
+package picker
+
+import (
+	"fmt"
+	"math"
+
+	"biasbin/solver"
+)
+
+// Slot order of a divider build's arrays: R1, R2, RC, RE.
+const (
+	iR1 = iota
+	iR2
+	iRC
+	iRE
+	nPos
+)
+
+// divSlots maps the array positions to solver slots.
+var divSlots = [nPos]solver.Slot{solver.R1, solver.R2, solver.RC, solver.RE}
+
+// Headroom shape (see doc.go).
+const (
+	// headroomSatBand: the saturation penalty starts when the lowest
+	// corner VCE comes within this share of the supply of VCE(sat) plus
+	// the margin.
+	headroomSatBand = 0.10
+	// headroomCutBand: the cut-off penalty starts when the lowest corner
+	// IC falls below this share of the target.
+	headroomCutBand = 0.50
+)
+
+// combo is one build: a device and a value per position.
+type combo struct {
+	dev int
+	lv  [nPos]int // level per position
+	val [nPos]int // value per position
+}
+
+// evaluated is a build with its pre-yield score.
+type evaluated struct {
+	c       combo
+	key     string // tie-break: device line ID and values, fixed width
+	score   float64
+	terms   Terms
+	failing []string
+	op      solver.OperatingPoint
+	worst   solver.WorstCase
+	beta    float64 // beta sensitivity, signed as IC(hFE max) − IC(hFE min) over IC
+	util    float64
+}
+
+// less is the ranking order: passing before failing, then lower score,
+// then the tie-break key (device line ID, then the values' ascending
+// resistances and preference order per position R1, R2, RC, RE).
+func less(a, b *evaluated) bool {
+	af, bf := len(a.failing) > 0, len(b.failing) > 0
+	if af != bf {
+		return !af
+	}
+	if a.score != b.score {
+		return a.score < b.score
+	}
+	return a.key < b.key
+}
+
+// evaluator scores builds for one request.
+type evaluator struct {
+	s    settings
+	vs   *valueSet
+	devs []device
+}
+
+// ohms returns the nominal resistances of a level tuple.
+func (e *evaluator) ohms(lv [nPos]int) [nPos]float64 {
+	var r [nPos]float64
+	for i := range nPos {
+		r[i] = e.vs.levels[lv[i]].ohm
+	}
+	return r
+}
+
+// stage is the nominal circuit of a level tuple (values at their marked
+// resistance; at 25 °C TCR moves nothing).
+func (e *evaluator) stage(r [nPos]float64) solver.Stage {
+	st := solver.Stage{Topology: solver.Divider, VCC_V: e.s.sign * e.s.vcc, RL_Ohm: e.s.rl}
+	for i, sl := range divSlots {
+		st.R_Ohm[sl] = r[i]
+	}
+	if e.s.bypass {
+		st.RBypass_Ohm = r[iRE]
+	}
+	return st
+}
+
+// solveAt solves the nominal circuit r with model m, self-heated at the
+// nominal ambient, exactly as solver.Nominal does.
+func (e *evaluator) solveAt(d *device, m solver.Model, r [nPos]float64) (solver.OperatingPoint, error) {
+	return solver.SolveSelfHeated(e.stage(r), m, NominalAmbient_C, d.thetaJA, d.tjMax_C)
+}
+
+// vceTarget is the VCE the Q-point term aims at: the request's, or the
+// VCE that maximises symmetrical swing on this build's load lines at the
+// target current (REFERENCE.md §7): with r_ac = RC‖RL + RE(unbypassed) and
+// R_dc = RC + RE, the optimum Q-point on the DC load line is
+// IC = (VCC − VCE(sat))/(R_dc + r_ac), VCE = VCE(sat) + IC·r_ac, i.e.
+// VCE(sat) + (VCC − VCE(sat))·r_ac/(R_dc + r_ac). With no load and no
+// bypass r_ac = R_dc and this is the mid-point (VCC + VCE(sat))/2.
+func (e *evaluator) vceTarget(d *device, r [nPos]float64) float64 {
+	if e.s.vceT > 0 {
+		return e.s.vceT
+	}
+	return swingVCE(e.s.vcc, d.vceSat, r[iRC], r[iRE], e.s.rl, e.s.bypass)
+}
+
+// swingVCE is the maximum-symmetrical-swing VCE of a divider stage.
+func swingVCE(vcc, vceSat, rc, re, rl float64, bypass bool) float64 {
+	rac := rc
+	if rl > 0 {
+		rac = rc * rl / (rc + rl)
+	}
+	if !bypass {
+		rac += re
+	}
+	rdc := rc + re
+	if rdc+rac <= 0 {
+		return (vcc + vceSat) / 2
+	}
+	return vceSat + (vcc-vceSat)*rac/(rdc+rac)
+}
+
+// qpoint is the Q-point term of an operating point.
+func (e *evaluator) qpoint(op solver.OperatingPoint, vceT float64) float64 {
+	return math.Abs(op.IC_A-e.s.icT)/e.s.icT + math.Abs(op.VCE_V-vceT)/e.s.vcc
+}
+
+// build returns the solver.Build of a combo.
+func (e *evaluator) build(c combo) solver.Build {
+	d := &e.devs[c.dev]
+	b := solver.Build{
+		Topology:         solver.Divider,
+		VCC_V:            e.s.sign * e.s.vcc,
+		VCCTol:           e.s.vccTol,
+		RL_Ohm:           e.s.rl,
+		Device:           d.line.Sheet,
+		AmbientMin_C:     e.s.ambMin,
+		AmbientMax_C:     e.s.ambMax,
+		NominalAmbient_C: NominalAmbient_C,
+	}
+	for i, sl := range divSlots {
+		b.Resistors[sl] = e.vs.values[c.val[i]].spec
+	}
+	if e.s.bypass {
+		b.RBypass_Ohm = b.Resistors[solver.RE].Nominal_Ohm
+	}
+	return b
+}
+
+// key is the fixed-width tie-break key of a combo.
+func (e *evaluator) key(c combo) string {
+	return fmt.Sprintf("%020d|%06d.%06d|%06d.%06d|%06d.%06d|%06d.%06d", e.devs[c.dev].line.ID,
+		c.lv[0], c.val[0], c.lv[1], c.val[1], c.lv[2], c.val[2], c.lv[3], c.val[3])
+}
+
+// fitsQuantity reports whether N boards of the combo can be built from
+// stock: each line must hold N times the parts the build draws from it
+// over all positions (a pair draws one part of each of its lines).
+func (e *evaluator) fitsQuantity(c combo) bool {
+	var ids [2 * nPos]int
+	n := 0
+	for _, vi := range c.val {
+		for _, li := range e.vs.values[vi].parts() {
+			ids[n] = li
+			n++
+		}
+	}
+	for i := range n {
+		count := 0
+		for j := range n {
+			if ids[j] == ids[i] {
+				count++
+			}
+		}
+		if e.vs.lines[ids[i]].Qty < count*e.s.boards {
+			return false
+		}
+	}
+	return true
+}
+
+// tuple holds what depends only on the device and the level tuple.
+type tuple struct {
+	c        combo // dev and lv set
+	r        [nPos]float64
+	op       solver.OperatingPoint
+	ok       bool // nominal solve succeeded
+	vceT     float64
+	q        float64
+	betaDone bool
+	betaOK   bool
+	beta     float64 // signed relative spread
+}
+
+// newTuple solves the nominal point of a level tuple.
+func (e *evaluator) newTuple(dev int, lv [nPos]int) *tuple {
+	t := &tuple{c: combo{dev: dev, lv: lv}, r: e.ohms(lv)}
+	d := &e.devs[dev]
+	op, err := e.solveAt(d, d.typ, t.r)
+	if err != nil {
+		return t
+	}
+	t.op, t.ok = op, true
+	t.vceT = e.vceTarget(d, t.r)
+	t.q = e.qpoint(op, t.vceT)
+	return t
+}
+
+// betaSpread solves the tuple at hFE min and max (self-heated, nominal
+// ambient): (IC(hFE max) − IC(hFE min))/IC(nominal).
+func (e *evaluator) betaSpread(t *tuple) {
+	if t.betaDone {
+		return
+	}
+	t.betaDone = true
+	d := &e.devs[t.c.dev]
+	lo, err := e.solveAt(d, d.lo, t.r)
+	if err != nil {
+		return
+	}
+	hi, err := e.solveAt(d, d.hi, t.r)
+	if err != nil {
+		return
+	}
+	t.beta = (hi.IC_A - lo.IC_A) / t.op.IC_A
+	t.betaOK = true
+}
+
+// counters of a search.
+type counters struct {
+	evaluated  int64 // builds whose every pre-yield term was computed
+	considered int64 // builds covered: evaluated, cut by a bound on their own terms, or inside a pruned region
+	solves     int64
+}
+
+// scoreVariants scores every value combination of the tuple whose
+// quantities fit, computing the cheap terms first and stopping as soon as
+// a build's partial score exceeds the threshold thr() (the score of the
+// pool's last passing member; +Inf while the pool is not full of passing
+// builds). Each build that is fully scored goes to keep.
+func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evaluated), cnt *counters) {
+	if !t.ok {
+		n := int64(1)
+		for i := range nPos {
+			n *= int64(len(e.vs.levels[t.c.lv[i]].values))
+		}
+		cnt.considered += n
+		return
+	}
+	w := e.s.w
+	lv := t.c.lv
+	var c combo = t.c
+	L := [nPos][]int{e.vs.levels[lv[0]].values, e.vs.levels[lv[1]].values, e.vs.levels[lv[2]].values, e.vs.levels[lv[3]].values}
+	for _, v0 := range L[0] {
+		for _, v1 := range L[1] {
+			for _, v2 := range L[2] {
+				for _, v3 := range L[3] {
+					cnt.considered++
+					c.val = [nPos]int{v0, v1, v2, v3}
+					if !e.fitsQuantity(c) {
+						continue
+					}
+					b := e.build(c)
+					dis := solver.EvalDissipation(b, t.op, e.s.ambMax, e.s.lim)
+					partial := w.QPoint*t.q + w.Utilization*dis.MaxUtilization
+					if partial > thr() {
+						continue
+					}
+					e.betaSpread(t)
+					if !t.betaOK {
+						continue
+					}
+					partial += w.Beta * math.Abs(t.beta)
+					if partial > thr() {
+						continue
+					}
+					ev := e.finish(c, b, t, dis.MaxUtilization)
+					cnt.evaluated++
+					if ev != nil {
+						keep(ev)
+					}
+				}
+			}
+		}
+	}
+}
+
+// finish runs the worst-case corners of a build and completes its
+// pre-yield score. It returns nil when the corners cannot be solved.
+func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *evaluated {
+	d := &e.devs[c.dev]
+	ev := &evaluated{c: c, key: e.key(c), op: t.op, beta: t.beta, util: util}
+	wc, err := solver.EvalWorstCase(b, e.s.lim)
+	if err != nil {
+		ev.failing = append(ev.failing, fmt.Sprintf("worst case: %v", err))
+		ev.terms = Terms{QPoint: t.q, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util}
+	} else {
+		ev.worst = wc
+		ev.terms = Terms{QPoint: t.q, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
+		ev.failing = e.hardLimits(d, b, wc)
+	}
+	w := e.s.w
+	ev.score = w.QPoint*ev.terms.QPoint + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization
+	return ev
+}
+
+// headroom is the worst-case headroom term (see doc.go): a saturation
+// part growing linearly from 0 when the lowest corner VCE is
+// headroomSatBand·VCC above VCE(sat)+margin to 1 at VCE(sat)+margin (and
+// beyond), plus a cut-off part growing from 0 when the lowest corner IC is
+// headroomCutBand of the target to 1 at IC = 0.
+func (e *evaluator) headroom(d *device, wc solver.WorstCase) float64 {
+	sat := (wc.VCEMin_V - d.vceSat - e.s.lim.VCEMargin_V) / e.s.vcc
+	h := math.Max(0, 1-sat/headroomSatBand)
+	cut := wc.ICMin_A / e.s.icT
+	return h + math.Max(0, 1-cut/headroomCutBand)
+}
+
+// hardLimits lists why a build fails: a corner outside the active region
+// or within the VCE margin of saturation, a part over its derated,
+// margined rating at some corner, the collector current over the
+// transistor's IC max.
+func (e *evaluator) hardLimits(d *device, b solver.Build, wc solver.WorstCase) []string {
+	var why []string
+	floor := d.vceSat + e.s.lim.VCEMargin_V
+	for i := range wc.Corners {
+		cn := &wc.Corners[i]
+		if cn.OP.Region != solver.Active {
+			why = append(why, fmt.Sprintf("%s at hFE %.0f, %g °C ambient, VCC %.3g V", cn.OP.Region, cn.BF, cn.Temp_C, math.Abs(cn.VCC_V)))
+			break
+		}
+	}
+	if len(why) == 0 && wc.VCEMin_V < floor {
+		cn := wc.Corners[wc.VCEMinCorner]
+		why = append(why, fmt.Sprintf("VCE falls to %.3g V (below VCE(sat) %.3g V + %.3g V margin) at hFE %.0f, %g °C ambient, VCC %.3g V",
+			wc.VCEMin_V, d.vceSat, e.s.lim.VCEMargin_V, cn.BF, cn.Temp_C, math.Abs(cn.VCC_V)))
+	}
+	worstU, worstName, worstT := 0.0, "", 0.0
+	for i := range wc.Corners {
+		cn := &wc.Corners[i]
+		dis := solver.EvalDissipation(b, cn.OP, cn.Temp_C, e.s.lim)
+		if dis.Ok {
+			continue
+		}
+		for j, sl := range divSlots {
+			if u := dis.Resistor[sl].Utilization; u > worstU {
+				worstU, worstName, worstT = u, slotNames[j], cn.Temp_C
+			}
+		}
+		if u := dis.Transistor.Utilization; u > worstU {
+			worstU, worstName, worstT = u, "the transistor", cn.Temp_C
+		}
+	}
+	if worstU > 1 {
+		why = append(why, fmt.Sprintf("%s at %.0f %% of its derated allowance at %g °C ambient", worstName, 100*worstU, worstT))
+	}
+	if im := d.line.Sheet.ICMax_A; im > 0 && wc.ICMax_A > im {
+		why = append(why, fmt.Sprintf("IC reaches %.3g A, over the %.3g A IC max", wc.ICMax_A, im))
+	}
+	return why
+}
+
+// slotNames are the position names in array order.
+var slotNames = [nPos]string{"r1", "r2", "rc", "re"}

@@ -1,0 +1,262 @@
+package picker
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"biasbin/solver"
+)
+
+// Request defaults (documented in doc.go).
+const (
+	// DefaultTop is the number of builds shown when Request.Top is 0.
+	DefaultTop = 5
+	// DefaultAmbientMin_C and DefaultAmbientMax_C are the ambient range
+	// used when both Request.AmbientMin_C and AmbientMax_C are 0.
+	DefaultAmbientMin_C = 0.0
+	DefaultAmbientMax_C = 50.0
+	// NominalAmbient_C is the ambient of the nominal point every score
+	// term except Headroom is taken at: the temperature resistors are
+	// marked at, so their TCR does not move the nominal point.
+	NominalAmbient_C = 25.0
+	// DefaultICWindow is the yield window's IC band around the target
+	// (±10 %) when Request.Window is zero.
+	DefaultICWindow = 0.10
+	// DefaultVCEWindow is the yield window's VCE band around the build's
+	// VCE target (±20 %) when Request.Window is zero.
+	DefaultVCEWindow = 0.20
+	// DefaultYieldBoards is the Monte Carlo size per finalist when
+	// Request.YieldBoards is 0.
+	DefaultYieldBoards = 400
+	// VoltageDerating is the share of VCEO a transistor may see at the
+	// highest supply (80 %, common practice, REFERENCE.md §3).
+	VoltageDerating = 0.8
+	// CurrentDerating is the share of IC max the target current may use
+	// (50 %, common practice), leaving room for the worst-case spread.
+	CurrentDerating = 0.5
+	// maxIC_A bounds the target current: a small-signal bias picker has no
+	// business above 10 A.
+	maxIC_A = 10.0
+)
+
+// DefaultWeights returns the ranking weights used when Request.Weights is
+// the zero value (see doc.go for what each term measures).
+func DefaultWeights() Weights {
+	return Weights{QPoint: 2, Beta: 1, Headroom: 1, Utilization: 0.25, Yield: 1}
+}
+
+// InputError is a request the picker cannot work on: Field names the
+// input as the user knows it, Problem says what is wrong and Fix what
+// would make it right.
+type InputError struct {
+	Field   string
+	Problem string
+	Fix     string
+}
+
+func (e *InputError) Error() string {
+	if e.Fix == "" {
+		return e.Field + ": " + e.Problem
+	}
+	return e.Field + ": " + e.Problem + "; " + e.Fix
+}
+
+func inputErr(field, fix, format string, a ...any) error {
+	return &InputError{Field: field, Problem: fmt.Sprintf(format, a...), Fix: fix}
+}
+
+// settings is a validated request with every default filled in.
+type settings struct {
+	req         Request
+	topo        solver.Topology
+	pol         solver.Polarity
+	vcc         float64 // magnitude
+	sign        float64 // +1 NPN, -1 PNP
+	vccTol      float64
+	icT         float64
+	vceT        float64 // 0 = maximum-symmetrical-swing rule per build
+	ambMin      float64
+	ambMax      float64
+	boards      int
+	top         int
+	pool        int // finalists that get a Monte Carlo yield
+	yieldBoards int
+	w           Weights
+	lim         solver.Limits // with defaults filled
+	bypass      bool
+	rl          float64
+}
+
+// normalize validates req and fills its defaults.
+func normalize(req Request) (settings, error) {
+	s := settings{req: req}
+	finite := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+	switch req.Topology {
+	case 0, solver.Divider:
+		s.topo = solver.Divider
+	default:
+		return s, inputErr("topology", "use --topology divider", "%v is not searched yet", req.Topology)
+	}
+	if !finite(req.VCC_V) || req.VCC_V == 0 {
+		return s, inputErr("vcc", "give the supply, e.g. --vcc 12V", "%g V is not a supply voltage", req.VCC_V)
+	}
+	switch req.Polarity {
+	case 0:
+		s.pol = solver.NPN
+		if req.VCC_V < 0 {
+			s.pol = solver.PNP
+		}
+	case solver.NPN, solver.PNP:
+		s.pol = req.Polarity
+	default:
+		return s, inputErr("polarity", "use npn or pnp", "%v is not a polarity", req.Polarity)
+	}
+	s.sign = 1
+	if s.pol == solver.PNP {
+		s.sign = -1
+	}
+	if req.VCC_V*s.sign < 0 {
+		return s, inputErr("vcc", "give the rail with the sign of the stage (positive for npn, negative for pnp)",
+			"%g V is the wrong sign for a %v stage", req.VCC_V, s.pol)
+	}
+	s.vcc = math.Abs(req.VCC_V)
+	if !finite(req.VCCTol) || req.VCCTol < 0 || req.VCCTol >= 0.5 {
+		return s, inputErr("vcc_tol", "give a tolerance between 0 and 50 %", "%g is not a supply tolerance", req.VCCTol)
+	}
+	s.vccTol = req.VCCTol
+	if !finite(req.IC_A) || req.IC_A <= 0 {
+		return s, inputErr("ic", "give the target collector current, e.g. --ic 1mA", "%g A is not a collector current", req.IC_A)
+	}
+	if req.IC_A > maxIC_A {
+		return s, inputErr("ic", "lower --ic", "%g A is beyond any small-signal stage (limit %g A)", req.IC_A, maxIC_A)
+	}
+	s.icT = req.IC_A
+	vceLow := s.vcc * (1 - s.vccTol)
+	if !finite(req.VCE_V) || req.VCE_V < 0 {
+		return s, inputErr("vce", "give a VCE magnitude, or leave it out for the maximum-swing rule", "%g V is not a VCE target", req.VCE_V)
+	}
+	if req.VCE_V >= vceLow {
+		return s, inputErr("vce", fmt.Sprintf("choose a VCE below %.3g V or raise --vcc", vceLow),
+			"%g V cannot exist with a %g V supply at -%g %%", req.VCE_V, s.vcc, 100*s.vccTol)
+	}
+	s.vceT = req.VCE_V
+	s.ambMin, s.ambMax = req.AmbientMin_C, req.AmbientMax_C
+	if s.ambMin == 0 && s.ambMax == 0 {
+		s.ambMin, s.ambMax = DefaultAmbientMin_C, DefaultAmbientMax_C
+	}
+	if !finite(s.ambMin) || !finite(s.ambMax) || s.ambMin > s.ambMax || s.ambMin < solver.MinTemp_C || s.ambMax > 150 {
+		return s, inputErr("ambient", "give MIN..MAX within -55..150 °C", "%g..%g °C is not an ambient range", s.ambMin, s.ambMax)
+	}
+	s.boards = req.Boards
+	if s.boards < 0 {
+		return s, inputErr("boards", "give a positive number of boards", "%d boards", s.boards)
+	}
+	if s.boards == 0 {
+		s.boards = 1
+	}
+	s.top = req.Top
+	if s.top < 0 {
+		return s, inputErr("top", "give a positive number of builds to show", "%d builds", s.top)
+	}
+	if s.top == 0 {
+		s.top = DefaultTop
+	}
+	s.pool = req.Finalists
+	if s.pool < 0 {
+		return s, inputErr("finalists", "give a positive pool size or 0 for the default", "%d finalists", s.pool)
+	}
+	if s.pool == 0 {
+		s.pool = defaultPool(s.top)
+	}
+	s.pool = max(s.pool, s.top)
+	s.yieldBoards = req.YieldBoards
+	if s.yieldBoards < 0 {
+		return s, inputErr("yield_boards", "give a positive number of Monte Carlo boards", "%d boards", s.yieldBoards)
+	}
+	if s.yieldBoards == 0 {
+		s.yieldBoards = DefaultYieldBoards
+	}
+	s.w = req.Weights
+	if s.w == (Weights{}) {
+		s.w = DefaultWeights()
+	}
+	for _, t := range []struct {
+		name string
+		v    float64
+	}{{"qpoint", s.w.QPoint}, {"beta", s.w.Beta}, {"headroom", s.w.Headroom}, {"utilization", s.w.Utilization}, {"yield", s.w.Yield}} {
+		if !finite(t.v) || t.v < 0 {
+			return s, inputErr("weights."+t.name, "use 0 to ignore the term or a positive number to stress it",
+				"%g: a weight cannot be negative", t.v)
+		}
+	}
+	if !finite(req.RL_Ohm) || req.RL_Ohm < 0 {
+		return s, inputErr("load", "give the AC load in ohms, or 0 for none", "%g ohm is not a load", req.RL_Ohm)
+	}
+	s.rl, s.bypass = req.RL_Ohm, req.Bypass
+	s.lim = limitsWithDefaults(req.Limits)
+	if s.lim.ResistorMaxFraction < 0 || s.lim.TransistorMaxFraction < 0 || s.lim.VCEMargin_V < 0 {
+		return s, inputErr("limits", "use 0 for the defaults or positive values", "negative design margin %+v", req.Limits)
+	}
+	w := req.Window
+	if w != (solver.Window{}) && (w.ICMin_A > w.ICMax_A || w.VCEMin_V > w.VCEMax_V) {
+		return s, inputErr("window", "give each band as MIN..MAX", "IC %g..%g A, VCE %g..%g V is not a window", w.ICMin_A, w.ICMax_A, w.VCEMin_V, w.VCEMax_V)
+	}
+	return s, nil
+}
+
+// defaultPool is the number of finalists that get a Monte Carlo yield
+// before the final ranking: twice the shown builds plus five.
+func defaultPool(top int) int { return 2*top + 5 }
+
+// limitsWithDefaults fills the zero fields of l with the solver defaults.
+func limitsWithDefaults(l solver.Limits) solver.Limits {
+	if l.ResistorMaxFraction == 0 {
+		l.ResistorMaxFraction = solver.DefaultResistorMaxFraction
+	}
+	if l.TransistorMaxFraction == 0 {
+		l.TransistorMaxFraction = solver.DefaultTransistorMaxFraction
+	}
+	if l.VCEMargin_V == 0 {
+		l.VCEMargin_V = solver.DefaultVCEMargin_V
+	}
+	return l
+}
+
+// hasTags reports whether have carries every tag in want.
+func hasTags(have, want []string) bool {
+	for _, t := range want {
+		if !slices.Contains(have, t) {
+			return false
+		}
+	}
+	return true
+}
+
+// checkStock reports the bad-input cases of the stock itself: nothing at
+// all, no resistors, no transistor of the polarity.
+func (s settings) checkStock(st Stock) error {
+	if len(st.Resistors) == 0 && len(st.Transistors) == 0 {
+		return inputErr("stock", "add resistors and transistors to the stock first", "the stock is empty")
+	}
+	if len(st.Resistors) == 0 {
+		return inputErr("stock", "add resistors to the stock first", "the stock holds no resistors")
+	}
+	if !slices.ContainsFunc(st.Transistors, func(t Transistor) bool { return t.Sheet.Polarity == s.pol }) {
+		return inputErr("polarity", fmt.Sprintf("add %v transistors to the stock or ask for the other polarity", s.pol),
+			"the stock holds no %v transistor", s.pol)
+	}
+	rmin := math.Inf(1)
+	for _, r := range st.Resistors {
+		if r.Ohm > 0 {
+			rmin = min(rmin, r.Ohm)
+		}
+	}
+	// RC and RE are at least the smallest stocked value each, so no build
+	// can carry more than this collector current.
+	if icMax := s.vcc * (1 + s.vccTol) / (2 * rmin); s.icT > icMax {
+		return inputErr("ic", fmt.Sprintf("lower --ic below %.3g A or raise --vcc", icMax),
+			"%g A cannot flow from a %g V supply through the smallest stocked RC and RE (%g ohm each)", s.icT, s.vcc, rmin)
+	}
+	return nil
+}

@@ -1,0 +1,101 @@
+package picker
+
+import (
+	"fmt"
+	"math"
+
+	"biasbin/solver"
+)
+
+// device is one usable transistor line with its models prepared.
+type device struct {
+	line      Transistor
+	typ       solver.Model // at the typical hFE
+	lo, hi    solver.Model // at hFE min and max
+	thetaJA   float64      // K/W; 0 = no self-heating
+	tjMax_C   float64
+	vceSat    float64
+	hfeMin    float64
+	allowHot  float64 // transistor allowance at the hottest ambient (W), +Inf when unrated
+}
+
+// vceSatOf returns the datasheet VCE(sat) or the solver's default.
+func vceSatOf(d solver.Datasheet) float64 {
+	if d.VCESat_V > 0 {
+		return d.VCESat_V
+	}
+	return solver.DefaultVCESat_V
+}
+
+// tjMaxOf returns the datasheet Tj max or the solver's default.
+func tjMaxOf(d solver.Datasheet) float64 {
+	if d.TjMax_C != 0 {
+		return d.TjMax_C
+	}
+	return solver.DefaultTjMax_C
+}
+
+// transistorCandidates returns the lines of the requested polarity that
+// carry the required tags, hold at least `boards` parts and whose ratings
+// hold with margin, and a reason for each line of that polarity left out.
+//
+// Margins (common practice): VCEO at least the highest supply over
+// VoltageDerating (a transistor in cut-off sees the whole rail); IC max at
+// least the target over CurrentDerating; the dissipation at the target
+// current and the mid-supply VCE within the derated, margined allowance at
+// the hottest ambient. The worst-case corners check each build again.
+func (s settings) transistorCandidates(ts []Transistor) (devs []device, rejected []string) {
+	vccHi := s.vcc * (1 + s.vccTol)
+	for _, t := range ts {
+		d := t.Sheet
+		if d.Polarity != s.pol || !hasTags(t.Tags, s.req.RequireTags) {
+			continue
+		}
+		name := fmt.Sprintf("%s (line %d, bin %s)", d.Label, t.ID, t.Bin)
+		reject := func(format string, a ...any) {
+			rejected = append(rejected, name+": "+fmt.Sprintf(format, a...))
+		}
+		if t.Qty < s.boards {
+			reject("only %d in stock, %d boards need %d", t.Qty, s.boards, s.boards)
+			continue
+		}
+		if d.VCEO_V > 0 && d.VCEO_V*VoltageDerating < vccHi {
+			reject("VCEO %g V is below the %.3g V supply / %.0f %% derating", d.VCEO_V, vccHi, 100*VoltageDerating)
+			continue
+		}
+		if d.ICMax_A > 0 && d.ICMax_A*CurrentDerating < s.icT {
+			reject("IC max %g A is below the %g A target / %.0f %% derating", d.ICMax_A, s.icT, 100*CurrentDerating)
+			continue
+		}
+		allowHot := math.Inf(1)
+		if p, ok := solver.TransistorAllowed_W(d, s.ambMax); ok {
+			allowHot = p * s.lim.TransistorMaxFraction
+			if pd := s.icT * vccHi / 2; pd > allowHot {
+				reject("%.3g W at the target (mid-supply VCE) is over its %.3g W allowance at %g °C", pd, allowHot, s.ambMax)
+				continue
+			}
+		}
+		typ := solver.TypicalHFE(d)
+		mt, err := solver.ModelFor(d, typ)
+		if err != nil {
+			reject("datasheet: %v", err)
+			continue
+		}
+		ml, err := solver.ModelFor(d, d.HFEMin)
+		if err != nil {
+			reject("datasheet: %v", err)
+			continue
+		}
+		mh, err := solver.ModelFor(d, d.HFEMax)
+		if err != nil {
+			reject("datasheet: %v", err)
+			continue
+		}
+		devs = append(devs, device{
+			line: t, typ: mt, lo: ml, hi: mh,
+			thetaJA: solver.ThermalResistance(d), tjMax_C: tjMaxOf(d),
+			vceSat: vceSatOf(d), hfeMin: d.HFEMin, allowHot: allowHot,
+		})
+	}
+	return devs, rejected
+}

@@ -1,0 +1,133 @@
+package picker
+
+import "biasbin/solver"
+
+// Resistor is one stocked resistor line as the picker sees it.
+type Resistor struct {
+	ID          int64
+	Ohm         float64
+	Tol         float64 // fraction
+	TCR_PPMPerK float64
+	Rated_W     float64
+	Knee_C      float64
+	Max_C       float64
+	Qty         int
+	Bin         string
+	Tags        []string
+}
+
+// Transistor is one stocked transistor line.
+type Transistor struct {
+	ID    int64
+	Qty   int
+	Bin   string
+	Tags  []string
+	Sheet solver.Datasheet
+}
+
+// Stock is everything the search may draw on.
+type Stock struct {
+	Resistors   []Resistor
+	Transistors []Transistor
+}
+
+// Weights are the ranking weights; the zero value means the documented
+// defaults (a negative weight is an error).
+type Weights struct {
+	QPoint      float64
+	Beta        float64
+	Headroom    float64
+	Utilization float64
+	Yield       float64
+}
+
+// Request is what the technician asks for. The zero value of each optional
+// field means its documented default.
+type Request struct {
+	Topology     solver.Topology // 0 = divider
+	Polarity     solver.Polarity
+	VCC_V        float64 // signed (negative for PNP)
+	VCCTol       float64
+	IC_A         float64 // target collector current
+	VCE_V        float64 // target VCE magnitude; 0 = the maximum-symmetrical-swing rule
+	AmbientMin_C float64
+	AmbientMax_C float64 // both 0 = 0..50 °C
+	Boards       int     // 0 = 1
+	RL_Ohm       float64
+	Bypass       bool          // RE fully bypassed for AC
+	Window       solver.Window // yield window; zero = ±10 % IC, VCE within 20 % (documented)
+	Weights      Weights
+	Pairs        bool
+	RequireTags  []string
+	Top          int // 0 = 5
+	Exhaustive   bool
+	ShowFailing  bool // also list builds that fail a hard limit, with the reason
+	Seed         uint64
+	Limits       solver.Limits
+	Progress     func(done, total int64) // optional; called from the search, may be nil
+	// Finalists is how many of the best builds by the pre-yield score get
+	// a Monte Carlo yield before the final ranking; 0 = 2·Top + 5.
+	Finalists int
+	// YieldBoards is the Monte Carlo size per finalist; 0 = DefaultYieldBoards.
+	YieldBoards int
+}
+
+// Part is one physical part drawn from a stock line.
+type Part struct {
+	ID  int64
+	Ohm float64
+	Bin string
+}
+
+// Position is what fills one resistor position: a single part or a pair.
+type Position struct {
+	Ohm         float64 // nominal value of the arrangement
+	Arrangement string  // "single", "series" or "parallel"
+	Parts       []Part
+	Spec        solver.ResistorSpec
+}
+
+// Terms are the score terms of one candidate (each >= 0, lower is better).
+type Terms struct {
+	QPoint      float64
+	Beta        float64
+	Headroom    float64
+	Utilization float64
+	Yield       float64
+}
+
+// Candidate is one ranked build.
+type Candidate struct {
+	ID              string // stable for the same stock and request
+	Rank            int
+	Score           float64
+	Terms           Terms
+	Transistor      Transistor
+	Positions       map[string]Position // keyed by slot name: "r1", "r2", "rc", "re"
+	Build           solver.Build
+	Model           solver.Model
+	Nominal         solver.OperatingPoint
+	Worst           solver.WorstCase
+	Yield           solver.YieldResult
+	BetaSensitivity float64
+	MaxUtilization  float64
+	Failing         []string // reasons a hard limit fails; empty for a good build
+}
+
+// Shortfall explains why nothing (or too little) fits, with a suggestion.
+type Shortfall struct {
+	Reasons []string
+	Buy     []string // e.g. "4K7 1 % 0.25 W (E96) for RE"
+	// Rejected lists the transistor lines of the polarity left out, each
+	// with its reason.
+	Rejected []string
+}
+
+// Result is the outcome of a search.
+type Result struct {
+	Candidates []Candidate
+	Evaluated  int64 // builds fully evaluated
+	Considered int64 // combinations covered (evaluated or pruned)
+	Shortfall  *Shortfall
+}
+

@@ -1,0 +1,150 @@
+package picker
+
+import (
+	"cmp"
+	"math"
+	"slices"
+
+	"biasbin/solver"
+)
+
+// value is one way to fill a resistor position: a single stocked line or
+// a series or parallel pair of two lines (the same line twice when its
+// quantity allows).
+type value struct {
+	ohm   float64
+	arr   string
+	lines [2]int // indexes into the resistor lines; lines[1] = -1 for a single
+	spec  solver.ResistorSpec
+}
+
+// parts returns the line indexes the value draws one part from each.
+func (v value) parts() []int {
+	if v.lines[1] < 0 {
+		return v.lines[:1]
+	}
+	return v.lines[:]
+}
+
+// level is one distinct nominal resistance with every value that gives it.
+// The nominal operating point depends only on the levels of a build; the
+// values of a level differ in tolerance, TCR and rating.
+type level struct {
+	ohm    float64
+	values []int // indexes into valueSet.values, in preference order
+	// allowHot_W is the largest derated, margined allowance at the hottest
+	// ambient among the level's values (for utilization bounds).
+	allowHot_W float64
+}
+
+// valueSet is every value the search may put in a position, grouped into
+// levels sorted by ascending resistance.
+type valueSet struct {
+	lines  []Resistor
+	values []value
+	levels []level
+	// allowHotMax_W is the largest allowHot_W of any level.
+	allowHotMax_W float64
+}
+
+// sameOhm reports whether two resistances are one level (relative 1e-9,
+// so 4.7e3 read from text and 4700 agree).
+func sameOhm(a, b float64) bool { return math.Abs(a-b) <= 1e-9*math.Max(a, b) }
+
+// arrRank orders arrangements: singles before series before parallel pairs.
+func arrRank(a string) int {
+	switch a {
+	case Single:
+		return 0
+	case Series:
+		return 1
+	}
+	return 2
+}
+
+// buildValues forms the values from the usable lines: each line with at
+// least `boards` parts as a single and, with pairs, every worthwhile series
+// and parallel pair of two lines each holding `boards` parts (one line
+// twice when it holds 2·boards). Levels are ascending; within a level the
+// values are ordered single, series, parallel, then tighter tolerance,
+// higher rating, lower TCR magnitude, lower line IDs — the documented
+// tie-break.
+func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64, lim solver.Limits) valueSet {
+	vs := valueSet{lines: lines}
+	for i, r := range lines {
+		if r.Qty < boards || !(r.Ohm > 0) {
+			continue
+		}
+		vs.values = append(vs.values, value{ohm: r.Ohm, arr: Single, lines: [2]int{i, -1}, spec: partSpec(r)})
+	}
+	if pairs {
+		for i, a := range lines {
+			if a.Qty < boards || !(a.Ohm > 0) {
+				continue
+			}
+			for j := i; j < len(lines); j++ {
+				b := lines[j]
+				if !(b.Ohm > 0) || b.Qty < boards || (i == j && a.Qty < 2*boards) || !pairWorthwhile(a, b) {
+					continue
+				}
+				s := seriesSpec(a, b)
+				vs.values = append(vs.values, value{ohm: s.Nominal_Ohm, arr: Series, lines: [2]int{i, j}, spec: s})
+				p := parallelSpec(a, b)
+				vs.values = append(vs.values, value{ohm: p.Nominal_Ohm, arr: Parallel, lines: [2]int{i, j}, spec: p})
+			}
+		}
+	}
+	idOf := func(v value, k int) int64 {
+		if v.lines[k] < 0 {
+			return -1
+		}
+		return lines[v.lines[k]].ID
+	}
+	order := make([]int, len(vs.values))
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortStableFunc(order, func(x, y int) int {
+		a, b := vs.values[x], vs.values[y]
+		if !sameOhm(a.ohm, b.ohm) {
+			return cmp.Compare(a.ohm, b.ohm)
+		}
+		return cmp.Or(
+			cmp.Compare(arrRank(a.arr), arrRank(b.arr)),
+			cmp.Compare(a.spec.Tol, b.spec.Tol),
+			-cmp.Compare(a.spec.Rated_W, b.spec.Rated_W),
+			cmp.Compare(math.Abs(a.spec.TCR_PPMPerK), math.Abs(b.spec.TCR_PPMPerK)),
+			cmp.Compare(idOf(a, 0), idOf(b, 0)),
+			cmp.Compare(idOf(a, 1), idOf(b, 1)),
+		)
+	})
+	for _, vi := range order {
+		v := vs.values[vi]
+		allow := allowance(v.spec, hotAmbient_C, lim)
+		if n := len(vs.levels); n > 0 && sameOhm(vs.levels[n-1].ohm, v.ohm) {
+			l := &vs.levels[n-1]
+			l.values = append(l.values, vi)
+			l.allowHot_W = math.Max(l.allowHot_W, allow)
+		} else {
+			vs.levels = append(vs.levels, level{ohm: v.ohm, values: []int{vi}, allowHot_W: allow})
+		}
+		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
+	}
+	return vs
+}
+
+// allowance is the power a value may dissipate at ambient_C within the
+// design margin; +Inf for an unrated part (never limits).
+func allowance(s solver.ResistorSpec, ambient_C float64, lim solver.Limits) float64 {
+	if s.Rated_W <= 0 {
+		return math.Inf(1)
+	}
+	return solver.ResistorAllowed_W(s.Rated_W, s.Knee_C, s.Max_C, ambient_C) * lim.ResistorMaxFraction
+}
+
+// levelAtOrAbove returns the index of the first level with ohm >= r
+// (len(levels) when none).
+func (vs *valueSet) levelAtOrAbove(r float64) int {
+	i, _ := slices.BinarySearchFunc(vs.levels, r, func(l level, r float64) int { return cmp.Compare(l.ohm, r) })
+	return i
+}
