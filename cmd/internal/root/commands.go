@@ -4,6 +4,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/democmd"
 	"biasbin/cmd/internal/pickcmd"
 	"biasbin/cmd/internal/stockcmd"
 )
@@ -12,6 +13,7 @@ import (
 func subcommands(f *cmdutil.Factory) []*cobra.Command {
 	return []*cobra.Command{
 		pickcmd.New(f),
+		democmd.New(f),
 		stockcmd.New(f),
 	}
 }

@@ -1,0 +1,156 @@
+// Package democmd implements `biasbin demo`: the whole job on an invented
+// parts wall, in a throwaway stock file.
+package democmd
+
+import (
+	"bytes"
+	"context"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/pickcmd"
+	"biasbin/cmd/internal/stockcsv"
+	"biasbin/store"
+)
+
+// Options are the demo command's inputs.
+type Options struct {
+	IO *cmdutil.IOStreams
+	// Keep, when not empty, is where the demo stock file is made and left
+	// for exploring; otherwise it lives in a temporary folder removed at
+	// the end.
+	Keep string
+}
+
+// New returns the demo command.
+func New(f *cmdutil.Factory) *cobra.Command {
+	o := &Options{IO: f.IO}
+	cmd := &cobra.Command{
+		Use:   "demo",
+		Short: "Run the whole job on an invented parts wall",
+		Long: `Stock a throwaway database with an invented parts wall (carbon and metal
+film resistors in E6/E12/E24 values, 5 % and 1 %, 1/4 W and 1/2 W, a few NPN
+and PNP types; some drawers nearly empty) through the normal CSV import,
+then run three picks: a plain build, one from a sparse approved list where
+pairs fill the gaps, and a run larger than the stock can supply.
+
+Your own stock is never touched. With --keep PATH the demo stock stays at
+PATH so you can try commands on it: biasbin --db PATH stock list.`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, _ []string) error {
+			return Run(cmd.Context(), o)
+		},
+	}
+	cmd.Flags().StringVar(&o.Keep, "keep", "", "make the demo stock file at `PATH` and keep it (must not exist yet)")
+	return cmd
+}
+
+// Run stocks the demo wall and runs the demo picks, narrating on Out.
+func Run(ctx context.Context, o *Options) error {
+	if ctx == nil {
+		ctx = context.Background()
+	}
+	path, cleanup, err := demoPath(o.Keep)
+	if err != nil {
+		return err
+	}
+	defer cleanup()
+
+	w := o.IO.Out
+	fmt.Fprintln(w, "biasbin demo: an invented parts wall in a throwaway stock file")
+	if err := load(ctx, w, path); err != nil {
+		return err
+	}
+	for i, sc := range scenarios() {
+		if err := runScenario(ctx, w, path, i+1, sc); err != nil {
+			return err
+		}
+	}
+	fmt.Fprintln(w)
+	if o.Keep != "" {
+		fmt.Fprintf(w, "The demo stock is kept at %s: try biasbin --db %s stock list\n", path, path)
+	} else {
+		fmt.Fprintln(w, "The demo stock file has been removed; your own stock was not touched.")
+	}
+	fmt.Fprintln(w, "Next: load your own drawers with biasbin stock import FILE.csv, then biasbin pick --vcc ... --ic ...")
+	return nil
+}
+
+// demoPath returns the stock file to use and how to clean it up.
+func demoPath(keep string) (path string, cleanup func(), err error) {
+	if keep != "" {
+		if _, err := os.Stat(keep); err == nil {
+			return "", nil, cmdutil.Usagef("--keep %s: the file exists; the demo makes a new stock file, so give a path that does not exist yet", keep)
+		} else if !errors.Is(err, os.ErrNotExist) {
+			return "", nil, fmt.Errorf("--keep %s: %w", keep, err)
+		}
+		if err := os.MkdirAll(filepath.Dir(keep), 0o755); err != nil {
+			return "", nil, fmt.Errorf("create folder for %s: %w", keep, err)
+		}
+		return keep, func() {}, nil
+	}
+	dir, err := os.MkdirTemp("", "biasbin-demo-")
+	if err != nil {
+		return "", nil, fmt.Errorf("make a temporary folder for the demo stock: %w", err)
+	}
+	return filepath.Join(dir, "stock.db"), func() { os.RemoveAll(dir) }, nil
+}
+
+// load imports the embedded wall through the same reader and store import
+// that `biasbin stock import` uses.
+func load(ctx context.Context, w io.Writer, path string) error {
+	db, err := store.Open(ctx, path)
+	if err != nil {
+		return fmt.Errorf("demo stock: %w", err)
+	}
+	defer db.Close()
+	var counts []string
+	for _, name := range wallFiles {
+		data, err := wall.ReadFile(name)
+		if err != nil {
+			return fmt.Errorf("demo wall %s: %w", name, err)
+		}
+		file, err := stockcsv.Read(bytes.NewReader(data), name)
+		if err != nil {
+			return fmt.Errorf("demo wall: %w", err)
+		}
+		res, err := db.Import(ctx, file.Batch, store.ImportOptions{})
+		if err != nil {
+			return fmt.Errorf("demo wall %s: import: %w", name, err)
+		}
+		counts = append(counts, fmt.Sprintf("%d %s lines", res.Added, file.Kind))
+	}
+	fmt.Fprintf(w, "Stocked %s (the same import as biasbin stock import).\n", strings.Join(counts, " and "))
+	return nil
+}
+
+// runScenario narrates one pick and runs it as the pick command would run
+// from the command line, with its notes on the same stream so the story
+// reads in order.
+func runScenario(ctx context.Context, w io.Writer, path string, n int, sc scenario) error {
+	fmt.Fprintf(w, "\n=== Pick %d: %s\n", n, sc.title)
+	fmt.Fprintln(w, sc.story)
+	fmt.Fprintf(w, "$ biasbin pick %s\n\n", strings.Join(sc.args, " "))
+	f := &cmdutil.Factory{IO: cmdutil.Test(nil, w, w), DBPath: path, Getenv: func(string) string { return "" }}
+	defer f.Close()
+	cmd := pickcmd.New(f)
+	cmd.SetArgs(sc.args)
+	cmd.SilenceUsage, cmd.SilenceErrors = true, true
+	err := cmd.ExecuteContext(ctx)
+	switch {
+	case err == nil && sc.nothingFits:
+		fmt.Fprintln(w, "(this time the stock was enough after all)")
+	case errors.Is(err, cmdutil.ErrSilent) && sc.nothingFits:
+		fmt.Fprintln(w, "(pick exits with status 1 here: nothing fits, and it says what to buy)")
+	case err != nil:
+		return fmt.Errorf("demo pick %d: %w", n, err)
+	}
+	return nil
+}

@@ -1,0 +1,39 @@
+package democmd
+
+// scenario is one pick the demo runs: what it asks, in words and as the
+// command line a technician would type.
+type scenario struct {
+	title string
+	story string
+	args  []string
+	// nothingFits marks the pick that is meant to come up short.
+	nothingFits bool
+}
+
+// scenarios are the demo's picks, in order: a plain build from the
+// everyday drawers, a build from the sparse approved list where series
+// pairs fill the gaps, and a run larger than the PNP drawers can supply.
+func scenarios() []scenario {
+	return []scenario{
+		{
+			title: "A 12 V NPN gain stage at 2 mA, five boards",
+			story: `The everyday drawers: 5 % carbon film and the general-purpose NPN types.
+VCE is left to the swing rule; a 10K load hangs on the collector.`,
+			args: []string{"--vcc", "12V", "--ic", "2mA", "--load", "10K", "--boards", "5", "--top", "2"},
+		},
+		{
+			title: "A 9 V low-noise stage at 500 µA from the approved list, pairs allowed",
+			story: `Only parts tagged "approved": 1 % metal film in E6 values and one NPN type.
+The ideal values fall between those sparse singles, so pick may join two
+stocked parts in series or parallel to land closer.`,
+			args: []string{"--vcc", "9V", "--ic", "500uA", "--vce", "4V", "--require-tag", "approved", "--pairs", "--boards", "10", "--top", "2"},
+		},
+		{
+			title: "A 15 V PNP stage at 1 mA for a run of 30 boards",
+			story: `The PNP drawers hold 12 and 8 parts: not enough for 30 boards. pick says
+why nothing fits, shows the nearest builds and names what to buy.`,
+			args:        []string{"--vcc", "15V", "--ic", "1mA", "--polarity", "pnp", "--boards", "30", "--top", "1"},
+			nothingFits: true,
+		},
+	}
+}
