@@ -50,7 +50,7 @@ as a range.
 Ranking weights (--weights NAME=VALUE,...; NAME one of q, beta, headroom,
 util, yield): every term is at least 0 and lower is better; the score is
 their weighted sum. A weight of 0 ignores a term; negative weights are
-refused. Terms left out keep their default of 1.
+refused. Terms left out keep their defaults: ` + weightsHelp() + `.
 
 When nothing fits, pick writes the reasons and the parts to buy on stderr,
 the nearest builds (each with the limit it fails) on stdout, and exits 1.
@@ -84,7 +84,7 @@ Bad flags exit 2. pick only reads the stock; it never changes it.`,
 	fl.BoolVar(&o.Bypass, "bypass", false, "RE is bypassed by a capacitor for AC")
 	fl.StringVar(&o.ICWindow, "ic-window", defaultICWindow, "yield window for IC: ±percent of --ic, or MIN..MAX")
 	fl.StringVar(&o.VCEWindow, "vce-window", defaultVCEWindow, "yield window for VCE: ±percent of --vce, or MIN..MAX")
-	fl.StringVar(&o.Weights, "weights", "", "ranking weights, e.g. q=2,beta=1,headroom=1,util=1,yield=1")
+	fl.StringVar(&o.Weights, "weights", "", "ranking weights NAME=VALUE,... (default "+weightsHelp()+")")
 	fl.BoolVar(&o.Pairs, "pairs", false, "also use series and parallel pairs of two stocked resistors")
 	fl.StringArrayVar(&o.RequireTags, "require-tag", nil, "use only parts carrying this tag (repeatable)")
 	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
@@ -161,7 +161,8 @@ func Run(ctx context.Context, o *Options) error {
 // pickError wraps a search error; a bad request is a usage error (exit 2).
 func pickError(err error) error {
 	var in *solver.InputError
-	if errors.As(err, &in) {
+	var pin *picker.InputError
+	if errors.As(err, &in) || errors.As(err, &pin) {
 		return &cmdutil.UsageError{Err: fmt.Errorf("pick: %w", err)}
 	}
 	return fmt.Errorf("pick: %w", err)

@@ -240,6 +240,9 @@ func parseWeights(s string) (picker.Weights, error) {
 		}
 		*field(&w) = v
 	}
+	if w == (picker.Weights{}) {
+		return picker.Weights{}, cmdutil.Usagef("--weights %s: every weight is 0, so nothing would rank the builds; give at least one a positive weight", s)
+	}
 	return w, nil
 }
 
@@ -251,6 +254,11 @@ func trimNum(v float64) string { return strconv.FormatFloat(v, 'g', 4, 64) }
 
 // defaultWeights returns the picker's documented default weights, used for
 // the terms --weights leaves out.
-func defaultWeights() picker.Weights {
-	return picker.Weights{QPoint: 1, Beta: 1, Headroom: 1, Utilization: 1, Yield: 1} // PENDING: picker.DefaultWeights
+func defaultWeights() picker.Weights { return picker.DefaultWeights() }
+
+// weightsHelp writes the default weights as --weights takes them.
+func weightsHelp() string {
+	w := defaultWeights()
+	return "q=" + trimNum(w.QPoint) + ",beta=" + trimNum(w.Beta) + ",headroom=" + trimNum(w.Headroom) +
+		",util=" + trimNum(w.Utilization) + ",yield=" + trimNum(w.Yield)
 }
