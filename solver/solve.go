@@ -278,16 +278,23 @@ func (ck *circuit) operatingPoint(s Stage, d *device, x [2]float64, sg float64) 
 	vb := ck.b0 + ck.bb*ib + ck.bc*ic
 	vc := ck.c0 + ck.cb*ib + ck.cc*ic
 	ve := ck.e0 + ck.eb*ib + ck.ec*ic
+	op := ck.assemble(s, ib, ic, vb, vc, ve, sg)
+	op.Region = d.region(x[0], x[1])
+	return op
+}
+
+// assemble fills an OperatingPoint from the terminal currents and node
+// voltages of the mirrored-NPN frame.
+func (ck *circuit) assemble(s Stage, ib, ic, vb, vc, ve, sg float64) OperatingPoint {
 	op := OperatingPoint{
-		Region: d.region(x[0], x[1]),
-		IB_A:   ib,
-		IC_A:   ic,
-		IE_A:   ib + ic,
-		VB_V:   vb * sg,
-		VC_V:   vc * sg,
-		VE_V:   ve * sg,
-		VCE_V:  vc - ve,
-		VBE_V:  vb - ve,
+		IB_A:  ib,
+		IC_A:  ic,
+		IE_A:  ib + ic,
+		VB_V:  vb * sg,
+		VC_V:  vc * sg,
+		VE_V:  ve * sg,
+		VCE_V: vc - ve,
+		VBE_V: vb - ve,
 	}
 	r := &s.R_Ohm
 	vcc := s.VCC_V * sg
