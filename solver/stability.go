@@ -37,6 +37,14 @@ func StabilityNumeric(s Stage, m Model, tj_C float64) (Sensitivity, error) {
 		}
 		return op.IC_A, nil
 	}
+	central := func(mp, mn Model) (float64, error) {
+		ip, err := ic(mp)
+		if err != nil {
+			return 0, err
+		}
+		in, err := ic(mn)
+		return ip - in, err
+	}
 	ic0, err := ic(m)
 	if err != nil {
 		return Sensitivity{}, err
@@ -49,42 +57,35 @@ func StabilityNumeric(s Stage, m Model, tj_C float64) (Sensitivity, error) {
 	m1, m2 := m, m
 	m1.ICBO_A += h / scale
 	m2.ICBO_A += 2 * h / scale
-	i1, err := ic(m1)
+	d1, err := central(m1, m)
 	if err != nil {
 		return Sensitivity{}, err
 	}
-	i2, err := ic(m2)
+	d2, err := central(m2, m)
 	if err != nil {
 		return Sensitivity{}, err
 	}
-	out.SI = (-3*ic0 + 4*i1 - i2) / (2 * h)
+	out.SI = (4*d1 - d2) / (2 * h) // (−3f0 + 4f1 − f2)/(2h)
 
 	// S_V: VBE at constant current shifted by ±δ.
 	nvt := m.NF * thermalVoltage(tj_C)
 	mp, mn := m, m
 	mp.IS_A *= math.Exp(-fdVBEStep_V / nvt)
 	mn.IS_A *= math.Exp(fdVBEStep_V / nvt)
-	ip, err := ic(mp)
+	d, err := central(mp, mn)
 	if err != nil {
 		return Sensitivity{}, err
 	}
-	in, err := ic(mn)
-	if err != nil {
-		return Sensitivity{}, err
-	}
-	out.SV_S = (ip - in) / (2 * fdVBEStep_V)
+	out.SV_S = d / (2 * fdVBEStep_V)
 
 	// S_β: BF(T) changed by ±ε·BF(T).
 	_, bfT, _, _ := m.At(tj_C)
 	mp, mn = m, m
 	mp.BF *= 1 + fdBetaRel
 	mn.BF *= 1 - fdBetaRel
-	if ip, err = ic(mp); err != nil {
+	if d, err = central(mp, mn); err != nil {
 		return Sensitivity{}, err
 	}
-	if in, err = ic(mn); err != nil {
-		return Sensitivity{}, err
-	}
-	out.SBeta_A = (ip - in) / (2 * fdBetaRel * bfT)
+	out.SBeta_A = d / (2 * fdBetaRel * bfT)
 	return out, nil
 }

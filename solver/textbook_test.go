@@ -125,7 +125,23 @@ var textbookExamples = []struct {
 	},
 }
 
-func isVoltage(q quantity) bool { return q.name[0] == 'V' }
+// checkPrinted compares op with an example's exact recomputation (0.1 %)
+// and printed answer (2 %); node voltages are shifted by offset_V first.
+func checkPrinted(t *testing.T, source, path string, want []printed, op solver.OperatingPoint, offset_V float64) {
+	t.Helper()
+	for _, w := range want {
+		got := w.q.get(op)
+		if w.q.name[0] == 'V' && w.q.name != "VCE" {
+			got += offset_V
+		}
+		if rel := math.Abs(got/w.exct - 1); rel > 1e-3 {
+			t.Errorf("%s: %s %s = %.6g, exact recomputation %.6g (%.3f %% off, want <= 0.1 %%)", source, path, w.q.name, got, w.exct, 100*rel)
+		}
+		if rel := math.Abs(got/w.book - 1); rel > 0.02 {
+			t.Errorf("%s: %s %s = %.6g, book prints %.6g (%.2f %% off, want <= 2 %%)", source, path, w.q.name, got, w.book, 100*rel)
+		}
+	}
+}
 
 // TestTextbookExamples holds the hand method (SolveFixedVBE, VBE = 0.7 V)
 // against the printed answers (2 %) and their exact recomputation (0.1 %).
@@ -139,18 +155,7 @@ func TestTextbookExamples(t *testing.T) {
 		if op.Region != solver.Active {
 			t.Errorf("%s: region %v, want active", ex.source, op.Region)
 		}
-		for _, w := range ex.want {
-			got := w.q.get(op)
-			if isVoltage(w.q) && w.q.name != "VCE" {
-				got += ex.offset_V
-			}
-			if rel := math.Abs(got/w.exct - 1); rel > 1e-3 {
-				t.Errorf("%s: %s = %.6g, exact recomputation %.6g (%.3f %% off, want <= 0.1 %%)", ex.source, w.q.name, got, w.exct, 100*rel)
-			}
-			if rel := math.Abs(got/w.book - 1); rel > 0.02 {
-				t.Errorf("%s: %s = %.6g, book prints %.6g (%.2f %% off, want <= 2 %%)", ex.source, w.q.name, got, w.book, 100*rel)
-			}
-		}
+		checkPrinted(t, ex.source, "hand method", ex.want, op, ex.offset_V)
 		books[ex.source[8:20]] = true
 	}
 	if len(books) < 2 {
@@ -179,17 +184,6 @@ func TestTextbookExamplesExactModel(t *testing.T) {
 		if math.Abs(op.VBE_V-bookVBE_V) > 1e-6 {
 			t.Errorf("%s: exact VBE = %.7f V, want 0.7 V", ex.source, op.VBE_V)
 		}
-		for _, w := range ex.want {
-			got := w.q.get(op)
-			if isVoltage(w.q) && w.q.name != "VCE" {
-				got += ex.offset_V
-			}
-			if rel := math.Abs(got/w.exct - 1); rel > 1e-3 {
-				t.Errorf("%s: exact model %s = %.6g, recomputation %.6g", ex.source, w.q.name, got, w.exct)
-			}
-			if rel := math.Abs(got/w.book - 1); rel > 0.02 {
-				t.Errorf("%s: exact model %s = %.6g, book %.6g", ex.source, w.q.name, got, w.book)
-			}
-		}
+		checkPrinted(t, ex.source, "exact model", ex.want, op, ex.offset_V)
 	}
 }
