@@ -23,9 +23,12 @@ const busyTimeoutMS = 10000
 // dsn returns the data source name for path: the pragmas are in the DSN so
 // that every pooled connection gets them, and write transactions begin
 // IMMEDIATE.
-func dsn(path string) string {
+func dsn(path string) string { return dsnBusy(path, busyTimeoutMS) }
+
+// dsnBusy is dsn with another busy timeout in milliseconds.
+func dsnBusy(path string, busyMS int) string {
 	q := url.Values{}
-	q.Add("_pragma", fmt.Sprintf("busy_timeout(%d)", busyTimeoutMS))
+	q.Add("_pragma", fmt.Sprintf("busy_timeout(%d)", busyMS))
 	q.Add("_pragma", "foreign_keys(1)")
 	q.Add("_pragma", "journal_mode(wal)")
 	q.Add("_pragma", "synchronous(full)")
