@@ -237,9 +237,8 @@ func (e *evaluator) betaSpread(t *tuple) {
 
 // counters of a search.
 type counters struct {
-	evaluated  int64 // builds whose every pre-yield term was computed
-	considered int64 // builds covered: evaluated, cut by a bound on their own terms, or inside a pruned region
-	solves     int64
+	evaluated int64 // builds whose every pre-yield term was computed
+	solves    int64
 }
 
 // scoreVariants scores every value combination of the tuple whose
@@ -249,11 +248,6 @@ type counters struct {
 // builds). Each build that is fully scored goes to keep.
 func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evaluated), cnt *counters) {
 	if !t.ok {
-		n := int64(1)
-		for i := range nPos {
-			n *= int64(len(e.vs.levels[t.c.lv[i]].values))
-		}
-		cnt.considered += n
 		return
 	}
 	w := e.s.w
@@ -264,7 +258,6 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 		for _, v1 := range L[1] {
 			for _, v2 := range L[2] {
 				for _, v3 := range L[3] {
-					cnt.considered++
 					c.val = [nPos]int{v0, v1, v2, v3}
 					if !e.fitsQuantity(c) {
 						continue
@@ -299,14 +292,14 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *evaluated {
 	d := &e.devs[c.dev]
 	ev := &evaluated{c: c, key: e.key(c), op: t.op, beta: t.beta, util: util}
-	wc, err := solver.EvalWorstCase(b, e.s.lim)
+	wc, err := solver.EvalWorstCaseWith(b, e.s.lim, solver.WorstCaseOptions{SkipCorners: true, SkipRSS: true})
 	if err != nil {
 		ev.failing = append(ev.failing, fmt.Sprintf("worst case: %v", err))
 		ev.terms = Terms{QPoint: t.q, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util}
 	} else {
 		ev.worst = wc
 		ev.terms = Terms{QPoint: t.q, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
-		ev.failing = e.hardLimits(d, b, wc)
+		ev.failing = e.hardLimits(d, wc)
 	}
 	w := e.s.w
 	ev.score = w.QPoint*ev.terms.QPoint + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization
@@ -329,39 +322,28 @@ func (e *evaluator) headroom(d *device, wc solver.WorstCase) float64 {
 // or within the VCE margin of saturation, a part over its derated,
 // margined rating at some corner, the collector current over the
 // transistor's IC max.
-func (e *evaluator) hardLimits(d *device, b solver.Build, wc solver.WorstCase) []string {
+func (e *evaluator) hardLimits(d *device, wc solver.WorstCase) []string {
 	var why []string
-	floor := d.vceSat + e.s.lim.VCEMargin_V
-	for i := range wc.Corners {
-		cn := &wc.Corners[i]
-		if cn.OP.Region != solver.Active {
-			why = append(why, fmt.Sprintf("%s at hFE %.0f, %g °C ambient, VCC %.3g V", cn.OP.Region, cn.BF, cn.Temp_C, math.Abs(cn.VCC_V)))
-			break
+	if !wc.AllActive {
+		cn := wc.VCEMinAt
+		what := "saturates"
+		if cn.OP.Region == solver.Cutoff {
+			what = "is cut off"
 		}
+		why = append(why, fmt.Sprintf("%d of %d corners outside the active region or the VCE margin: the worst %s with VCE %.3g V (VCE(sat) %.3g V + %.3g V margin) at hFE %.0f, %g °C ambient, VCC %.3g V",
+			wc.NotActive, wc.Count, what, wc.VCEMin_V, d.vceSat, e.s.lim.VCEMargin_V, cn.BF, cn.Temp_C, math.Abs(cn.VCC_V)))
 	}
-	if len(why) == 0 && wc.VCEMin_V < floor {
-		cn := wc.Corners[wc.VCEMinCorner]
-		why = append(why, fmt.Sprintf("VCE falls to %.3g V (below VCE(sat) %.3g V + %.3g V margin) at hFE %.0f, %g °C ambient, VCC %.3g V",
-			wc.VCEMin_V, d.vceSat, e.s.lim.VCEMargin_V, cn.BF, cn.Temp_C, math.Abs(cn.VCC_V)))
-	}
-	worstU, worstName, worstT := 0.0, "", 0.0
-	for i := range wc.Corners {
-		cn := &wc.Corners[i]
-		dis := solver.EvalDissipation(b, cn.OP, cn.Temp_C, e.s.lim)
-		if dis.Ok {
-			continue
-		}
+	if !wc.Dissipation.Ok {
+		worstU, worstName := 0.0, ""
 		for j, sl := range divSlots {
-			if u := dis.Resistor[sl].Utilization; u > worstU {
-				worstU, worstName, worstT = u, slotNames[j], cn.Temp_C
+			if u := wc.Dissipation.Resistor[sl].Utilization; u > worstU {
+				worstU, worstName = u, slotNames[j]
 			}
 		}
-		if u := dis.Transistor.Utilization; u > worstU {
-			worstU, worstName, worstT = u, "the transistor", cn.Temp_C
+		if u := wc.Dissipation.Transistor.Utilization; u > worstU {
+			worstU, worstName = u, "the transistor"
 		}
-	}
-	if worstU > 1 {
-		why = append(why, fmt.Sprintf("%s at %.0f %% of its derated allowance at %g °C ambient", worstName, 100*worstU, worstT))
+		why = append(why, fmt.Sprintf("%s reaches %.0f %% of its derated, margined allowance at the worst corner", worstName, 100*worstU))
 	}
 	if im := d.line.Sheet.ICMax_A; im > 0 && wc.ICMax_A > im {
 		why = append(why, fmt.Sprintf("IC reaches %.3g A, over the %.3g A IC max", wc.ICMax_A, im))

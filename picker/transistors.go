@@ -9,14 +9,14 @@ import (
 
 // device is one usable transistor line with its models prepared.
 type device struct {
-	line      Transistor
-	typ       solver.Model // at the typical hFE
-	lo, hi    solver.Model // at hFE min and max
-	thetaJA   float64      // K/W; 0 = no self-heating
-	tjMax_C   float64
-	vceSat    float64
-	hfeMin    float64
-	allowHot  float64 // transistor allowance at the hottest ambient (W), +Inf when unrated
+	line     Transistor
+	typ      solver.Model // at the typical hFE
+	lo, hi   solver.Model // at hFE min and max
+	thetaJA  float64      // K/W; 0 = no self-heating
+	tjMax_C  float64
+	vceSat   float64
+	hfeMin   float64
+	allowHot float64 // transistor allowance at the hottest ambient (W), +Inf when unrated
 }
 
 // vceSatOf returns the datasheet VCE(sat) or the solver's default.

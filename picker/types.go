@@ -112,6 +112,9 @@ type Candidate struct {
 	BetaSensitivity float64
 	MaxUtilization  float64
 	Failing         []string // reasons a hard limit fails; empty for a good build
+	// VCETarget_V is the VCE the Q-point term aimed at: the request's, or
+	// this build's maximum-symmetrical-swing VCE.
+	VCETarget_V float64
 }
 
 // Shortfall explains why nothing (or too little) fits, with a suggestion.
@@ -128,6 +131,8 @@ type Result struct {
 	Candidates []Candidate
 	Evaluated  int64 // builds fully evaluated
 	Considered int64 // combinations covered (evaluated or pruned)
+	// Solved counts the nominal level tuples solved (each one exact
+	// self-heated operating point), the search's main cost.
+	Solved int64
 	Shortfall  *Shortfall
 }
-

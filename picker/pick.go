@@ -1,0 +1,217 @@
+package picker
+
+import (
+	"crypto/sha256"
+	"encoding/binary"
+	"encoding/hex"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"biasbin/solver"
+)
+
+// Pick searches stock for the best builds for req: the Top builds by
+// score (see doc.go), passing builds first. Bad input is an *InputError.
+// When no build passes every hard limit the result carries a Shortfall
+// and, as the nearest builds, the best failing ones.
+func Pick(stock Stock, req Request) (Result, error) {
+	s, err := normalize(req)
+	if err != nil {
+		return Result{}, err
+	}
+	if err := s.checkStock(stock); err != nil {
+		return Result{}, err
+	}
+	e, rejected := newEvaluator(s, stock)
+	var res Result
+	var cnt counters
+	p := &pool{size: s.pool}
+	if len(e.devs) > 0 && len(e.vs.levels) > 0 {
+		pl := planFor(e)
+		if s.req.Exhaustive {
+			pl.exhaustive(e, p, &cnt)
+		} else {
+			pl.seed(e, p, &cnt)
+			pl.search(e, p, &cnt)
+		}
+	}
+	res.Evaluated = cnt.evaluated
+	res.Solved = cnt.solves
+	res.Considered = e.combinations()
+	final, err := e.finalists(p.items)
+	if err != nil {
+		return Result{}, err
+	}
+	passing := 0
+	for _, c := range final {
+		if len(c.Failing) == 0 {
+			passing++
+		}
+	}
+	for i, c := range final {
+		if len(res.Candidates) == s.top {
+			break
+		}
+		if len(c.Failing) > 0 && !s.req.ShowFailing && passing > 0 {
+			break
+		}
+		c.Rank = i + 1
+		res.Candidates = append(res.Candidates, c)
+	}
+	if passing == 0 {
+		res.Shortfall = e.shortfall(stock, rejected, res.Candidates)
+	}
+	return res, nil
+}
+
+// newEvaluator prepares the value sets and devices of a request.
+func newEvaluator(s settings, stock Stock) (*evaluator, []string) {
+	var lines []Resistor
+	for _, r := range stock.Resistors {
+		if hasTags(r.Tags, s.req.RequireTags) {
+			lines = append(lines, r)
+		}
+	}
+	vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim)
+	devs, rejected := s.transistorCandidates(stock.Transistors)
+	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
+	return &evaluator{s: s, vs: &vs, devs: devs}, rejected
+}
+
+func sign64(v int64) int64 {
+	switch {
+	case v < 0:
+		return -1
+	case v > 0:
+		return 1
+	}
+	return 0
+}
+
+// combinations is the number of builds the search covers: devices times
+// the values per position to the fourth power.
+func (e *evaluator) combinations() int64 {
+	v := int64(len(e.vs.values))
+	return int64(len(e.devs)) * v * v * v * v
+}
+
+// finalists runs the Monte Carlo yield of the pool, adds the yield term
+// and returns the candidates in final order: passing first, then by final
+// score, then the tie-break key.
+func (e *evaluator) finalists(items []*evaluated) ([]Candidate, error) {
+	type fin struct {
+		ev    *evaluated
+		score float64
+		c     Candidate
+	}
+	fs := make([]fin, 0, len(items))
+	for _, ev := range items {
+		c, err := e.candidate(ev)
+		if err != nil {
+			return nil, err
+		}
+		c.Terms.Yield = 1 - c.Yield.Yield
+		c.Score = ev.score + e.s.w.Yield*c.Terms.Yield
+		fs = append(fs, fin{ev: ev, score: c.Score, c: c})
+	}
+	slices.SortStableFunc(fs, func(a, b fin) int {
+		af, bf := len(a.ev.failing) > 0, len(b.ev.failing) > 0
+		switch {
+		case af != bf && !af:
+			return -1
+		case af != bf:
+			return 1
+		case a.score < b.score:
+			return -1
+		case a.score > b.score:
+			return 1
+		}
+		return strings.Compare(a.ev.key, b.ev.key)
+	})
+	out := make([]Candidate, len(fs))
+	for i, f := range fs {
+		out[i] = f.c
+	}
+	return out, nil
+}
+
+// window is the yield window of a build: the request's, or ±DefaultICWindow
+// around the target current and ±DefaultVCEWindow around the build's VCE
+// target.
+func (e *evaluator) window(vceT float64) solver.Window {
+	if e.s.req.Window != (solver.Window{}) {
+		return e.s.req.Window
+	}
+	return solver.Window{
+		ICMin_A: e.s.icT * (1 - DefaultICWindow), ICMax_A: e.s.icT * (1 + DefaultICWindow),
+		VCEMin_V: vceT * (1 - DefaultVCEWindow), VCEMax_V: vceT * (1 + DefaultVCEWindow),
+	}
+}
+
+// candidate completes one pooled build: the full worst case with its
+// corners, the yield and the shown fields.
+func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
+	b := e.build(ev.c)
+	d := &e.devs[ev.c.dev]
+	c := Candidate{
+		ID:              e.id(ev.c),
+		Score:           ev.score,
+		Terms:           ev.terms,
+		Transistor:      d.line,
+		Positions:       map[string]Position{},
+		Build:           b,
+		Model:           d.typ,
+		Nominal:         ev.op,
+		BetaSensitivity: math.Abs(ev.beta),
+		MaxUtilization:  ev.util,
+		Failing:         ev.failing,
+		VCETarget_V:     e.vceTarget(d, e.ohms(ev.c.lv)),
+	}
+	for i, vi := range ev.c.val {
+		v := e.vs.values[vi]
+		pos := Position{Ohm: v.ohm, Arrangement: v.arr, Spec: v.spec}
+		for _, li := range v.parts() {
+			r := e.vs.lines[li]
+			pos.Parts = append(pos.Parts, Part{ID: r.ID, Ohm: r.Ohm, Bin: r.Bin})
+		}
+		c.Positions[slotNames[i]] = pos
+	}
+	if wc, err := solver.EvalWorstCase(b, e.s.lim); err == nil {
+		c.Worst = wc
+	} else {
+		c.Worst = ev.worst
+	}
+	seed := e.s.req.Seed ^ keySeed(ev.key)
+	y, err := solver.EvalYieldSeeded(b, e.window(c.VCETarget_V), e.s.yieldBoards, seed, solver.YieldOptions{})
+	if err != nil {
+		return c, fmt.Errorf("yield of build %s: %w", c.ID, err)
+	}
+	c.Yield = y
+	return c, nil
+}
+
+// keySeed derives a per-build seed from its key, so a build's yield does
+// not depend on the order builds were found in.
+func keySeed(key string) uint64 {
+	h := sha256.Sum256([]byte(key))
+	return binary.LittleEndian.Uint64(h[:8])
+}
+
+// id is the stable build ID: a hash of the topology, the transistor line
+// and, per position, the arrangement and the part line IDs. The same stock
+// lines give the same ID whatever the request.
+func (e *evaluator) id(c combo) string {
+	var sb strings.Builder
+	fmt.Fprintf(&sb, "%v|t%d", e.s.topo, e.devs[c.dev].line.ID)
+	for i, vi := range c.val {
+		v := e.vs.values[vi]
+		fmt.Fprintf(&sb, "|%s:%s", slotNames[i], v.arr)
+		for _, li := range v.parts() {
+			fmt.Fprintf(&sb, ":%d", e.vs.lines[li].ID)
+		}
+	}
+	h := sha256.Sum256([]byte(sb.String()))
+	return "b" + hex.EncodeToString(h[:6])
+}
