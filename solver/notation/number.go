@@ -200,7 +200,7 @@ func commonPrefix(a, b string) int {
 
 // siPrefixes are the prefixes every quantity except resistance takes.
 var siPrefixes = map[string]int{
-	"p": -12, "n": -9, "u": -6, "µ": -6, "μ": -6, "m": -3, "k": 3, "M": 6, "G": 9,
+	"f": -15, "p": -12, "n": -9, "u": -6, "µ": -6, "μ": -6, "m": -3, "k": 3, "M": 6, "G": 9, "T": 12,
 }
 
 // quantity describes one kind of value for the generic parser.

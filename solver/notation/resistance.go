@@ -21,7 +21,7 @@ var rkmMultipliers = map[byte]int{
 var (
 	ohmUnits         = []string{"Ω", "Ω", "ohm", "ohms", "Ohm", "Ohms", "OHM", "OHMS"}
 	ohmBarePrefixes  = map[string]int{"k": 3, "K": 3, "M": 6, "meg": 6, "Meg": 6, "MEG": 6, "G": 9, "T": 12}
-	ohmUnitPrefixes  = map[string]int{"µ": -6, "μ": -6, "u": -6, "m": -3, "k": 3, "K": 3, "M": 6, "meg": 6, "Meg": 6, "MEG": 6, "G": 9, "T": 12}
+	ohmUnitPrefixes  = map[string]int{"f": -15, "p": -12, "n": -9, "µ": -6, "μ": -6, "u": -6, "m": -3, "k": 3, "K": 3, "M": 6, "meg": 6, "Meg": 6, "MEG": 6, "G": 9, "T": 12}
 	resistanceSuffix = func() suffixSet {
 		set := newSuffixes(ohmUnitPrefixes, ohmUnits, true, false)
 		for p, e := range ohmBarePrefixes {

@@ -81,6 +81,7 @@ func TestParseResistanceSI(t *testing.T) {
 		{"1 MΩ", 1e6, 0, false},
 		{"220mΩ", 0.22, 0, false},
 		{"220 mohm", 0.22, 0, false},
+		{"470 nΩ", 470e-9, 0, false},
 		{".47", 0.47, 0, false},
 		{"+100", 100, 0, false},
 		{"4.7 K", 4700, 0, false}, // a lone K after an SI number is kilo, not ±10 %
