@@ -2,7 +2,6 @@ package eseries
 
 import (
 	"math"
-	"sort"
 	"strconv"
 )
 
@@ -25,6 +24,15 @@ func Values(s Series) []float64 {
 // decimal returns the float64 nearest to m·10^exp, exactly as the decimal
 // text would read (4700, not 4699.999999).
 func decimal(m, exp int) float64 {
+	// 10^0 .. 10^22 are exact in float64, and one IEEE multiplication or
+	// division of exact operands is correctly rounded: the result is the
+	// float64 nearest the decimal, as ParseFloat would give.
+	switch {
+	case exp >= 0 && exp <= 22:
+		return float64(m) * math.Pow10(exp)
+	case exp < 0 && exp >= -22:
+		return float64(m) / math.Pow10(-exp)
+	}
 	v, err := strconv.ParseFloat(strconv.Itoa(m)+"e"+strconv.Itoa(exp), 64)
 	if err != nil {
 		// Only reachable for decades far outside float64 range, which the
@@ -34,35 +42,45 @@ func decimal(m, exp int) float64 {
 	return v
 }
 
-// decadeValues returns the values of s in the decade [10^d, 10^(d+1)).
-func decadeValues(s Series, d int) []float64 {
-	m, digits := mantissas(s)
-	out := make([]float64, len(m))
-	for i, v := range m {
-		out[i] = decimal(v, d+1-digits)
-	}
-	return out
-}
-
 // positive reports whether ohm is finite and greater than zero.
 func positive(ohm float64) bool {
 	return ohm > 0 && !math.IsInf(ohm, 1) // NaN fails ohm > 0
 }
 
-// decadeOf returns floor(log10(ohm)) for a positive finite ohm.
-func decadeOf(ohm float64) int {
-	return int(math.Floor(math.Log10(ohm)))
+// mantissaAt returns the i-th integer mantissa of s (0 <= i < n) and its
+// number of significant digits, without copying the table.
+func mantissaAt(s Series, i int) (m, digits int) {
+	switch s {
+	case E3:
+		return e3[i], 2
+	case E6:
+		return e6[i], 2
+	case E12:
+		return e12[i], 2
+	case E24:
+		return e24[i], 2
+	}
+	return e192[i*(192/int(s))], 3
 }
 
-// around returns the values of s in the decades next to ohm's, ascending,
-// so that every neighbour of ohm is present despite rounding in log10.
-func around(s Series, ohm float64) []float64 {
-	d := decadeOf(ohm)
-	var out []float64
-	for k := d - 1; k <= d+1; k++ {
-		out = append(out, decadeValues(s, k)...)
+// valueAt returns the k-th value of s counted from 1 Ω (k = 0 is 1 Ω,
+// k = n is 10 Ω, k = -1 is the last value below 1 Ω).
+func valueAt(s Series, k int) float64 {
+	n := int(s)
+	d := k / n
+	if k%n != 0 && k < 0 {
+		d--
 	}
-	return out
+	m, digits := mantissaAt(s, k-d*n)
+	return decimal(m, d+1-digits)
+}
+
+// position returns the index k of the geometric step nearest below ohm.
+// Every series value lies within one step of its geometric value (the
+// irregular E24 values deviate by 3.4 % at most, a step is 10 %), so the
+// neighbours of ohm are within k-2 .. k+2.
+func position(s Series, ohm float64) int {
+	return int(math.Floor(math.Log10(ohm) * float64(s)))
 }
 
 // Nearest returns the value of s closest to ohm on a logarithmic scale (the
@@ -74,7 +92,9 @@ func Nearest(s Series, ohm float64) float64 {
 		return 0
 	}
 	best, bestDist := 0.0, math.Inf(1)
-	for _, v := range around(s, ohm) {
+	k := position(s, ohm)
+	for j := k - 2; j <= k+2; j++ {
+		v := valueAt(s, j)
 		dist := math.Abs(math.Log(v / ohm))
 		if dist < bestDist {
 			best, bestDist = v, dist
@@ -116,14 +136,15 @@ func Range(s Series, lo, hi float64) []float64 {
 	}
 	loM, hiM := lo*(1-matchRel), hi*(1+matchRel)
 	var out []float64
-	for d := decadeOf(lo) - 1; d <= decadeOf(hi)+1; d++ {
-		for _, v := range decadeValues(s, d) {
-			if v >= loM && v <= hiM {
-				out = append(out, v)
-			}
+	for k := position(s, lo) - 2; ; k++ {
+		v := valueAt(s, k)
+		if v > hiM {
+			return out
+		}
+		if v >= loM {
+			out = append(out, v)
 		}
 	}
-	return out
 }
 
 // NextUp returns the smallest value of s strictly above ohm (a value equal
@@ -134,9 +155,11 @@ func NextUp(s Series, ohm float64) float64 {
 	if !positive(ohm) {
 		return 0
 	}
-	vals := around(s, ohm)
-	i := sort.Search(len(vals), func(i int) bool { return vals[i] > ohm*(1+matchRel) })
-	return vals[i] // the next decade up always holds a larger value
+	k := position(s, ohm) - 2
+	for valueAt(s, k) <= ohm*(1+matchRel) {
+		k++
+	}
+	return valueAt(s, k)
 }
 
 // NextDown returns the largest value of s strictly below ohm (a value equal
@@ -147,7 +170,9 @@ func NextDown(s Series, ohm float64) float64 {
 	if !positive(ohm) {
 		return 0
 	}
-	vals := around(s, ohm)
-	i := sort.Search(len(vals), func(i int) bool { return vals[i] >= ohm*(1-matchRel) })
-	return vals[i-1] // the decade below always holds a smaller value
+	k := position(s, ohm) + 2
+	for valueAt(s, k) >= ohm*(1-matchRel) {
+		k--
+	}
+	return valueAt(s, k)
 }

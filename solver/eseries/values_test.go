@@ -235,3 +235,18 @@ func BenchmarkRangeE96(b *testing.B) {
 		Range(E96, 10, 1e6)
 	}
 }
+
+func TestDecimalMatchesParseFloat(t *testing.T) {
+	// The fast path must give the float64 that the decimal text reads as.
+	for exp := -40; exp <= 40; exp++ {
+		for _, m := range []int{1, 10, 47, 82, 100, 309, 487, 920, 976, 999} {
+			want, err := strconv.ParseFloat(strconv.Itoa(m)+"e"+strconv.Itoa(exp), 64)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if got := decimal(m, exp); got != want {
+				t.Errorf("decimal(%d, %d) = %v, want %v", m, exp, got, want)
+			}
+		}
+	}
+}
