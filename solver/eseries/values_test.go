@@ -2,6 +2,7 @@ package eseries
 
 import (
 	"math"
+	"math/rand/v2"
 	"slices"
 	"strconv"
 	"strings"
@@ -246,6 +247,33 @@ func TestDecimalMatchesParseFloat(t *testing.T) {
 			}
 			if got := decimal(m, exp); got != want {
 				t.Errorf("decimal(%d, %d) = %v, want %v", m, exp, got, want)
+			}
+		}
+	}
+}
+
+func TestNearestMatchesFullSearch(t *testing.T) {
+	// Nearest looks only near the geometric position; compare with a
+	// search over every value of the neighbouring decades.
+	rng := rand.New(rand.NewPCG(60063, 2015))
+	for _, s := range All() {
+		for i := 0; i < 2000; i++ {
+			ohm := math.Pow(10, -2+10*rng.Float64())
+			d := int(math.Floor(math.Log10(ohm)))
+			best, bestDist := 0.0, math.Inf(1)
+			for _, lo := range []float64{math.Pow10(d - 1), math.Pow10(d), math.Pow10(d + 1)} {
+				for _, m := range Values(s) {
+					v := lo * m
+					if dist := math.Abs(math.Log(v / ohm)); dist < bestDist {
+						best, bestDist = v, dist
+					}
+				}
+			}
+			if got := Nearest(s, ohm); math.Abs(got-best) > 1e-9*best {
+				t.Fatalf("Nearest(%s, %v) = %v, full search %v", s, ohm, got, best)
+			}
+			if up, down := NextUp(s, ohm), NextDown(s, ohm); !(down < ohm && ohm < up) && !Contains(s, ohm) {
+				t.Fatalf("NextDown/NextUp(%s, %v) = %v, %v", s, ohm, down, up)
 			}
 		}
 	}
