@@ -114,8 +114,11 @@ func (r Resistor) Validate() []Problem {
 	add := func(field, format string, a ...any) {
 		ps = append(ps, Problem{Kind: KindResistor, Field: field, Msg: fmt.Sprintf(format, a...)})
 	}
-	if !finiteIn(r.Ohm, 0, 1e13) {
-		add("value", "resistance %g Ω is not between 0 and 10 TΩ", r.Ohm)
+	switch {
+	case math.IsNaN(r.Ohm) || r.Ohm <= 0:
+		add("value", "resistance must be above 0 Ω (zero-ohm links are not stocked)")
+	case r.Ohm >= 1e13:
+		add("value", "resistance %g Ω is not below 10 TΩ", r.Ohm)
 	}
 	if !finiteIn(r.Tol, 0, 1) {
 		add("tolerance", "tolerance %g %% is not above 0 %% and below 100 %%", r.Tol*100)
