@@ -42,7 +42,7 @@ func newAddCmd(f *cmdutil.Factory) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "add",
 		Short: "Add parts to the stock",
-		Args:  cobra.NoArgs,
+		Args:  usageArgs(cobra.NoArgs),
 		RunE:  func(cmd *cobra.Command, _ []string) error { return cmd.Help() },
 	}
 	cmd.AddCommand(newAddResistorCmd(f, nil), newAddTransistorCmd(f, nil))
@@ -84,7 +84,7 @@ TCR; derating starts at --knee (70 °C) and reaches zero at --max-temp
 (155 °C).`,
 		Example: `  biasbin stock add resistor 4K7 --qty 100 --bin A3
   biasbin stock add resistor 10k --tol 1% --power 0.6W --tech "metal film" --tag approved`,
-		Args: cobra.ExactArgs(1),
+		Args: usageArgs(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.Value = args[0]
 			o.Fields = collect(vals)
@@ -125,7 +125,7 @@ optionally at its test current: 110..800 or 110..800@2mA. VBE(on) defaults
 to 0.65 V at 1 mA and Tj max to 150 °C (common practice). Voltages are
 magnitudes for both polarities.`,
 		Example: `  biasbin stock add transistor Q2N-A --polarity npn --hfe 100..300@2mA --vceo 45V --pd 500mW --theta-ja 200 --qty 20 --bin B1`,
-		Args:    cobra.ExactArgs(1),
+		Args:    usageArgs(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.Value = args[0]
 			o.Fields = collect(vals)

@@ -33,7 +33,7 @@ FILE or standard output. Importing the file into an empty stock gives the
 same stock back.`,
 		Example: `  biasbin stock export --kind resistor > resistors.csv
   biasbin stock export --kind transistor transistors.csv`,
-		Args: cobra.MaximumNArgs(1),
+		Args: usageArgs(cobra.MaximumNArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			k, err := parseKind(o.Kind, false)
 			if err != nil {

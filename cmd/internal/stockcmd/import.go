@@ -47,7 +47,7 @@ it instead. FILE "-" reads standard input.`,
 		Example: `  biasbin stock import resistors.csv --dry-run
   biasbin stock import resistors.csv
   biasbin stock import counted.csv --replace`,
-		Args: cobra.ExactArgs(1),
+		Args: usageArgs(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.File = args[0]
 			if runF != nil {

@@ -33,7 +33,7 @@ func newListCmd(f *cmdutil.Factory, runF func(*ListOptions) error) *cobra.Comman
 		Example: `  biasbin stock list
   biasbin stock list --kind resistor --bin A3
   biasbin stock list --tag approved --json`,
-		Args: cobra.NoArgs,
+		Args: usageArgs(cobra.NoArgs),
 		RunE: func(cmd *cobra.Command, _ []string) error {
 			k, err := parseKind(o.Kind, true)
 			if err != nil {

@@ -22,7 +22,7 @@ func newRemoveCmd(f *cmdutil.Factory, runF func(*RemoveOptions) error) *cobra.Co
 		Use:     "remove ID",
 		Short:   "Delete a stock line and its tags",
 		Example: "  biasbin stock remove 12",
-		Args:    cobra.ExactArgs(1),
+		Args:    usageArgs(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			id, err := parseID(args[0])
 			if err != nil {

@@ -29,7 +29,7 @@ func New(f *cmdutil.Factory) *cobra.Command {
 Every stock line has an ID, unique across resistors and transistors, that
 adjust, tag, untag and remove take. Values take the IEC 60062
 letter-and-digit code (4K7, R47, 2M2) or SI (4.7k, 4700, 4.7 kΩ).`,
-		Args: cobra.NoArgs,
+		Args: usageArgs(cobra.NoArgs),
 		RunE: func(cmd *cobra.Command, _ []string) error { return cmd.Help() },
 	}
 	cmd.AddCommand(
@@ -63,4 +63,14 @@ func writeJSON(w io.Writer, v any) error {
 		return fmt.Errorf("write JSON: %w", err)
 	}
 	return nil
+}
+
+// usageArgs makes an argument-count mistake a usage error (exit status 2).
+func usageArgs(check cobra.PositionalArgs) cobra.PositionalArgs {
+	return func(cmd *cobra.Command, args []string) error {
+		if err := check(cmd, args); err != nil {
+			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %w", cmd.CommandPath(), err)}
+		}
+		return nil
+	}
 }

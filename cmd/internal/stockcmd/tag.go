@@ -31,7 +31,7 @@ func newTagCmd(f *cmdutil.Factory, add bool, runF func(*TagOptions) error) *cobr
 		Use:     use,
 		Short:   short,
 		Example: "  biasbin stock " + strings.Fields(use)[0] + " 12 approved rohs",
-		Args:    cobra.MinimumNArgs(2),
+		Args:    usageArgs(cobra.MinimumNArgs(2)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			id, err := parseID(args[0])
 			if err != nil {

@@ -24,7 +24,7 @@ func newVerifyCmd(f *cmdutil.Factory, runF func(*VerifyOptions) error) *cobra.Co
 		Long: `Run SQLite's integrity and foreign-key checks and biasbin's own
 consistency checks on the stock file. Prints "ok" or each problem; exits 1
 when there is any.`,
-		Args: cobra.NoArgs,
+		Args: usageArgs(cobra.NoArgs),
 		RunE: func(cmd *cobra.Command, _ []string) error {
 			if runF != nil {
 				return runF(o)
