@@ -3,6 +3,7 @@ package root
 import (
 	"github.com/spf13/cobra"
 
+	"biasbin/cmd/internal/checkcmd"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/democmd"
 	"biasbin/cmd/internal/pickcmd"
@@ -13,6 +14,7 @@ import (
 func subcommands(f *cmdutil.Factory) []*cobra.Command {
 	return []*cobra.Command{
 		pickcmd.New(f),
+		checkcmd.New(f),
 		democmd.New(f),
 		stockcmd.New(f),
 	}

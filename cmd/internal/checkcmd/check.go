@@ -1,0 +1,223 @@
+// Package checkcmd implements `biasbin check`: analyse one bias build the
+// user names — operating point, region, worst case over every tolerance
+// corner, Monte Carlo yield, dissipation against derated ratings, swing —
+// and list the test-point voltages a technician measures with their
+// expected bands.
+package checkcmd
+
+import (
+	"context"
+	"errors"
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/solver"
+	"biasbin/store"
+)
+
+// Options are the check command's inputs: the flags as typed (parsed by
+// input) and what the command needs from outside, injectable by tests.
+type Options struct {
+	IO *cmdutil.IOStreams
+	// Store opens the stock (the factory's lazy store outside tests); it is
+	// called only when --transistor names a stock line.
+	Store func(context.Context) (*store.DB, error)
+	// Changed reports whether a flag was given on the command line.
+	Changed func(name string) bool
+
+	Topology   string
+	VCC        string
+	VEE        string
+	R          [solver.NumSlots]string // --r1 --r2 --rc --re --rf --rb
+	Transistor string
+	Polarity   string
+	HFE        string
+	HFETyp     string
+	VBE        string
+	VCESat     string
+	VAF        string
+	VCEO       string
+	ICMax      string
+	PD         string
+	ThetaJA    string
+	TjMax      string
+	ICBO       string
+	VCCTol     string
+	Tol        string
+	TCR        string
+	Power      string
+	Ambient    string
+	Beta       string
+	Temp       string
+	Load       string
+	Bypass     string
+	Window     string
+	Boards     int
+	Seed       uint64
+	JSON       bool
+	Spice      bool
+}
+
+// Flag defaults, shown in --help.
+const (
+	defaultTopology = "divider"
+	defaultVCCTol   = "5%"
+	// defaultTol is the resistor tolerance when a value carries none: E24
+	// parts are usually ±5 % (common practice, REFERENCE.md §1).
+	defaultTol = "5%"
+	// defaultTCR is thick-film's ±100 ppm/K (common practice, REFERENCE.md §3).
+	defaultTCR = "100ppm"
+	// defaultPower is the usual 1/4 W through-hole rating (common practice).
+	defaultPower   = "0.25W"
+	defaultAmbient = "0..50"
+	defaultTemp    = "25"
+	defaultWindow  = "10%,20%"
+	defaultBoards  = 10000
+	defaultSeed    = 1
+	// bypassAll is what a bare --bypass means: all of RE bypassed.
+	bypassAll = "all"
+)
+
+// New returns the check command.
+func New(f *cmdutil.Factory) *cobra.Command { return newCmd(f, nil) }
+
+// newCmd builds the command; runF, when not nil, replaces Run so flag
+// tests can inspect the parsed options.
+func newCmd(f *cmdutil.Factory, runF func(*Options) error) *cobra.Command {
+	o := &Options{IO: f.IO, Store: f.Store}
+	cmd := &cobra.Command{
+		Use:   "check --vcc V --r1 R ... (--transistor LABEL | --hfe MIN..MAX) [flags]",
+		Short: "Analyse one bias build: Q-point, worst case, yield, dissipation, swing",
+		Long: `Solve one bias build exactly and show how it holds up: the nominal
+operating point and region, every worst-case corner of hFE spread, resistor
+and supply tolerance and ambient range (each resistor's TCR applied at the
+corner's ambient, resistors taken to sit at the ambient, the transistor
+self-heated through its θJA), a Monte Carlo yield, each part's dissipation
+against its derated rating, the load lines and swing, and the test-point
+voltages (VB, VE, VC to ground) to measure at bring-up with their bands.
+
+Values take the letter-and-digit code or SI: 12V, 4K7, 470R, 10k, 2mA.
+A resistor value may carry its own tolerance (4K7F, "10k 1%"); otherwise
+--tol applies. For PNP give --vcc as a magnitude or as the negative rail;
+--vee is the emitter rail of the split-supply stage (magnitude or signed).
+
+The transistor comes from the stock (--transistor LABEL) or inline
+(--polarity, --hfe ...). Inline flags given with --transistor override the
+stock line's values (a heatsink's --theta-ja, a measured --hfe).
+
+By default the nominal point is at 25 °C ambient (--temp) and the typical
+hFE (the datasheet typical, else the geometric mean of min and max; --beta
+pins it). Yield: --window IC,VCE where each part is ±percent around the
+nominal point (10%) or an absolute range (1.8mA..2.2mA, 4V..8V).
+
+Exit status: 0 when analysed (whatever the region), 1 when a corner or
+the nominal point cannot be solved, 2 for bad flags.`,
+		Example: `  biasbin check --vcc 15V --r1 10K --r2 5K --rc 1K --re 1K --hfe 100..300
+  biasbin check --vcc 12V --r1 47K --r2 10K --rc 2K2 --re 470R --transistor NPN-GP --json
+  biasbin check --topology split-supply --vcc 15V --vee 15V --rb 10K --rc 10K --re 20K --hfe 100..300 --spice
+  biasbin check --polarity pnp --vcc 9V --r1 10K --r2 2K2 --rc 3K6 --re 1K --hfe 100..300 --ambient -10..60`,
+		Args: func(cmd *cobra.Command, args []string) error {
+			if len(args) == 0 {
+				return nil
+			}
+			if cmd.Flags().Changed("bypass") && o.Bypass == bypassAll {
+				return cmdutil.Usagef("check takes no arguments, only flags (got %q); a value for --bypass is written --bypass=%s", args[0], args[0])
+			}
+			return cmdutil.Usagef("check takes no arguments, only flags (got %q)", args[0])
+		},
+		RunE: func(cmd *cobra.Command, _ []string) error {
+			if runF != nil {
+				return runF(o)
+			}
+			return Run(cmd.Context(), o)
+		},
+	}
+	fl := cmd.Flags()
+	o.Changed = fl.Changed
+	fl.StringVar(&o.Topology, "topology", defaultTopology, "bias circuit: divider, collector-feedback or split-supply")
+	fl.StringVar(&o.VCC, "vcc", "", "collector supply, e.g. 12V")
+	fl.StringVar(&o.VEE, "vee", "", "emitter supply of the split-supply stage, e.g. 12V (taken as the rail opposite --vcc)")
+	for _, s := range []struct {
+		slot solver.Slot
+		help string
+	}{
+		{solver.R1, "divider: rail to base"},
+		{solver.R2, "divider: base to ground"},
+		{solver.RC, "rail to collector"},
+		{solver.RE, "emitter to ground (or to --vee); 0 or absent = emitter tied to it"},
+		{solver.RF, "collector-feedback: collector to base"},
+		{solver.RB, "split-supply: base to ground"},
+	} {
+		fl.StringVar(&o.R[s.slot], s.slot.String(), "", s.help+", e.g. 4K7 or 4.7k (may carry a tolerance: 4K7F)")
+	}
+	fl.StringVar(&o.Transistor, "transistor", "", "transistor by stock label")
+	fl.StringVar(&o.Polarity, "polarity", "", "inline transistor: npn or pnp (default npn)")
+	fl.StringVar(&o.HFE, "hfe", "", "inline transistor: hFE MIN..MAX, optionally @IC (100..300@2mA)")
+	fl.StringVar(&o.HFETyp, "hfe-typ", "", "inline transistor: typical hFE (default the geometric mean of min and max)")
+	fl.StringVar(&o.VBE, "vbe", "", "inline transistor: VBE(on)@IC (default 0.65V@1mA)")
+	fl.StringVar(&o.VCESat, "vce-sat", "", "inline transistor: VCE(sat) (default 0.2V)")
+	fl.StringVar(&o.VAF, "vaf", "", "inline transistor: Early voltage (default infinite)")
+	fl.StringVar(&o.VCEO, "vceo", "", "inline transistor: VCEO max")
+	fl.StringVar(&o.ICMax, "ic-max", "", "inline transistor: IC max")
+	fl.StringVar(&o.PD, "pd", "", "inline transistor: total dissipation at 25 °C ambient")
+	fl.StringVar(&o.ThetaJA, "theta-ja", "", "inline transistor: junction-to-ambient thermal resistance, K/W")
+	fl.StringVar(&o.TjMax, "tj-max", "", "inline transistor: maximum junction temperature (default 150)")
+	fl.StringVar(&o.ICBO, "icbo", "", "inline transistor: collector-base leakage at 25 °C")
+	fl.StringVar(&o.VCCTol, "vcc-tol", defaultVCCTol, "supply tolerance (both rails)")
+	fl.StringVar(&o.Tol, "tol", defaultTol, "resistor tolerance where the value carries none")
+	fl.StringVar(&o.TCR, "tcr", defaultTCR, "resistor temperature coefficient")
+	fl.StringVar(&o.Power, "power", defaultPower, "resistor power rating at 70 °C (derated to 0 at 155 °C)")
+	fl.StringVar(&o.Ambient, "ambient", defaultAmbient, "ambient temperature range in °C, MIN..MAX")
+	fl.StringVar(&o.Beta, "beta", "", "pin the nominal point's beta (default the typical hFE)")
+	fl.StringVar(&o.Temp, "temp", defaultTemp, "ambient temperature of the nominal point, °C")
+	fl.StringVar(&o.Load, "load", "", "AC load on the collector, e.g. 10K (for the AC load line)")
+	fl.StringVar(&o.Bypass, "bypass", "", "part of RE bypassed for AC, written --bypass=470R; a bare --bypass means all of RE")
+	fl.Lookup("bypass").NoOptDefVal = bypassAll
+	fl.StringVar(&o.Window, "window", defaultWindow, "yield window IC,VCE: each ±percent of nominal or MIN..MAX")
+	fl.IntVar(&o.Boards, "boards", defaultBoards, "Monte Carlo boards for the yield")
+	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "Monte Carlo seed")
+	fl.BoolVar(&o.JSON, "json", false, "write every figure as JSON (SI base units)")
+	fl.BoolVar(&o.Spice, "spice", false, "print an equivalent SPICE netlist of the nominal point instead of the report (with --json: add it as \"spice\")")
+	return cmd
+}
+
+// Run executes a check with o; tests call it with buffer streams.
+func Run(ctx context.Context, o *Options) error {
+	if ctx == nil {
+		ctx = context.Background()
+	}
+	in, err := o.input(ctx)
+	if err != nil {
+		return err
+	}
+	res, err := analyse(in)
+	if err != nil {
+		var ie *solver.InputError
+		if errors.As(err, &ie) {
+			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", flagName(ie.Field), ie.Problem)}
+		}
+		return fmt.Errorf("check: %w", err)
+	}
+	switch {
+	case o.JSON:
+		if err := writeJSON(o.IO.Out, res, o.Spice); err != nil {
+			return fmt.Errorf("check: write JSON: %w", err)
+		}
+	case o.Spice:
+		fmt.Fprint(o.IO.Out, res.netlist())
+	default:
+		writeText(o.IO.Out, res)
+	}
+	for _, c := range res.cautions() {
+		fmt.Fprintln(o.IO.ErrOut, "caution:", c)
+	}
+	if len(res.problems) > 0 {
+		for _, p := range res.problems {
+			fmt.Fprintln(o.IO.ErrOut, "biasbin: check:", p)
+		}
+		return cmdutil.ErrSilent
+	}
+	return nil
+}

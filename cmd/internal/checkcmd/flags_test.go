@@ -1,0 +1,254 @@
+package checkcmd
+
+import (
+	"bytes"
+	"context"
+	"math"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/spf13/cobra"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/solver"
+	"biasbin/store"
+)
+
+// parseFlags runs the command's flag parsing on args and returns the input
+// it builds, or the error a user would see. open, when not nil, is the
+// stock; otherwise opening the stock fails the test.
+func parseFlags(t *testing.T, args []string, open func(context.Context) (*store.DB, error)) (input, error) {
+	t.Helper()
+	var out, errOut bytes.Buffer
+	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	var in input
+	cmd := newCmd(f, func(o *Options) error {
+		if open != nil {
+			o.Store = open
+		} else {
+			o.Store = func(context.Context) (*store.DB, error) {
+				t.Errorf("the stock was opened without --transistor")
+				return nil, context.Canceled
+			}
+		}
+		var err error
+		in, err = o.input(context.Background())
+		return err
+	})
+	cmd.SetArgs(args)
+	cmd.SetOut(&out)
+	cmd.SetErr(&errOut)
+	cmd.SilenceUsage, cmd.SilenceErrors = true, true
+	cmd.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return &cmdutil.UsageError{Err: err} })
+	err := cmd.Execute()
+	if out.Len() != 0 {
+		t.Errorf("flag parsing wrote to stdout: %q", out.String())
+	}
+	return in, err
+}
+
+func near(a, b float64) bool { return math.Abs(a-b) <= 1e-12*math.Max(1, math.Abs(b)) }
+
+var divider = []string{"--vcc", "15V", "--r1", "10K", "--r2", "5K", "--rc", "1K", "--re", "1K", "--hfe", "100..300"}
+
+func args(extra ...string) []string { return append(append([]string{}, divider...), extra...) }
+
+func TestFlags(t *testing.T) {
+	tests := []struct {
+		name  string
+		args  []string
+		check func(t *testing.T, in input)
+	}{
+		{"defaults", divider, func(t *testing.T, in input) {
+			b := in.b
+			if b.Topology != solver.Divider || b.Device.Polarity != solver.NPN || !near(b.VCC_V, 15) || !near(b.VCCTol, 0.05) {
+				t.Errorf("topology %v polarity %v vcc %g tol %g; want divider npn 15 0.05", b.Topology, b.Device.Polarity, b.VCC_V, b.VCCTol)
+			}
+			want := map[solver.Slot]float64{solver.R1: 10e3, solver.R2: 5e3, solver.RC: 1e3, solver.RE: 1e3}
+			for s, ohm := range want {
+				r := b.Resistors[s]
+				if !near(r.Nominal_Ohm, ohm) || !near(r.Tol, 0.05) || !near(r.TCR_PPMPerK, 100) || !near(r.Rated_W, 0.25) {
+					t.Errorf("%v = %+v, want %g Ω ±5 %% 100 ppm/K 0.25 W", s, r, ohm)
+				}
+			}
+			if b.AmbientMin_C != 0 || b.AmbientMax_C != 50 || b.NominalAmbient_C != 25 || b.NominalBeta != 0 {
+				t.Errorf("ambient %g..%g nominal %g beta %g; want 0..50, 25, typical", b.AmbientMin_C, b.AmbientMax_C, b.NominalAmbient_C, b.NominalBeta)
+			}
+			if b.Device.HFEMin != 100 || b.Device.HFEMax != 300 {
+				t.Errorf("hFE %g..%g, want 100..300", b.Device.HFEMin, b.Device.HFEMax)
+			}
+			if !in.window.icIsPct || !near(in.window.icPct, 0.1) || !in.window.vceIsPct || !near(in.window.vcePct, 0.2) {
+				t.Errorf("window %+v, want ±10 %% IC, ±20 %% VCE", in.window)
+			}
+			if in.boards != 10000 || in.seed != 1 || in.label != "" {
+				t.Errorf("boards %d seed %d label %q", in.boards, in.seed, in.label)
+			}
+		}},
+		{"tolerance letter on a value", args("--r2", "4K7F", "--tol", "2%"), func(t *testing.T, in input) {
+			if !near(in.b.Resistors[solver.R2].Tol, 0.01) || !near(in.b.Resistors[solver.R1].Tol, 0.02) {
+				t.Errorf("tolerances %g, %g; want 0.01 (F) and 0.02 (--tol)", in.b.Resistors[solver.R2].Tol, in.b.Resistors[solver.R1].Tol)
+			}
+		}},
+		{"SI values", args("--r1", "10k", "--rc", "2.2 kΩ", "--tcr", "-200ppm/K", "--power", "1/2W"), func(t *testing.T, in input) {
+			if !near(in.b.Resistors[solver.R1].Nominal_Ohm, 10e3) || !near(in.b.Resistors[solver.RC].Nominal_Ohm, 2200) ||
+				!near(in.b.Resistors[solver.RC].TCR_PPMPerK, -200) || !near(in.b.Resistors[solver.RC].Rated_W, 0.5) {
+				t.Errorf("resistors %+v", in.b.Resistors)
+			}
+		}},
+		{"pnp magnitude rail", args("--polarity", "pnp", "--vcc", "9V"), func(t *testing.T, in input) {
+			if in.b.Device.Polarity != solver.PNP || !near(in.b.VCC_V, -9) {
+				t.Errorf("polarity %v vcc %g, want pnp -9", in.b.Device.Polarity, in.b.VCC_V)
+			}
+		}},
+		{"pnp signed rail", args("--polarity", "PNP", "--vcc", "-9V"), func(t *testing.T, in input) {
+			if !near(in.b.VCC_V, -9) {
+				t.Errorf("vcc %g, want -9", in.b.VCC_V)
+			}
+		}},
+		{"split supply", []string{"--topology", "split-supply", "--vcc", "15V", "--vee", "15V", "--rb", "0", "--rc", "10K", "--re", "20K", "--hfe", "100..300"}, func(t *testing.T, in input) {
+			b := in.b
+			if b.Topology != solver.SplitSupply || !near(b.VEE_V, -15) || b.Resistors[solver.RB].Nominal_Ohm != 0 || !near(b.Resistors[solver.RE].Nominal_Ohm, 20e3) {
+				t.Errorf("split supply build %+v", b)
+			}
+		}},
+		{"collector feedback without RE", []string{"--topology", "collector-feedback", "--vcc", "10V", "--rf", "250K", "--rc", "4K7", "--hfe", "90"}, func(t *testing.T, in input) {
+			b := in.b
+			if b.Topology != solver.CollectorFeedback || !near(b.Resistors[solver.RF].Nominal_Ohm, 250e3) || b.Resistors[solver.RE].Nominal_Ohm != 0 || b.Device.HFEMin != 90 || b.Device.HFEMax != 90 {
+				t.Errorf("feedback build %+v", b)
+			}
+		}},
+		{"inline datasheet", args("--hfe", "110..800@2mA", "--hfe-typ", "290", "--vbe", "0.66V@2mA", "--vce-sat", "0.25V", "--vaf", "74V", "--vceo", "45V", "--ic-max", "100mA", "--pd", "625mW", "--theta-ja", "200K/W", "--tj-max", "150", "--icbo", "15nA"), func(t *testing.T, in input) {
+			d := in.b.Device
+			want := solver.Datasheet{Polarity: solver.NPN, HFEMin: 110, HFEMax: 800, HFETyp: 290, HFEAt_A: 2e-3, VBEOn_V: 0.66, VBEAt_A: 2e-3,
+				VCESat_V: 0.25, VAF_V: 74, VCEO_V: 45, ICMax_A: 0.1, PD25_W: 0.625, ThetaJA_KPerW: 200, TjMax_C: 150, ICBO_A: 15e-9}
+			for _, c := range []struct {
+				name      string
+				got, want float64
+			}{{"hfe min", d.HFEMin, want.HFEMin}, {"hfe max", d.HFEMax, want.HFEMax}, {"hfe typ", d.HFETyp, want.HFETyp}, {"hfe at", d.HFEAt_A, want.HFEAt_A},
+				{"vbe", d.VBEOn_V, want.VBEOn_V}, {"vbe at", d.VBEAt_A, want.VBEAt_A}, {"vce sat", d.VCESat_V, want.VCESat_V}, {"vaf", d.VAF_V, want.VAF_V},
+				{"vceo", d.VCEO_V, want.VCEO_V}, {"ic max", d.ICMax_A, want.ICMax_A}, {"pd", d.PD25_W, want.PD25_W}, {"theta", d.ThetaJA_KPerW, want.ThetaJA_KPerW},
+				{"tj max", d.TjMax_C, want.TjMax_C}, {"icbo", d.ICBO_A, want.ICBO_A}} {
+				if !near(c.got, c.want) {
+					t.Errorf("%s = %g, want %g", c.name, c.got, c.want)
+				}
+			}
+		}},
+		{"bare --bypass is all of RE", args("--bypass", "--load", "10K"), func(t *testing.T, in input) {
+			if !near(in.b.RBypass_Ohm, 1e3) || !near(in.b.RL_Ohm, 10e3) {
+				t.Errorf("bypass %g load %g, want 1000 and 10000", in.b.RBypass_Ohm, in.b.RL_Ohm)
+			}
+		}},
+		{"partial bypass", args("--bypass=470R"), func(t *testing.T, in input) {
+			if !near(in.b.RBypass_Ohm, 470) {
+				t.Errorf("bypass %g, want 470", in.b.RBypass_Ohm)
+			}
+		}},
+		{"absolute window, nominal point pinned", args("--window", "1.8mA..2.2mA,4V..8V", "--beta", "200", "--temp", "40", "--ambient", "-10..60", "--boards", "500", "--seed", "9"), func(t *testing.T, in input) {
+			w := in.window.at(solver.OperatingPoint{IC_A: 1, VCE_V: 1})
+			if !near(w.ICMin_A, 1.8e-3) || !near(w.ICMax_A, 2.2e-3) || !near(w.VCEMin_V, 4) || !near(w.VCEMax_V, 8) {
+				t.Errorf("window %+v", w)
+			}
+			b := in.b
+			if b.NominalBeta != 200 || b.NominalAmbient_C != 40 || b.AmbientMin_C != -10 || b.AmbientMax_C != 60 || in.boards != 500 || in.seed != 9 {
+				t.Errorf("nominal %g/%g ambient %g..%g boards %d seed %d", b.NominalBeta, b.NominalAmbient_C, b.AmbientMin_C, b.AmbientMax_C, in.boards, in.seed)
+			}
+		}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			in, err := parseFlags(t, tt.args, nil)
+			if err != nil {
+				t.Fatalf("%v: %v", tt.args, err)
+			}
+			tt.check(t, in)
+		})
+	}
+}
+
+func TestFlagErrors(t *testing.T) {
+	tests := []struct {
+		name string
+		args []string
+		want string // the flag the message must name
+	}{
+		{"no supply", []string{"--r1", "10K", "--r2", "5K", "--rc", "1K", "--hfe", "100..300"}, "--vcc"},
+		{"negative rail for npn", args("--vcc", "-12V"), "--vcc"},
+		{"bad resistance", args("--r1", "ten"), "--r1"},
+		{"negative resistance", args("--rc", "-1K"), "--rc"},
+		{"zero R1", args("--r1", "0"), "--r1"},
+		{"resistor the topology lacks", args("--rf", "100K"), "--rf"},
+		{"missing R2", []string{"--vcc", "12V", "--r1", "10K", "--rc", "1K", "--hfe", "100..300"}, "--r2"},
+		{"hFE reversed", args("--hfe", "300..100"), "--hfe"},
+		{"no transistor", []string{"--vcc", "12V", "--r1", "10K", "--r2", "5K", "--rc", "1K"}, "--hfe"},
+		{"typical outside the window", args("--hfe-typ", "50"), "--hfe-typ"},
+		{"vee on a divider", args("--vee", "5V"), "--vee"},
+		{"split supply without vee", []string{"--topology", "split-supply", "--vcc", "15V", "--rb", "10K", "--rc", "10K", "--re", "20K", "--hfe", "100..300"}, "--vee"},
+		{"unknown topology", args("--topology", "cascode"), "--topology"},
+		{"unknown polarity", args("--polarity", "fet"), "--polarity"},
+		{"ambient below -55 °C", args("--ambient", "-80..20"), "--ambient"},
+		{"nominal ambient above 150 °C", args("--temp", "200"), "--temp"},
+		{"bad ambient range", args("--ambient", "60..-10"), "--ambient"},
+		{"negative beta", args("--beta", "-5"), "--beta"},
+		{"no boards", args("--boards", "0"), "--boards"},
+		{"window without VCE part", args("--window", "10%"), "--window"},
+		{"bypass more than RE", args("--bypass=2K"), "--bypass"},
+		{"bypass value without =", args("--bypass", "470R"), "--bypass=470R"},
+		{"bypass with no RE", []string{"--vcc", "12V", "--r1", "10K", "--r2", "5K", "--rc", "1K", "--hfe", "100..300", "--bypass"}, "--bypass"},
+		{"tolerance too wide", args("--tol", "60%"), "tol"},
+		{"zero power rating", args("--power", "0W"), "--power"},
+		{"vbe not a silicon junction", args("--vbe", "3V@1mA"), "--vbe"},
+		{"tj max above the ambient limit", args("--tj-max", "40", "--ambient", "0..50"), "--ambient"},
+		{"stray argument", args("extra"), "argument"},
+		{"unknown flag", args("--r7", "1K"), "r7"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, err := parseFlags(t, tt.args, nil)
+			if err == nil {
+				t.Fatalf("%v: no error, want one naming %s", tt.args, tt.want)
+			}
+			if code := cmdutil.ExitCode(err); code != 2 {
+				t.Errorf("exit code %d for %v, want 2 (usage)", code, err)
+			}
+			if !strings.Contains(err.Error(), tt.want) {
+				t.Errorf("error %q does not name %s", err, tt.want)
+			}
+		})
+	}
+}
+
+func TestFlagsStockTransistor(t *testing.T) {
+	ctx := context.Background()
+	path := filepath.Join(t.TempDir(), "stock.db")
+	db, err := store.Open(ctx, path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer db.Close()
+	if _, err := db.AddTransistor(ctx, store.Transistor{Label: "GP-PNP", Polarity: "pnp", HFEMin: 120, HFEMax: 360, ThetaJA_KPerW: 250, Qty: 10, Bin: "T3"}); err != nil {
+		t.Fatal(err)
+	}
+	opened := 0
+	open := func(context.Context) (*store.DB, error) { opened++; return db, nil }
+	in, err := parseFlags(t, []string{"--vcc", "9V", "--r1", "10K", "--r2", "2K2", "--rc", "3K6", "--re", "1K", "--transistor", "GP-PNP"}, open)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := in.b.Device
+	if opened != 1 || in.label != "GP-PNP" || d.Polarity != solver.PNP || d.HFEMin != 120 || d.HFEMax != 360 || d.ThetaJA_KPerW != 250 || !near(in.b.VCC_V, -9) {
+		t.Errorf("stock transistor read as %+v (label %q, vcc %g, opened %d)", d, in.label, in.b.VCC_V, opened)
+	}
+	// Inline flags override the stock line.
+	in, err = parseFlags(t, []string{"--vcc", "9V", "--r1", "10K", "--r2", "2K2", "--rc", "3K6", "--transistor", "GP-PNP", "--theta-ja", "100", "--hfe", "150..200"}, open)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if in.b.Device.ThetaJA_KPerW != 100 || in.b.Device.HFEMin != 150 || in.b.Device.HFEMax != 200 {
+		t.Errorf("overrides not applied: %+v", in.b.Device)
+	}
+	_, err = parseFlags(t, []string{"--vcc", "9V", "--r1", "10K", "--r2", "2K2", "--rc", "3K6", "--transistor", "NOPE"}, open)
+	if err == nil || cmdutil.ExitCode(err) != 2 || !strings.Contains(err.Error(), "--transistor") {
+		t.Errorf("unknown label: error %v, want a usage error naming --transistor", err)
+	}
+}

@@ -1,0 +1,405 @@
+package checkcmd
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/report"
+	"biasbin/solver"
+	"biasbin/solver/notation"
+	"biasbin/store"
+)
+
+// input is a check request: the build to analyse and how to run the yield.
+type input struct {
+	b      solver.Build
+	label  string // the stock label, or "" for an inline transistor
+	window windowSpec
+	boards int
+	seed   uint64
+}
+
+// windowSpec is the --window flag: each of IC and VCE either a band of
+// ±pct around the nominal point or an absolute range.
+type windowSpec struct {
+	icPct, vcePct     float64 // > 0: band around nominal
+	icLo, icHi        float64 // absolute when icPct == 0
+	vceLo, vceHi      float64
+	icText, vceText   string
+	icIsPct, vceIsPct bool
+}
+
+// at returns the yield window around the nominal operating point op.
+func (w windowSpec) at(op solver.OperatingPoint) solver.Window {
+	out := solver.Window{ICMin_A: w.icLo, ICMax_A: w.icHi, VCEMin_V: w.vceLo, VCEMax_V: w.vceHi}
+	if w.icIsPct {
+		out.ICMin_A, out.ICMax_A = math.Max(0, op.IC_A*(1-w.icPct)), op.IC_A*(1+w.icPct)
+	}
+	if w.vceIsPct {
+		out.VCEMin_V, out.VCEMax_V = math.Max(0, op.VCE_V*(1-w.vcePct)), op.VCE_V*(1+w.vcePct)
+	}
+	return out
+}
+
+// usage returns a usage error (exit 2) naming the flag.
+func usage(flag string, err error) error {
+	return &cmdutil.UsageError{Err: fmt.Errorf("--%s: %w", flag, err)}
+}
+
+// usagef returns a usage error (exit 2) naming the flag.
+func usagef(flag, format string, a ...any) error {
+	return &cmdutil.UsageError{Err: fmt.Errorf("--%s: "+format, append([]any{flag}, a...)...)}
+}
+
+// input parses the flags into a build. The stock is opened only when
+// --transistor is given.
+func (o *Options) input(ctx context.Context) (input, error) {
+	var in input
+	b := &in.b
+	top, err := solver.ParseTopology(strings.ToLower(strings.TrimSpace(o.Topology)))
+	if err != nil {
+		return in, usage("topology", err)
+	}
+	b.Topology = top
+
+	d, err := o.device(ctx)
+	if err != nil {
+		return in, err
+	}
+	b.Device = d
+	in.label = o.Transistor
+	sign := 1.0
+	if d.Polarity == solver.PNP {
+		sign = -1
+	}
+
+	// Rails: a magnitude, or the signed rail of the polarity.
+	if o.VCC == "" {
+		return in, usagef("vcc", "missing: give the collector supply, e.g. --vcc 12V")
+	}
+	if b.VCC_V, err = rail(o.VCC, sign, "vcc"); err != nil {
+		return in, err
+	}
+	switch {
+	case top == solver.SplitSupply && o.VEE == "":
+		return in, usagef("vee", "missing: the split-supply stage needs the emitter supply, e.g. --vee 12V")
+	case top != solver.SplitSupply && o.VEE != "":
+		return in, usagef("vee", "only the split-supply stage has an emitter supply")
+	case o.VEE != "":
+		if b.VEE_V, err = rail(o.VEE, -sign, "vee"); err != nil {
+			return in, err
+		}
+	}
+	if b.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
+		return in, usage("vcc-tol", err)
+	}
+
+	// Resistors.
+	tol, err := notation.ParseTolerance(o.Tol)
+	if err != nil {
+		return in, usage("tol", err)
+	}
+	tcr, err := notation.ParseTCR(o.TCR)
+	if err != nil {
+		return in, usage("tcr", err)
+	}
+	power, err := notation.ParsePower(o.Power)
+	if err != nil {
+		return in, usage("power", err)
+	}
+	used := map[solver.Slot]bool{}
+	for _, s := range top.Slots() {
+		used[s] = true
+	}
+	for s := range solver.NumSlots {
+		text := strings.TrimSpace(o.R[s])
+		name := s.String()
+		if !used[s] {
+			if text != "" {
+				return in, usagef(name, "the %s stage has no %s (it uses %s)", top, name, slotList(top))
+			}
+			continue
+		}
+		if text == "" {
+			if s == solver.RE && top != solver.SplitSupply {
+				continue // emitter tied to ground
+			}
+			return in, usagef(name, "missing: the %s stage needs %s", top, slotList(top))
+		}
+		ohm, rtol, hasTol, err := notation.ParseResistance(text)
+		if err != nil {
+			return in, usage(name, err)
+		}
+		if !hasTol {
+			rtol = tol
+		}
+		b.Resistors[s] = solver.ResistorSpec{Nominal_Ohm: ohm, Tol: rtol, TCR_PPMPerK: tcr, Rated_W: power}
+	}
+
+	// AC side.
+	if o.Load != "" {
+		if b.RL_Ohm, err = notation.ParseOhms(o.Load); err != nil {
+			return in, usage("load", err)
+		}
+	}
+	switch bp := strings.TrimSpace(o.Bypass); {
+	case bp == "":
+	case b.Resistors[solver.RE].Nominal_Ohm == 0:
+		return in, usagef("bypass", "there is no RE to bypass")
+	case strings.EqualFold(bp, bypassAll):
+		b.RBypass_Ohm = b.Resistors[solver.RE].Nominal_Ohm
+	default:
+		if b.RBypass_Ohm, err = notation.ParseOhms(bp); err != nil {
+			return in, usage("bypass", err)
+		}
+		if b.RBypass_Ohm > b.Resistors[solver.RE].Nominal_Ohm {
+			return in, usagef("bypass", "%s is more than RE (%s)", notation.FormatResistance(b.RBypass_Ohm), notation.FormatResistance(b.Resistors[solver.RE].Nominal_Ohm))
+		}
+	}
+
+	// Temperatures and the nominal point.
+	if b.AmbientMin_C, b.AmbientMax_C, err = notation.ParseRange(o.Ambient, notation.ParseTemperature); err != nil {
+		return in, usage("ambient", err)
+	}
+	if b.NominalAmbient_C, err = notation.ParseTemperature(o.Temp); err != nil {
+		return in, usage("temp", err)
+	}
+	if o.Beta != "" {
+		if b.NominalBeta, err = notation.ParseNumber(o.Beta); err != nil {
+			return in, usage("beta", err)
+		}
+		if b.NominalBeta <= 0 {
+			return in, usagef("beta", "%g: want a positive beta", b.NominalBeta)
+		}
+	}
+
+	// Yield.
+	if in.window, err = parseWindow(o.Window); err != nil {
+		return in, err
+	}
+	if o.Boards < 1 || o.Boards > maxBoards {
+		return in, usagef("boards", "%d: want 1 to %d", o.Boards, maxBoards)
+	}
+	in.boards, in.seed = o.Boards, o.Seed
+
+	if err := b.Validate(); err != nil {
+		return in, buildError(err)
+	}
+	return in, nil
+}
+
+// maxBoards bounds --boards (a million boards take some seconds).
+const maxBoards = 1_000_000
+
+// buildError turns a solver input error into a usage error naming the flag.
+func buildError(err error) error {
+	var ie *solver.InputError
+	if errors.As(err, &ie) {
+		return &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", flagName(ie.Field), ie.Problem)}
+	}
+	return err
+}
+
+// flagName maps a solver input field to the flag a user typed.
+func flagName(field string) string {
+	f := strings.Fields(field)
+	if len(f) == 0 {
+		return "input"
+	}
+	switch f[0] {
+	case "hfe_min", "hfe_max":
+		return "--hfe"
+	case "hfe_typ":
+		return "--hfe-typ"
+	case "vbe_on", "vbe_at":
+		return "--vbe"
+	case "vce_sat":
+		return "--vce-sat"
+	case "ic_max":
+		return "--ic-max"
+	case "theta_ja":
+		return "--theta-ja"
+	case "tj_max":
+		return "--tj-max"
+	case "vcc_tol":
+		return "--vcc-tol"
+	case "pd", "vaf", "vceo", "icbo", "hfe", "vcc", "vee", "ambient", "temp", "beta", "bypass", "load", "polarity":
+		return "--" + f[0]
+	case "window":
+		return "--window"
+	}
+	if _, err := solver.ParseSlot(f[0]); err == nil {
+		if len(f) > 1 {
+			switch f[1] {
+			case "tolerance":
+				return "--" + f[0] + " (tolerance, or --tol)"
+			case "tcr":
+				return "--tcr"
+			case "power", "derating":
+				return "--power"
+			}
+		}
+		return "--" + f[0]
+	}
+	return field
+}
+
+// slotList names the resistor flags a topology takes.
+func slotList(t solver.Topology) string {
+	var names []string
+	for _, s := range t.Slots() {
+		names = append(names, "--"+s.String())
+	}
+	return strings.Join(names, " ")
+}
+
+// rail reads a supply flag: a magnitude gets sign; a signed value must
+// already have it.
+func rail(text string, sign float64, flag string) (float64, error) {
+	v, err := notation.ParseVoltage(text)
+	if err != nil {
+		return 0, usage(flag, err)
+	}
+	switch {
+	case v == 0:
+		return 0, usagef(flag, "a supply of 0 V")
+	case v > 0:
+		return v * sign, nil
+	case sign > 0:
+		return 0, usagef(flag, "%s: this rail is positive here; give the magnitude", notation.FormatVoltage(v))
+	}
+	return v, nil
+}
+
+// parseWindow reads --window "IC,VCE".
+func parseWindow(text string) (windowSpec, error) {
+	var w windowSpec
+	ic, vce, ok := strings.Cut(text, ",")
+	if !ok || strings.TrimSpace(ic) == "" || strings.TrimSpace(vce) == "" {
+		return w, usagef("window", "%q: want IC,VCE, e.g. 10%%,20%% or 1.8mA..2.2mA,4V..8V", text)
+	}
+	w.icText, w.vceText = strings.TrimSpace(ic), strings.TrimSpace(vce)
+	var err error
+	if w.icIsPct, w.icPct, w.icLo, w.icHi, err = windowPart(w.icText, notation.ParseCurrent); err != nil {
+		return w, err
+	}
+	if w.vceIsPct, w.vcePct, w.vceLo, w.vceHi, err = windowPart(w.vceText, notation.ParseVoltage); err != nil {
+		return w, err
+	}
+	if !w.icIsPct && w.icHi == 0 || !w.vceIsPct && w.vceHi == 0 {
+		return w, usagef("window", "%q: an absolute range needs a maximum above 0", text)
+	}
+	if w.vceLo < 0 {
+		return w, usagef("window", "%q: VCE is a magnitude", text)
+	}
+	return w, nil
+}
+
+// windowPart reads one part of --window: "10%" or "MIN..MAX".
+func windowPart(text string, parse notation.Parser) (isPct bool, pct, lo, hi float64, err error) {
+	if strings.HasSuffix(text, "%") {
+		if pct, err = notation.ParseTolerance(text); err != nil {
+			return false, 0, 0, 0, usage("window", err)
+		}
+		return true, pct, 0, 0, nil
+	}
+	if lo, hi, err = notation.ParseRange(text, parse); err != nil {
+		return false, 0, 0, 0, usage("window", err)
+	}
+	return false, 0, lo, hi, nil
+}
+
+// device reads the transistor: the stock line when --transistor is given,
+// with any inline flags overriding it; else the inline flags alone.
+func (o *Options) device(ctx context.Context) (solver.Datasheet, error) {
+	var d solver.Datasheet
+	if o.Transistor != "" {
+		if o.Store == nil {
+			return d, fmt.Errorf("--transistor %s: no stock available", o.Transistor)
+		}
+		db, err := o.Store(ctx)
+		if err != nil {
+			return d, err
+		}
+		t, err := db.TransistorByLabel(ctx, o.Transistor)
+		if errors.Is(err, store.ErrNotFound) {
+			return d, usagef("transistor", "%q is not in stock (see biasbin stock list)", o.Transistor)
+		}
+		if err != nil {
+			return d, fmt.Errorf("--transistor %s: %w", o.Transistor, err)
+		}
+		if d, err = report.Sheet(t); err != nil {
+			return d, fmt.Errorf("--transistor %s: %w", o.Transistor, err)
+		}
+	} else {
+		d.Polarity = solver.NPN
+		if o.HFE == "" {
+			return d, usagef("hfe", "missing: name a stocked transistor with --transistor LABEL, or give it inline with at least --hfe MIN..MAX")
+		}
+	}
+	var err error
+	if o.Polarity != "" {
+		if d.Polarity, err = solver.ParsePolarity(strings.TrimSpace(o.Polarity)); err != nil {
+			return d, usage("polarity", err)
+		}
+	}
+	if o.HFE != "" {
+		if d.HFEMin, d.HFEMax, d.HFEAt_A, _, err = notation.ParseRangeAt(o.HFE, notation.ParseNumber); err != nil {
+			return d, usage("hfe", err)
+		}
+		if d.HFEMin <= 0 {
+			return d, usagef("hfe", "%q: hFE must be above 0", o.HFE)
+		}
+		if !o.changed("hfe-typ") && (d.HFETyp < d.HFEMin || d.HFETyp > d.HFEMax) {
+			d.HFETyp = 0 // a stock typical outside the new window no longer applies
+		}
+	}
+	type field struct {
+		flag  string
+		text  string
+		parse notation.Parser
+		dst   *float64
+	}
+	for _, f := range []field{
+		{"hfe-typ", o.HFETyp, notation.ParseNumber, &d.HFETyp},
+		{"vce-sat", o.VCESat, notation.ParseVoltage, &d.VCESat_V},
+		{"vaf", o.VAF, notation.ParseVoltage, &d.VAF_V},
+		{"vceo", o.VCEO, notation.ParseVoltage, &d.VCEO_V},
+		{"ic-max", o.ICMax, notation.ParseCurrent, &d.ICMax_A},
+		{"pd", o.PD, notation.ParsePower, &d.PD25_W},
+		{"theta-ja", o.ThetaJA, notation.ParseThermalResistance, &d.ThetaJA_KPerW},
+		{"tj-max", o.TjMax, notation.ParseTemperature, &d.TjMax_C},
+		{"icbo", o.ICBO, notation.ParseCurrent, &d.ICBO_A},
+	} {
+		if f.text == "" {
+			continue
+		}
+		v, err := f.parse(f.text)
+		if err != nil {
+			return d, usage(f.flag, err)
+		}
+		if v < 0 {
+			return d, usagef(f.flag, "%q: give the magnitude", f.text)
+		}
+		*f.dst = v
+	}
+	if o.VBE != "" {
+		if d.VBEOn_V, d.VBEAt_A, _, err = notation.ParseAt(o.VBE, notation.ParseVoltage); err != nil {
+			return d, usage("vbe", err)
+		}
+		if d.VBEOn_V <= 0 {
+			return d, usagef("vbe", "%q: give the magnitude of VBE(on)", o.VBE)
+		}
+	}
+	if err := d.Validate(); err != nil {
+		return d, buildError(err)
+	}
+	return d, nil
+}
+
+// changed reports whether a flag was set on the command line.
+func (o *Options) changed(name string) bool { return o.Changed != nil && o.Changed(name) }

@@ -1,0 +1,164 @@
+package checkcmd
+
+import (
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
+
+	"biasbin/solver"
+	"biasbin/solver/notation"
+)
+
+// Short display helpers (three significant digits, SI prefixes).
+var (
+	fV = notation.FormatVoltage
+	fA = notation.FormatCurrent
+	fW = notation.FormatPower
+	fT = notation.FormatTemperature
+	fR = notation.FormatResistance
+)
+
+// writeText writes the readable report.
+func writeText(w io.Writer, r *result) {
+	b := r.in.b
+	d := b.Device
+	op := r.op
+
+	// Build.
+	fmt.Fprintf(w, "%s %s stage, VCC %s", d.Polarity, b.Topology, fV(b.VCC_V))
+	if b.Topology == solver.SplitSupply {
+		fmt.Fprintf(w, ", VEE %s", fV(b.VEE_V))
+	}
+	fmt.Fprintf(w, " ±%s, ambient %s..%s\n", pct(b.VCCTol), fT(b.AmbientMin_C), fT(b.AmbientMax_C))
+	var rs []string
+	for _, s := range b.Topology.Slots() {
+		spec := b.Resistors[s]
+		if spec.Nominal_Ohm == 0 {
+			continue
+		}
+		rs = append(rs, fmt.Sprintf("%s %s ±%s", strings.ToUpper(s.String()), fR(spec.Nominal_Ohm), pct(spec.Tol)))
+	}
+	fmt.Fprintf(w, "resistors: %s\n", strings.Join(rs, ", "))
+	name := "inline"
+	if r.in.label != "" {
+		name = r.in.label
+	}
+	fmt.Fprintf(w, "transistor: %s, hFE %s..%s, VBE(on) %s at %s, VCE(sat) %s",
+		name, num(d.HFEMin), num(d.HFEMax), fV(orDefault(d.VBEOn_V, solver.DefaultVBEOn_V)), fA(orDefault(d.VBEAt_A, solver.DefaultVBEAt_A)), fV(r.vceSat))
+	if th := solver.ThermalResistance(d); th > 0 {
+		fmt.Fprintf(w, ", θJA %s", notation.FormatThermalResistance(th))
+	}
+	fmt.Fprintln(w)
+
+	// Operating point.
+	fmt.Fprintf(w, "\nOperating point (%s ambient, beta %s at TNOM): %s\n", fT(b.NominalAmbient_C), num(r.m.BF), strings.ToUpper(op.Region.String()))
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintf(tw, "  IC\t%s\tIB\t%s\tIE\t%s\n", fA(op.IC_A), fA(op.IB_A), fA(op.IE_A))
+	fmt.Fprintf(tw, "  VCE\t%s\tVBE\t%s\tIC/IB\t%s\n", fV(op.VCE_V), fV(op.VBE_V), num(r.dcBeta()))
+	fmt.Fprintf(tw, "  Tj\t%s\tPD\t%s\n", fT(op.Tj_C), fW(op.PTransistor_W))
+	tw.Flush()
+	if op.Region != solver.Active {
+		fmt.Fprintf(w, "  the transistor is in %s at the nominal point: not a linear amplifier\n", op.Region)
+	}
+
+	// Test points.
+	fmt.Fprintln(w, "\nTest points (measure to ground)")
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "  node\tnominal\tworst-case band\t")
+	for _, tp := range r.testPoints() {
+		fmt.Fprintf(tw, "  %s\t%s\t%s .. %s\n", strings.ToUpper(tp.name), fV(tp.nominal), fV(tp.min), fV(tp.max))
+	}
+	tw.Flush()
+
+	// Worst case.
+	if wc := r.wc; wc != nil {
+		fmt.Fprintf(w, "\nWorst case (%d corners: hFE, resistor and supply tolerance, ambient; TCR at ambient, self-heated)\n", wc.Count)
+		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+		fmt.Fprintf(tw, "  IC\t%s .. %s\tRSS u(IC) %s\n", fA(wc.ICMin_A), fA(wc.ICMax_A), fA(wc.RSSIC_A))
+		fmt.Fprintf(tw, "  VCE\t%s .. %s\tRSS u(VCE) %s\n", fV(wc.VCEMin_V), fV(wc.VCEMax_V), fV(wc.RSSVCE_V))
+		fmt.Fprintf(tw, "  Tj\tup to %s\n", fT(wc.TjMax_C))
+		tw.Flush()
+		if wc.AllActive {
+			fmt.Fprintf(w, "  every corner active with VCE >= %s (VCE(sat) + margin)\n", fV(r.vceFloor()))
+		} else {
+			fmt.Fprintf(w, "  %d of %d corners NOT active with VCE >= %s; lowest VCE %s (%s) at hFE %s, %s ambient\n",
+				wc.NotActive, wc.Count, fV(r.vceFloor()), fV(wc.VCEMin_V), wc.VCEMinAt.OP.Region, num(wc.VCEMinAt.BF), fT(wc.VCEMinAt.Temp_C))
+		}
+	}
+
+	// Yield.
+	if y := r.yield; y != nil {
+		win := r.window
+		fmt.Fprintf(w, "\nYield: %.1f %% ± %.1f %% of %d boards (seed %d) with IC %s..%s and VCE %s..%s\n",
+			100*y.Yield, 100*y.StdErr, y.Boards, y.Seed, fA(win.ICMin_A), fA(win.ICMax_A), fV(win.VCEMin_V), fV(win.VCEMax_V))
+		if y.Failed > 0 {
+			fmt.Fprintf(w, "  %d boards could not be solved (counted as failures)\n", y.Failed)
+		}
+	}
+
+	// Dissipation.
+	worst := r.worstDiss()
+	fmt.Fprintf(w, "\nDissipation (design limit: resistors %.0f %%, transistor %.0f %% of the derated rating)\n",
+		100*solver.DefaultResistorMaxFraction, 100*solver.DefaultTransistorMaxFraction)
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintf(tw, "  part\tat %s\tlimit\tuse\tworst corner\tuse\n", fT(b.NominalAmbient_C))
+	nom := r.parts(r.nomDiss)
+	for i, p := range r.parts(worst) {
+		n := nom[i].load
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\n", strings.ToUpper(p.name), fW(n.Power_W), limit(n), use(n), fW(p.load.Power_W), use(p.load))
+	}
+	tw.Flush()
+	if !worst.Ok {
+		fmt.Fprintln(w, "  a part exceeds its design limit")
+	}
+
+	// Swing.
+	sw := r.swing
+	fmt.Fprintln(w, "\nSwing")
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintf(tw, "  DC load line\t%s to %s\tRdc %s\n", fA(sw.ICSatDC_A), fV(sw.VCECutDC_V), fR(sw.RDC_Ohm))
+	fmt.Fprintf(tw, "  AC load line\t%s to %s\trac %s\n", fA(sw.ICSatAC_A), fV(sw.VCECutAC_V), fR(sw.RAC_Ohm))
+	fmt.Fprintf(tw, "  max symmetrical swing\t%s peak\t%s clips first\n", fV(sw.VPeak_V), sw.ClipsFirst)
+	fmt.Fprintf(tw, "  optimum Q\tIC %s, VCE %s\t%s peak\n", fA(sw.OptimumIC_A), fV(sw.OptimumVCE_V), fV(sw.OptimumVPeak_V))
+	tw.Flush()
+
+	// Sensitivity.
+	if s := r.sens; s != nil {
+		fmt.Fprintf(w, "\nSensitivity: S_I %s, S_V %s/V, S_beta %s/unit; hFE min to max moves IC %s .. %s (%.1f %% of nominal)\n",
+			num(s.SI), fA(s.SV_S), fA(s.SBeta_A), fA(s.ICAtHFEMin_A), fA(s.ICAtHFEMax_A), 100*s.BetaSpread)
+	}
+}
+
+// pct writes a fraction as a percentage.
+func pct(f float64) string { return num(100*f) + " %" }
+
+// num writes a plain number with up to four significant digits.
+func num(v float64) string { return fmt.Sprintf("%.4g", v) }
+
+// orDefault returns v, or def when v is 0.
+func orDefault(v, def float64) float64 {
+	if v == 0 {
+		return def
+	}
+	return v
+}
+
+// limit writes a part's allowance, or "-" for an unrated part.
+func limit(l solver.PartLoad) string {
+	if !l.Rated {
+		return "-"
+	}
+	return fW(l.Allowed_W)
+}
+
+// use writes a part's utilization of its design limit.
+func use(l solver.PartLoad) string {
+	if !l.Rated {
+		return "-"
+	}
+	if l.Utilization > 9.99 {
+		return ">999 %"
+	}
+	return fmt.Sprintf("%.0f %%", 100*l.Utilization)
+}
