@@ -3,6 +3,7 @@ package checkcmd
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"biasbin/solver"
 	"biasbin/solver/notation"
@@ -91,8 +92,8 @@ func (r *result) cautions() []string {
 	var out []string
 	const practice = "hot parts can burn; follow local codes and licensed practice for mains and high voltage"
 	if s := r.supplySpan(); s > hotSupply_V {
-		out = append(out, fmt.Sprintf("the supply reaches %s, above %s: touching the circuit can hurt; %s",
-			notation.FormatVoltage(s), notation.FormatVoltage(hotSupply_V), practice))
+		out = append(out, fmt.Sprintf("the supply reaches %s, above %s: touching the circuit can hurt",
+			notation.FormatVoltage(s), notation.FormatVoltage(hotSupply_V)))
 	}
 	d := r.worstDiss()
 	for _, p := range r.parts(d) {
@@ -101,9 +102,15 @@ func (r *result) cautions() []string {
 			if p.load.Utilization > 1 {
 				what = "beyond"
 			}
-			out = append(out, fmt.Sprintf("%s runs %s its design limit (%s of %s allowed, %.0f %%): it will be hot; %s",
-				p.name, what, notation.FormatPower(p.load.Power_W), notation.FormatPower(p.load.Allowed_W), 100*math.Min(p.load.Utilization, 999), practice))
+			out = append(out, fmt.Sprintf("%s runs %s its design limit (%s of %s allowed, %.0f %%): it will be hot",
+				strings.ToUpper(p.name), what, notation.FormatPower(p.load.Power_W), notation.FormatPower(p.load.Allowed_W), 100*math.Min(p.load.Utilization, 999)))
 		}
+	}
+	if r.wc == nil && len(r.problems) > 0 {
+		out = append(out, "the worst case could not be solved (see below): the figures above are for the nominal point only")
+	}
+	if len(out) > 0 {
+		out = append(out, practice)
 	}
 	return out
 }

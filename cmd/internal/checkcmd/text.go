@@ -65,9 +65,13 @@ func writeText(w io.Writer, r *result) {
 	// Test points.
 	fmt.Fprintln(w, "\nTest points (measure to ground)")
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  node\tnominal\tworst-case band\t")
+	fmt.Fprintln(tw, "  node\tnominal\tworst-case band")
 	for _, tp := range r.testPoints() {
-		fmt.Fprintf(tw, "  %s\t%s\t%s .. %s\n", strings.ToUpper(tp.name), fV(tp.nominal), fV(tp.min), fV(tp.max))
+		band := "not solved"
+		if r.wc != nil {
+			band = fV(tp.min) + " .. " + fV(tp.max)
+		}
+		fmt.Fprintf(tw, "  %s\t%s\t%s\n", strings.ToUpper(tp.name), fV(tp.nominal), band)
 	}
 	tw.Flush()
 

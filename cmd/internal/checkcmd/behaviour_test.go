@@ -1,0 +1,192 @@
+package checkcmd
+
+import (
+	"bytes"
+	"encoding/json"
+	"flag"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+
+	"biasbin/cmd/internal/cmdutil"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files under testdata")
+
+// run executes `biasbin check args...` with buffer streams and returns
+// stdout, stderr and the exit code.
+func run(t *testing.T, args []string) (string, string, int) {
+	t.Helper()
+	var out, errOut bytes.Buffer
+	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	cmd := New(f)
+	cmd.SetArgs(args)
+	cmd.SetOut(&out)
+	cmd.SetErr(&errOut)
+	cmd.SilenceUsage, cmd.SilenceErrors = true, true // as the root command does
+	err := cmd.Execute()
+	if err != nil && err != cmdutil.ErrSilent {
+		errOut.WriteString("biasbin: " + err.Error() + "\n")
+	}
+	return out.String(), errOut.String(), cmdutil.ExitCode(err)
+}
+
+// golden compares got with testdata/name, or rewrites it under -update.
+func golden(t *testing.T, name, got string) {
+	t.Helper()
+	path := filepath.Join("testdata", name)
+	if *update {
+		if err := os.MkdirAll("testdata", 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test -update to create it)", err)
+	}
+	if got != string(want) {
+		t.Errorf("%s differs from the golden file (go test -update rewrites it):\n--- got\n%s\n--- want\n%s", name, got, want)
+	}
+}
+
+// roundJSON rewrites every number of a JSON document to 6 significant
+// digits, so golden files do not hang on the last bits of a float.
+func roundJSON(t *testing.T, doc string) string {
+	t.Helper()
+	var v any
+	if err := json.Unmarshal([]byte(doc), &v); err != nil {
+		t.Fatalf("output is not JSON: %v", err)
+	}
+	var walk func(any) any
+	walk = func(x any) any {
+		switch x := x.(type) {
+		case map[string]any:
+			for k, e := range x {
+				x[k] = walk(e)
+			}
+		case []any:
+			for i, e := range x {
+				x[i] = walk(e)
+			}
+		case float64:
+			r, _ := strconv.ParseFloat(strconv.FormatFloat(x, 'g', 6, 64), 64)
+			return r
+		}
+		return x
+	}
+	out, err := json.MarshalIndent(walk(v), "", "  ")
+	if err != nil {
+		t.Fatal(err)
+	}
+	return string(out) + "\n"
+}
+
+func TestBehaviour(t *testing.T) {
+	tests := []struct {
+		name     string
+		args     []string
+		code     int
+		json     bool
+		stderrIn string // a substring stderr must hold ("" = stderr empty)
+	}{
+		{"divider_text", args("--theta-ja", "200", "--boards", "2000"), 0, false, ""},
+		{"saturated_json", []string{"--vcc", "15V", "--r1", "10K", "--r2", "5K", "--rc", "3K3", "--re", "1K", "--hfe", "100..300",
+			"--theta-ja", "200", "--boards", "500", "--json"}, 0, true, ""},
+		{"pnp_split_spice", []string{"--topology", "split-supply", "--polarity", "pnp", "--vcc", "15V", "--vee", "15V",
+			"--rb", "10K", "--rc", "10K", "--re", "20K", "--hfe", "100..300", "--spice", "--boards", "100"}, 0, false, ""},
+		{"feedback_text", []string{"--topology", "collector-feedback", "--vcc", "10V", "--rf", "250K", "--rc", "4K7", "--re", "1K2",
+			"--hfe", "90..135", "--bypass", "--load", "10K", "--ambient", "-10..60", "--boards", "1000"}, 0, false, ""},
+		{"hot_text", []string{"--vcc", "60V", "--r1", "470K", "--r2", "47K", "--rc", "22K", "--re", "4K7", "--hfe", "100..300",
+			"--pd", "625mW", "--boards", "500"}, 0, false, "follow local codes and licensed practice"},
+		{"runaway_text", []string{"--vcc", "60V", "--r1", "47K", "--r2", "5K6", "--rc", "1K", "--re", "470R", "--hfe", "100..300",
+			"--pd", "625mW", "--boards", "500"}, 1, false, "thermal runaway"},
+		{"bad_flag", args("--r1", "4K7X9"), 2, false, "--r1"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			out, errOut, code := run(t, tt.args)
+			if code != tt.code {
+				t.Fatalf("exit code %d, want %d; stderr:\n%s", code, tt.code, errOut)
+			}
+			if tt.stderrIn == "" && errOut != "" {
+				t.Errorf("unexpected stderr:\n%s", errOut)
+			}
+			if tt.stderrIn != "" && !strings.Contains(errOut, tt.stderrIn) {
+				t.Errorf("stderr does not mention %q:\n%s", tt.stderrIn, errOut)
+			}
+			if tt.json {
+				out = roundJSON(t, out)
+			}
+			golden(t, tt.name+".stdout", out)
+		})
+	}
+}
+
+func TestJSONFields(t *testing.T) {
+	// The fields issue 3 names, in SI base units.
+	out, errOut, code := run(t, []string{"--vcc", "12V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--hfe", "100..300",
+		"--load", "10K", "--bypass", "--boards", "200", "--json"})
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	need := map[string][]string{
+		"nominal":     {"ic_a", "ib_a", "ie_a", "vce_v", "vbe_v", "vb_v", "ve_v", "vc_v", "beta", "tj_c"},
+		"model":       {"is_a", "bf", "br", "nf", "vaf_v", "xti", "xtb", "eg_ev", "tnom_c"},
+		"worst":       {"ic_min_a", "ic_max_a", "vce_min_v", "vce_max_v", "all_active"},
+		"swing":       {"rac_ohms", "v_peak_v", "clips_first", "optimum_ic_a"},
+		"yield":       {"boards", "yield", "std_err", "seed"},
+		"dissipation": {"nominal", "worst"},
+	}
+	for obj, keys := range need {
+		m, ok := doc[obj].(map[string]any)
+		if !ok {
+			t.Fatalf("%s missing or not an object", obj)
+		}
+		for _, k := range keys {
+			if _, ok := m[k]; !ok {
+				t.Errorf("%s.%s missing", obj, k)
+			}
+		}
+	}
+	if doc["region"] != "active" {
+		t.Errorf("region %v, want active", doc["region"])
+	}
+	res := doc["resistors"].(map[string]any)
+	for _, name := range []string{"r1", "r2", "rc", "re"} {
+		r, ok := res[name].(map[string]any)
+		if !ok {
+			t.Fatalf("resistors.%s missing", name)
+		}
+		for _, k := range []string{"ohms", "effective_ohms", "power_w", "utilization"} {
+			if _, ok := r[k]; !ok {
+				t.Errorf("resistors.%s.%s missing", name, k)
+			}
+		}
+	}
+	corners := doc["corners"].([]any)
+	if len(corners) != 128 {
+		t.Fatalf("%d corners, want 128", len(corners))
+	}
+	c := corners[0].(map[string]any)
+	for _, k := range []string{"bf", "temp_c", "tj_c", "vcc_v", "ohms", "ic_a", "vce_v", "region"} {
+		if _, ok := c[k]; !ok {
+			t.Errorf("corners[0].%s missing", k)
+		}
+	}
+	// beta is IC/IB at the nominal point.
+	n := doc["nominal"].(map[string]any)
+	if b := n["ic_a"].(float64) / n["ib_a"].(float64); math.Abs(b-n["beta"].(float64)) > 1e-9*b {
+		t.Errorf("nominal beta %v, want IC/IB = %g", n["beta"], b)
+	}
+}
