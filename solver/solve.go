@@ -13,6 +13,15 @@ const (
 	// about newtonTol_V/VT ≈ 4e-9 relative (quadratic convergence makes
 	// the real error far smaller).
 	newtonTol_V = 1e-10
+	// newtonResRel bounds the loop-equation residual, relative to the
+	// size of the terms summed, at the point a converged step starts from:
+	// with large
+	// loop resistances a tiny step can still leave a visible residual, and
+	// one more step removes it quadratically.
+	newtonResRel = 1e-10
+	// ulpFloor is a few float64 ulps (relative): the residual a junction
+	// voltage rounded to its last bit leaves.
+	ulpFloor = 8 * 0x1p-52
 	// regionOn_A is the diode current at which a junction counts as
 	// conducting (see doc.go, "Regions").
 	regionOn_A = 100e-9
@@ -185,7 +194,11 @@ func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
 		}
 		stepBE, stepBC := math.Abs(nbe-vbe), math.Abs(nbc-vbc)
 		vbe, vbc = nbe, nbc
-		if !limBE && !limBC && stepBE <= newtonTol_V && stepBC <= newtonTol_V {
+		// Residual floor: what one ulp of each junction voltage moves f by.
+		ulpBE, ulpBC := ulpFloor*math.Max(1, math.Abs(vbe)), ulpFloor*math.Max(1, math.Abs(vbc))
+		if !limBE && !limBC && stepBE <= newtonTol_V && stepBC <= newtonTol_V &&
+			math.Abs(f1) <= newtonResRel*(1+math.Abs(a0)+math.Abs(ab*ib)+math.Abs(ac*ic))+math.Abs(j11)*ulpBE+math.Abs(j12)*ulpBC &&
+			math.Abs(f2) <= newtonResRel*(1+math.Abs(b0)+math.Abs(bb*ib)+math.Abs(bc*ic))+math.Abs(j21)*ulpBE+math.Abs(j22)*ulpBC {
 			x[0], x[1] = vbe, vbc
 			return true
 		}
