@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"testing"
 	"time"
 
@@ -63,6 +64,39 @@ func refCircuits() []refCircuit {
 	}
 }
 
+// randomCircuits draws n bench-realistic stages (seeded): resistors
+// 100 Ω..1 MΩ, supplies 3..30 V, IS 1e-16..1e-13 A, BF 30..500, Early
+// voltage and leakage on some.
+func randomCircuits(n int) []refCircuit {
+	rng := rand.New(rand.NewPCG(2026, 12))
+	logU := func(lo, hi float64) float64 { return lo * math.Pow(hi/lo, rng.Float64()) }
+	out := make([]refCircuit, n)
+	for i := range out {
+		top := solver.Topology(1 + i%3)
+		r := R{}
+		for _, sl := range top.Slots() {
+			r[sl] = logU(100, 1e6)
+		}
+		if rng.IntN(4) == 0 {
+			r[solver.RE] = 0
+		}
+		vee := 0.0
+		if top == solver.SplitSupply {
+			vee = -logU(1, 15)
+		}
+		vaf, icbo := 0.0, 0.0
+		if rng.IntN(2) == 0 {
+			vaf = logU(20, 200)
+		}
+		if rng.IntN(3) == 0 {
+			icbo = logU(1e-10, 1e-8)
+		}
+		out[i] = refCircuit{fmt.Sprintf("random #%d %v", i, top), stage(top, logU(3, 30), vee, r),
+			npnModel(logU(1e-16, 1e-13), logU(30, 500), vaf, icbo)}
+	}
+	return out
+}
+
 // TestSolveAgainstNgspice solves every generated circuit, NPN and PNP, at
 // −20, 25 and 85 °C and holds each against an ngspice op run of the deck
 // Netlist writes. Tolerances (from the task): node voltages within 1 mV or
@@ -80,7 +114,7 @@ func TestSolveAgainstNgspice(t *testing.T) {
 	var runs []run
 	var jobs []spicecheck.Job
 	vectors := []string{"v(b)", "v(c)", "v(e)", "@q1[ic]", "@q1[ib]"}
-	for _, c := range refCircuits() {
+	for _, c := range append(refCircuits(), randomCircuits(30)...) {
 		ps, pm := mirror(c.s, c.m)
 		for _, v := range []struct {
 			s solver.Stage
@@ -106,6 +140,7 @@ func TestSolveAgainstNgspice(t *testing.T) {
 	}
 	regions := map[solver.Region]int{}
 	compared := 0
+	worstV, worstIC := 0.0, 0.0 // largest node-voltage difference (V), relative IC difference
 	for i, r := range runs {
 		ng := got[i]
 		sg := 1.0
@@ -117,6 +152,7 @@ func TestSolveAgainstNgspice(t *testing.T) {
 			mine, spic float64
 		}{{"VB", r.op.VB_V, ng["v(b)"]}, {"VC", r.op.VC_V, ng["v(c)"]}, {"VE", r.op.VE_V, ng["v(e)"]}} {
 			// source: ngspice 39 op run; 1 mV or 0.1 %, whichever is looser.
+			worstV = math.Max(worstV, math.Abs(n.mine-n.spic))
 			if d := math.Abs(n.mine - n.spic); d > 1e-3 && d > 1e-3*math.Abs(n.spic) {
 				t.Errorf("%s: %s = %.7g V, ngspice %.7g V", r.name, n.node, n.mine, n.spic)
 			}
@@ -128,14 +164,17 @@ func TestSolveAgainstNgspice(t *testing.T) {
 		icNg := sg * ng["@q1[ic]"]
 		// source: ngspice op; 0.1 %, with a 100 pA floor for cut-off points
 		// where ngspice's GMIN (1e-12 S per junction) dominates.
+		if r.op.Region != solver.Cutoff {
+			worstIC = math.Max(worstIC, math.Abs(icDev/icNg-1))
+		}
 		if d := math.Abs(icDev - icNg); d > 1e-3*math.Abs(icNg) && d > 1e-10 {
 			t.Errorf("%s: IC = %.7g A, ngspice %.7g A (%s)", r.name, icDev, icNg, r.op.Region)
 		}
 		regions[r.op.Region]++
 		compared++
 	}
-	t.Logf("ngspice: %d circuits compared in %v (regions: %d active, %d saturation, %d cutoff)",
-		compared, time.Since(start).Round(time.Millisecond), regions[solver.Active], regions[solver.Saturation], regions[solver.Cutoff])
+	t.Logf("ngspice: %d circuits compared in %v (regions: %d active, %d saturation, %d cutoff); largest differences: node %.2g V, IC %.2g relative (outside cutoff)",
+		compared, time.Since(start).Round(time.Millisecond), regions[solver.Active], regions[solver.Saturation], regions[solver.Cutoff], worstV, worstIC)
 	if compared < 40 {
 		t.Fatalf("only %d circuits compared with ngspice, want at least 40", compared)
 	}
