@@ -9,64 +9,54 @@ import (
 	"github.com/jmoiron/sqlx"
 )
 
-// ListResistors returns the resistor lines matching f, sorted by value,
-// tolerance, power, technology, bin and ID.
-func (db *DB) ListResistors(ctx context.Context, f Filter) ([]Resistor, error) {
+// listParts reads the lines sel selects that match f, in order, with
+// their tags.
+func listParts[P any, R interface {
+	part() P
+	partID() int64
+}](ctx context.Context, db *DB, k Kind, sel, order string, f Filter,
+	withTags func(P, []string) P) ([]P, error) {
 	where, args := filterSQL(f)
-	var out []Resistor
+	var out []P
 	err := db.read(ctx, func(tx *sqlx.Tx) error {
-		var rows []resistorRow
-		q := resistorSelect + where + ` ORDER BY r.ohm, r.tol, r.rated_w, r.tech, p.bin, p.id`
-		if err := tx.SelectContext(ctx, &rows, q, args...); err != nil {
+		var rows []R
+		if err := tx.SelectContext(ctx, &rows, sel+where+order, args...); err != nil {
 			return err
 		}
-		tags, err := tagsOf(ctx, tx, KindResistor)
+		tags, err := tagsOf(ctx, tx, k)
 		if err != nil {
 			return err
 		}
-		out = make([]Resistor, len(rows))
+		out = make([]P, len(rows))
 		for i, r := range rows {
 			out[i] = r.part()
-			if t := tags[r.ID]; t != nil {
-				out[i].Tags = t
+			if t := tags[r.partID()]; t != nil {
+				out[i] = withTags(out[i], t)
 			}
 		}
 		return nil
 	})
 	if err != nil {
-		return nil, fmt.Errorf("list resistors: %w", err)
+		return nil, fmt.Errorf("list %ss: %w", k, err)
 	}
 	return out, nil
+}
+
+func resistorWithTags(r Resistor, tags []string) Resistor       { r.Tags = tags; return r }
+func transistorWithTags(t Transistor, tags []string) Transistor { t.Tags = tags; return t }
+
+// ListResistors returns the resistor lines matching f, sorted by value,
+// tolerance, power, technology, bin and ID.
+func (db *DB) ListResistors(ctx context.Context, f Filter) ([]Resistor, error) {
+	return listParts[Resistor, resistorRow](ctx, db, KindResistor, resistorSelect,
+		` ORDER BY r.ohm, r.tol, r.rated_w, r.tech, p.bin, p.id`, f, resistorWithTags)
 }
 
 // ListTransistors returns the transistor lines matching f, sorted by
 // label, bin and ID.
 func (db *DB) ListTransistors(ctx context.Context, f Filter) ([]Transistor, error) {
-	where, args := filterSQL(f)
-	var out []Transistor
-	err := db.read(ctx, func(tx *sqlx.Tx) error {
-		var rows []transistorRow
-		q := transistorSelect + where + ` ORDER BY t.label, p.bin, p.id`
-		if err := tx.SelectContext(ctx, &rows, q, args...); err != nil {
-			return err
-		}
-		tags, err := tagsOf(ctx, tx, KindTransistor)
-		if err != nil {
-			return err
-		}
-		out = make([]Transistor, len(rows))
-		for i, r := range rows {
-			out[i] = r.part()
-			if t := tags[r.ID]; t != nil {
-				out[i].Tags = t
-			}
-		}
-		return nil
-	})
-	if err != nil {
-		return nil, fmt.Errorf("list transistors: %w", err)
-	}
-	return out, nil
+	return listParts[Transistor, transistorRow](ctx, db, KindTransistor, transistorSelect,
+		` ORDER BY t.label, p.bin, p.id`, f, transistorWithTags)
 }
 
 // KindOf returns the kind of the stock line id; ErrNotFound when there is
@@ -110,15 +100,13 @@ func partByID[P any, R interface{ part() P }](ctx context.Context, db *DB, what,
 // ResistorByID returns the resistor line id; ErrNotFound when there is no
 // resistor with that ID.
 func (db *DB) ResistorByID(ctx context.Context, id int64) (Resistor, error) {
-	return partByID[Resistor, resistorRow](ctx, db, "resistor", resistorSelect, id,
-		func(r Resistor, tags []string) Resistor { r.Tags = tags; return r })
+	return partByID[Resistor, resistorRow](ctx, db, "resistor", resistorSelect, id, resistorWithTags)
 }
 
 // TransistorByID returns the transistor line id; ErrNotFound when there is
 // no transistor with that ID.
 func (db *DB) TransistorByID(ctx context.Context, id int64) (Transistor, error) {
-	return partByID[Transistor, transistorRow](ctx, db, "transistor", transistorSelect, id,
-		func(t Transistor, tags []string) Transistor { t.Tags = tags; return t })
+	return partByID[Transistor, transistorRow](ctx, db, "transistor", transistorSelect, id, transistorWithTags)
 }
 
 // TransistorByLabel returns the stock line with that label (the lowest ID

@@ -24,6 +24,8 @@ type resistorRow struct {
 	Ident  string  `db:"ident"`
 }
 
+func (r resistorRow) partID() int64 { return r.ID }
+
 func (r resistorRow) part() Resistor {
 	return Resistor{ID: r.ID, Ohm: r.Ohm, Tol: r.Tol, Rated_W: r.RatedW, Knee_C: r.KneeC, Max_C: r.MaxC,
 		TCR_PPMPerK: r.TCR, Tech: r.Tech, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: []string{}}
@@ -57,6 +59,8 @@ type transistorRow struct {
 	VAF      float64 `db:"vaf_v"`
 	ICBO     float64 `db:"icbo_a"`
 }
+
+func (r transistorRow) partID() int64 { return r.ID }
 
 func (r transistorRow) part() Transistor {
 	return Transistor{ID: r.ID, Label: r.Label, Polarity: r.Polarity, HFEMin: r.HFEMin, HFEMax: r.HFEMax,

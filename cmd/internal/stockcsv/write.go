@@ -11,21 +11,14 @@ import (
 	"biasbin/store"
 )
 
-// WriteResistors writes rs as a resistor stock file with every column.
-func WriteResistors(w io.Writer, rs []store.Resistor) error {
+// writeCSV writes the header of k and n records.
+func writeCSV(w io.Writer, k store.Kind, n int, record func(i int) []string) error {
 	cw := csv.NewWriter(w)
-	if err := cw.Write(header(store.KindResistor)); err != nil {
+	if err := cw.Write(header(k)); err != nil {
 		return fmt.Errorf("write CSV: %w", err)
 	}
-	for _, r := range rs {
-		rec := []string{
-			Ohms(r.Ohm), exactPercent(r.Tol), plain(r.Rated_W, "W", notation.ParsePower),
-			strconv.Itoa(r.Qty), r.Bin,
-			plain(r.TCR_PPMPerK, "", notation.ParseTCR), r.Tech,
-			plain(r.Knee_C, "", notation.ParseTemperature), plain(r.Max_C, "", notation.ParseTemperature),
-			strings.Join(r.Tags, ";"), r.Note,
-		}
-		if err := cw.Write(rec); err != nil {
+	for i := range n {
+		if err := cw.Write(record(i)); err != nil {
 			return fmt.Errorf("write CSV: %w", err)
 		}
 	}
@@ -36,16 +29,27 @@ func WriteResistors(w io.Writer, rs []store.Resistor) error {
 	return nil
 }
 
+// WriteResistors writes rs as a resistor stock file with every column.
+func WriteResistors(w io.Writer, rs []store.Resistor) error {
+	return writeCSV(w, store.KindResistor, len(rs), func(i int) []string {
+		r := rs[i]
+		return []string{
+			Ohms(r.Ohm), exactPercent(r.Tol), plain(r.Rated_W, "W", notation.ParsePower),
+			strconv.Itoa(r.Qty), r.Bin,
+			plain(r.TCR_PPMPerK, "", notation.ParseTCR), r.Tech,
+			plain(r.Knee_C, "", notation.ParseTemperature), plain(r.Max_C, "", notation.ParseTemperature),
+			strings.Join(r.Tags, ";"), r.Note,
+		}
+	})
+}
+
 // WriteTransistors writes ts as a transistor stock file with every column.
 func WriteTransistors(w io.Writer, ts []store.Transistor) error {
-	cw := csv.NewWriter(w)
-	if err := cw.Write(header(store.KindTransistor)); err != nil {
-		return fmt.Errorf("write CSV: %w", err)
-	}
 	num := notation.ParseNumber
 	volt, amp := notation.ParseVoltage, notation.ParseCurrent
-	for _, t := range ts {
-		rec := []string{
+	return writeCSV(w, store.KindTransistor, len(ts), func(i int) []string {
+		t := ts[i]
+		return []string{
 			t.Label, t.Polarity, optional(t.HFEMin, num, ""), optional(t.HFEMax, num, ""), strconv.Itoa(t.Qty),
 			optional(t.HFETyp, num, ""), optional(t.HFEAt_A, amp, "A"),
 			optional(t.VBEOn_V, volt, "V"), optional(t.VBEAt_A, amp, "A"),
@@ -56,15 +60,7 @@ func WriteTransistors(w io.Writer, ts []store.Transistor) error {
 			optional(t.VAF_V, volt, "V"), optional(t.ICBO_A, amp, "A"),
 			t.Bin, strings.Join(t.Tags, ";"), t.Note,
 		}
-		if err := cw.Write(rec); err != nil {
-			return fmt.Errorf("write CSV: %w", err)
-		}
-	}
-	cw.Flush()
-	if err := cw.Error(); err != nil {
-		return fmt.Errorf("write CSV: %w", err)
-	}
-	return nil
+	})
 }
 
 // digits12 writes v to 12 significant digits, the precision the store
