@@ -19,7 +19,7 @@ const thermalScan = 32
 // tjMax_C (0 = DefaultTjMax_C).
 //
 // The equilibrium is the first root above the ambient of
-// g(Tj) = ambient + θJA·P(Tj) − Tj where g falls through zero: the
+// g(Tj) = ambient + θJA·max(P(Tj), 0) − Tj where g falls through zero: the
 // temperature a junction warming up from the ambient settles at. It is
 // found by a secant iteration safeguarded by bisection once a bracket is
 // known, warm-starting each operating point from the previous one. On
@@ -50,6 +50,11 @@ func SolveSelfHeated(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64
 	return th.equilibrium(op, tjMax_C)
 }
 
+// heating is the power that heats the junction: PTransistor_W, or 0 when
+// that is negative (possible only in saturation with a large ICBO, where
+// the constant leakage source of the model delivers power).
+func heating(op OperatingPoint) float64 { return math.Max(0, op.PTransistor_W) }
+
 type thermalProblem struct {
 	s     Stage
 	m     Model
@@ -66,11 +71,11 @@ func (th *thermalProblem) g(tj float64) (float64, OperatingPoint, error) {
 	if err != nil {
 		return 0, op, fmt.Errorf("self-heated solve at Tj %.3g °C: %w", tj, err)
 	}
-	return th.ta + th.theta*op.PTransistor_W - tj, op, nil
+	return th.ta + th.theta*heating(op) - tj, op, nil
 }
 
 func (th *thermalProblem) equilibrium(op0 OperatingPoint, tjMax float64) (OperatingPoint, error) {
-	tPrev, gPrev := th.ta, th.theta*op0.PTransistor_W
+	tPrev, gPrev := th.ta, th.theta*heating(op0)
 	if gPrev <= thermalTol_K {
 		return op0, nil // no (or negligible) dissipation
 	}
