@@ -69,7 +69,8 @@ func writeJSON(w io.Writer, v any) error {
 func usageArgs(check cobra.PositionalArgs) cobra.PositionalArgs {
 	return func(cmd *cobra.Command, args []string) error {
 		if err := check(cmd, args); err != nil {
-			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %w", cmd.CommandPath(), err)}
+			path := strings.TrimPrefix(cmd.CommandPath(), cmd.Root().Name()+" ")
+			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %w", path, err)}
 		}
 		return nil
 	}
