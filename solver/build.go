@@ -74,15 +74,16 @@ const (
 	DefaultVCEMargin_V = 0.5
 )
 
-// withDefaults returns l with its zero fields replaced by the defaults.
-func (l Limits) withDefaults() Limits {
-	if l.ResistorMaxFraction == 0 {
+// WithDefaults returns l with the documented default in place of every
+// field that is zero, negative or NaN.
+func (l Limits) WithDefaults() Limits {
+	if !(l.ResistorMaxFraction > 0) {
 		l.ResistorMaxFraction = DefaultResistorMaxFraction
 	}
-	if l.TransistorMaxFraction == 0 {
+	if !(l.TransistorMaxFraction > 0) {
 		l.TransistorMaxFraction = DefaultTransistorMaxFraction
 	}
-	if l.VCEMargin_V == 0 {
+	if !(l.VCEMargin_V > 0) {
 		l.VCEMargin_V = DefaultVCEMargin_V
 	}
 	return l

@@ -66,7 +66,7 @@ func TransistorAllowed_W(d Datasheet, ambient_C float64) (float64, bool) {
 // is ResistorAllowed_W times lim.ResistorMaxFraction. The transistor's
 // allowance is TransistorAllowed_W times lim.TransistorMaxFraction.
 func EvalDissipation(b Build, op OperatingPoint, ambient_C float64, lim Limits) Dissipation {
-	lim = lim.withDefaults()
+	lim = lim.WithDefaults()
 	d := Dissipation{Ok: true}
 	for i := range NumSlots {
 		r := b.Resistors[i]

@@ -214,7 +214,7 @@ func EvalWorstCaseWith(b Build, lim Limits, opt WorstCaseOptions) (WorstCase, er
 	if err := b.Validate(); err != nil {
 		return WorstCase{}, fmt.Errorf("worst case: %w", err)
 	}
-	lim = lim.withDefaults()
+	lim = lim.WithDefaults()
 	p, err := newCornerPlan(b)
 	if err != nil {
 		return WorstCase{}, fmt.Errorf("worst case: %w", err)

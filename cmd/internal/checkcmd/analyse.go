@@ -150,13 +150,7 @@ func (r *result) dcBeta() float64 {
 }
 
 // vceFloor is the VCE every corner must keep: VCE(sat) plus the margin.
-func (r *result) vceFloor() float64 {
-	m := r.lim.VCEMargin_V
-	if m == 0 {
-		m = solver.DefaultVCEMargin_V
-	}
-	return r.vceSat + m
-}
+func (r *result) vceFloor() float64 { return r.vceSat + r.lim.WithDefaults().VCEMargin_V }
 
 // testPoint is a node voltage a technician measures to ground, with the
 // band the corners span.

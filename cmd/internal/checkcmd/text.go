@@ -104,7 +104,7 @@ func writeText(w io.Writer, r *result) {
 	// Dissipation.
 	worst := r.worstDiss()
 	fmt.Fprintf(w, "\nDissipation (design limit: resistors %.0f %%, transistor %.0f %% of the derated rating)\n",
-		100*solver.DefaultResistorMaxFraction, 100*solver.DefaultTransistorMaxFraction)
+		100*r.lim.WithDefaults().ResistorMaxFraction, 100*r.lim.WithDefaults().TransistorMaxFraction)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "  part\tat %s\tlimit\tuse\tworst corner\tuse\n", fT(b.NominalAmbient_C))
 	nom := r.parts(r.nomDiss)
