@@ -92,7 +92,32 @@
 // # Self-heating
 //
 // SolveSelfHeated finds the junction temperature where
-// Tj = Ta + θJA·PTransistor(Tj), PTransistor = VCE·IC + VBE·IB (the power
-// ngspice reports as @q[p]); no stable equilibrium at or below Tj max is
-// thermal runaway (ErrThermalRunaway).
+// Tj = Ta + θJA·P(Tj), P = max(PTransistor, 0) with
+// PTransistor = VCE·IC + VBE·IB (the power ngspice reports as @q[p]; it can
+// only go negative in saturation with a large ICBO, whose constant source
+// then delivers power). The equilibrium is the first downward crossing of
+// the heat balance above the ambient — the temperature a junction warming
+// from the ambient settles at — found by a bracketed secant iteration to
+// 1e-6 K. No stable equilibrium at or below Tj max is thermal runaway
+// (ErrThermalRunaway); that includes a stage that is stable but would
+// settle above Tj max.
+//
+// # Hand method and stability factors
+//
+// SolveFixedVBE is the textbook hand method (fixed VBE, IC = β·IB +
+// (β+1)·ICBO) in closed form; every topology reduces to one base loop
+// V = IB·Rb + VBE + IE·Re (divider: V_TH, R_TH, RE; collector feedback:
+// VCC, RF, RC+RE; split supply: |VEE|, RB, RE), so
+// IC = [β(V−VBE) + (β+1)(Rb+Re)·ICBO] / [Rb + (β+1)Re].
+// StabilityClosedForm differentiates that closed form (S_I, S_V, S_β);
+// StabilityNumeric differentiates the exact solver by finite differences.
+// The two differ by the junction's dynamic resistance, which the closed
+// form leaves out: the exact denominator is Rb + (β+1)Re + β·NF·VT/IC.
+//
+// # SPICE netlist
+//
+// Netlist writes an ngspice deck that reproduces Solve: the same model
+// card (TNOM stated), `.options temp` at the junction temperature and
+// Newton tolerances tight enough for a reference. The package
+// solver/spicecheck runs such decks through ngspice in tests.
 package solver
