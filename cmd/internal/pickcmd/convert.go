@@ -1,10 +1,8 @@
 package pickcmd
 
 import (
-	"fmt"
-
+	"biasbin/cmd/internal/report"
 	"biasbin/picker"
-	"biasbin/solver"
 	"biasbin/store"
 )
 
@@ -49,36 +47,12 @@ func toResistor(r store.Resistor) picker.Resistor {
 	}
 }
 
-// toTransistor converts one transistor line; the datasheet fields keep the
-// store's zero-means-default convention, which the solver shares.
+// toTransistor converts one transistor line (report.Sheet fills the
+// datasheet with the store's defaults, as biasbin check does).
 func toTransistor(t store.Transistor) (picker.Transistor, error) {
-	t = t.WithDefaults()
-	pol, err := solver.ParsePolarity(t.Polarity)
+	sheet, err := report.Sheet(t)
 	if err != nil {
-		return picker.Transistor{}, fmt.Errorf("stock line %d (%s): %w", t.ID, t.Label, err)
+		return picker.Transistor{}, err
 	}
-	return picker.Transistor{
-		ID:   t.ID,
-		Qty:  t.Qty,
-		Bin:  t.Bin,
-		Tags: t.Tags,
-		Sheet: solver.Datasheet{
-			Label:         t.Label,
-			Polarity:      pol,
-			HFEMin:        t.HFEMin,
-			HFEMax:        t.HFEMax,
-			HFETyp:        t.HFETyp,
-			HFEAt_A:       t.HFEAt_A,
-			VBEOn_V:       t.VBEOn_V,
-			VBEAt_A:       t.VBEAt_A,
-			VCESat_V:      t.VCESat_V,
-			VCEO_V:        t.VCEO_V,
-			ICMax_A:       t.ICMax_A,
-			PD25_W:        t.PD25_W,
-			ThetaJA_KPerW: t.ThetaJA_KPerW,
-			TjMax_C:       t.TjMax_C,
-			VAF_V:         t.VAF_V,
-			ICBO_A:        t.ICBO_A,
-		},
-	}, nil
+	return picker.Transistor{ID: t.ID, Qty: t.Qty, Bin: t.Bin, Tags: store.NormalizeTags(t.Tags), Sheet: sheet}, nil
 }

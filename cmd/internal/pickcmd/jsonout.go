@@ -15,6 +15,7 @@ import (
 type jsonResult struct {
 	Request    jsonRequest     `json:"request"`
 	Evaluated  int64           `json:"evaluated"`
+	Solved     int64           `json:"solved"`
 	Considered int64           `json:"considered"`
 	Fits       bool            `json:"fits"`
 	Candidates []jsonCandidate `json:"candidates"`
@@ -126,8 +127,9 @@ type jsonPull struct {
 }
 
 type jsonShortfall struct {
-	Reasons []string `json:"reasons"`
-	Buy     []string `json:"buy"`
+	Reasons  []string `json:"reasons"`
+	Buy      []string `json:"buy"`
+	Rejected []string `json:"rejected"`
 }
 
 // writeJSON writes the whole result as one indented JSON document.
@@ -135,6 +137,7 @@ func writeJSON(w io.Writer, v view) error {
 	doc := jsonResult{
 		Request:    jsonRequestOf(v.req),
 		Evaluated:  v.res.Evaluated,
+		Solved:     v.res.Solved,
 		Considered: v.res.Considered,
 		Fits:       v.fits(),
 		Candidates: []jsonCandidate{},
@@ -147,7 +150,7 @@ func writeJSON(w io.Writer, v view) error {
 		doc.Candidates = append(doc.Candidates, v.jsonCandidate(c))
 	}
 	if s := v.res.Shortfall; s != nil {
-		doc.Shortfall = &jsonShortfall{Reasons: nonNil(s.Reasons), Buy: nonNil(s.Buy)}
+		doc.Shortfall = &jsonShortfall{Reasons: nonNil(s.Reasons), Buy: nonNil(s.Buy), Rejected: nonNil(s.Rejected)}
 	}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")

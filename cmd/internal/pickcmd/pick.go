@@ -128,20 +128,6 @@ func Run(ctx context.Context, o *Options) error {
 	if err != nil {
 		return pickError(err)
 	}
-	if !req.ShowFailing && !(view{res: res}).fits() {
-		// Nothing fits: search again for the nearest builds, which the
-		// picker lists only on request, each with the limit it breaks.
-		near := req
-		near.ShowFailing = true
-		nres, err := o.Pick(stock, near)
-		if err != nil {
-			return pickError(err)
-		}
-		if nres.Shortfall == nil {
-			nres.Shortfall = res.Shortfall
-		}
-		res = nres
-	}
 	req.Progress = nil
 	v := view{req: req, res: res, stock: stock}
 	if o.JSON {
@@ -267,23 +253,39 @@ func writeText(w io.Writer, v view) {
 // writeNotes writes the shortfall explanation, the parts to buy and the
 // hot-part cautions on stderr.
 func writeNotes(w io.Writer, v view) {
-	if s := v.res.Shortfall; s != nil && (len(s.Reasons) > 0 || len(s.Buy) > 0) {
-		if v.fits() {
-			fmt.Fprintln(w, "note: the stock limits this search:")
+	var reasons, buy, rejected []string
+	if s := v.res.Shortfall; s != nil {
+		reasons, buy, rejected = s.Reasons, s.Buy, s.Rejected
+	}
+	switch {
+	case !v.fits():
+		fmt.Fprintln(w, "nothing fits this request:")
+		if len(reasons)+len(rejected) == 0 {
+			fmt.Fprintln(w, "  - no build passes every limit")
+		}
+	case len(reasons)+len(buy) > 0:
+		fmt.Fprintln(w, "note: the stock limits this search:")
+	}
+	for _, r := range reasons {
+		fmt.Fprintf(w, "  - %s\n", r)
+	}
+	if !v.fits() || len(reasons)+len(buy) > 0 {
+		for _, r := range rejected {
+			fmt.Fprintf(w, "  - left out: %s\n", r)
+		}
+	}
+	if len(buy) > 0 {
+		fmt.Fprintln(w, "parts to buy for a good build:")
+		for _, b := range buy {
+			fmt.Fprintf(w, "  - %s\n", b)
+		}
+	}
+	if !v.fits() {
+		if len(v.res.Candidates) > 0 {
+			fmt.Fprintln(w, "the nearest builds are listed on stdout, each with the limit it breaks")
 		} else {
-			fmt.Fprintln(w, "nothing fits this request:")
+			fmt.Fprintln(w, "no build came near enough to show")
 		}
-		for _, r := range s.Reasons {
-			fmt.Fprintf(w, "  - %s\n", r)
-		}
-		if len(s.Buy) > 0 {
-			fmt.Fprintln(w, "parts to buy for a good build:")
-			for _, b := range s.Buy {
-				fmt.Fprintf(w, "  - %s\n", b)
-			}
-		}
-	} else if !v.fits() {
-		fmt.Fprintln(w, "nothing fits this request; the nearest builds above show which limit each breaks")
 	}
 	for _, c := range v.cautions() {
 		fmt.Fprintf(w, "caution: %s\n", c)
