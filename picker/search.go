@@ -209,6 +209,8 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 			if rcLo > rcHi {
 				continue
 			}
+
+			d.cache = map[[nPos]int]*tuple{}
 			for r2 := range n {
 				thr = p.threshold()
 				if !math.IsInf(thr, 1) && w.QPoint > 0 {
@@ -216,11 +218,14 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 					icLo = s.icT * math.Max(0, 1-delta)
 					icHi = s.icT * (1 + delta)
 				}
-				r2Ohm := e.vs.levels[r2].ohm
-				// Bound U-R2: P(R2) = VB²/R2 with VB ≥ VE ≥ IC·RE ≥ icLo·RE.
-				vbLo := icLo * reOhm
-				if !math.IsInf(thr, 1) && w.Utilization*vbLo*vbLo/r2Ohm/e.vs.levels[r2].allowHot_W > thr {
-					continue
+				// Bound U-R2 (divider power, see dividerPowerBound).
+				if !math.IsInf(thr, 1) {
+					vbeLo, vbeHi := e.vbeBounds(dv, icLo, icHi)
+					vbLo := vbeLo + icLo*reOhm
+					vbHi := vbeHi + icHi*kE*reOhm
+					if w.Utilization*e.dividerPowerBound(r2, vbLo, vbHi) > thr {
+						continue
+					}
 				}
 				// R1 range from IC monotonicity (lemma L1).
 				r1Lo, r1Hi := 0, n-1
@@ -233,6 +238,7 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 						t := d.tuple(di, [nPos]int{i, r2, rcHi, re}, cnt)
 						return !t.ok || t.op.IC_A <= icHi
 					})
+
 				}
 				for r1 := r1Lo; r1 <= r1Hi; r1++ {
 					// RC: VCE falls with RC (lemma L2). Split at the first RC

@@ -133,6 +133,6 @@ type Result struct {
 	Considered int64 // combinations covered (evaluated or pruned)
 	// Solved counts the nominal level tuples solved (each one exact
 	// self-heated operating point), the search's main cost.
-	Solved int64
-	Shortfall  *Shortfall
+	Solved    int64
+	Shortfall *Shortfall
 }

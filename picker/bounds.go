@@ -1,0 +1,98 @@
+package picker
+
+import (
+	"math"
+
+	"biasbin/solver"
+)
+
+// vbeBounds returns bounds on the nominal-point VBE of any build of dv
+// whose collector current lies in [icLo, icHi] (forward-active):
+//
+//   - upper: the junction is at least at the nominal ambient (self-heating
+//     only warms it), and in the active region IC ≥ IS(e^(VBE/(NF·VT)) − 1)
+//     (the Early factor 1 − VBC/VAF ≥ 1 and the reverse terms add), so
+//     VBE ≤ NF·VT(25 °C)·ln(icHi/IS(25 °C) + 1); IS grows with temperature,
+//     which only lowers VBE further.
+//   - lower: the junction is at most 25 °C + θJA·P with P ≤ VCC·IC·2
+//     (VCE ≤ VCC, VBE·IB ≤ VCC·IC for hFE ≥ 1), and IC ≤ IS·e^(VBE/(NF·VT))·
+//     (1 + VCC/VAF) + IS/BR, so VBE ≥ NF·VT(Tj)·ln((icLo − IS/BR)/(IS(Tj)(1 +
+//     VCC/VAF))). With a leakage current in the model (ICBO > 0), which
+//     adds to IC without VBE, the lower bound is 0.
+func (e *evaluator) vbeBounds(dv *device, icLo, icHi float64) (lo, hi float64) {
+	m := dv.typ
+	vt := solver.ThermalVoltage_V(NominalAmbient_C)
+	is25, _, _, _ := m.At(NominalAmbient_C)
+	hi = m.NF * vt * math.Log(icHi/is25+1)
+	if m.ICBO_A > 0 || icLo <= 0 {
+		return 0, hi
+	}
+	tj := math.Min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*e.s.vcc*icHi*2)
+	isT, _, br, _ := m.At(tj)
+	early := 1.0
+	if m.VAF_V > 0 {
+		early += e.s.vcc / m.VAF_V
+	}
+	num := icLo - isT/math.Max(br, 1e-9)
+	if num <= 0 {
+		return 0, hi
+	}
+	lo = math.Max(0, m.NF*solver.ThermalVoltage_V(tj)*math.Log(num/(isT*early)))
+	return lo, hi
+}
+
+// dividerPowerBound is a lower bound on the larger utilization of R1 and
+// R2 for any build with this R2 level whose base voltage lies in
+// [vbLo, vbHi] (see doc.go, bound U-R2):
+//
+//   - R2 dissipates VB²/R2 ≥ vbLo²/R2;
+//   - base current flows into the base, so VB ≤ VTH = VCC·R2/(R1+R2), i.e.
+//     R1 ≤ R2(VCC − VB)/VB, and R1 dissipates (VCC − VB)²/R1 ≥
+//     (VCC − VB)·VB/R2, a concave function of VB whose minimum over the
+//     interval is at an end.
+//
+// R1's allowance is bounded by the largest allowance of any value.
+func (e *evaluator) dividerPowerBound(r2 int, vbLo, vbHi float64) float64 {
+	r2Ohm := e.vs.levels[r2].ohm
+	u := vbLo * vbLo / r2Ohm / e.vs.levels[r2].allowHot_W
+	vcc := e.s.vcc
+	if vbHi < vcc && vbLo > 0 {
+		p1 := math.Min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi) / r2Ohm
+		u = math.Max(u, p1/e.vs.allowHotMax_W)
+	}
+	return u
+}
+
+// firstFrom returns the first index in [0, n) where the monotone
+// predicate f turns true (n when it never does), searching outward from
+// a guess (galloping), so a guess near the answer costs few calls.
+func firstFrom(n, guess int, f func(int) bool) int {
+	if n == 0 {
+		return 0
+	}
+	guess = clampLevel(guess, n)
+	if f(guess) {
+		// answer in [0, guess]: step down until false
+		hi, step := guess, 1
+		lo := guess - step
+		for lo >= 0 && f(lo) {
+			hi = lo
+			step *= 2
+			lo = hi - step
+		}
+		lo = max(lo+1, 0)
+		return lo + firstLevel(hi-lo, func(i int) bool { return f(lo + i) })
+	}
+	lo, step := guess+1, 1
+	hi := lo + step - 1
+	for hi < n && !f(hi) {
+		lo = hi + 1
+		step *= 2
+		hi = lo + step - 1
+	}
+	hi = min(hi, n-1)
+	if lo > hi {
+		return n
+	}
+	return lo + firstLevel(hi-lo+1, func(i int) bool { return f(lo + i) })
+}
