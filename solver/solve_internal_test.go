@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"errors"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -143,6 +144,28 @@ func TestSourceSteppingAgreesWithNewton(t *testing.T) {
 			if math.Abs(direct[k]-stepped[k]) > 1e-8 {
 				t.Fatalf("#%d: direct %v, source stepping %v", i, direct, stepped)
 			}
+		}
+	}
+}
+
+// TestNoConvergenceIsAnError drives the iteration with a model that
+// cannot converge (IS = NaN slips past validation only inside the
+// package): the result is an error wrapping ErrNoConvergence and a zero
+// OperatingPoint, never NaN.
+func TestNoConvergenceIsAnError(t *testing.T) {
+	s := Stage{Topology: Divider, VCC_V: 15, R_Ohm: [NumSlots]float64{R1: 10e3, R2: 5e3, RC: 1e3, RE: 1e3}}
+	for _, m := range []Model{
+		{Polarity: NPN, IS_A: math.NaN(), BF: 100, BR: 1, NF: 1, XTI: 3, EG_eV: 1.11, TNOM_C: 25},
+		{Polarity: PNP, IS_A: 1e-14, BF: 100, BR: 1, NF: math.NaN(), XTI: 3, EG_eV: 1.11, TNOM_C: 25},
+	} {
+		ss := s
+		ss.VCC_V *= m.Polarity.sign()
+		op, err := solveChecked(ss, m, 25, nil)
+		if !errors.Is(err, ErrNoConvergence) {
+			t.Errorf("%+v: err = %v, want ErrNoConvergence", m, err)
+		}
+		if op != (OperatingPoint{}) {
+			t.Errorf("%+v: returned %+v with the error", m, op)
 		}
 	}
 }
