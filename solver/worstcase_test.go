@@ -90,8 +90,11 @@ func TestWorstCaseCorners(t *testing.T) {
 }
 
 func TestWorstCaseSaturation(t *testing.T) {
-	// A large RC puts the hFE-max corners into saturation: VCE(sat) limit
-	// from REFERENCE.md §5 ("Saturation check: V_CE > V_CE(sat)").
+	// A large RC drives the stage into saturation. source: REFERENCE.md §5
+	// hand estimate: IC ≈ (VTH − VBE)/(RE + RTH/β) ≈ 4.2 mA would need
+	// IC·(RC + RE) ≈ 14.3 V of the 15 V supply, leaving VCE below
+	// VCE(sat) + 0.5 V; the region is confirmed by ngspice in
+	// cmd/internal/checkcmd's saturation test.
 	b := dividerBuild()
 	b.Resistors[RC].Nominal_Ohm = 2.4e3
 	wc, err := EvalWorstCase(b, Limits{})
@@ -107,7 +110,7 @@ func TestWorstCaseSaturation(t *testing.T) {
 }
 
 func TestRSSLinearCase(t *testing.T) {
-	// Hand-derived: with only RC toleranced, no self-heating and no Early
+	// source: hand derivation from REFERENCE.md §5. With only RC toleranced, no self-heating and no Early
 	// effect, IC does not depend on RC in the active region and
 	// VCE = VCC − IC·RC − IE·RE (REFERENCE.md §5) is linear in RC with
 	// slope −IC. So the corners give VCE ± IC·RC·tol exactly, and the GUM

@@ -41,7 +41,7 @@ func icAt(t *testing.T, b Build, devRE, bf float64) float64 {
 }
 
 func TestYieldFractions(t *testing.T) {
-	// Hand-derived: when IC is a monotonic function of one random input,
+	// source: hand derivation (probability of a preimage): when IC is a monotonic function of one random input,
 	// the pass share is the probability of the preimage of the window. IC
 	// falls as RE rises (REFERENCE.md §9 [D]) and rises with beta.
 	reBuild := oneInputBuild(RE, false)
@@ -58,7 +58,8 @@ func TestYieldFractions(t *testing.T) {
 		{"RE uniform, upper quarter", reBuild, Window{ICMax_A: icAt(t, reBuild, 0.025, 200)}, YieldOptions{}, 0.25},
 		// RE normal σ = tol/3 truncated at ±tol (REFERENCE.md §9):
 		// P(Z ≥ 1.5 | |Z| ≤ 3) = (Φ(3) − Φ(1.5))/(2Φ(3) − 1)
-		// = (0.998650 − 0.933193)/0.997300 = 0.065634 (standard normal table).
+		// = (0.998650 − 0.933193)/0.997300 = 0.065634 (source: standard
+		// normal table values Φ(1.5), Φ(3)).
 		{"RE truncated normal, beyond 1.5 sigma", reBuild, Window{ICMax_A: icAt(t, reBuild, 0.025, 200)}, YieldOptions{Resistors: ResistorNormal}, 0.065634},
 		// hFE uniform on [100, 300]: P(β ≥ √(100·300)) = (300 − 173.205)/200.
 		{"hFE uniform above the geometric mean", betaBuild, Window{ICMin_A: icAt(t, betaBuild, 0, gm)}, YieldOptions{}, (300 - gm) / 200},

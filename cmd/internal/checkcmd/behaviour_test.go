@@ -184,9 +184,30 @@ func TestJSONFields(t *testing.T) {
 			t.Errorf("corners[0].%s missing", k)
 		}
 	}
+	if _, ok := doc["spice"]; ok {
+		t.Errorf("spice netlist in the JSON without --spice")
+	}
 	// beta is IC/IB at the nominal point.
 	n := doc["nominal"].(map[string]any)
 	if b := n["ic_a"].(float64) / n["ib_a"].(float64); math.Abs(b-n["beta"].(float64)) > 1e-9*b {
 		t.Errorf("nominal beta %v, want IC/IB = %g", n["beta"], b)
+	}
+}
+
+func TestSpiceWithJSON(t *testing.T) {
+	out, errOut, code := run(t, args("--json", "--spice", "--boards", "50"))
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		Spice string `json:"spice"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"q1 c b e qdut", ".model qdut npn", "r1 vcc b 10000", ".end"} {
+		if !strings.Contains(doc.Spice, want) {
+			t.Errorf("spice netlist lacks %q:\n%s", want, doc.Spice)
+		}
 	}
 }
