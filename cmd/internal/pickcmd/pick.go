@@ -38,9 +38,11 @@ band, the voltages to measure at bring-up and the Monte Carlo yield.
 
 Values take the letter-and-digit code or SI: 12V, 2mA, 4K7, 470R, 10k.
 
-Without --vce the target VCE is the one that gives the largest symmetrical
-swing: VCE - VCE(sat) = IC * r_ac, where r_ac = RC‖RL plus the unbypassed
-part of RE (RC alone with no --load), chosen per build.
+Without --vce the target VCE is, for each build, the one that gives the
+largest symmetrical swing on its load lines:
+  VCE = VCE(sat) + (VCC - VCE(sat)) * r_ac / (R_dc + r_ac)
+with R_dc = RC + RE and r_ac = RC‖RL, plus RE unless --bypass. With no
+--load and no --bypass that is the mid-point (VCC + VCE(sat)) / 2.
 
 Yield windows: a percentage is a band around the target (--ic-window 10%),
 a range is absolute (--vce-window 4V..8V). Without --vce, the VCE band is
