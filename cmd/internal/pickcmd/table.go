@@ -68,8 +68,8 @@ func writeCandidate(w io.Writer, v view, c picker.Candidate) {
 	tw.Flush()
 
 	n := c.Nominal
-	fmt.Fprintf(w, "    Q-point   IC %s  VCE %s  IB %s  (β %.0f, Tj %s °C)\n",
-		quantity(n.IC_A, "A"), quantity(n.VCE_V, "V"), quantity(n.IB_A, "A"), betaAt(n), trimNum(n.Tj_C))
+	fmt.Fprintf(w, "    Q-point   IC %s  VCE %s  IB %s  (β %.0f, Tj %s)\n",
+		quantity(n.IC_A, "A"), quantity(n.VCE_V, "V"), quantity(n.IB_A, "A"), betaAt(n), notation.FormatTemperature(n.Tj_C))
 	active := "every corner active"
 	if !c.Worst.AllActive {
 		active = "NOT every corner active"

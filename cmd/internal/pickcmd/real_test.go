@@ -1,0 +1,77 @@
+package pickcmd
+
+import (
+	"strings"
+	"testing"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/store"
+)
+
+// tinyWall is a small invented stock for runs through the real picker:
+// ten E12 values at 5 %, one NPN type with ten parts, one PNP type with two.
+func tinyWall() store.Batch {
+	var b store.Batch
+	for i, code := range []string{"100R", "470R", "1K0", "1K5", "2K2", "3K3", "4K7", "10K", "22K", "47K"} {
+		ohm := map[string]float64{"100R": 100, "470R": 470, "1K0": 1e3, "1K5": 1.5e3, "2K2": 2.2e3,
+			"3K3": 3.3e3, "4K7": 4.7e3, "10K": 10e3, "22K": 22e3, "47K": 47e3}[code]
+		b.Resistors = append(b.Resistors, store.Resistor{Ohm: ohm, Tol: 0.05, Rated_W: 0.25, Qty: 20,
+			Bin: "R" + string(rune('A'+i)), Tech: store.TechCarbonFilm})
+	}
+	b.Transistors = []store.Transistor{
+		{Label: "QN-104A", Polarity: "npn", HFEMin: 110, HFEMax: 330, HFEAt_A: 2e-3, VCESat_V: 0.2, VCEO_V: 40,
+			ICMax_A: 0.2, PD25_W: 0.625, ThetaJA_KPerW: 200, Qty: 10, Bin: "T1"},
+		{Label: "QP-104B", Polarity: "pnp", HFEMin: 100, HFEMax: 300, HFEAt_A: 2e-3, VCESat_V: 0.25, VCEO_V: 40,
+			ICMax_A: 0.2, PD25_W: 0.625, ThetaJA_KPerW: 200, Qty: 2, Bin: "T2"},
+	}
+	return b
+}
+
+// TestRealPick runs pick end to end (store, conversion, the real picker,
+// output) on tinyWall. The golden files pin the layout of real results;
+// when the picker's ranking changes they are reviewed and rewritten with
+// go test -update. The checks beside them hold whatever the ranking.
+func TestRealPick(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the real search")
+	}
+	path := newTestDB(t, tinyWall())
+	before := snapshot(t, path)
+	tests := []struct {
+		name   string
+		args   []string
+		code   int
+		stdout []string // must appear
+		stderr []string
+	}{
+		{"real_fits", []string{"--vcc", "12V", "--ic", "1mA", "--top", "2", "--boards", "4"}, 0,
+			[]string{"#1  QN-104A", "Pull list for #1, 4 boards", "measure   VB"}, nil},
+		{"real_json", []string{"--vcc", "12V", "--ic", "1mA", "--top", "1", "--json"}, 0,
+			[]string{`"fits": true`, `"label": "QN-104A"`}, nil},
+		{"real_short", []string{"--vcc", "12V", "--ic", "1mA", "--polarity", "pnp", "--boards", "5", "--top", "1"}, 1,
+			nil, []string{"nothing fits this request"}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			inv := runPick(t, path, nil, tt.args...)
+			if got := cmdutil.ExitCode(inv.err); got != tt.code {
+				t.Fatalf("exit %d (%v), want %d\n%s%s", got, inv.err, tt.code, inv.stdout, inv.stderr)
+			}
+			for _, w := range tt.stdout {
+				if !strings.Contains(inv.stdout, w) {
+					t.Errorf("stdout lacks %q", w)
+				}
+			}
+			for _, w := range tt.stderr {
+				if !strings.Contains(inv.stderr, w) {
+					t.Errorf("stderr lacks %q", w)
+				}
+			}
+			golden(t, tt.name+".stdout", inv.stdout)
+			golden(t, tt.name+".stderr", inv.stderr)
+		})
+	}
+	if snapshot(t, path) != before {
+		t.Error("pick changed the stock")
+	}
+}
