@@ -232,6 +232,9 @@ type device struct {
 	vt     float64 // VT (reverse junction, NR = 1)
 	invVAF float64 // 1/VAF, 0 when infinite
 	ileak  float64 // ICBO(T), collector to base
+	// critBE, critBC are SPICE's critical junction voltages
+	// VT·ln(VT/(√2·IS)), above which pnjlim limits a step.
+	critBE, critBC float64
 }
 
 // At returns the temperature-dependent parameters of m at tj_C exactly as
@@ -260,6 +263,8 @@ func (m Model) at(tj_C float64) device {
 	if m.VAF_V > 0 {
 		d.invVAF = 1 / m.VAF_V
 	}
+	d.critBE = d.nvt * math.Log(d.nvt/(math.Sqrt2*d.is))
+	d.critBC = d.vt * math.Log(d.vt/(math.Sqrt2*d.is))
 	if m.ICBO_A > 0 {
 		d.ileak = m.ICBO_A * math.Exp2((tj_C-m.TNOM_C)/10)
 	}

@@ -170,8 +170,7 @@ func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
 	leak := d.ileak
 	dd := *d
 	dd.ileak = leak * lambda
-	critBE := d.nvt * math.Log(d.nvt/(math.Sqrt2*d.is))
-	critBC := d.vt * math.Log(d.vt/(math.Sqrt2*d.is))
+	critBE, critBC := d.critBE, d.critBC
 	vbe, vbc := x[0], x[1]
 	for it := 0; it < newtonMaxIter; it++ {
 		ib, ic, gbb, gbc, gcb, gcc := dd.currents(vbe, vbc)
@@ -240,7 +239,7 @@ func pnjlim(vnew, vold, vt, vcrit float64) (float64, bool) {
 func (ck *circuit) initialGuess(d *device) [2]float64 {
 	a0, ab, ac := ck.b0-ck.e0, ck.bb-ck.eb, ck.bc-ck.ec
 	b0, bb, bc := ck.b0-ck.c0, ck.bb-ck.cb, ck.bc-ck.cc
-	crit := d.nvt * math.Log(d.nvt/(math.Sqrt2*d.is))
+	crit := d.critBE
 	den := ab + ac*d.bf
 	if !(den < 0) {
 		return [2]float64{crit, 0}

@@ -46,7 +46,7 @@ func SolveSelfHeated(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64
 	if err != nil || thetaJA_KPerW == 0 {
 		return op, err
 	}
-	th := &thermalProblem{s: s, m: m, ta: ambient_C, theta: thetaJA_KPerW, guess: guess}
+	th := &thermalProblem{s: s, m: m, ta: ambient_C, theta: thetaJA_KPerW, guess: guess, lastT: ambient_C}
 	return th.equilibrium(op, tjMax_C)
 }
 
@@ -61,17 +61,35 @@ type thermalProblem struct {
 	ta    float64
 	theta float64
 	guess [2]float64
+	lastT float64 // temperature guess was solved at
 	evals int
 }
 
 // g evaluates the heat balance at tj: its value and the operating point.
 func (th *thermalProblem) g(tj float64) (float64, OperatingPoint, error) {
 	th.evals++
+	th.extrapolate(tj)
 	op, err := solveChecked(th.s, th.m, tj, &th.guess)
+	th.lastT = tj
 	if err != nil {
 		return 0, op, fmt.Errorf("self-heated solve at Tj %.3g °C: %w", tj, err)
 	}
 	return th.ta + th.theta*heating(op) - tj, op, nil
+}
+
+// extrapolate moves the warm-start guess of each forward-biased junction
+// to temperature tj along its constant-current tempco,
+// dV/dT = (V − N·(XTI·VT + EG))/T (from the IS(T) law), saving Newton a
+// step.
+func (th *thermalProblem) extrapolate(tj float64) {
+	dT := tj - th.lastT
+	tk := th.lastT + kelvinOffset
+	vt := thermalVoltage(th.lastT)
+	for k, n := range [2]float64{th.m.NF, 1} {
+		if v := th.guess[k]; v > 0.3 {
+			th.guess[k] = v + dT*(v-n*(th.m.XTI*vt+th.m.EG_eV))/tk
+		}
+	}
 }
 
 func (th *thermalProblem) equilibrium(op0 OperatingPoint, tjMax float64) (OperatingPoint, error) {
