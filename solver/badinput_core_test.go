@@ -106,6 +106,7 @@ func TestModelForBadInput(t *testing.T) {
 		{"typical outside range", solver.Datasheet{Label: "Q7", Polarity: solver.NPN, HFEMin: 100, HFEMax: 300, HFETyp: 400}, 150, "hfe_typ"},
 		{"negative VAF", solver.Datasheet{Label: "Q7", Polarity: solver.NPN, HFEMin: 100, HFEMax: 300, VAF_V: -80}, 150, "vaf"},
 		{"VBE(on) 5 V", solver.Datasheet{Label: "Q7", Polarity: solver.NPN, HFEMin: 100, HFEMax: 300, VBEOn_V: 5}, 150, "vbe_on"},
+		{"VBE(on) 50 mV", solver.Datasheet{Label: "Q7", Polarity: solver.NPN, HFEMin: 100, HFEMax: 300, VBEOn_V: 0.05}, 150, "vbe_on"},
 		{"NaN ICBO", solver.Datasheet{Label: "Q7", Polarity: solver.NPN, HFEMin: 100, HFEMax: 300, ICBO_A: math.NaN()}, 150, "icbo"},
 		{"no polarity", solver.Datasheet{Label: "Q7", HFEMin: 100, HFEMax: 300}, 150, "polarity"},
 		{"zero beta", ok, 0, "bf"},

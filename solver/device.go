@@ -124,8 +124,8 @@ func (d Datasheet) Validate() error {
 	if d.HFETyp != 0 && (d.HFETyp < d.HFEMin || d.HFETyp > d.HFEMax) {
 		return &InputError{Field: "hfe_typ", Problem: fmt.Sprintf("%g is outside hfe_min..hfe_max %g..%g", d.HFETyp, d.HFEMin, d.HFEMax)}
 	}
-	if d.VBEOn_V > 1.5 {
-		return &InputError{Field: "vbe_on", Problem: fmt.Sprintf("%g V is not a silicon junction voltage (want 0..1.5 V)", d.VBEOn_V)}
+	if d.VBEOn_V != 0 && (d.VBEOn_V < 0.2 || d.VBEOn_V > 1.5) {
+		return &InputError{Field: "vbe_on", Problem: fmt.Sprintf("%g V is not a silicon junction voltage (want 0.2..1.5 V, 0 = %g V)", d.VBEOn_V, DefaultVBEOn_V)}
 	}
 	if d.TjMax_C != 0 && d.TjMax_C > MaxTj_C {
 		return &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C is above %g °C", d.TjMax_C, MaxTj_C)}

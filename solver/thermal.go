@@ -35,8 +35,8 @@ func SolveSelfHeated(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64
 	if !finite(thetaJA_KPerW) || thetaJA_KPerW < 0 {
 		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", &InputError{Field: "theta_ja", Problem: fmt.Sprintf("%g K/W: want a finite value >= 0", thetaJA_KPerW)})
 	}
-	if !finite(tjMax_C) || tjMax_C <= ambient_C || tjMax_C > MaxTj_C {
-		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C: want above the ambient %g °C and at most %g °C", tjMax_C, ambient_C, MaxTj_C)})
+	if !finite(tjMax_C) || tjMax_C < ambient_C || tjMax_C > MaxTj_C {
+		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C: want at least the ambient %g °C and at most %g °C", tjMax_C, ambient_C, MaxTj_C)})
 	}
 	if err := checkSolveInput(s, m, ambient_C); err != nil {
 		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", err)

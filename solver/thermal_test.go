@@ -134,6 +134,18 @@ func TestThermalRunaway(t *testing.T) {
 	}
 }
 
+// TestSelfHeatedNoHeadroom: with the ambient at Tj max any dissipation is
+// runaway, while θJA = 0 still solves.
+func TestSelfHeatedNoHeadroom(t *testing.T) {
+	c := selfHeatedStages[0]
+	if _, err := solver.SolveSelfHeated(c.s, c.m, 125, 200, 125); !errors.Is(err, solver.ErrThermalRunaway) {
+		t.Errorf("ambient = Tj max = 125 °C: err %v, want ErrThermalRunaway", err)
+	}
+	if op, err := solver.SolveSelfHeated(c.s, c.m, 125, 0, 125); err != nil || op.Tj_C != 125 {
+		t.Errorf("θJA = 0 at Tj max: Tj %g, err %v", op.Tj_C, err)
+	}
+}
+
 // TestSelfHeatedZeroTheta: θJA = 0 means the junction sits at the ambient.
 func TestSelfHeatedZeroTheta(t *testing.T) {
 	c := selfHeatedStages[0]
