@@ -67,10 +67,14 @@
 // the two unknowns (the divider by its Thevenin equivalent; every node
 // voltage is affine in IB and IC), and the two loop equations are solved by
 // Newton's method with SPICE's junction-voltage limiting (pnjlim, ngspice
-// devsup.c) from the forward-active hand solution; if that fails, a
-// source-stepping continuation ramps every source from zero. A Newton step
-// is accepted as converged when no limiting was applied and both junction
-// voltages moved by less than 1e-10 V. Results never contain NaN or Inf;
+// devsup.c) from the forward-active hand solution. Each Newton step is a
+// 2×2 linear solve done by hand (Cramer's rule, no allocation); gonum/mat
+// serves the independent nodal reference solver in the tests. If Newton
+// fails, a source-stepping continuation ramps every source from zero. A Newton step
+// is accepted as converged when no limiting was applied, both junction
+// voltages moved by less than 1e-10 V and both loop residuals are below
+// 1e-10 of the terms they sum (or the residual one last bit of the
+// junction voltages leaves). Results never contain NaN or Inf;
 // a failure is an error wrapping ErrNoConvergence.
 //
 // # Regions
