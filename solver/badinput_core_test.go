@@ -48,6 +48,7 @@ func TestSolveBadInput(t *testing.T) {
 		{"BF negative", good, withM(npn, func(m *solver.Model) { m.BF = -5 }), 25, "bf"},
 		{"BR zero", good, withM(npn, func(m *solver.Model) { m.BR = 0 }), 25, "br"},
 		{"VAF negative", good, withM(npn, func(m *solver.Model) { m.VAF_V = -50 }), 25, "vaf"},
+		{"VAF 0.5 V", good, withM(npn, func(m *solver.Model) { m.VAF_V = 0.5 }), 25, "vaf"},
 		{"ICBO negative", good, withM(npn, func(m *solver.Model) { m.ICBO_A = -1e-9 }), 25, "icbo"},
 		{"no polarity", good, withM(npn, func(m *solver.Model) { m.Polarity = 0 }), 25, "model polarity"},
 	} {

@@ -42,6 +42,10 @@ const (
 	DefaultTjMax_C = 150.0
 )
 
+// minVAF_V is the smallest Early voltage accepted: below a few volts the
+// Early factor 1 − VBC/VAF would change sign inside saturation.
+const minVAF_V = 2.0
+
 // Temperature limits accepted by the solver.
 const (
 	// MinTemp_C and MaxTemp_C bound every ambient temperature.
@@ -127,6 +131,9 @@ func (d Datasheet) Validate() error {
 	if d.VBEOn_V != 0 && (d.VBEOn_V < 0.2 || d.VBEOn_V > 1.5) {
 		return &InputError{Field: "vbe_on", Problem: fmt.Sprintf("%g V is not a silicon junction voltage (want 0.2..1.5 V, 0 = %g V)", d.VBEOn_V, DefaultVBEOn_V)}
 	}
+	if d.VAF_V > 0 && d.VAF_V < minVAF_V {
+		return &InputError{Field: "vaf", Problem: fmt.Sprintf("%g V is not an Early voltage (want >= %g V, 0 = infinite)", d.VAF_V, minVAF_V)}
+	}
 	if d.TjMax_C != 0 && d.TjMax_C > MaxTj_C {
 		return &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C is above %g °C", d.TjMax_C, MaxTj_C)}
 	}
@@ -205,6 +212,9 @@ func (m Model) Validate() error {
 	}
 	if m.VAF_V < 0 {
 		return &InputError{Field: "vaf", Problem: fmt.Sprintf("%g V is negative; give the magnitude (0 = infinite)", m.VAF_V)}
+	}
+	if m.VAF_V > 0 && m.VAF_V < minVAF_V {
+		return &InputError{Field: "vaf", Problem: fmt.Sprintf("%g V is not an Early voltage (want >= %g V, 0 = infinite)", m.VAF_V, minVAF_V)}
 	}
 	if m.ICBO_A < 0 {
 		return &InputError{Field: "icbo", Problem: fmt.Sprintf("%g A is negative; give the magnitude", m.ICBO_A)}
