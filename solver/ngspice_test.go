@@ -139,6 +139,7 @@ func TestSolveAgainstNgspice(t *testing.T) {
 		t.Fatal(err)
 	}
 	regions := map[solver.Region]int{}
+	covered := map[string]int{} // topology × polarity × temperature
 	compared := 0
 	worstV, worstIC := 0.0, 0.0 // largest node-voltage difference (V), relative IC difference
 	for i, r := range runs {
@@ -171,12 +172,22 @@ func TestSolveAgainstNgspice(t *testing.T) {
 			t.Errorf("%s: IC = %.7g A, ngspice %.7g A (%s)", r.name, icDev, icNg, r.op.Region)
 		}
 		regions[r.op.Region]++
+		covered[fmt.Sprintf("%v %v %g", r.s.Topology, r.m.Polarity, r.tj)]++
 		compared++
 	}
 	t.Logf("ngspice: %d circuits compared in %v (regions: %d active, %d saturation, %d cutoff); largest differences: node %.2g V, IC %.2g relative (outside cutoff)",
 		compared, time.Since(start).Round(time.Millisecond), regions[solver.Active], regions[solver.Saturation], regions[solver.Cutoff], worstV, worstIC)
 	if compared < 40 {
 		t.Fatalf("only %d circuits compared with ngspice, want at least 40", compared)
+	}
+	for _, top := range []solver.Topology{solver.Divider, solver.CollectorFeedback, solver.SplitSupply} {
+		for _, pol := range []solver.Polarity{solver.NPN, solver.PNP} {
+			for _, tj := range temps {
+				if covered[fmt.Sprintf("%v %v %g", top, pol, tj)] == 0 {
+					t.Errorf("no %v %v circuit compared at %g °C", top, pol, tj)
+				}
+			}
+		}
 	}
 	for _, rg := range []solver.Region{solver.Active, solver.Saturation, solver.Cutoff} {
 		if regions[rg] == 0 {
