@@ -9,15 +9,14 @@ import (
 const (
 	newtonMaxIter = 150
 	// newtonTol_V is the junction-voltage step below which an unlimited
-	// Newton step counts as converged; the currents are then exact to
-	// about newtonTol_V/VT ≈ 4e-9 relative (quadratic convergence makes
-	// the real error far smaller).
+	// Newton step counts as converged; the junction currents are then
+	// consistent to about newtonTol_V/VT ≈ 4e-9 relative (quadratic
+	// convergence makes the real error far smaller).
 	newtonTol_V = 1e-10
 	// newtonResRel bounds the loop-equation residual, relative to the
-	// size of the terms summed, at the point a converged step starts from:
-	// with large
-	// loop resistances a tiny step can still leave a visible residual, and
-	// one more step removes it quadratically.
+	// size of the terms summed, at the point a converged step starts
+	// from: with large loop resistances a tiny step can still leave a
+	// visible residual, and one more step removes it quadratically.
 	newtonResRel = 1e-10
 	// ulpFloor is a few float64 ulps (relative): the residual a junction
 	// voltage rounded to its last bit leaves.
