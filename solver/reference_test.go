@@ -53,3 +53,27 @@ func TestReferenceNgspiceResults(t *testing.T) {
 		}
 	}
 }
+
+// TestReferencePNPDivider: the PNP divider of Malvino & Bates, Electronic
+// Principles, 7th ed., Example 8-7 (10 V supply, R1 10 k, R2 2.2 k on the
+// supply side, R_C 3.6 k, R_E 1 k) run in ngspice with IS = 1e-14, BF = 100
+// at 27 °C (source: ngspice run, REFERENCE.md §10 row 5 [C]): V_C 4.011,
+// V_B 8.217, V_E 8.875 V in the book's frame (printed to 4 digits, so
+// within 1 mV). Our frame has the book's +10 V rail at ground.
+func TestReferencePNPDivider(t *testing.T) {
+	s := stage(solver.Divider, -10, 0, R{solver.R1: 10e3, solver.R2: 2.2e3, solver.RC: 3.6e3, solver.RE: 1e3})
+	m := npnModel(1e-14, 100, 0, 0)
+	m.Polarity, m.TNOM_C, m.XTB = solver.PNP, 27, 0
+	op, err := solver.Solve(s, m, 27)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, w := range []struct {
+		name      string
+		got, want float64
+	}{{"VC", op.VC_V + 10, 4.011}, {"VB", op.VB_V + 10, 8.217}, {"VE", op.VE_V + 10, 8.875}} {
+		if math.Abs(w.got-w.want) > 1e-3 {
+			t.Errorf("%s = %.4f V (book frame), ngspice %.3f V", w.name, w.got, w.want)
+		}
+	}
+}
