@@ -128,3 +128,36 @@ func TestStabilityNumericAgreesWithClosedForm(t *testing.T) {
 		}
 	}
 }
+
+// TestBetaFiniteChange: the finite-change form of the beta stability
+// factor, exact when ICBO = 0 (REFERENCE.md §5 [D]):
+// ΔIC/IC1 = Δβ·S_I(β2)/(β1(1+β2)). For Hambley's Example 12.7 circuit
+// (β 100 → 300) that is the 2.85 % the printed answers show (4.12 → 4.24
+// mA, source: Hambley, Electrical Engineering: Principles & Applications,
+// Example 12.7).
+func TestBetaFiniteChange(t *testing.T) {
+	for _, c := range stabilityStages {
+		for _, pair := range [][2]float64{{100, 300}, {50, 150}, {200, 220}} {
+			b1, b2 := pair[0], pair[1]
+			op1, err := solver.SolveFixedVBE(c.s, solver.NPN, b1, 0.7, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			op2, err := solver.SolveFixedVBE(c.s, solver.NPN, b2, 0.7, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			s2, err := solver.StabilityClosedForm(c.s, solver.NPN, b2, 0.7, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			want := (b2 - b1) * s2.SI / (b1 * (1 + b2))
+			if got := op2.IC_A/op1.IC_A - 1; math.Abs(got-want) > 1e-9 {
+				t.Errorf("%s β %g→%g: ΔIC/IC = %.8f, finite-change form %.8f", c.name, b1, b2, got, want)
+			}
+			if c.name == stabilityStages[0].name && b1 == 100 && b2 == 300 && math.Abs(want-(4.24/4.12-1)) > 0.003 {
+				t.Errorf("Hambley Ex. 12.7: finite-change form %.4f, printed answers give %.4f", want, 4.24/4.12-1)
+			}
+		}
+	}
+}

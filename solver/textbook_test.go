@@ -116,6 +116,13 @@ var textbookExamples = []struct {
 		want: []printed{{qVB, 1.8, 1.8033}, {qIE, 1.1e-3, 1.1033e-3}, {qVC, 6.04, 6.028}, {qVCE, 4.92, 4.925}},
 	},
 	{
+		source: "source: Malvino & Bates, Electronic Principles, 7th ed., Example 12-1, p. 384 (base current neglected: beta -> infinity)",
+		s:      stage(solver.Divider, 30, 0, R{solver.R1: 490, solver.R2: 68, solver.RC: 120, solver.RE: 20}),
+		pol:    solver.NPN, beta: 1e9,
+		// Exact [D]: (30·68/558 − 0.7)/20 Ω = 147.8 mA (REFERENCE.md §10 row 6).
+		want: []printed{{qIC, 147e-3, 147.8e-3}},
+	},
+	{
 		source: "source: Malvino & Bates, Electronic Principles, 7th ed., Example 8-7, p. 278 (PNP from a +10 V supply; base current neglected)",
 		// The book's +10 V rail is our ground; its ground is our -10 V rail.
 		s:   stage(solver.Divider, -10, 0, R{solver.R1: 10e3, solver.R2: 2.2e3, solver.RC: 3.6e3, solver.RE: 1e3}),
