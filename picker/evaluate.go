@@ -75,7 +75,9 @@ type evaluator struct {
 func (e *evaluator) ohms(lv [nPos]int) [nPos]float64 {
 	var r [nPos]float64
 	for i := range nPos {
-		r[i] = e.vs.levels[lv[i]].ohm
+		if lv[i] >= 0 {
+			r[i] = e.vs.levels[lv[i]].ohm
+		}
 	}
 	return r
 }

@@ -1,7 +1,11 @@
 package picker
 
 import (
+	"cmp"
 	"math"
+	"slices"
+
+	"biasbin/solver"
 )
 
 // plan is the search over one topology's positions. Each topology
@@ -55,8 +59,14 @@ func (d *dividerPlan) exhaustive(e *evaluator, p *pool, cnt *counters) {
 // dividerPlan searches R1, R2, RC, RE of a voltage-divider stage.
 type dividerPlan struct {
 	e *evaluator
-	// cache of solved level tuples of the current device
+	// cache of solved level tuples of the current device and RE
 	cache map[[nPos]int]*tuple
+	// best passing seed score and its RE level per device: the search
+	// visits devices from the best seed and each device's RE levels
+	// outward from its best seed (any order is sound; this one tightens
+	// the threshold early).
+	seedBest []float64
+	seedRE   []int
 }
 
 // tuple returns the (cached) solved level tuple of device dev.
@@ -93,11 +103,14 @@ func (d *dividerPlan) seed(e *evaluator, p *pool, cnt *counters) {
 	if n == 0 {
 		return
 	}
+	d.seedBest = make([]float64, len(e.devs))
+	d.seedRE = make([]int, len(e.devs))
 	for di := range e.devs {
 		d.cache = map[[nPos]int]*tuple{}
 		dv := &e.devs[di]
 		_, vceHi := e.targetBand(dv)
-		for _, veShare := range []float64{0.1, 0.2, 0.05} {
+		d.seedBest[di] = math.Inf(1)
+		for _, veShare := range []float64{0.1, 0.2, 0.3, 0.4, 0.05} {
 			for _, stiff := range []float64{0.1, 0.03, 0.3} {
 				ve := e.s.vcc * veShare
 				re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
@@ -115,7 +128,12 @@ func (d *dividerPlan) seed(e *evaluator, p *pool, cnt *counters) {
 				})
 				for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
 					for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
-						e.scoreVariants(d.tuple(di, [nPos]int{a, r2, c, re}, cnt), p.threshold, p.add, cnt)
+						e.scoreVariants(d.tuple(di, [nPos]int{a, r2, c, re}, cnt), p.threshold, func(ev *evaluated) {
+							if len(ev.failing) == 0 && ev.score < d.seedBest[di] {
+								d.seedBest[di], d.seedRE[di] = ev.score, re
+							}
+							p.add(ev)
+						}, cnt)
 					}
 				}
 			}
@@ -152,6 +170,55 @@ func (t *tuple) vceAtMost(v float64) bool { return !t.ok || t.op.VCE_V <= v }
 // (see doc.go, bound B): 0.9.
 const betaCutSafety = 0.9
 
+// bounds are the threshold-derived limits in force at one point of the
+// search: any build that can still enter the pool has its nominal IC in
+// [icLo, icHi] and its nominal VCE within delta·VCC of its target.
+type bounds struct {
+	thr, delta, icLo, icHi float64
+	finite                 bool
+}
+
+// boundsNow derives the limits from the pool's current threshold.
+func (e *evaluator) boundsNow(p *pool) bounds {
+	b := bounds{thr: p.threshold(), delta: math.Inf(1)}
+	if e.s.w.QPoint > 0 && !math.IsInf(b.thr, 1) {
+		b.delta = b.thr / e.s.w.QPoint
+		b.finite = true
+	}
+	b.icLo = e.s.icT * math.Max(0, 1-b.delta)
+	b.icHi = e.s.icT * (1 + b.delta)
+	return b
+}
+
+// rcBand returns the RC levels whose builds can have a nominal VCE within
+// delta·VCC of the target band (bound RC, doc.go): with IC in
+// [icLo, icHi] and IE in [IC, kE·IC], VCE = VCC − IC·RC − IE·RE lies in
+// [VCC − icHi(RC + kE·RE), VCC − icLo(RC + RE)].
+func (e *evaluator) rcBand(b bounds, reOhm, kE, vceLo, vceHi float64) (lo, hi int) {
+	n := len(e.vs.levels)
+	if !b.finite {
+		return 0, n - 1
+	}
+	vcc := e.s.vcc
+	lo = e.vs.levelAtOrAbove((vcc-vceHi-b.delta*vcc)/b.icHi - kE*reOhm)
+	hi = n - 1
+	if b.icLo > 0 {
+		rcMax := (vcc-vceLo+b.delta*vcc)/b.icLo - reOhm
+		if rcMax < 0 {
+			return 1, 0
+		}
+		hi = min(n-1, e.vs.levelAtOrAbove(rcMax*(1+1e-12))-1)
+		if hi+1 < n && sameOhm(e.vs.levels[hi+1].ohm, rcMax) {
+			hi++
+		}
+	}
+	return lo, hi
+}
+
+// zeroRC is the level index the cache uses for RC = 0 (the probe of the
+// IC upper envelope).
+const zeroRC = -1
+
 // search is the branch and bound over (device, RE, R2, R1, RC); doc.go
 // states each bound and why it is sound.
 func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
@@ -162,132 +229,169 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 	s := &e.s
 	w := s.w
 	total := int64(len(e.devs) * n)
-	for di := range e.devs {
-		d.cache = map[[nPos]int]*tuple{}
+	order := make([]int, len(e.devs))
+	for i := range order {
+		order[i] = i
+	}
+	if len(d.seedBest) == len(e.devs) {
+		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(d.seedBest[a], d.seedBest[b]) })
+	}
+	done := int64(0)
+	for _, di := range order {
 		dv := &e.devs[di]
 		vceLo, vceHi := e.targetBand(dv)
 		kE := 1 + 2/dv.hfeMin
 		rcMinOhm := e.vs.levels[0].ohm
-		for re := range n {
-			e.progress(int64(di*n+re), total)
-			thr := p.threshold()
-			delta := math.Inf(1)
-			if w.QPoint > 0 {
-				delta = thr / w.QPoint
-			}
+		start := 0
+		if len(d.seedRE) == len(e.devs) {
+			start = d.seedRE[di]
+		}
+		// visit handles one RE level; it returns false when every larger
+		// RE is out too (the bounds U-RE and Q-RE rise with RE).
+		visit := func(re int) bool {
+			done++
+			e.progress(done, total)
+			bd := e.boundsNow(p)
 			reOhm := e.vs.levels[re].ohm
-			icLo := s.icT * math.Max(0, 1-delta)
-			icHi := s.icT * (1 + delta)
-			if !math.IsInf(delta, 1) {
-				// Bound U-RE: P(RE) ≥ IC²·RE ≥ icLo²·RE.
-				if w.Utilization*icLo*icLo*reOhm/e.vs.allowHotMax_W > thr {
-					break
+			if bd.finite {
+				// Bound U-RE: P(RE) = IE²·RE ≥ icLo²·RE.
+				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr {
+					return false
 				}
-				if w.Utilization*icLo*icLo*reOhm/e.vs.levels[re].allowHot_W > thr {
-					continue
+				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W > bd.thr {
+					return true
 				}
 				// Bound Q-RE: VCE ≤ VCC − IC·(RC + RE) ≤ VCC − icLo·(RCmin + RE).
-				if w.QPoint*(vceLo-(s.vcc-icLo*(rcMinOhm+reOhm)))/s.vcc > thr {
-					break
+				if w.QPoint*(vceLo-(s.vcc-bd.icLo*(rcMinOhm+reOhm)))/s.vcc > bd.thr {
+					return false
 				}
 			}
-			// Bound RC band: VCE within delta·VCC of the target band needs
-			// VCC − icHi(RC + kE·RE) ≤ vceHi + δ·VCC and
-			// VCC − icLo(RC + RE) ≥ vceLo − δ·VCC.
-			rcLo, rcHi := 0, n-1
-			if !math.IsInf(delta, 1) {
-				rcMin := (s.vcc-vceHi-delta*s.vcc)/icHi - kE*reOhm
-				rcLo = e.vs.levelAtOrAbove(rcMin)
-				if icLo > 0 {
-					rcMax := (s.vcc-vceLo+delta*s.vcc)/icLo - reOhm
-					rcHi = e.vs.levelAtOrAbove(rcMax*(1+1e-12)+1e-300) - 1
-					if rcHi >= n {
-						rcHi = n - 1
-					}
-				}
-			}
-			if rcLo > rcHi {
-				continue
-			}
-
-			d.cache = map[[nPos]int]*tuple{}
-			for r2 := range n {
-				thr = p.threshold()
-				if !math.IsInf(thr, 1) && w.QPoint > 0 {
-					delta = thr / w.QPoint
-					icLo = s.icT * math.Max(0, 1-delta)
-					icHi = s.icT * (1 + delta)
-				}
-				// Bound U-R2 (divider power, see dividerPowerBound).
-				if !math.IsInf(thr, 1) {
-					vbeLo, vbeHi := e.vbeBounds(dv, icLo, icHi)
-					vbLo := vbeLo + icLo*reOhm
-					vbHi := vbeHi + icHi*kE*reOhm
-					if w.Utilization*e.dividerPowerBound(r2, vbLo, vbHi) > thr {
-						continue
-					}
-				}
-				// R1 range from IC monotonicity (lemma L1).
-				r1Lo, r1Hi := 0, n-1
-				if !math.IsInf(thr, 1) {
-					r1Hi = firstLevel(n, func(i int) bool {
-						t := d.tuple(di, [nPos]int{i, r2, rcLo, re}, cnt)
-						return t.ok && t.op.IC_A < icLo
-					}) - 1
-					r1Lo = firstLevel(n, func(i int) bool {
-						t := d.tuple(di, [nPos]int{i, r2, rcHi, re}, cnt)
-						return !t.ok || t.op.IC_A <= icHi
-					})
-
-				}
-				for r1 := r1Lo; r1 <= r1Hi; r1++ {
-					// RC: VCE falls with RC (lemma L2). Split at the first RC
-					// whose VCE is at or below the top of the target band.
-					split := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool {
-						return d.tuple(di, [nPos]int{r1, r2, rcLo + i, re}, cnt).vceAtMost(vceHi)
-					})
-					for rc := split - 1; rc >= rcLo; rc-- {
-						t := d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt)
-						if t.ok && w.QPoint*(t.op.VCE_V-vceHi)/s.vcc > p.threshold() {
-							break
-						}
-						e.scoreVariants(t, p.threshold, p.add, cnt)
-					}
-					for rc := split; rc <= rcHi; rc++ {
-						t := d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt)
-						if t.ok && w.QPoint*(vceLo-t.op.VCE_V)/s.vcc > p.threshold() {
-							break
-						}
-						e.scoreVariants(t, p.threshold, p.add, cnt)
-					}
-				}
-				// Bound B (lemma L3): the beta term grows with R2 and R1
-				// along the staircase; stop when even the probe at the
-				// smallest admissible R1 is over the threshold.
-				thr = p.threshold()
-				if !math.IsInf(thr, 1) && w.Beta > 0 && r1Lo < n && r1Lo <= r1Hi {
-					bmin := math.Inf(1)
-					for _, rc := range []int{rcLo, rcHi} {
-						t := d.tuple(di, [nPos]int{r1Lo, r2, rc, re}, cnt)
-						if !t.ok {
-							bmin = 0
-							continue
-						}
-						e.betaSpread(t)
-						if !t.betaOK {
-							bmin = 0
-							continue
-						}
-						bmin = math.Min(bmin, math.Abs(t.beta))
-					}
-					if w.Beta*betaCutSafety*bmin > thr {
-						for r := r2 + 1; r < n; r++ {
-						}
-						break
-					}
-				}
-			}
+			d.searchRE(e, p, cnt, di, re, kE, vceLo, vceHi)
+			return true
+		}
+		// RE levels from the best seed upward, then downward below it.
+		for re := start; re < n && visit(re); re++ {
+		}
+		for re := start - 1; re >= 0; re-- {
+			visit(re)
 		}
 	}
 	e.progress(total, total)
+}
+
+// searchRE covers every build of device di with RE level re.
+func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int, kE, vceLo, vceHi float64) {
+	n := len(e.vs.levels)
+	w := e.s.w
+	dv := &e.devs[di]
+	reOhm := e.vs.levels[re].ohm
+	var bd bounds
+	d.cache = map[[nPos]int]*tuple{}
+	guessLo, guessHi := n/2, n/2
+	for r2 := range n {
+		bd = e.boundsNow(p)
+		rcLo, rcHi := e.rcBand(bd, reOhm, kE, vceLo, vceHi)
+		if rcLo > rcHi {
+			break // the band only narrows as the threshold falls
+		}
+		r1Lo, r1Hi := 0, n-1
+		if bd.finite {
+			// Bound U-R2 (divider power, see dividerPowerBound).
+			vbeLo, vbeHi := e.vbeBounds(dv, bd.icLo, bd.icHi)
+			if w.Utilization*e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbeHi+bd.icHi*kE*reOhm) > bd.thr {
+				continue
+			}
+			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, RC = 0),
+			// which falls with R1 (lemmas L1, L2).
+			r1Hi = firstFrom(n, guessHi, func(i int) bool {
+				t := d.tuple(di, [nPos]int{i, r2, zeroRC, re}, cnt)
+				return t.ok && t.op.IC_A < bd.icLo
+			}) - 1
+			// Bound IC-R1 low side: the lowest IC any build at R1
+			// that is active at its nominal point can have.
+			r1Lo = firstFrom(n, guessLo, func(i int) bool {
+				ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, cnt)
+				return any && ic <= bd.icHi
+			})
+			guessLo, guessHi = r1Lo, r1Hi+1
+		}
+		for r1 := r1Lo; r1 <= r1Hi; r1++ {
+			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi)
+		}
+		// Bound B (lemma L3): the beta term grows with R1 and R2
+		// along the staircase; every admissible build at a larger
+		// R2 has R1 ≥ r1Lo. Stop when the probe at (r1Lo, R2) is
+		// over the threshold at both ends of the RC band.
+		bd = e.boundsNow(p)
+		if bd.finite && w.Beta > 0 && r1Lo < n {
+			bmin := math.Inf(1)
+			for _, rc := range []int{rcLo, rcHi} {
+				t := d.tuple(di, [nPos]int{r1Lo, r2, rc, re}, cnt)
+				if t.ok {
+					e.betaSpread(t)
+				}
+				if !t.ok || !t.betaOK {
+					bmin = 0
+					break
+				}
+				bmin = math.Min(bmin, math.Abs(t.beta))
+			}
+			if w.Beta*betaCutSafety*bmin > bd.thr {
+				break
+			}
+		}
+	}
+}
+
+// icFloor is the lower envelope of the nominal IC over the builds at
+// (R1, R2, RE) with RC in [rcLo, rcHi] that are active at their nominal
+// point: IC falls with RC (lemma L2) and saturation only deepens with RC,
+// so it is IC at the largest band RC whose nominal point is active. any
+// is false when no band RC is active (every such build fails a hard
+// limit).
+func (d *dividerPlan) icFloor(di, r1, r2, re, rcLo, rcHi int, cnt *counters) (ic float64, any bool) {
+	probe := func(rc int) *tuple { return d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt) }
+	top := probe(rcHi)
+	if top.ok && top.op.Region != solver.Saturation {
+		return top.op.IC_A, true
+	}
+	// first band RC that saturates; the one below it is the last active
+	k := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool {
+		t := probe(rcLo + i)
+		return t.ok && t.op.Region == solver.Saturation
+	})
+	if k == rcLo {
+		return 0, false
+	}
+	t := probe(k - 1)
+	if !t.ok {
+		return 0, true
+	}
+	return t.op.IC_A, true
+}
+
+// scanRC scores the RC levels of one (R1, R2, RE) outward from the VCE
+// target: VCE falls with RC (lemma L2), so below the first RC whose VCE is
+// at or under the top of the target band the VCE term only grows going
+// down, and from it upward only grows once VCE is under the bottom of the
+// band. IC falls with RC too, so going down an IC already over the target
+// only moves further off, and going up one already under it likewise.
+func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, re, rcLo, rcHi int, vceLo, vceHi float64) {
+	w, vcc := e.s.w, e.s.vcc
+	tup := func(rc int) *tuple { return d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt) }
+	split := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool { return tup(rcLo + i).vceAtMost(vceHi) })
+	for rc := split - 1; rc >= rcLo; rc-- {
+		t := tup(rc)
+		if t.ok && w.QPoint*((t.op.VCE_V-vceHi)/vcc+math.Max(0, t.op.IC_A-e.s.icT)/e.s.icT) > p.threshold() {
+			break
+		}
+		e.scoreVariants(t, p.threshold, p.add, cnt)
+	}
+	for rc := split; rc <= rcHi; rc++ {
+		t := tup(rc)
+		if t.ok && w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, e.s.icT-t.op.IC_A)/e.s.icT) > p.threshold() {
+			break
+		}
+		e.scoreVariants(t, p.threshold, p.add, cnt)
+	}
 }
