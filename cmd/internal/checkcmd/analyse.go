@@ -95,6 +95,23 @@ func (r *result) cautions() []string {
 		out = append(out, fmt.Sprintf("the supply reaches %s, above %s: touching the circuit can hurt",
 			notation.FormatVoltage(s), notation.FormatVoltage(hotSupply_V)))
 	}
+	dev := r.in.b.Device
+	vceMax, icMax := r.op.VCE_V, r.op.IC_A
+	if r.wc != nil {
+		vceMax, icMax = r.wc.VCEMax_V, r.wc.ICMax_A
+	}
+	switch {
+	case dev.VCEO_V > 0 && vceMax > dev.VCEO_V:
+		out = append(out, fmt.Sprintf("VCE reaches %s, above the transistor's VCEO %s: it can break down",
+			notation.FormatVoltage(vceMax), notation.FormatVoltage(dev.VCEO_V)))
+	case dev.VCEO_V > 0 && r.supplySpan() > dev.VCEO_V:
+		out = append(out, fmt.Sprintf("the supply reaches %s, above the transistor's VCEO %s: it can break down when the stage cuts off",
+			notation.FormatVoltage(r.supplySpan()), notation.FormatVoltage(dev.VCEO_V)))
+	}
+	if dev.ICMax_A > 0 && icMax > dev.ICMax_A {
+		out = append(out, fmt.Sprintf("IC reaches %s, above the transistor's IC max %s",
+			notation.FormatCurrent(icMax), notation.FormatCurrent(dev.ICMax_A)))
+	}
 	d := r.worstDiss()
 	for _, p := range r.parts(d) {
 		if p.load.Rated && p.load.Utilization > nearRating {

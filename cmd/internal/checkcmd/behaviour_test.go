@@ -107,6 +107,8 @@ func TestBehaviour(t *testing.T) {
 			"--pd", "625mW", "--boards", "500"}, 0, false, "follow local codes and licensed practice"},
 		{"runaway_text", []string{"--vcc", "60V", "--r1", "47K", "--r2", "5K6", "--rc", "1K", "--re", "470R", "--hfe", "100..300",
 			"--pd", "625mW", "--boards", "500"}, 1, false, "thermal runaway"},
+		{"vceo_text", []string{"--vcc", "40V", "--r1", "470K", "--r2", "47K", "--rc", "22K", "--re", "4K7", "--hfe", "100..300",
+			"--vceo", "30V", "--ic-max", "1mA", "--boards", "200"}, 0, false, "above the transistor's VCEO 30 V"},
 		{"bad_flag", args("--r1", "4K7X9"), 2, false, "--r1"},
 	}
 	for _, tt := range tests {
