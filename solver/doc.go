@@ -124,4 +124,30 @@
 // card (TNOM stated), `.options temp` at the junction temperature and
 // Newton tolerances tight enough for a reference. The package
 // solver/spicecheck runs such decks through ngspice in tests.
+//
+// # Analyses of a build
+//
+// A Build is a stage with its parts' tolerances, TCRs and ratings, the
+// supply tolerance and the ambient range. Build.Resolve gives the stage at
+// one set of deviations: R = R_marked·(1 + dev)·(1 + TCR·(T − 25 °C)), the
+// resistors taken to sit at the ambient. Nominal solves the marked values
+// at NominalAmbient_C with the typical hFE (the datasheet typical, else
+// √(min·max)), self-heated through ThermalResistance (θJA, else the θJA
+// implied by PD25 and Tj max, else none).
+//
+// EvalWorstCase solves every corner of {hFE min, max} × {each resistor
+// ±tol} × {supply ±tol} × {ambient min, max}, self-heated, with BF = the
+// hFE bound itself (hFE is specified at 25 °C = TNOM); it reports the IC
+// and VCE extremes with their corners, the test-point bands, the worst
+// dissipation, whether every corner is active with VCE ≥ VCE(sat) + margin,
+// and a linearised root-sum-square figure (GUM, JCGM 100:2008 §5.1.2, with
+// uniform inputs u = a/√3, GUM §4.3.7; from memory for the clauses).
+// EvalYield is a seeded Monte Carlo (gonum/stat/distuv; resistors uniform
+// on ±tol or truncated normal σ = tol/3, hFE uniform or log-uniform, supply
+// and ambient uniform) with the binomial standard error √(p(1−p)/n).
+// EvalDissipation checks each resistor against its rating derated linearly
+// from the knee (70 °C) to zero at its maximum temperature (155 °C), IEC
+// 60115-1 style, and the transistor against (Tj max − Ta)/θJA, each times
+// its design margin (Limits). EvalSwing draws the DC and AC load lines,
+// the maximum symmetrical swing and the Q-point that maximises it.
 package solver
