@@ -51,7 +51,12 @@ func (db *DB) Import(ctx context.Context, b Batch, opt ImportOptions) (ImportRes
 		ident, bin string
 	}
 	first := map[key]int{}
-	dup := func(k key, i int) {
+	// check records item i's problems and, with Replace, a repeated line.
+	check := func(k key, i int, ps []Problem) {
+		for _, p := range ps {
+			p.Index = i
+			problems = append(problems, p)
+		}
 		if j, ok := first[k]; ok && opt.Replace {
 			field := "value"
 			if k.kind == KindTransistor {
@@ -65,19 +70,11 @@ func (db *DB) Import(ctx context.Context, b Batch, opt ImportOptions) (ImportRes
 	}
 	for i, r := range b.Resistors {
 		rs[i] = r.WithDefaults()
-		for _, p := range rs[i].Validate() {
-			p.Index = i
-			problems = append(problems, p)
-		}
-		dup(key{KindResistor, rs[i].ident(), rs[i].Bin}, i)
+		check(key{KindResistor, rs[i].ident(), rs[i].Bin}, i, rs[i].Validate())
 	}
 	for i, t := range b.Transistors {
 		ts[i] = t.WithDefaults()
-		for _, p := range ts[i].Validate() {
-			p.Index = i
-			problems = append(problems, p)
-		}
-		dup(key{KindTransistor, ts[i].ident(), ts[i].Bin}, i)
+		check(key{KindTransistor, ts[i].ident(), ts[i].Bin}, i, ts[i].Validate())
 	}
 	if len(problems) > 0 {
 		return ImportResult{}, &InvalidError{Problems: problems}
