@@ -219,10 +219,11 @@ func (e *evaluator) newTuple(dev int, lv [nPos]int) *tuple {
 
 // betaSpread solves the tuple at hFE min and max (self-heated, nominal
 // ambient): (IC(hFE max) − IC(hFE min))/IC(nominal).
-func (e *evaluator) betaSpread(t *tuple) {
+func (e *evaluator) betaSpread(t *tuple, cnt *counters) {
 	if t.betaDone {
 		return
 	}
+	cnt.solves += 2
 	t.betaDone = true
 	d := &e.devs[t.c.dev]
 	lo, err := e.solveAt(d, d.lo, t.r)
@@ -270,7 +271,7 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 					if partial > thr() {
 						continue
 					}
-					e.betaSpread(t)
+					e.betaSpread(t, cnt)
 					if !t.betaOK {
 						continue
 					}

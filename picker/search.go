@@ -295,10 +295,12 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			break // the band only narrows as the threshold falls
 		}
 		r1Lo, r1Hi := 0, n-1
+		uDiv := 0.0
 		if bd.finite {
 			// Bound U-R2 (divider power, see dividerPowerBound).
 			vbeLo, vbeHi := e.vbeBounds(dv, bd.icLo, bd.icHi)
-			if w.Utilization*e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbeHi+bd.icHi*kE*reOhm) > bd.thr {
+			uDiv = e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbeHi+bd.icHi*kE*reOhm)
+			if w.Utilization*uDiv > bd.thr {
 				continue
 			}
 			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, RC = 0),
@@ -315,32 +317,44 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			})
 			guessLo, guessHi = r1Lo, r1Hi+1
 		}
+		// Bound B (lemma L3): the beta term grows with R1 and R2 along
+		// the staircase, and every admissible build at this or a larger
+		// R2 has R1 ≥ r1Lo, so the smaller probe of (r1Lo, R2) at the two
+		// ends of the RC band bounds the beta term of all of them. Every
+		// build at this RE also carries RE, so its utilization is at least
+		// RE's (icLo²·RE over RE's best allowance); at this R2 it is at
+		// least the divider bound too.
+		if bd.finite && w.Beta > 0 && r1Lo < n {
+			bmin := d.betaProbe(e, di, r1Lo, r2, re, rcLo, rcHi, cnt)
+			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+			if w.Beta*betaCutSafety*bmin+w.Utilization*uRE > bd.thr {
+				break
+			}
+			if w.Beta*betaCutSafety*bmin+w.Utilization*math.Max(uRE, uDiv) > bd.thr {
+				continue
+			}
+		}
 		for r1 := r1Lo; r1 <= r1Hi; r1++ {
 			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi)
 		}
-		// Bound B (lemma L3): the beta term grows with R1 and R2
-		// along the staircase; every admissible build at a larger
-		// R2 has R1 ≥ r1Lo. Stop when the probe at (r1Lo, R2) is
-		// over the threshold at both ends of the RC band.
-		bd = e.boundsNow(p)
-		if bd.finite && w.Beta > 0 && r1Lo < n {
-			bmin := math.Inf(1)
-			for _, rc := range []int{rcLo, rcHi} {
-				t := d.tuple(di, [nPos]int{r1Lo, r2, rc, re}, cnt)
-				if t.ok {
-					e.betaSpread(t)
-				}
-				if !t.ok || !t.betaOK {
-					bmin = 0
-					break
-				}
-				bmin = math.Min(bmin, math.Abs(t.beta))
-			}
-			if w.Beta*betaCutSafety*bmin > bd.thr {
-				break
-			}
-		}
 	}
+}
+
+// betaProbe is the smaller beta term of (r1, r2, re) at RC levels rcLo
+// and rcHi; 0 when either cannot be solved (then it bounds nothing).
+func (d *dividerPlan) betaProbe(e *evaluator, di, r1, r2, re, rcLo, rcHi int, cnt *counters) float64 {
+	bmin := math.Inf(1)
+	for _, rc := range []int{rcLo, rcHi} {
+		t := d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt)
+		if t.ok {
+			e.betaSpread(t, cnt)
+		}
+		if !t.ok || !t.betaOK {
+			return 0
+		}
+		bmin = math.Min(bmin, math.Abs(t.beta))
+	}
+	return bmin
 }
 
 // icFloor is the lower envelope of the nominal IC over the builds at
