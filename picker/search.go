@@ -288,6 +288,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	var bd bounds
 	d.cache = map[[nPos]int]*tuple{}
 	guessLo, guessHi := n/2, n/2
+	lastLo, haveLo := 0, false
 	for r2 := range n {
 		bd = e.boundsNow(p)
 		rcLo, rcHi := e.rcBand(bd, reOhm, kE, vceLo, vceHi)
@@ -303,6 +304,35 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			if w.Utilization*uDiv > bd.thr {
 				continue
 			}
+		}
+		// Bound B (lemma L3): the beta term grows with R1 and R2 along
+		// the staircase, and every admissible build at this or a larger
+		// R2 has R1 at or above the low end of the R1 range found at any
+		// smaller R2 (that end only rises with R2 and as the threshold
+		// falls), so the smaller probe at that R1 and this R2 at the two
+		// ends of the RC band bounds the beta term of all of them. Every
+		// build at this RE also carries RE, so its utilization is at least
+		// RE's (icLo²·RE over RE's best allowance); at this R2 it is at
+		// least the divider bound too.
+		cutB := func(r1 int) (stop, skip bool) {
+			if !bd.finite || w.Beta <= 0 || r1 >= n {
+				return false, false
+			}
+			bmin := d.betaProbe(e, di, r1, r2, re, rcLo, rcHi, cnt)
+			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+			return w.Beta*betaCutSafety*bmin+w.Utilization*uRE > bd.thr,
+				w.Beta*betaCutSafety*bmin+w.Utilization*math.Max(uRE, uDiv) > bd.thr
+		}
+		if haveLo {
+			stop, skip := cutB(lastLo)
+			if stop {
+				break
+			}
+			if skip {
+				continue
+			}
+		}
+		if bd.finite {
 			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, RC = 0),
 			// which falls with R1 (lemmas L1, L2).
 			r1Hi = firstFrom(n, guessHi, func(i int) bool {
@@ -316,23 +346,17 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				return any && ic <= bd.icHi
 			})
 			guessLo, guessHi = r1Lo, r1Hi+1
-		}
-		// Bound B (lemma L3): the beta term grows with R1 and R2 along
-		// the staircase, and every admissible build at this or a larger
-		// R2 has R1 ≥ r1Lo, so the smaller probe of (r1Lo, R2) at the two
-		// ends of the RC band bounds the beta term of all of them. Every
-		// build at this RE also carries RE, so its utilization is at least
-		// RE's (icLo²·RE over RE's best allowance); at this R2 it is at
-		// least the divider bound too.
-		if bd.finite && w.Beta > 0 && r1Lo < n {
-			bmin := d.betaProbe(e, di, r1Lo, r2, re, rcLo, rcHi, cnt)
-			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-			if w.Beta*betaCutSafety*bmin+w.Utilization*uRE > bd.thr {
-				break
+			if !haveLo {
+				stop, skip := cutB(r1Lo)
+				if stop {
+					break
+				}
+				if skip {
+					lastLo, haveLo = r1Lo, true
+					continue
+				}
 			}
-			if w.Beta*betaCutSafety*bmin+w.Utilization*math.Max(uRE, uDiv) > bd.thr {
-				continue
-			}
+			lastLo, haveLo = r1Lo, true
 		}
 		for r1 := r1Lo; r1 <= r1Hi; r1++ {
 			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi)
