@@ -279,6 +279,12 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 					if partial > thr() {
 						continue
 					}
+					if th := thr(); !math.IsInf(th, 1) {
+						hlb, fails := e.headroomFloor(c.dev, b, cnt)
+						if fails || partial+w.Headroom*hlb > th {
+							continue
+						}
+					}
 					ev := e.finish(c, b, t, dis.MaxUtilization)
 					cnt.evaluated++
 					if ev != nil {
@@ -288,6 +294,37 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 			}
 		}
 	}
+}
+
+// headroomFloor solves two of the worst-case corners of b — the one
+// expected to give the lowest VCE (hFE max, hot, supply low, R1 −tol,
+// R2 +tol, RC +tol, RE −tol) and the one expected to give the lowest IC
+// (hFE min, cold, supply low, R1 +tol, R2 −tol, RE +tol) — and returns the
+// headroom term those two alone give. The lowest VCE and IC over all
+// corners are at most these corners' values and the term falls as they
+// rise, so it is a lower bound on the build's headroom term whatever the
+// true extreme corners are. fails is true when either corner already
+// breaks a hard limit (outside the active region or the VCE margin, or
+// not solvable): the build then fails for certain.
+func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h float64, fails bool) {
+	d := &e.devs[dev]
+	lowV := 1 - e.s.vccTol
+	tol := func(sl solver.Slot, sign float64) float64 { return sign * b.Resistors[sl].Tol }
+	var devVCE, devIC [solver.NumSlots]float64
+	devVCE[solver.R1], devVCE[solver.R2], devVCE[solver.RC], devVCE[solver.RE] = tol(solver.R1, -1), tol(solver.R2, 1), tol(solver.RC, 1), tol(solver.RE, -1)
+	devIC[solver.R1], devIC[solver.R2], devIC[solver.RC], devIC[solver.RE] = tol(solver.R1, 1), tol(solver.R2, -1), tol(solver.RC, 1), tol(solver.RE, 1)
+	cnt.solves += 2
+	opV, err := solver.SolveSelfHeated(b.Resolve(devVCE, lowV, e.s.ambMax), d.hi, e.s.ambMax, d.thetaJA, d.tjMax_C)
+	if err != nil || opV.Region != solver.Active || opV.VCE_V < d.vceSat+e.s.lim.VCEMargin_V {
+		return 0, true
+	}
+	opI, err := solver.SolveSelfHeated(b.Resolve(devIC, lowV, e.s.ambMin), d.lo, e.s.ambMin, d.thetaJA, d.tjMax_C)
+	if err != nil || opI.Region != solver.Active || opI.VCE_V < d.vceSat+e.s.lim.VCEMargin_V {
+		return 0, true
+	}
+	sat := (opV.VCE_V - d.vceSat - e.s.lim.VCEMargin_V) / e.s.vcc
+	h = math.Max(0, 1-sat/headroomSatBand)
+	return h + math.Max(0, 1-opI.IC_A/e.s.icT/headroomCutBand), false
 }
 
 // finish runs the worst-case corners of a build and completes its

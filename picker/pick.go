@@ -34,6 +34,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 			pl.exhaustive(e, p, &cnt)
 		} else {
 			pl.seed(e, p, &cnt)
+			pl.polish(e, p, &cnt)
 			pl.search(e, p, &cnt)
 		}
 	}

@@ -15,6 +15,8 @@ type plan interface {
 	// seed evaluates a few hand-method builds per device so the pool
 	// fills early and the bounds start tight.
 	seed(e *evaluator, p *pool, cnt *counters)
+	// polish improves on the seeds by local moves (order only).
+	polish(e *evaluator, p *pool, cnt *counters)
 	// search covers every build: evaluating it or proving by a bound that
 	// it cannot enter the pool.
 	search(e *evaluator, p *pool, cnt *counters)
@@ -140,6 +142,55 @@ func (d *dividerPlan) seed(e *evaluator, p *pool, cnt *counters) {
 		}
 	}
 }
+
+// polish hill-climbs from the best passing builds in the pool: each
+// round moves one position one level up or down to the neighbour with the
+// best score, until no neighbour improves (at most maxPolishSteps rounds
+// per start). Every build it scores goes to the pool, so the threshold
+// falls early; it changes nothing but the order of the search.
+func (d *dividerPlan) polish(e *evaluator, p *pool, cnt *counters) {
+	n := len(e.vs.levels)
+	var starts []combo
+	for _, it := range p.items {
+		if len(it.failing) == 0 && len(starts) < polishStarts {
+			starts = append(starts, it.c)
+		}
+	}
+	for _, c := range starts {
+		d.cache = map[[nPos]int]*tuple{}
+		best := math.Inf(1)
+		cur := c.lv
+		for range maxPolishSteps {
+			next, nextScore := cur, best
+			for pos := range nPos {
+				for _, step := range []int{-1, 1} {
+					lv := cur
+					lv[pos] += step
+					if lv[pos] < 0 || lv[pos] >= n {
+						continue
+					}
+					t := d.tuple(c.dev, lv, cnt)
+					e.scoreVariants(t, p.threshold, func(ev *evaluated) {
+						p.add(ev)
+						if len(ev.failing) == 0 && ev.score < nextScore {
+							next, nextScore = lv, ev.score
+						}
+					}, cnt)
+				}
+			}
+			if nextScore >= best {
+				break
+			}
+			cur, best = next, nextScore
+		}
+	}
+}
+
+// Hill-climbing limits of polishSeeds.
+const (
+	polishStarts   = 5
+	maxPolishSteps = 40
+)
 
 // clampLevel keeps a level index inside [0, n).
 func clampLevel(i, n int) int { return max(0, min(i, n-1)) }
