@@ -1,0 +1,154 @@
+// Package picker searches the parts in stock for the best bias builds of a
+// single-transistor stage and ranks them. It is pure: a Stock and a
+// Request in, a ranked Result out; it never touches the database and never
+// prints. Units are SI; the request's rail is signed (negative for a PNP
+// stage) and everything else is a magnitude.
+//
+// # Request defaults
+//
+// A zero field means its default: Topology divider; Polarity from the sign
+// of VCC_V; VCE_V the maximum-symmetrical-swing rule below; ambient
+// 0..50 °C; Boards 1; Top 5 (DefaultTop); Window ±10 % IC around the
+// target and ±20 % VCE around the build's VCE target; Weights
+// DefaultWeights(); Limits the solver's defaults (resistors at most 50 %
+// of the derated rating, the transistor at most 75 %, 0.5 V above
+// VCE(sat) at every corner); Finalists 2·Top + 5; YieldBoards 400.
+// A bad request or stock is an *InputError naming the field, the problem
+// and the fix.
+//
+// # Candidates
+//
+// Transistors: lines of the polarity carrying every required tag, holding
+// at least Boards parts, with VCEO ≥ VCC·(1+tol)/0.8, IC max ≥ IC/0.5 and
+// the dissipation at the target current and mid-supply VCE within the
+// derated, margined allowance at the hottest ambient (common practice
+// margins; the worst-case corners check every build again). Resistor
+// values: every line with at least Boards parts, and with Request.Pairs
+// every series and parallel pair of two lines (one line twice when it
+// holds 2·Boards), except pairs whose lesser part carries under 1 % of the
+// value. A pair's tolerance, TCR and rating are derived in pairs.go
+// (worst-case tolerance, first-order TCR, the part that reaches its rating
+// first). Quantities hold across the whole build: a line used in several
+// positions, or a pair, must hold Boards times every part drawn from it.
+//
+// # Score
+//
+// Every term is ≥ 0 and lower is better; the score is their weighted sum.
+// The nominal point is the self-heated operating point at 25 °C ambient
+// (NominalAmbient_C) with the typical hFE, every part at its marked value.
+//
+//	QPoint      |IC − IC_target|/IC_target + |VCE − VCE_target|/|VCC|  at the nominal point
+//	Beta        |IC(hFE max) − IC(hFE min)|/IC  (both self-heated at 25 °C, nominal parts)
+//	Headroom    max(0, 1 − s/0.10) + max(0, 1 − c/0.50), where
+//	            s = (VCE_min − VCE(sat) − margin)/|VCC| and c = IC_min/IC_target
+//	            over every worst-case corner (solver.EvalWorstCase)
+//	Utilization the largest part utilization at the nominal point against the
+//	            ratings derated at the hottest ambient (solver.EvalDissipation)
+//	Yield       1 − Monte Carlo yield (solver.EvalYieldSeeded), finalists only
+//
+// Default weights: QPoint 2, Beta 1, Headroom 1, Utilization 0.25,
+// Yield 1. The VCE target is the request's, or the VCE that maximises the
+// symmetrical swing of this build at the target current: with
+// r_ac = RC‖RL + RE(unbypassed) and R_dc = RC + RE it is
+// VCE(sat) + (|VCC| − VCE(sat))·r_ac/(R_dc + r_ac), which is the mid-point
+// (|VCC| + VCE(sat))/2 with no load and no bypass.
+//
+// Hard limits: a build with any corner outside the active region or less
+// than the margin above VCE(sat), any part over its derated, margined
+// rating at any corner, or IC over the transistor's IC max fails, with its
+// reasons in Candidate.Failing. A failing build never ranks above a
+// passing one; failing builds are listed only with Request.ShowFailing or,
+// as the nearest builds, when nothing passes.
+//
+// Order: passing before failing, then the score, then a fixed key: the
+// transistor line ID, then per position R1, R2, RC, RE the value's
+// resistance and its preference (single before series before parallel,
+// tighter tolerance, higher rating, smaller |TCR|, lower line IDs). The
+// search keeps the best Finalists builds by the score without the yield
+// term, runs the yield of those, adds the term and re-sorts; the first Top
+// are the result. Candidate.ID is a hash of the topology, the transistor
+// line and each position's arrangement and line IDs, so the same stock
+// lines give the same ID.
+//
+// # Search
+//
+// Each topology has a search plan; the divider's covers (device, RE, R2,
+// R1, RC) over the resistance levels (distinct values, ascending; the
+// values of one level share one nominal point). Request.Exhaustive solves
+// the nominal point of every level tuple and scores every build. The
+// default search first scores a few hand-method builds per device and
+// hill-climbs from the best (order only), then runs the branch and bound
+// below. Both keep the pool of the best Finalists builds; the pool's
+// threshold T is the last member's score once the pool is full of passing
+// builds (+∞ before). A build whose score is shown to exceed T can never
+// enter: a passing one would rank below the last member, a failing one
+// below every member. Every cut compares a lower bound on the score of
+// every build it drops with T, so the pool — and so the result — is the
+// exhaustive one; TestSearchMatchesExhaustive checks this on random
+// stocks. With δ = T/w_QPoint every build that can still enter has its
+// nominal IC in [IC_t(1−δ), IC_t(1+δ)] and VCE within δ·|VCC| of its
+// target, because the QPoint term alone is below δ.
+//
+// The cuts rest on these facts about the nominal point (all parts at
+// their marked values, the stable self-heated equilibrium):
+//
+//   - L1: IC falls as R1 or RE rises and rises with R2. Isothermally the
+//     base drive falls with R1 and RE and rises with R2; the Early effect
+//     and self-heating are feedback loops whose loop gain is below one at
+//     a stable equilibrium, so they scale the change but cannot reverse it.
+//     This holds in the active region; a build that saturates at its
+//     nominal point also saturates at a corner (the nominal point lies
+//     between the corners for ambient ranges that include 25 °C) and
+//     fails, so only active builds need the bound.
+//   - L2: VCE and IC fall as RC rises (if VCE rose, the Early effect would
+//     raise IC and so lower VCE: a contradiction; less VCE means less
+//     power, a cooler junction and less IC), and saturation only deepens.
+//   - L3: the beta term grows with R1 and R2 along the staircase of
+//     constant IC (it is a rising function of R_TH/RE in the closed form,
+//     REFERENCE.md §5) and shrinks as RC rises (the Early effect and
+//     self-heating both damp the IC change more when VCE moves more).
+//     This is argued, not proved — the VBE shift between the two hFE
+//     values works slightly against it — so the cut that uses it trusts
+//     only 90 % of the probed value (betaCutSafety); the property test
+//     checks it.
+//
+// The bounds, per loop level (doc comments at each site repeat them):
+//
+//   - U-RE: RE dissipates IE²·RE ≥ IC_lo²·RE, so the utilization term is
+//     at least that over the best allowance at the hot ambient; it rises
+//     with RE, so the upward RE run stops.
+//   - Q-RE: VCE ≤ |VCC| − IC(RC + RE) ≤ |VCC| − IC_lo(RC_min + RE); once
+//     this is more than δ|VCC| below the lowest VCE target no larger RE can
+//     come close.
+//   - RC band: with IE between IC and (1 + 2/hFE_min)·IC (forward beta at
+//     the nominal point at least half the datasheet minimum), VCE lies in
+//     [|VCC| − IC_hi(RC + k·RE), |VCC| − IC_lo(RC + RE)]; RC outside the band
+//     where this can come within δ|VCC| of the target band is out.
+//   - U-R2: R2 dissipates VB²/R2 and, since base current flows into the
+//     base (VB ≤ V_TH), R1 dissipates at least (|VCC| − VB)·VB/R2; VB lies
+//     between VBE_lo + IC_lo·RE and VBE_hi + IC_hi·k·RE, with VBE bounded
+//     from the device model (bounds.go).
+//   - R1 range: by L1 and L2 the IC of any build at (R1, R2, RE) is at most
+//     IC at RC = 0 and, for builds active at their nominal point, at least
+//     IC at the largest band RC that is still active; R1 outside the range
+//     where these envelopes can meet [IC_lo, IC_hi] is out (both envelopes
+//     fall with R1, so the range is found by search, from the previous R2's
+//     range since it only moves up with R2).
+//   - RC scan: from the RC where VCE crosses the top of the target band,
+//     VCE (L2) and IC move monotonically, so going down (up) the QPoint
+//     term only grows once VCE is over (under) the band; the scan stops at
+//     the first build whose QPoint term alone exceeds T/w_QPoint.
+//   - B: the beta probe at the smallest admissible R1 and the two ends of
+//     the RC band bounds the beta term of every build at this and every
+//     larger R2 (L3); with RE's utilization (every build carries RE) it
+//     stops the R2 run, and with the divider bound it skips this R2.
+//   - Per build: QPoint and Utilization (one solve, shared by the values
+//     of a level tuple), then Beta (two solves), then a headroom floor from
+//     the two corners expected to be extreme (any single corner bounds the
+//     corner minima, so the floor is a lower bound whichever corners are
+//     extreme; a corner that already breaks a hard limit proves the build
+//     fails), and only then every worst-case corner.
+//
+// Limitations: the bounds that use "active at the nominal point" assume
+// the ambient range includes 25 °C or lies above it.
+package picker
