@@ -66,24 +66,53 @@ func TransistorAllowed_W(d Datasheet, ambient_C float64) (float64, bool) {
 // is ResistorAllowed_W times lim.ResistorMaxFraction. The transistor's
 // allowance is TransistorAllowed_W times lim.TransistorMaxFraction.
 func EvalDissipation(b Build, op OperatingPoint, ambient_C float64, lim Limits) Dissipation {
-	lim = lim.WithDefaults()
+	a := newAllowances(&b, ambient_C, lim.WithDefaults())
+	return a.eval(&b, &op)
+}
+
+// allowances are the margined power limits of a build's parts at one
+// ambient, computed once for many operating points.
+type allowances struct {
+	r      [NumSlots]float64
+	rRated [NumSlots]bool
+	q      float64
+	qRated bool
+}
+
+// newAllowances derates every rated part of b to ambient_C (lim with its
+// defaults filled).
+func newAllowances(b *Build, ambient_C float64, lim Limits) allowances {
+	var a allowances
+	for i := range NumSlots {
+		if r := b.Resistors[i]; b.usedSlot(i) && r.Rated_W > 0 {
+			knee, top := r.derating()
+			a.r[i] = ResistorAllowed_W(r.Rated_W, knee, top, ambient_C) * lim.ResistorMaxFraction
+			a.rRated[i] = true
+		}
+	}
+	if p, ok := TransistorAllowed_W(b.Device, ambient_C); ok {
+		a.q, a.qRated = p*lim.TransistorMaxFraction, true
+	}
+	return a
+}
+
+// eval checks op's powers against the allowances.
+func (a *allowances) eval(b *Build, op *OperatingPoint) Dissipation {
 	d := Dissipation{Ok: true}
 	for i := range NumSlots {
-		r := b.Resistors[i]
 		if !b.usedSlot(i) {
 			continue
 		}
 		pl := PartLoad{Power_W: op.P_W[i]}
-		if r.Rated_W > 0 {
-			knee, top := r.derating()
-			pl.rate(ResistorAllowed_W(r.Rated_W, knee, top, ambient_C) * lim.ResistorMaxFraction)
+		if a.rRated[i] {
+			pl.rate(a.r[i])
 		}
 		d.Resistor[i] = pl
 		d.note(pl)
 	}
 	d.Transistor = PartLoad{Power_W: op.PTransistor_W}
-	if p, ok := TransistorAllowed_W(b.Device, ambient_C); ok {
-		d.Transistor.rate(p * lim.TransistorMaxFraction)
+	if a.qRated {
+		d.Transistor.rate(a.q)
 	}
 	d.note(d.Transistor)
 	return d

@@ -121,12 +121,15 @@ type cornerPlan struct {
 	mLo, mHi Model
 	theta    float64
 	tjMax    float64
+	allow    [2]allowances // the parts' limits at the low and high ambient
 }
 
-// newCornerPlan lists the axes of b (ambient first, so consecutive corners
-// differ in the fastest-changing inputs) and builds the two models.
-func newCornerPlan(b Build) (cornerPlan, error) {
+// newCornerPlan lists the axes of b (resistors first, ambient last), builds
+// the two models and the parts' limits at both ambients.
+func newCornerPlan(b Build, lim Limits) (cornerPlan, error) {
 	p := cornerPlan{b: b, theta: ThermalResistance(b.Device), tjMax: tjMaxOf(b.Device)}
+	p.allow[0] = newAllowances(&b, b.AmbientMin_C, lim)
+	p.allow[1] = newAllowances(&b, b.AmbientMax_C, lim)
 	add := func(kind int, slot Slot) { p.axes[p.n] = cornerAxis{kind, slot}; p.n++ }
 	for i := range NumSlots {
 		if b.usedSlot(i) && b.Resistors[i].Tol > 0 {
@@ -215,7 +218,7 @@ func EvalWorstCaseWith(b Build, lim Limits, opt WorstCaseOptions) (WorstCase, er
 		return WorstCase{}, fmt.Errorf("worst case: %w", err)
 	}
 	lim = lim.WithDefaults()
-	p, err := newCornerPlan(b)
+	p, err := newCornerPlan(b, lim)
 	if err != nil {
 		return WorstCase{}, fmt.Errorf("worst case: %w", err)
 	}
@@ -238,7 +241,11 @@ func EvalWorstCaseWith(b Build, lim Limits, opt WorstCaseOptions) (WorstCase, er
 			wc.AllActive = false
 			wc.NotActive++
 		}
-		wc.Dissipation.worse(EvalDissipation(b, c.OP, c.Temp_C, lim))
+		allow := &p.allow[0]
+		if c.Temp_C != b.AmbientMin_C {
+			allow = &p.allow[1]
+		}
+		wc.Dissipation.worse(allow.eval(&b, &c.OP))
 	}
 	if !opt.SkipRSS {
 		if wc.RSSIC_A, wc.RSSVCE_V, err = rssSpread(b, p.theta, p.tjMax); err != nil {

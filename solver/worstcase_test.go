@@ -76,6 +76,17 @@ func TestWorstCaseCorners(t *testing.T) {
 			t.Fatalf("corner Tj %g °C, want Ta + θJA·P = %g °C", c.Tj_C, tj)
 		}
 	}
+	// The worst dissipation is each part's highest utilization over the
+	// corners, each judged at its own ambient.
+	var maxRC, maxQ float64
+	for _, c := range wc.Corners {
+		d := EvalDissipation(b, c.OP, c.Temp_C, Limits{})
+		maxRC, maxQ = math.Max(maxRC, d.Resistor[RC].Utilization), math.Max(maxQ, d.Transistor.Utilization)
+	}
+	if wc.Dissipation.Resistor[RC].Utilization != maxRC || wc.Dissipation.Transistor.Utilization != maxQ || maxRC == 0 {
+		t.Errorf("worst utilization RC %g, Q %g; want the corners' maximum %g, %g",
+			wc.Dissipation.Resistor[RC].Utilization, wc.Dissipation.Transistor.Utilization, maxRC, maxQ)
+	}
 	if !wc.AllActive || wc.NotActive != 0 {
 		t.Errorf("AllActive = %v (%d corners not active), want all active", wc.AllActive, wc.NotActive)
 	}
