@@ -17,6 +17,12 @@ import (
 // When no build passes every hard limit the result carries a Shortfall
 // and, as the nearest builds, the best failing ones.
 func Pick(stock Stock, req Request) (Result, error) {
+	return pickCore(stock, req, true)
+}
+
+// pickCore is Pick; withShortfall false skips the shortfall analysis (it
+// runs Pick again on amended stock and must not recurse).
+func pickCore(stock Stock, req Request, withShortfall bool) (Result, error) {
 	s, err := normalize(req)
 	if err != nil {
 		return Result{}, err
@@ -61,7 +67,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 		c.Rank = i + 1
 		res.Candidates = append(res.Candidates, c)
 	}
-	if passing == 0 {
+	if withShortfall && !slices.ContainsFunc(res.Candidates, e.fits) {
 		res.Shortfall = e.shortfall(stock, rejected, res.Candidates)
 	}
 	return res, nil
@@ -136,6 +142,12 @@ func (e *evaluator) finalists(items []*evaluated) ([]Candidate, error) {
 		out[i] = f.c
 	}
 	return out, nil
+}
+
+// fits reports whether a build is good: it passes every hard limit and
+// its nominal point lies inside the yield window.
+func (e *evaluator) fits(c Candidate) bool {
+	return len(c.Failing) == 0 && e.window(c.VCETarget_V).Contains(&c.Nominal)
 }
 
 // window is the yield window of a build: the request's, or ±DefaultICWindow

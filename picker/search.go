@@ -392,10 +392,14 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			}) - 1
 			// Bound IC-R1 low side: the lowest IC any build at R1
 			// that is active at its nominal point can have.
-			r1Lo = firstFrom(n, guessLo, func(i int) bool {
-				ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, cnt)
-				return any && ic <= bd.icHi
-			})
+			// (Only when a saturated nominal point implies a failing
+			// corner: the ambient range reaches 25 °C or lies above.)
+			if e.s.ambMax >= NominalAmbient_C {
+				r1Lo = firstFrom(n, guessLo, func(i int) bool {
+					ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, cnt)
+					return any && ic <= bd.icHi
+				})
+			}
 			guessLo, guessHi = r1Lo, r1Hi+1
 			if !haveLo {
 				stop, skip := cutB(r1Lo)

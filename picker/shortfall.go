@@ -1,7 +1,188 @@
 package picker
 
-// shortfall explains an empty result.
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"biasbin/solver"
+	"biasbin/solver/eseries"
+	"biasbin/solver/notation"
+)
+
+// Purchase is one part the shortfall suggests buying.
+type Purchase struct {
+	Slot    string  // "r1", "r2", "rc", "re", or "transistor"
+	Ohm     float64 // resistors: the E-series value
+	Series  string  // "E24"
+	Tol     float64 // fraction
+	Rated_W float64
+	Qty     int // parts for the requested boards
+	// Note says it in words, e.g. "RE: 1K0 (E24, ±5 %, 0.25 W), 2 pieces".
+	Note string
+}
+
+// Purchase defaults: E24 at ±5 % (the customary pairing, IEC 60063:2015
+// Table 1 and REFERENCE.md §1), the smallest common rating that keeps the
+// part within the design margin.
+var buyRatings_W = []float64{0.125, 0.25, 0.5, 1, 2}
+
+const (
+	buySeries = eseries.E24
+	buyTol    = 0.05
+)
+
+// shortfall explains why no build passes and what to buy. nearest are the
+// best failing builds found.
 func (e *evaluator) shortfall(stock Stock, rejected []string, nearest []Candidate) *Shortfall {
+	s := e.s
 	sf := &Shortfall{Rejected: rejected}
+	switch {
+	case len(e.devs) == 0:
+		sf.Reasons = append(sf.Reasons, fmt.Sprintf("no %v transistor with at least %d in stock and ratings that hold at %.3g V and %s",
+			s.pol, s.boards, s.vcc*(1+s.vccTol), notation.FormatCurrent(s.icT)))
+		sf.Purchases = append(sf.Purchases, e.buyTransistor())
+	case len(e.vs.levels) == 0:
+		sf.Reasons = append(sf.Reasons, fmt.Sprintf("no resistor line holds the %d parts %d boards need", s.boards, s.boards))
+	case len(nearest) == 0:
+		sf.Reasons = append(sf.Reasons, "no combination of stocked values has an operating point (every solve failed)")
+	case len(nearest[0].Failing) == 0:
+		c := nearest[0]
+		sf.Reasons = append(sf.Reasons, fmt.Sprintf("no build reaches the target: the nearest runs at IC %s, VCE %s against %s, %s",
+			notation.FormatCurrent(c.Nominal.IC_A), notation.FormatVoltage(c.Nominal.VCE_V), notation.FormatCurrent(s.icT), notation.FormatVoltage(c.VCETarget_V)))
+	default:
+		sf.Reasons = append(sf.Reasons, failureSummary(nearest)...)
+		bestBeta := math.Inf(1)
+		for _, c := range nearest {
+			bestBeta = math.Min(bestBeta, c.BetaSensitivity)
+		}
+		if bestBeta > stiffBeta {
+			sf.Reasons = append(sf.Reasons, fmt.Sprintf("no divider stiff enough: the nearest builds move IC by at least %.0f %% over the hFE range", 100*bestBeta))
+		}
+	}
+	if len(e.devs) > 0 {
+		sf.Purchases = append(sf.Purchases, e.buyResistors(stock)...)
+	}
+	for _, p := range sf.Purchases {
+		sf.Buy = append(sf.Buy, p.Note)
+	}
+	if len(sf.Buy) == 0 && len(e.devs) > 0 {
+		sf.Reasons = append(sf.Reasons, "no purchase of one or two resistor values gives a passing build")
+	}
 	return sf
+}
+
+// stiffBeta is the beta term above which the shortfall calls the divider
+// not stiff enough: IC moving 20 % over the hFE range.
+const stiffBeta = 0.2
+
+// failureSummary condenses the nearest builds' reasons into lines such as
+// "every build found saturates at a worst-case corner".
+func failureSummary(nearest []Candidate) []string {
+	kinds := []struct{ key, say string }{
+		{"corners outside the active region", "saturates or cuts off at a worst-case corner"},
+		{"allowance", "overloads a part at a worst-case corner"},
+		{"IC max", "exceeds the transistor's IC max"},
+		{"worst case", "has a worst-case corner that cannot be solved"},
+	}
+	var out []string
+	for _, k := range kinds {
+		n := 0
+		for _, c := range nearest {
+			for _, r := range c.Failing {
+				if strings.Contains(r, k.key) {
+					n++
+					break
+				}
+			}
+		}
+		switch {
+		case n == len(nearest):
+			out = append(out, "every build found "+k.say)
+		case n > 0:
+			out = append(out, fmt.Sprintf("%d of the %d nearest builds %s", n, len(nearest), k.say))
+		}
+	}
+	return out
+}
+
+// buyTransistor describes the transistor that would do.
+func (e *evaluator) buyTransistor() Purchase {
+	s := e.s
+	note := fmt.Sprintf("transistor: %v with VCEO ≥ %.3g V, IC max ≥ %s, %d pieces", s.pol,
+		math.Ceil(s.vcc*(1+s.vccTol)/VoltageDerating), notation.FormatCurrent(s.icT/CurrentDerating), s.boards)
+	return Purchase{Slot: "transistor", Qty: s.boards, Note: note}
+}
+
+// ideal is the hand-method design for device d: VE = VCC/10, VCE at its
+// target, R_TH = 0.1(hFE min + 1)·RE, VBE 0.65 V (common practice).
+func (e *evaluator) ideal(d *device) [nPos]float64 {
+	s := e.s
+	vceT := s.vceT
+	if vceT == 0 {
+		vceT = (s.vcc + d.vceSat) / 2
+	}
+	ve := s.vcc / 10
+	re := ve / s.icT
+	rc := math.Max((s.vcc-vceT-ve)/s.icT, re/10)
+	rth := 0.1 * (d.hfeMin + 1) * re
+	vb := ve + 0.65
+	return [nPos]float64{rth * s.vcc / vb, rth * s.vcc / (s.vcc - vb), rc, re}
+}
+
+// buyResistors tries adding hand-method values to the stock: one slot's
+// value at a time, then two, and returns the first purchase that gives a
+// passing build (nil when none does).
+func (e *evaluator) buyResistors(stock Stock) []Purchase {
+	s := e.s
+	d := &e.devs[0]
+	id := e.ideal(d)
+	var parts [nPos]Purchase
+	for i, r := range id {
+		ohm := eseries.Nearest(buySeries, r)
+		p := Purchase{Slot: slotNames[i], Ohm: ohm, Series: buySeries.String(), Tol: buyTol, Qty: 2 * s.boards}
+		est := s.icT * s.icT * ohm // collector and emitter positions
+		if i == iR1 || i == iR2 {
+			est = s.vcc * s.vcc / (id[iR1] + id[iR2]) * (id[i] / (id[iR1] + id[iR2]))
+		}
+		p.Rated_W = buyRatings_W[len(buyRatings_W)-1]
+		for _, w := range buyRatings_W {
+			if est <= w*s.lim.ResistorMaxFraction*derateAt(s.ambMax) {
+				p.Rated_W = w
+				break
+			}
+		}
+		p.Note = fmt.Sprintf("%s: %s (%s, ±%g %%, %g W), %d pieces", strings.ToUpper(p.Slot), notation.FormatResistance(ohm), p.Series, 100*buyTol, p.Rated_W, p.Qty)
+		parts[i] = p
+	}
+	try := func(slots ...int) bool {
+		st := Stock{Transistors: stock.Transistors, Resistors: append([]Resistor(nil), stock.Resistors...)}
+		for k, i := range slots {
+			p := parts[i]
+			st.Resistors = append(st.Resistors, Resistor{ID: -1 - int64(k), Ohm: p.Ohm, Tol: p.Tol, TCR_PPMPerK: 200, Rated_W: p.Rated_W, Qty: p.Qty, Bin: "to buy", Tags: s.req.RequireTags})
+		}
+		req := s.req
+		req.Top, req.Finalists, req.ShowFailing, req.Exhaustive = 1, 1, false, false
+		res, err := pickCore(st, req, false)
+		return err == nil && len(res.Candidates) > 0 && e.fits(res.Candidates[0])
+	}
+	for i := range nPos {
+		if try(i) {
+			return []Purchase{parts[i]}
+		}
+	}
+	for i := range nPos {
+		for j := i + 1; j < nPos; j++ {
+			if try(i, j) {
+				return []Purchase{parts[i], parts[j]}
+			}
+		}
+	}
+	return nil
+}
+
+// derateAt is the derating factor of a default-rated resistor at
+// ambient_C (70 °C knee, 155 °C zero-power temperature).
+func derateAt(ambient_C float64) float64 {
+	return solver.ResistorAllowed_W(1, solver.DefaultResistorKnee_C, solver.DefaultResistorMax_C, ambient_C)
 }

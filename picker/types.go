@@ -121,6 +121,8 @@ type Candidate struct {
 type Shortfall struct {
 	Reasons []string
 	Buy     []string // e.g. "4K7 1 % 0.25 W (E96) for RE"
+	// Purchases are the parts behind Buy, one per line of Buy.
+	Purchases []Purchase
 	// Rejected lists the transistor lines of the polarity left out, each
 	// with its reason.
 	Rejected []string

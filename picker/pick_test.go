@@ -1,0 +1,277 @@
+package picker
+
+import (
+	"context"
+	"math"
+	"math/rand/v2"
+	"testing"
+
+	"biasbin/solver"
+	"biasbin/solver/eseries"
+	"biasbin/solver/spicecheck"
+)
+
+// mixedStock is an invented parts wall: E12 at 5 % 1/4 W plus E24 at 1 %
+// 1/2 W over 100 Ω..220 kΩ, two NPN and one PNP line.
+func mixedStock() Stock {
+	st := Stock{Resistors: append(seriesStock(eseries.E12, 100, 220e3, 0.05, 0.25, 10, 1000), seriesStock(eseries.E24, 100, 220e3, 0.01, 0.5, 4, 2000)...)}
+	st.Transistors = []Transistor{smallNPN(1, 110, 800), smallNPN(2, 200, 450), smallPNP(3, 100, 300)}
+	return st
+}
+
+// TestAgreesWithSolverAnalyses: the picker's tight evaluation gives the
+// same numbers as the solver's own analyses of the picked build
+// (solver.Nominal, EvalSensitivity, EvalDissipation, EvalWorstCase).
+func TestAgreesWithSolverAnalyses(t *testing.T) {
+	for _, req := range []Request{
+		{VCC_V: 12, IC_A: 1e-3, Top: 3},
+		{VCC_V: -9, IC_A: 0.5e-3, Top: 3, RL_Ohm: 10e3, Bypass: true},
+	} {
+		res, err := Pick(mixedStock(), req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(res.Candidates) == 0 {
+			t.Fatalf("%+v: no build", req)
+		}
+		for _, c := range res.Candidates {
+			op, _, err := solver.Nominal(c.Build)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if op.IC_A != c.Nominal.IC_A || op.VCE_V != c.Nominal.VCE_V {
+				t.Errorf("%s: nominal IC %g VCE %g, solver.Nominal %g %g", c.ID, c.Nominal.IC_A, c.Nominal.VCE_V, op.IC_A, op.VCE_V)
+			}
+			sens, err := solver.EvalSensitivity(c.Build)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if math.Abs(sens.BetaSpread) != c.Terms.Beta {
+				t.Errorf("%s: beta term %g, EvalSensitivity %g", c.ID, c.Terms.Beta, sens.BetaSpread)
+			}
+			dis := solver.EvalDissipation(c.Build, op, 50, solver.Limits{})
+			if dis.MaxUtilization != c.Terms.Utilization {
+				t.Errorf("%s: utilization %g, EvalDissipation %g", c.ID, c.Terms.Utilization, dis.MaxUtilization)
+			}
+			wc, err := solver.EvalWorstCase(c.Build, solver.Limits{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if wc.VCEMin_V != c.Worst.VCEMin_V || wc.ICMin_A != c.Worst.ICMin_A || wc.AllActive != (len(c.Failing) == 0) {
+				t.Errorf("%s: worst VCE %g IC %g ok %v, EvalWorstCase %g %g %v", c.ID, c.Worst.VCEMin_V, c.Worst.ICMin_A, len(c.Failing) == 0, wc.VCEMin_V, wc.ICMin_A, wc.AllActive)
+			}
+		}
+	}
+}
+
+// TestPickedBuildInNgspice re-solves each picked build's nominal point in
+// ngspice with the reported model parameters at the reported junction
+// temperature (source: ngspice, run by the test): IC within 0.1 %.
+func TestPickedBuildInNgspice(t *testing.T) {
+	spicecheck.Require(t)
+	reqs := []Request{
+		{VCC_V: 12, IC_A: 1e-3},
+		{VCC_V: 5, IC_A: 0.5e-3, VCE_V: 2},
+		{VCC_V: 24, IC_A: 2e-3, RL_Ohm: 4.7e3, Bypass: true},
+		{VCC_V: -9, IC_A: 1e-3},
+		{VCC_V: -15, IC_A: 0.2e-3, Pairs: true},
+	}
+	var jobs []spicecheck.Job
+	var want []float64
+	for _, req := range reqs {
+		req.Top = 2
+		st := mixedStock()
+		if req.Pairs {
+			st.Resistors = seriesStock(eseries.E6, 100, 100e3, 0.05, 0.25, 10, 1000)
+		}
+		res, err := Pick(st, req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, c := range res.Candidates {
+			jobs = append(jobs, spicecheck.Job{
+				Deck:    solver.Netlist(c.Build.NominalStage(), c.Model, c.Nominal.Tj_C, "picked "+c.ID),
+				Vectors: []string{"@q1[ic]"},
+			})
+			want = append(want, c.Nominal.IC_A)
+		}
+	}
+	got, err := spicecheck.Run(context.Background(), jobs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, g := range got {
+		ic := math.Abs(g["@q1[ic]"])
+		if math.Abs(ic-want[i]) > 1e-3*want[i] { // ngspice: IC within 0.1 %
+			t.Errorf("build %d: picker IC %.6g A, ngspice %.6g A", i, want[i], ic)
+		}
+	}
+	t.Logf("%d picked builds checked against ngspice", len(jobs))
+}
+
+// handMethod is the common-practice design (common practice, REFERENCE.md
+// §5: VE ≈ VCC/10, VCE ≈ VCC/2, R_TH ≤ 0.1(β_min + 1)RE, VBE 0.7 V):
+// R1, R2, RC, RE in ohms.
+func handMethod(vcc, ic, hfeMin float64) [nPos]float64 {
+	ve := vcc / 10
+	re := ve / ic
+	rc := (vcc - vcc/2 - ve) / ic
+	rth := 0.1 * (hfeMin + 1) * re
+	vb := ve + 0.7
+	return [nPos]float64{rth * vcc / vb, rth * vcc / (vcc - vb), rc, re}
+}
+
+// scoreOf scores one build through the picker's own scoring: the given
+// transistor line and, per position, the stocked single nearest the ohms
+// (on a log scale). It returns the final score (with yield) and whether
+// the build passes.
+func scoreOf(t *testing.T, st Stock, req Request, tr int64, ohms [nPos]float64) (float64, bool) {
+	t.Helper()
+	s, err := normalize(req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, _ := newEvaluator(s, st)
+	dev := -1
+	for i := range e.devs {
+		if e.devs[i].line.ID == tr {
+			dev = i
+		}
+	}
+	var c combo
+	c.dev = dev
+	for i, r := range ohms {
+		best := math.Inf(1)
+		for l, lv := range e.vs.levels {
+			if d := math.Abs(math.Log(lv.ohm / r)); d < best {
+				best, c.lv[i] = d, l
+			}
+		}
+		for _, vi := range e.vs.levels[c.lv[i]].values {
+			if e.vs.values[vi].arr == Single {
+				c.val[i] = vi
+				break
+			}
+		}
+	}
+	tp := e.newTuple(dev, c.lv)
+	if !tp.ok {
+		t.Fatalf("hand-method build does not solve")
+	}
+	b := e.build(c)
+	util := solver.EvalDissipation(b, tp.op, s.ambMax, s.lim).MaxUtilization
+	e.betaSpread(tp, &counters{})
+	ev := e.finish(c, b, tp, util)
+	cand, err := e.candidate(ev)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return ev.score + s.w.Yield*(1-cand.Yield.Yield), len(ev.failing) == 0
+}
+
+// TestNeverWorseThanHandMethod: over several stocks and targets the hand
+// method (common practice, REFERENCE.md §5), with each value rounded to
+// the nearest stocked part, never scores better than the picker's first
+// build.
+func TestNeverWorseThanHandMethod(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 5))
+	stocks := []Stock{mixedStock(),
+		{Resistors: seriesStock(eseries.E12, 10, 1e6, 0.05, 0.25, 10, 1000), Transistors: []Transistor{smallNPN(1, 100, 300)}},
+		randomStock(rng, 25, 2)}
+	targets := []Request{{VCC_V: 12, IC_A: 1e-3}, {VCC_V: 9, IC_A: 2e-3}, {VCC_V: 15, IC_A: 0.5e-3}, {VCC_V: 24, IC_A: 1e-3}}
+	for si, st := range stocks {
+		for _, req := range targets {
+			res, err := Pick(st, req)
+			if err != nil {
+				continue // a random stock may not reach the target current
+			}
+			if len(res.Candidates) == 0 || len(res.Candidates[0].Failing) > 0 {
+				continue
+			}
+			first := res.Candidates[0]
+			tr := st.Transistors[0]
+			hand := handMethod(req.VCC_V, req.IC_A, tr.Sheet.HFEMin)
+			score, pass := scoreOf(t, st, req, tr.ID, hand)
+			if pass && score < first.Score {
+				t.Errorf("stock %d, %g V %g A: hand method scores %.4g, better than the picker's first %.4g", si, req.VCC_V, req.IC_A, score, first.Score)
+			}
+			t.Logf("stock %d, %g V %g A: picker %.4g, hand method %.4g (passes %v)", si, req.VCC_V, req.IC_A, first.Score, score, pass)
+		}
+	}
+}
+
+// TestStableIDsAndOrder: the same stock in another order gives the same
+// builds, IDs and scores (the documented tie-break is on line IDs and
+// values, never on input order).
+func TestStableIDsAndOrder(t *testing.T) {
+	st := mixedStock()
+	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 5, Seed: 7}
+	a, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rng := rand.New(rand.NewPCG(1, 2))
+	rng.Shuffle(len(st.Resistors), func(i, j int) { st.Resistors[i], st.Resistors[j] = st.Resistors[j], st.Resistors[i] })
+	rng.Shuffle(len(st.Transistors), func(i, j int) { st.Transistors[i], st.Transistors[j] = st.Transistors[j], st.Transistors[i] })
+	b, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(a.Candidates) != len(b.Candidates) || len(a.Candidates) == 0 {
+		t.Fatalf("%d vs %d builds", len(a.Candidates), len(b.Candidates))
+	}
+	for i := range a.Candidates {
+		if a.Candidates[i].ID != b.Candidates[i].ID || a.Candidates[i].Score != b.Candidates[i].Score {
+			t.Errorf("rank %d: %s %g vs %s %g", i+1, a.Candidates[i].ID, a.Candidates[i].Score, b.Candidates[i].ID, b.Candidates[i].Score)
+		}
+	}
+}
+
+// TestNothingFits: the shortfall names the failed constraint and a
+// purchase that the test then verifies gives a passing build.
+func TestNothingFits(t *testing.T) {
+	// Only 2 transistors in stock for 5 boards.
+	few := mixedStock()
+	few.Transistors = []Transistor{smallNPN(1, 110, 800)}
+	few.Transistors[0].Qty = 2
+	res, err := Pick(few, Request{VCC_V: 12, IC_A: 1e-3, Boards: 5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Shortfall == nil || len(res.Shortfall.Reasons) == 0 || len(res.Shortfall.Rejected) != 1 || len(res.Shortfall.Purchases) == 0 ||
+		res.Shortfall.Purchases[0].Slot != "transistor" {
+		t.Errorf("too few transistors: shortfall %+v", res.Shortfall)
+	}
+	// Only large resistors: every build saturates or misses the current;
+	// the picker must name a resistor to buy that fixes it.
+	big := Stock{Resistors: seriesStock(eseries.E6, 1e3, 1e6, 0.05, 0.25, 20, 500), Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	req := Request{VCC_V: 5, IC_A: 2.4e-3}
+	res, err = Pick(big, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Shortfall == nil || len(res.Shortfall.Reasons) == 0 {
+		t.Fatalf("large values only: no shortfall (%d builds)", len(res.Candidates))
+	}
+	if len(res.Candidates) == 0 {
+		t.Errorf("the nearest builds should be listed")
+	}
+	if len(res.Shortfall.Purchases) == 0 {
+		t.Fatalf("no purchase suggested: %+v", res.Shortfall)
+	}
+	for i, p := range res.Shortfall.Purchases {
+		if p.Ohm <= 0 || !eseries.Contains(eseries.E24, p.Ohm) {
+			t.Errorf("purchase %+v is not an E24 value", p)
+		}
+		big.Resistors = append(big.Resistors, Resistor{ID: 900 + int64(i), Ohm: p.Ohm, Tol: p.Tol, Rated_W: p.Rated_W, TCR_PPMPerK: 200, Qty: p.Qty})
+	}
+	after, err := Pick(big, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if after.Shortfall != nil || len(after.Candidates) == 0 || len(after.Candidates[0].Failing) > 0 ||
+		math.Abs(after.Candidates[0].Nominal.IC_A/req.IC_A-1) > DefaultICWindow {
+		t.Errorf("after buying %v the stock still has no passing build", res.Shortfall.Buy)
+	}
+	t.Logf("reasons %q, buy %q", res.Shortfall.Reasons, res.Shortfall.Buy)
+}

@@ -1,0 +1,64 @@
+package picker
+
+import (
+	"errors"
+	"strings"
+	"testing"
+
+	"biasbin/solver"
+	"biasbin/solver/eseries"
+)
+
+// TestBadInput: every bad request or stock is an *InputError naming the
+// field and saying what would fix it.
+func TestBadInput(t *testing.T) {
+	good := Stock{Resistors: seriesStock(eseries.E12, 100, 100e3, 0.05, 0.25, 10, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	base := Request{VCC_V: 12, IC_A: 1e-3}
+	cases := []struct {
+		name  string
+		stock Stock
+		mod   func(*Request)
+		field string
+	}{
+		{"empty stock", Stock{}, func(*Request) {}, "stock"},
+		{"no resistors", Stock{Transistors: good.Transistors}, func(*Request) {}, "stock"},
+		{"no transistor of the polarity", good, func(r *Request) { r.VCC_V = -12 }, "polarity"},
+		{"zero supply", good, func(r *Request) { r.VCC_V = 0 }, "vcc"},
+		{"pnp with a positive rail", good, func(r *Request) { r.Polarity = solver.PNP }, "vcc"},
+		{"no current", good, func(r *Request) { r.IC_A = 0 }, "ic"},
+		{"current the supply cannot drive", good, func(r *Request) { r.IC_A = 0.5 }, "ic"},
+		{"vce above the supply", good, func(r *Request) { r.VCE_V = 12 }, "vce"},
+		{"negative weight", good, func(r *Request) { r.Weights = Weights{QPoint: 1, Beta: -1} }, "weights.beta"},
+		{"ambient upside down", good, func(r *Request) { r.AmbientMin_C, r.AmbientMax_C = 60, 10 }, "ambient"},
+		{"negative boards", good, func(r *Request) { r.Boards = -2 }, "boards"},
+		{"negative load", good, func(r *Request) { r.RL_Ohm = -1 }, "load"},
+		{"other topology", good, func(r *Request) { r.Topology = solver.SplitSupply }, "topology"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			req := base
+			c.mod(&req)
+			_, err := Pick(c.stock, req)
+			var ie *InputError
+			if !errors.As(err, &ie) {
+				t.Fatalf("error %v, want an *InputError", err)
+			}
+			if ie.Field != c.field || ie.Fix == "" || !strings.Contains(err.Error(), ie.Fix) {
+				t.Errorf("error %q: field %q (want %q), fix %q", err, ie.Field, c.field, ie.Fix)
+			}
+		})
+	}
+}
+
+// TestDefaults: the zero request fields take the documented defaults.
+func TestDefaults(t *testing.T) {
+	s, err := normalize(Request{VCC_V: -9, IC_A: 1e-3})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if s.pol != solver.PNP || s.vcc != 9 || s.top != DefaultTop || s.boards != 1 || s.ambMin != 0 || s.ambMax != 50 ||
+		s.w != DefaultWeights() || s.pool != 2*DefaultTop+5 || s.yieldBoards != DefaultYieldBoards ||
+		s.lim.ResistorMaxFraction != 0.5 || s.lim.VCEMargin_V != 0.5 {
+		t.Errorf("defaults: %+v", s)
+	}
+}
