@@ -217,10 +217,6 @@ func (t *tuple) icAtMost(ic float64) bool { return !t.ok || t.op.IC_A <= ic }
 // vceAtMost reports whether the tuple's nominal VCE is at most v.
 func (t *tuple) vceAtMost(v float64) bool { return !t.ok || t.op.VCE_V <= v }
 
-// betaCutSafety is the share of a probed beta term the R2 cut-off trusts
-// (see doc.go, bound B): 0.9.
-const betaCutSafety = 0.9
-
 // bounds are the threshold-derived limits in force at one point of the
 // search: any build that can still enter the pool has its nominal IC in
 // [icLo, icHi] and its nominal VCE within delta·VCC of its target.
@@ -336,54 +332,38 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	w := e.s.w
 	dv := &e.devs[di]
 	reOhm := e.vs.levels[re].ohm
-	var bd bounds
 	d.cache = map[[nPos]int]*tuple{}
 	guessLo, guessHi := n/2, n/2
-	lastLo, haveLo := 0, false
 	for r2 := range n {
-		bd = e.boundsNow(p)
+		bd := e.boundsNow(p)
 		rcLo, rcHi := e.rcBand(bd, reOhm, kE, vceLo, vceHi)
 		if rcLo > rcHi {
 			break // the band only narrows as the threshold falls
 		}
 		r1Lo, r1Hi := 0, n-1
-		uDiv := 0.0
 		if bd.finite {
-			// Bound U-R2 (divider power, see dividerPowerBound).
+			// Bound U-R2 (divider power, see dividerPowerBound) and bound
+			// B (betaFloor): every build here carries RE, so its
+			// utilization is at least RE's, icLo²·RE over RE's best
+			// allowance, and at least the divider bound; its beta term
+			// is at least the floor at the smallest R_TH this R2 allows.
+			// The floor rises with R2, so once it and RE's utilization
+			// alone are over the threshold every larger R2 is out too.
 			vbeLo, vbeHi := e.vbeBounds(dv, bd.icLo, bd.icHi)
-			uDiv = e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbeHi+bd.icHi*kE*reOhm)
-			if w.Utilization*uDiv > bd.thr {
-				continue
-			}
-		}
-		// Bound B (lemma L3): the beta term grows with R1 and R2 along
-		// the staircase, and every admissible build at this or a larger
-		// R2 has R1 at or above the low end of the R1 range found at any
-		// smaller R2 (that end only rises with R2 and as the threshold
-		// falls), so the smaller probe at that R1 and this R2 at the two
-		// ends of the RC band bounds the beta term of all of them. Every
-		// build at this RE also carries RE, so its utilization is at least
-		// RE's (icLo²·RE over RE's best allowance); at this R2 it is at
-		// least the divider bound too.
-		cutB := func(r1 int) (stop, skip bool) {
-			if !bd.finite || w.Beta <= 0 || r1 >= n {
-				return false, false
-			}
-			bmin := d.betaProbe(e, di, r1, r2, re, rcLo, rcHi, cnt)
+			vbHi := vbeHi + bd.icHi*kE*reOhm
+			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
 			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-			return w.Beta*betaCutSafety*bmin+w.Utilization*uRE > bd.thr,
-				w.Beta*betaCutSafety*bmin+w.Utilization*math.Max(uRE, uDiv) > bd.thr
-		}
-		if haveLo {
-			stop, skip := cutB(lastLo)
-			if stop {
+			bLo := 0.0
+			if w.Beta > 0 {
+				rth := e.rthFloor(e.vs.levels[r2].ohm, vbHi, 2*bd.icHi/dv.hfeMin)
+				bLo = e.betaFloor(dv, rth, reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi)
+			}
+			if w.Beta*bLo+w.Utilization*uRE > bd.thr {
 				break
 			}
-			if skip {
+			if w.Beta*bLo+w.Utilization*math.Max(uRE, uDiv) > bd.thr {
 				continue
 			}
-		}
-		if bd.finite {
 			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, RC = 0),
 			// which falls with R1 (lemmas L1, L2).
 			r1Hi = firstFrom(n, guessHi, func(i int) bool {
@@ -391,9 +371,9 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				return t.ok && t.op.IC_A < bd.icLo
 			}) - 1
 			// Bound IC-R1 low side: the lowest IC any build at R1
-			// that is active at its nominal point can have.
-			// (Only when a saturated nominal point implies a failing
-			// corner: the ambient range reaches 25 °C or lies above.)
+			// that is active at its nominal point can have (only when a
+			// saturated nominal point implies a failing corner: the
+			// ambient range reaches 25 °C or lies above).
 			if e.s.ambMax >= NominalAmbient_C {
 				r1Lo = firstFrom(n, guessLo, func(i int) bool {
 					ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, cnt)
@@ -401,39 +381,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				})
 			}
 			guessLo, guessHi = r1Lo, r1Hi+1
-			if !haveLo {
-				stop, skip := cutB(r1Lo)
-				if stop {
-					break
-				}
-				if skip {
-					lastLo, haveLo = r1Lo, true
-					continue
-				}
-			}
-			lastLo, haveLo = r1Lo, true
 		}
 		for r1 := r1Lo; r1 <= r1Hi; r1++ {
 			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi)
 		}
 	}
-}
-
-// betaProbe is the smaller beta term of (r1, r2, re) at RC levels rcLo
-// and rcHi; 0 when either cannot be solved (then it bounds nothing).
-func (d *dividerPlan) betaProbe(e *evaluator, di, r1, r2, re, rcLo, rcHi int, cnt *counters) float64 {
-	bmin := math.Inf(1)
-	for _, rc := range []int{rcLo, rcHi} {
-		t := d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt)
-		if t.ok {
-			e.betaSpread(t, cnt)
-		}
-		if !t.ok || !t.betaOK {
-			return 0
-		}
-		bmin = math.Min(bmin, math.Abs(t.beta))
-	}
-	return bmin
 }
 
 // icFloor is the lower envelope of the nominal IC over the builds at
