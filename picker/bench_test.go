@@ -6,12 +6,12 @@ import (
 	"biasbin/solver/eseries"
 )
 
-// benchTransistors returns n invented NPN lines with hFE ranges from 2:1
-// to 4:1.
+// benchTransistors returns n invented NPN types, all different: hFE min
+// from 60 up in steps of 15, ranges from 2:1 to 4:1.
 func benchTransistors(n int) []Transistor {
 	var ts []Transistor
 	for i := range n {
-		hmin := 60 + 20*float64(i%6)
+		hmin := 60 + 15*float64(i)
 		ts = append(ts, smallNPN(int64(1+i), hmin, hmin*(2+float64(i%3))))
 	}
 	return ts

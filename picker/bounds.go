@@ -63,6 +63,19 @@ func (e *evaluator) dividerPowerBound(r2 int, vbLo, vbHi float64) float64 {
 	return u
 }
 
+// dividerPowerBoundWeak is dividerPowerBound with R2's allowance
+// replaced by the best of any value: weaker, but falling with R2, so the
+// first R2 it admits can be found by bisection.
+func (e *evaluator) dividerPowerBoundWeak(r2 int, vbLo, vbHi float64) float64 {
+	r2Ohm := e.vs.levels[r2].ohm
+	p := vbLo * vbLo / r2Ohm
+	vcc := e.s.vcc
+	if vbHi < vcc && vbLo > 0 {
+		p = math.Max(p, math.Min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi)/r2Ohm)
+	}
+	return p / e.vs.allowHotMax_W
+}
+
 // firstFrom returns the first index in [0, n) where the monotone
 // predicate f turns true (n when it never does), searching outward from
 // a guess (galloping), so a guess near the answer costs few calls.
@@ -104,7 +117,7 @@ const betaFloorMargin = 0.9
 
 // betaFloor is a lower bound on the beta term of every build of dv with
 // R_TH ≥ rth, this RE, RC ≤ rcMax, the typical-hFE IC at least icLo and
-// at most icHi, forward-active (see doc.go, bound B). Derivation, in the
+// at most icHi and VBE at most vbeHi (vbeBounds), forward-active (see doc.go, bound B). Derivation, in the
 // transport model the solver uses (IC = Ibe·E − Ibc/BR, IB = Ibe/BF + …,
 // E = 1 − VBC/VAF; terms of the order of IS dropped): the base loop is
 // V_TH − VBE = IC·g(β) with g(β) = R_TH/β + RE(1 + 1/β), β = BF·E, and
@@ -125,7 +138,7 @@ const betaFloorMargin = 0.9
 // current), IC2 ≤ icHi·hFE max/hFE typ, and the term (IC2 − IC1)/IC ≥
 // X/(1 + X) since IC ≤ IC2. The bound rises with R_TH and falls with RE.
 // It is 0 when the model has a leakage current.
-func (e *evaluator) betaFloor(dv *device, rth, reOhm, rcMax, icLo, icHi float64) float64 {
+func (e *evaluator) betaFloor(dv *device, rth, reOhm, rcMax, icLo, icHi, vbeHi float64) float64 {
 	m := dv.typ
 	if m.ICBO_A > 0 || icLo <= 0 {
 		return 0
@@ -145,7 +158,6 @@ func (e *evaluator) betaFloor(dv *device, rth, reOhm, rcMax, icLo, icHi float64)
 	if fLo > fHi {
 		fLo, fHi = fHi, fLo
 	}
-	_, vbeHi := e.vbeBounds(dv, icLo, icHi)
 	eMin, eMax, re := 1.0, 1.0, 0.0
 	nvt := m.NF * solver.ThermalVoltage_V(tjHi)
 	if m.VAF_V > 0 {

@@ -34,7 +34,8 @@ func TestDbgBetaFloor(t *testing.T) {
 			}
 			r := a.r
 			rth := r[0] * r[1] / (r[0] + r[1])
-			lb := e.betaFloor(&e.devs[di], rth, r[3], r[2], a.op.IC_A, a.op.IC_A)
+			_, vh := e.vbeBounds(&e.devs[di], a.op.IC_A, a.op.IC_A)
+			lb := e.betaFloor(&e.devs[di], rth, r[3], r[2], a.op.IC_A, a.op.IC_A, vh)
 			tot++
 			if lb > 0 {
 				minRatio = math.Min(minRatio, math.Abs(a.beta)/lb)

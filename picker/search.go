@@ -63,6 +63,8 @@ type dividerPlan struct {
 	e *evaluator
 	// cache of solved level tuples of the current device and RE
 	cache map[[nPos]int]*tuple
+	// splitGuess is where the last RC scan split (a start for the next)
+	splitGuess int
 	// best passing seed score and its RE level per device: the search
 	// visits devices from the best seed and each device's RE levels
 	// outward from its best seed (any order is sound; this one tightens
@@ -334,13 +336,28 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	reOhm := e.vs.levels[re].ohm
 	d.cache = map[[nPos]int]*tuple{}
 	guessLo, guessHi := n/2, n/2
-	for r2 := range n {
+	var vbeLo, vbeHi, lastThr float64
+	start := 0
+	if bd := e.boundsNow(p); bd.finite {
+		// Skip the R2 levels whose divider bound, with the best allowance
+		// of any value (a weaker bound that falls with R2), is over.
+		lo, hi := e.vbeBounds(dv, bd.icLo, bd.icHi)
+		vbLo, vbHi := lo+bd.icLo*reOhm, hi+bd.icHi*kE*reOhm
+		start = firstLevel(n, func(i int) bool {
+			return w.Utilization*e.dividerPowerBoundWeak(i, vbLo, vbHi) <= bd.thr
+		})
+	}
+	for r2 := start; r2 < n; r2++ {
 		bd := e.boundsNow(p)
 		rcLo, rcHi := e.rcBand(bd, reOhm, kE, vceLo, vceHi)
 		if rcLo > rcHi {
 			break // the band only narrows as the threshold falls
 		}
 		r1Lo, r1Hi := 0, n-1
+		if bd.finite && bd.thr != lastThr {
+			vbeLo, vbeHi = e.vbeBounds(dv, bd.icLo, bd.icHi)
+			lastThr = bd.thr
+		}
 		if bd.finite {
 			// Bound U-R2 (divider power, see dividerPowerBound) and bound
 			// B (betaFloor): every build here carries RE, so its
@@ -349,14 +366,13 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// is at least the floor at the smallest R_TH this R2 allows.
 			// The floor rises with R2, so once it and RE's utilization
 			// alone are over the threshold every larger R2 is out too.
-			vbeLo, vbeHi := e.vbeBounds(dv, bd.icLo, bd.icHi)
 			vbHi := vbeHi + bd.icHi*kE*reOhm
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
 			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
 			bLo := 0.0
 			if w.Beta > 0 {
 				rth := e.rthFloor(e.vs.levels[r2].ohm, vbHi, 2*bd.icHi/dv.hfeMin)
-				bLo = e.betaFloor(dv, rth, reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi)
+				bLo = e.betaFloor(dv, rth, reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi, vbeHi)
 			}
 			if w.Beta*bLo+w.Utilization*uRE > bd.thr {
 				break
@@ -422,19 +438,29 @@ func (d *dividerPlan) icFloor(di, r1, r2, re, rcLo, rcHi int, cnt *counters) (ic
 // band. IC falls with RC too, so going down an IC already over the target
 // only moves further off, and going up one already under it likewise.
 func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, re, rcLo, rcHi int, vceLo, vceHi float64) {
-	w, vcc := e.s.w, e.s.vcc
+	w, vcc, ict := e.s.w, e.s.vcc, e.s.icT
 	tup := func(rc int) *tuple { return d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt) }
-	split := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool { return tup(rcLo + i).vceAtMost(vceHi) })
+	// IC at RC = 0 bounds IC at every RC from above (lemma L2), so going
+	// down an IC under the target stays at least that far under.
+	icUp := math.Inf(1)
+	if t, ok := d.cache[[nPos]int{r1, r2, zeroRC, re}]; ok && t.ok {
+		icUp = t.op.IC_A
+	}
+	split := rcLo + firstFrom(rcHi-rcLo+1, d.splitGuess-rcLo, func(i int) bool { return tup(rcLo + i).vceAtMost(vceHi) })
+	d.splitGuess = split
 	for rc := split - 1; rc >= rcLo; rc-- {
 		t := tup(rc)
-		if t.ok && w.QPoint*((t.op.VCE_V-vceHi)/vcc+math.Max(0, t.op.IC_A-e.s.icT)/e.s.icT) > p.threshold() {
-			break
+		if t.ok {
+			icOff := math.Max(0, math.Max(t.op.IC_A-ict, ict-icUp)) / ict
+			if w.QPoint*((t.op.VCE_V-vceHi)/vcc+icOff) > p.threshold() {
+				break
+			}
 		}
 		e.scoreVariants(t, p.threshold, p.add, cnt)
 	}
 	for rc := split; rc <= rcHi; rc++ {
 		t := tup(rc)
-		if t.ok && w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, e.s.icT-t.op.IC_A)/e.s.icT) > p.threshold() {
+		if t.ok && w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
 			break
 		}
 		e.scoreVariants(t, p.threshold, p.add, cnt)
