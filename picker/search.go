@@ -354,6 +354,9 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			break // the band only narrows as the threshold falls
 		}
 		r1Lo, r1Hi := 0, n-1
+		// base is a lower bound on the beta and utilization terms of
+		// every build at this R2: bLo·w_Beta + uBase·w_Utilization.
+		var base, bLo, uBase float64
 		if bd.finite && bd.thr != lastThr {
 			vbeLo, vbeHi = e.vbeBounds(dv, bd.icLo, bd.icHi)
 			lastThr = bd.thr
@@ -369,7 +372,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			vbHi := vbeHi + bd.icHi*kE*reOhm
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
 			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-			bLo := 0.0
+			bLo = 0
 			if w.Beta > 0 {
 				rth := e.rthFloor(e.vs.levels[r2].ohm, vbHi, 2*bd.icHi/dv.hfeMin)
 				bLo = e.betaFloor(dv, rth, reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi, vbeHi)
@@ -377,14 +380,24 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			if w.Beta*bLo+w.Utilization*uRE > bd.thr {
 				break
 			}
-			if w.Beta*bLo+w.Utilization*math.Max(uRE, uDiv) > bd.thr {
+			uBase = math.Max(uRE, uDiv)
+			base = w.Beta*bLo + w.Utilization*uBase
+			if base > bd.thr {
 				continue
+			}
+			// What is left of the threshold bounds the QPoint term of
+			// every build at this R2, so the IC window narrows to
+			// ±(T − base)/w_QPoint.
+			icLo, icHi := bd.icLo, bd.icHi
+			if w.QPoint > 0 {
+				d2 := (bd.thr - base) / w.QPoint
+				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 			}
 			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, RC = 0),
 			// which falls with R1 (lemmas L1, L2).
 			r1Hi = firstFrom(n, guessHi, func(i int) bool {
 				t := d.tuple(di, [nPos]int{i, r2, zeroRC, re}, cnt)
-				return t.ok && t.op.IC_A < bd.icLo
+				return t.ok && t.op.IC_A < icLo
 			}) - 1
 			// Bound IC-R1 low side: the lowest IC any build at R1
 			// that is active at its nominal point can have (only when a
@@ -393,13 +406,29 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			if e.s.ambMax >= NominalAmbient_C {
 				r1Lo = firstFrom(n, guessLo, func(i int) bool {
 					ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, cnt)
-					return any && ic <= bd.icHi
+					return any && ic <= icHi
 				})
 			}
 			guessLo, guessHi = r1Lo, r1Hi+1
 		}
 		for r1 := r1Lo; r1 <= r1Hi; r1++ {
-			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi)
+			b1 := base
+			if bd.finite {
+				// At a known R1 the beta floor takes the exact R_TH and R1
+				// dissipates (VCC − VB)²/R1 ≥ (VCC − vbHi)²/R1.
+				r1Ohm, r2Ohm := e.vs.levels[r1].ohm, e.vs.levels[r2].ohm
+				vbHi := vbeHi + bd.icHi*kE*reOhm
+				bR1 := 0.0
+				if w.Beta > 0 {
+					bR1 = e.betaFloor(dv, r1Ohm*r2Ohm/(r1Ohm+r2Ohm), reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi, vbeHi)
+				}
+				uR1 := 0.0
+				if vbHi < e.s.vcc {
+					uR1 = (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.levels[r1].allowHot_W
+				}
+				b1 = w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1)
+			}
+			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi, kE, b1)
 		}
 	}
 }
@@ -437,30 +466,50 @@ func (d *dividerPlan) icFloor(di, r1, r2, re, rcLo, rcHi int, cnt *counters) (ic
 // down, and from it upward only grows once VCE is under the bottom of the
 // band. IC falls with RC too, so going down an IC already over the target
 // only moves further off, and going up one already under it likewise.
-func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, re, rcLo, rcHi int, vceLo, vceHi float64) {
+func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, re, rcLo, rcHi int, vceLo, vceHi, kE, base float64) {
 	w, vcc, ict := e.s.w, e.s.vcc, e.s.icT
 	tup := func(rc int) *tuple { return d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt) }
-	// IC at RC = 0 bounds IC at every RC from above (lemma L2), so going
-	// down an IC under the target stays at least that far under.
-	icUp := math.Inf(1)
+	reOhm := e.vs.levels[re].ohm
+	// IC at RC = 0 bounds IC at every RC from above and, for builds active
+	// at their nominal point, IC at the top of the band bounds it from
+	// below (lemma L2); both are usually solved already by the R1 range
+	// search. With them VCE = VCC − IC·RC − IE·RE is bounded before a
+	// solve: VCE ≥ VCC − icUp(RC + kE·RE) and VCE ≤ VCC − icDn(RC + RE).
+	icUp, icDn := math.Inf(1), 0.0
 	if t, ok := d.cache[[nPos]int{r1, r2, zeroRC, re}]; ok && t.ok {
 		icUp = t.op.IC_A
+	}
+	if t, ok := d.cache[[nPos]int{r1, r2, rcHi, re}]; ok && t.ok && t.op.Region == solver.Active {
+		icDn = t.op.IC_A
+	}
+	// the QPoint term's IC part is at least the envelope's distance
+	// from the target; with the other terms' floor that may settle it
+	if base+w.QPoint*math.Max(0, math.Max(icDn-ict, ict-icUp))/ict > p.threshold() {
+		return
 	}
 	split := rcLo + firstFrom(rcHi-rcLo+1, d.splitGuess-rcLo, func(i int) bool { return tup(rcLo + i).vceAtMost(vceHi) })
 	d.splitGuess = split
 	for rc := split - 1; rc >= rcLo; rc-- {
+		rcOhm := e.vs.levels[rc].ohm
+		if vceMin := vcc - icUp*(rcOhm+kE*reOhm); base+w.QPoint*(vceMin-vceHi)/vcc > p.threshold() {
+			break
+		}
 		t := tup(rc)
 		if t.ok {
 			icOff := math.Max(0, math.Max(t.op.IC_A-ict, ict-icUp)) / ict
-			if w.QPoint*((t.op.VCE_V-vceHi)/vcc+icOff) > p.threshold() {
+			if base+w.QPoint*((t.op.VCE_V-vceHi)/vcc+icOff) > p.threshold() {
 				break
 			}
 		}
 		e.scoreVariants(t, p.threshold, p.add, cnt)
 	}
 	for rc := split; rc <= rcHi; rc++ {
+		rcOhm := e.vs.levels[rc].ohm
+		if vceMax := vcc - icDn*(rcOhm+reOhm); base+w.QPoint*(vceLo-vceMax)/vcc > p.threshold() {
+			break
+		}
 		t := tup(rc)
-		if t.ok && w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
+		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
 			break
 		}
 		e.scoreVariants(t, p.threshold, p.add, cnt)
