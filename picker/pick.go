@@ -33,7 +33,7 @@ func pickCore(stock Stock, req Request, withShortfall bool) (Result, error) {
 	e, rejected := newEvaluator(s, stock)
 	var res Result
 	var cnt counters
-	p := &pool{size: s.pool}
+	p := newPool(s.pool)
 	if len(e.devs) > 0 && len(e.vs.levels) > 0 {
 		pl := planFor(e)
 		if s.req.Exhaustive {

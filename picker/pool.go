@@ -3,16 +3,30 @@ package picker
 import (
 	"math"
 	"slices"
+	"sync"
+	"sync/atomic"
 )
 
-// pool keeps the best `size` builds by the ranking order (see less).
+// pool keeps the best `size` builds by the ranking order (see less). It
+// is safe for concurrent use: add locks, threshold reads an atomic copy.
 type pool struct {
 	size  int
+	mu    sync.Mutex
 	items []*evaluated
+	thr   atomic.Uint64 // math.Float64bits of the threshold
+}
+
+// newPool returns an empty pool of the given size.
+func newPool(size int) *pool {
+	p := &pool{size: size}
+	p.thr.Store(math.Float64bits(math.Inf(1)))
+	return p
 }
 
 // add offers ev to the pool; a build already in it is ignored.
 func (p *pool) add(ev *evaluated) {
+	p.mu.Lock()
+	defer p.mu.Unlock()
 	if len(p.items) == p.size && !less(ev, p.items[len(p.items)-1]) {
 		return
 	}
@@ -29,6 +43,7 @@ func (p *pool) add(ev *evaluated) {
 	if len(p.items) > p.size {
 		p.items = p.items[:p.size]
 	}
+	p.thr.Store(math.Float64bits(p.computeThreshold()))
 }
 
 // threshold is the score a build must not exceed to enter the pool: the
@@ -37,7 +52,10 @@ func (p *pool) add(ev *evaluated) {
 // more than the threshold can never enter, whether it passes or not: a
 // passing build would rank below the last member, a failing one below
 // every passing build.
-func (p *pool) threshold() float64 {
+func (p *pool) threshold() float64 { return math.Float64frombits(p.thr.Load()) }
+
+// computeThreshold is threshold from the members (called under the lock).
+func (p *pool) computeThreshold() float64 {
 	if len(p.items) < p.size {
 		return math.Inf(1)
 	}

@@ -3,7 +3,10 @@ package picker
 import (
 	"cmp"
 	"math"
+	"runtime"
 	"slices"
+	"sync"
+	"sync/atomic"
 
 	"biasbin/solver"
 )
@@ -277,7 +280,6 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 	}
 	s := &e.s
 	w := s.w
-	total := int64(len(e.devs) * n)
 	order := make([]int, len(e.devs))
 	for i := range order {
 		order[i] = i
@@ -285,48 +287,96 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 	if len(d.seedBest) == len(e.devs) {
 		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(d.seedBest[a], d.seedBest[b]) })
 	}
-	done := int64(0)
+	// The work: per device, RE levels from the best seed upward, then
+	// downward below it. Workers take items in this order; an upward run
+	// ends for everyone once one RE in it fails a bound that rises with
+	// RE (U-RE, Q-RE), whatever worker found it.
+	type item struct {
+		di, re int
+		up     bool
+	}
+	var items []item
 	for _, di := range order {
-		dv := &e.devs[di]
-		vceLo, vceHi := e.targetBand(dv)
-		kE := 1 + 2/dv.hfeMin
-		rcMinOhm := e.vs.levels[0].ohm
 		start := 0
 		if len(d.seedRE) == len(e.devs) {
 			start = d.seedRE[di]
 		}
-		// visit handles one RE level; it returns false when every larger
-		// RE is out too (the bounds U-RE and Q-RE rise with RE).
-		visit := func(re int) bool {
-			done++
-			e.progress(done, total)
-			bd := e.boundsNow(p)
-			reOhm := e.vs.levels[re].ohm
-			if bd.finite {
-				// Bound U-RE: P(RE) = IE²·RE ≥ icLo²·RE.
-				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr {
-					return false
-				}
-				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W > bd.thr {
-					return true
-				}
-				// Bound Q-RE: VCE ≤ VCC − IC·(RC + RE) ≤ VCC − icLo·(RCmin + RE).
-				if w.QPoint*(vceLo-(s.vcc-bd.icLo*(rcMinOhm+reOhm)))/s.vcc > bd.thr {
-					return false
-				}
-			}
-			d.searchRE(e, p, cnt, di, re, kE, vceLo, vceHi)
-			return true
-		}
-		// RE levels from the best seed upward, then downward below it.
-		for re := start; re < n && visit(re); re++ {
+		for re := start; re < n; re++ {
+			items = append(items, item{di, re, true})
 		}
 		for re := start - 1; re >= 0; re-- {
-			visit(re)
+			items = append(items, item{di, re, false})
 		}
+	}
+	upStop := make([]atomic.Int64, len(e.devs))
+	for i := range upStop {
+		upStop[i].Store(int64(n))
+	}
+	total := int64(len(items))
+	var next atomic.Int64
+	var progressMu sync.Mutex
+	worker := func(wd *dividerPlan, wc *counters) {
+		for {
+			i := next.Add(1) - 1
+			if i >= total {
+				return
+			}
+			it := items[i]
+			if i%64 == 0 {
+				progressMu.Lock()
+				e.progress(i, total)
+				progressMu.Unlock()
+			}
+			if it.up && int64(it.re) >= upStop[it.di].Load() {
+				continue
+			}
+			dv := &e.devs[it.di]
+			vceLo, vceHi := e.targetBand(dv)
+			kE := 1 + 2/dv.hfeMin
+			bd := e.boundsNow(p)
+			reOhm := e.vs.levels[it.re].ohm
+			if bd.finite {
+				// Bound U-RE: P(RE) = IE²·RE ≥ icLo²·RE. Bound Q-RE:
+				// VCE ≤ VCC − IC·(RC + RE) ≤ VCC − icLo·(RCmin + RE).
+				// Both rise with RE.
+				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr ||
+					w.QPoint*(vceLo-(s.vcc-bd.icLo*(e.vs.levels[0].ohm+reOhm)))/s.vcc > bd.thr {
+					if it.up {
+						for {
+							cur := upStop[it.di].Load()
+							if int64(it.re) >= cur || upStop[it.di].CompareAndSwap(cur, int64(it.re)) {
+								break
+							}
+						}
+					}
+					continue
+				}
+				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[it.re].allowHot_W > bd.thr {
+					continue
+				}
+			}
+			wd.searchRE(e, p, wc, it.di, it.re, kE, vceLo, vceHi)
+		}
+	}
+	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0)))
+	var wg sync.WaitGroup
+	wcnt := make([]counters, workers)
+	for k := range workers {
+		wd := &dividerPlan{e: e}
+		wg.Go(func() { worker(wd, &wcnt[k]) })
+	}
+	wg.Wait()
+	for _, c := range wcnt {
+		cnt.evaluated += c.evaluated
+		cnt.solves += c.solves
 	}
 	e.progress(total, total)
 }
+
+// searchWorkers is the number of goroutines of the default search. The
+// result does not depend on it: the pool keeps the exact best builds
+// whatever order they arrive in; only the counters of work done vary.
+const searchWorkers = 2
 
 // searchRE covers every build of device di with RE level re.
 func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int, kE, vceLo, vceHi float64) {
