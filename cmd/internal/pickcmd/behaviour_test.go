@@ -172,6 +172,74 @@ func TestNothingFits(t *testing.T) {
 	}
 }
 
+func TestFewerBoards(t *testing.T) {
+	tests := []struct {
+		boards, limit int // the fake stock builds up to limit boards
+		want          int
+		maxSearches   int
+	}{
+		{30, 12, 12, 5}, // log2(30) rounded up
+		{30, 29, 29, 5},
+		{30, 1, 1, 5},
+		{30, 0, 0, 5},
+		{2, 1, 1, 1},
+	}
+	for _, tt := range tests {
+		searches := 0
+		pick := func(_ picker.Stock, r picker.Request) (picker.Result, error) {
+			searches++
+			if r.Boards > tt.limit {
+				return picker.Result{}, nil
+			}
+			c := fakeCandidate(1)
+			c.ID = fmt.Sprint(r.Boards)
+			return picker.Result{Candidates: []picker.Candidate{c}}, nil
+		}
+		req := fakeRequest()
+		req.Boards = tt.boards
+		n, res, err := fewerBoards(pick, picker.Stock{}, req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if n != tt.want {
+			t.Errorf("%d boards, stock for %d: found %d", tt.boards, tt.limit, n)
+		}
+		if n > 0 && (len(res.Candidates) != 1 || res.Candidates[0].ID != fmt.Sprint(n)) {
+			t.Errorf("%d boards, stock for %d: result is not the search for %d boards: %+v", tt.boards, tt.limit, n, res.Candidates)
+		}
+		if searches > tt.maxSearches {
+			t.Errorf("%d boards: %d searches, want at most %d", tt.boards, searches, tt.maxSearches)
+		}
+	}
+}
+
+func TestStockRunsShort(t *testing.T) {
+	path := newTestDB(t, smallBatch()) // QN-104A: 10 in stock
+	pick := func(_ picker.Stock, r picker.Request) (picker.Result, error) {
+		if r.Boards > 10 {
+			return picker.Result{Shortfall: &picker.Shortfall{Rejected: []string{"QN-104A (line 4, bin D1): only 10 in stock"}}}, nil
+		}
+		return picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}, nil
+	}
+	inv := runPick(t, path, pick, "--vcc", "12V", "--ic", "1mA", "--boards", "25")
+	if cmdutil.ExitCode(inv.err) != 1 {
+		t.Errorf("exit %d, want 1: the run as asked does not fit", cmdutil.ExitCode(inv.err))
+	}
+	for _, w := range []string{"Nothing fits 25 boards: the stock on hand builds at most 10.", "Pull list for #1, 25 boards"} {
+		if !strings.Contains(inv.stdout, w) {
+			t.Errorf("stdout lacks %q:\n%s", w, inv.stdout)
+		}
+	}
+	// fakeCandidate's QN-104A line 10 holds 8 (fakeStock is not this
+	// stock: the pull list counts on-hand from the stock read, where
+	// line 10 does not exist, so all 25 are to buy).
+	for _, w := range []string{"left out: QN-104A", "25 × QN-104A for build #1 on all 25 boards", "builds 10 of the 25 boards"} {
+		if !strings.Contains(inv.stderr, w) {
+			t.Errorf("stderr lacks %q:\n%s", w, inv.stderr)
+		}
+	}
+}
+
 func TestPickPassesStockAndRequest(t *testing.T) {
 	path := newTestDB(t, smallBatch())
 	var got picker.Stock

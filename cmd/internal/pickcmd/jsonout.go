@@ -13,14 +13,17 @@ import (
 // jsonResult is the --json document. Units are SI base units; keys carry
 // the unit (ic_a, vce_v).
 type jsonResult struct {
-	Request    jsonRequest     `json:"request"`
-	Evaluated  int64           `json:"evaluated"`
-	Solved     int64           `json:"solved"`
-	Considered int64           `json:"considered"`
-	Fits       bool            `json:"fits"`
-	Candidates []jsonCandidate `json:"candidates"`
-	Shortfall  *jsonShortfall  `json:"shortfall"`
-	Cautions   []string        `json:"cautions"`
+	Request    jsonRequest `json:"request"`
+	Evaluated  int64       `json:"evaluated"`
+	Solved     int64       `json:"solved"`
+	Considered int64       `json:"considered"`
+	Fits       bool        `json:"fits"`
+	// BuildableBoards is set when the stock runs short for the run: the
+	// most boards it builds; candidates are then the builds for that many.
+	BuildableBoards int             `json:"buildable_boards,omitempty"`
+	Candidates      []jsonCandidate `json:"candidates"`
+	Shortfall       *jsonShortfall  `json:"shortfall"`
+	Cautions        []string        `json:"cautions"`
 }
 
 type jsonRequest struct {
@@ -135,18 +138,19 @@ type jsonShortfall struct {
 // writeJSON writes the whole result as one indented JSON document.
 func writeJSON(w io.Writer, v view) error {
 	doc := jsonResult{
-		Request:    jsonRequestOf(v.req),
-		Evaluated:  v.res.Evaluated,
-		Solved:     v.res.Solved,
-		Considered: v.res.Considered,
-		Fits:       v.fits(),
-		Candidates: []jsonCandidate{},
-		Cautions:   v.cautions(),
+		Request:         jsonRequestOf(v.req),
+		Evaluated:       v.res.Evaluated,
+		Solved:          v.res.Solved,
+		Considered:      v.res.Considered,
+		Fits:            v.fits(),
+		BuildableBoards: v.buildable,
+		Candidates:      []jsonCandidate{},
+		Cautions:        v.cautions(),
 	}
 	if doc.Cautions == nil {
 		doc.Cautions = []string{}
 	}
-	for _, c := range v.res.Candidates {
+	for _, c := range v.shown() {
 		doc.Candidates = append(doc.Candidates, v.jsonCandidate(c))
 	}
 	if s := v.res.Shortfall; s != nil {

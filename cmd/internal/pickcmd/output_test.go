@@ -72,6 +72,12 @@ func TestOutputGolden(t *testing.T) {
 				Reasons: []string{"bin B1 holds 3 of 4K7 5 % 0.25 W; 4 boards need 4"},
 				Buy:     []string{"4K7 5 % 0.25 W (E24) for R2: at least 1 more"},
 			}}}, false},
+		{"short_run", view{req: fakeRequest(), stock: fakeStock(), buildable: 3,
+			res:   picker.Result{Shortfall: &picker.Shortfall{Rejected: []string{"QN-104A (line 10, bin D1): only 8 in stock"}}},
+			fewer: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}, false},
+		{"short_run_json", view{req: fakeRequest(), stock: fakeStock(), buildable: 3,
+			res:   picker.Result{Shortfall: &picker.Shortfall{Rejected: []string{"QN-104A (line 10, bin D1): only 8 in stock"}}},
+			fewer: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}, true},
 		{"hot", view{req: hot, stock: fakeStock(), res: picker.Result{Candidates: []picker.Candidate{hotCand}}}, false},
 	}
 	for _, tt := range tests {

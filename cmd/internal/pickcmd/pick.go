@@ -130,8 +130,15 @@ func Run(ctx context.Context, o *Options) error {
 	if err != nil {
 		return pickError(err)
 	}
-	req.Progress = nil
 	v := view{req: req, res: res, stock: stock}
+	if len(res.Candidates) == 0 && req.Boards > 1 {
+		// The run is too large for the stock: find how many boards the
+		// parts on hand do build, and show those builds as the nearest.
+		if v.buildable, v.fewer, err = fewerBoards(o.Pick, stock, req); err != nil {
+			return pickError(err)
+		}
+	}
+	v.req.Progress = nil
 	if o.JSON {
 		if err := writeJSON(o.IO.Out, v); err != nil {
 			return fmt.Errorf("write JSON: %w", err)
@@ -144,6 +151,30 @@ func Run(ctx context.Context, o *Options) error {
 		return cmdutil.ErrSilent
 	}
 	return nil
+}
+
+// fewerBoards finds the largest number of boards below req.Boards that the
+// stock builds (fewer boards only loosen the quantity limits, so a binary
+// search is exact) and returns it with that search's result; 0 when not
+// even one board can be built.
+func fewerBoards(pick func(picker.Stock, picker.Request) (picker.Result, error), st picker.Stock, req picker.Request) (int, picker.Result, error) {
+	var best picker.Result
+	lo, hi := 0, req.Boards-1 // lo builds (0 trivially), hi+1 does not
+	for lo < hi {
+		mid := (lo + hi + 1) / 2
+		r := req
+		r.Boards = mid
+		res, err := pick(st, r)
+		if err != nil {
+			return 0, picker.Result{}, err
+		}
+		if (view{res: res}).fits() {
+			lo, best = mid, res
+		} else {
+			hi = mid - 1
+		}
+	}
+	return lo, best, nil
 }
 
 // pickError wraps a search error; a bad request is a usage error (exit 2).
@@ -231,20 +262,26 @@ func checkStock(st picker.Stock, req picker.Request) error {
 
 // writeText writes the readable result: the request, each build, and the
 // pull list of the best build that fits. When nothing fits the builds shown
-// are the nearest ones, each with the limit it breaks.
+// are the nearest ones: each with the limit it breaks, or, when the stock
+// runs short for the run, the best builds for the boards it does supply.
 func writeText(w io.Writer, v view) {
 	writeHeader(w, v)
-	if len(v.res.Candidates) == 0 {
+	shown := v.shown()
+	if len(shown) == 0 {
 		fmt.Fprintln(w, "\nno build to show")
 		return
 	}
-	if !v.fits() {
+	switch {
+	case v.short():
+		fmt.Fprintf(w, "\nNothing fits %d boards: the stock on hand builds at most %d.\nThe best builds for %d boards (the pull list counts what all %d take):\n",
+			v.boards(), v.buildable, v.buildable, v.boards())
+	case !v.fits():
 		fmt.Fprintln(w, "\nNothing fits. The nearest builds, each with the limit it breaks:")
 	}
-	for _, c := range v.res.Candidates {
+	for _, c := range shown {
 		writeCandidate(w, v, c)
 	}
-	for _, c := range v.res.Candidates {
+	for _, c := range shown {
 		if len(c.Failing) == 0 {
 			writePullList(w, v, c)
 			break
@@ -276,14 +313,25 @@ func writeNotes(w io.Writer, v view) {
 			fmt.Fprintf(w, "  - left out: %s\n", r)
 		}
 	}
-	if len(buy) > 0 {
+	var topUp []pull
+	if v.short() {
+		topUp = shortLines(v.pullList(v.shown()[0]))
+	}
+	if len(buy)+len(topUp) > 0 {
 		fmt.Fprintln(w, "parts to buy for a good build:")
 		for _, b := range buy {
 			fmt.Fprintf(w, "  - %s\n", b)
 		}
+		for _, p := range topUp {
+			fmt.Fprintf(w, "  - %d × %s for build #1 on all %d boards (bin %s #%d holds %d of the %d it takes)\n",
+				p.qty-p.onHand, p.value, v.boards(), binName(p.bin), p.id, p.onHand, p.qty)
+		}
 	}
 	if !v.fits() {
-		if len(v.res.Candidates) > 0 {
+		if v.short() {
+			fmt.Fprintf(w, "the stock on hand builds %d of the %d boards; the best builds for %d are listed on stdout\n",
+				v.buildable, v.boards(), v.buildable)
+		} else if len(v.res.Candidates) > 0 {
 			fmt.Fprintln(w, "the nearest builds are listed on stdout, each with the limit it breaks")
 		} else {
 			fmt.Fprintln(w, "no build came near enough to show")

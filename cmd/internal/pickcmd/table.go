@@ -43,7 +43,11 @@ func writeHeader(w io.Writer, v view) {
 	if r.Exhaustive {
 		mode = "exhaustive search"
 	}
-	fmt.Fprintf(w, "%s: %d combinations covered, %d builds solved in full\n", mode, v.res.Considered, v.res.Evaluated)
+	st := v.res
+	if v.short() {
+		st = v.fewer // the search whose builds are shown
+	}
+	fmt.Fprintf(w, "%s: %d combinations covered, %d builds solved in full\n", mode, st.Considered, st.Evaluated)
 }
 
 // writeCandidate writes one build as a block: what to pull, the Q-point,

@@ -18,11 +18,30 @@ type view struct {
 	req   picker.Request
 	res   picker.Result
 	stock picker.Stock
+	// buildable is, when the stock cannot supply req.Boards, the most
+	// boards it does supply (0 = not searched or not even one), and fewer
+	// the search for that many boards.
+	buildable int
+	fewer     picker.Result
 }
 
-// fits reports whether at least one shown build passes every hard limit.
+// fits reports whether at least one build passes every hard limit for the
+// boards requested.
 func (v view) fits() bool {
 	return slices.ContainsFunc(v.res.Candidates, func(c picker.Candidate) bool { return len(c.Failing) == 0 })
+}
+
+// short reports whether the stock runs short for the run but builds a
+// smaller one.
+func (v view) short() bool { return len(v.res.Candidates) == 0 && v.buildable > 0 }
+
+// shown returns the builds to show: the search's own, or, when the stock
+// runs short for the run, the best builds for the boards it does supply.
+func (v view) shown() []picker.Candidate {
+	if v.short() {
+		return v.fewer.Candidates
+	}
+	return v.res.Candidates
 }
 
 // boards is the number of boards the request builds (at least one).
@@ -141,7 +160,7 @@ func (v view) cautions() []string {
 		out = append(out, fmt.Sprintf("the supply reaches %s, above %s: parts run hot and can burn, and touching the circuit can hurt; follow your local codes and licensed practice",
 			trimV(hi), trimV(hotSupply_V)))
 	}
-	for _, c := range v.res.Candidates {
+	for _, c := range v.shown() {
 		if c.MaxUtilization > nearRating && len(c.Failing) == 0 {
 			out = append(out, fmt.Sprintf("build %d runs a part at %.0f %% of its design limit: it will be hot and can burn; keep it clear of other parts and follow local codes and licensed practice",
 				c.Rank, c.MaxUtilization*100))
