@@ -55,7 +55,10 @@ their weighted sum. A weight of 0 ignores a term; negative weights are
 refused. Terms left out keep their defaults: ` + weightsHelp() + `.
 
 When nothing fits, pick writes the reasons and the parts to buy on stderr,
-the nearest builds (each with the limit it fails) on stdout, and exits 1.
+the nearest builds on stdout, and exits 1. The nearest builds are those that
+break a limit (each with the reason), or, when the stock is short for the
+number of boards, the best builds for the most boards it does supply, with
+the extra parts all boards would take.
 Bad flags exit 2. pick only reads the stock; it never changes it.`,
 		Example: `  biasbin pick --vcc 12V --ic 2mA
   biasbin pick --vcc 9V --ic 500uA --polarity pnp --boards 20 --pairs
