@@ -11,14 +11,15 @@ type scenario struct {
 }
 
 // scenarios are the demo's picks, in order: a plain build from the
-// everyday drawers, a build from the sparse approved list where series
+// whole wall, a build from the sparse approved list where series
 // pairs fill the gaps, and a run larger than the PNP drawers can supply.
 func scenarios() []scenario {
 	return []scenario{
 		{
 			title: "A 12 V NPN gain stage at 2 mA, five boards",
-			story: `The everyday drawers: 5 % carbon film and the general-purpose NPN types.
-VCE is left to the swing rule; a 10K load hangs on the collector.`,
+			story: `The whole wall may be used, singles only. VCE is left to the swing rule
+for a 10K load on the collector; five boards need five of every part,
+and ten where one drawer fills two positions.`,
 			args: []string{"--vcc", "12V", "--ic", "2mA", "--load", "10K", "--boards", "5", "--top", "2"},
 		},
 		{
@@ -26,7 +27,7 @@ VCE is left to the swing rule; a 10K load hangs on the collector.`,
 			story: `Only parts tagged "approved": 1 % metal film in E6 values and one NPN type.
 The ideal values fall between those sparse singles, so pick may join two
 stocked parts in series or parallel to land closer.`,
-			args: []string{"--vcc", "9V", "--ic", "500uA", "--vce", "4V", "--require-tag", "approved", "--pairs", "--boards", "10", "--top", "2"},
+			args: []string{"--vcc", "9V", "--ic", "500uA", "--vce", "4V", "--require-tag", "approved", "--pairs", "--boards", "10", "--top", "1"},
 		},
 		{
 			title: "A 15 V PNP stage at 1 mA for a run of 30 boards",
