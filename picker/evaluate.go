@@ -238,6 +238,19 @@ func (e *evaluator) betaSpread(t *tuple, cnt *counters) {
 	t.betaOK = true
 }
 
+// betaFloorAt is betaFloor at a solved tuple: its exact R_TH, RE, RC and
+// nominal IC (0 unless the tuple is active at its nominal point).
+func (e *evaluator) betaFloorAt(t *tuple) float64 {
+	if t.op.Region != solver.Active {
+		return 0
+	}
+	dv := &e.devs[t.c.dev]
+	r := t.r
+	ic := t.op.IC_A
+	_, vbeHi := e.vbeBounds(dv, ic, ic)
+	return e.betaFloor(dv, r[iR1]*r[iR2]/(r[iR1]+r[iR2]), r[iRE], r[iRC], ic, ic, vbeHi)
+}
+
 // counters of a search.
 type counters struct {
 	evaluated int64 // builds whose every pre-yield term was computed
@@ -270,6 +283,10 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 					partial := w.QPoint*t.q + w.Utilization*dis.MaxUtilization
 					if partial > thr() {
 						continue
+					}
+					if th := thr(); !t.betaDone && !math.IsInf(th, 1) && w.Beta > 0 &&
+						partial+w.Beta*e.betaFloorAt(t) > th {
+						continue // the beta term's floor settles it without two solves
 					}
 					e.betaSpread(t, cnt)
 					if !t.betaOK {

@@ -387,6 +387,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	d.cache = map[[nPos]int]*tuple{}
 	guessLo, guessHi := n/2, n/2
 	var vbeLo, vbeHi, lastThr float64
+	// upSeen and floorSeen hold, per R1 level, the IC at RC = 0 and the
+	// IC floor seen at the last R2 probed: lower bounds at every larger R2
+	// (IC rises with R2; the band only narrows, raising the floor).
+	upSeen, floorSeen := map[int]float64{}, map[int]float64{}
 	start := 0
 	if bd := e.boundsNow(p); bd.finite {
 		// Skip the R2 levels whose divider bound, with the best allowance
@@ -445,17 +449,42 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			}
 			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, RC = 0),
 			// which falls with R1 (lemmas L1, L2).
+			// IC rises with R2 (L1), so an IC seen at a smaller R2
+			// bounds this R2's from below and can settle a probe.
 			r1Hi = firstFrom(n, guessHi, func(i int) bool {
+				if v, ok := upSeen[i]; ok && v >= icLo {
+					return false
+				}
 				t := d.tuple(di, [nPos]int{i, r2, zeroRC, re}, cnt)
+				if t.ok {
+					upSeen[i] = t.op.IC_A
+				}
 				return t.ok && t.op.IC_A < icLo
 			}) - 1
+			// R1 dissipates at least (VCC − vbHi)²/R1, which falls with
+			// R1: at R1 ≤ r1Hi it is at least its value at r1Hi (with the
+			// best allowance of any value).
+			if r1Hi >= 0 && vbHi < e.s.vcc {
+				r1Ohm := e.vs.levels[r1Hi].ohm
+				uR1 := (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.allowHotMax_W
+				if w.Beta*bLo+w.Utilization*math.Max(uBase, uR1) > bd.thr {
+					continue
+				}
+			}
 			// Bound IC-R1 low side: the lowest IC any build at R1
 			// that is active at its nominal point can have (only when a
 			// saturated nominal point implies a failing corner: the
 			// ambient range reaches 25 °C or lies above).
 			if e.s.ambMax >= NominalAmbient_C {
 				r1Lo = firstFrom(n, guessLo, func(i int) bool {
-					ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, cnt)
+					if v, ok := floorSeen[i]; ok && v > icHi {
+						return false
+					}
+					ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, icHi, cnt)
+					if !any {
+						ic = math.Inf(1)
+					}
+					floorSeen[i] = ic
 					return any && ic <= icHi
 				})
 			}
@@ -489,11 +518,23 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 // so it is IC at the largest band RC whose nominal point is active. any
 // is false when no band RC is active (every such build fails a hard
 // limit).
-func (d *dividerPlan) icFloor(di, r1, r2, re, rcLo, rcHi int, cnt *counters) (ic float64, any bool) {
+func (d *dividerPlan) icFloor(di, r1, r2, re, rcLo, rcHi int, icHi float64, cnt *counters) (ic float64, any bool) {
 	probe := func(rc int) *tuple { return d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt) }
 	top := probe(rcHi)
 	if top.ok && top.op.Region != solver.Saturation {
 		return top.op.IC_A, true
+	}
+	// Saturated at the top of the band. If the bottom is saturated too,
+	// so is every band RC; if the bottom is active with IC at most icHi,
+	// the floor (IC at the last active RC, at most IC at the bottom) is
+	// too, which is all the caller asks.
+	if bot := probe(rcLo); bot.ok {
+		if bot.op.Region == solver.Saturation {
+			return 0, false
+		}
+		if bot.op.IC_A <= icHi {
+			return bot.op.IC_A, true
+		}
 	}
 	// first band RC that saturates; the one below it is the last active
 	k := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool {
