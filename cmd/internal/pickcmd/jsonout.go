@@ -130,9 +130,23 @@ type jsonPull struct {
 }
 
 type jsonShortfall struct {
-	Reasons  []string `json:"reasons"`
-	Buy      []string `json:"buy"`
-	Rejected []string `json:"rejected"`
+	Reasons   []string       `json:"reasons"`
+	Buy       []string       `json:"buy"`
+	Purchases []jsonPurchase `json:"purchases"`
+	Rejected  []string       `json:"rejected"`
+	// TopUp is, when the stock runs short for the run, what the first
+	// shown build takes beyond the stock on hand for all boards.
+	TopUp []jsonPull `json:"top_up"`
+}
+
+type jsonPurchase struct {
+	Slot    string  `json:"slot"`
+	Ohms    float64 `json:"ohms"`
+	Series  string  `json:"series"`
+	Tol     float64 `json:"tol"`
+	Rated_W float64 `json:"rated_w"`
+	Qty     int     `json:"qty"`
+	Note    string  `json:"note"`
 }
 
 // writeJSON writes the whole result as one indented JSON document.
@@ -154,7 +168,18 @@ func writeJSON(w io.Writer, v view) error {
 		doc.Candidates = append(doc.Candidates, v.jsonCandidate(c))
 	}
 	if s := v.res.Shortfall; s != nil {
-		doc.Shortfall = &jsonShortfall{Reasons: nonNil(s.Reasons), Buy: nonNil(s.Buy), Rejected: nonNil(s.Rejected)}
+		sf := &jsonShortfall{Reasons: nonNil(s.Reasons), Buy: nonNil(s.Buy), Rejected: nonNil(s.Rejected),
+			Purchases: []jsonPurchase{}, TopUp: []jsonPull{}}
+		for _, p := range s.Purchases {
+			sf.Purchases = append(sf.Purchases, jsonPurchase{Slot: p.Slot, Ohms: p.Ohm, Series: p.Series, Tol: p.Tol,
+				Rated_W: p.Rated_W, Qty: p.Qty, Note: p.Note})
+		}
+		if v.short() {
+			for _, p := range shortLines(v.pullList(v.shown()[0])) {
+				sf.TopUp = append(sf.TopUp, jsonPullOf(p))
+			}
+		}
+		doc.Shortfall = sf
 	}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
@@ -241,9 +266,14 @@ func (v view) jsonCandidate(c picker.Candidate) jsonCandidate {
 		jc.TestPoints[tp.name] = jsonBand{Nominal_V: tp.nominal, Min_V: tp.lo, Max_V: tp.hi}
 	}
 	for _, p := range v.pullList(c) {
-		jc.Pull = append(jc.Pull, jsonPull{ID: p.id, Kind: p.kind, Value: p.value, Bin: p.bin, Qty: p.qty, OnHand: p.onHand, Missing: max(0, p.qty-p.onHand)})
+		jc.Pull = append(jc.Pull, jsonPullOf(p))
 	}
 	return jc
+}
+
+// jsonPullOf converts one pull-list line.
+func jsonPullOf(p pull) jsonPull {
+	return jsonPull{ID: p.id, Kind: p.kind, Value: p.value, Bin: p.bin, Qty: p.qty, OnHand: p.onHand, Missing: max(0, p.qty-p.onHand)}
 }
 
 // betaAt is IC/IB at the operating point (0 when IB is zero).
