@@ -285,7 +285,7 @@ func TestProgress(t *testing.T) {
 			t.Errorf("at %v: drawn %v, want %v", s.after, drawn, s.drawn)
 		}
 	}
-	if !strings.Contains(buf.String(), "40 of 100 combinations (40 %)") {
+	if !strings.Contains(buf.String(), "searching: 40 % (40 of 100 steps)") {
 		t.Errorf("indicator %q", buf.String())
 	}
 	p.finish()

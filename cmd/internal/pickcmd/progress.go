@@ -39,9 +39,9 @@ func (p *progress) update(done, total int64) {
 	}
 	p.last, p.shown = t, true
 	if total > 0 {
-		fmt.Fprintf(p.w, "\rsearching: %d of %d combinations (%d %%)  ", done, total, done*100/total)
+		fmt.Fprintf(p.w, "\rsearching: %d %% (%d of %d steps)  ", done*100/total, done, total)
 	} else {
-		fmt.Fprintf(p.w, "\rsearching: %d combinations  ", done)
+		fmt.Fprintf(p.w, "\rsearching: %d steps  ", done)
 	}
 }
 
