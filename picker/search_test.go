@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math/rand/v2"
 	"testing"
+
+	"biasbin/solver/eseries"
 )
 
 // TestSearchMatchesExhaustive is the property test of the pruning: over
@@ -64,5 +66,33 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestE12DefaultEqualsExhaustive: on E12 100 Ω–10 kΩ with one transistor
+// the default search and the exhaustive one give the identical top 10
+// (the larger comparison runs in BenchmarkE12DefaultVsExhaustive).
+func TestE12DefaultEqualsExhaustive(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E12, 100, 10e3, 0.05, 0.25, 100, 1000), Transistors: benchTransistors(1)}
+	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 10}
+	fast, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	req.Exhaustive = true
+	full, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(fast.Candidates) != 10 || len(full.Candidates) != 10 {
+		t.Fatalf("default %d builds, exhaustive %d", len(fast.Candidates), len(full.Candidates))
+	}
+	for i := range full.Candidates {
+		if fast.Candidates[i].ID != full.Candidates[i].ID || fast.Candidates[i].Score != full.Candidates[i].Score {
+			t.Errorf("rank %d: default %s, exhaustive %s", i+1, fast.Candidates[i].ID, full.Candidates[i].ID)
+		}
+	}
+	if fast.Solved*10 > full.Solved {
+		t.Errorf("default solved %d tuples, exhaustive %d: the bounds cut less than 90 %%", fast.Solved, full.Solved)
 	}
 }
