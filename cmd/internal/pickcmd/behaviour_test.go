@@ -178,10 +178,10 @@ func TestFewerBoards(t *testing.T) {
 		want          int
 		maxSearches   int
 	}{
-		{30, 12, 12, 5}, // log2(30) rounded up
-		{30, 29, 29, 5},
-		{30, 1, 1, 5},
-		{30, 0, 0, 5},
+		{30, 12, 12, 6}, // one board, then log2(29) rounded up
+		{30, 29, 29, 6},
+		{30, 1, 1, 6},
+		{30, 0, 0, 1}, // not even one board: a single search settles it
 		{2, 1, 1, 1},
 	}
 	for _, tt := range tests {

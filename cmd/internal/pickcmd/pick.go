@@ -120,27 +120,30 @@ func Run(ctx context.Context, o *Options) error {
 	if err := checkStock(stock, req); err != nil {
 		return err
 	}
+	done := func() {}
 	if o.IO.IsStderrTTY() {
 		now := o.Now
 		if now == nil {
 			now = time.Now
 		}
 		p := newProgress(o.IO.ErrOut, now)
-		req.Progress = p.update
-		defer p.finish()
+		req.Progress, done = p.update, p.finish
+		defer p.finish() // on the error paths; finishing twice is harmless
 	}
 	res, err := o.Pick(stock, req)
 	if err != nil {
 		return pickError(err)
 	}
 	v := view{req: req, res: res, stock: stock}
-	if len(res.Candidates) == 0 && req.Boards > 1 {
-		// The run is too large for the stock: find how many boards the
-		// parts on hand do build, and show those builds as the nearest.
+	if !v.fits() && req.Boards > 1 {
+		// Perhaps the run is too large for the stock: find how many
+		// boards the parts on hand do build, and show those builds as
+		// the nearest.
 		if v.buildable, v.fewer, err = fewerBoards(o.Pick, stock, req); err != nil {
 			return pickError(err)
 		}
 	}
+	done() // erase the indicator before any output
 	v.req.Progress = nil
 	if o.JSON {
 		if err := writeJSON(o.IO.Out, v); err != nil {
@@ -161,17 +164,26 @@ func Run(ctx context.Context, o *Options) error {
 // search is exact) and returns it with that search's result; 0 when not
 // even one board can be built.
 func fewerBoards(pick func(picker.Stock, picker.Request) (picker.Result, error), st picker.Stock, req picker.Request) (int, picker.Result, error) {
-	var best picker.Result
-	lo, hi := 0, req.Boards-1 // lo builds (0 trivially), hi+1 does not
+	fits := func(boards int) (picker.Result, bool, error) {
+		r := req
+		r.Boards = boards
+		res, err := pick(st, r)
+		return res, (view{res: res}).fits(), err
+	}
+	// One board first: when even that fails, quantities are not the
+	// problem and one search settles it.
+	best, ok, err := fits(1)
+	if err != nil || !ok {
+		return 0, picker.Result{}, err
+	}
+	lo, hi := 1, req.Boards-1 // lo builds, hi+1 does not
 	for lo < hi {
 		mid := (lo + hi + 1) / 2
-		r := req
-		r.Boards = mid
-		res, err := pick(st, r)
+		res, ok, err := fits(mid)
 		if err != nil {
 			return 0, picker.Result{}, err
 		}
-		if (view{res: res}).fits() {
+		if ok {
 			lo, best = mid, res
 		} else {
 			hi = mid - 1

@@ -33,7 +33,7 @@ func (v view) fits() bool {
 
 // short reports whether the stock runs short for the run but builds a
 // smaller one.
-func (v view) short() bool { return len(v.res.Candidates) == 0 && v.buildable > 0 }
+func (v view) short() bool { return !v.fits() && v.buildable > 0 }
 
 // shown returns the builds to show: the search's own, or, when the stock
 // runs short for the run, the best builds for the boards it does supply.
