@@ -89,7 +89,7 @@
 // nominal IC in [IC_t(1−δ), IC_t(1+δ)] and VCE within δ·|VCC| of its
 // target, because the QPoint term alone is below δ.
 //
-// The cuts rest on these facts about the nominal point (all parts at
+// The cuts rest on two facts about the nominal point (all parts at
 // their marked values, the stable self-heated equilibrium):
 //
 //   - L1: IC falls as R1 or RE rises and rises with R2. Isothermally the
@@ -103,16 +103,11 @@
 //   - L2: VCE and IC fall as RC rises (if VCE rose, the Early effect would
 //     raise IC and so lower VCE: a contradiction; less VCE means less
 //     power, a cooler junction and less IC), and saturation only deepens.
-//   - L3: the beta term grows with R1 and R2 along the staircase of
-//     constant IC (it is a rising function of R_TH/RE in the closed form,
-//     REFERENCE.md §5) and shrinks as RC rises (the Early effect and
-//     self-heating both damp the IC change more when VCE moves more).
-//     This is argued, not proved — the VBE shift between the two hFE
-//     values works slightly against it — so the cut that uses it trusts
-//     only 90 % of the probed value (betaCutSafety); the property test
-//     checks it.
 //
-// The bounds, per loop level (doc comments at each site repeat them):
+// Both are proved for the isothermal circuit and carried to the
+// self-heated one by the loop-gain argument; the same corner argument
+// makes the hFE-max point of every passing build active, which the beta
+// floor needs. The bounds, per loop level (doc comments at each site repeat them):
 //
 //   - U-RE: RE dissipates IE²·RE ≥ IC_lo²·RE, so the utilization term is
 //     at least that over the best allowance at the hot ambient; it rises
@@ -127,27 +122,44 @@
 //   - U-R2: R2 dissipates VB²/R2 and, since base current flows into the
 //     base (VB ≤ V_TH), R1 dissipates at least (|VCC| − VB)·VB/R2; VB lies
 //     between VBE_lo + IC_lo·RE and VBE_hi + IC_hi·k·RE, with VBE bounded
-//     from the device model (bounds.go).
+//     from the device model (vbeBounds). R2 levels below the first one
+//     this weaker-with-the-best-allowance bound admits are skipped by
+//     bisection (the bound falls with R2).
+//   - B: betaFloor bounds the beta term from below in closed form — the
+//     base loop written for hFE min and max and subtracted, with the VBE
+//     shift bounded by NF·VT/IC1 (the intrinsic emitter resistance), the
+//     Early effect and self-heating by first-order worst-case terms, and
+//     10 % kept back for their remainder (betaFloorMargin);
+//     TestBoundsHoldOnRandomBuilds checks it against the exact beta term
+//     of random builds. It rises with R_TH, and R_TH ≥ rthFloor(R2). With
+//     the utilization floor of RE (every build carries RE) it stops the R2
+//     run; with the divider floor it skips one R2. What is left of the
+//     threshold after these floors bounds the QPoint term, so the IC window
+//     of that R2 narrows to ±(T − floors)/w_QPoint; at each R1 the floors
+//     are taken again with the exact R_TH and R1's own dissipation.
 //   - R1 range: by L1 and L2 the IC of any build at (R1, R2, RE) is at most
 //     IC at RC = 0 and, for builds active at their nominal point, at least
 //     IC at the largest band RC that is still active; R1 outside the range
-//     where these envelopes can meet [IC_lo, IC_hi] is out (both envelopes
-//     fall with R1, so the range is found by search, from the previous R2's
-//     range since it only moves up with R2).
+//     where these envelopes can meet the window is out (both envelopes
+//     fall with R1, so the range is found by search, from the previous
+//     R2's range; an envelope value seen at a smaller R2 is a lower bound
+//     at a larger one and settles a probe without a solve).
 //   - RC scan: from the RC where VCE crosses the top of the target band,
 //     VCE (L2) and IC move monotonically, so going down (up) the QPoint
-//     term only grows once VCE is over (under) the band; the scan stops at
-//     the first build whose QPoint term alone exceeds T/w_QPoint.
-//   - B: the beta probe at the smallest admissible R1 and the two ends of
-//     the RC band bounds the beta term of every build at this and every
-//     larger R2 (L3); with RE's utilization (every build carries RE) it
-//     stops the R2 run, and with the divider bound it skips this R2.
+//     term only grows once VCE is over (under) the band; with the floors
+//     above the scan stops at the first RC whose bound exceeds T.
 //   - Per build: QPoint and Utilization (one solve, shared by the values
-//     of a level tuple), then Beta (two solves), then a headroom floor from
-//     the two corners expected to be extreme (any single corner bounds the
-//     corner minima, so the floor is a lower bound whichever corners are
-//     extreme; a corner that already breaks a hard limit proves the build
-//     fails), and only then every worst-case corner.
+//     of a level tuple), then the beta floor at the exact point, then Beta
+//     (two solves), then a headroom floor from the two corners expected to
+//     be extreme (any single corner bounds the corner minima, so the floor
+//     is a lower bound whichever corners are extreme; a corner that already
+//     breaks a hard limit proves the build fails), and only then every
+//     worst-case corner.
+//
+// The default search runs on two goroutines, each taking (device, RE)
+// items in order and sharing the pool; the pool keeps the exact best
+// builds whatever order they arrive in, so the result does not depend on
+// the scheduling (only Result.Evaluated and Solved, the work done, vary).
 //
 // Limitations: the bounds that use "active at the nominal point" assume
 // the ambient range includes 25 °C or lies above it.
