@@ -10,6 +10,7 @@ import (
 	"time"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/stockcsv"
 	"biasbin/picker"
 	"biasbin/store"
 )
@@ -45,7 +46,8 @@ func runPick(t *testing.T, dbPath string, pick func(picker.Stock, picker.Request
 	return inv
 }
 
-// snapshot is the whole stock, to show a command changed nothing.
+// snapshot is the stock export (the CSV of both kinds, as biasbin stock
+// export writes it), to show a command changed nothing.
 func snapshot(t *testing.T, path string) string {
 	t.Helper()
 	ctx := context.Background()
@@ -62,7 +64,14 @@ func snapshot(t *testing.T, path string) string {
 	if err != nil {
 		t.Fatal(err)
 	}
-	return fmt.Sprintf("%+v\n%+v", rs, ts)
+	var buf bytes.Buffer
+	if err := stockcsv.WriteResistors(&buf, rs); err != nil {
+		t.Fatal(err)
+	}
+	if err := stockcsv.WriteTransistors(&buf, ts); err != nil {
+		t.Fatal(err)
+	}
+	return buf.String()
 }
 
 // smallBatch is a few invented stock lines: NPN transistors only.
