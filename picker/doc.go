@@ -138,7 +138,7 @@
 //     of that R2 narrows to ±(T − floors)/w_QPoint; at each R1 the floors
 //     are taken again with the exact R_TH and R1's own dissipation.
 //   - R1 range: by L1 and L2 the IC of any build at (R1, R2, RE) is at most
-//     IC at RC = 0 and, for builds active at their nominal point, at least
+//     IC at the bottom of the RC band and, for builds active at their nominal point, at least
 //     IC at the largest band RC that is still active; R1 outside the range
 //     where these envelopes can meet the window is out (both envelopes
 //     fall with R1, so the range is found by search, from the previous

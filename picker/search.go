@@ -267,10 +267,6 @@ func (e *evaluator) rcBand(b bounds, reOhm, kE, vceLo, vceHi float64) (lo, hi in
 	return lo, hi
 }
 
-// zeroRC is the level index the cache uses for RC = 0 (the probe of the
-// IC upper envelope).
-const zeroRC = -1
-
 // search is the branch and bound over (device, RE, R2, R1, RC); doc.go
 // states each bound and why it is sound.
 func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
@@ -387,10 +383,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	d.cache = map[[nPos]int]*tuple{}
 	guessLo, guessHi := n/2, n/2
 	var vbeLo, vbeHi, lastThr float64
-	// upSeen and floorSeen hold, per R1 level, the IC at RC = 0 and the
+	// upSeen and floorSeen hold, per R1 level, the IC at the band's bottom RC and the
 	// IC floor seen at the last R2 probed: lower bounds at every larger R2
 	// (IC rises with R2; the band only narrows, raising the floor).
 	upSeen, floorSeen := map[int]float64{}, map[int]float64{}
+	lastRcLo := -1
 	start := 0
 	if bd := e.boundsNow(p); bd.finite {
 		// Skip the R2 levels whose divider bound, with the best allowance
@@ -406,6 +403,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 		rcLo, rcHi := e.rcBand(bd, reOhm, kE, vceLo, vceHi)
 		if rcLo > rcHi {
 			break // the band only narrows as the threshold falls
+		}
+		if rcLo != lastRcLo {
+			// upSeen holds IC at the band's bottom RC: only valid for it
+			clear(upSeen)
+			lastRcLo = rcLo
 		}
 		r1Lo, r1Hi := 0, n-1
 		// base is a lower bound on the beta and utilization terms of
@@ -447,7 +449,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				d2 := (bd.thr - base) / w.QPoint
 				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 			}
-			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, RC = 0),
+			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, band bottom) in the band,
 			// which falls with R1 (lemmas L1, L2).
 			// IC rises with R2 (L1), so an IC seen at a smaller R2
 			// bounds this R2's from below and can settle a probe.
@@ -455,7 +457,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				if v, ok := upSeen[i]; ok && v >= icLo {
 					return false
 				}
-				t := d.tuple(di, [nPos]int{i, r2, zeroRC, re}, cnt)
+				t := d.tuple(di, [nPos]int{i, r2, rcLo, re}, cnt)
 				if t.ok {
 					upSeen[i] = t.op.IC_A
 				}
@@ -561,13 +563,13 @@ func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, r
 	w, vcc, ict := e.s.w, e.s.vcc, e.s.icT
 	tup := func(rc int) *tuple { return d.tuple(di, [nPos]int{r1, r2, rc, re}, cnt) }
 	reOhm := e.vs.levels[re].ohm
-	// IC at RC = 0 bounds IC at every RC from above and, for builds active
+	// IC at the band's bottom bounds IC at every band RC from above and, for builds active
 	// at their nominal point, IC at the top of the band bounds it from
 	// below (lemma L2); both are usually solved already by the R1 range
 	// search. With them VCE = VCC − IC·RC − IE·RE is bounded before a
 	// solve: VCE ≥ VCC − icUp(RC + kE·RE) and VCE ≤ VCC − icDn(RC + RE).
 	icUp, icDn := math.Inf(1), 0.0
-	if t, ok := d.cache[[nPos]int{r1, r2, zeroRC, re}]; ok && t.ok {
+	if t, ok := d.cache[[nPos]int{r1, r2, rcLo, re}]; ok && t.ok {
 		icUp = t.op.IC_A
 	}
 	if t, ok := d.cache[[nPos]int{r1, r2, rcHi, re}]; ok && t.ok && t.op.Region == solver.Active {
