@@ -68,12 +68,22 @@ type dividerPlan struct {
 	cache map[[nPos]int]*tuple
 	// splitGuess is where the last RC scan split (a start for the next)
 	splitGuess int
+	// per-RE memos of searchRE, kept to reuse their storage
+	upSeen, floorSeen map[int]float64
 	// best passing seed score and its RE level per device: the search
 	// visits devices from the best seed and each device's RE levels
 	// outward from its best seed (any order is sound; this one tightens
 	// the threshold early).
 	seedBest []float64
 	seedRE   []int
+}
+
+// resetCache empties the tuple cache, keeping its storage.
+func (d *dividerPlan) resetCache() {
+	if d.cache == nil {
+		d.cache = map[[nPos]int]*tuple{}
+	}
+	clear(d.cache)
 }
 
 // tuple returns the (cached) solved level tuple of device dev.
@@ -380,13 +390,18 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	w := e.s.w
 	dv := &e.devs[di]
 	reOhm := e.vs.levels[re].ohm
-	d.cache = map[[nPos]int]*tuple{}
+	d.resetCache()
 	guessLo, guessHi := n/2, n/2
 	var vbeLo, vbeHi, lastThr float64
 	// upSeen and floorSeen hold, per R1 level, the IC at the band's bottom RC and the
 	// IC floor seen at the last R2 probed: lower bounds at every larger R2
 	// (IC rises with R2; the band only narrows, raising the floor).
-	upSeen, floorSeen := map[int]float64{}, map[int]float64{}
+	if d.upSeen == nil {
+		d.upSeen, d.floorSeen = map[int]float64{}, map[int]float64{}
+	}
+	upSeen, floorSeen := d.upSeen, d.floorSeen
+	clear(upSeen)
+	clear(floorSeen)
 	lastRcLo := -1
 	start := 0
 	if bd := e.boundsNow(p); bd.finite {
