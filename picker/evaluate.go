@@ -262,7 +262,7 @@ type counters struct {
 // a build's partial score exceeds the threshold thr() (the score of the
 // pool's last passing member; +Inf while the pool is not full of passing
 // builds). Each build that is fully scored goes to keep.
-func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evaluated), cnt *counters) {
+func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep func(*evaluated), cnt *counters) {
 	if !t.ok {
 		return
 	}
@@ -296,11 +296,12 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 					if partial > thr() {
 						continue
 					}
-					if th := thr(); !math.IsInf(th, 1) {
-						hlb, fails := e.headroomFloor(c.dev, b, cnt)
-						if fails || partial+w.Headroom*hlb > th {
-							continue
-						}
+					hlb, fails := e.headroomFloor(c.dev, b, cnt)
+					if th := thr(); fails && !math.IsInf(th, 1) || partial+w.Headroom*hlb > th {
+						continue
+					}
+					if fails && partial+w.Headroom*hlb > lastScore() {
+						continue // fails for certain and ranks below the last member
 					}
 					ev := e.finish(c, b, t, dis.MaxUtilization)
 					cnt.evaluated++
@@ -321,8 +322,9 @@ func (e *evaluator) scoreVariants(t *tuple, thr func() float64, keep func(*evalu
 // corners are at most these corners' values and the term falls as they
 // rise, so it is a lower bound on the build's headroom term whatever the
 // true extreme corners are. fails is true when either corner already
-// breaks a hard limit (outside the active region or the VCE margin, or
-// not solvable): the build then fails for certain.
+// breaks a hard limit (outside the active region or the VCE margin, a
+// part over its allowance, or not solvable): the build then fails for
+// certain, and the headroom floor is then 0.
 func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h float64, fails bool) {
 	d := &e.devs[dev]
 	lowV := 1 - e.s.vccTol
@@ -331,12 +333,13 @@ func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h flo
 	devVCE[solver.R1], devVCE[solver.R2], devVCE[solver.RC], devVCE[solver.RE] = tol(solver.R1, -1), tol(solver.R2, 1), tol(solver.RC, 1), tol(solver.RE, -1)
 	devIC[solver.R1], devIC[solver.R2], devIC[solver.RC], devIC[solver.RE] = tol(solver.R1, 1), tol(solver.R2, -1), tol(solver.RC, 1), tol(solver.RE, 1)
 	cnt.solves += 2
+	floor := d.vceSat + e.s.lim.VCEMargin_V
 	opV, err := solver.SolveSelfHeated(b.Resolve(devVCE, lowV, e.s.ambMax), d.hi, e.s.ambMax, d.thetaJA, d.tjMax_C)
-	if err != nil || opV.Region != solver.Active || opV.VCE_V < d.vceSat+e.s.lim.VCEMargin_V {
+	if err != nil || opV.Region != solver.Active || opV.VCE_V < floor || !solver.EvalDissipation(b, opV, e.s.ambMax, e.s.lim).Ok {
 		return 0, true
 	}
 	opI, err := solver.SolveSelfHeated(b.Resolve(devIC, lowV, e.s.ambMin), d.lo, e.s.ambMin, d.thetaJA, d.tjMax_C)
-	if err != nil || opI.Region != solver.Active || opI.VCE_V < d.vceSat+e.s.lim.VCEMargin_V {
+	if err != nil || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
 		return 0, true
 	}
 	sat := (opV.VCE_V - d.vceSat - e.s.lim.VCEMargin_V) / e.s.vcc

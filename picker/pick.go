@@ -17,12 +17,6 @@ import (
 // When no build passes every hard limit the result carries a Shortfall
 // and, as the nearest builds, the best failing ones.
 func Pick(stock Stock, req Request) (Result, error) {
-	return pickCore(stock, req, true)
-}
-
-// pickCore is Pick; withShortfall false skips the shortfall analysis (it
-// runs Pick again on amended stock and must not recurse).
-func pickCore(stock Stock, req Request, withShortfall bool) (Result, error) {
 	s, err := normalize(req)
 	if err != nil {
 		return Result{}, err
@@ -67,8 +61,8 @@ func pickCore(stock Stock, req Request, withShortfall bool) (Result, error) {
 		c.Rank = i + 1
 		res.Candidates = append(res.Candidates, c)
 	}
-	if withShortfall && !slices.ContainsFunc(res.Candidates, e.fits) {
-		res.Shortfall = e.shortfall(stock, rejected, res.Candidates)
+	if !slices.ContainsFunc(res.Candidates, e.fits) {
+		res.Shortfall = e.shortfall(rejected, res.Candidates)
 	}
 	return res, nil
 }

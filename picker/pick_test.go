@@ -4,6 +4,7 @@ import (
 	"context"
 	"math"
 	"math/rand/v2"
+	"strings"
 	"testing"
 
 	"biasbin/solver"
@@ -274,4 +275,84 @@ func TestNothingFits(t *testing.T) {
 		t.Errorf("after buying %v the stock still has no passing build", res.Shortfall.Buy)
 	}
 	t.Logf("reasons %q, buy %q", res.Shortfall.Reasons, res.Shortfall.Buy)
+}
+
+// TestOverloadedEverywhere: when every stocked value that could serve as
+// RC or RE has too small a rating for the target current, no build fits;
+// the shortfall says why, and the suggested purchase gives a build that
+// fits (derating: REFERENCE.md §3, 50 % of the derated rating, common
+// practice).
+func TestOverloadedEverywhere(t *testing.T) {
+	st := Stock{Resistors: append(seriesStock(eseries.E6, 100, 3.3e3, 0.05, 0.002, 20, 100), seriesStock(eseries.E6, 4.7e3, 100e3, 0.05, 0.25, 20, 200)...),
+		Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	req := Request{VCC_V: 12, IC_A: 2e-3, Top: 3}
+	res, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Shortfall == nil || len(res.Shortfall.Reasons) == 0 || len(res.Candidates) == 0 {
+		t.Fatalf("no shortfall with 2 mW resistors: %+v", res.Shortfall)
+	}
+	want := "no build reaches the target" // the nearest builds pass only far from the target current
+	if len(res.Candidates[0].Failing) > 0 {
+		want = "overloads a part"
+	}
+	if !strings.Contains(strings.Join(res.Shortfall.Reasons, "; "), want) {
+		t.Errorf("reasons %q, want one saying %q", res.Shortfall.Reasons, want)
+	}
+	if len(res.Shortfall.Purchases) == 0 {
+		t.Fatalf("no purchase suggested: %+v", res.Shortfall)
+	}
+	for i, p := range res.Shortfall.Purchases {
+		if p.Rated_W <= 0.002 {
+			t.Errorf("purchase %+v keeps the too-small rating", p)
+		}
+		st.Resistors = append(st.Resistors, Resistor{ID: 900 + int64(i), Ohm: p.Ohm, Tol: p.Tol, Rated_W: p.Rated_W, TCR_PPMPerK: 200, Qty: p.Qty})
+	}
+	after, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if after.Shortfall != nil {
+		t.Errorf("after buying %q: still %q", res.Shortfall.Buy, after.Shortfall.Reasons)
+	}
+	t.Logf("reasons %q, buy %q", res.Shortfall.Reasons, res.Shortfall.Buy)
+}
+
+// TestShowFailing: failing builds are listed only on request and never
+// above a passing one; the progress callback reaches the total.
+func TestShowFailing(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E3, 100, 100e3, 0.05, 0.002, 20, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	var last, total int64
+	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 300, Finalists: 300, YieldBoards: 20, ShowFailing: true,
+		Progress: func(done, all int64) { last, total = done, all }}
+	res, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	seenFailing, failing := false, 0
+	for _, c := range res.Candidates {
+		if len(c.Failing) > 0 {
+			seenFailing = true
+			failing++
+		} else if seenFailing {
+			t.Fatalf("passing build %s ranked below a failing one", c.ID)
+		}
+	}
+	if failing == 0 || failing == len(res.Candidates) {
+		t.Fatalf("%d failing of %d shown; the case does not test the order", failing, len(res.Candidates))
+	}
+	req.ShowFailing = false
+	res2, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range res2.Candidates {
+		if len(c.Failing) > 0 {
+			t.Errorf("failing build %s shown without ShowFailing", c.ID)
+		}
+	}
+	if total == 0 || last != total {
+		t.Errorf("progress ended at %d of %d", last, total)
+	}
 }

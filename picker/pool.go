@@ -14,12 +14,14 @@ type pool struct {
 	mu    sync.Mutex
 	items []*evaluated
 	thr   atomic.Uint64 // math.Float64bits of the threshold
+	last  atomic.Uint64 // math.Float64bits of lastScore
 }
 
 // newPool returns an empty pool of the given size.
 func newPool(size int) *pool {
 	p := &pool{size: size}
 	p.thr.Store(math.Float64bits(math.Inf(1)))
+	p.last.Store(math.Float64bits(math.Inf(1)))
 	return p
 }
 
@@ -44,7 +46,15 @@ func (p *pool) add(ev *evaluated) {
 		p.items = p.items[:p.size]
 	}
 	p.thr.Store(math.Float64bits(p.computeThreshold()))
+	if len(p.items) == p.size {
+		p.last.Store(math.Float64bits(p.items[len(p.items)-1].score))
+	}
 }
+
+// lastScore is the score of the last member once the pool is full (+Inf
+// before), passing or not: a build known to fail with a score above it
+// cannot enter (it would rank below the last member either way).
+func (p *pool) lastScore() float64 { return math.Float64frombits(p.last.Load()) }
 
 // threshold is the score a build must not exceed to enter the pool: the
 // last member's score once the pool is full of passing builds, +Inf

@@ -52,7 +52,7 @@ func (d *dividerPlan) exhaustive(e *evaluator, p *pool, cnt *counters) {
 					for rc := range n {
 						t := e.newTuple(di, [nPos]int{r1, r2, rc, re})
 						cnt.solves++
-						e.scoreVariants(t, p.threshold, p.add, cnt)
+						e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
 					}
 				}
 			}
@@ -145,7 +145,7 @@ func (d *dividerPlan) seed(e *evaluator, p *pool, cnt *counters) {
 				})
 				for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
 					for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
-						e.scoreVariants(d.tuple(di, [nPos]int{a, r2, c, re}, cnt), p.threshold, func(ev *evaluated) {
+						e.scoreVariants(d.tuple(di, [nPos]int{a, r2, c, re}, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
 							if len(ev.failing) == 0 && ev.score < d.seedBest[di] {
 								d.seedBest[di], d.seedRE[di] = ev.score, re
 							}
@@ -185,7 +185,7 @@ func (d *dividerPlan) polish(e *evaluator, p *pool, cnt *counters) {
 						continue
 					}
 					t := d.tuple(c.dev, lv, cnt)
-					e.scoreVariants(t, p.threshold, func(ev *evaluated) {
+					e.scoreVariants(t, p.threshold, p.lastScore, func(ev *evaluated) {
 						p.add(ev)
 						if len(ev.failing) == 0 && ev.score < nextScore {
 							next, nextScore = lv, ev.score
@@ -609,7 +609,7 @@ func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, r
 				break
 			}
 		}
-		e.scoreVariants(t, p.threshold, p.add, cnt)
+		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
 	}
 	for rc := split; rc <= rcHi; rc++ {
 		rcOhm := e.vs.levels[rc].ohm
@@ -620,6 +620,6 @@ func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, r
 		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
 			break
 		}
-		e.scoreVariants(t, p.threshold, p.add, cnt)
+		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
 	}
 }

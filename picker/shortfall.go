@@ -34,7 +34,7 @@ const (
 
 // shortfall explains why no build passes and what to buy. nearest are the
 // best failing builds found.
-func (e *evaluator) shortfall(stock Stock, rejected []string, nearest []Candidate) *Shortfall {
+func (e *evaluator) shortfall(rejected []string, nearest []Candidate) *Shortfall {
 	s := e.s
 	sf := &Shortfall{Rejected: rejected}
 	switch {
@@ -61,7 +61,7 @@ func (e *evaluator) shortfall(stock Stock, rejected []string, nearest []Candidat
 		}
 	}
 	if len(e.devs) > 0 {
-		sf.Purchases = append(sf.Purchases, e.buyResistors(stock)...)
+		sf.Purchases = append(sf.Purchases, e.buyResistors(nearest)...)
 	}
 	for _, p := range sf.Purchases {
 		sf.Buy = append(sf.Buy, p.Note)
@@ -130,12 +130,19 @@ func (e *evaluator) ideal(d *device) [nPos]float64 {
 	return [nPos]float64{rth * s.vcc / vb, rth * s.vcc / (s.vcc - vb), rc, re}
 }
 
-// buyResistors tries adding hand-method values to the stock: one slot's
-// value at a time, then two, and returns the first purchase that gives a
-// passing build (nil when none does).
-func (e *evaluator) buyResistors(stock Stock) []Purchase {
+// buyResistors tries hand-method values (for the transistor of the
+// nearest build): one slot's value at a time, then two, and returns the
+// first purchase that gives a build that fits (nil when none does).
+func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 	s := e.s
 	d := &e.devs[0]
+	if len(nearest) > 0 {
+		for i := range e.devs {
+			if e.devs[i].line.ID == nearest[0].Transistor.ID {
+				d = &e.devs[i]
+			}
+		}
+	}
 	id := e.ideal(d)
 	var parts [nPos]Purchase
 	for i, r := range id {
@@ -155,16 +162,18 @@ func (e *evaluator) buyResistors(stock Stock) []Purchase {
 		p.Note = fmt.Sprintf("%s: %s (%s, ±%g %%, %g W), %d pieces", strings.ToUpper(p.Slot), notation.FormatResistance(ohm), p.Series, 100*buyTol, p.Rated_W, p.Qty)
 		parts[i] = p
 	}
+	// try checks a purchase without a new search: the hand-method build
+	// with the bought values in their slots and, in the others, each of
+	// the two stocked levels nearest the ideal value (on a log scale), on
+	// the transistor of the hand method; the purchase counts when one of
+	// these builds fits (passes every hard limit with its nominal point
+	// inside the yield window).
 	try := func(slots ...int) bool {
-		st := Stock{Transistors: stock.Transistors, Resistors: append([]Resistor(nil), stock.Resistors...)}
-		for k, i := range slots {
-			p := parts[i]
-			st.Resistors = append(st.Resistors, Resistor{ID: -1 - int64(k), Ohm: p.Ohm, Tol: p.Tol, TCR_PPMPerK: 200, Rated_W: p.Rated_W, Qty: p.Qty, Bin: "to buy", Tags: s.req.RequireTags})
+		bought := map[int]Purchase{}
+		for _, i := range slots {
+			bought[i] = parts[i]
 		}
-		req := s.req
-		req.Top, req.Finalists, req.ShowFailing, req.Exhaustive = 1, 1, false, false
-		res, err := pickCore(st, req, false)
-		return err == nil && len(res.Candidates) > 0 && e.fits(res.Candidates[0])
+		return e.fitsWith(d, id, bought)
 	}
 	for i := range nPos {
 		if try(i) {
@@ -179,6 +188,69 @@ func (e *evaluator) buyResistors(stock Stock) []Purchase {
 		}
 	}
 	return nil
+}
+
+// fitsWith reports whether some build made of the bought values (in their
+// slots) and the stocked levels nearest the ideal values (two per other
+// slot) fits, on device d.
+func (e *evaluator) fitsWith(d *device, ideal [nPos]float64, bought map[int]Purchase) bool {
+	lines := append([]Resistor(nil), e.vs.lines...)
+	for k, p := range bought {
+		lines = append(lines, Resistor{ID: -1 - int64(k), Ohm: p.Ohm, Tol: p.Tol, TCR_PPMPerK: buyTCR_PPMPerK, Rated_W: p.Rated_W,
+			Qty: p.Qty, Bin: "to buy", Tags: e.s.req.RequireTags})
+	}
+	vs := buildValues(lines, e.s.boards, false, e.s.ambMax, e.s.lim)
+	if len(vs.levels) == 0 {
+		return false
+	}
+	ev := &evaluator{s: e.s, vs: &vs, devs: []device{*d}}
+	inf := func() float64 { return math.Inf(1) }
+	var choices [nPos][]int
+	for i := range nPos {
+		if p, ok := bought[i]; ok {
+			choices[i] = []int{vs.levelAtOrAbove(p.Ohm * (1 - 1e-9))}
+			continue
+		}
+		choices[i] = nearestLevels(&vs, ideal[i])
+	}
+	for _, a := range choices[0] {
+		for _, b := range choices[1] {
+			for _, c := range choices[2] {
+				for _, r := range choices[3] {
+					t := ev.newTuple(0, [nPos]int{a, b, c, r})
+					found := false
+					ev.scoreVariants(t, inf, inf, func(x *evaluated) {
+						if found || len(x.failing) > 0 {
+							return
+						}
+						cand := Candidate{Failing: x.failing, Nominal: x.op, VCETarget_V: ev.vceTarget(d, t.r)}
+						found = ev.fits(cand)
+					}, &counters{})
+					if found {
+						return true
+					}
+				}
+			}
+		}
+	}
+	return false
+}
+
+// buyTCR_PPMPerK is the TCR assumed for a bought part: thick film's
+// ±200 ppm/K worst case (REFERENCE.md §3, from memory).
+const buyTCR_PPMPerK = 200
+
+// nearestLevels returns the (up to) two levels around ohm.
+func nearestLevels(vs *valueSet, ohm float64) []int {
+	i := vs.levelAtOrAbove(ohm)
+	var out []int
+	if i > 0 {
+		out = append(out, i-1)
+	}
+	if i < len(vs.levels) {
+		out = append(out, i)
+	}
+	return out
 }
 
 // derateAt is the derating factor of a default-rated resistor at
