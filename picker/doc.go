@@ -154,7 +154,9 @@
 //     be extreme (any single corner bounds the corner minima, so the floor
 //     is a lower bound whichever corners are extreme; a corner that already
 //     breaks a hard limit proves the build fails), and only then every
-//     worst-case corner.
+//     worst-case corner. A build proved failing is evaluated fully only
+//     while the pool has room for it: once the pool is full, a failing
+//     build whose floor exceeds the last member's score ranks below it.
 //
 // The default search runs on two goroutines, each taking (device, RE)
 // items in order and sharing the pool; the pool keeps the exact best

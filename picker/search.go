@@ -112,9 +112,11 @@ func (e *evaluator) targetBand(dv *device) (lo, hi float64) {
 	return dv.vceSat, mid
 }
 
-// seed evaluates, for every device, hand-method builds: VE = VCC/10,
-// VCC/5 and VCC/20; R_TH = 0.1, 0.03 and 0.3 (hFE min + 1)·RE; R1 then set
-// by a search for the target current, RC for the target VCE.
+// seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2,
+// 0.3, 0.4 and 0.05 of VCC; R_TH = 0.1, 0.03 and 0.3 (hFE min + 1)·RE with
+// VBE 0.65 V (common practice); R1 then set by a search for the target
+// current, RC for the target VCE, and the 3×3 R1, RC levels around them
+// scored. Like polish it changes only the order of the search.
 func (d *dividerPlan) seed(e *evaluator, p *pool, cnt *counters) {
 	n := len(e.vs.levels)
 	if n == 0 {
@@ -165,15 +167,20 @@ func (d *dividerPlan) seed(e *evaluator, p *pool, cnt *counters) {
 // falls early; it changes nothing but the order of the search.
 func (d *dividerPlan) polish(e *evaluator, p *pool, cnt *counters) {
 	n := len(e.vs.levels)
-	var starts []combo
+	type start struct {
+		c     combo
+		score float64
+	}
+	var starts []start
 	for _, it := range p.items {
 		if len(it.failing) == 0 && len(starts) < polishStarts {
-			starts = append(starts, it.c)
+			starts = append(starts, start{it.c, it.score})
 		}
 	}
-	for _, c := range starts {
+	for _, st := range starts {
+		c := st.c
 		d.cache = map[[nPos]int]*tuple{}
-		best := math.Inf(1)
+		best := st.score
 		cur := c.lv
 		for range maxPolishSteps {
 			next, nextScore := cur, best
