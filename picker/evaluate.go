@@ -205,16 +205,22 @@ type tuple struct {
 
 // newTuple solves the nominal point of a level tuple.
 func (e *evaluator) newTuple(dev int, lv [nPos]int) *tuple {
-	t := &tuple{c: combo{dev: dev, lv: lv}, r: e.ohms(lv)}
+	t := &tuple{}
+	e.solveTuple(t, dev, lv)
+	return t
+}
+
+// solveTuple fills t with the solved nominal point of a level tuple.
+func (e *evaluator) solveTuple(t *tuple, dev int, lv [nPos]int) {
+	*t = tuple{c: combo{dev: dev, lv: lv}, r: e.ohms(lv)}
 	d := &e.devs[dev]
 	op, err := e.solveAt(d, d.typ, t.r)
 	if err != nil {
-		return t
+		return
 	}
 	t.op, t.ok = op, true
 	t.vceT = e.vceTarget(d, t.r)
 	t.q = e.qpoint(op, t.vceT)
-	return t
 }
 
 // betaSpread solves the tuple at hFE min and max (self-heated, nominal

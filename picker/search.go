@@ -70,6 +70,9 @@ type dividerPlan struct {
 	splitGuess int
 	// per-RE memos of searchRE, kept to reuse their storage
 	upSeen, floorSeen map[int]float64
+	// slab holds the cached tuples; used counts the ones in use
+	slab [][]tuple
+	used int
 	// best passing seed score and its RE level per device: the search
 	// visits devices from the best seed and each device's RE levels
 	// outward from its best seed (any order is sound; this one tightens
@@ -84,6 +87,7 @@ func (d *dividerPlan) resetCache() {
 		d.cache = map[[nPos]int]*tuple{}
 	}
 	clear(d.cache)
+	d.used = 0
 }
 
 // tuple returns the (cached) solved level tuple of device dev.
@@ -91,10 +95,25 @@ func (d *dividerPlan) tuple(dev int, lv [nPos]int, cnt *counters) *tuple {
 	if t, ok := d.cache[lv]; ok {
 		return t
 	}
-	t := d.e.newTuple(dev, lv)
+	t := d.alloc()
+	d.e.solveTuple(t, dev, lv)
 	cnt.solves++
 	d.cache[lv] = t
 	return t
+}
+
+// slabChunk is the number of tuples allocated at once for the cache.
+const slabChunk = 1024
+
+// alloc returns storage for one cached tuple, reused after resetCache
+// (nothing keeps a tuple pointer beyond the cache).
+func (d *dividerPlan) alloc() *tuple {
+	k, i := d.used/slabChunk, d.used%slabChunk
+	if k == len(d.slab) {
+		d.slab = append(d.slab, make([]tuple, slabChunk))
+	}
+	d.used++
+	return &d.slab[k][i]
 }
 
 // targetBand returns bounds on the VCE target over all builds of device
@@ -125,7 +144,7 @@ func (d *dividerPlan) seed(e *evaluator, p *pool, cnt *counters) {
 	d.seedBest = make([]float64, len(e.devs))
 	d.seedRE = make([]int, len(e.devs))
 	for di := range e.devs {
-		d.cache = map[[nPos]int]*tuple{}
+		d.resetCache()
 		dv := &e.devs[di]
 		_, vceHi := e.targetBand(dv)
 		d.seedBest[di] = math.Inf(1)
@@ -179,7 +198,7 @@ func (d *dividerPlan) polish(e *evaluator, p *pool, cnt *counters) {
 	}
 	for _, st := range starts {
 		c := st.c
-		d.cache = map[[nPos]int]*tuple{}
+		d.resetCache()
 		best := st.score
 		cur := c.lv
 		for range maxPolishSteps {
