@@ -13,9 +13,11 @@ import (
 )
 
 // Pick searches stock for the best builds for req: the Top builds by
-// score (see doc.go), passing builds first. Bad input is an *InputError.
-// When no build passes every hard limit the result carries a Shortfall
-// and, as the nearest builds, the best failing ones.
+// score (see doc.go), passing builds first, failing ones only with
+// req.ShowFailing or, as the nearest builds, when none passes. Bad input
+// is an *InputError. When no listed build fits — passes every hard limit
+// with its nominal point inside the yield window — the result carries a
+// Shortfall saying why and what to buy.
 func Pick(stock Stock, req Request) (Result, error) {
 	s, err := normalize(req)
 	if err != nil {
