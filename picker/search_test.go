@@ -14,16 +14,19 @@ import (
 // same scores). The reference is the exhaustive evaluation itself, which
 // computes every build with no bound at all.
 func TestSearchMatchesExhaustive(t *testing.T) {
-	cases := 40
+	cases, large := 40, 6 // the last `large` cases draw 14..20 values
 	if testing.Short() {
-		cases = 10
+		cases, large = 10, 0
 	}
-	for k := range cases {
+	for k := range cases + large {
 		rng := rand.New(rand.NewPCG(uint64(k), 7))
-		pairs := k%5 == 4
+		pairs := k%5 == 4 && k < cases
 		nVals := 6 + rng.IntN(9)
 		if pairs {
 			nVals = 3
+		}
+		if k >= cases {
+			nVals = 14 + rng.IntN(7)
 		}
 		st := randomStock(rng, nVals, 1+rng.IntN(2))
 		req := Request{
