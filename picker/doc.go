@@ -38,6 +38,11 @@
 // (NominalAmbient_C) with the typical hFE, every part at its marked value.
 //
 //	QPoint      |IC − IC_target|/IC_target + |VCE − VCE_target|/|VCC|  at the nominal point
+//	Emitter     (max(0, VE − VE_max) + max(0, VE_min − VE))/|VCC| at the nominal point:
+//	            the emitter resistor's slice of the supply outside the band
+//	            (Request.VEMin_V..VEMax_V, default 5 %..20 % of |VCC|; about a
+//	            tenth is common practice — enough emitter feedback to swamp
+//	            VBE drift, little enough to leave the supply to the swing)
 //	Beta        |IC(hFE max) − IC(hFE min)|/IC  (both self-heated at 25 °C, nominal parts)
 //	Headroom    max(0, 1 − s/0.10) + max(0, 1 − c/0.50), where
 //	            s = (VCE_min − VCE(sat) − margin)/|VCC| and c = IC_min/IC_target
@@ -46,8 +51,8 @@
 //	            ratings derated at the hottest ambient (solver.EvalDissipation)
 //	Yield       1 − Monte Carlo yield (solver.EvalYieldSeeded), finalists only
 //
-// Default weights: QPoint 2, Beta 1, Headroom 1, Utilization 0.25,
-// Yield 1. The VCE target is the request's, or the VCE that maximises the
+// Default weights: QPoint 2, Emitter 2, Beta 1, Headroom 1,
+// Utilization 0.25, Yield 1. The VCE target is the request's, or the VCE that maximises the
 // symmetrical swing of this build at the target current: with
 // r_ac = RC‖RL + RE(unbypassed) and R_dc = RC + RE it is
 // VCE(sat) + (|VCC| − VCE(sat))·r_ac/(R_dc + r_ac), which is the mid-point
@@ -115,6 +120,11 @@
 //   - Q-RE: VCE ≤ |VCC| − IC(RC + RE) ≤ |VCC| − IC_lo(RC_min + RE); once
 //     this is more than δ|VCC| below the lowest VCE target no larger RE can
 //     come close.
+//   - E-RE: VE = IE·RE lies in [IC_lo·RE, k·IC_hi·RE], so the emitter term
+//     is at least (IC_lo·RE − VE_max)/|VCC| (rising with RE: the upward run
+//     stops) and at least (VE_min − k·IC_hi·RE)/|VCC| (an RE too small is
+//     skipped). The term is ≥ 0 and only adds to the score, so every other
+//     floor stays a floor.
 //   - RC band: with IE between IC and (1 + 2/hFE_min)·IC (forward beta at
 //     the nominal point at least half the datasheet minimum), VCE lies in
 //     [|VCC| − IC_hi(RC + k·RE), |VCC| − IC_lo(RC + RE)]; RC outside the band

@@ -136,6 +136,13 @@ func (e *evaluator) qpoint(op solver.OperatingPoint, vceT float64) float64 {
 	return math.Abs(op.IC_A-e.s.icT)/e.s.icT + math.Abs(op.VCE_V-vceT)/e.s.vcc
 }
 
+// emitter is the emitter term of an operating point: how far the emitter
+// voltage lies outside the emitter band, as a share of |VCC| (0 inside).
+func (e *evaluator) emitter(op solver.OperatingPoint) float64 {
+	ve := math.Abs(op.VE_V)
+	return (math.Max(0, ve-e.s.veHi) + math.Max(0, e.s.veLo-ve)) / e.s.vcc
+}
+
 // build returns the solver.Build of a combo.
 func (e *evaluator) build(c combo) solver.Build {
 	d := &e.devs[c.dev]
@@ -158,10 +165,13 @@ func (e *evaluator) build(c combo) solver.Build {
 	return b
 }
 
-// key is the fixed-width tie-break key of a combo.
+// key is the fixed-width tie-break key of a combo: the device line ID,
+// then per position the level (ascending resistance) and the value's
+// preference rank within it, so input order never decides a tie.
 func (e *evaluator) key(c combo) string {
+	rk := func(i int) int { return e.vs.values[c.val[i]].rank }
 	return fmt.Sprintf("%020d|%06d.%06d|%06d.%06d|%06d.%06d|%06d.%06d", e.devs[c.dev].line.ID,
-		c.lv[0], c.val[0], c.lv[1], c.val[1], c.lv[2], c.val[2], c.lv[3], c.val[3])
+		c.lv[0], rk(0), c.lv[1], rk(1), c.lv[2], rk(2), c.lv[3], rk(3))
 }
 
 // fitsQuantity reports whether N boards of the combo can be built from
@@ -198,6 +208,7 @@ type tuple struct {
 	ok       bool // nominal solve succeeded
 	vceT     float64
 	q        float64
+	em       float64 // emitter term
 	betaDone bool
 	betaOK   bool
 	beta     float64 // signed relative spread
@@ -221,6 +232,7 @@ func (e *evaluator) solveTuple(t *tuple, dev int, lv [nPos]int) {
 	t.op, t.ok = op, true
 	t.vceT = e.vceTarget(d, t.r)
 	t.q = e.qpoint(op, t.vceT)
+	t.em = e.emitter(op)
 }
 
 // betaSpread solves the tuple at hFE min and max (self-heated, nominal
@@ -286,7 +298,7 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 					}
 					b := e.build(c)
 					dis := solver.EvalDissipation(b, t.op, e.s.ambMax, e.s.lim)
-					partial := w.QPoint*t.q + w.Utilization*dis.MaxUtilization
+					partial := w.QPoint*t.q + w.Emitter*t.em + w.Utilization*dis.MaxUtilization
 					if partial > thr() {
 						continue
 					}
@@ -361,14 +373,14 @@ func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *eva
 	wc, err := solver.EvalWorstCaseWith(b, e.s.lim, solver.WorstCaseOptions{SkipCorners: true, SkipRSS: true})
 	if err != nil {
 		ev.failing = append(ev.failing, fmt.Sprintf("worst case: %v", err))
-		ev.terms = Terms{QPoint: t.q, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util}
+		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util}
 	} else {
 		ev.worst = wc
-		ev.terms = Terms{QPoint: t.q, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
+		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
 		ev.failing = e.hardLimits(d, wc)
 	}
 	w := e.s.w
-	ev.score = w.QPoint*ev.terms.QPoint + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization
+	ev.score = w.QPoint*ev.terms.QPoint + w.Emitter*ev.terms.Emitter + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization
 	return ev
 }
 

@@ -29,6 +29,13 @@ const (
 	// DefaultYieldBoards is the Monte Carlo size per finalist when
 	// Request.YieldBoards is 0.
 	DefaultYieldBoards = 400
+	// DefaultVEMinFrac and DefaultVEMaxFrac are the emitter band as shares
+	// of |VCC| when the request gives none: the emitter resistor takes a
+	// slice of the supply, about a tenth (common practice), enough for
+	// the emitter feedback to swamp VBE's drift, small enough to leave the
+	// supply to the collector swing.
+	DefaultVEMinFrac = 0.05
+	DefaultVEMaxFrac = 0.20
 	// VoltageDerating is the share of VCEO a transistor may see at the
 	// highest supply (80 %, common practice, REFERENCE.md §3).
 	VoltageDerating = 0.8
@@ -43,7 +50,7 @@ const (
 // DefaultWeights returns the ranking weights used when Request.Weights is
 // the zero value (see doc.go for what each term measures).
 func DefaultWeights() Weights {
-	return Weights{QPoint: 2, Beta: 1, Headroom: 1, Utilization: 0.25, Yield: 1}
+	return Weights{QPoint: 2, Emitter: 2, Beta: 1, Headroom: 1, Utilization: 0.25, Yield: 1}
 }
 
 // InputError is a request the picker cannot work on: Field names the
@@ -76,6 +83,7 @@ type settings struct {
 	vccTol      float64
 	icT         float64
 	vceT        float64 // 0 = maximum-symmetrical-swing rule per build
+	veLo, veHi  float64 // emitter band (magnitudes)
 	ambMin      float64
 	ambMax      float64
 	boards      int
@@ -141,6 +149,18 @@ func normalize(req Request) (settings, error) {
 			"%g V cannot exist with a %g V supply at -%g %%", req.VCE_V, s.vcc, 100*s.vccTol)
 	}
 	s.vceT = req.VCE_V
+	if !finite(req.VEMin_V) || !finite(req.VEMax_V) || req.VEMin_V < 0 || req.VEMax_V < req.VEMin_V {
+		return s, inputErr("ve", "give the emitter band as MIN..MAX volts with 0 <= MIN <= MAX",
+			"%g..%g V is not an emitter band", req.VEMin_V, req.VEMax_V)
+	}
+	s.veLo, s.veHi = req.VEMin_V, req.VEMax_V
+	if s.veLo == 0 && s.veHi == 0 {
+		s.veLo, s.veHi = DefaultVEMinFrac*s.vcc, DefaultVEMaxFrac*s.vcc
+	}
+	if s.veLo >= vceLow-s.vceT {
+		return s, inputErr("ve", fmt.Sprintf("choose an emitter band below %.3g V", vceLow-s.vceT),
+			"an emitter at %g V leaves no room for VCE %g V on a %g V supply at -%g %%", s.veLo, s.vceT, s.vcc, 100*s.vccTol)
+	}
 	s.ambMin, s.ambMax = req.AmbientMin_C, req.AmbientMax_C
 	if s.ambMin == 0 && s.ambMax == 0 {
 		s.ambMin, s.ambMax = DefaultAmbientMin_C, DefaultAmbientMax_C
@@ -184,7 +204,7 @@ func normalize(req Request) (settings, error) {
 	for _, t := range []struct {
 		name string
 		v    float64
-	}{{"qpoint", s.w.QPoint}, {"beta", s.w.Beta}, {"headroom", s.w.Headroom}, {"utilization", s.w.Utilization}, {"yield", s.w.Yield}} {
+	}{{"qpoint", s.w.QPoint}, {"emitter", s.w.Emitter}, {"beta", s.w.Beta}, {"headroom", s.w.Headroom}, {"utilization", s.w.Utilization}, {"yield", s.w.Yield}} {
 		if !finite(t.v) || t.v < 0 {
 			return s, inputErr("weights."+t.name, "use 0 to ignore the term or a positive number to stress it",
 				"%g: a weight cannot be negative", t.v)

@@ -28,6 +28,8 @@ func TestBadInput(t *testing.T) {
 		{"no current", good, func(r *Request) { r.IC_A = 0 }, "ic"},
 		{"current the supply cannot drive", good, func(r *Request) { r.IC_A = 0.5 }, "ic"},
 		{"vce above the supply", good, func(r *Request) { r.VCE_V = 12 }, "vce"},
+		{"emitter band upside down", good, func(r *Request) { r.VEMin_V, r.VEMax_V = 3, 1 }, "ve"},
+		{"emitter band leaves no VCE", good, func(r *Request) { r.VCE_V, r.VEMin_V, r.VEMax_V = 6, 6, 7 }, "ve"},
 		{"negative weight", good, func(r *Request) { r.Weights = Weights{QPoint: 1, Beta: -1} }, "weights.beta"},
 		{"ambient upside down", good, func(r *Request) { r.AmbientMin_C, r.AmbientMax_C = 60, 10 }, "ambient"},
 		{"negative boards", good, func(r *Request) { r.Boards = -2 }, "boards"},

@@ -370,9 +370,11 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 			if bd.finite {
 				// Bound U-RE: P(RE) = IE²·RE ≥ icLo²·RE. Bound Q-RE:
 				// VCE ≤ VCC − IC·(RC + RE) ≤ VCC − icLo·(RCmin + RE).
-				// Both rise with RE.
+				// Bound E-RE: VE = IE·RE ≥ icLo·RE, so the emitter term
+				// is at least (icLo·RE − VE max)/VCC. All rise with RE.
 				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr ||
-					w.QPoint*(vceLo-(s.vcc-bd.icLo*(e.vs.levels[0].ohm+reOhm)))/s.vcc > bd.thr {
+					w.QPoint*(vceLo-(s.vcc-bd.icLo*(e.vs.levels[0].ohm+reOhm)))/s.vcc > bd.thr ||
+					w.Emitter*(bd.icLo*reOhm-s.veHi)/s.vcc > bd.thr {
 					if it.up {
 						for {
 							cur := upStop[it.di].Load()
@@ -384,6 +386,11 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 					continue
 				}
 				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[it.re].allowHot_W > bd.thr {
+					continue
+				}
+				// Bound E-RE, low side: VE = IE·RE ≤ kE·icHi·RE, so the
+				// emitter term is at least (VE min − kE·icHi·RE)/VCC.
+				if w.Emitter*(s.veLo-kE*bd.icHi*reOhm)/s.vcc > bd.thr {
 					continue
 				}
 			}
@@ -451,9 +458,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			lastRcLo = rcLo
 		}
 		r1Lo, r1Hi := 0, n-1
-		// base is a lower bound on the beta and utilization terms of
-		// every build at this R2: bLo·w_Beta + uBase·w_Utilization.
-		var base, bLo, uBase float64
+		// base is a lower bound on the beta, utilization and emitter
+		// terms of every build at this R2:
+		// bLo·w_Beta + uBase·w_Utilization + eLo·w_Emitter.
+		var base, bLo, uBase, eLo float64
 		if bd.finite && bd.thr != lastThr {
 			vbeLo, vbeHi = e.vbeBounds(dv, bd.icLo, bd.icHi)
 			lastThr = bd.thr
@@ -474,11 +482,14 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				rth := e.rthFloor(e.vs.levels[r2].ohm, vbHi, 2*bd.icHi/dv.hfeMin)
 				bLo = e.betaFloor(dv, rth, reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi, vbeHi)
 			}
-			if w.Beta*bLo+w.Utilization*uRE > bd.thr {
+			// Bound E-RE: VE = IE·RE lies in [icLo·RE, kE·icHi·RE]
+			// whatever R1, R2 and RC are.
+			eLo = math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+			if w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				break
 			}
 			uBase = math.Max(uRE, uDiv)
-			base = w.Beta*bLo + w.Utilization*uBase
+			base = w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
 			if base > bd.thr {
 				continue
 			}
@@ -510,7 +521,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			if r1Hi >= 0 && vbHi < e.s.vcc {
 				r1Ohm := e.vs.levels[r1Hi].ohm
 				uR1 := (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.allowHotMax_W
-				if w.Beta*bLo+w.Utilization*math.Max(uBase, uR1) > bd.thr {
+				if w.Beta*bLo+w.Utilization*math.Max(uBase, uR1)+w.Emitter*eLo > bd.thr {
 					continue
 				}
 			}
@@ -548,7 +559,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				if vbHi < e.s.vcc {
 					uR1 = (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.levels[r1].allowHot_W
 				}
-				b1 = w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1)
+				b1 = w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1) + w.Emitter*eLo
 			}
 			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi, kE, b1)
 		}

@@ -40,14 +40,18 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 			// failing builds are compared too when listed
 			ShowFailing: k%3 == 0,
 		}
-		switch rng.IntN(4) {
+		switch rng.IntN(5) {
 		case 1:
 			req.VCE_V = req.VCC_V * (0.3 + 0.3*rng.Float64())
 		case 2:
 			req.RL_Ohm = 10e3
 			req.Bypass = true
 		case 3:
-			req.Weights = Weights{QPoint: 4 * rng.Float64(), Beta: 2 * rng.Float64(), Headroom: rng.Float64(), Utilization: rng.Float64(), Yield: rng.Float64()}
+			req.Weights = Weights{QPoint: 4 * rng.Float64(), Emitter: 4 * rng.Float64(), Beta: 2 * rng.Float64(), Headroom: rng.Float64(), Utilization: rng.Float64(), Yield: rng.Float64()}
+		case 4:
+			// a narrow emitter band of the user's own
+			req.VEMin_V = req.VCC_V * (0.05 + 0.1*rng.Float64())
+			req.VEMax_V = req.VEMin_V * (1 + 0.2*rng.Float64())
 		}
 		t.Run(fmt.Sprintf("case%02d", k), func(t *testing.T) {
 			fast, errFast := Pick(st, req)

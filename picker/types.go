@@ -35,6 +35,7 @@ type Stock struct {
 // defaults (a negative weight is an error).
 type Weights struct {
 	QPoint      float64
+	Emitter     float64
 	Beta        float64
 	Headroom    float64
 	Utilization float64
@@ -44,12 +45,16 @@ type Weights struct {
 // Request is what the technician asks for. The zero value of each optional
 // field means its documented default.
 type Request struct {
-	Topology     solver.Topology // 0 = divider
-	Polarity     solver.Polarity
-	VCC_V        float64 // signed (negative for PNP)
-	VCCTol       float64
-	IC_A         float64 // target collector current
-	VCE_V        float64 // target VCE magnitude; 0 = the maximum-symmetrical-swing rule
+	Topology solver.Topology // 0 = divider
+	Polarity solver.Polarity
+	VCC_V    float64 // signed (negative for PNP)
+	VCCTol   float64
+	IC_A     float64 // target collector current
+	VCE_V    float64 // target VCE magnitude; 0 = the maximum-symmetrical-swing rule
+	// VEMin_V and VEMax_V bound the emitter voltage magnitude the emitter
+	// term aims at; both 0 = DefaultVEMinFrac..DefaultVEMaxFrac of |VCC|.
+	VEMin_V      float64
+	VEMax_V      float64
 	AmbientMin_C float64
 	AmbientMax_C float64 // both 0 = 0..50 °C
 	Boards       int     // 0 = 1
@@ -90,6 +95,7 @@ type Position struct {
 // Terms are the score terms of one candidate (each >= 0, lower is better).
 type Terms struct {
 	QPoint      float64
+	Emitter     float64 // VE outside the emitter band, as a share of |VCC|
 	Beta        float64
 	Headroom    float64
 	Utilization float64

@@ -16,6 +16,10 @@ type value struct {
 	arr   string
 	lines [2]int // indexes into the resistor lines; lines[1] = -1 for a single
 	spec  solver.ResistorSpec
+	// rank is the value's place in its level's preference order: the
+	// tie-break uses it, never the index into valueSet.values, which
+	// follows the order the stock lines came in.
+	rank int
 }
 
 // parts returns the line indexes the value draws one part from each.
@@ -123,6 +127,7 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 		allow := allowance(v.spec, hotAmbient_C, lim)
 		if n := len(vs.levels); n > 0 && sameOhm(vs.levels[n-1].ohm, v.ohm) {
 			l := &vs.levels[n-1]
+			vs.values[vi].rank = len(l.values)
 			l.values = append(l.values, vi)
 			l.allowHot_W = math.Max(l.allowHot_W, allow)
 		} else {

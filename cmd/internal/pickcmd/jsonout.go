@@ -32,7 +32,9 @@ type jsonRequest struct {
 	VCC_V        float64  `json:"vcc_v"`
 	VCCTol       float64  `json:"vcc_tol"`
 	IC_A         float64  `json:"ic_a"`
-	VCE_V        float64  `json:"vce_v"` // 0 = the maximum-symmetrical-swing rule
+	VCE_V        float64  `json:"vce_v"`    // 0 = the maximum-symmetrical-swing rule
+	VEMin_V      float64  `json:"ve_min_v"` // 0..0 = the default emitter band
+	VEMax_V      float64  `json:"ve_max_v"`
 	AmbientMin_C float64  `json:"ambient_min_c"`
 	AmbientMax_C float64  `json:"ambient_max_c"`
 	Boards       int      `json:"boards"`
@@ -67,6 +69,7 @@ type jsonCandidate struct {
 
 type jsonTerms struct {
 	QPoint      float64 `json:"qpoint"`
+	Emitter     float64 `json:"emitter"`
 	Beta        float64 `json:"beta"`
 	Headroom    float64 `json:"headroom"`
 	Utilization float64 `json:"utilization"`
@@ -194,6 +197,8 @@ func jsonRequestOf(r picker.Request) jsonRequest {
 		VCCTol:       r.VCCTol,
 		IC_A:         r.IC_A,
 		VCE_V:        r.VCE_V,
+		VEMin_V:      r.VEMin_V,
+		VEMax_V:      r.VEMax_V,
 		AmbientMin_C: r.AmbientMin_C,
 		AmbientMax_C: r.AmbientMax_C,
 		Boards:       r.Boards,
@@ -214,6 +219,7 @@ func (v view) jsonCandidate(c picker.Candidate) jsonCandidate {
 		Score: c.Score,
 		Terms: jsonTerms{
 			QPoint:      c.Terms.QPoint,
+			Emitter:     c.Terms.Emitter,
 			Beta:        c.Terms.Beta,
 			Headroom:    c.Terms.Headroom,
 			Utilization: c.Terms.Utilization,

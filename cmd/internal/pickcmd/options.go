@@ -24,6 +24,7 @@ type Options struct {
 	VCCTol      string
 	IC          string
 	VCE         string
+	VE          string
 	Polarity    string
 	Topology    string
 	Ambient     string

@@ -44,13 +44,18 @@ largest symmetrical swing on its load lines:
 with R_dc = RC + RE and r_ac = RC‖RL, plus RE unless --bypass. With no
 --load and no --bypass that is the mid-point (VCC + VCE(sat)) / 2.
 
+The emitter resistor takes a slice of the supply: builds whose emitter
+voltage falls outside --ve (default 5 % to 20 % of the supply, about a tenth
+being the usual choice) pay the emitter term, the distance outside the band
+as a share of the supply.
+
 Yield windows: a percentage is a band around the target (--ic-window 10%),
 a range is absolute (--vce-window 4V..8V). Without --vce, the VCE band is
 the picker's per-build default (±20 % of that build's target) unless given
 as a range.
 
-Ranking weights (--weights NAME=VALUE,...; NAME one of q, beta, headroom,
-util, yield): every term is at least 0 and lower is better; the score is
+Ranking weights (--weights NAME=VALUE,...; NAME one of q, emitter, beta,
+headroom, util, yield): every term is at least 0 and lower is better; the score is
 their weighted sum. A weight of 0 ignores a term; negative weights are
 refused. Terms left out keep their defaults: ` + weightsHelp() + `.
 
@@ -81,6 +86,7 @@ Bad flags exit 2. pick only reads the stock; it never changes it.`,
 	fl.StringVar(&o.VCCTol, "vcc-tol", defaultVCCTol, "supply tolerance")
 	fl.StringVar(&o.IC, "ic", "", "target collector current, e.g. 2mA")
 	fl.StringVar(&o.VCE, "vce", "", "target VCE (default: the maximum-symmetrical-swing rule, see above)")
+	fl.StringVar(&o.VE, "ve", "", "emitter voltage band MIN..MAX or a single value (default 5 % to 20 % of the supply)")
 	fl.StringVar(&o.Polarity, "polarity", "npn", "transistor polarity: npn or pnp")
 	fl.StringVar(&o.Topology, "topology", "divider", "bias circuit (divider; others not yet supported)")
 	fl.StringVar(&o.Ambient, "ambient", defaultAmbient, "ambient temperature range in °C, MIN..MAX")

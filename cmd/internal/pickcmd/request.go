@@ -78,6 +78,21 @@ func (o *Options) request() (picker.Request, error) {
 		}
 	}
 
+	if o.VE != "" {
+		lo, hi, err := notation.ParseRange(o.VE, notation.ParseVoltage)
+		if err != nil {
+			return req, cmdutil.Usagef("--ve: %v", err)
+		}
+		lo, hi = math.Abs(lo), math.Abs(hi)
+		if lo > hi {
+			lo, hi = hi, lo
+		}
+		if hi <= 0 {
+			return req, cmdutil.Usagef("--ve %s: the emitter band must be above 0 V, e.g. --ve 1V..2V", o.VE)
+		}
+		req.VEMin_V, req.VEMax_V = lo, hi
+	}
+
 	if req.AmbientMin_C, req.AmbientMax_C, err = parseAmbient(o.Ambient); err != nil {
 		return req, err
 	}
@@ -210,6 +225,8 @@ func band(flag, s string, target float64, unit string, parse func(string) (float
 var weightNames = map[string]func(*picker.Weights) *float64{
 	"q":           func(w *picker.Weights) *float64 { return &w.QPoint },
 	"qpoint":      func(w *picker.Weights) *float64 { return &w.QPoint },
+	"e":           func(w *picker.Weights) *float64 { return &w.Emitter },
+	"emitter":     func(w *picker.Weights) *float64 { return &w.Emitter },
 	"beta":        func(w *picker.Weights) *float64 { return &w.Beta },
 	"headroom":    func(w *picker.Weights) *float64 { return &w.Headroom },
 	"util":        func(w *picker.Weights) *float64 { return &w.Utilization },
@@ -259,6 +276,6 @@ func defaultWeights() picker.Weights { return picker.DefaultWeights() }
 // weightsHelp writes the default weights as --weights takes them.
 func weightsHelp() string {
 	w := defaultWeights()
-	return "q=" + trimNum(w.QPoint) + ",beta=" + trimNum(w.Beta) + ",headroom=" + trimNum(w.Headroom) +
+	return "q=" + trimNum(w.QPoint) + ",emitter=" + trimNum(w.Emitter) + ",beta=" + trimNum(w.Beta) + ",headroom=" + trimNum(w.Headroom) +
 		",util=" + trimNum(w.Utilization) + ",yield=" + trimNum(w.Yield)
 }

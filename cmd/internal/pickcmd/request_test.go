@@ -155,7 +155,7 @@ func TestFlagErrors(t *testing.T) {
 		{"zero top", append(base, "--top", "0"), []string{"--top 0"}},
 		{"negative weight", append(base, "--weights", "beta=-1"), []string{"beta=-1", "cannot be negative", "use 0"}},
 		{"unknown weight", append(base, "--weights", "speed=1"), []string{"speed=1", "q, beta, headroom, util, yield"}},
-		{"all weights zero", append(base, "--weights", "q=0,beta=0,headroom=0,util=0,yield=0"), []string{"every weight is 0", "positive"}},
+		{"all weights zero", append(base, "--weights", "q=0,emitter=0,beta=0,headroom=0,util=0,yield=0"), []string{"every weight is 0", "positive"}},
 		{"weight not a number", append(base, "--weights", "q=lots"), []string{"not a number"}},
 		{"vce window percent without vce", append(base, "--vce-window", "5%"), []string{"needs a target --vce", "4V..8V"}},
 		{"window not a band", append(base, "--ic-window", "wide"), []string{"--ic-window", "10%"}},

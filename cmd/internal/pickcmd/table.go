@@ -97,8 +97,8 @@ func writeCandidate(w io.Writer, v view, c picker.Candidate) {
 	fmt.Fprintf(w, "    load      hottest part at %s of its design limit; IC moves %s across the hFE spread\n",
 		percent(c.MaxUtilization), percent(c.BetaSensitivity))
 	t := c.Terms
-	fmt.Fprintf(w, "    terms     Q-point %.3f  beta %.3f  headroom %.3f  utilization %.3f  yield %.3f\n",
-		t.QPoint, t.Beta, t.Headroom, t.Utilization, t.Yield)
+	fmt.Fprintf(w, "    terms     Q-point %.3f  emitter %.3f  beta %.3f  headroom %.3f  utilization %.3f  yield %.3f\n",
+		t.QPoint, t.Emitter, t.Beta, t.Headroom, t.Utilization, t.Yield)
 }
 
 // writePullList writes the best build's parts for the whole run, one line
