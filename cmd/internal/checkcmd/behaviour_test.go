@@ -3,18 +3,15 @@ package checkcmd
 import (
 	"bytes"
 	"encoding/json"
-	"flag"
 	"math"
-	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 )
-
-var update = flag.Bool("update", false, "rewrite the golden files under testdata")
 
 // run executes `biasbin check args...` with buffer streams and returns
 // stdout, stderr and the exit code.
@@ -37,23 +34,7 @@ func run(t *testing.T, args []string) (string, string, int) {
 // golden compares got with testdata/name, or rewrites it under -update.
 func golden(t *testing.T, name, got string) {
 	t.Helper()
-	path := filepath.Join("testdata", name)
-	if *update {
-		if err := os.MkdirAll("testdata", 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if got != string(want) {
-		t.Errorf("%s differs from the golden file (go test -update rewrites it):\n--- got\n%s\n--- want\n%s", name, got, want)
-	}
+	cmdtest.Golden(t, filepath.Join("testdata", name), got)
 }
 
 // roundJSON rewrites every number of a JSON document to 6 significant

@@ -8,8 +8,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/spf13/cobra"
-
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/solver"
 	"biasbin/store"
@@ -36,12 +35,7 @@ func parseFlags(t *testing.T, args []string, open func(context.Context) (*store.
 		in, err = o.input(context.Background())
 		return err
 	})
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	cmd.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return &cmdutil.UsageError{Err: err} })
-	err := cmd.Execute()
+	err := cmdtest.Execute(cmd, args, &out, &errOut)
 	if out.Len() != 0 {
 		t.Errorf("flag parsing wrote to stdout: %q", out.String())
 	}

@@ -3,38 +3,19 @@ package pickcmd
 import (
 	"bytes"
 	"encoding/json"
-	"flag"
-	"os"
 	"path/filepath"
 	"regexp"
 	"strings"
 	"testing"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/picker"
 )
-
-var update = flag.Bool("update", false, "rewrite the golden files under testdata/")
 
 // golden compares got with testdata/name, or rewrites it with -update.
 func golden(t *testing.T, name, got string) {
 	t.Helper()
-	path := filepath.Join("testdata", name)
-	if *update {
-		if err := os.MkdirAll("testdata", 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if got != string(want) {
-		t.Errorf("output differs from %s (go test -update rewrites it after review):\n--- got\n%s\n--- want\n%s", path, got, want)
-	}
+	cmdtest.Golden(t, filepath.Join("testdata", name), got)
 }
 
 // render writes v as the command would: data on one stream, notes on the other.

@@ -1,35 +1,19 @@
 package stockcmd
 
 import (
-	"flag"
 	"fmt"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
-)
 
-// update rewrites the golden files; review every change before committing.
-var update = flag.Bool("update", false, "rewrite testdata/golden files")
+	"biasbin/cmd/internal/cmdtest"
+)
 
 // checkGolden compares got with testdata/golden/name, or writes it with
 // -update.
 func checkGolden(t *testing.T, name, got string) {
 	t.Helper()
-	path := filepath.Join("testdata", "golden", name)
-	if *update {
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update and review the file)", err)
-	}
-	if got != string(want) {
-		t.Errorf("%s differs from the golden file:\n--- got\n%s\n--- want\n%s", name, got, want)
-	}
+	cmdtest.Golden(t, filepath.Join("testdata", "golden", name), got)
 }
 
 // transcript formats one run for a golden file.
