@@ -107,7 +107,7 @@ func TestPickedBuildInNgspice(t *testing.T) {
 			t.Errorf("build %d: picker IC %.6g A, ngspice %.6g A", i, want[i], ic)
 		}
 	}
-	t.Logf("%d picked builds checked against ngspice", len(jobs))
+	t.Logf("ngspice: %d picked builds re-solved", len(jobs))
 }
 
 // handMethod is the common-practice design (common practice, REFERENCE.md
