@@ -16,8 +16,8 @@ func checkGolden(t *testing.T, name, got string) {
 	cmdtest.Golden(t, filepath.Join("testdata", "golden", name), got)
 }
 
-// transcript formats one run for a golden file.
-func transcript(args []string, r result) string {
+// runRecord formats one run for a golden file.
+func runRecord(args []string, r result) string {
 	return fmt.Sprintf("$ biasbin %s\n[exit %d]\n--- stdout\n%s--- stderr\n%s", strings.Join(args, " "), r.code, r.out, r.errOut)
 }
 
@@ -53,6 +53,6 @@ func TestCommandsGolden(t *testing.T) {
 	}
 	for _, s := range steps {
 		r := run(t, db, "", s.args...)
-		checkGolden(t, s.golden, transcript(s.args, r))
+		checkGolden(t, s.golden, runRecord(s.args, r))
 	}
 }
