@@ -158,8 +158,8 @@ func normalize(req Request) (settings, error) {
 		s.veLo, s.veHi = DefaultVEMinFrac*s.vcc, DefaultVEMaxFrac*s.vcc
 	}
 	if s.veLo >= vceLow-s.vceT {
-		return s, inputErr("ve", fmt.Sprintf("choose an emitter band below %.3g V", vceLow-s.vceT),
-			"an emitter at %g V leaves no room for VCE %g V on a %g V supply at -%g %%", s.veLo, s.vceT, s.vcc, 100*s.vccTol)
+		return s, inputErr("ve", fmt.Sprintf("lower the VCE target, or give an emitter band (--ve) below %.3g V", vceLow-s.vceT),
+			"an emitter at %.3g V or more leaves no room for VCE %.3g V on a %.3g V supply at -%.3g %%", s.veLo, s.vceT, s.vcc, 100*s.vccTol)
 	}
 	s.ambMin, s.ambMax = req.AmbientMin_C, req.AmbientMax_C
 	if s.ambMin == 0 && s.ambMax == 0 {
