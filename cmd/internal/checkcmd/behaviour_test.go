@@ -19,12 +19,7 @@ func run(t *testing.T, args []string) (string, string, int) {
 	t.Helper()
 	var out, errOut bytes.Buffer
 	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
-	cmd := New(f)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true // as the root command does
-	err := cmd.Execute()
+	err := cmdtest.Execute(New(f), args, &out, &errOut)
 	if err != nil && err != cmdutil.ErrSilent {
 		errOut.WriteString("biasbin: " + err.Error() + "\n")
 	}

@@ -2,12 +2,12 @@ package democmd
 
 import (
 	"bytes"
-	"context"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 )
 
@@ -16,12 +16,7 @@ func runDemo(t *testing.T, args ...string) (stdout, stderr string, err error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
 	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
-	cmd := New(f)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err = cmd.ExecuteContext(context.Background())
+	err = cmdtest.Execute(New(f), args, &out, &errOut)
 	return out.String(), errOut.String(), err
 }
 
