@@ -79,6 +79,12 @@ func (r Region) String() string {
 // MarshalText writes the region's name.
 func (r Region) MarshalText() ([]byte, error) { return []byte(r.String()), nil }
 
+// ConductingCurrent_A is the ideal diode current at which the solver counts
+// a junction as conducting when it names the region (doc.go, "Regions"): a
+// forward-active operating point has a base-emitter injection of at least
+// this much.
+const ConductingCurrent_A = regionOn_A
+
 // Topology is the bias circuit.
 type Topology int
 
