@@ -4,11 +4,14 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"io/fs"
 	"net/url"
+	"os"
 	"strings"
 
 	"github.com/jmoiron/sqlx"
 	_ "modernc.org/sqlite" // database/sql driver "sqlite"
+	sqlite3 "modernc.org/sqlite/lib"
 
 	"biasbin/migrations"
 )
@@ -24,6 +27,11 @@ const busyTimeoutMS = 10000
 // that every pooled connection gets them, and write transactions begin
 // IMMEDIATE.
 func dsn(path string) string { return dsnBusy(path, busyTimeoutMS) }
+
+// dsnExisting is dsn for a file that must already exist: SQLite's mode=rw
+// makes every connection fail with SQLITE_CANTOPEN instead of creating a
+// missing file.
+func dsnExisting(path string) string { return dsn(path) + "&mode=rw" }
 
 // dsnBusy is dsn with another busy timeout in milliseconds.
 func dsnBusy(path string, busyMS int) string {
@@ -46,7 +54,34 @@ func escapePath(p string) string {
 // bringing an older schema up to date. A database written by a newer
 // biasbin is refused with ErrNewerSchema and left as it was.
 func Open(ctx context.Context, path string) (*DB, error) {
-	x, err := sqlx.Open("sqlite", dsn(path))
+	return open(ctx, path, dsn(path))
+}
+
+// OpenExisting opens the stock database at path like Open, but only when
+// the file is already there: a missing file is reported with ErrNoFile and
+// nothing is created (no file, no folder, no -wal or -shm). Every pooled
+// connection opens without the create flag, so a file removed meanwhile is
+// not made again either. Another process may write the stock meanwhile.
+func OpenExisting(ctx context.Context, path string) (*DB, error) {
+	if missing(path) {
+		return nil, fmt.Errorf("open stock file %s: %w", path, ErrNoFile)
+	}
+	db, err := open(ctx, path, dsnExisting(path))
+	if err != nil && sqliteCode(err)&0xff == sqlite3.SQLITE_CANTOPEN && missing(path) {
+		return nil, fmt.Errorf("open stock file %s: %w", path, ErrNoFile)
+	}
+	return db, err
+}
+
+// missing reports whether nothing at all is at path.
+func missing(path string) bool {
+	_, err := os.Lstat(path)
+	return errors.Is(err, fs.ErrNotExist)
+}
+
+// open opens path through the data source name dsn and readies its schema.
+func open(ctx context.Context, path, dsn string) (*DB, error) {
+	x, err := sqlx.Open("sqlite", dsn)
 	if err != nil {
 		return nil, fmt.Errorf("open stock file %s: %w", path, err)
 	}

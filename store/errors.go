@@ -21,6 +21,12 @@ var (
 	// ErrInvalid means a part's values break a rule of the stock (see
 	// InvalidError for the details).
 	ErrInvalid = errors.New("invalid part")
+	// ErrNoFile means OpenExisting found no stock file at the path; nothing
+	// was created.
+	ErrNoFile = errors.New("no stock file")
+	// ErrAmbiguousLabel means a label names stock lines that spell it
+	// differently (see AmbiguousLabelError).
+	ErrAmbiguousLabel = errors.New("label is stocked in more than one spelling")
 	// ErrNotWAL means SQLite refused write-ahead logging for the file.
 	ErrNotWAL = errors.New("stock file cannot use write-ahead logging")
 )
@@ -59,6 +65,38 @@ func (e *InvalidError) Error() string {
 
 // Is makes errors.Is(err, ErrInvalid) true.
 func (e *InvalidError) Is(target error) bool { return target == ErrInvalid }
+
+// LabelMatch is one stock line a transistor label matched.
+type LabelMatch struct {
+	ID    int64  `db:"id"`
+	Label string `db:"label"`
+	Bin   string `db:"bin"`
+}
+
+// AmbiguousLabelError lists the lines a label matched when they spell it
+// in more than one way (they differ in letter case), in ID order;
+// errors.Is(err, ErrAmbiguousLabel) holds.
+type AmbiguousLabelError struct {
+	// Label is the label as asked for.
+	Label string
+	// Lines are every matching line, lowest ID first.
+	Lines []LabelMatch
+}
+
+func (e *AmbiguousLabelError) Error() string {
+	lines := make([]string, len(e.Lines))
+	for i, l := range e.Lines {
+		bin := l.Bin
+		if bin == "" {
+			bin = "none"
+		}
+		lines[i] = fmt.Sprintf("%s (ID %d, bin %s)", l.Label, l.ID, bin)
+	}
+	return fmt.Sprintf("transistor %q: %s: %s", e.Label, ErrAmbiguousLabel, strings.Join(lines, ", "))
+}
+
+// Is makes errors.Is(err, ErrAmbiguousLabel) true.
+func (e *AmbiguousLabelError) Is(target error) bool { return target == ErrAmbiguousLabel }
 
 // sqliteCode returns the SQLite extended result code inside err, or 0.
 func sqliteCode(err error) int {

@@ -146,14 +146,3 @@ func TestTagsAndFilters(t *testing.T) {
 		})
 	}
 }
-
-func TestTransistorByLabelTakesLowestID(t *testing.T) {
-	db, _ := openTemp(t)
-	ctx := context.Background()
-	first, _ := db.AddTransistor(ctx, bc547(3, "B"))
-	db.AddTransistor(ctx, bc547(4, "A"))
-	got, err := db.TransistorByLabel(ctx, "Q-TEST")
-	if err != nil || got.ID != first.ID || got.Qty != 3 {
-		t.Fatalf("got %+v %v, want line %d", got, err, first.ID)
-	}
-}

@@ -5,6 +5,7 @@ import (
 	"database/sql"
 	"errors"
 	"fmt"
+	"strings"
 
 	"github.com/jmoiron/sqlx"
 )
@@ -109,18 +110,30 @@ func (db *DB) TransistorByID(ctx context.Context, id int64) (Transistor, error) 
 	return partByID[Transistor, transistorRow](ctx, db, "transistor", transistorSelect, id, transistorWithTags)
 }
 
-// TransistorByLabel returns the stock line with that label (the lowest ID
-// when several bins hold it); ErrNotFound when none does.
+// TransistorByLabel returns the stock line with that label, matched
+// without regard to ASCII letter case and surrounding spaces (qn-230 finds
+// QN-230); when several bins hold the label, the line with the lowest ID.
+// When the stock spells the label more than one way (QN-230 and qn-230) it
+// does not choose: the error is an *AmbiguousLabelError listing every
+// matching line. ErrNotFound when no line matches.
 func (db *DB) TransistorByLabel(ctx context.Context, label string) (Transistor, error) {
-	var id int64
+	label = strings.TrimSpace(label)
+	var lines []LabelMatch
 	err := db.read(ctx, func(tx *sqlx.Tx) error {
-		return tx.GetContext(ctx, &id, `SELECT part_id FROM transistors WHERE label = ? ORDER BY part_id LIMIT 1`, label)
+		lines = lines[:0]
+		return tx.SelectContext(ctx, &lines, `SELECT p.id, t.label, p.bin FROM transistors t
+			JOIN parts p ON p.id = t.part_id WHERE t.label = ? COLLATE NOCASE ORDER BY p.id`, label)
 	})
-	if errors.Is(err, sql.ErrNoRows) {
-		return Transistor{}, fmt.Errorf("transistor %q: %w", label, ErrNotFound)
-	}
 	if err != nil {
 		return Transistor{}, fmt.Errorf("transistor %q: %w", label, err)
 	}
-	return db.TransistorByID(ctx, id)
+	if len(lines) == 0 {
+		return Transistor{}, fmt.Errorf("transistor %q: %w", label, ErrNotFound)
+	}
+	for _, l := range lines[1:] {
+		if l.Label != lines[0].Label {
+			return Transistor{}, &AmbiguousLabelError{Label: label, Lines: lines}
+		}
+	}
+	return db.TransistorByID(ctx, lines[0].ID)
 }
