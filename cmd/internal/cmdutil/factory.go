@@ -56,9 +56,36 @@ func (f *Factory) ResolveDBPath() (string, error) {
 	return filepath.Join(home, ".local", "share", "biasbin", "stock.db"), nil
 }
 
-// Store opens the stock database on first use (creating its folder) and
-// returns the same handle afterwards.
+// Store opens the stock database for a command that writes it, creating
+// the file and its folder on first use, and returns the same handle
+// afterwards.
 func (f *Factory) Store(ctx context.Context) (*store.DB, error) {
+	return f.open(ctx, func(ctx context.Context, path string) (*store.DB, error) {
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			return nil, fmt.Errorf("create folder for stock file %s: %w", path, err)
+		}
+		return store.Open(ctx, path)
+	})
+}
+
+// StoreForReading opens the stock database for a command that only reads
+// it: the file must be there already. A missing file is a
+// *NoStockFileError naming the path, and nothing is created (no file,
+// folder, -wal or -shm), so a mistyped --db never reads as an empty stock.
+// Another process may write the stock meanwhile.
+func (f *Factory) StoreForReading(ctx context.Context) (*store.DB, error) {
+	return f.open(ctx, func(ctx context.Context, path string) (*store.DB, error) {
+		db, err := store.OpenExisting(ctx, path)
+		if errors.Is(err, store.ErrNoFile) {
+			return nil, &NoStockFileError{Path: path}
+		}
+		return db, err
+	})
+}
+
+// open resolves the stock file's path and opens it with openPath on first
+// use; later calls return the same handle.
+func (f *Factory) open(ctx context.Context, openPath func(context.Context, string) (*store.DB, error)) (*store.DB, error) {
 	if f.db != nil {
 		return f.db, nil
 	}
@@ -66,16 +93,28 @@ func (f *Factory) Store(ctx context.Context) (*store.DB, error) {
 	if err != nil {
 		return nil, err
 	}
-	if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-		return nil, fmt.Errorf("create folder for stock file %s: %w", path, err)
-	}
-	db, err := store.Open(ctx, path)
+	db, err := openPath(ctx, path)
 	if err != nil {
 		return nil, err
 	}
 	f.db = db
 	return db, nil
 }
+
+// NoStockFileError means a command that only reads the stock found no
+// stock file; errors.Is(err, store.ErrNoFile) holds.
+type NoStockFileError struct {
+	// Path is the stock file looked for.
+	Path string
+}
+
+func (e *NoStockFileError) Error() string {
+	return fmt.Sprintf(`no stock file at %s: add parts with "biasbin stock add" or "biasbin stock import", `+
+		"or name another file with --db PATH or BIASBIN_DB", e.Path)
+}
+
+// Unwrap returns store.ErrNoFile.
+func (e *NoStockFileError) Unwrap() error { return store.ErrNoFile }
 
 // Close closes the database if a command opened it.
 func (f *Factory) Close() error {

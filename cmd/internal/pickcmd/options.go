@@ -13,7 +13,8 @@ import (
 // request) and what the command needs from outside, injectable by tests.
 type Options struct {
 	IO *cmdutil.IOStreams
-	// Store opens the stock (the factory's lazy store outside tests).
+	// Store opens the stock, an existing file only (the factory's lazy
+	// StoreForReading outside tests).
 	Store func(context.Context) (*store.DB, error)
 	// Pick runs the search (picker.Pick outside tests).
 	Pick func(picker.Stock, picker.Request) (picker.Result, error)

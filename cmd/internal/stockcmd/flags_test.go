@@ -163,7 +163,12 @@ func exportCmd(f *cmdutil.Factory, got *any) *cobra.Command {
 }
 
 func importCmd(f *cmdutil.Factory, got *any) *cobra.Command {
-	return newImportCmd(f, func(o *ImportOptions) error { c := *o; c.IO, c.Store = nil, nil; *got = c; return nil })
+	return newImportCmd(f, func(o *ImportOptions) error {
+		c := *o
+		c.IO, c.Store, c.ReadStore = nil, nil, nil
+		*got = c
+		return nil
+	})
 }
 
 func tagCmd(f *cmdutil.Factory, got *any) *cobra.Command {

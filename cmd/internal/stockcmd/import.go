@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path/filepath"
 
 	"github.com/spf13/cobra"
 
@@ -16,9 +17,13 @@ import (
 
 // ImportOptions are the arguments of `stock import`.
 type ImportOptions struct {
-	IO    *cmdutil.IOStreams
+	IO *cmdutil.IOStreams
+	// Store opens the stock to write, creating it on first use.
 	Store StoreFunc
-	JSON  bool
+	// ReadStore opens an existing stock only; a dry run uses it, so that
+	// checking a file never creates the stock file.
+	ReadStore StoreFunc
+	JSON      bool
 
 	File    string // "-" reads standard input
 	DryRun  bool
@@ -26,7 +31,7 @@ type ImportOptions struct {
 }
 
 func newImportCmd(f *cmdutil.Factory, runF func(*ImportOptions) error) *cobra.Command {
-	o := &ImportOptions{IO: f.IO, Store: f.Store}
+	o := &ImportOptions{IO: f.IO, Store: f.Store, ReadStore: f.StoreForReading}
 	cmd := &cobra.Command{
 		Use:   "import FILE.csv",
 		Short: "Load a CSV file of resistors or transistors, all or nothing",
@@ -43,7 +48,10 @@ bin,tags,note optional. Tags are separated by ';'.
 Values may be in any notation (4K7, 4.7k, 1%, J, 250mW, 1/4W, 2mA ...).
 A part already stocked (same value, tolerance, power, technology and bin;
 or same label and bin) has the file's quantity added to it; --replace sets
-it instead. FILE "-" reads standard input.`,
+it instead. FILE "-" reads standard input.
+
+--dry-run writes nothing. When there is no stock file yet it checks the
+rows against an empty stock and does not create the file either.`,
 		Example: `  biasbin stock import resistors.csv --dry-run
   biasbin stock import resistors.csv
   biasbin stock import counted.csv --replace`,
@@ -89,10 +97,11 @@ func runImport(ctx context.Context, o *ImportOptions) error {
 	if err != nil {
 		return reportFileError(o.IO.ErrOut, name, err)
 	}
-	db, err := o.Store(ctx)
+	db, done, err := o.openStore(ctx)
 	if err != nil {
 		return err
 	}
+	defer done()
 	res, err := db.Import(ctx, file.Batch, store.ImportOptions{Replace: o.Replace, DryRun: o.DryRun})
 	if err != nil {
 		return reportFileError(o.IO.ErrOut, name, file.Explain(err))
@@ -112,6 +121,35 @@ func runImport(ctx context.Context, o *ImportOptions) error {
 	_, err = fmt.Fprintf(o.IO.Out, "%s: %d %s rows: %d new lines, %d %s existing lines%s\n",
 		name, rows, file.Kind, res.Added, res.Merged, merged, dryNote(o.DryRun))
 	return err
+}
+
+// openStore opens the stock the import goes to; done releases what it
+// opened beyond the factory's handle. A dry run never creates the stock
+// file: when there is none, it runs against an empty scratch stock in a
+// temporary folder that done removes, and says so on stderr.
+func (o *ImportOptions) openStore(ctx context.Context) (db *store.DB, done func(), err error) {
+	done = func() {}
+	if !o.DryRun {
+		db, err = o.Store(ctx)
+		return db, done, err
+	}
+	db, err = o.ReadStore(ctx)
+	var missing *cmdutil.NoStockFileError
+	if !errors.As(err, &missing) {
+		return db, done, err
+	}
+	dir, err := os.MkdirTemp("", "biasbin-dry-run-")
+	if err != nil {
+		return nil, nil, fmt.Errorf("dry run: make a folder for an empty stock: %w", err)
+	}
+	scratch, err := store.Open(ctx, filepath.Join(dir, "stock.db"))
+	if err != nil {
+		os.RemoveAll(dir)
+		return nil, nil, fmt.Errorf("dry run: empty stock: %w", err)
+	}
+	fmt.Fprintf(o.IO.ErrOut, "no stock file at %s yet: checked against an empty stock (the import will create the file)\n",
+		missing.Path)
+	return scratch, func() { scratch.Close(); os.RemoveAll(dir) }, nil
 }
 
 func dryNote(dry bool) string {

@@ -16,7 +16,9 @@ import (
 	"biasbin/store"
 )
 
-// StoreFunc opens the stock database (cmdutil.Factory.Store outside tests).
+// StoreFunc opens the stock database: cmdutil.Factory.Store (creating the
+// file on first use) for the commands that write, Factory.StoreForReading
+// (an existing file only) for list, export and verify.
 type StoreFunc func(ctx context.Context) (*store.DB, error)
 
 // New returns the stock command with its subcommands.
