@@ -5,6 +5,7 @@ import (
 	"context"
 	"math"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -244,5 +245,65 @@ func TestFlagsStockTransistor(t *testing.T) {
 	_, err = parseFlags(t, []string{"--vcc", "9V", "--r1", "10K", "--r2", "2K2", "--rc", "3K6", "--transistor", "NOPE"}, open)
 	if err == nil || cmdutil.ExitCode(err) != 2 || !strings.Contains(err.Error(), "--transistor") {
 		t.Errorf("unknown label: error %v, want a usage error naming --transistor", err)
+	}
+}
+
+// TestStockTransistorLabelCase: --transistor finds a stock line whatever
+// the letter case typed and reports it under its stocked label; a label
+// stocked in two spellings is a usage error listing each line's label, bin
+// and ID.
+func TestStockTransistorLabelCase(t *testing.T) {
+	type line struct {
+		label, bin string
+		hfeMin     float64
+	}
+	for _, tc := range []struct {
+		name   string
+		stock  []line
+		ask    string
+		want   int   // index of the line used, -1 for an error
+		listed []int // lines the error must list
+	}{
+		{"exact", []line{{"QN-230", "T1", 110}}, "QN-230", 0, nil},
+		{"other case", []line{{"QP-7", "T2", 90}, {"QN-230", "T1", 110}}, "qn-230", 1, nil},
+		{"one spelling in two bins: lowest ID", []line{{"QN-230", "T1", 110}, {"QN-230", "T2", 150}}, "Qn-230", 0, nil},
+		{"two spellings", []line{{"QN-230", "T1", 110}, {"qn-230", "T2", 150}}, "qn-230", -1, []int{0, 1}},
+		{"not stocked", []line{{"QN-230", "T1", 110}}, "QN-231", -1, nil},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			ctx := context.Background()
+			db, err := store.Open(ctx, filepath.Join(t.TempDir(), "stock.db"))
+			if err != nil {
+				t.Fatal(err)
+			}
+			defer db.Close()
+			ids := make([]int64, len(tc.stock))
+			for i, l := range tc.stock {
+				res, err := db.AddTransistor(ctx, store.Transistor{Label: l.label, Polarity: "npn", HFEMin: l.hfeMin, HFEMax: 400, Qty: 5, Bin: l.bin})
+				if err != nil {
+					t.Fatal(err)
+				}
+				ids[i] = res.ID
+			}
+			open := func(context.Context) (*store.DB, error) { return db, nil }
+			in, err := parseFlags(t, []string{"--vcc", "9V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--transistor", tc.ask}, open)
+			if tc.want >= 0 {
+				w := tc.stock[tc.want]
+				if err != nil || in.label != w.label || in.b.Device.HFEMin != w.hfeMin {
+					t.Fatalf("got label %q hFE min %g (%v), want %s with hFE min %g", in.label, in.b.Device.HFEMin, err, w.label, w.hfeMin)
+				}
+				return
+			}
+			if err == nil || cmdutil.ExitCode(err) != 2 || !strings.Contains(err.Error(), "--transistor") {
+				t.Fatalf("error %v, want a usage error naming --transistor", err)
+			}
+			for _, k := range tc.listed {
+				for _, s := range []string{tc.stock[k].label + " (ID " + strconv.FormatInt(ids[k], 10) + ", bin " + tc.stock[k].bin + ")", "stock remove ID"} {
+					if !strings.Contains(err.Error(), s) {
+						t.Errorf("message %q lacks %q", err, s)
+					}
+				}
+			}
+		})
 	}
 }

@@ -66,12 +66,12 @@ func (o *Options) input(ctx context.Context) (input, error) {
 	}
 	b.Topology = top
 
-	d, err := o.device(ctx)
+	d, label, err := o.device(ctx)
 	if err != nil {
 		return in, err
 	}
 	b.Device = d
-	in.label = o.Transistor
+	in.label = label
 	sign := 1.0
 	if d.Polarity == solver.PNP {
 		sign = -1
@@ -313,34 +313,58 @@ func windowPart(text string, parse notation.Parser) (isPct bool, pct, lo, hi flo
 	return false, 0, lo, hi, nil
 }
 
-// device reads the transistor: the stock line when --transistor is given,
-// with any inline flags overriding it; else the inline flags alone.
-func (o *Options) device(ctx context.Context) (solver.Datasheet, error) {
-	var d solver.Datasheet
+// device reads the transistor: the stock line when --transistor is given
+// (its label matched without regard to letter case), with any inline flags
+// overriding it; else the inline flags alone. label is the stock line's
+// label as stocked, or "" for an inline transistor.
+func (o *Options) device(ctx context.Context) (d solver.Datasheet, label string, err error) {
 	if o.Transistor != "" {
-		if o.Store == nil {
-			return d, fmt.Errorf("--transistor %s: no stock available", o.Transistor)
-		}
-		db, err := o.Store(ctx)
-		if err != nil {
-			return d, err
-		}
-		t, err := db.TransistorByLabel(ctx, o.Transistor)
-		if errors.Is(err, store.ErrNotFound) {
-			return d, usagef("transistor", "%q is not in stock (see biasbin stock list)", o.Transistor)
-		}
-		if err != nil {
-			return d, fmt.Errorf("--transistor %s: %w", o.Transistor, err)
-		}
-		if d, err = report.Sheet(t); err != nil {
-			return d, fmt.Errorf("--transistor %s: %w", o.Transistor, err)
+		if d, label, err = o.stockDevice(ctx); err != nil {
+			return d, "", err
 		}
 	} else {
 		d.Polarity = solver.NPN
 		if o.HFE == "" {
-			return d, usagef("hfe", "missing: name a stocked transistor with --transistor LABEL, or give it inline with at least --hfe MIN..MAX")
+			return d, "", usagef("hfe", "missing: name a stocked transistor with --transistor LABEL, or give it inline with at least --hfe MIN..MAX")
 		}
 	}
+	d, err = o.inlineDevice(d)
+	return d, label, err
+}
+
+// stockDevice reads the stock line --transistor names. A label stocked in
+// two spellings (QN-230 and qn-230) is refused with every matching line,
+// since check takes no line ID.
+func (o *Options) stockDevice(ctx context.Context) (solver.Datasheet, string, error) {
+	if o.Store == nil {
+		return solver.Datasheet{}, "", fmt.Errorf("--transistor %s: no stock available", o.Transistor)
+	}
+	db, err := o.Store(ctx)
+	if err != nil {
+		return solver.Datasheet{}, "", err
+	}
+	t, err := db.TransistorByLabel(ctx, o.Transistor)
+	var amb *store.AmbiguousLabelError
+	switch {
+	case errors.Is(err, store.ErrNotFound):
+		return solver.Datasheet{}, "", usagef("transistor", "%q is not in stock (see biasbin stock list)", o.Transistor)
+	case errors.As(err, &amb):
+		return solver.Datasheet{}, "", usagef("transistor", "%v; check takes a label, not a line ID: "+
+			"make the labels differ by more than letter case, remove the wrong line (biasbin stock remove ID), "+
+			"or give the transistor inline (--hfe ...)", err)
+	case err != nil:
+		return solver.Datasheet{}, "", fmt.Errorf("--transistor %s: %w", o.Transistor, err)
+	}
+	d, err := report.Sheet(t)
+	if err != nil {
+		return d, "", fmt.Errorf("--transistor %s: %w", o.Transistor, err)
+	}
+	return d, t.Label, nil
+}
+
+// inlineDevice applies the inline transistor flags to d (the stock line or
+// a default NPN) and checks the result.
+func (o *Options) inlineDevice(d solver.Datasheet) (solver.Datasheet, error) {
 	var err error
 	if o.Polarity != "" {
 		if d.Polarity, err = solver.ParsePolarity(strings.TrimSpace(o.Polarity)); err != nil {
