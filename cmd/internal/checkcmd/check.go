@@ -104,8 +104,8 @@ A resistor value may carry its own tolerance (4K7F, "10k 1%"); otherwise
 --tol applies. For PNP give --vcc as a magnitude or as the negative rail;
 --vee is the emitter rail of the split-supply stage (magnitude or signed).
 
-The transistor comes from the stock (--transistor LABEL) or inline
-(--polarity, --hfe ...). Inline flags given with --transistor override the
+The transistor comes from the stock (--transistor LABEL, in any letter
+case) or inline (--polarity, --hfe ...). Inline flags given with --transistor override the
 stock line's values (a heatsink's --theta-ja, a measured --hfe).
 
 By default the nominal point is at 25 °C ambient (--temp) and the typical
@@ -153,7 +153,7 @@ the nominal point cannot be solved, 2 for bad flags.`,
 	} {
 		fl.StringVar(&o.R[s.slot], s.slot.String(), "", s.help+", e.g. 4K7 or 4.7k (may carry a tolerance: 4K7F)")
 	}
-	fl.StringVar(&o.Transistor, "transistor", "", "transistor by stock label")
+	fl.StringVar(&o.Transistor, "transistor", "", "transistor by stock label (any letter case)")
 	fl.StringVar(&o.Polarity, "polarity", "", "inline transistor: npn or pnp (default npn)")
 	fl.StringVar(&o.HFE, "hfe", "", "inline transistor: hFE MIN..MAX, optionally @IC (100..300@2mA)")
 	fl.StringVar(&o.HFETyp, "hfe-typ", "", "inline transistor: typical hFE (default the geometric mean of min and max)")
