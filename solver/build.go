@@ -138,7 +138,7 @@ func (b Build) nominalBeta() float64 {
 
 // usedSlot reports whether slot i carries a part in b: a slot of the
 // topology with a non-zero value.
-func (b Build) usedSlot(i Slot) bool {
+func (b *Build) usedSlot(i Slot) bool {
 	return b.Topology.uses(i) && b.Resistors[i].Nominal_Ohm > 0
 }
 
@@ -165,6 +165,11 @@ func (t Topology) uses(i Slot) bool {
 // eq. (6), §1.3.1). Both rails are multiplied by vccFactor. The bypassed
 // part of RE keeps its share of RE. Unused slots stay 0.
 func (b Build) Resolve(dev [NumSlots]float64, vccFactor, temp_C float64) Stage {
+	return b.resolve(&dev, vccFactor, temp_C)
+}
+
+// resolve is Resolve without copying the build.
+func (b *Build) resolve(dev *[NumSlots]float64, vccFactor, temp_C float64) Stage {
 	s := Stage{
 		Topology: b.Topology,
 		VCC_V:    b.VCC_V * vccFactor,

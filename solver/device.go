@@ -245,6 +245,11 @@ type device struct {
 	// critBE, critBC are SPICE's critical junction voltages
 	// VT·ln(VT/(√2·IS)), above which pnjlim limits a step.
 	critBE, critBC float64
+	// lnCrit0 holds ln(N·VT/(√2·IS)) at TNOM for the base-emitter (N =
+	// NF) and base-collector (N = 1) junctions: model constants from
+	// which reheat finds the critical voltages at another temperature
+	// without a logarithm of their own.
+	lnCrit0 [2]float64
 }
 
 // At returns the temperature-dependent parameters of m at tj_C exactly as
@@ -256,27 +261,45 @@ func (m Model) At(tj_C float64) (is_A, bf, br, icbo_A float64) {
 }
 
 func (m Model) at(tj_C float64) device {
+	t0 := m.TNOM_C + kelvinOffset
+	vt0 := boltzmann_JPerK * t0 / charge_C
+	lnBC := math.Log(vt0 / (math.Sqrt2 * m.IS_A))
+	lnBE := lnBC
+	if m.NF != 1 {
+		lnBE += math.Log(m.NF)
+	}
+	d := device{lnCrit0: [2]float64{lnBE, lnBC}}
+	m.reheat(&d, tj_C)
+	return d
+}
+
+// reheat sets d to m at tj_C, keeping d's model constants lnCrit0 (see
+// device).
+func (m *Model) reheat(d *device, tj_C float64) {
+	lnCrit0 := d.lnCrit0
 	t := tj_C + kelvinOffset
 	t0 := m.TNOM_C + kelvinOffset
 	vt := boltzmann_JPerK * t / charge_C
 	ratlog := math.Log(t / t0)
 	factlog := (t/t0-1)*m.EG_eV/vt + m.XTI*ratlog
 	bfactor := math.Exp(ratlog * m.XTB)
-	d := device{
-		is:    m.IS_A * math.Exp(factlog),
-		bf:    m.BF * bfactor,
-		br:    m.BR * bfactor,
-		nvt:   m.NF * vt,
-		vt:    vt,
-		ileak: 0,
+	*d = device{
+		is:      m.IS_A * math.Exp(factlog),
+		bf:      m.BF * bfactor,
+		br:      m.BR * bfactor,
+		nvt:     m.NF * vt,
+		vt:      vt,
+		ileak:   0,
+		lnCrit0: lnCrit0,
 	}
 	if m.VAF_V > 0 {
 		d.invVAF = 1 / m.VAF_V
 	}
-	d.critBE = d.nvt * math.Log(d.nvt/(math.Sqrt2*d.is))
-	d.critBC = d.vt * math.Log(d.vt/(math.Sqrt2*d.is))
+	// ln(N·VT/(√2·IS(T))) = ln(N·VT0/(√2·IS)) + ln(T/T0) − factlog, as
+	// VT ∝ T and IS(T) = IS·exp(factlog).
+	d.critBE = d.nvt * (lnCrit0[0] + ratlog - factlog)
+	d.critBC = d.vt * (lnCrit0[1] + ratlog - factlog)
 	if m.ICBO_A > 0 {
 		d.ileak = m.ICBO_A * math.Exp2((tj_C-m.TNOM_C)/10)
 	}
-	return d
 }

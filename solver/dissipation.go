@@ -1,7 +1,5 @@
 package solver
 
-import "math"
-
 // Dissipation compares each part's power with its derated rating.
 type Dissipation struct {
 	Resistor       [NumSlots]PartLoad
@@ -54,7 +52,7 @@ func TransistorAllowed_W(d Datasheet, ambient_C float64) (float64, bool) {
 	if theta <= 0 {
 		return 0, false
 	}
-	p := math.Max(0, (tjMaxOf(d)-ambient_C)/theta)
+	p := max(0, (tjMaxOf(d)-ambient_C)/theta)
 	if d.PD25_W > 0 && p > d.PD25_W {
 		p = d.PD25_W
 	}
@@ -135,7 +133,7 @@ func (d *Dissipation) note(pl PartLoad) {
 	if !pl.Rated {
 		return
 	}
-	d.MaxUtilization = math.Max(d.MaxUtilization, pl.Utilization)
+	d.MaxUtilization = max(d.MaxUtilization, pl.Utilization)
 	if pl.Utilization > 1 {
 		d.Ok = false
 	}
@@ -152,6 +150,6 @@ func (d *Dissipation) worse(o Dissipation) {
 	if o.Transistor.Utilization > d.Transistor.Utilization || (!d.Transistor.Rated && o.Transistor.Power_W > d.Transistor.Power_W) {
 		d.Transistor = o.Transistor
 	}
-	d.MaxUtilization = math.Max(d.MaxUtilization, o.MaxUtilization)
+	d.MaxUtilization = max(d.MaxUtilization, o.MaxUtilization)
 	d.Ok = d.Ok && o.Ok
 }

@@ -67,31 +67,52 @@ func solveChecked(s Stage, m Model, tj_C float64, guess *[2]float64) (OperatingP
 	sg := m.Polarity.sign()
 	ck := reduce(s, sg)
 	d := m.at(tj_C)
+	x, ok := ck.junctions(&d, guess)
+	if !ok {
+		return OperatingPoint{}, errNoConvergence(s, m.Polarity, tj_C)
+	}
+	ib, ic, _, _, _, _ := d.currents(x[0], x[1])
+	return ck.point(s, &d, x, ib, ic, sg, m.Polarity, tj_C)
+}
+
+// junctions solves the junction voltages (VBE, VBC) of ck with device d by
+// Newton's method: from guess when it is not nil and not zero, else (or
+// when that fails) from the hand estimate, and by source stepping when
+// both fail. guess, when not nil, receives the solution.
+func (ck *circuit) junctions(d *device, guess *[2]float64) ([2]float64, bool) {
 	var x [2]float64
 	ok := false
 	if guess != nil && (guess[0] != 0 || guess[1] != 0) {
 		x = *guess
-		ok = ck.newton(&d, &x, 1)
+		ok = ck.newton(d, &x, 1)
 	}
 	if !ok {
-		x = ck.initialGuess(&d)
-		ok = ck.newton(&d, &x, 1)
+		x = ck.initialGuess(d)
+		ok = ck.newton(d, &x, 1)
 	}
 	if !ok {
-		ok = ck.sourceStepping(&d, &x)
+		ok = ck.sourceStepping(d, &x)
 	}
-	if !ok {
-		return OperatingPoint{}, fmt.Errorf("solve %v %v stage at %g °C: %w", m.Polarity, s.Topology, tj_C, ErrNoConvergence)
-	}
-	if guess != nil {
+	if ok && guess != nil {
 		*guess = x
 	}
-	op := ck.operatingPoint(s, &d, x, sg)
+	return x, ok
+}
+
+// point fills the result at the converged junction voltages x, where the
+// terminal currents are ib and ic, and checks that it is finite.
+func (ck *circuit) point(s Stage, d *device, x [2]float64, ib, ic, sg float64, pol Polarity, tj_C float64) (OperatingPoint, error) {
+	op := ck.operatingPoint(s, d, x, ib, ic, sg)
 	op.Tj_C = tj_C
 	if !op.finite() {
-		return OperatingPoint{}, fmt.Errorf("solve %v %v stage at %g °C: result not finite: %w", m.Polarity, s.Topology, tj_C, ErrNoConvergence)
+		return OperatingPoint{}, fmt.Errorf("solve %v %v stage at %g °C: result not finite: %w", pol, s.Topology, tj_C, ErrNoConvergence)
 	}
 	return op, nil
+}
+
+// errNoConvergence is the error of a solve that found no solution.
+func errNoConvergence(s Stage, pol Polarity, tj_C float64) error {
+	return fmt.Errorf("solve %v %v stage at %g °C: %w", pol, s.Topology, tj_C, ErrNoConvergence)
 }
 
 // circuit is a stage reduced to the mirrored-NPN frame: each node voltage
@@ -132,8 +153,8 @@ func reduce(s Stage, sg float64) circuit {
 // It is the ngspice Gummel–Poon load with IKF, ISE, ISC and VAR at their
 // defaults: IC = (Ibe−Ibc)·(1−VBC/VAF) − Ibc/BR, IB = Ibe/BF + Ibc/BR.
 func (d *device) currents(vbe, vbc float64) (ib, ic, dibdbe, dibdbc, dicdbe, dicdbc float64) {
-	ebe, gbe := expLin(vbe / d.nvt)
-	ebc, gbc := expLin(vbc / d.vt)
+	ebe, gbe := expJunction(vbe / d.nvt)
+	ebc, gbc := expJunction(vbc / d.vt)
 	ibe := d.is * (ebe - 1)
 	ibc := d.is * (ebc - 1)
 	gbe *= d.is / d.nvt
@@ -146,6 +167,24 @@ func (d *device) currents(vbe, vbc float64) (ib, ic, dibdbe, dibdbc, dicdbe, dic
 	dibdbe = gbe / d.bf
 	dibdbc = gbc / d.br
 	return
+}
+
+// expNegligible is the exponent below which a junction's exp(a) is taken
+// as 0: exp(−40) ≈ 4e-18 is below half an ulp of 1, so the injection
+// IS·(exp(a) − 1) rounds to −IS either way, and the conductance left out,
+// under 4e-18·IS/VT, vanishes in the rounding of every Newton quantity it
+// enters (where it stands alone it only scales a step far below
+// newtonTol_V).
+const expNegligible = -40.0
+
+// expJunction is expLin for a junction's injection: 0, 0 for a reverse
+// bias below expNegligible (the common case of the base-collector junction
+// in the active region), saving the exponential.
+func expJunction(a float64) (e, de float64) {
+	if a < expNegligible {
+		return 0, 0
+	}
+	return expLin(a)
 }
 
 // expLin returns exp(a) and its derivative, continued linearly above
@@ -166,9 +205,12 @@ func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
 	ab, ac := ck.bb-ck.eb, ck.bc-ck.ec
 	b0 := lambda * (ck.b0 - ck.c0)
 	bb, bc := ck.bb-ck.cb, ck.bc-ck.cc
-	leak := d.ileak
-	dd := *d
-	dd.ileak = leak * lambda
+	dd := d
+	if lambda != 1 {
+		scaled := *d
+		scaled.ileak = d.ileak * lambda
+		dd = &scaled
+	}
 	critBE, critBC := d.critBE, d.critBC
 	vbe, vbc := x[0], x[1]
 	for it := 0; it < newtonMaxIter; it++ {
@@ -192,10 +234,12 @@ func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
 		}
 		stepBE, stepBC := math.Abs(nbe-vbe), math.Abs(nbc-vbc)
 		vbe, vbc = nbe, nbc
+		if limBE || limBC || stepBE > newtonTol_V || stepBC > newtonTol_V {
+			continue
+		}
 		// Residual floor: what one ulp of each junction voltage moves f by.
-		ulpBE, ulpBC := ulpFloor*math.Max(1, math.Abs(vbe)), ulpFloor*math.Max(1, math.Abs(vbc))
-		if !limBE && !limBC && stepBE <= newtonTol_V && stepBC <= newtonTol_V &&
-			math.Abs(f1) <= newtonResRel*(1+math.Abs(a0)+math.Abs(ab*ib)+math.Abs(ac*ic))+math.Abs(j11)*ulpBE+math.Abs(j12)*ulpBC &&
+		ulpBE, ulpBC := ulpFloor*max(1, math.Abs(vbe)), ulpFloor*max(1, math.Abs(vbc))
+		if math.Abs(f1) <= newtonResRel*(1+math.Abs(a0)+math.Abs(ab*ib)+math.Abs(ac*ic))+math.Abs(j11)*ulpBE+math.Abs(j12)*ulpBC &&
 			math.Abs(f2) <= newtonResRel*(1+math.Abs(b0)+math.Abs(bb*ib)+math.Abs(bc*ic))+math.Abs(j21)*ulpBE+math.Abs(j22)*ulpBC {
 			x[0], x[1] = vbe, vbc
 			return true
@@ -243,13 +287,13 @@ func (ck *circuit) initialGuess(d *device) [2]float64 {
 	if !(den < 0) {
 		return [2]float64{crit, 0}
 	}
-	vbe := math.Min(crit, d.nvt*math.Log(1e-3/d.is))
+	vbe := min(crit, d.nvt*math.Log(1e-3/d.is))
 	var ib, ic float64
 	for range 2 {
 		ib = (vbe - a0) / den
 		if ib <= 0 {
 			// Cut off: the junctions see the open-circuit voltages.
-			return [2]float64{math.Min(a0, crit), math.Min(b0, crit)}
+			return [2]float64{min(a0, crit), min(b0, crit)}
 		}
 		ic = d.bf * ib
 		vbe = d.nvt * math.Log1p(ic/d.is)
@@ -267,11 +311,11 @@ func (ck *circuit) sourceStepping(d *device, x *[2]float64) bool {
 	cur := [2]float64{0, 0}
 	lambda, step := 0.0, 0.1
 	for lambda < 1 {
-		next := math.Min(1, lambda+step)
+		next := min(1, lambda+step)
 		try := cur
 		if ck.newton(d, &try, next) {
 			cur, lambda = try, next
-			step = math.Min(0.5, step*2)
+			step = min(0.5, step*2)
 			continue
 		}
 		step /= 4
@@ -283,15 +327,28 @@ func (ck *circuit) sourceStepping(d *device, x *[2]float64) bool {
 	return true
 }
 
-// operatingPoint fills the result from converged junction voltages.
-func (ck *circuit) operatingPoint(s Stage, d *device, x [2]float64, sg float64) OperatingPoint {
-	ib, ic, _, _, _, _ := d.currents(x[0], x[1])
-	vb := ck.b0 + ck.bb*ib + ck.bc*ic
-	vc := ck.c0 + ck.cb*ib + ck.cc*ic
-	ve := ck.e0 + ck.eb*ib + ck.ec*ic
+// operatingPoint fills the result from converged junction voltages x and
+// the terminal currents there.
+func (ck *circuit) operatingPoint(s Stage, d *device, x [2]float64, ib, ic, sg float64) OperatingPoint {
+	vb, vc, ve := ck.nodes(ib, ic)
 	op := ck.assemble(s, ib, ic, vb, vc, ve, sg)
 	op.Region = d.region(x[0], x[1])
 	return op
+}
+
+// nodes returns the node voltages (mirrored-NPN frame) at terminal
+// currents ib, ic.
+func (ck *circuit) nodes(ib, ic float64) (vb, vc, ve float64) {
+	vb = ck.b0 + ck.bb*ib + ck.bc*ic
+	vc = ck.c0 + ck.cb*ib + ck.cc*ic
+	ve = ck.e0 + ck.eb*ib + ck.ec*ic
+	return vb, vc, ve
+}
+
+// transistorPower is the transistor's dissipation VCE·IC + VBE·IB at node
+// voltages vb, vc, ve and terminal currents ib, ic (mirrored-NPN frame).
+func transistorPower(ib, ic, vb, vc, ve float64) float64 {
+	return (vc-ve)*ic + (vb-ve)*ib
 }
 
 // assemble fills an OperatingPoint from the terminal currents and node
@@ -336,7 +393,7 @@ func (ck *circuit) assemble(s Stage, ib, ic, vb, vc, ve, sg float64) OperatingPo
 			op.IDivider_A = ib
 		}
 	}
-	op.PTransistor_W = op.VCE_V*op.IC_A + op.VBE_V*op.IB_A
+	op.PTransistor_W = transistorPower(ib, ic, vb, vc, ve)
 	return op
 }
 
@@ -345,8 +402,8 @@ func (ck *circuit) assemble(s Stage, ib, ic, vb, vc, ve, sg float64) OperatingPo
 // is saturated once the base-collector injection reaches regionSatRatio of
 // the base-emitter injection (see doc.go).
 func (d *device) region(vbe, vbc float64) Region {
-	fwd := d.is * math.Expm1(math.Min(vbe/d.nvt, expArgMax))
-	rev := d.is * math.Expm1(math.Min(vbc/d.vt, expArgMax))
+	fwd := d.is * math.Expm1(min(vbe/d.nvt, expArgMax))
+	rev := d.is * math.Expm1(min(vbc/d.vt, expArgMax))
 	switch {
 	case fwd < regionOn_A && rev < regionOn_A:
 		return Cutoff

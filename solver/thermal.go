@@ -29,52 +29,110 @@ func SolveSelfHeated(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64
 	if tjMax_C == 0 {
 		tjMax_C = DefaultTjMax_C
 	}
+	if err := checkSelfHeated(&m, ambient_C, thetaJA_KPerW, tjMax_C); err != nil {
+		return OperatingPoint{}, err
+	}
+	d := m.at(ambient_C)
+	return solveSelfHeated(s, &m, &d, ambient_C, thetaJA_KPerW, tjMax_C)
+}
+
+// checkSelfHeated is SolveSelfHeated's input check of everything but the
+// stage (tjMax_C with its default applied).
+func checkSelfHeated(m *Model, ambient_C, thetaJA_KPerW, tjMax_C float64) error {
 	if !finite(ambient_C) || ambient_C < MinTemp_C || ambient_C > MaxTemp_C {
-		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", &InputError{Field: "ambient", Problem: fmt.Sprintf("%g °C is outside %g..%g °C", ambient_C, MinTemp_C, MaxTemp_C)})
+		return fmt.Errorf("self-heated solve: %w", &InputError{Field: "ambient", Problem: fmt.Sprintf("%g °C is outside %g..%g °C", ambient_C, MinTemp_C, MaxTemp_C)})
 	}
 	if !finite(thetaJA_KPerW) || thetaJA_KPerW < 0 {
-		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", &InputError{Field: "theta_ja", Problem: fmt.Sprintf("%g K/W: want a finite value >= 0", thetaJA_KPerW)})
+		return fmt.Errorf("self-heated solve: %w", &InputError{Field: "theta_ja", Problem: fmt.Sprintf("%g K/W: want a finite value >= 0", thetaJA_KPerW)})
 	}
 	if !finite(tjMax_C) || tjMax_C < ambient_C || tjMax_C > MaxTj_C {
-		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C: want at least the ambient %g °C and at most %g °C", tjMax_C, ambient_C, MaxTj_C)})
+		return fmt.Errorf("self-heated solve: %w", &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C: want at least the ambient %g °C and at most %g °C", tjMax_C, ambient_C, MaxTj_C)})
 	}
-	if err := checkSolveInput(s, m, ambient_C); err != nil {
-		return OperatingPoint{}, fmt.Errorf("self-heated solve: %w", err)
+	if err := m.Validate(); err != nil {
+		return fmt.Errorf("self-heated solve: solve: model: %w", err)
 	}
-	var guess [2]float64
-	op, err := solveChecked(s, m, ambient_C, &guess)
-	if err != nil || thetaJA_KPerW == 0 {
-		return op, err
+	return nil
+}
+
+// solveSelfHeated is SolveSelfHeated after checkSelfHeated has passed,
+// with the device at the ambient, dAmb = m.at(ambient_C), given (callers
+// solving many stages share it). It checks the stage.
+func solveSelfHeated(s Stage, m *Model, dAmb *device, ambient_C, thetaJA_KPerW, tjMax_C float64) (OperatingPoint, error) {
+	if err := s.Validate(m.Polarity); err != nil {
+		return OperatingPoint{}, fmt.Errorf("self-heated solve: solve: %v stage: %w", s.Topology, err)
 	}
-	th := &thermalProblem{s: s, m: m, ta: ambient_C, theta: thetaJA_KPerW, guess: guess, lastT: ambient_C}
-	return th.equilibrium(op, tjMax_C)
+	sg := m.Polarity.sign()
+	th := thermalProblem{s: s, m: m, ck: reduce(s, sg), sg: sg, ta: ambient_C, theta: thetaJA_KPerW}
+	th.d, th.lastT = *dAmb, ambient_C
+	if err := th.solve(ambient_C); err != nil {
+		return OperatingPoint{}, err
+	}
+	if thetaJA_KPerW == 0 {
+		return th.point()
+	}
+	return th.equilibrium(tjMax_C)
 }
 
 // heating is the power that heats the junction: PTransistor_W, or 0 when
 // that is negative (possible only in saturation with a large ICBO, where
 // the constant leakage source of the model delivers power).
-func heating(op OperatingPoint) float64 { return math.Max(0, op.PTransistor_W) }
+func heating(op OperatingPoint) float64 { return max(0, op.PTransistor_W) }
 
 type thermalProblem struct {
 	s     Stage
-	m     Model
+	m     *Model
+	ck    circuit
+	sg    float64
 	ta    float64
 	theta float64
-	guess [2]float64
-	lastT float64 // temperature guess was solved at
+	guess [2]float64 // junction voltages of the last solve: the next one's start
+	lastT float64    // temperature guess was solved at
 	evals int
+	// The last solve: its temperature, device, junction voltages,
+	// terminal currents and transistor dissipation. The full
+	// OperatingPoint is built only for the one returned (point).
+	t      float64
+	d      device
+	x      [2]float64
+	ib, ic float64
+	p      float64
 }
 
-// g evaluates the heat balance at tj: its value and the operating point.
-func (th *thermalProblem) g(tj float64) (float64, OperatingPoint, error) {
+// solve solves the stage at tj with the device th.d (= m.at(tj)),
+// starting Newton from th.guess (zero: from the hand estimate), and keeps
+// the result.
+func (th *thermalProblem) solve(tj float64) error {
+	th.t = tj
+	x, ok := th.ck.junctions(&th.d, &th.guess)
+	if !ok {
+		return errNoConvergence(th.s, th.m.Polarity, tj)
+	}
+	th.x = x
+	th.ib, th.ic, _, _, _, _ = th.d.currents(x[0], x[1])
+	vb, vc, ve := th.ck.nodes(th.ib, th.ic)
+	th.p = transistorPower(th.ib, th.ic, vb, vc, ve)
+	if !finite(th.ib) || !finite(th.ic) || !finite(th.p) {
+		return fmt.Errorf("solve %v %v stage at %g °C: result not finite: %w", th.m.Polarity, th.s.Topology, tj, ErrNoConvergence)
+	}
+	return nil
+}
+
+// point is the OperatingPoint of the last solve.
+func (th *thermalProblem) point() (OperatingPoint, error) {
+	return th.ck.point(th.s, &th.d, th.x, th.ib, th.ic, th.sg, th.m.Polarity, th.t)
+}
+
+// g evaluates the heat balance at tj, keeping the operating point.
+func (th *thermalProblem) g(tj float64) (float64, error) {
 	th.evals++
 	th.extrapolate(tj)
-	op, err := solveChecked(th.s, th.m, tj, &th.guess)
+	th.m.reheat(&th.d, tj)
+	err := th.solve(tj)
 	th.lastT = tj
 	if err != nil {
-		return 0, op, fmt.Errorf("self-heated solve at Tj %.3g °C: %w", tj, err)
+		return 0, fmt.Errorf("self-heated solve at Tj %.3g °C: %w", tj, err)
 	}
-	return th.ta + th.theta*heating(op) - tj, op, nil
+	return th.ta + th.theta*max(0, th.p) - tj, nil
 }
 
 // extrapolate moves the warm-start guess of each forward-biased junction
@@ -92,20 +150,21 @@ func (th *thermalProblem) extrapolate(tj float64) {
 	}
 }
 
-func (th *thermalProblem) equilibrium(op0 OperatingPoint, tjMax float64) (OperatingPoint, error) {
-	tPrev, gPrev := th.ta, th.theta*heating(op0)
+// equilibrium searches the heat balance from the solve at the ambient.
+func (th *thermalProblem) equilibrium(tjMax float64) (OperatingPoint, error) {
+	tPrev, gPrev := th.ta, th.theta*max(0, th.p)
 	if gPrev <= thermalTol_K {
-		return op0, nil // no (or negligible) dissipation
+		return th.point() // no (or negligible) dissipation
 	}
 	lo, hi, haveHi := tPrev, 0.0, false
-	t := math.Min(th.ta+gPrev, tjMax)
+	t := min(th.ta+gPrev, tjMax)
 	for range 60 {
-		gt, op, err := th.g(t)
+		gt, err := th.g(t)
 		if err != nil {
-			return op, err
+			return OperatingPoint{}, err
 		}
 		if math.Abs(gt) <= thermalTol_K {
-			return op, nil
+			return th.point()
 		}
 		if gt > 0 {
 			lo = t
@@ -125,10 +184,12 @@ func (th *thermalProblem) equilibrium(op0 OperatingPoint, tjMax float64) (Operat
 		case !haveHi && (math.IsNaN(next) || next <= t):
 			next = t + gt // fixed-point step: still warming up
 		}
-		next = math.Min(next, tjMax)
+		next = min(next, tjMax)
 		if haveHi && hi-lo <= thermalTol_K {
-			_, op, err := th.g(0.5 * (lo + hi))
-			return op, err
+			if _, err := th.g(0.5 * (lo + hi)); err != nil {
+				return OperatingPoint{}, err
+			}
+			return th.point()
 		}
 		tPrev, gPrev, t = t, gt, next
 	}
@@ -141,15 +202,15 @@ func (th *thermalProblem) scan(tjMax float64) (OperatingPoint, error) {
 	prevT, prevG := th.ta, math.Inf(1)
 	for i := 1; i <= thermalScan; i++ {
 		t := th.ta + (tjMax-th.ta)*float64(i)/thermalScan
-		gt, op, err := th.g(t)
+		gt, err := th.g(t)
 		if err != nil {
-			return op, err
+			return OperatingPoint{}, err
 		}
 		if gt <= 0 {
 			lo, hi := prevT, t
 			for hi-lo > thermalTol_K {
 				mid := 0.5 * (lo + hi)
-				gm, _, err := th.g(mid)
+				gm, err := th.g(mid)
 				if err != nil {
 					return OperatingPoint{}, err
 				}
@@ -159,11 +220,17 @@ func (th *thermalProblem) scan(tjMax float64) (OperatingPoint, error) {
 					hi = mid
 				}
 			}
-			_, op, err := th.g(0.5 * (lo + hi))
-			return op, err
+			if _, err := th.g(0.5 * (lo + hi)); err != nil {
+				return OperatingPoint{}, err
+			}
+			return th.point()
 		}
 		prevT, prevG = t, gt
 		if i == thermalScan {
+			op, err := th.point()
+			if err != nil {
+				return op, err
+			}
 			return op, fmt.Errorf("self-heated solve: ambient %g °C, θJA %g K/W: dissipation %.3g W still heats the junction past Tj max %g °C (balance +%.3g K): %w",
 				th.ta, th.theta, op.PTransistor_W, tjMax, prevG, ErrThermalRunaway)
 		}

@@ -1,9 +1,6 @@
 package solver
 
-import (
-	"fmt"
-	"math"
-)
+import "fmt"
 
 // Corner is one worst-case corner solved.
 type Corner struct {
@@ -122,6 +119,10 @@ type cornerPlan struct {
 	theta    float64
 	tjMax    float64
 	allow    [2]allowances // the parts' limits at the low and high ambient
+	// dev[i][j] is model i (0 mLo, 1 mHi) at ambient j (0 min, 1 max);
+	// check[i][j] is SolveSelfHeated's input check of that pair.
+	dev   [2][2]device
+	check [2][2]error
 }
 
 // newCornerPlan lists the axes of b (resistors first, ambient last), builds
@@ -151,6 +152,13 @@ func newCornerPlan(b Build, lim Limits) (cornerPlan, error) {
 	}
 	p.mHi = p.mLo
 	p.mHi.BF = b.Device.HFEMax // ModelFor depends on bf only through BF
+	for i, m := range [2]*Model{&p.mLo, &p.mHi} {
+		for j, amb := range [2]float64{b.AmbientMin_C, b.AmbientMax_C} {
+			if p.check[i][j] = checkSelfHeated(m, amb, p.theta, p.tjMax); p.check[i][j] == nil {
+				p.dev[i][j] = m.at(amb)
+			}
+		}
+	}
 	return p, nil
 }
 
@@ -170,10 +178,13 @@ func CornerCount(b Build) int {
 	return 1 << n
 }
 
-// solve solves corner k: bit j of k picks the high level of axis j.
+// solve solves corner k: bit j of k picks the high level of axis j. It
+// gives what SolveSelfHeated gives at the corner, with the models, their
+// devices at the two ambients and the input checks shared by all corners.
 func (p *cornerPlan) solve(k int) (Corner, error) {
 	var dev [NumSlots]float64
 	vccFactor, ambient, m := 1.0, p.b.AmbientMin_C, &p.mLo
+	mi, ai := 0, 0
 	for j := 0; j < p.n; j++ {
 		hi := k>>j&1 == 1
 		ax := p.axes[j]
@@ -193,17 +204,21 @@ func (p *cornerPlan) solve(k int) (Corner, error) {
 			}
 		case axisBeta:
 			if hi {
-				m = &p.mHi
+				m, mi = &p.mHi, 1
 			}
 		case axisAmbient:
 			if hi {
-				ambient = p.b.AmbientMax_C
+				ambient, ai = p.b.AmbientMax_C, 1
 			}
 		}
 	}
-	s := p.b.Resolve(dev, vccFactor, ambient)
+	s := p.b.resolve(&dev, vccFactor, ambient)
 	c := Corner{BF: m.BF, Temp_C: ambient, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm}
-	op, err := SolveSelfHeated(s, *m, ambient, p.theta, p.tjMax)
+	err := p.check[mi][ai]
+	var op OperatingPoint
+	if err == nil {
+		op, err = solveSelfHeated(s, m, &p.dev[mi][ai], ambient, p.theta, p.tjMax)
+	}
 	if err != nil {
 		return c, fmt.Errorf("worst case: corner %d (hFE %g, ambient %g °C, vcc %.4g V): %w", k, m.BF, ambient, s.VCC_V, err)
 	}
@@ -279,8 +294,8 @@ func (wc *WorstCase) fold(k int, c *Corner) {
 	if op.VCE_V > wc.VCEMax_V {
 		wc.VCEMax_V, wc.VCEMaxCorner, wc.VCEMaxAt = op.VCE_V, k, *c
 	}
-	wc.VBMin_V, wc.VBMax_V = math.Min(wc.VBMin_V, op.VB_V), math.Max(wc.VBMax_V, op.VB_V)
-	wc.VCMin_V, wc.VCMax_V = math.Min(wc.VCMin_V, op.VC_V), math.Max(wc.VCMax_V, op.VC_V)
-	wc.VEMin_V, wc.VEMax_V = math.Min(wc.VEMin_V, op.VE_V), math.Max(wc.VEMax_V, op.VE_V)
-	wc.TjMax_C = math.Max(wc.TjMax_C, op.Tj_C)
+	wc.VBMin_V, wc.VBMax_V = min(wc.VBMin_V, op.VB_V), max(wc.VBMax_V, op.VB_V)
+	wc.VCMin_V, wc.VCMax_V = min(wc.VCMin_V, op.VC_V), max(wc.VCMax_V, op.VC_V)
+	wc.VEMin_V, wc.VEMax_V = min(wc.VEMin_V, op.VE_V), max(wc.VEMax_V, op.VE_V)
+	wc.TjMax_C = max(wc.TjMax_C, op.Tj_C)
 }

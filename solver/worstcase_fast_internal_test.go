@@ -1,0 +1,163 @@
+package solver
+
+import (
+	"math"
+	"math/rand/v2"
+	"strings"
+	"testing"
+)
+
+// randomBuild draws a build over bench-realistic ranges (seeded): any
+// topology and polarity, resistors 100 Ω..1 MΩ with tolerances 0..10 %
+// and TCR up to ±500 ppm/K, supplies 3..30 V with 0..10 %, hFE windows up
+// to 4:1, θJA 0 or 50..500 K/W, ambient ranges within −40..100 °C.
+func randomBuild(rng *rand.Rand) Build {
+	logU := func(lo, hi float64) float64 { return lo * math.Pow(hi/lo, rng.Float64()) }
+	pick := func(v ...float64) float64 { return v[rng.IntN(len(v))] }
+	b := Build{Topology: Topology(1 + rng.IntN(3)), VCC_V: logU(3, 30), VCCTol: pick(0, 0.02, 0.05, 0.1)}
+	for _, sl := range b.Topology.Slots() {
+		b.Resistors[sl] = ResistorSpec{Nominal_Ohm: logU(100, 1e6), Tol: pick(0, 0.01, 0.02, 0.05, 0.1),
+			TCR_PPMPerK: pick(0, 50, 100, 250, -500) * rng.Float64(), Rated_W: pick(0, 0.125, 0.25, 0.5)}
+	}
+	if rng.IntN(4) == 0 {
+		b.Resistors[RE] = ResistorSpec{}
+	}
+	if b.Topology == SplitSupply {
+		b.VEE_V = -logU(1, 15)
+		if b.Resistors[RE].Nominal_Ohm == 0 {
+			b.Resistors[RE] = ResistorSpec{Nominal_Ohm: logU(100, 1e5), Tol: 0.05}
+		}
+	}
+	hfeMin := logU(30, 300)
+	b.Device = Datasheet{Polarity: NPN, HFEMin: hfeMin, HFEMax: hfeMin * pick(1, 1.5, 2, 4), VBEOn_V: 0.55 + 0.2*rng.Float64(),
+		VBEAt_A: logU(1e-4, 1e-2), VCESat_V: 0.2, ThetaJA_KPerW: pick(0, logU(50, 500), logU(50, 500)), TjMax_C: pick(0, 125, 150, 175)}
+	if rng.IntN(2) == 0 {
+		b.Device.VAF_V = logU(20, 200)
+	}
+	if rng.IntN(3) == 0 {
+		b.Device.ICBO_A = logU(1e-10, 1e-7)
+	}
+	if rng.IntN(2) == 0 {
+		b.Device.Polarity = PNP
+		b.VCC_V, b.VEE_V = -b.VCC_V, -b.VEE_V
+	}
+	b.AmbientMin_C = -40 + 65*rng.Float64()
+	b.AmbientMax_C = b.AmbientMin_C
+	if rng.IntN(5) != 0 {
+		b.AmbientMax_C += 75 * rng.Float64()
+	}
+	b.NominalAmbient_C = 25
+	return b
+}
+
+// referenceCorner solves corner k of b the plain way: the corner's inputs
+// taken from its number as EvalWorstCase documents it (bit j high = axis j
+// at its high level; axes are the toleranced resistors in slot order, then
+// the supply, hFE and the ambient, each only when it has a spread) and one
+// SolveSelfHeated call from scratch.
+func referenceCorner(b Build, k int) (Corner, error) {
+	var dev [NumSlots]float64
+	vccFactor, bf, ambient := 1.0, b.Device.HFEMin, b.AmbientMin_C
+	j := 0
+	bit := func() bool { hi := k>>j&1 == 1; j++; return hi }
+	for i := range NumSlots {
+		if tol := b.Resistors[i].Tol; b.Topology.uses(i) && b.Resistors[i].Nominal_Ohm > 0 && tol > 0 {
+			dev[i] = -tol
+			if bit() {
+				dev[i] = tol
+			}
+		}
+	}
+	if b.VCCTol > 0 {
+		vccFactor = 1 - b.VCCTol
+		if bit() {
+			vccFactor = 1 + b.VCCTol
+		}
+	}
+	if b.Device.HFEMax > b.Device.HFEMin && bit() {
+		bf = b.Device.HFEMax
+	}
+	if b.AmbientMax_C > b.AmbientMin_C && bit() {
+		ambient = b.AmbientMax_C
+	}
+	m, err := ModelFor(b.Device, bf)
+	if err != nil {
+		return Corner{}, err
+	}
+	s := b.Resolve(dev, vccFactor, ambient)
+	op, err := SolveSelfHeated(s, m, ambient, ThermalResistance(b.Device), tjMaxOf(b.Device))
+	return Corner{BF: bf, Temp_C: ambient, Tj_C: op.Tj_C, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm, OP: op}, err
+}
+
+// TestWorstCaseFastPathMatchesReferencePath is a regression check of the
+// corner enumeration's fast path (models, devices and input checks shared
+// across corners, the full result built only where kept) against the
+// reference path, one plain SolveSelfHeated per corner, over random
+// builds: the same corners, IC, VCE and Tj to 1e-9 relative, the same
+// regions, the same extremes with the same first-k tie-breaking, and the
+// same error for a build that fails. The outside references for the
+// solves themselves are the ngspice comparisons (ngspice_test.go,
+// thermal_test.go).
+func TestWorstCaseFastPathMatchesReferencePath(t *testing.T) {
+	rng := rand.New(rand.NewPCG(41, 43))
+	near := func(a, b float64) bool { return math.Abs(a-b) <= 1e-9*math.Max(math.Abs(a), math.Abs(b)) }
+	var corners, failed int
+	for i := range 1500 {
+		b := randomBuild(rng)
+		wc, err := EvalWorstCase(b, Limits{})
+		n := CornerCount(b)
+		var ref []Corner
+		var refErr error
+		for k := range n {
+			c, err := referenceCorner(b, k)
+			if err != nil {
+				refErr = err
+				break
+			}
+			ref = append(ref, c)
+		}
+		if refErr != nil || err != nil {
+			failed++
+			if refErr == nil || err == nil || !strings.Contains(err.Error(), refErr.Error()) {
+				t.Fatalf("#%d: fast path error %v, reference path error %v", i, err, refErr)
+			}
+			continue
+		}
+		if len(wc.Corners) != n {
+			t.Fatalf("#%d: %d corners, want %d", i, len(wc.Corners), n)
+		}
+		icMin, icMax, vceMin, vceMax := 0, 0, 0, 0
+		for k, r := range ref {
+			c := wc.Corners[k]
+			corners++
+			if c.BF != r.BF || c.Temp_C != r.Temp_C || c.VCC_V != r.VCC_V || c.R_Ohm != r.R_Ohm {
+				t.Fatalf("#%d corner %d: inputs %+v, reference %+v", i, k, c, r)
+			}
+			if !near(c.OP.IC_A, r.OP.IC_A) || !near(c.OP.VCE_V, r.OP.VCE_V) || !near(c.Tj_C, r.Tj_C) || c.OP.Region != r.OP.Region {
+				t.Fatalf("#%d corner %d: IC %.12g A, VCE %.12g V, Tj %.12g °C, %v; reference %.12g A, %.12g V, %.12g °C, %v",
+					i, k, c.OP.IC_A, c.OP.VCE_V, c.Tj_C, c.OP.Region, r.OP.IC_A, r.OP.VCE_V, r.Tj_C, r.OP.Region)
+			}
+			// First k in increasing k wins a tie.
+			if r.OP.IC_A < ref[icMin].OP.IC_A {
+				icMin = k
+			}
+			if r.OP.IC_A > ref[icMax].OP.IC_A {
+				icMax = k
+			}
+			if r.OP.VCE_V < ref[vceMin].OP.VCE_V {
+				vceMin = k
+			}
+			if r.OP.VCE_V > ref[vceMax].OP.VCE_V {
+				vceMax = k
+			}
+		}
+		if wc.ICMinCorner != icMin || wc.ICMaxCorner != icMax || wc.VCEMinCorner != vceMin || wc.VCEMaxCorner != vceMax {
+			t.Fatalf("#%d: extreme corners IC %d/%d, VCE %d/%d; reference %d/%d, %d/%d", i,
+				wc.ICMinCorner, wc.ICMaxCorner, wc.VCEMinCorner, wc.VCEMaxCorner, icMin, icMax, vceMin, vceMax)
+		}
+	}
+	t.Logf("%d corners compared, %d builds failed alike", corners, failed)
+	if failed == 1500 || corners == 0 {
+		t.Fatalf("no build evaluated")
+	}
+}
