@@ -187,6 +187,15 @@ func expJunction(a float64) (e, de float64) {
 	return expLin(a)
 }
 
+// expm1Junction is exp(a) − 1 for the region test, capped at expArgMax;
+// below expNegligible it is −1, which is what exp(a) − 1 rounds to there.
+func expm1Junction(a float64) float64 {
+	if a < expNegligible {
+		return -1
+	}
+	return math.Expm1(min(a, expArgMax))
+}
+
 // expLin returns exp(a) and its derivative, continued linearly above
 // expArgMax so that no step can overflow.
 func expLin(a float64) (e, de float64) {
@@ -402,8 +411,8 @@ func (ck *circuit) assemble(s Stage, ib, ic, vb, vc, ve, sg float64) OperatingPo
 // is saturated once the base-collector injection reaches regionSatRatio of
 // the base-emitter injection (see doc.go).
 func (d *device) region(vbe, vbc float64) Region {
-	fwd := d.is * math.Expm1(min(vbe/d.nvt, expArgMax))
-	rev := d.is * math.Expm1(min(vbc/d.vt, expArgMax))
+	fwd := d.is * expm1Junction(vbe/d.nvt)
+	rev := d.is * expm1Junction(vbc/d.vt)
 	switch {
 	case fwd < regionOn_A && rev < regionOn_A:
 		return Cutoff
