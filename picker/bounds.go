@@ -23,7 +23,9 @@ func (e *evaluator) vbeBounds(dv *device, icLo, icHi float64) (lo, hi float64) {
 	m := dv.typ
 	vt := solver.ThermalVoltage_V(NominalAmbient_C)
 	is25, _, _, _ := m.At(NominalAmbient_C)
-	hi = m.NF * vt * math.Log(icHi/is25+1)
+	// Both ends are widened by 1e-9 relative: with no self-heating they are
+	// the solved VBE itself, up to round-off.
+	hi = m.NF * vt * math.Log(icHi/is25+1) * (1 + 1e-9)
 	if m.ICBO_A > 0 || icLo <= 0 {
 		return 0, hi
 	}
@@ -37,7 +39,7 @@ func (e *evaluator) vbeBounds(dv *device, icLo, icHi float64) (lo, hi float64) {
 	if num <= 0 {
 		return 0, hi
 	}
-	lo = math.Max(0, m.NF*solver.ThermalVoltage_V(tj)*math.Log(num/(isT*early)))
+	lo = math.Max(0, m.NF*solver.ThermalVoltage_V(tj)*math.Log(num/(isT*early))*(1-1e-9))
 	return lo, hi
 }
 
@@ -108,80 +110,6 @@ func firstFrom(n, guess int, f func(int) bool) int {
 		return n
 	}
 	return lo + firstLevel(hi-lo+1, func(i int) bool { return f(lo + i) })
-}
-
-// betaFloorMargin is the share of the derived beta floor the search
-// trusts: the self-heating and Early terms of betaFloor are first-order
-// bounds, and 10 % covers their higher-order remainder.
-const betaFloorMargin = 0.9
-
-// betaFloor is a lower bound on the beta term of every build of dv with
-// R_TH ≥ rth, this RE, RC ≤ rcMax, the typical-hFE IC at least icLo and
-// at most icHi and VBE at most vbeHi (vbeBounds), forward-active (see doc.go, bound B). Derivation, in the
-// transport model the solver uses (IC = Ibe·E − Ibc/BR, IB = Ibe/BF + …,
-// E = 1 − VBC/VAF; terms of the order of IS dropped): the base loop is
-// V_TH − VBE = IC·g(β) with g(β) = R_TH/β + RE(1 + 1/β), β = BF·E, and
-// VBE = NF·VT·ln(IC/(IS·E)). Writing it for hFE min (1) and max (2) and
-// subtracting:
-//
-//	ΔIC·g2 = IC1(g1 − g2) − NF·VT·ln(IC2/IC1) + NF·VT·ln(E2/E1) − (thermal)
-//
-// with ln(IC2/IC1) ≤ ΔIC/IC1, NF·VT·ln(E1/E2) ≤ ΔIC·R_e where
-// R_e = NF·VT(RC + RE)/(VAF − VBE) (VCE falls by at most ΔIC(RC + RE)),
-// and the junction of solve 2 at most θ·2·VCC·ΔIC cooler than that of
-// solve 1 (|dP/dIC| ≤ 2·VCC), which lowers IC2 by at most that times
-// (|dVBE/dT| + IC2·|dg/dT|)/(g + …), |dVBE/dT| ≤ (EG + XTI·NF·VT)/T and
-// |dg/dT| ≤ (R_TH + RE)·XTB/(β1·T). So X = ΔIC/IC1 ≥
-// (g1 − g2)/(g2 + NF·VT/IC1 + R_e + R_th), with g1 − g2 at its smallest
-// and g2 at its largest over the beta factors the junction temperatures
-// allow. IC1 ≥ icLo·hFE min/hFE typ (a lower beta draws more base
-// current), IC2 ≤ icHi·hFE max/hFE typ, and the term (IC2 − IC1)/IC ≥
-// X/(1 + X) since IC ≤ IC2. The bound rises with R_TH and falls with RE.
-// It is 0 when the model has a leakage current.
-func (e *evaluator) betaFloor(dv *device, rth, reOhm, rcMax, icLo, icHi, vbeHi float64) float64 {
-	m := dv.typ
-	if m.ICBO_A > 0 || icLo <= 0 {
-		return 0
-	}
-	vcc := e.s.vcc
-	hTyp := solver.TypicalHFE(dv.line.Sheet)
-	b1, b2 := dv.lo.BF, dv.hi.BF
-	// junction temperature range of the nominal-ambient solves
-	pMax := vcc*vcc/(4*(rcMax+reOhm))*1.1 + vcc*icHi
-	if math.IsInf(rcMax, 1) || rcMax+reOhm <= 0 {
-		pMax = 2 * vcc * icHi * b2 / hTyp
-	}
-	tjHi := math.Min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*pMax)
-	t0 := m.TNOM_C + 273.15
-	fLo := math.Pow((NominalAmbient_C+273.15)/t0, m.XTB)
-	fHi := math.Pow((tjHi+273.15)/t0, m.XTB)
-	if fLo > fHi {
-		fLo, fHi = fHi, fLo
-	}
-	eMin, eMax, re := 1.0, 1.0, 0.0
-	nvt := m.NF * solver.ThermalVoltage_V(tjHi)
-	if m.VAF_V > 0 {
-		eMin = 1 - vbeHi/m.VAF_V
-		eMax = 1 + vcc/m.VAF_V
-		if eMin <= 0 {
-			return 0
-		}
-		re = nvt * (math.Min(rcMax, 1e12) + reOhm) / (m.VAF_V - vbeHi)
-	}
-	dg := (rth + reOhm) * (1/(b1*eMax) - 1/(b2*eMin)) / fHi
-	if dg <= 0 {
-		return 0
-	}
-	beta2 := b2 * eMin * fLo
-	g2 := rth/beta2 + reOhm*(1+1/beta2)
-	ic1 := icLo * dv.line.Sheet.HFEMin / hTyp
-	ic2 := icHi * dv.line.Sheet.HFEMax / hTyp
-	tK := NominalAmbient_C + 273.15
-	dVdT := (m.EG_eV + m.XTI*nvt) / tK
-	dgdT := (rth + reOhm) * m.XTB / (b1 * fLo * eMin * tK)
-	rth2 := dv.thetaJA * 2 * vcc * (dVdT + ic2*dgdT)
-	x := dg / (g2 + nvt/ic1 + re + rth2)
-	return betaFloorMargin * x / (1 + x)
 }
 
 // rthFloor is a lower bound on R_TH = R1‖R2 for a divider with this R2

@@ -13,20 +13,35 @@ import (
 // uses against the exact self-heated solution of random builds (the
 // reference is solver.SolveSelfHeated itself, the function whose results
 // the bounds must stay below or above): VBE within vbeBounds, R_TH above
-// rthFloor, the divider's utilization above dividerPowerBound and the
-// beta term above betaFloor, for builds whose nominal and hFE-max points
-// are active with VCE above the 0.7 V floor (the builds the search bounds).
+// rthFloor, the divider's utilization above dividerPowerBound, IC/IB above
+// nominalBetaMin and the beta term above betaFloor, for builds whose
+// nominal, hFE-min and hFE-max points are active with VCE above VCE(sat) +
+// margin (the premise of the bounds: the builds the search bounds). The stock mixes small-signal
+// parts with ones that heat noticeably (θJA 500 and 1000 K/W), one that
+// does not heat at all, low Early voltages and a PNP line, where the
+// bound's thermal and Early terms matter.
 func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}
-	st.Transistors[2].Sheet.VAF_V = 0 // one without Early effect
-	checked := 0
-	for _, vcc := range []float64{5, 12, 30} {
+	st.Transistors[2].Sheet.VAF_V = 0  // one without Early effect
+	st.Transistors[2].Sheet.PD25_W = 0 // and without self-heating
+	st.Transistors[3].Sheet.VAF_V = 25
+	st.Transistors[4].Sheet.ThetaJA_KPerW = 500
+	st.Transistors[5].Sheet.ThetaJA_KPerW = 1000
+	st.Transistors[5].Sheet.VAF_V = 40
+	st.Transistors[5].Sheet.VCESat_V = 0.05 // the least VCE floor
+	// A PNP line with self-heating, for the negative rail.
+	pnp := smallPNP(40, 80, 320)
+	pnp.Sheet.ThetaJA_KPerW = 400
+	st.Transistors = append(st.Transistors, pnp)
+	checked, positive := 0, 0
+	sumRatio := 0.0
+	for _, vcc := range []float64{5, 12, 30, -15} {
 		s, err := normalize(Request{VCC_V: vcc, IC_A: 1e-3})
 		if err != nil {
 			t.Fatal(err)
 		}
 		e, _ := newEvaluator(s, st)
-		rng := rand.New(rand.NewPCG(uint64(vcc), 1))
+		rng := rand.New(rand.NewPCG(uint64(math.Abs(vcc)), 1))
 		n := len(e.vs.levels)
 		for range 6000 {
 			di := rng.IntN(len(e.devs))
@@ -36,9 +51,19 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 				continue
 			}
 			dv := &e.devs[di]
+			floor := dv.vceSat + e.s.lim.VCEMargin_V
 			hi, err := e.solveAt(dv, dv.hi, a.r)
-			if err != nil || hi.Region != solver.Active || hi.VCE_V < 0.7 {
+			if err != nil || hi.Region != solver.Active || hi.VCE_V < floor {
 				continue
+			}
+			lo, err := e.solveAt(dv, dv.lo, a.r)
+			if err != nil || lo.Region != solver.Active || lo.VCE_V < floor {
+				continue
+			}
+			for _, p := range []solver.OperatingPoint{lo, a.op, hi} {
+				if beta := p.IC_A / p.IB_A; beta < dv.betaNomMin {
+					t.Errorf("IC/IB %.6g below the nominal floor %.6g (vcc %g, %s, %v)", beta, dv.betaNomMin, vcc, dv.line.Sheet.Label, a.r)
+				}
 			}
 			e.betaSpread(a, &counters{})
 			if !a.betaOK {
@@ -59,12 +84,26 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 			if f := e.dividerPowerBound(lv[iR2], math.Abs(op.VB_V), math.Abs(op.VB_V)); f > u*(1+1e-9) {
 				t.Errorf("divider bound %.6g above the divider's utilization %.6g (%v)", f, u, r)
 			}
-			if f := e.betaFloor(dv, rth, r[iRE], r[iRC], ic, ic, vbeHi); f > math.Abs(a.beta) {
-				t.Errorf("beta floor %.6g above the beta term %.6g (vcc %g, %v, VCE %.3g)", f, math.Abs(a.beta), vcc, r, op.VCE_V)
+			// The floor for a window around IC and an R_TH below the build's
+			// must hold too: the search uses it that way.
+			for _, k := range []float64{1, 0.5} {
+				f := e.betaFloor(dv, betaWindow{RTH: rth * k, RTHMax: r[iR2], RE: r[iRE], RCMin: r[iRC] * k, RCMax: r[iRC] / k, ICLo: ic * (1 - (1-k)/4), ICHi: ic * (1 + (1-k)/4)})
+				if f > math.Abs(a.beta) {
+					t.Errorf("beta floor %.6g above the beta term %.6g (vcc %g, %s, %v, VCE %.3g, window %g)", f, math.Abs(a.beta), vcc, dv.line.Sheet.Label, r, op.VCE_V, k)
+				}
+				if k == 1 && f > 0 {
+					positive++
+					sumRatio += f / math.Abs(a.beta)
+				}
 			}
 		}
 	}
 	if checked < 1000 {
 		t.Fatalf("only %d builds checked", checked)
 	}
+	// A floor that is always 0 would hold and prune nothing.
+	if positive < checked/2 {
+		t.Errorf("beta floor positive on only %d of %d builds", positive, checked)
+	}
+	t.Logf("%d builds checked; beta floor positive on %d, on average %.2f of the exact term", checked, positive, sumRatio/float64(max(positive, 1)))
 }

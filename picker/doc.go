@@ -110,9 +110,8 @@
 //     power, a cooler junction and less IC), and saturation only deepens.
 //
 // Both are proved for the isothermal circuit and carried to the
-// self-heated one by the loop-gain argument; the same corner argument
-// makes the hFE-max point of every passing build active, which the beta
-// floor needs. The bounds, per loop level (doc comments at each site repeat them):
+// self-heated one by the loop-gain argument. The bounds, per loop level
+// (doc comments at each site repeat them):
 //
 //   - U-RE: RE dissipates IE²·RE ≥ IC_lo²·RE, so the utilization term is
 //     at least that over the best allowance at the hot ambient; it rises
@@ -125,8 +124,11 @@
 //     stops) and at least (VE_min − k·IC_hi·RE)/|VCC| (an RE too small is
 //     skipped). The term is ≥ 0 and only adds to the score, so every other
 //     floor stays a floor.
-//   - RC band: with IE between IC and (1 + 2/hFE_min)·IC (forward beta at
-//     the nominal point at least half the datasheet minimum), VCE lies in
+//   - RC band: with IE between IC and k·IC, k = 1 + 1/β_min, where β_min
+//     bounds IC/IB at every nominal point of a passing build
+//     (nominalBetaMin: the transport model's IC/IB at hFE min, bounded over
+//     junction temperatures up to Tj max, the Early factor and the
+//     collector junction's share, as in bound B), VCE lies in
 //     [|VCC| − IC_hi(RC + k·RE), |VCC| − IC_lo(RC + RE)]; RC outside the band
 //     where this can come within δ|VCC| of the target band is out.
 //   - U-R2: R2 dissipates VB²/R2 and, since base current flows into the
@@ -135,18 +137,26 @@
 //     from the device model (vbeBounds). R2 levels below the first one
 //     this weaker-with-the-best-allowance bound admits are skipped by
 //     bisection (the bound falls with R2).
-//   - B: betaFloor bounds the beta term from below in closed form — the
-//     base loop written for hFE min and max and subtracted, with the VBE
-//     shift bounded by NF·VT/IC1 (the intrinsic emitter resistance), the
-//     Early effect and self-heating by first-order worst-case terms, and
-//     10 % kept back for their remainder (betaFloorMargin);
-//     TestBoundsHoldOnRandomBuilds checks it against the exact beta term
-//     of random builds. It rises with R_TH, and R_TH ≥ rthFloor(R2). With
-//     the utilization floor of RE (every build carries RE) it stops the R2
-//     run; with the divider floor it skips one R2. What is left of the
-//     threshold after these floors bounds the QPoint term, so the IC window
-//     of that R2 narrows to ±(T − floors)/w_QPoint; at each R1 the floors
-//     are taken again with the exact R_TH and R1's own dissipation.
+//   - B: betaFloor (betafloor.go) bounds the beta term from below. It
+//     writes the base loop of the hFE-min, typical and hFE-max points as
+//     V_TH − VBE = IC·g(β) and bounds every quantity that differs between
+//     them — β through BF's temperature factor, the Early factor and the
+//     collector junction's share, VBE through the current ratio and the
+//     junction temperature, the temperatures through each point's power —
+//     by inequalities of the solver's transport model, with no
+//     linearisation and no margin; the fixed points that result are solved
+//     from below. Its premise is that the three points of a passing build
+//     are forward-active with VCE above VCE(sat) + margin, which the
+//     corner argument gives when the ambient range holds 25 °C (otherwise
+//     the bound is not used). TestBoundsHoldOnRandomBuilds checks it
+//     against the exact beta term of random builds. For a window of R_TH
+//     ≥ rthFloor(R2) with no upper end it holds at every larger R2 too
+//     and, with the utilization floor of RE (every build carries RE), stops
+//     the R2 run; with R_TH ≤ R2 and the divider floor it skips one R2.
+//     What is left of the threshold after these floors bounds the QPoint
+//     term, so the IC window of that R2 narrows to ±(T − floors)/w_QPoint;
+//     at each R1 the floors are taken again with the exact R_TH and R1's
+//     own dissipation.
 //   - R1 range: by L1 and L2 the IC of any build at (R1, R2, RE) is at most
 //     IC at the bottom of the RC band and, for builds active at their nominal point, at least
 //     IC at the largest band RC that is still active; R1 outside the range

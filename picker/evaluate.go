@@ -262,11 +262,10 @@ func (e *evaluator) betaFloorAt(t *tuple) float64 {
 	if t.op.Region != solver.Active {
 		return 0
 	}
-	dv := &e.devs[t.c.dev]
 	r := t.r
 	ic := t.op.IC_A
-	_, vbeHi := e.vbeBounds(dv, ic, ic)
-	return e.betaFloor(dv, r[iR1]*r[iR2]/(r[iR1]+r[iR2]), r[iRE], r[iRC], ic, ic, vbeHi)
+	rth := r[iR1] * r[iR2] / (r[iR1] + r[iR2])
+	return e.betaFloor(&e.devs[t.c.dev], betaWindow{RTH: rth, RTHMax: rth, RE: r[iRE], RCMin: r[iRC], RCMax: r[iRC], ICLo: ic, ICHi: ic})
 }
 
 // counters of a search.

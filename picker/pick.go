@@ -80,7 +80,11 @@ func newEvaluator(s settings, stock Stock) (*evaluator, []string) {
 	vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim)
 	devs, rejected := s.transistorCandidates(stock.Transistors)
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
-	return &evaluator{s: s, vs: &vs, devs: devs}, rejected
+	e := &evaluator{s: s, vs: &vs, devs: devs}
+	for i := range e.devs {
+		e.devs[i].betaNomMin = e.nominalBetaMin(&e.devs[i])
+	}
+	return e, rejected
 }
 
 func sign64(v int64) int64 {

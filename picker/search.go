@@ -364,7 +364,7 @@ func (d *dividerPlan) search(e *evaluator, p *pool, cnt *counters) {
 			}
 			dv := &e.devs[it.di]
 			vceLo, vceHi := e.targetBand(dv)
-			kE := 1 + 2/dv.hfeMin
+			kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
 			bd := e.boundsNow(p)
 			reOhm := e.vs.levels[it.re].ohm
 			if bd.finite {
@@ -477,16 +477,26 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			vbHi := vbeHi + bd.icHi*kE*reOhm
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
 			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+			// bOn holds for every build at this R2 or a larger one
+			// (R_TH ≥ rthFloor(R2), which rises with R2; R_TH at most the
+			// largest value; the RC band and IC window only narrow), bLo
+			// for this R2 alone (R_TH ≤ R2).
+			// bOn is taken only where bLo already settles this R2.
 			bLo = 0
+			win := betaWindow{RTH: e.rthFloor(e.vs.levels[r2].ohm, vbHi, bd.icHi/dv.betaNomMin), RTHMax: e.vs.levels[r2].ohm,
+				RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
 			if w.Beta > 0 {
-				rth := e.rthFloor(e.vs.levels[r2].ohm, vbHi, 2*bd.icHi/dv.hfeMin)
-				bLo = e.betaFloor(dv, rth, reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi, vbeHi)
+				bLo = e.betaFloor(dv, win)
 			}
 			// Bound E-RE: VE = IE·RE lies in [icLo·RE, kE·icHi·RE]
 			// whatever R1, R2 and RC are.
 			eLo = math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
 			if w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
-				break
+				win.RTHMax = e.vs.levels[n-1].ohm
+				if w.Beta*e.betaFloor(dv, win)+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
+					break
+				}
+				continue
 			}
 			uBase = math.Max(uRE, uDiv)
 			base = w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
@@ -553,7 +563,9 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				vbHi := vbeHi + bd.icHi*kE*reOhm
 				bR1 := 0.0
 				if w.Beta > 0 {
-					bR1 = e.betaFloor(dv, r1Ohm*r2Ohm/(r1Ohm+r2Ohm), reOhm, e.vs.levels[rcHi].ohm, bd.icLo, bd.icHi, vbeHi)
+					rth := r1Ohm * r2Ohm / (r1Ohm + r2Ohm)
+					bR1 = e.betaFloor(dv, betaWindow{RTH: rth, RTHMax: rth, RE: reOhm,
+						RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi})
 				}
 				uR1 := 0.0
 				if vbHi < e.s.vcc {

@@ -204,6 +204,7 @@ func (e *evaluator) fitsWith(d *device, ideal [nPos]float64, bought map[int]Purc
 		return false
 	}
 	ev := &evaluator{s: e.s, vs: &vs, devs: []device{*d}}
+	ev.devs[0].betaNomMin = ev.nominalBetaMin(&ev.devs[0]) // over these values
 	inf := func() float64 { return math.Inf(1) }
 	var choices [nPos][]int
 	for i := range nPos {

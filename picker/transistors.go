@@ -17,6 +17,17 @@ type device struct {
 	vceSat   float64
 	hfeMin   float64
 	allowHot float64 // transistor allowance at the hottest ambient (W), +Inf when unrated
+	at25     nominalDevice
+	// betaNomMin bounds IC/IB from below at every nominal point of a
+	// passing build (evaluator.nominalBetaMin).
+	betaNomMin float64
+}
+
+// nominalDevice holds the model's figures just below the nominal ambient
+// that betaFloor takes again and again (betaModel.tLo_C).
+type nominalDevice struct {
+	is     float64 // IS
+	factor float64 // BF's temperature factor (T/TNOM)^XTB
 }
 
 // vceSatOf returns the datasheet VCE(sat) or the solver's default.
@@ -91,11 +102,13 @@ func (s settings) transistorCandidates(ts []Transistor) (devs []device, rejected
 			reject("datasheet: %v", err)
 			continue
 		}
-		devs = append(devs, device{
+		dv := device{
 			line: t, typ: mt, lo: ml, hi: mh,
 			thetaJA: solver.ThermalResistance(d), tjMax_C: tjMaxOf(d),
 			vceSat: vceSatOf(d), hfeMin: d.HFEMin, allowHot: allowHot,
-		})
+		}
+		dv.at25 = newNominalDevice(mt)
+		devs = append(devs, dv)
 	}
 	return devs, rejected
 }

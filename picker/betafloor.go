@@ -1,0 +1,495 @@
+package picker
+
+import (
+	"math"
+
+	"biasbin/solver"
+)
+
+// betaWindow is the set of builds betaFloor bounds: R_TH in [RTH,
+// RTHMax], this RE, RC in [RCMin, RCMax] and the typical-hFE nominal IC
+// in [ICLo, ICHi].
+type betaWindow struct {
+	RTH, RTHMax  float64
+	RE           float64
+	RCMin, RCMax float64
+	ICLo, ICHi   float64
+}
+
+// betaFloor is a lower bound on the beta term (IC2 − IC1)/IC of every
+// passing build of dv in the window w (doc.go, bound B).
+// IC1, IC2 and IC are the self-heated nominal points (25 °C ambient,
+// marked values) at hFE min, max and typical. It is 0 where its premise or
+// model does not hold: a leakage current in the model, NF ≠ 1, no RE, or
+// an ambient range that leaves out 25 °C.
+//
+// Premise: the three points of a passing build are forward-active (the
+// base-emitter injection at least solver.ConductingCurrent_A) with VCE at
+// least VCE(sat) + margin. Every corner of a passing build is, and with IC
+// and VCE monotonic in each input (the premise of corner analysis,
+// REFERENCE.md §9) the nominal point, inside the corner box when the
+// ambient range holds 25 °C, is no worse than the worst corner.
+//
+// Every step is an inequality of the transport model the solver uses
+// (IC = Ibe·k, k = (1 − c)·q − c/BR, IB = Ibe·(1 + c·BF/BR)/BF, c =
+// Ibc/Ibe, q = 1 − VBC/VAF); nothing is linearised or left to a margin.
+// Writing β = IC/IB = b·φ (b the hFE at TNOM, φ = f(T)·k/(1 + c·b/BR),
+// f the XTB factor) and g(β) = (R_TH + RE)/β + RE, the base loop of each
+// point is exactly V_TH − VBE = IC·g(β), so for points A and B
+//
+//	IC_A/IC_B = (V_TH − VBE_A)/(V_TH − VBE_B) · g(β_B)/g(β_A).
+//
+// betaModel bounds what holds at every point (junction between 25 °C and
+// Th, c, q, k, VBE, |∂VBE/∂T| ≤ κ); betaModel.point what follows from a
+// point's IC range; betaModel.ratio what two points share: φ_A/φ_B ≥ ρ
+// from their temperature difference (θ times the power difference), their
+// VCE difference and their VBE difference, and k_B/k_A ≤ Q. Then:
+//
+//   - g(β_B)/g(β_A) is monotonic in w = (R_TH + RE)/φ_B, so it is at least
+//     the smaller of its bounds at the two ends of w's range (gRatio);
+//   - VBE_A − VBE_B at one temperature is at most NF·VT·ln(Ibe_A/Ibe_B)
+//     plus IS/Ibe_A, and κ per kelvin apart (vbeRise);
+//   - so y = IC1/IC and z = IC2/IC satisfy y ≥ H(1 − (vbeRise(y·Q) +
+//     κΔT)/A), A = icLo·g(βt,max) ≤ V_TH − VBE at the typical point, whose
+//     right side falls with y: y is at least its fixed point;
+//   - likewise 1 + X = IC2/IC1 ≥ G(1 − (vbeRise((1 + X)·Q) + κΔT)/A1) with
+//     A1 = IC1,min·g(β1,max);
+//   - the term is X·y and also X/(1 + X)·z; the larger bound is returned.
+//
+// The bound rises with R_TH and is checked against the exact beta term of
+// random builds by TestBoundsHoldOnRandomBuilds.
+func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
+	m := dv.typ
+	rth, rthMax, reOhm, rcMin, rcMax, icLo, icHi := w.RTH, w.RTHMax, w.RE, w.RCMin, w.RCMax, w.ICLo, w.ICHi
+	if m.ICBO_A > 0 || m.NF != 1 || icLo <= 0 || icHi < icLo || reOhm <= 0 || rth < 0 || rthMax < rth || !(rcMin >= 0) || rcMax < rcMin ||
+		m.XTI < 0 || m.EG_eV < 0 || e.s.ambMin > NominalAmbient_C || e.s.ambMax < NominalAmbient_C {
+		return 0
+	}
+	// A first junction bound for every point, from the circuit alone:
+	// VCE·IC ≤ IC(VCC − IC(RC + RE)) ≤ VCC²/(4(RC + RE)), and the base
+	// loop V_TH = IB(R_TH + RE) + IC·RE + VBE ≤ VCC gives IB ≤ VCC/(R_TH +
+	// RE), so VBE·IB ≤ VBEcap·VCC/(R_TH + RE) (VBEcap of the widest range).
+	vcc := e.s.vcc
+	th := NominalAmbient_C + thermalSlack_K // no self-heating
+	if dv.thetaJA > 0 {
+		th = dv.tjMax_C + thermalSlack_K
+		vbeCap := vcc
+		if bm, ok := e.newBetaModel(dv, th, reOhm, rth, rthMax, rcMin, rcMax, icLo); ok {
+			vbeCap = math.Min(vcc, bm.vbeCap)
+		}
+		p0 := vcc*vcc/(4*(rcMin+reOhm)) + vbeCap*vcc/(rth+reOhm)
+		th = math.Min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*p0) + thermalSlack_K
+	}
+	var bm betaModel
+	var p1, pt, p2 betaPoint
+	for range 2 {
+		var ok bool
+		if bm, ok = e.newBetaModel(dv, th, reOhm, rth, rthMax, rcMin, rcMax, icLo); !ok {
+			return 0
+		}
+		pt = bm.point(bm.bt, bm.cnAt(icLo), icLo, icHi)
+		// Nothing shared yet: each point against the typical one's extremes.
+		y := bm.lowRatio(bm.b1, bm.cnOn, bm.kMaxFor(pt.cn)/bm.kMin, bm.dT, bm.betaMin(bm.b1)/bm.b1/pt.phiMax, pt)
+		z := bm.lowRatio(bm.b2, bm.cnOn, bm.kMaxFor(pt.cn)/bm.kMin, bm.dT, bm.betaMin(bm.b2)/bm.b2/pt.phiMax, pt)
+		if !(y > 0) {
+			return 0
+		}
+		cn1, cn2 := bm.cnAt(y*icLo), bm.cnAt(z*icLo)
+		p1 = bm.point(bm.b1, cn1, y*icLo, bm.upRatio(bm.b1, cn1, pt)*icHi)
+		p2 = bm.point(bm.b2, cn2, z*icLo, bm.upRatio(bm.b2, cn2, pt)*icHi)
+		next := math.Min(th, NominalAmbient_C+dv.thetaJA*math.Max(math.Max(p1.pUp, p2.pUp), pt.pUp)+thermalSlack_K)
+		if next >= th-0.5 {
+			break // less than half a kelvin to gain
+		}
+		th = next
+	}
+	if math.IsInf(p1.phiMax, 1) || math.IsInf(p2.phiMax, 1) {
+		return 0
+	}
+	// Sharpen the lower ends of IC1 and IC2 with what each point shares
+	// with the typical one.
+	rho, qk, dT := bm.ratio(p1, pt)
+	y := math.Max(p1.icLo/icLo, bm.lowRatio(bm.b1, p1.cn, qk, dT, rho, pt))
+	rho, qk, dT = bm.ratio(p2, pt)
+	z := math.Max(p2.icLo/icLo, bm.lowRatio(bm.b2, p2.cn, qk, dT, rho, pt))
+	p1, p2 = bm.withLow(p1, y*icLo), bm.withLow(p2, z*icLo)
+	rho, qk, dT = bm.ratio(p2, p1)
+	gr := bm.gRatio(bm.b2, bm.b1, bm.betaMin(bm.b1)/bm.b1, p1.phiMax, rho)
+	// V_TH − VBE1 = IC1·g(β1) lies between a1Lo and a1Hi.
+	a1Lo := p1.icLo * (bm.a/(bm.b1*p1.phiMax) + reOhm)
+	a1Hi := p1.icUp * (bm.aMax/bm.betaMin(bm.b1) + reOhm)
+	x := leastFixedPoint(func(v float64) (float64, float64) {
+		rise, slope := bm.vbeRise(v*qk, p2.cn)
+		return bm.headroom(gr, rise+bm.kappa*dT, slope, v, a1Lo, a1Hi)
+	}, gr) - 1
+	if !(x > 0) {
+		return 0
+	}
+	return math.Max(x*y, z*x/(1+x))
+}
+
+// nominalBetaMin bounds IC/IB from below at every nominal point of a
+// passing build of dv (premise of betaFloor: forward-active, VCE at least
+// VCE(sat) + margin), at any hFE of the datasheet range and any stocked
+// RE: betaModel.betaMin of hFE min with the junction anywhere up to Tj max
+// and the least RE (which gives the largest VBE bound and so the least Early
+// factor). The search takes IE ≤ (1 + 1/betaNomMin)·IC from it. Where the
+// model gives no bound (an Early voltage below the supply, a model with
+// NF ≠ 1) it is 0.01, which leaves the cuts that use it all but off.
+func (e *evaluator) nominalBetaMin(dv *device) float64 {
+	const none = 0.01
+	if len(e.vs.levels) == 0 || dv.typ.NF != 1 || dv.typ.XTI < 0 || dv.typ.EG_eV < 0 {
+		return none
+	}
+	bm, ok := e.newBetaModel(dv, dv.tjMax_C+thermalSlack_K, e.vs.levels[0].ohm, 0, math.Inf(1), 0, math.Inf(1), 0)
+	if !ok {
+		return none
+	}
+	return math.Max(none, bm.betaMin(bm.b1))
+}
+
+// thermalSlack_K widens junction-temperature bounds past the self-heated
+// solve's tolerance on its heat balance (1e-6 K), a thousandfold.
+const thermalSlack_K = 1e-3
+
+// betaModel holds what betaFloor knows of every point of a build: the
+// device at junction temperatures in [25 °C − slack, th] and the circuit.
+type betaModel struct {
+	m          solver.Model
+	b1, bt, b2 float64 // BF at TNOM: hFE min, typical, max
+	br, brLo   float64 // BR at TNOM and its least over the range
+	fLo, fHi   float64 // the XTB factor over the range
+	f25        float64 // the XTB factor at tLo_C
+	tLo_C      float64 // 25 °C − slack
+	tLoK       float64
+	th         float64 // the junction is at most this, °C
+	dT         float64 // th − tLo_C
+	isHi       float64 // IS at th (IS rises with temperature)
+	cnOn       float64 // IS/Ibe at any point (Ibe ≥ the conducting current)
+	cp         float64 // c = Ibc/Ibe is at most this
+	qMin, qMax float64 // q = 1 − VBC/VAF of any point
+	kMin       float64 // IC/Ibe of any point is at least this
+	nvt, nvtLo float64 // NF·VT at th and at tLo_C
+	vbeCap     float64 // VBE of any point is at most this
+	kappa      float64 // |∂VBE/∂T| at a fixed current, V/K
+	vceFloor   float64
+	vcc, re    float64
+	rcMin      float64
+	rcMax      float64
+	a, aMax    float64 // R_TH + RE at the least and the largest R_TH
+	icLo       float64 // the typical point's IC is at least this
+	theta      float64 // K/W
+}
+
+// newBetaModel computes the bounds for junctions in [25 °C, th] (see
+// betaFloor); ok is false where they give nothing.
+func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMax, icLo float64) (betaModel, bool) {
+	m := dv.typ
+	bm := betaModel{m: m, b1: dv.lo.BF, bt: m.BF, b2: dv.hi.BF, br: m.BR, th: th,
+		vcc: e.s.vcc, re: reOhm, rcMin: rcMin, rcMax: rcMax, a: rth + reOhm, aMax: rthMax + reOhm, icLo: icLo, theta: dv.thetaJA}
+	bm.tLo_C = NominalAmbient_C - thermalSlack_K
+	bm.tLoK = bm.tLo_C + 273.15
+	bm.dT = th - bm.tLo_C
+	at := dv.at25
+	if at == (nominalDevice{}) {
+		at = newNominalDevice(m)
+	}
+	bm.f25 = at.factor
+	bm.fLo, bm.fHi = bm.f25, bm.factor(th)
+	if bm.fLo > bm.fHi {
+		bm.fLo, bm.fHi = bm.fHi, bm.fLo
+	}
+	bm.brLo = bm.br * bm.fLo
+	vtHi := solver.ThermalVoltage_V(th)
+	bm.nvt = m.NF * vtHi
+	bm.nvtLo = m.NF * solver.ThermalVoltage_V(bm.tLo_C)
+	bm.isHi, _, _, _ = m.At(th)
+	isLo := at.is
+	bm.cnOn = bm.isHi / solver.ConductingCurrent_A
+	bm.vceFloor = dv.vceSat + e.s.lim.VCEMargin_V
+	// c ≤ e^(VBC/VT)/(e^(VBE/VT) − 1) with VBC = VBE − VCE ≤ VBE − floor
+	// and 1/(1 − e^(−VBE/VT)) = 1 + IS/Ibe ≤ 1 + cnOn.
+	bm.cp = math.Exp(-bm.vceFloor/vtHi) * (1 + bm.cnOn)
+	if bm.cp >= 1 {
+		return bm, false
+	}
+	// VBC ≤ VBE ≤ V_TH ≤ VCC gives a first q floor; VE = IE·RE ≤ VCC and
+	// IE ≥ Ibe·(1 − cp)·q then cap Ibe, and VBE at a fixed current is at
+	// most its 25 °C value times T/T(25 °C) (IS rises with T). VBC ≥ −VCC.
+	q0 := 1.0
+	bm.qMax = 1
+	if m.VAF_V > 0 {
+		q0, bm.qMax = 1-bm.vcc/m.VAF_V, 1+bm.vcc/m.VAF_V
+	}
+	if q0 <= 0 {
+		return bm, false
+	}
+	ibeMax := bm.vcc / reOhm / ((1 - bm.cp) * q0)
+	vCapLo := m.NF * bm.nvtLo / m.NF * math.Log(ibeMax/isLo+1)
+	bm.vbeCap = vCapLo * (th + 273.15) / bm.tLoK
+	bm.qMin = 1
+	if m.VAF_V > 0 {
+		bm.qMin = 1 - math.Max(0, bm.vbeCap-bm.vceFloor)/m.VAF_V
+	}
+	bm.kMin = (1-bm.cp)*bm.qMin - bm.cp/bm.brLo
+	if bm.kMin <= 0 {
+		return bm, false
+	}
+	// ∂VBE/∂T = VBE/T − NF(EG + XTI·VT)/T·Ibe/(Ibe + IS), and VBE/T at a
+	// fixed current is largest at the coolest junction.
+	bm.kappa = math.Max(m.NF*(m.EG_eV+m.XTI*vtHi), vCapLo) / bm.tLoK
+	return bm, true
+}
+
+// newNominalDevice computes m's figures at betaModel's lowest junction
+// temperature.
+func newNominalDevice(m solver.Model) nominalDevice {
+	t := NominalAmbient_C - thermalSlack_K
+	is, _, _, _ := m.At(t)
+	return nominalDevice{is: is, factor: math.Pow((t+273.15)/(m.TNOM_C+273.15), m.XTB)}
+}
+
+// factor is BF's (and BR's) temperature factor (T/TNOM)^XTB.
+func (bm *betaModel) factor(t_C float64) float64 {
+	return math.Pow((t_C+273.15)/(bm.m.TNOM_C+273.15), bm.m.XTB)
+}
+
+// cnAt bounds IS/Ibe (−c when the collector junction is reverse biased:
+// Ibc ≥ −IS) at a point whose IC is at least icLo: Ibe ≥ IC/k and k ≤
+// (1 + cn)·qMax + cn/BR give cn = IS·qMax/(icLo − IS(qMax + 1/BR)).
+func (bm *betaModel) cnAt(icLo float64) float64 {
+	d := icLo - bm.isHi*(bm.qMax+1/bm.brLo)
+	if !(d > 0) {
+		return bm.cnOn
+	}
+	return math.Min(bm.cnOn, bm.isHi*bm.qMax/d)
+}
+
+// kMaxFor bounds IC/Ibe from above at a point whose IS/Ibe is at most cn.
+func (bm *betaModel) kMaxFor(cn float64) float64 {
+	return (1+cn)*bm.qMax + cn/bm.brLo
+}
+
+// betaMin bounds IC/IB from below at any point whose BF at TNOM is b.
+func (bm *betaModel) betaMin(b float64) float64 {
+	return b * bm.fLo * bm.kMin / (1 + bm.cp*b/bm.br)
+}
+
+// betaMax bounds IC/IB from above at a point whose BF at TNOM is b and
+// IS/Ibe at most cn (+Inf when the bound gives nothing).
+func (bm *betaModel) betaMax(b, cn float64) float64 {
+	d := 1 - cn*b/bm.br
+	if !(d > 0) {
+		return math.Inf(1)
+	}
+	return b * bm.fHi * bm.kMaxFor(cn) / d
+}
+
+// gRatio bounds g(β_B)/g(β_A) from below over every R_TH in the range,
+// for points whose hFE at TNOM are bA and bB, φ_B in [phiBMin, phiBMax]
+// and φ_A/φ_B at least rho: with w = (R_TH + RE)/φ_B the ratio is at
+// least h(w) = (w/bB + RE)/(w/(bA·rho) + RE), monotonic in w, so at least
+// the smaller of h at the two ends of w's range.
+func (bm *betaModel) gRatio(bA, bB, phiBMin, phiBMax, rho float64) float64 {
+	h := func(w float64) float64 { return (w/bB + bm.re) / (w/(bA*rho) + bm.re) }
+	hi := bA * rho / bB // the limit of h
+	if wHi := bm.aMax / phiBMin; !math.IsInf(wHi, 1) {
+		hi = h(wHi)
+	}
+	return math.Min(h(bm.a/phiBMax), hi)
+}
+
+// vbeRise bounds VBE_A − VBE_B from above for two points at one junction
+// temperature whose base-emitter currents have Ibe_A/Ibe_B ≤ u, IS/Ibe_A
+// ≤ cnA: NF·VT(T)·ln((Ibe_A + IS)/(Ibe_B + IS)) ≤ NF·VT(T)·(ln u + cnA),
+// taken with the largest VT when positive and the least when not. slope is
+// its derivative with respect to ln u.
+func (bm *betaModel) vbeRise(u, cnA float64) (rise, slope float64) {
+	l := math.Log(u) + cnA
+	if l >= 0 {
+		return bm.nvt * l, bm.nvt
+	}
+	return bm.nvtLo * l, bm.nvtLo
+}
+
+// lowRatio bounds IC_A/IC (the typical point pt) from below for the point
+// whose hFE at TNOM is b and IS/Ibe at most cnA, given k_t/k_A ≤ qk,
+// |T_A − T_t| ≤ dT and φ_A/φ_t ≥ rho: the least fixed point of y =
+// H(1 − (vbeRise(y·qk) + κ·dT)/A).
+func (bm *betaModel) lowRatio(b, cnA, qk, dT, rho float64, pt betaPoint) float64 {
+	h := bm.gRatio(b, bm.bt, bm.betaMin(bm.bt)/bm.bt, pt.phiMax, rho)
+	// V_TH − VBE at the typical point is IC·g(βt): between aLo and aHi.
+	aLo := bm.icLo * (bm.a/(bm.bt*pt.phiMax) + bm.re)
+	aHi := pt.icUp * (bm.aMax/bm.betaMin(bm.bt) + bm.re)
+	return leastFixedPoint(func(y float64) (float64, float64) {
+		rise, slope := bm.vbeRise(y*qk, cnA)
+		return bm.headroom(h, rise+bm.kappa*dT, slope, y, aLo, aHi)
+	}, h)
+}
+
+// headroom is h·(1 − n/A) and its derivative in x, for a rise n ≥ or < 0
+// of VBE over A = V_TH − VBE ∈ [aLo, aHi] (so taken with aLo when n ≥ 0
+// and aHi when not, which keeps it a lower bound), where n rises with ln x
+// at the rate slope.
+func (bm *betaModel) headroom(h, n, slope, x, aLo, aHi float64) (float64, float64) {
+	a := aLo
+	if n < 0 {
+		a = aHi
+	}
+	return h * (1 - n/a), -h * slope / (a * x)
+}
+
+// upRatio bounds IC_A/IC (the typical point pt) from above for the point
+// whose hFE at TNOM is b and IS/Ibe at most cnA: g(βt)/g(β_A) is at most
+// its bound with βt,min and β_A,max at either end of R_TH's range, and
+// once IC_A ≥ IC, VBEt − VBE_A ≤ vbeRise(k_A,max/k_min) + κ·ΔT.
+func (bm *betaModel) upRatio(b, cnA float64, pt betaPoint) float64 {
+	btMin, bMax := bm.betaMin(bm.bt), bm.betaMax(b, cnA)
+	if math.IsInf(bMax, 1) {
+		return math.Inf(1)
+	}
+	h := func(a float64) float64 { return (a/btMin + bm.re) / (a/bMax + bm.re) }
+	hr := math.Max(h(bm.a), bMax/btMin)
+	if !math.IsInf(bm.aMax, 1) {
+		hr = math.Max(h(bm.a), h(bm.aMax))
+	}
+	aT := bm.icLo * (bm.a/(bm.bt*pt.phiMax) + bm.re)
+	rise, _ := bm.vbeRise(bm.kMaxFor(cnA)/bm.kMin, pt.cn)
+	spread := math.Max(0, rise) + bm.kappa*bm.dT
+	return math.Max(1, hr*(1+spread/aT))
+}
+
+// leastFixedPoint returns a lower bound on the fixed point v* = f(v*) of
+// a nonincreasing f on (0, ∞): a quantity known to satisfy v ≥ f(v) is at
+// least v*, since f(v) > v for every v < v*, so any x with f(x) ≥ x is
+// such a bound. Newton's method on f(x) − x (fdf returns f and its
+// derivative) from guess finds v*; the largest iterate that passes the
+// test is returned, with bisection as the fallback. It returns 0 when v*
+// is not positive.
+func leastFixedPoint(fdf func(float64) (float64, float64), guess float64) float64 {
+	f := func(x float64) float64 { v, _ := fdf(x); return v }
+	best := 0.0
+	x := math.Max(guess, 1e-12)
+	for range 12 {
+		fx, dfx := fdf(x)
+		if fx >= x {
+			best = math.Max(best, x)
+		}
+		d := dfx - 1
+		if !(d < 0) || math.IsInf(d, 0) {
+			break
+		}
+		next := x - (fx-x)/d
+		if !(next > 0) {
+			next = 0.5 * x
+		}
+		if math.Abs(next-x) <= 1e-8*x {
+			if f(next) >= next {
+				best = math.Max(best, next)
+			}
+			break
+		}
+		x = next
+	}
+	if best > 0 {
+		return best
+	}
+	hi := math.Max(guess, 1e-12)
+	for i := 0; f(hi) > hi; i++ {
+		if i == 200 {
+			return 0
+		}
+		hi *= 2
+	}
+	lo := 0.0
+	for range 100 {
+		mid := 0.5 * (lo + hi)
+		if f(mid) >= mid {
+			lo = mid
+		} else {
+			hi = mid
+		}
+		if hi-lo <= 1e-7*hi {
+			break
+		}
+	}
+	return lo
+}
+
+// betaPoint is what is known of one point: its hFE at TNOM, its IC range
+// and what follows from it.
+type betaPoint struct {
+	b          float64
+	cn         float64 // IS/Ibe at most this
+	icLo, icUp float64
+	ibUp       float64 // IB ≤ IC/β_min
+	pUp        float64 // device power, W
+	fHi        float64 // the XTB factor at the hottest this point can be
+	phiMax     float64 // φ = β/b at most this
+}
+
+// point bounds a point of hFE b and IS/Ibe at most cn whose IC lies in
+// [icLo, icUp]: power VCE·IC + VBE·IB ≤ min(VCC·IC, VCC²/(4(RC + RE))) +
+// VBEcap·IB (VC ≤ VCC, IE ≥ IC) with IB ≤ min(IC/β_min, VCC/(R_TH +
+// RE)), the junction at most 25 °C + θ·P, q at most 1 + (VCC −
+// IC·RE)/VAF.
+func (bm *betaModel) point(b, cn, icLo, icUp float64) betaPoint {
+	p := betaPoint{b: b, cn: cn, icLo: icLo, icUp: icUp}
+	p.ibUp = math.Min(icUp/bm.betaMin(b), bm.vcc/bm.a)
+	p.pUp = math.Min(bm.vcc*icUp, bm.vcc*bm.vcc/(4*(bm.rcMin+bm.re))) + bm.vbeCap*p.ibUp
+	tHi := math.Min(bm.th, NominalAmbient_C+bm.theta*p.pUp+thermalSlack_K)
+	p.fHi = math.Max(bm.f25, bm.factor(tHi))
+	return bm.withLow(p, icLo)
+}
+
+// withLow is p with the lower end of its IC range raised to icLo (the
+// power, and so the temperature, bounds stay).
+func (bm *betaModel) withLow(p betaPoint, icLo float64) betaPoint {
+	p.icLo = icLo
+	q := 1.0
+	if bm.m.VAF_V > 0 {
+		q = 1 + math.Max(0, bm.vcc-icLo*bm.re)/bm.m.VAF_V
+	}
+	p.phiMax = math.Inf(1)
+	if d := 1 - p.cn*p.b/bm.br; d > 0 {
+		p.phiMax = p.fHi * ((1+p.cn)*q + p.cn/bm.brLo) / d
+	}
+	return p
+}
+
+// ratio bounds what points A and B share: rho ≤ φ_A/φ_B, qk ≥ k_B/k_A
+// and dT ≥ |T_A − T_B|.
+//
+//   - |P_A − P_B| ≤ VCC·|ΔIC| + (IB_A + IB_B)·max(VBEcap, VCC): P =
+//     IC·VCC − IC²(RC + RE) − IC·IB·RE + VBE·IB and the first part has a
+//     slope within ±VCC while VCE ≥ 0; so |T_A − T_B| ≤ θ|ΔP| + 2·slack,
+//     and the XTB factors differ by at most (1 − ΔT/T)^|XTB|;
+//   - q_A/q_B = 1 − (VCE_B − VCE_A + VBE_A − VBE_B)/(VAF + VCE_B − VBE_B),
+//     with VCE_B − VCE_A = (IC_A − IC_B)(RC + RE) + (IB_A − IB_B)·RE and
+//     VBE_A − VBE_B ≤ vbeRise(Ibe_A/Ibe_B) + κ·ΔT;
+//   - the c parts of k and of 1 + c·b/BR within their extremes.
+func (bm *betaModel) ratio(pa, pb betaPoint) (rho, qk, dT float64) {
+	dIC := math.Max(0, math.Max(pa.icUp-pb.icLo, pb.icUp-pa.icLo))
+	dT = math.Min(bm.dT, bm.theta*(bm.vcc*dIC+(pa.ibUp+pb.ibUp)*math.Max(bm.vbeCap, bm.vcc))+2*thermalSlack_K)
+	fRatio := math.Pow(math.Max(0, 1-dT/bm.tLoK), math.Abs(bm.m.XTB))
+	qRatio := 1.0
+	if vaf := bm.m.VAF_V; vaf > 0 {
+		n := pa.ibUp * bm.re
+		if up := pa.icUp - pb.icLo; up > 0 {
+			n += up * (bm.rcMax + bm.re)
+		}
+		rise, _ := bm.vbeRise(pa.icUp/pb.icLo*bm.kMaxFor(pb.cn)/bm.kMin, pa.cn)
+		n += math.Max(0, rise) + bm.kappa*dT
+		den := vaf + bm.vceFloor - bm.vbeCap
+		if !(den > 0) || !(n < den) {
+			return 0, math.Inf(1), dT
+		}
+		qRatio = 1 - n/den
+	}
+	// k_A/k_B ≥ qRatio·kc with the c parts at their extremes.
+	kc := ((1 - bm.cp) - bm.cp/(bm.brLo*bm.qMin)) / ((1 + pb.cn) + pb.cn/(bm.brLo*bm.qMin))
+	cRatio := (1 - pb.cn*pb.b/bm.br) / (1 + bm.cp*pa.b/bm.br)
+	rho = fRatio * qRatio * kc * cRatio
+	qk = 1 / (qRatio * kc)
+	return rho, qk, dT
+}
