@@ -22,7 +22,7 @@ import (
 type Options struct {
 	IO *cmdutil.IOStreams
 	// Store opens the stock, an existing file only (the factory's lazy
-	// StoreForReading outside tests); it is called only when --transistor
+	// ExistingStore outside tests); it is called only when --transistor
 	// names a stock line.
 	Store func(context.Context) (*store.DB, error)
 	// Changed reports whether a flag was given on the command line.
@@ -87,7 +87,7 @@ func New(f *cmdutil.Factory) *cobra.Command { return newCmd(f, nil) }
 // newCmd builds the command; runF, when not nil, replaces Run so flag
 // tests can inspect the parsed options.
 func newCmd(f *cmdutil.Factory, runF func(*Options) error) *cobra.Command {
-	o := &Options{IO: f.IO, Store: f.StoreForReading}
+	o := &Options{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
 		Use:   "check --vcc V --r1 R ... (--transistor LABEL | --hfe MIN..MAX) [flags]",
 		Short: "Analyse one bias build: Q-point, worst case, yield, dissipation, swing",

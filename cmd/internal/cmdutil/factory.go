@@ -68,12 +68,13 @@ func (f *Factory) Store(ctx context.Context) (*store.DB, error) {
 	})
 }
 
-// StoreForReading opens the stock database for a command that only reads
-// it: the file must be there already. A missing file is a
+// ExistingStore opens the stock database for a command that only reads
+// it or that changes parts already stocked (adjust, remove, tag): the file
+// must be there already. A missing file is a
 // *NoStockFileError naming the path, and nothing is created (no file,
 // folder, -wal or -shm), so a mistyped --db never reads as an empty stock.
 // Another process may write the stock meanwhile.
-func (f *Factory) StoreForReading(ctx context.Context) (*store.DB, error) {
+func (f *Factory) ExistingStore(ctx context.Context) (*store.DB, error) {
 	return f.open(ctx, func(ctx context.Context, path string) (*store.DB, error) {
 		db, err := store.OpenExisting(ctx, path)
 		if errors.Is(err, store.ErrNoFile) {
@@ -101,7 +102,7 @@ func (f *Factory) open(ctx context.Context, openPath func(context.Context, strin
 	return db, nil
 }
 
-// NoStockFileError means a command that only reads the stock found no
+// NoStockFileError means a command that needs an existing stock found no
 // stock file; errors.Is(err, store.ErrNoFile) holds.
 type NoStockFileError struct {
 	// Path is the stock file looked for.

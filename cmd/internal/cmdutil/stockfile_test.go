@@ -53,7 +53,7 @@ func leftIn(t *testing.T, dir string) []string {
 }
 
 // TestReadingCommandsCreateNoStockFile: every command that only reads the
-// stock, given a stock file that is not there (its folder there or not,
+// stock or changes parts already in it, given a stock file that is not there (its folder there or not,
 // named by --db or BIASBIN_DB), fails with an error that names the path
 // and what to do, and leaves nothing behind: no file, folder, -wal or -shm.
 func TestReadingCommandsCreateNoStockFile(t *testing.T) {
@@ -69,6 +69,11 @@ func TestReadingCommandsCreateNoStockFile(t *testing.T) {
 		{"stock verify", []string{"stock", "verify"}},
 		{"pick", []string{"pick", "--vcc", "12V", "--ic", "1mA"}},
 		{"check --transistor", checkArgs},
+		// These change parts already stocked, so they need the file too.
+		{"stock adjust", []string{"stock", "adjust", "1", "+5"}},
+		{"stock remove", []string{"stock", "remove", "1"}},
+		{"stock tag", []string{"stock", "tag", "1", "approved"}},
+		{"stock untag", []string{"stock", "untag", "1", "approved"}},
 	}
 	places := []struct {
 		name  string

@@ -14,7 +14,7 @@ import (
 type Options struct {
 	IO *cmdutil.IOStreams
 	// Store opens the stock, an existing file only (the factory's lazy
-	// StoreForReading outside tests).
+	// ExistingStore outside tests).
 	Store func(context.Context) (*store.DB, error)
 	// Pick runs the search (picker.Pick outside tests).
 	Pick func(picker.Stock, picker.Request) (picker.Result, error)

@@ -25,7 +25,7 @@ func New(f *cmdutil.Factory) *cobra.Command { return newCmd(f, nil) }
 // newCmd builds the command; runF, when not nil, replaces Run so flag
 // tests can inspect the parsed options.
 func newCmd(f *cmdutil.Factory, runF func(*Options) error) *cobra.Command {
-	o := &Options{IO: f.IO, Store: f.StoreForReading, Pick: picker.Pick, Now: time.Now}
+	o := &Options{IO: f.IO, Store: f.ExistingStore, Pick: picker.Pick, Now: time.Now}
 	cmd := &cobra.Command{
 		Use:   "pick --vcc V --ic I [flags]",
 		Short: "Find the best bias builds from the parts in stock",

@@ -32,7 +32,7 @@ var changeArg = regexp.MustCompile(`^[-+=][0-9]+$`)
 const shield = "\x00"
 
 func newAdjustCmd(f *cmdutil.Factory, runF func(*AdjustOptions) error) *cobra.Command {
-	o := &AdjustOptions{IO: f.IO, Store: f.Store}
+	o := &AdjustOptions{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
 		Use:   "adjust ID (+N|-N|=N)",
 		Short: "Change a line's quantity: +N put in, -N take out, =N counted",

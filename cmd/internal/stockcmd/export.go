@@ -24,7 +24,7 @@ type ExportOptions struct {
 }
 
 func newExportCmd(f *cmdutil.Factory, runF func(*ExportOptions) error) *cobra.Command {
-	o := &ExportOptions{IO: f.IO, Store: f.StoreForReading}
+	o := &ExportOptions{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
 		Use:   "export --kind resistor|transistor [FILE]",
 		Short: "Write one kind's stock as CSV in the import format",

@@ -31,7 +31,7 @@ type ImportOptions struct {
 }
 
 func newImportCmd(f *cmdutil.Factory, runF func(*ImportOptions) error) *cobra.Command {
-	o := &ImportOptions{IO: f.IO, Store: f.Store, ReadStore: f.StoreForReading}
+	o := &ImportOptions{IO: f.IO, Store: f.Store, ReadStore: f.ExistingStore}
 	cmd := &cobra.Command{
 		Use:   "import FILE.csv",
 		Short: "Load a CSV file of resistors or transistors, all or nothing",

@@ -26,7 +26,7 @@ type ListOptions struct {
 }
 
 func newListCmd(f *cmdutil.Factory, runF func(*ListOptions) error) *cobra.Command {
-	o := &ListOptions{IO: f.IO, Store: f.StoreForReading}
+	o := &ListOptions{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
 		Use:   "list",
 		Short: "List the stock, resistors by value then transistors by label",

@@ -17,7 +17,7 @@ type RemoveOptions struct {
 }
 
 func newRemoveCmd(f *cmdutil.Factory, runF func(*RemoveOptions) error) *cobra.Command {
-	o := &RemoveOptions{IO: f.IO, Store: f.Store}
+	o := &RemoveOptions{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
 		Use:     "remove ID",
 		Short:   "Delete a stock line and its tags",

@@ -17,8 +17,8 @@ import (
 )
 
 // StoreFunc opens the stock database: cmdutil.Factory.Store (creating the
-// file on first use) for the commands that write, Factory.StoreForReading
-// (an existing file only) for list, export and verify.
+// file on first use) for add and import, Factory.ExistingStore (an
+// existing file only) for the commands that read or change stocked parts.
 type StoreFunc func(ctx context.Context) (*store.DB, error)
 
 // New returns the stock command with its subcommands.

@@ -22,7 +22,7 @@ type TagOptions struct {
 }
 
 func newTagCmd(f *cmdutil.Factory, add bool, runF func(*TagOptions) error) *cobra.Command {
-	o := &TagOptions{IO: f.IO, Store: f.Store, Add: add}
+	o := &TagOptions{IO: f.IO, Store: f.ExistingStore, Add: add}
 	use, short := "tag ID TAG...", "Attach tags (approved, rohs, reel ...) to a stock line"
 	if !add {
 		use, short = "untag ID TAG...", "Take tags off a stock line"

@@ -17,7 +17,7 @@ type VerifyOptions struct {
 }
 
 func newVerifyCmd(f *cmdutil.Factory, runF func(*VerifyOptions) error) *cobra.Command {
-	o := &VerifyOptions{IO: f.IO, Store: f.StoreForReading}
+	o := &VerifyOptions{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
 		Use:   "verify",
 		Short: "Check the stock file: SQLite integrity and the stock's own rules",
