@@ -76,7 +76,10 @@ func solveSelfHeated(s Stage, m *Model, dAmb *device, ambient_C, thetaJA_KPerW, 
 // heating is the power that heats the junction: PTransistor_W, or 0 when
 // that is negative (possible only in saturation with a large ICBO, where
 // the constant leakage source of the model delivers power).
-func heating(op OperatingPoint) float64 { return max(0, op.PTransistor_W) }
+func heating(op OperatingPoint) float64 { return heatingOf(op.PTransistor_W) }
+
+// heatingOf is heating for a transistor dissipation p.
+func heatingOf(p float64) float64 { return max(0, p) }
 
 type thermalProblem struct {
 	s     Stage
@@ -132,7 +135,7 @@ func (th *thermalProblem) g(tj float64) (float64, error) {
 	if err != nil {
 		return 0, fmt.Errorf("self-heated solve at Tj %.3g °C: %w", tj, err)
 	}
-	return th.ta + th.theta*max(0, th.p) - tj, nil
+	return th.ta + th.theta*heatingOf(th.p) - tj, nil
 }
 
 // extrapolate moves the warm-start guess of each forward-biased junction
@@ -152,7 +155,7 @@ func (th *thermalProblem) extrapolate(tj float64) {
 
 // equilibrium searches the heat balance from the solve at the ambient.
 func (th *thermalProblem) equilibrium(tjMax float64) (OperatingPoint, error) {
-	tPrev, gPrev := th.ta, th.theta*max(0, th.p)
+	tPrev, gPrev := th.ta, th.theta*heatingOf(th.p)
 	if gPrev <= thermalTol_K {
 		return th.point() // no (or negligible) dissipation
 	}
