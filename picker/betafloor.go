@@ -56,8 +56,8 @@ type betaWindow struct {
 //     A1 = IC1,min·g(β1,max);
 //   - the term is X·y and also X/(1 + X)·z; the larger bound is returned.
 //
-// The bound rises with R_TH and is checked against the exact beta term of
-// random builds by TestBoundsHoldOnRandomBuilds.
+// TestBoundsHoldOnRandomBuilds checks it against the exact beta term of
+// random builds.
 func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	m := dv.typ
 	rth, rthMax, reOhm, rcMin, rcMax, icLo, icHi := w.RTH, w.RTHMax, w.RE, w.RCMin, w.RCMax, w.ICLo, w.ICHi
@@ -73,11 +73,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	th := NominalAmbient_C + thermalSlack_K // no self-heating
 	if dv.thetaJA > 0 {
 		th = dv.tjMax_C + thermalSlack_K
-		vbeCap := vcc
-		if bm, ok := e.newBetaModel(dv, th, reOhm, rth, rthMax, rcMin, rcMax, icLo); ok {
-			vbeCap = math.Min(vcc, bm.vbeCap)
-		}
-		p0 := vcc*vcc/(4*(rcMin+reOhm)) + vbeCap*vcc/(rth+reOhm)
+		p0 := vcc*vcc/(4*(rcMin+reOhm)) + e.hotVBECap(dv, reOhm)*vcc/(rth+reOhm)
 		th = math.Min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*p0) + thermalSlack_K
 	}
 	var bm betaModel
@@ -195,7 +191,9 @@ func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMa
 		at = newNominalDevice(m)
 	}
 	bm.f25 = at.factor
-	bm.fLo, bm.fHi = bm.f25, bm.factor(th)
+	isHi, bfHi, _, _ := m.At(th)
+	bm.isHi = isHi
+	bm.fLo, bm.fHi = bm.f25, bfHi/m.BF // the solver's own factor at th
 	if bm.fLo > bm.fHi {
 		bm.fLo, bm.fHi = bm.fHi, bm.fLo
 	}
@@ -203,7 +201,6 @@ func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMa
 	vtHi := solver.ThermalVoltage_V(th)
 	bm.nvt = m.NF * vtHi
 	bm.nvtLo = m.NF * solver.ThermalVoltage_V(bm.tLo_C)
-	bm.isHi, _, _, _ = m.At(th)
 	isLo := at.is
 	bm.cnOn = bm.isHi / solver.ConductingCurrent_A
 	bm.vceFloor = dv.vceSat + e.s.lim.VCEMargin_V
@@ -247,6 +244,31 @@ func newNominalDevice(m solver.Model) nominalDevice {
 	t := NominalAmbient_C - thermalSlack_K
 	is, _, _, _ := m.At(t)
 	return nominalDevice{is: is, factor: math.Pow((t+273.15)/(m.TNOM_C+273.15), m.XTB)}
+}
+
+// hotVBECap is newBetaModel's VBE bound for junctions up to Tj max with
+// this RE (at most VCC), without the rest of the model.
+func (e *evaluator) hotVBECap(dv *device, reOhm float64) float64 {
+	vcc := e.s.vcc
+	m := dv.typ
+	at := dv.at25
+	if at == (nominalDevice{}) {
+		at = newNominalDevice(m)
+	}
+	th := dv.tjMax_C + thermalSlack_K
+	isHot, _, _, _ := m.At(th)
+	cp := math.Exp(-(dv.vceSat+e.s.lim.VCEMargin_V)/solver.ThermalVoltage_V(th)) * (1 + isHot/solver.ConductingCurrent_A)
+	q0 := 1.0
+	if m.VAF_V > 0 {
+		q0 = 1 - vcc/m.VAF_V
+	}
+	if cp >= 1 || q0 <= 0 {
+		return vcc
+	}
+	ibeMax := vcc / reOhm / ((1 - cp) * q0)
+	tLo := NominalAmbient_C - thermalSlack_K
+	vCapLo := m.NF * solver.ThermalVoltage_V(tLo) * math.Log(ibeMax/at.is+1)
+	return math.Min(vcc, vCapLo*(th+273.15)/(tLo+273.15))
 }
 
 // factor is BF's (and BR's) temperature factor (T/TNOM)^XTB.

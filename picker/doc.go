@@ -149,14 +149,17 @@
 //     are forward-active with VCE above VCE(sat) + margin, which the
 //     corner argument gives when the ambient range holds 25 °C (otherwise
 //     the bound is not used). TestBoundsHoldOnRandomBuilds checks it
-//     against the exact beta term of random builds. For a window of R_TH
-//     ≥ rthFloor(R2) with no upper end it holds at every larger R2 too
-//     and, with the utilization floor of RE (every build carries RE), stops
-//     the R2 run; with R_TH ≤ R2 and the divider floor it skips one R2.
-//     What is left of the threshold after these floors bounds the QPoint
-//     term, so the IC window of that R2 narrows to ±(T − floors)/w_QPoint;
-//     at each R1 the floors are taken again with the exact R_TH and R1's
-//     own dissipation.
+//     against the exact beta term of random builds. It is taken over a
+//     window of R_TH: at one R2, R_TH between rthFloor(R2) and R2; with
+//     the utilization floor of RE (every build carries RE) and the emitter
+//     floor it skips that R2, and once one R2 is skipped the next levels
+//     are tried in blocks that double while they fall (R_TH between
+//     rthFloor of the block's first R2 and its last R2). With the divider
+//     floor it skips one R2. What is left of the threshold after these
+//     floors bounds the QPoint term, so the IC window of that R2 narrows
+//     to ±(T − floors)/w_QPoint; at the R1 level the beta floor is taken
+//     again per block of eight R1 values (R_TH between the block's ends)
+//     with R1's own dissipation.
 //   - R1 range: by L1 and L2 the IC of any build at (R1, R2, RE) is at most
 //     IC at the bottom of the RC band and, for builds active at their nominal point, at least
 //     IC at the largest band RC that is still active; R1 outside the range

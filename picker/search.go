@@ -446,11 +446,31 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			return w.Utilization*e.dividerPowerBoundWeak(i, vbLo, vbHi) <= bd.thr
 		})
 	}
+	// skip is how many R2 levels the next block floor tries to settle at
+	// once: it doubles while blocks fall and drops to 1 when one does not.
+	skip := 1
 	for r2 := start; r2 < n; r2++ {
 		bd := e.boundsNow(p)
 		rcLo, rcHi := e.rcBand(bd, reOhm, kE, vceLo, vceHi)
 		if rcLo > rcHi {
 			break // the band only narrows as the threshold falls
+		}
+		if skip > 1 && bd.finite && w.Beta > 0 {
+			// Bound B over the block [r2, r2 + skip): R_TH between
+			// rthFloor of its first R2 (rthFloor rises with R2) and its
+			// last R2; with RE's utilization and the emitter floor.
+			last := min(r2+skip-1, n-1)
+			vbHi := vbeHi + bd.icHi*kE*reOhm
+			win := betaWindow{RTH: e.rthFloor(e.vs.levels[r2].ohm, vbHi, bd.icHi/dv.betaNomMin), RTHMax: e.vs.levels[last].ohm,
+				RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
+			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+			eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+			if w.Beta*e.betaFloor(dv, win)+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
+				r2 = last
+				skip *= 2
+				continue
+			}
+			skip = 1
 		}
 		if rcLo != lastRcLo {
 			// upSeen holds IC at the band's bottom RC: only valid for it
@@ -471,17 +491,14 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// B (betaFloor): every build here carries RE, so its
 			// utilization is at least RE's, icLo²·RE over RE's best
 			// allowance, and at least the divider bound; its beta term
-			// is at least the floor at the smallest R_TH this R2 allows.
-			// The floor rises with R2, so once it and RE's utilization
-			// alone are over the threshold every larger R2 is out too.
+			// is at least the floor over the R_TH this R2 allows. Once it,
+			// RE's utilization and the emitter floor are over the
+			// threshold the next R2 levels are tried in growing blocks.
 			vbHi := vbeHi + bd.icHi*kE*reOhm
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
 			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-			// bOn holds for every build at this R2 or a larger one
-			// (R_TH ≥ rthFloor(R2), which rises with R2; R_TH at most the
-			// largest value; the RC band and IC window only narrow), bLo
-			// for this R2 alone (R_TH ≤ R2).
-			// bOn is taken only where bLo already settles this R2.
+			// bLo holds for every build at this R2 (R_TH between
+			// rthFloor(R2) and R2).
 			bLo = 0
 			win := betaWindow{RTH: e.rthFloor(e.vs.levels[r2].ohm, vbHi, bd.icHi/dv.betaNomMin), RTHMax: e.vs.levels[r2].ohm,
 				RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
@@ -492,10 +509,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// whatever R1, R2 and RC are.
 			eLo = math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
 			if w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
-				win.RTHMax = e.vs.levels[n-1].ohm
-				if w.Beta*e.betaFloor(dv, win)+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
-					break
-				}
+				skip = 2 // try the next levels in blocks
 				continue
 			}
 			uBase = math.Max(uRE, uDiv)
@@ -554,17 +568,24 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			}
 			guessLo, guessHi = r1Lo, r1Hi+1
 		}
+		// The beta floor is taken per block of r1Block R1 levels, with
+		// R_TH = R1‖R2 between its values at the block's ends (it rises
+		// with R1): a floor per level would cost more than the solves it
+		// saves.
+		bR1, blockEnd := 0.0, -1
+		rthAt := func(r1 int) float64 {
+			r1Ohm, r2Ohm := e.vs.levels[r1].ohm, e.vs.levels[r2].ohm
+			return r1Ohm * r2Ohm / (r1Ohm + r2Ohm)
+		}
 		for r1 := r1Lo; r1 <= r1Hi; r1++ {
 			b1 := base
 			if bd.finite {
-				// At a known R1 the beta floor takes the exact R_TH and R1
-				// dissipates (VCC − VB)²/R1 ≥ (VCC − vbHi)²/R1.
-				r1Ohm, r2Ohm := e.vs.levels[r1].ohm, e.vs.levels[r2].ohm
+				// R1 dissipates (VCC − VB)²/R1 ≥ (VCC − vbHi)²/R1.
+				r1Ohm := e.vs.levels[r1].ohm
 				vbHi := vbeHi + bd.icHi*kE*reOhm
-				bR1 := 0.0
-				if w.Beta > 0 {
-					rth := r1Ohm * r2Ohm / (r1Ohm + r2Ohm)
-					bR1 = e.betaFloor(dv, betaWindow{RTH: rth, RTHMax: rth, RE: reOhm,
+				if w.Beta > 0 && r1 > blockEnd {
+					blockEnd = min(r1+r1Block-1, r1Hi)
+					bR1 = e.betaFloor(dv, betaWindow{RTH: rthAt(r1), RTHMax: rthAt(blockEnd), RE: reOhm,
 						RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi})
 				}
 				uR1 := 0.0
@@ -577,6 +598,9 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 		}
 	}
 }
+
+// r1Block is how many R1 levels share one beta floor in searchRE.
+const r1Block = 8
 
 // icFloor is the lower envelope of the nominal IC over the builds at
 // (R1, R2, RE) with RC in [rcLo, rcHi] that are active at their nominal
