@@ -26,7 +26,7 @@ func TestTransistorByLabel(t *testing.T) {
 		{"mixed case and spaces", []line{{"qn-230", "A"}}, "  Qn-230 ", 0, nil, nil},
 		{"one spelling in two bins: lowest ID", []line{{"QN-230", "B"}, {"QN-230", "A"}}, "qn-230", 0, nil, nil},
 		{"two spellings", []line{{"QN-230", "A"}, {"QP-12", "A"}, {"qn-230", "B"}}, "qn-230", -1, []int{0, 2}, ErrAmbiguousLabel},
-		{"two spellings, exact asked", []line{{"QN-230", "A"}, {"Qn-230", "A"}}, "QN-230", -1, []int{0, 1}, ErrAmbiguousLabel},
+		{"two spellings, exact asked", []line{{"QN-230", "A"}, {"Qn-230", "C"}}, "QN-230", -1, []int{0, 1}, ErrAmbiguousLabel},
 		{"no ASCII fold beyond case", []line{{"QN-230", "A"}}, "QN_230", -1, nil, ErrNotFound},
 		{"not stocked", []line{{"QN-230", "A"}}, "QN-23", -1, nil, ErrNotFound},
 	} {
@@ -76,5 +76,46 @@ func TestTransistorByLabel(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestAddJoinsOtherLetterCase: a transistor added (or imported) under a
+// label that differs from a stocked line in the same bin only by letter
+// case is the same part: its quantity joins that line, under the stocked
+// spelling; in another bin it is a line of its own.
+func TestAddJoinsOtherLetterCase(t *testing.T) {
+	db, _ := openTemp(t)
+	ctx := context.Background()
+	first := bc547(5, "A")
+	first.Label = "QN-230"
+	res, err := db.AddTransistor(ctx, first)
+	if err != nil {
+		t.Fatal(err)
+	}
+	same := bc547(3, "A")
+	same.Label = "qn-230"
+	again, err := db.AddTransistor(ctx, same)
+	if err != nil || !again.Merged || again.ID != res.ID {
+		t.Fatalf("add qn-230 to bin A: %+v %v, want it merged into line %d", again, err, res.ID)
+	}
+	other := bc547(2, "B")
+	other.Label = "Qn-230"
+	elsewhere, err := db.AddTransistor(ctx, other)
+	if err != nil || elsewhere.Merged {
+		t.Fatalf("add Qn-230 to bin B: %+v %v, want a new line", elsewhere, err)
+	}
+	lines, err := db.ListTransistors(ctx, Filter{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := map[string]string{}
+	for _, l := range lines {
+		got[l.Bin] = fmt.Sprintf("%s %d", l.Label, l.Qty)
+	}
+	if got["A"] != "QN-230 8" || got["B"] != "Qn-230 2" || len(lines) != 2 {
+		t.Fatalf("stock %v, want A: QN-230 8 and B: Qn-230 2", got)
+	}
+	if problems, err := db.Verify(ctx); err != nil || len(problems) > 0 {
+		t.Fatalf("verify: %v %v", problems, err)
 	}
 }

@@ -14,6 +14,7 @@ import (
 type putter struct {
 	tx                        *sqlx.Tx
 	find, insPart, insR, insT *sqlx.Stmt
+	spelling                  *sqlx.Stmt
 	addQty, setQty            *sqlx.Stmt
 	updR, updT                *sqlx.Stmt
 	insTag, delTags           *sqlx.Stmt
@@ -26,6 +27,8 @@ func newPutter(ctx context.Context, tx *sqlx.Tx) (*putter, error) {
 		sql string
 	}{
 		{&p.find, `SELECT id FROM parts WHERE kind = ? AND ident = ? AND bin = ?`},
+		{&p.spelling, `SELECT ident FROM parts WHERE kind = ? AND bin = ? AND ident = ? COLLATE NOCASE
+			ORDER BY id LIMIT 1`},
 		{&p.insPart, `INSERT INTO parts (kind, ident, qty, bin, note) VALUES (?, ?, ?, ?, ?)`},
 		{&p.insR, `INSERT INTO resistors (part_id, ohm, tol, rated_w, knee_c, max_c, tcr_ppm_per_k, tech)
 			VALUES (?, ?, ?, ?, ?, ?, ?, ?)`},
@@ -54,7 +57,7 @@ func newPutter(ctx context.Context, tx *sqlx.Tx) (*putter, error) {
 }
 
 func (p *putter) close() {
-	for _, s := range []*sqlx.Stmt{p.find, p.insPart, p.insR, p.insT, p.addQty, p.setQty, p.updR, p.updT, p.insTag, p.delTags} {
+	for _, s := range []*sqlx.Stmt{p.find, p.spelling, p.insPart, p.insR, p.insT, p.addQty, p.setQty, p.updR, p.updT, p.insTag, p.delTags} {
 		if s != nil {
 			s.Close()
 		}
@@ -128,8 +131,18 @@ func (p *putter) putResistor(ctx context.Context, r Resistor, replace bool) (int
 	return id, merged, domainError(err)
 }
 
+// putTransistor stocks t. A line in the same bin whose label differs only
+// in letter case is the same part: t joins it under the stocked spelling.
 func (p *putter) putTransistor(ctx context.Context, t Transistor, replace bool) (int64, bool, error) {
-	id, merged, err := p.putLine(ctx, line{KindTransistor, t.ident(), t.Qty, t.Bin, t.Note, t.Tags}, replace)
+	ident := t.ident()
+	var stocked string
+	switch err := p.spelling.GetContext(ctx, &stocked, string(KindTransistor), t.Bin, ident); {
+	case err == nil:
+		ident = stocked
+	case !errors.Is(err, sql.ErrNoRows):
+		return 0, false, err
+	}
+	id, merged, err := p.putLine(ctx, line{KindTransistor, ident, t.Qty, t.Bin, t.Note, t.Tags}, replace)
 	if err != nil {
 		return 0, false, err
 	}

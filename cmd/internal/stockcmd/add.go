@@ -119,7 +119,7 @@ func newAddTransistorCmd(f *cmdutil.Factory, runF func(*AddOptions) error) *cobr
 	var hfe string
 	cmd := &cobra.Command{
 		Use:   "transistor LABEL --polarity npn|pnp --hfe MIN..MAX",
-		Short: "Add transistors (merged into the same label in the same bin)",
+		Short: "Add transistors (merged into the same label, in any letter case, in the same bin)",
 		Long: `Add bipolar transistors of one type. --hfe takes the datasheet window,
 optionally at its test current: 110..800 or 110..800@2mA. VBE(on) defaults
 to 0.65 V at 1 mA and Tj max to 150 °C (common practice). Voltages are

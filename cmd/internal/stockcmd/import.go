@@ -47,8 +47,9 @@ bin,tags,note optional. Tags are separated by ';'.
 
 Values may be in any notation (4K7, 4.7k, 1%, J, 250mW, 1/4W, 2mA ...).
 A part already stocked (same value, tolerance, power, technology and bin;
-or same label and bin) has the file's quantity added to it; --replace sets
-it instead. FILE "-" reads standard input.
+or same label in any letter case and bin) has the file's quantity added to
+it, under the stocked spelling; --replace sets it instead. FILE "-" reads
+standard input.
 
 --dry-run writes nothing. When there is no stock file yet it checks the
 rows against an empty stock and does not create the file either.`,
