@@ -19,16 +19,13 @@ type betaWindow struct {
 // betaFloor is a lower bound on the beta term (IC2 − IC1)/IC of every
 // passing build of dv in the window w (doc.go, bound B).
 // IC1, IC2 and IC are the self-heated nominal points (25 °C ambient,
-// marked values) at hFE min, max and typical. It is 0 where its premise or
-// model does not hold: a leakage current in the model, NF ≠ 1, no RE, or
-// an ambient range that leaves out 25 °C.
+// marked values) at hFE min, max and typical. It is 0 where its model does
+// not hold: a leakage current in the model, NF ≠ 1, no RE.
 //
 // Premise: the three points of a passing build are forward-active (the
 // base-emitter injection at least solver.ConductingCurrent_A) with VCE at
-// least VCE(sat) + margin. Every corner of a passing build is, and with IC
-// and VCE monotonic in each input (the premise of corner analysis,
-// REFERENCE.md §9) the nominal point, inside the corner box when the
-// ambient range holds 25 °C, is no worse than the worst corner.
+// least VCE(sat) + margin. That is a hard limit of its own (the bench
+// points, doc.go), so it holds by definition.
 //
 // Every step is an inequality of the transport model the solver uses
 // (IC = Ibe·k, k = (1 − c)·q − c/BR, IB = Ibe·(1 + c·BF/BR)/BF, c =
@@ -62,7 +59,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	m := dv.typ
 	rth, rthMax, reOhm, rcMin, rcMax, icLo, icHi := w.RTH, w.RTHMax, w.RE, w.RCMin, w.RCMax, w.ICLo, w.ICHi
 	if m.ICBO_A > 0 || m.NF != 1 || icLo <= 0 || icHi < icLo || reOhm <= 0 || rth < 0 || rthMax < rth || !(rcMin >= 0) || rcMax < rcMin ||
-		m.XTI < 0 || m.EG_eV < 0 || e.s.ambMin > NominalAmbient_C || e.s.ambMax < NominalAmbient_C {
+		m.XTI < 0 || m.EG_eV < 0 {
 		return 0
 	}
 	// A first junction bound for every point, from the circuit alone:

@@ -60,8 +60,13 @@
 //
 // Hard limits: a build with any corner outside the active region or less
 // than the margin above VCE(sat), any part over its derated, margined
-// rating at any corner, or IC over the transistor's IC max fails, with its
-// reasons in Candidate.Failing. A failing build never ranks above a
+// rating at any corner, IC over the transistor's IC max, or a bench point
+// (25 °C ambient, marked values, at hFE min, typical or max: the board on
+// the bench at bring-up, whatever the ambient range) outside the active
+// region or the VCE margin fails, with its reasons in Candidate.Failing.
+// The bench points lie inside the corner box when the ambient range holds
+// 25 °C, so there they only restate the corners; the search's bounds rest
+// on them either way. A failing build never ranks above a
 // passing one; failing builds are listed only with Request.ShowFailing or,
 // as the nearest builds, when nothing passes.
 //
@@ -102,9 +107,8 @@
 //     and self-heating are feedback loops whose loop gain is below one at
 //     a stable equilibrium, so they scale the change but cannot reverse it.
 //     This holds in the active region; a build that saturates at its
-//     nominal point also saturates at a corner (the nominal point lies
-//     between the corners for ambient ranges that include 25 °C) and
-//     fails, so only active builds need the bound.
+//     nominal point fails (a bench-point hard limit), so only active
+//     builds need the bound.
 //   - L2: VCE and IC fall as RC rises (if VCE rose, the Early effect would
 //     raise IC and so lower VCE: a contradiction; less VCE means less
 //     power, a cooler junction and less IC), and saturation only deepens.
@@ -185,7 +189,4 @@
 // items in order and sharing the pool; the pool keeps the exact best
 // builds whatever order they arrive in, so the result does not depend on
 // the scheduling (only Result.Evaluated and Solved, the work done, vary).
-//
-// Limitations: the bounds that use "active at the nominal point" assume
-// the ambient range includes 25 °C or lies above it.
 package picker

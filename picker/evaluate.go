@@ -212,6 +212,10 @@ type tuple struct {
 	betaDone bool
 	betaOK   bool
 	beta     float64 // signed relative spread
+	// bench is why the 25 °C points at hFE min, typical or max break the
+	// VCE margin or leave the active region ("" when none does; set with
+	// the beta spread).
+	bench string
 }
 
 // newTuple solves the nominal point of a level tuple.
@@ -254,6 +258,22 @@ func (e *evaluator) betaSpread(t *tuple, cnt *counters) {
 	}
 	t.beta = (hi.IC_A - lo.IC_A) / t.op.IC_A
 	t.betaOK = true
+	floor := d.vceSat + e.s.lim.VCEMargin_V
+	for _, p := range []struct {
+		what string
+		op   *solver.OperatingPoint
+	}{{"hFE min", &lo}, {"typical hFE", &t.op}, {"hFE max", &hi}} {
+		if p.op.Region != solver.Active || p.op.VCE_V < floor {
+			state := map[solver.Region]string{solver.Saturation: "saturates", solver.Cutoff: "is cut off",
+				solver.ReverseActive: "runs reverse-active"}[p.op.Region]
+			if state == "" {
+				state = "runs inside the VCE margin"
+			}
+			t.bench = fmt.Sprintf("at the %g °C bench point with %s the stage %s: VCE %.3g V (VCE(sat) %.3g V + %.3g V margin)",
+				NominalAmbient_C, p.what, state, p.op.VCE_V, d.vceSat, e.s.lim.VCEMargin_V)
+			break
+		}
+	}
 }
 
 // betaFloorAt is betaFloor at a solved tuple: its exact R_TH, RE, RC and
@@ -314,6 +334,7 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 						continue
 					}
 					hlb, fails := e.headroomFloor(c.dev, b, cnt)
+					fails = fails || t.bench != ""
 					if th := thr(); fails && !math.IsInf(th, 1) || partial+w.Headroom*hlb > th {
 						continue
 					}
@@ -377,6 +398,9 @@ func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *eva
 		ev.worst = wc
 		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
 		ev.failing = e.hardLimits(d, wc)
+	}
+	if t.bench != "" {
+		ev.failing = append(ev.failing, t.bench)
 	}
 	w := e.s.w
 	ev.score = w.QPoint*ev.terms.QPoint + w.Emitter*ev.terms.Emitter + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization

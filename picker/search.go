@@ -550,22 +550,19 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				}
 			}
 			// Bound IC-R1 low side: the lowest IC any build at R1
-			// that is active at its nominal point can have (only when a
-			// saturated nominal point implies a failing corner: the
-			// ambient range reaches 25 °C or lies above).
-			if e.s.ambMax >= NominalAmbient_C {
-				r1Lo = firstFrom(n, guessLo, func(i int) bool {
-					if v, ok := floorSeen[i]; ok && v > icHi {
-						return false
-					}
-					ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, icHi, cnt)
-					if !any {
-						ic = math.Inf(1)
-					}
-					floorSeen[i] = ic
-					return any && ic <= icHi
-				})
-			}
+			// that is active at its nominal point can have (a build
+			// whose nominal point is not active fails its bench limit).
+			r1Lo = firstFrom(n, guessLo, func(i int) bool {
+				if v, ok := floorSeen[i]; ok && v > icHi {
+					return false
+				}
+				ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, icHi, cnt)
+				if !any {
+					ic = math.Inf(1)
+				}
+				floorSeen[i] = ic
+				return any && ic <= icHi
+			})
 			guessLo, guessHi = r1Lo, r1Hi+1
 		}
 		// The beta floor is taken per block of r1Block R1 levels, with

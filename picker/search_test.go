@@ -53,6 +53,9 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 			req.VEMin_V = req.VCC_V * (0.05 + 0.1*rng.Float64())
 			req.VEMax_V = req.VEMin_V * (1 + 0.2*rng.Float64())
 		}
+		// ambient ranges that hold 25 °C and ones wholly below or above it
+		amb := [][2]float64{{0, 0}, {-20, 10}, {30, 70}, {-40, 85}}[rng.IntN(4)]
+		req.AmbientMin_C, req.AmbientMax_C = amb[0], amb[1]
 		t.Run(fmt.Sprintf("case%02d", k), func(t *testing.T) {
 			fast, errFast := Pick(st, req)
 			req.Exhaustive = true
