@@ -59,6 +59,13 @@ headroom, util, yield): every term is at least 0 and lower is better; the score 
 their weighted sum. A weight of 0 ignores a term; negative weights are
 refused. Terms left out keep their defaults: ` + weightsHelp() + `.
 
+Hard limits: a build fails when any worst-case corner leaves the active
+region or comes within the margin of VCE(sat), when any part runs over its
+derated, margined rating or IC over IC max at a corner, or when the board
+on the bench at 25 °C (marked values, hFE min, typical or max) leaves the
+active region or the margin, whatever --ambient says. A failing build never
+ranks above a passing one (--show-failing lists them with the reason).
+
 When nothing fits, pick writes the reasons and the parts to buy on stderr,
 the nearest builds on stdout, and exits 1. The nearest builds are those that
 break a limit (each with the reason), or, when the stock is short for the
