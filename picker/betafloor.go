@@ -183,10 +183,7 @@ func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMa
 	bm.tLo_C = NominalAmbient_C - thermalSlack_K
 	bm.tLoK = bm.tLo_C + 273.15
 	bm.dT = th - bm.tLo_C
-	at := dv.at25
-	if at == (nominalDevice{}) {
-		at = newNominalDevice(m)
-	}
+	at := dv.nominal()
 	bm.f25 = at.factor
 	isHi, bfHi, _, _ := m.At(th)
 	bm.isHi = isHi
@@ -248,10 +245,7 @@ func newNominalDevice(m solver.Model) nominalDevice {
 func (e *evaluator) hotVBECap(dv *device, reOhm float64) float64 {
 	vcc := e.s.vcc
 	m := dv.typ
-	at := dv.at25
-	if at == (nominalDevice{}) {
-		at = newNominalDevice(m)
-	}
+	at := dv.nominal()
 	th := dv.tjMax_C + thermalSlack_K
 	isHot, _, _, _ := m.At(th)
 	cp := math.Exp(-(dv.vceSat+e.s.lim.VCEMargin_V)/solver.ThermalVoltage_V(th)) * (1 + isHot/solver.ConductingCurrent_A)
@@ -266,6 +260,14 @@ func (e *evaluator) hotVBECap(dv *device, reOhm float64) float64 {
 	tLo := NominalAmbient_C - thermalSlack_K
 	vCapLo := m.NF * solver.ThermalVoltage_V(tLo) * math.Log(ibeMax/at.is+1)
 	return math.Min(vcc, vCapLo*(th+273.15)/(tLo+273.15))
+}
+
+// nominal returns d.at25, computed here for a device built without it.
+func (d *device) nominal() nominalDevice {
+	if d.at25 == (nominalDevice{}) {
+		return newNominalDevice(d.typ)
+	}
+	return d.at25
 }
 
 // factor is BF's (and BR's) temperature factor (T/TNOM)^XTB.
