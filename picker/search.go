@@ -446,8 +446,27 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			return w.Utilization*e.dividerPowerBoundWeak(i, vbLo, vbHi) <= bd.thr
 		})
 	}
+	// r2Floors bounds, for every build with R2 in levels [first, last],
+	// the beta term (bound B with R_TH between rthFloor of the first R2,
+	// which rises with R2, and the last R2), RE's utilization (every build
+	// carries RE: icLo²·RE over RE's best allowance) and the emitter term
+	// (bound E-RE: VE = IE·RE lies in [icLo·RE, kE·icHi·RE] whatever R1, R2
+	// and RC are).
+	r2Floors := func(bd bounds, first, last, rcLo, rcHi int) (bLo, uRE, eLo float64) {
+		if w.Beta > 0 {
+			vbHi := vbeHi + bd.icHi*kE*reOhm
+			bLo = e.betaFloor(dv, betaWindow{RTH: e.rthFloor(e.vs.levels[first].ohm, vbHi, bd.icHi/dv.betaNomMin),
+				RTHMax: e.vs.levels[last].ohm, RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm,
+				ICLo: bd.icLo, ICHi: bd.icHi})
+		}
+		uRE = bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+		eLo = math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+		return bLo, uRE, eLo
+	}
 	// skip is how many R2 levels the next block floor tries to settle at
 	// once: it doubles while blocks fall and drops to 1 when one does not.
+	// (vbeHi is set by then: skip > 1 only after a level was settled; a
+	// value from an earlier, wider IC window is still an upper bound.)
 	skip := 1
 	for r2 := start; r2 < n; r2++ {
 		bd := e.boundsNow(p)
@@ -456,16 +475,8 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			break // the band only narrows as the threshold falls
 		}
 		if skip > 1 && bd.finite && w.Beta > 0 {
-			// Bound B over the block [r2, r2 + skip): R_TH between
-			// rthFloor of its first R2 (rthFloor rises with R2) and its
-			// last R2; with RE's utilization and the emitter floor.
 			last := min(r2+skip-1, n-1)
-			vbHi := vbeHi + bd.icHi*kE*reOhm
-			win := betaWindow{RTH: e.rthFloor(e.vs.levels[r2].ohm, vbHi, bd.icHi/dv.betaNomMin), RTHMax: e.vs.levels[last].ohm,
-				RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
-			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-			eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-			if w.Beta*e.betaFloor(dv, win)+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
+			if bLo, uRE, eLo := r2Floors(bd, r2, last, rcLo, rcHi); w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				r2 = last
 				skip *= 2
 				continue
@@ -487,27 +498,14 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			lastThr = bd.thr
 		}
 		if bd.finite {
-			// Bound U-R2 (divider power, see dividerPowerBound) and bound
-			// B (betaFloor): every build here carries RE, so its
-			// utilization is at least RE's, icLo²·RE over RE's best
-			// allowance, and at least the divider bound; its beta term
-			// is at least the floor over the R_TH this R2 allows. Once it,
-			// RE's utilization and the emitter floor are over the
-			// threshold the next R2 levels are tried in growing blocks.
+			// Bounds B, U-RE and E-RE at this R2 (r2Floors), and bound
+			// U-R2 (divider power, see dividerPowerBound). Once the first
+			// three are over the threshold the next R2 levels are tried
+			// in growing blocks.
 			vbHi := vbeHi + bd.icHi*kE*reOhm
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
-			uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-			// bLo holds for every build at this R2 (R_TH between
-			// rthFloor(R2) and R2).
-			bLo = 0
-			win := betaWindow{RTH: e.rthFloor(e.vs.levels[r2].ohm, vbHi, bd.icHi/dv.betaNomMin), RTHMax: e.vs.levels[r2].ohm,
-				RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
-			if w.Beta > 0 {
-				bLo = e.betaFloor(dv, win)
-			}
-			// Bound E-RE: VE = IE·RE lies in [icLo·RE, kE·icHi·RE]
-			// whatever R1, R2 and RC are.
-			eLo = math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+			var uRE float64
+			bLo, uRE, eLo = r2Floors(bd, r2, r2, rcLo, rcHi)
 			if w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				skip = 2 // try the next levels in blocks
 				continue
