@@ -43,7 +43,7 @@ type evaluated struct {
 	key     string // tie-break: device line ID and values, fixed width
 	score   float64
 	terms   Terms
-	failing []string
+	failing []Failure
 	op      solver.OperatingPoint
 	worst   solver.WorstCase
 	beta    float64 // beta sensitivity, signed as IC(hFE max) − IC(hFE min) over IC
@@ -213,9 +213,9 @@ type tuple struct {
 	betaOK   bool
 	beta     float64 // signed relative spread
 	// bench is why the 25 °C points at hFE min, typical or max break the
-	// VCE margin or leave the active region ("" when none does; set with
-	// the beta spread).
-	bench string
+	// VCE margin or leave the active region (nil when none does; set
+	// with the beta spread).
+	bench *Failure
 }
 
 // newTuple solves the nominal point of a level tuple.
@@ -260,17 +260,12 @@ func (e *evaluator) betaSpread(t *tuple, cnt *counters) {
 	t.betaOK = true
 	floor := d.vceSat + e.s.lim.VCEMargin_V
 	for _, p := range []struct {
-		what string
-		op   *solver.OperatingPoint
-	}{{"hFE min", &lo}, {"typical hFE", &t.op}, {"hFE max", &hi}} {
+		at HFEPoint
+		op *solver.OperatingPoint
+	}{{HFEAtMin, &lo}, {HFEAtTyp, &t.op}, {HFEAtMax, &hi}} {
 		if p.op.Region != solver.Active || p.op.VCE_V < floor {
-			state := map[solver.Region]string{solver.Saturation: "saturates", solver.Cutoff: "is cut off",
-				solver.ReverseActive: "runs reverse-active"}[p.op.Region]
-			if state == "" {
-				state = "runs inside the VCE margin"
-			}
-			t.bench = fmt.Sprintf("at the %g °C bench point with %s the stage %s: VCE %.3g V (VCE(sat) %.3g V + %.3g V margin)",
-				NominalAmbient_C, p.what, state, p.op.VCE_V, d.vceSat, e.s.lim.VCEMargin_V)
+			t.bench = &Failure{Kind: FailBench, Ambient_C: NominalAmbient_C, HFEPoint: p.at, Region: p.op.Region,
+				VCE_V: p.op.VCE_V, VCESat_V: d.vceSat, Margin_V: e.s.lim.VCEMargin_V}
 			break
 		}
 	}
@@ -334,7 +329,7 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 						continue
 					}
 					hlb, fails := e.headroomFloor(c.dev, b, cnt)
-					fails = fails || t.bench != ""
+					fails = fails || t.bench != nil
 					if th := thr(); fails && !math.IsInf(th, 1) || partial+w.Headroom*hlb > th {
 						continue
 					}
@@ -392,15 +387,15 @@ func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *eva
 	ev := &evaluated{c: c, key: e.key(c), op: t.op, beta: t.beta, util: util}
 	wc, err := solver.EvalWorstCaseWith(b, e.s.lim, solver.WorstCaseOptions{SkipCorners: true, SkipRSS: true})
 	if err != nil {
-		ev.failing = append(ev.failing, fmt.Sprintf("worst case: %v", err))
+		ev.failing = append(ev.failing, Failure{Kind: FailWorstCase, Err: err})
 		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util}
 	} else {
 		ev.worst = wc
 		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
 		ev.failing = e.hardLimits(d, wc)
 	}
-	if t.bench != "" {
-		ev.failing = append(ev.failing, t.bench)
+	if t.bench != nil {
+		ev.failing = append(ev.failing, *t.bench)
 	}
 	w := e.s.w
 	ev.score = w.QPoint*ev.terms.QPoint + w.Emitter*ev.terms.Emitter + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization
@@ -423,16 +418,12 @@ func (e *evaluator) headroom(d *device, wc solver.WorstCase) float64 {
 // or within the VCE margin of saturation, a part over its derated,
 // margined rating at some corner, the collector current over the
 // transistor's IC max.
-func (e *evaluator) hardLimits(d *device, wc solver.WorstCase) []string {
-	var why []string
+func (e *evaluator) hardLimits(d *device, wc solver.WorstCase) []Failure {
+	var why []Failure
 	if !wc.AllActive {
 		cn := wc.VCEMinAt
-		what := "saturates"
-		if cn.OP.Region == solver.Cutoff {
-			what = "is cut off"
-		}
-		why = append(why, fmt.Sprintf("%d of %d corners outside the active region or the VCE margin: the worst %s with VCE %.3g V (VCE(sat) %.3g V + %.3g V margin) at hFE %.0f, %g °C ambient, VCC %.3g V",
-			wc.NotActive, wc.Count, what, wc.VCEMin_V, d.vceSat, e.s.lim.VCEMargin_V, cn.BF, cn.Temp_C, math.Abs(cn.VCC_V)))
+		why = append(why, Failure{Kind: FailCorners, NotActive: wc.NotActive, Corners: wc.Count, Region: cn.OP.Region,
+			VCE_V: wc.VCEMin_V, VCESat_V: d.vceSat, Margin_V: e.s.lim.VCEMargin_V, HFE: cn.BF, Ambient_C: cn.Temp_C, VCC_V: math.Abs(cn.VCC_V)})
 	}
 	if !wc.Dissipation.Ok {
 		worstU, worstName := 0.0, ""
@@ -442,12 +433,12 @@ func (e *evaluator) hardLimits(d *device, wc solver.WorstCase) []string {
 			}
 		}
 		if u := wc.Dissipation.Transistor.Utilization; u > worstU {
-			worstU, worstName = u, "the transistor"
+			worstU, worstName = u, PartTransistor
 		}
-		why = append(why, fmt.Sprintf("%s reaches %.0f %% of its derated, margined allowance at the worst corner", worstName, 100*worstU))
+		why = append(why, Failure{Kind: FailAllowance, Part: worstName, Utilization: worstU})
 	}
 	if im := d.line.Sheet.ICMax_A; im > 0 && wc.ICMax_A > im {
-		why = append(why, fmt.Sprintf("IC reaches %.3g A, over the %.3g A IC max", wc.ICMax_A, im))
+		why = append(why, Failure{Kind: FailICMax, IC_A: wc.ICMax_A, ICMax_A: im})
 	}
 	return why
 }

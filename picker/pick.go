@@ -70,7 +70,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 }
 
 // newEvaluator prepares the value sets and devices of a request.
-func newEvaluator(s settings, stock Stock) (*evaluator, []string) {
+func newEvaluator(s settings, stock Stock) (*evaluator, []Rejection) {
 	var lines []Resistor
 	for _, r := range stock.Resistors {
 		if hasTags(r.Tags, s.req.RequireTags) {

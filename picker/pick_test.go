@@ -4,7 +4,7 @@ import (
 	"context"
 	"math"
 	"math/rand/v2"
-	"strings"
+	"slices"
 	"testing"
 
 	"biasbin/solver"
@@ -272,9 +272,9 @@ func TestNothingFits(t *testing.T) {
 	}
 	if after.Shortfall != nil || len(after.Candidates) == 0 || len(after.Candidates[0].Failing) > 0 ||
 		math.Abs(after.Candidates[0].Nominal.IC_A/req.IC_A-1) > DefaultICWindow {
-		t.Errorf("after buying %v the stock still has no passing build", res.Shortfall.Buy)
+		t.Errorf("after buying %+v the stock still has no passing build", res.Shortfall.Purchases)
 	}
-	t.Logf("reasons %q, buy %q", res.Shortfall.Reasons, res.Shortfall.Buy)
+	t.Logf("reasons %+v, buy %+v", res.Shortfall.Reasons, res.Shortfall.Purchases)
 }
 
 // TestOverloadedEverywhere: when every stocked value that could serve as
@@ -293,12 +293,12 @@ func TestOverloadedEverywhere(t *testing.T) {
 	if res.Shortfall == nil || len(res.Shortfall.Reasons) == 0 || len(res.Candidates) == 0 {
 		t.Fatalf("no shortfall with 2 mW resistors: %+v", res.Shortfall)
 	}
-	want := "no build reaches the target" // the nearest builds pass only far from the target current
+	want := Reason{Kind: OffTarget} // the nearest builds pass only far from the target current
 	if len(res.Candidates[0].Failing) > 0 {
-		want = "overloads a part"
+		want = Reason{Kind: NearestFail, Limit: FailAllowance} // a part overloaded
 	}
-	if !strings.Contains(strings.Join(res.Shortfall.Reasons, "; "), want) {
-		t.Errorf("reasons %q, want one saying %q", res.Shortfall.Reasons, want)
+	if !slices.ContainsFunc(res.Shortfall.Reasons, func(r Reason) bool { return r.Kind == want.Kind && r.Limit == want.Limit }) {
+		t.Errorf("reasons %+v, want one of kind %d (limit %d)", res.Shortfall.Reasons, want.Kind, want.Limit)
 	}
 	if len(res.Shortfall.Purchases) == 0 {
 		t.Fatalf("no purchase suggested: %+v", res.Shortfall)
@@ -314,9 +314,9 @@ func TestOverloadedEverywhere(t *testing.T) {
 		t.Fatal(err)
 	}
 	if after.Shortfall != nil {
-		t.Errorf("after buying %q: still %q", res.Shortfall.Buy, after.Shortfall.Reasons)
+		t.Errorf("after buying %+v: still %+v", res.Shortfall.Purchases, after.Shortfall.Reasons)
 	}
-	t.Logf("reasons %q, buy %q", res.Shortfall.Reasons, res.Shortfall.Buy)
+	t.Logf("reasons %+v, buy %+v", res.Shortfall.Reasons, res.Shortfall.Purchases)
 }
 
 // TestShowFailing: failing builds are listed only on request and never

@@ -1,25 +1,26 @@
 package picker
 
 import (
-	"fmt"
 	"math"
-	"strings"
+	"slices"
 
 	"biasbin/solver"
 	"biasbin/solver/eseries"
-	"biasbin/solver/notation"
 )
 
 // Purchase is one part the shortfall suggests buying.
 type Purchase struct {
-	Slot    string  // "r1", "r2", "rc", "re", or "transistor"
+	Slot    string  // "r1", "r2", "rc", "re", or PartTransistor
 	Ohm     float64 // resistors: the E-series value
 	Series  string  // "E24"
 	Tol     float64 // fraction
 	Rated_W float64
 	Qty     int // parts for the requested boards
-	// Note says it in words, e.g. "RE: 1K0 (E24, ±5 %, 0.25 W), 2 pieces".
-	Note string
+	// Polarity, VCEO_V and ICMax_A describe a transistor to buy: the
+	// polarity and the least VCEO and IC max that hold with the margins.
+	Polarity solver.Polarity
+	VCEO_V   float64
+	ICMax_A  float64
 }
 
 // Purchase defaults: E24 at ±5 % (the customary pairing, IEC 60063:2015
@@ -34,22 +35,20 @@ const (
 
 // shortfall explains why no build passes and what to buy. nearest are the
 // best failing builds found.
-func (e *evaluator) shortfall(rejected []string, nearest []Candidate) *Shortfall {
+func (e *evaluator) shortfall(rejected []Rejection, nearest []Candidate) *Shortfall {
 	s := e.s
 	sf := &Shortfall{Rejected: rejected}
 	switch {
 	case len(e.devs) == 0:
-		sf.Reasons = append(sf.Reasons, fmt.Sprintf("no %v transistor with at least %d in stock and ratings that hold at %.3g V and %s",
-			s.pol, s.boards, s.vcc*(1+s.vccTol), notation.FormatCurrent(s.icT)))
+		sf.Reasons = append(sf.Reasons, Reason{Kind: NoTransistor, Polarity: s.pol, Boards: s.boards, VCC_V: s.vcc * (1 + s.vccTol), IC_A: s.icT})
 		sf.Purchases = append(sf.Purchases, e.buyTransistor())
 	case len(e.vs.levels) == 0:
-		sf.Reasons = append(sf.Reasons, fmt.Sprintf("no resistor line holds the %d parts %d boards need", s.boards, s.boards))
+		sf.Reasons = append(sf.Reasons, Reason{Kind: NoResistorLine, Boards: s.boards})
 	case len(nearest) == 0:
-		sf.Reasons = append(sf.Reasons, "no combination of stocked values has an operating point (every solve failed)")
+		sf.Reasons = append(sf.Reasons, Reason{Kind: NoOperatingPoint})
 	case len(nearest[0].Failing) == 0:
 		c := nearest[0]
-		sf.Reasons = append(sf.Reasons, fmt.Sprintf("no build reaches the target: the nearest runs at IC %s, VCE %s against %s, %s",
-			notation.FormatCurrent(c.Nominal.IC_A), notation.FormatVoltage(c.Nominal.VCE_V), notation.FormatCurrent(s.icT), notation.FormatVoltage(c.VCETarget_V)))
+		sf.Reasons = append(sf.Reasons, Reason{Kind: OffTarget, IC_A: c.Nominal.IC_A, VCE_V: c.Nominal.VCE_V, TargetIC_A: s.icT, TargetVCE_V: c.VCETarget_V})
 	default:
 		sf.Reasons = append(sf.Reasons, failureSummary(nearest)...)
 		bestBeta := math.Inf(1)
@@ -57,17 +56,14 @@ func (e *evaluator) shortfall(rejected []string, nearest []Candidate) *Shortfall
 			bestBeta = math.Min(bestBeta, c.BetaSensitivity)
 		}
 		if bestBeta > stiffBeta {
-			sf.Reasons = append(sf.Reasons, fmt.Sprintf("no divider stiff enough: the nearest builds move IC by at least %.0f %% over the hFE range", 100*bestBeta))
+			sf.Reasons = append(sf.Reasons, Reason{Kind: NotStiff, BetaSpread: bestBeta})
 		}
 	}
 	if len(e.devs) > 0 {
 		sf.Purchases = append(sf.Purchases, e.buyResistors(nearest)...)
 	}
-	for _, p := range sf.Purchases {
-		sf.Buy = append(sf.Buy, p.Note)
-	}
-	if len(sf.Buy) == 0 && len(e.devs) > 0 {
-		sf.Reasons = append(sf.Reasons, "no purchase of one or two resistor values gives a passing build")
+	if len(sf.Purchases) == 0 && len(e.devs) > 0 {
+		sf.Reasons = append(sf.Reasons, Reason{Kind: NoPurchase})
 	}
 	return sf
 }
@@ -76,31 +72,20 @@ func (e *evaluator) shortfall(rejected []string, nearest []Candidate) *Shortfall
 // not stiff enough: IC moving 20 % over the hFE range.
 const stiffBeta = 0.2
 
-// failureSummary condenses the nearest builds' reasons into lines such as
-// "every build found saturates at a worst-case corner".
-func failureSummary(nearest []Candidate) []string {
-	kinds := []struct{ key, say string }{
-		{"corners outside the active region", "saturates or cuts off at a worst-case corner"},
-		{"allowance", "overloads a part at a worst-case corner"},
-		{"IC max", "exceeds the transistor's IC max"},
-		{"worst case", "has a worst-case corner that cannot be solved"},
-	}
-	var out []string
-	for _, k := range kinds {
+// failureSummary condenses the nearest builds' failures into one reason
+// per limit that some of them break (the bench limit is left to each
+// build's own reasons).
+func failureSummary(nearest []Candidate) []Reason {
+	var out []Reason
+	for _, k := range []FailureKind{FailCorners, FailAllowance, FailICMax, FailWorstCase} {
 		n := 0
 		for _, c := range nearest {
-			for _, r := range c.Failing {
-				if strings.Contains(r, k.key) {
-					n++
-					break
-				}
+			if slices.ContainsFunc(c.Failing, func(f Failure) bool { return f.Kind == k }) {
+				n++
 			}
 		}
-		switch {
-		case n == len(nearest):
-			out = append(out, "every build found "+k.say)
-		case n > 0:
-			out = append(out, fmt.Sprintf("%d of the %d nearest builds %s", n, len(nearest), k.say))
+		if n > 0 {
+			out = append(out, Reason{Kind: NearestFail, Limit: k, Count: n, Of: len(nearest)})
 		}
 	}
 	return out
@@ -109,9 +94,8 @@ func failureSummary(nearest []Candidate) []string {
 // buyTransistor describes the transistor that would do.
 func (e *evaluator) buyTransistor() Purchase {
 	s := e.s
-	note := fmt.Sprintf("transistor: %v with VCEO ≥ %.3g V, IC max ≥ %s, %d pieces", s.pol,
-		math.Ceil(s.vcc*(1+s.vccTol)/VoltageDerating), notation.FormatCurrent(s.icT/CurrentDerating), s.boards)
-	return Purchase{Slot: "transistor", Qty: s.boards, Note: note}
+	return Purchase{Slot: PartTransistor, Qty: s.boards, Polarity: s.pol,
+		VCEO_V: math.Ceil(s.vcc * (1 + s.vccTol) / VoltageDerating), ICMax_A: s.icT / CurrentDerating}
 }
 
 // ideal is the hand-method design for device d: VE = VCC/10, VCE at its
@@ -159,7 +143,6 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 				break
 			}
 		}
-		p.Note = fmt.Sprintf("%s: %s (%s, ±%g %%, %g W), %d pieces", strings.ToUpper(p.Slot), notation.FormatResistance(ohm), p.Series, 100*buyTol, p.Rated_W, p.Qty)
 		parts[i] = p
 	}
 	// try checks a purchase without a new search: the hand-method build

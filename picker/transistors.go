@@ -1,7 +1,6 @@
 package picker
 
 import (
-	"fmt"
 	"math"
 
 	"biasbin/solver"
@@ -55,51 +54,51 @@ func tjMaxOf(d solver.Datasheet) float64 {
 // least the target over CurrentDerating; the dissipation at the target
 // current and the mid-supply VCE within the derated, margined allowance at
 // the hottest ambient. The worst-case corners check each build again.
-func (s settings) transistorCandidates(ts []Transistor) (devs []device, rejected []string) {
+func (s settings) transistorCandidates(ts []Transistor) (devs []device, rejected []Rejection) {
 	vccHi := s.vcc * (1 + s.vccTol)
 	for _, t := range ts {
 		d := t.Sheet
 		if d.Polarity != s.pol || !hasTags(t.Tags, s.req.RequireTags) {
 			continue
 		}
-		name := fmt.Sprintf("%s (line %d, bin %s)", d.Label, t.ID, t.Bin)
-		reject := func(format string, a ...any) {
-			rejected = append(rejected, name+": "+fmt.Sprintf(format, a...))
+		reject := func(r Rejection) {
+			r.Line = t
+			rejected = append(rejected, r)
 		}
 		if t.Qty < s.boards {
-			reject("only %d in stock, %d boards need %d", t.Qty, s.boards, s.boards)
+			reject(Rejection{Kind: RejectQty, Qty: t.Qty, Boards: s.boards})
 			continue
 		}
 		if d.VCEO_V > 0 && d.VCEO_V*VoltageDerating < vccHi {
-			reject("VCEO %g V is below the %.3g V supply / %.0f %% derating", d.VCEO_V, vccHi, 100*VoltageDerating)
+			reject(Rejection{Kind: RejectVCEO, VCEO_V: d.VCEO_V, VCC_V: vccHi})
 			continue
 		}
 		if d.ICMax_A > 0 && d.ICMax_A*CurrentDerating < s.icT {
-			reject("IC max %g A is below the %g A target / %.0f %% derating", d.ICMax_A, s.icT, 100*CurrentDerating)
+			reject(Rejection{Kind: RejectICMax, ICMax_A: d.ICMax_A, IC_A: s.icT})
 			continue
 		}
 		allowHot := math.Inf(1)
 		if p, ok := solver.TransistorAllowed_W(d, s.ambMax); ok {
 			allowHot = p * s.lim.TransistorMaxFraction
 			if pd := s.icT * vccHi / 2; pd > allowHot {
-				reject("%.3g W at the target (mid-supply VCE) is over its %.3g W allowance at %g °C", pd, allowHot, s.ambMax)
+				reject(Rejection{Kind: RejectPower, Power_W: pd, Allowed_W: allowHot, Ambient_C: s.ambMax})
 				continue
 			}
 		}
 		typ := solver.TypicalHFE(d)
 		mt, err := solver.ModelFor(d, typ)
 		if err != nil {
-			reject("datasheet: %v", err)
+			reject(Rejection{Kind: RejectDatasheet, Err: err})
 			continue
 		}
 		ml, err := solver.ModelFor(d, d.HFEMin)
 		if err != nil {
-			reject("datasheet: %v", err)
+			reject(Rejection{Kind: RejectDatasheet, Err: err})
 			continue
 		}
 		mh, err := solver.ModelFor(d, d.HFEMax)
 		if err != nil {
-			reject("datasheet: %v", err)
+			reject(Rejection{Kind: RejectDatasheet, Err: err})
 			continue
 		}
 		dv := device{

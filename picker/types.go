@@ -117,7 +117,7 @@ type Candidate struct {
 	Yield           solver.YieldResult
 	BetaSensitivity float64
 	MaxUtilization  float64
-	Failing         []string // reasons a hard limit fails; empty for a good build
+	Failing         []Failure // the hard limits the build breaks; empty for a good build
 	// VCETarget_V is the VCE the Q-point term aimed at: the request's, or
 	// this build's maximum-symmetrical-swing VCE.
 	VCETarget_V float64
@@ -125,13 +125,12 @@ type Candidate struct {
 
 // Shortfall explains why nothing (or too little) fits, with a suggestion.
 type Shortfall struct {
-	Reasons []string
-	Buy     []string // e.g. "4K7 1 % 0.25 W (E96) for RE"
-	// Purchases are the parts behind Buy, one per line of Buy.
+	Reasons []Reason
+	// Purchases are the parts to buy for a build that fits.
 	Purchases []Purchase
 	// Rejected lists the transistor lines of the polarity left out, each
 	// with its reason.
-	Rejected []string
+	Rejected []Rejection
 }
 
 // Result is the outcome of a search.

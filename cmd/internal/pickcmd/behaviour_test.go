@@ -12,6 +12,7 @@ import (
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/stockcsv"
 	"biasbin/picker"
+	"biasbin/solver"
 	"biasbin/store"
 )
 
@@ -155,23 +156,26 @@ func TestBadInput(t *testing.T) {
 func TestNothingFits(t *testing.T) {
 	path := newTestDB(t, smallBatch())
 	before := snapshot(t, path)
-	short := &picker.Shortfall{Reasons: []string{"only 10 QN-104A in stock; 40 boards need 40"}, Buy: []string{"30 more QN-104A or an NPN with hFE 100..300"}}
+	short := &picker.Shortfall{
+		Reasons:   []picker.Reason{{Kind: picker.NoTransistor, Polarity: solver.NPN, Boards: 40, VCC_V: 12.6, IC_A: 1e-3}},
+		Purchases: []picker.Purchase{{Slot: picker.PartTransistor, Qty: 40, Polarity: solver.NPN, VCEO_V: 16, ICMax_A: 2e-3}},
+	}
 	pick := func(s picker.Stock, r picker.Request) (picker.Result, error) {
 		// As the picker does when nothing passes: the nearest builds,
 		// each with the limit it breaks, and the shortfall.
-		c := fakeCandidate(1, "needs 40 of QN-104A, bin D1 holds 10")
+		c := fakeCandidate(1, picker.Failure{Kind: picker.FailAllowance, Part: "rc", Utilization: 1.3})
 		return picker.Result{Candidates: []picker.Candidate{c}, Shortfall: short}, nil
 	}
 	inv := runPick(t, path, pick, "--vcc", "12V", "--ic", "1mA", "--boards", "40")
 	if cmdutil.ExitCode(inv.err) != 1 || !errors.Is(inv.err, cmdutil.ErrSilent) {
 		t.Errorf("err %v, want the silent exit 1 (the explanation is already on stderr)", inv.err)
 	}
-	for _, w := range []string{"nothing fits this request", "only 10 QN-104A", "parts to buy", "30 more QN-104A"} {
+	for _, w := range []string{"nothing fits this request", "no npn transistor with at least 40 in stock", "parts to buy", "transistor: npn with VCEO ≥ 16 V, IC max ≥ 2 mA, 40 pieces"} {
 		if !strings.Contains(inv.stderr, w) {
 			t.Errorf("stderr lacks %q:\n%s", w, inv.stderr)
 		}
 	}
-	for _, w := range []string{"Nothing fits. The nearest builds", "FAILS: needs 40 of QN-104A"} {
+	for _, w := range []string{"Nothing fits. The nearest builds", "FAILS: rc reaches 130 % of its derated, margined allowance"} {
 		if !strings.Contains(inv.stdout, w) {
 			t.Errorf("stdout lacks %q:\n%s", w, inv.stdout)
 		}
@@ -226,7 +230,8 @@ func TestStockRunsShort(t *testing.T) {
 	path := newTestDB(t, smallBatch()) // QN-104A: 10 in stock
 	pick := func(_ picker.Stock, r picker.Request) (picker.Result, error) {
 		if r.Boards > 10 {
-			return picker.Result{Shortfall: &picker.Shortfall{Rejected: []string{"QN-104A (line 4, bin D1): only 10 in stock"}}}, nil
+			return picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
+				Line: picker.Transistor{ID: 4, Bin: "D1", Qty: 10, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 10, Boards: r.Boards}}}}, nil
 		}
 		return picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}, nil
 	}

@@ -31,7 +31,7 @@ func fakeStock() picker.Stock {
 
 // fakeCandidate is one build drawing R1 from line 1, R2 as a series pair of
 // lines 2 and 3, RC from line 4 and RE as a parallel pair of line 5 twice.
-func fakeCandidate(rank int, failing ...string) picker.Candidate {
+func fakeCandidate(rank int, failing ...picker.Failure) picker.Candidate {
 	tr := fakeStock().Transistors[0]
 	op := func(ic, vb, ve, vc float64) solver.OperatingPoint {
 		return solver.OperatingPoint{Region: solver.Active, IC_A: ic, IB_A: ic / 180, VB_V: vb, VE_V: ve, VC_V: vc, VCE_V: vc - ve, Tj_C: 27.4}

@@ -171,11 +171,12 @@ func writeJSON(w io.Writer, v view) error {
 		doc.Candidates = append(doc.Candidates, v.jsonCandidate(c))
 	}
 	if s := v.res.Shortfall; s != nil {
-		sf := &jsonShortfall{Reasons: nonNil(s.Reasons), Buy: nonNil(s.Buy), Rejected: nonNil(s.Rejected),
+		sf := &jsonShortfall{Reasons: report.Words(s.Reasons, report.Reason), Buy: report.Words(s.Purchases, report.Purchase),
+			Rejected:  report.Words(s.Rejected, report.Rejection),
 			Purchases: []jsonPurchase{}, TopUp: []jsonPull{}}
 		for _, p := range s.Purchases {
 			sf.Purchases = append(sf.Purchases, jsonPurchase{Slot: p.Slot, Ohms: p.Ohm, Series: p.Series, Tol: p.Tol,
-				Rated_W: p.Rated_W, Qty: p.Qty, Note: p.Note})
+				Rated_W: p.Rated_W, Qty: p.Qty, Note: report.Purchase(p)})
 		}
 		if v.short() {
 			for _, p := range shortLines(v.pullList(v.shown()[0])) {
@@ -251,7 +252,7 @@ func (v view) jsonCandidate(c picker.Candidate) jsonCandidate {
 		BetaSensitivity: c.BetaSensitivity,
 		MaxUtilization:  c.MaxUtilization,
 		Model:           report.ModelOf(c.Model),
-		Failing:         nonNil(c.Failing),
+		Failing:         report.Words(c.Failing, report.Failure),
 	}
 	for _, slot := range slotsOf(c) {
 		p := c.Positions[slot]

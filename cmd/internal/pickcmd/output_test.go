@@ -10,6 +10,7 @@ import (
 
 	"biasbin/cmd/internal/cmdtest"
 	"biasbin/picker"
+	"biasbin/solver"
 )
 
 // golden compares got with testdata/name, or rewrites it with -update.
@@ -47,17 +48,19 @@ func TestOutputGolden(t *testing.T) {
 		{"json", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
 			Candidates: []picker.Candidate{fakeCandidate(1)}, Evaluated: 321, Considered: 12345}}, true},
 		{"nothing_fits", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
-			Candidates: []picker.Candidate{fakeCandidate(1, "needs 4 of QN-104A... only 3 of 4K7 in bin B1")},
+			Candidates: []picker.Candidate{fakeCandidate(1, picker.Failure{Kind: picker.FailAllowance, Part: "r2", Utilization: 1.12})},
 			Evaluated:  12, Considered: 400,
 			Shortfall: &picker.Shortfall{
-				Reasons: []string{"bin B1 holds 3 of 4K7 5 % 0.25 W; 4 boards need 4"},
-				Buy:     []string{"4K7 5 % 0.25 W (E24) for R2: at least 1 more"},
+				Reasons:   []picker.Reason{{Kind: picker.NearestFail, Limit: picker.FailAllowance, Count: 1, Of: 1}},
+				Purchases: []picker.Purchase{{Slot: "r2", Ohm: 4.7e3, Series: "E24", Tol: 0.05, Rated_W: 0.5, Qty: 4}},
 			}}}, false},
 		{"short_run", view{req: fakeRequest(), stock: fakeStock(), buildable: 3,
-			res:   picker.Result{Shortfall: &picker.Shortfall{Rejected: []string{"QN-104A (line 10, bin D1): only 8 in stock"}}},
+			res: picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
+				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 8, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 8, Boards: 4}}}},
 			fewer: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}, false},
 		{"short_run_json", view{req: fakeRequest(), stock: fakeStock(), buildable: 3,
-			res:   picker.Result{Shortfall: &picker.Shortfall{Rejected: []string{"QN-104A (line 10, bin D1): only 8 in stock"}}},
+			res: picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
+				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 8, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 8, Boards: 4}}}},
 			fewer: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}, true},
 		{"hot", view{req: hot, stock: fakeStock(), res: picker.Result{Candidates: []picker.Candidate{hotCand}}}, false},
 	}

@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/report"
 	"biasbin/picker"
 	"biasbin/solver"
 	"biasbin/store"
@@ -322,7 +323,9 @@ func writeText(w io.Writer, v view) {
 func writeNotes(w io.Writer, v view) {
 	var reasons, buy, rejected []string
 	if s := v.res.Shortfall; s != nil {
-		reasons, buy, rejected = s.Reasons, s.Buy, s.Rejected
+		reasons = report.Words(s.Reasons, report.Reason)
+		buy = report.Words(s.Purchases, report.Purchase)
+		rejected = report.Words(s.Rejected, report.Rejection)
 	}
 	switch {
 	case !v.fits():

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"biasbin/cmd/internal/report"
 	"biasbin/picker"
 	"biasbin/solver"
 	"biasbin/solver/notation"
@@ -55,7 +56,7 @@ func writeHeader(w io.Writer, v view) {
 func writeCandidate(w io.Writer, v view, c picker.Candidate) {
 	fmt.Fprintf(w, "\n#%d  %s  score %.3f  (id %s)\n", c.Rank, c.Transistor.Sheet.Label, c.Score, c.ID)
 	for _, why := range c.Failing {
-		fmt.Fprintf(w, "    FAILS: %s\n", why)
+		fmt.Fprintf(w, "    FAILS: %s\n", report.Failure(why))
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (bin, stock line)\n")

@@ -1,0 +1,117 @@
+package report
+
+import (
+	"fmt"
+	"strings"
+
+	"biasbin/picker"
+	"biasbin/solver"
+	"biasbin/solver/notation"
+)
+
+// Failure words one hard limit a build breaks.
+func Failure(f picker.Failure) string {
+	switch f.Kind {
+	case picker.FailCorners:
+		what := "saturates"
+		if f.Region == solver.Cutoff {
+			what = "is cut off"
+		}
+		return fmt.Sprintf("%d of %d corners outside the active region or the VCE margin: the worst %s with VCE %.3g V (VCE(sat) %.3g V + %.3g V margin) at hFE %.0f, %g °C ambient, VCC %.3g V",
+			f.NotActive, f.Corners, what, f.VCE_V, f.VCESat_V, f.Margin_V, f.HFE, f.Ambient_C, f.VCC_V)
+	case picker.FailAllowance:
+		part := f.Part
+		if part == picker.PartTransistor {
+			part = "the transistor"
+		}
+		return fmt.Sprintf("%s reaches %.0f %% of its derated, margined allowance at the worst corner", part, 100*f.Utilization)
+	case picker.FailICMax:
+		return fmt.Sprintf("IC reaches %.3g A, over the %.3g A IC max", f.IC_A, f.ICMax_A)
+	case picker.FailWorstCase:
+		return fmt.Sprintf("worst case: %v", f.Err)
+	case picker.FailBench:
+		at := map[picker.HFEPoint]string{picker.HFEAtMin: "hFE min", picker.HFEAtTyp: "typical hFE", picker.HFEAtMax: "hFE max"}[f.HFEPoint]
+		state := map[solver.Region]string{solver.Saturation: "saturates", solver.Cutoff: "is cut off",
+			solver.ReverseActive: "runs reverse-active"}[f.Region]
+		if state == "" {
+			state = "runs inside the VCE margin"
+		}
+		return fmt.Sprintf("at the %g °C bench point with %s the stage %s: VCE %.3g V (VCE(sat) %.3g V + %.3g V margin)",
+			f.Ambient_C, at, state, f.VCE_V, f.VCESat_V, f.Margin_V)
+	}
+	return fmt.Sprintf("hard limit %d broken", f.Kind)
+}
+
+// limitSay is what a build does when it breaks a limit, for the summary of
+// the nearest builds.
+var limitSay = map[picker.FailureKind]string{
+	picker.FailCorners:   "saturates or cuts off at a worst-case corner",
+	picker.FailAllowance: "overloads a part at a worst-case corner",
+	picker.FailICMax:     "exceeds the transistor's IC max",
+	picker.FailWorstCase: "has a worst-case corner that cannot be solved",
+	picker.FailBench:     "leaves the active region or the VCE margin on the bench",
+}
+
+// Reason words one cause of a shortfall.
+func Reason(r picker.Reason) string {
+	switch r.Kind {
+	case picker.NoTransistor:
+		return fmt.Sprintf("no %v transistor with at least %d in stock and ratings that hold at %.3g V and %s",
+			r.Polarity, r.Boards, r.VCC_V, notation.FormatCurrent(r.IC_A))
+	case picker.NoResistorLine:
+		return fmt.Sprintf("no resistor line holds the %d parts %d boards need", r.Boards, r.Boards)
+	case picker.NoOperatingPoint:
+		return "no combination of stocked values has an operating point (every solve failed)"
+	case picker.OffTarget:
+		return fmt.Sprintf("no build reaches the target: the nearest runs at IC %s, VCE %s against %s, %s",
+			notation.FormatCurrent(r.IC_A), notation.FormatVoltage(r.VCE_V), notation.FormatCurrent(r.TargetIC_A), notation.FormatVoltage(r.TargetVCE_V))
+	case picker.NearestFail:
+		if r.Count == r.Of {
+			return "every build found " + limitSay[r.Limit]
+		}
+		return fmt.Sprintf("%d of the %d nearest builds %s", r.Count, r.Of, limitSay[r.Limit])
+	case picker.NotStiff:
+		return fmt.Sprintf("no divider stiff enough: the nearest builds move IC by at least %.0f %% over the hFE range", 100*r.BetaSpread)
+	case picker.NoPurchase:
+		return "no purchase of one or two resistor values gives a passing build"
+	}
+	return fmt.Sprintf("shortfall reason %d", r.Kind)
+}
+
+// Rejection words why a transistor line was left out of a search.
+func Rejection(r picker.Rejection) string {
+	name := fmt.Sprintf("%s (line %d, bin %s)", r.Line.Sheet.Label, r.Line.ID, r.Line.Bin)
+	var why string
+	switch r.Kind {
+	case picker.RejectQty:
+		why = fmt.Sprintf("only %d in stock, %d boards need %d", r.Qty, r.Boards, r.Boards)
+	case picker.RejectVCEO:
+		why = fmt.Sprintf("VCEO %g V is below the %.3g V supply / %.0f %% derating", r.VCEO_V, r.VCC_V, 100*picker.VoltageDerating)
+	case picker.RejectICMax:
+		why = fmt.Sprintf("IC max %g A is below the %g A target / %.0f %% derating", r.ICMax_A, r.IC_A, 100*picker.CurrentDerating)
+	case picker.RejectPower:
+		why = fmt.Sprintf("%.3g W at the target (mid-supply VCE) is over its %.3g W allowance at %g °C", r.Power_W, r.Allowed_W, r.Ambient_C)
+	case picker.RejectDatasheet:
+		why = fmt.Sprintf("datasheet: %v", r.Err)
+	default:
+		why = fmt.Sprintf("left out (%d)", r.Kind)
+	}
+	return name + ": " + why
+}
+
+// Purchase words one part to buy, e.g. "RE: 1K0 (E24, ±5 %, 0.25 W), 2 pieces".
+func Purchase(p picker.Purchase) string {
+	if p.Slot == picker.PartTransistor {
+		return fmt.Sprintf("transistor: %v with VCEO ≥ %.3g V, IC max ≥ %s, %d pieces", p.Polarity, p.VCEO_V, notation.FormatCurrent(p.ICMax_A), p.Qty)
+	}
+	return fmt.Sprintf("%s: %s (%s, ±%g %%, %g W), %d pieces", strings.ToUpper(p.Slot), notation.FormatResistance(p.Ohm), p.Series, 100*p.Tol, p.Rated_W, p.Qty)
+}
+
+// Words applies word to each item of xs.
+func Words[T any](xs []T, word func(T) string) []string {
+	out := make([]string, len(xs))
+	for i, x := range xs {
+		out[i] = word(x)
+	}
+	return out
+}
