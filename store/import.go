@@ -80,7 +80,7 @@ func (db *DB) Import(ctx context.Context, b Batch, opt ImportOptions) (ImportRes
 		return ImportResult{}, &InvalidError{Problems: problems}
 	}
 	var res ImportResult
-	err := db.write(ctx, func(tx *sqlx.Tx) error {
+	err := db.writeFor(ctx, ReasonImport, 0, func(tx *sqlx.Tx) error {
 		res = ImportResult{}
 		p, err := newPutter(ctx, tx)
 		if err != nil {

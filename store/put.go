@@ -29,7 +29,11 @@ func newPutter(ctx context.Context, tx *sqlx.Tx) (*putter, error) {
 		{&p.find, `SELECT id FROM parts WHERE kind = ? AND ident = ? AND bin = ?`},
 		{&p.spelling, `SELECT ident FROM parts WHERE kind = ? AND bin = ? AND ident = ? COLLATE NOCASE
 			ORDER BY id LIMIT 1`},
-		{&p.insPart, `INSERT INTO parts (kind, ident, qty, bin, note) VALUES (?, ?, ?, ?, ?)`},
+		// A new line never takes the ID of a removed one: the ledger and
+		// the builds keep naming removed lines by their IDs.
+		{&p.insPart, `INSERT INTO parts (id, kind, ident, qty, bin, note) VALUES (1 + max(
+			(SELECT coalesce(max(id), 0) FROM parts), (SELECT coalesce(max(line), 0) FROM ledger),
+			(SELECT coalesce(max(line), 0) FROM build_parts)), ?, ?, ?, ?, ?)`},
 		{&p.insR, `INSERT INTO resistors (part_id, ohm, tol, rated_w, knee_c, max_c, tcr_ppm_per_k, tech)
 			VALUES (?, ?, ?, ?, ?, ?, ?, ?)`},
 		{&p.insT, `INSERT INTO transistors (part_id, label, polarity, hfe_min, hfe_max, hfe_typ, hfe_at_a,
@@ -171,7 +175,7 @@ func (db *DB) add(ctx context.Context, what string, problems []Problem,
 		return AddResult{}, fmt.Errorf("add %s: %w", what, &InvalidError{Problems: problems})
 	}
 	var res AddResult
-	err := db.write(ctx, func(tx *sqlx.Tx) error {
+	err := db.writeFor(ctx, ReasonAdd, 0, func(tx *sqlx.Tx) error {
 		p, err := newPutter(ctx, tx)
 		if err != nil {
 			return err

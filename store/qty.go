@@ -24,7 +24,7 @@ func qtyOf(ctx context.Context, tx *sqlx.Tx, id int64) (int, error) {
 // with ErrBelowZero and changes nothing; a missing line is ErrNotFound.
 func (db *DB) Adjust(ctx context.Context, id int64, delta int) (int, error) {
 	var qty int
-	err := db.write(ctx, func(tx *sqlx.Tx) error {
+	err := db.writeFor(ctx, ReasonAdjust, 0, func(tx *sqlx.Tx) error {
 		have, err := qtyOf(ctx, tx, id)
 		if err != nil {
 			return err
@@ -53,7 +53,7 @@ func (db *DB) SetQty(ctx context.Context, id int64, qty int) (int, error) {
 	if qty > MaxQty {
 		return 0, fmt.Errorf("set part %d: %w: quantity %d is above %d", id, ErrInvalid, qty, MaxQty)
 	}
-	err := db.write(ctx, func(tx *sqlx.Tx) error {
+	err := db.writeFor(ctx, ReasonCount, 0, func(tx *sqlx.Tx) error {
 		if _, err := qtyOf(ctx, tx, id); err != nil {
 			return err
 		}
@@ -67,8 +67,13 @@ func (db *DB) SetQty(ctx context.Context, id int64, qty int) (int, error) {
 }
 
 // Remove deletes line id with its tags; ErrNotFound when there is none.
+// A line an open build holds is refused with a *HeldError naming the
+// builds, and stays.
 func (db *DB) Remove(ctx context.Context, id int64) error {
-	err := db.write(ctx, func(tx *sqlx.Tx) error {
+	err := db.writeFor(ctx, ReasonRemove, 0, func(tx *sqlx.Tx) error {
+		if err := refuseHeld(ctx, tx, id); err != nil {
+			return err
+		}
 		res, err := tx.ExecContext(ctx, `DELETE FROM parts WHERE id = ?`, id)
 		if err != nil {
 			return err

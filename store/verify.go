@@ -11,8 +11,8 @@ import (
 
 // Verify runs SQLite's integrity and foreign-key checks and the stock's own
 // consistency checks (every line has exactly its kind's detail row, its
-// identity matches its values, its values pass Validate, every recorded
-// schema step is known). It returns the problems found; none means clean.
+// identity matches its values, its values pass Validate, every quantity is
+// what the ledger sums to, every recorded schema step is known). It returns the problems found; none means clean.
 func (db *DB) Verify(ctx context.Context) ([]string, error) {
 	var problems []string
 	err := db.read(ctx, func(tx *sqlx.Tx) error {
@@ -50,6 +50,11 @@ func (db *DB) Verify(ctx context.Context) ([]string, error) {
 			return fmt.Errorf("detail rows: %w", err)
 		}
 		problems = append(problems, orphans...)
+		ledger, err := ledgerProblems(ctx, tx)
+		if err != nil {
+			return err
+		}
+		problems = append(problems, ledger...)
 		var rs []resistorRow
 		if err := tx.SelectContext(ctx, &rs, resistorSelect+` ORDER BY p.id`); err != nil {
 			return fmt.Errorf("read resistors: %w", err)

@@ -3,6 +3,7 @@ package root
 import (
 	"github.com/spf13/cobra"
 
+	"biasbin/cmd/internal/backupcmd"
 	"biasbin/cmd/internal/checkcmd"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/democmd"
@@ -17,5 +18,6 @@ func subcommands(f *cmdutil.Factory) []*cobra.Command {
 		checkcmd.New(f),
 		democmd.New(f),
 		stockcmd.New(f),
+		backupcmd.New(f),
 	}
 }

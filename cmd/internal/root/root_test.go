@@ -46,6 +46,7 @@ func TestNothingOpenedForHelp(t *testing.T) {
 		{[]string{"check", "--help"}, "--transistor"},
 		{[]string{"stock", "list", "--help"}, "--kind"},
 		{[]string{"demo", "--help"}, "demo"},
+		{[]string{"backup", "--help"}, "restore"},
 	}
 	for _, c := range cases {
 		out, errOut, code := run(t, nil, append([]string{"--db", db}, c.args...)...)
