@@ -82,13 +82,43 @@
 //
 // # Search
 //
-// Each topology has a search plan; the divider's covers (device, RE, R2,
-// R1, RC) over the resistance levels (distinct values, ascending; the
-// values of one level share one nominal point). Request.Exhaustive solves
-// the nominal point of every level tuple and scores every build. The
-// default search first scores a few hand-method builds per device and
-// hill-climbs from the best (order only), then runs the branch and bound
-// below. Both keep the pool of the best Finalists builds; the pool's
+// The search works on resistance levels (distinct values, ascending; the
+// values of one level share one nominal point) and level tuples, one
+// level per position. Request.Exhaustive solves the nominal point of
+// every level tuple and scores every build. The default search first
+// scores a few hand-method builds per device (the plan's seed) and
+// hill-climbs from the best (order only, shared by every topology), then
+// runs the plan's branch and bound.
+//
+// # How a topology plugs in
+//
+// A topology is two pieces, and nothing else in the package knows it:
+//
+//   - a layout (layout.go): its positions in order — the solver slot and
+//     the name of each (the Candidate.Positions keys), which position is
+//     RC and which RE (the VCE target and the emitter term read them),
+//     and the tolerance signs of the two corners the headroom floor
+//     solves (any signs keep that floor a lower bound). The evaluator
+//     (nominal.go, score.go, corners.go, combo.go) builds stages, builds,
+//     tie-break keys, IDs and reasons from the layout alone, and the
+//     exhaustive evaluation and the hill-climb (plan.go) walk any number
+//     of positions up to maxPos.
+//   - a plan (plan.go's interface): seed, a few hand-method builds per
+//     device, and search, which must cover every level tuple of every
+//     device — evaluating it, or showing that a lower bound on the score
+//     of every build it drops exceeds the pool's threshold T. Its bounds
+//     are its own, each stated at its site and argued from the nominal
+//     point's monotonicity in that topology's resistors (as L1 and L2
+//     below for the divider); the threshold-derived window (IC within
+//     ±T/w_QPoint of the target, boundsNow) and the per-build cuts of
+//     scoreVariants hold for every topology.
+//
+// TestSearchMatchesExhaustive compares every plan with the exhaustive
+// evaluation on random stocks.
+//
+// # The divider's plan
+//
+// The divider's plan covers (device, RE, R2, R1, RC). Both keep the pool of the best Finalists builds; the pool's
 // threshold T is the last member's score once the pool is full of passing
 // builds (+∞ before). A build whose score is shown to exceed T can never
 // enter: a passing one would rank below the last member, a failing one

@@ -31,13 +31,13 @@ func Pick(stock Stock, req Request) (Result, error) {
 	var cnt counters
 	p := newPool(s.pool)
 	if len(e.devs) > 0 && len(e.vs.levels) > 0 {
-		pl := planFor(e)
 		if s.req.Exhaustive {
-			pl.exhaustive(e, p, &cnt)
+			e.exhaustive(p, &cnt)
 		} else {
-			pl.seed(e, p, &cnt)
-			pl.polish(e, p, &cnt)
-			pl.search(e, p, &cnt)
+			pl := planFor(e)
+			pl.seed(p, &cnt)
+			e.polish(p, &cnt)
+			pl.search(p, &cnt)
 		}
 	}
 	res.Evaluated = cnt.evaluated
@@ -80,7 +80,7 @@ func newEvaluator(s settings, stock Stock) (*evaluator, []Rejection) {
 	vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim)
 	devs, rejected := s.transistorCandidates(stock.Transistors)
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
-	e := &evaluator{s: s, vs: &vs, devs: devs}
+	e := &evaluator{s: s, lay: layoutOf(s.topo), vs: &vs, devs: devs}
 	for i := range e.devs {
 		e.devs[i].betaNomMin = e.nominalBetaMin(&e.devs[i])
 	}
@@ -98,10 +98,13 @@ func sign64(v int64) int64 {
 }
 
 // combinations is the number of builds the search covers: devices times
-// the values per position to the fourth power.
+// the values per position to the power of the positions.
 func (e *evaluator) combinations() int64 {
-	v := int64(len(e.vs.values))
-	return int64(len(e.devs)) * v * v * v * v
+	c := int64(len(e.devs))
+	for range e.lay.n {
+		c *= int64(len(e.vs.values))
+	}
+	return c
 }
 
 // finalists runs the Monte Carlo yield of the pool, adds the yield term
@@ -115,7 +118,7 @@ func (e *evaluator) finalists(items []*evaluated) ([]Candidate, error) {
 	}
 	fs := make([]fin, 0, len(items))
 	for _, ev := range items {
-		c, err := e.candidate(ev)
+		c, err := ev.e.candidate(ev)
 		if err != nil {
 			return nil, err
 		}
@@ -182,14 +185,14 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 		Failing:         ev.failing,
 		VCETarget_V:     e.vceTarget(d, e.ohms(ev.c.lv)),
 	}
-	for i, vi := range ev.c.val {
+	for i, vi := range ev.c.val[:e.lay.n] {
 		v := e.vs.values[vi]
 		pos := Position{Ohm: v.ohm, Arrangement: v.arr, Spec: v.spec}
 		for _, li := range v.parts() {
 			r := e.vs.lines[li]
 			pos.Parts = append(pos.Parts, Part{ID: r.ID, Ohm: r.Ohm, Bin: r.Bin})
 		}
-		c.Positions[slotNames[i]] = pos
+		c.Positions[e.lay.names[i]] = pos
 	}
 	if wc, err := solver.EvalWorstCase(b, e.s.lim); err == nil {
 		c.Worst = wc
@@ -217,10 +220,10 @@ func keySeed(key string) uint64 {
 // lines give the same ID whatever the request.
 func (e *evaluator) id(c combo) string {
 	var sb strings.Builder
-	fmt.Fprintf(&sb, "%v|t%d", e.s.topo, e.devs[c.dev].line.ID)
-	for i, vi := range c.val {
+	fmt.Fprintf(&sb, "%v|t%d", e.lay.topo, e.devs[c.dev].line.ID)
+	for i, vi := range c.val[:e.lay.n] {
 		v := e.vs.values[vi]
-		fmt.Fprintf(&sb, "|%s:%s", slotNames[i], v.arr)
+		fmt.Fprintf(&sb, "|%s:%s", e.lay.names[i], v.arr)
 		for _, li := range v.parts() {
 			fmt.Fprintf(&sb, ":%d", e.vs.lines[li].ID)
 		}

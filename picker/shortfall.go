@@ -131,7 +131,7 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 	var parts [nPos]Purchase
 	for i, r := range id {
 		ohm := eseries.Nearest(buySeries, r)
-		p := Purchase{Slot: slotNames[i], Ohm: ohm, Series: buySeries.String(), Tol: buyTol, Qty: 2 * s.boards}
+		p := Purchase{Slot: e.lay.names[i], Ohm: ohm, Series: buySeries.String(), Tol: buyTol, Qty: 2 * s.boards}
 		est := s.icT * s.icT * ohm // collector and emitter positions
 		if i == iR1 || i == iR2 {
 			est = s.vcc * s.vcc / (id[iR1] + id[iR2]) * (id[i] / (id[iR1] + id[iR2]))
@@ -186,7 +186,7 @@ func (e *evaluator) fitsWith(d *device, ideal [nPos]float64, bought map[int]Purc
 	if len(vs.levels) == 0 {
 		return false
 	}
-	ev := &evaluator{s: e.s, vs: &vs, devs: []device{*d}}
+	ev := &evaluator{s: e.s, lay: e.lay, vs: &vs, devs: []device{*d}}
 	ev.devs[0].betaNomMin = ev.nominalBetaMin(&ev.devs[0]) // over these values
 	inf := func() float64 { return math.Inf(1) }
 	var choices [nPos][]int

@@ -22,7 +22,7 @@ func TestQuantities(t *testing.T) {
 		t.Fatal(err)
 	}
 	vs := buildValues(lines, 2, true, 50, s.lim)
-	e := &evaluator{s: s, vs: &vs, devs: []device{{line: smallNPN(9, 100, 300)}}}
+	e := &evaluator{s: s, lay: &dividerLayout, vs: &vs, devs: []device{{line: smallNPN(9, 100, 300)}}}
 	find := func(ohm float64, arr string) int {
 		for i, v := range vs.values {
 			if sameOhm(v.ohm, ohm) && v.arr == arr {

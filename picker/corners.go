@@ -1,0 +1,115 @@
+package picker
+
+import (
+	"math"
+
+	"biasbin/solver"
+)
+
+// Headroom shape (see doc.go).
+const (
+	// headroomSatBand: the saturation penalty starts when the lowest
+	// corner VCE comes within this share of the supply of VCE(sat) plus
+	// the margin.
+	headroomSatBand = 0.10
+	// headroomCutBand: the cut-off penalty starts when the lowest corner
+	// IC falls below this share of the target.
+	headroomCutBand = 0.50
+)
+
+// headroomFloor solves two of the worst-case corners of b — the one
+// expected to give the lowest VCE (hFE max, hot, supply low, each
+// resistor at the end of its tolerance the layout's lowVCE names) and the
+// one expected to give the lowest IC (hFE min, cold, supply low, lowIC) —
+// and returns the headroom term those two alone give. The lowest VCE and
+// IC over all corners are at most these corners' values and the term
+// falls as they rise, so it is a lower bound on the build's headroom term
+// whatever the true extreme corners are. fails is true when either corner
+// already breaks a hard limit (outside the active region or the VCE
+// margin, a part over its allowance, or not solvable): the build then
+// fails for certain, and the headroom floor is then 0.
+func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h float64, fails bool) {
+	d := &e.devs[dev]
+	lowV := 1 - e.s.vccTol
+	var devVCE, devIC [maxPos]float64
+	for i := range e.lay.n {
+		tol := b.Resistors[e.lay.slots[i]].Tol
+		devVCE[i], devIC[i] = e.lay.lowVCE[i]*tol, e.lay.lowIC[i]*tol
+	}
+	cnt.solves += 2
+	floor := d.vceSat + e.s.lim.VCEMargin_V
+	opV, err := solver.SolveSelfHeated(b.Resolve(e.lay.slotsOf(devVCE), lowV, e.s.ambMax), d.hi, e.s.ambMax, d.thetaJA, d.tjMax_C)
+	if err != nil || opV.Region != solver.Active || opV.VCE_V < floor || !solver.EvalDissipation(b, opV, e.s.ambMax, e.s.lim).Ok {
+		return 0, true
+	}
+	opI, err := solver.SolveSelfHeated(b.Resolve(e.lay.slotsOf(devIC), lowV, e.s.ambMin), d.lo, e.s.ambMin, d.thetaJA, d.tjMax_C)
+	if err != nil || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
+		return 0, true
+	}
+	sat := (opV.VCE_V - d.vceSat - e.s.lim.VCEMargin_V) / e.s.vcc
+	h = math.Max(0, 1-sat/headroomSatBand)
+	return h + math.Max(0, 1-opI.IC_A/e.s.icT/headroomCutBand), false
+}
+
+// finish runs the worst-case corners of a build and completes its
+// pre-yield score. It returns nil when the corners cannot be solved.
+func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *evaluated {
+	d := &e.devs[c.dev]
+	ev := &evaluated{e: e, c: c, key: e.key(c), op: t.op, beta: t.beta, util: util}
+	wc, err := solver.EvalWorstCaseWith(b, e.s.lim, solver.WorstCaseOptions{SkipCorners: true, SkipRSS: true})
+	if err != nil {
+		ev.failing = append(ev.failing, Failure{Kind: FailWorstCase, Err: err})
+		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util}
+	} else {
+		ev.worst = wc
+		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
+		ev.failing = e.hardLimits(d, wc)
+	}
+	if t.bench != nil {
+		ev.failing = append(ev.failing, *t.bench)
+	}
+	w := e.s.w
+	ev.score = w.QPoint*ev.terms.QPoint + w.Emitter*ev.terms.Emitter + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization
+	return ev
+}
+
+// headroom is the worst-case headroom term (see doc.go): a saturation
+// part growing linearly from 0 when the lowest corner VCE is
+// headroomSatBand·VCC above VCE(sat)+margin to 1 at VCE(sat)+margin (and
+// beyond), plus a cut-off part growing from 0 when the lowest corner IC is
+// headroomCutBand of the target to 1 at IC = 0.
+func (e *evaluator) headroom(d *device, wc solver.WorstCase) float64 {
+	sat := (wc.VCEMin_V - d.vceSat - e.s.lim.VCEMargin_V) / e.s.vcc
+	h := math.Max(0, 1-sat/headroomSatBand)
+	cut := wc.ICMin_A / e.s.icT
+	return h + math.Max(0, 1-cut/headroomCutBand)
+}
+
+// hardLimits lists why a build fails: a corner outside the active region
+// or within the VCE margin of saturation, a part over its derated,
+// margined rating at some corner, the collector current over the
+// transistor's IC max.
+func (e *evaluator) hardLimits(d *device, wc solver.WorstCase) []Failure {
+	var why []Failure
+	if !wc.AllActive {
+		cn := wc.VCEMinAt
+		why = append(why, Failure{Kind: FailCorners, NotActive: wc.NotActive, Corners: wc.Count, Region: cn.OP.Region,
+			VCE_V: wc.VCEMin_V, VCESat_V: d.vceSat, Margin_V: e.s.lim.VCEMargin_V, HFE: cn.BF, Ambient_C: cn.Temp_C, VCC_V: math.Abs(cn.VCC_V)})
+	}
+	if !wc.Dissipation.Ok {
+		worstU, worstName := 0.0, ""
+		for j := range e.lay.n {
+			if u := wc.Dissipation.Resistor[e.lay.slots[j]].Utilization; u > worstU {
+				worstU, worstName = u, e.lay.names[j]
+			}
+		}
+		if u := wc.Dissipation.Transistor.Utilization; u > worstU {
+			worstU, worstName = u, PartTransistor
+		}
+		why = append(why, Failure{Kind: FailAllowance, Part: worstName, Utilization: worstU})
+	}
+	if im := d.line.Sheet.ICMax_A; im > 0 && wc.ICMax_A > im {
+		why = append(why, Failure{Kind: FailICMax, IC_A: wc.ICMax_A, ICMax_A: im})
+	}
+	return why
+}

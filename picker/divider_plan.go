@@ -1,0 +1,230 @@
+package picker
+
+import (
+	"cmp"
+	"math"
+	"runtime"
+	"slices"
+	"sync"
+	"sync/atomic"
+)
+
+// Positions of a divider build's arrays: R1, R2, RC, RE (dividerLayout).
+const (
+	iR1 = iota
+	iR2
+	iRC
+	iRE
+	nPos
+)
+
+// dividerPlan searches R1, R2, RC, RE of a voltage-divider stage.
+type dividerPlan struct {
+	e *evaluator
+	// cache of solved level tuples of the current device and RE
+	cache tupleCache
+	// splitGuess is where the last RC scan split (a start for the next)
+	splitGuess int
+	// per-RE memos of searchRE, kept to reuse their storage
+	upSeen, floorSeen map[int]float64
+	// best passing seed score and its RE level per device: the search
+	// visits devices from the best seed and each device's RE levels
+	// outward from its best seed (any order is sound; this one tightens
+	// the threshold early).
+	seedBest []float64
+	seedRE   []int
+}
+
+// tuple returns the (cached) solved level tuple of device dev.
+func (d *dividerPlan) tuple(dev int, lv [maxPos]int, cnt *counters) *tuple {
+	return d.cache.get(d.e, dev, lv, cnt)
+}
+
+// seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2,
+// 0.3, 0.4 and 0.05 of VCC; R_TH = 0.1, 0.03 and 0.3 (hFE min + 1)·RE with
+// VBE 0.65 V (common practice); R1 then set by a search for the target
+// current, RC for the target VCE, and the 3×3 R1, RC levels around them
+// scored. Like polish it changes only the order of the search.
+func (d *dividerPlan) seed(p *pool, cnt *counters) {
+	e := d.e
+	n := len(e.vs.levels)
+	if n == 0 {
+		return
+	}
+	d.seedBest = make([]float64, len(e.devs))
+	d.seedRE = make([]int, len(e.devs))
+	for di := range e.devs {
+		d.cache.reset()
+		dv := &e.devs[di]
+		_, vceHi := e.targetBand(dv)
+		d.seedBest[di] = math.Inf(1)
+		for _, veShare := range []float64{0.1, 0.2, 0.3, 0.4, 0.05} {
+			for _, stiff := range []float64{0.1, 0.03, 0.3} {
+				ve := e.s.vcc * veShare
+				re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
+				rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
+				rth := stiff * (dv.hfeMin + 1) * e.vs.levels[re].ohm
+				vb := ve + 0.65
+				r2 := clampLevel(e.vs.levelAtOrAbove(rth*e.s.vcc/(e.s.vcc-vb)), n)
+				// R1: first level whose IC is at or below the target.
+				r1 := firstLevel(n, func(i int) bool {
+					return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt).icAtMost(e.s.icT)
+				})
+				r1 = clampLevel(r1, n)
+				rc = firstLevel(n, func(i int) bool {
+					return d.tuple(di, [maxPos]int{r1, r2, i, re}, cnt).vceAtMost(vceHi)
+				})
+				for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
+					for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
+						e.scoreVariants(d.tuple(di, [maxPos]int{a, r2, c, re}, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
+							if len(ev.failing) == 0 && ev.score < d.seedBest[di] {
+								d.seedBest[di], d.seedRE[di] = ev.score, re
+							}
+							p.add(ev)
+						}, cnt)
+					}
+				}
+			}
+		}
+	}
+}
+
+// rcBand returns the RC levels whose builds can have a nominal VCE within
+// delta·VCC of the target band (bound RC, doc.go): with IC in
+// [icLo, icHi] and IE in [IC, kE·IC], VCE = VCC − IC·RC − IE·RE lies in
+// [VCC − icHi(RC + kE·RE), VCC − icLo(RC + RE)].
+func (e *evaluator) rcBand(b bounds, reOhm, kE, vceLo, vceHi float64) (lo, hi int) {
+	n := len(e.vs.levels)
+	if !b.finite {
+		return 0, n - 1
+	}
+	vcc := e.s.vcc
+	lo = e.vs.levelAtOrAbove((vcc-vceHi-b.delta*vcc)/b.icHi - kE*reOhm)
+	hi = n - 1
+	if b.icLo > 0 {
+		rcMax := (vcc-vceLo+b.delta*vcc)/b.icLo - reOhm
+		if rcMax < 0 {
+			return 1, 0
+		}
+		hi = min(n-1, e.vs.levelAtOrAbove(rcMax*(1+1e-12))-1)
+		if hi+1 < n && sameOhm(e.vs.levels[hi+1].ohm, rcMax) {
+			hi++
+		}
+	}
+	return lo, hi
+}
+
+// search is the branch and bound over (device, RE, R2, R1, RC); doc.go
+// states each bound and why it is sound.
+func (d *dividerPlan) search(p *pool, cnt *counters) {
+	e := d.e
+	n := len(e.vs.levels)
+	if n == 0 {
+		return
+	}
+	s := &e.s
+	w := s.w
+	order := make([]int, len(e.devs))
+	for i := range order {
+		order[i] = i
+	}
+	if len(d.seedBest) == len(e.devs) {
+		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(d.seedBest[a], d.seedBest[b]) })
+	}
+	// The work: per device, RE levels from the best seed upward, then
+	// downward below it. Workers take items in this order; an upward run
+	// ends for everyone once one RE in it fails a bound that rises with
+	// RE (U-RE, Q-RE), whatever worker found it.
+	type item struct {
+		di, re int
+		up     bool
+	}
+	var items []item
+	for _, di := range order {
+		start := 0
+		if len(d.seedRE) == len(e.devs) {
+			start = d.seedRE[di]
+		}
+		for re := start; re < n; re++ {
+			items = append(items, item{di, re, true})
+		}
+		for re := start - 1; re >= 0; re-- {
+			items = append(items, item{di, re, false})
+		}
+	}
+	upStop := make([]atomic.Int64, len(e.devs))
+	for i := range upStop {
+		upStop[i].Store(int64(n))
+	}
+	total := int64(len(items))
+	var next atomic.Int64
+	var progressMu sync.Mutex
+	worker := func(wd *dividerPlan, wc *counters) {
+		for {
+			i := next.Add(1) - 1
+			if i >= total {
+				return
+			}
+			it := items[i]
+			if i%64 == 0 {
+				progressMu.Lock()
+				e.progress(i, total)
+				progressMu.Unlock()
+			}
+			if it.up && int64(it.re) >= upStop[it.di].Load() {
+				continue
+			}
+			dv := &e.devs[it.di]
+			vceLo, vceHi := e.targetBand(dv)
+			kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
+			bd := e.boundsNow(p)
+			reOhm := e.vs.levels[it.re].ohm
+			if bd.finite {
+				// Bound U-RE: P(RE) = IE²·RE ≥ icLo²·RE. Bound Q-RE:
+				// VCE ≤ VCC − IC·(RC + RE) ≤ VCC − icLo·(RCmin + RE).
+				// Bound E-RE: VE = IE·RE ≥ icLo·RE, so the emitter term
+				// is at least (icLo·RE − VE max)/VCC. All rise with RE.
+				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr ||
+					w.QPoint*(vceLo-(s.vcc-bd.icLo*(e.vs.levels[0].ohm+reOhm)))/s.vcc > bd.thr ||
+					w.Emitter*(bd.icLo*reOhm-s.veHi)/s.vcc > bd.thr {
+					if it.up {
+						for {
+							cur := upStop[it.di].Load()
+							if int64(it.re) >= cur || upStop[it.di].CompareAndSwap(cur, int64(it.re)) {
+								break
+							}
+						}
+					}
+					continue
+				}
+				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[it.re].allowHot_W > bd.thr {
+					continue
+				}
+				// Bound E-RE, low side: VE = IE·RE ≤ kE·icHi·RE, so the
+				// emitter term is at least (VE min − kE·icHi·RE)/VCC.
+				if w.Emitter*(s.veLo-kE*bd.icHi*reOhm)/s.vcc > bd.thr {
+					continue
+				}
+			}
+			wd.searchRE(e, p, wc, it.di, it.re, kE, vceLo, vceHi)
+		}
+	}
+	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0)))
+	var wg sync.WaitGroup
+	wcnt := make([]counters, workers)
+	for k := range workers {
+		wd := &dividerPlan{e: e}
+		wg.Go(func() { worker(wd, &wcnt[k]) })
+	}
+	wg.Wait()
+	for _, c := range wcnt {
+		cnt.evaluated += c.evaluated
+		cnt.solves += c.solves
+	}
+	e.progress(total, total)
+}
+
+// searchWorkers is the number of goroutines of the default search. The
+// result does not depend on it: the pool keeps the exact best builds
+// whatever order they arrive in; only the counters of work done vary.
+const searchWorkers = 2

@@ -1,0 +1,52 @@
+package picker
+
+import "biasbin/solver"
+
+// maxPos is the most resistor positions a topology has (the divider's
+// four); a build's per-position arrays have this length and use the first
+// layout.n entries.
+const maxPos = 4
+
+// layout is what the evaluator needs to know of a topology's positions:
+// which solver slot each holds, its name, and which positions carry the
+// collector and emitter resistors. A topology plugs into the search with a
+// layout and a plan (plan.go); doc.go, "Search", says how.
+type layout struct {
+	topo  solver.Topology
+	n     int                 // positions in use
+	slots [maxPos]solver.Slot // solver slot per position
+	names [maxPos]string      // position names in JSON and on screen
+	rc    int                 // position of RC
+	re    int                 // position of RE
+	// lowVCE and lowIC are the tolerance signs (+1 high, −1 low) per
+	// position of the two corners headroomFloor solves: the one expected
+	// to give the lowest VCE and the one expected to give the lowest IC.
+	// Any choice keeps the floor a lower bound; a good one makes it tight.
+	lowVCE, lowIC [maxPos]float64
+}
+
+// dividerLayout: R1, R2, RC, RE. The lowest VCE comes with the most base
+// drive (R1 low, R2 high) and the largest collector drop (RC high, RE
+// low); the lowest IC with the least drive (R1 high, R2 low, RE high).
+var dividerLayout = layout{
+	topo: solver.Divider, n: 4,
+	slots: [maxPos]solver.Slot{solver.R1, solver.R2, solver.RC, solver.RE},
+	names: [maxPos]string{"r1", "r2", "rc", "re"},
+	rc:    2, re: 3,
+	lowVCE: [maxPos]float64{-1, 1, 1, -1},
+	lowIC:  [maxPos]float64{1, -1, 1, 1},
+}
+
+// layoutOf returns the layout of a topology.
+func layoutOf(t solver.Topology) *layout {
+	return &dividerLayout
+}
+
+// slotsOf maps per-position deviations onto the solver's slot array.
+func (l *layout) slotsOf(v [maxPos]float64) [solver.NumSlots]float64 {
+	var out [solver.NumSlots]float64
+	for i := range l.n {
+		out[l.slots[i]] = v[i]
+	}
+	return out
+}

@@ -1,0 +1,221 @@
+package picker
+
+import "math"
+
+// plan is the search over one topology's positions. Each topology
+// provides one (doc.go, "Search", says what a plan must guarantee); the
+// exhaustive evaluation and the hill-climb are shared by all.
+type plan interface {
+	// seed evaluates a few hand-method builds per device so the pool
+	// fills early and the bounds start tight.
+	seed(p *pool, cnt *counters)
+	// search covers every build: evaluating it or proving by a bound that
+	// it cannot enter the pool.
+	search(p *pool, cnt *counters)
+}
+
+// planFor returns the search plan of the evaluator's topology.
+func planFor(e *evaluator) plan {
+	return &dividerPlan{e: e}
+}
+
+// progress reports the search's progress when the request asks for it.
+func (e *evaluator) progress(done, total int64) {
+	if e.s.req.Progress != nil {
+		e.s.req.Progress(done, total)
+	}
+}
+
+// exhaustive evaluates every build of every device: the nominal point of
+// each level tuple, and every value combination of it, with no bound but
+// the exact per-build ones of scoreVariants.
+func (e *evaluator) exhaustive(p *pool, cnt *counters) {
+	n := len(e.vs.levels)
+	np := e.lay.n
+	if n == 0 {
+		return
+	}
+	total := int64(len(e.devs) * n)
+	for di := range e.devs {
+		for first := range n {
+			e.progress(int64(di*n+first), total)
+			// the first position is fixed; the others run an odometer
+			var lv [maxPos]int
+			lv[0] = first
+			for {
+				t := e.newTuple(di, lv)
+				cnt.solves++
+				e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
+				i := np - 1
+				for ; i >= 1; i-- {
+					if lv[i]++; lv[i] < n {
+						break
+					}
+					lv[i] = 0
+				}
+				if i < 1 {
+					break
+				}
+			}
+		}
+	}
+	e.progress(total, total)
+}
+
+// tupleCache holds the solved level tuples of one device while a plan
+// works on it, reusing its storage across resets.
+type tupleCache struct {
+	m map[[maxPos]int]*tuple
+	// slab holds the cached tuples; used counts the ones in use
+	slab [][]tuple
+	used int
+}
+
+// reset empties the cache, keeping its storage.
+func (tc *tupleCache) reset() {
+	if tc.m == nil {
+		tc.m = map[[maxPos]int]*tuple{}
+	}
+	clear(tc.m)
+	tc.used = 0
+}
+
+// get returns the (cached) solved level tuple of device dev.
+func (tc *tupleCache) get(e *evaluator, dev int, lv [maxPos]int, cnt *counters) *tuple {
+	if t, ok := tc.m[lv]; ok {
+		return t
+	}
+	t := tc.alloc()
+	e.solveTuple(t, dev, lv)
+	cnt.solves++
+	tc.m[lv] = t
+	return t
+}
+
+// peek returns a cached tuple without solving.
+func (tc *tupleCache) peek(lv [maxPos]int) (*tuple, bool) {
+	t, ok := tc.m[lv]
+	return t, ok
+}
+
+// slabChunk is the number of tuples allocated at once for the cache.
+const slabChunk = 1024
+
+// alloc returns storage for one cached tuple, reused after reset
+// (nothing keeps a tuple pointer beyond the cache).
+func (tc *tupleCache) alloc() *tuple {
+	k, i := tc.used/slabChunk, tc.used%slabChunk
+	if k == len(tc.slab) {
+		tc.slab = append(tc.slab, make([]tuple, slabChunk))
+	}
+	tc.used++
+	return &tc.slab[k][i]
+}
+
+// polish hill-climbs from the best passing builds in the pool: each
+// round moves one position one level up or down to the neighbour with the
+// best score, until no neighbour improves (at most maxPolishSteps rounds
+// per start). Every build it scores goes to the pool, so the threshold
+// falls early; it changes nothing but the order of the search.
+func (e *evaluator) polish(p *pool, cnt *counters) {
+	n := len(e.vs.levels)
+	type start struct {
+		c     combo
+		score float64
+	}
+	var starts []start
+	for _, it := range p.items {
+		if it.e == e && len(it.failing) == 0 && len(starts) < polishStarts {
+			starts = append(starts, start{it.c, it.score})
+		}
+	}
+	var tc tupleCache
+	for _, st := range starts {
+		c := st.c
+		tc.reset()
+		best := st.score
+		cur := c.lv
+		for range maxPolishSteps {
+			next, nextScore := cur, best
+			for pos := range e.lay.n {
+				for _, step := range []int{-1, 1} {
+					lv := cur
+					lv[pos] += step
+					if lv[pos] < 0 || lv[pos] >= n {
+						continue
+					}
+					t := tc.get(e, c.dev, lv, cnt)
+					e.scoreVariants(t, p.threshold, p.lastScore, func(ev *evaluated) {
+						p.add(ev)
+						if len(ev.failing) == 0 && ev.score < nextScore {
+							next, nextScore = lv, ev.score
+						}
+					}, cnt)
+				}
+			}
+			if nextScore >= best {
+				break
+			}
+			cur, best = next, nextScore
+		}
+	}
+}
+
+// Hill-climbing limits of polish.
+const (
+	polishStarts   = 5
+	maxPolishSteps = 40
+)
+
+// clampLevel keeps a level index inside [0, n).
+func clampLevel(i, n int) int { return max(0, min(i, n-1)) }
+
+// firstLevel returns the first index in [0, n) where the monotone
+// predicate f turns true (n when it never does): a binary search.
+func firstLevel(n int, f func(int) bool) int {
+	lo, hi := 0, n
+	for lo < hi {
+		m := int(uint(lo+hi) >> 1)
+		if f(m) {
+			hi = m
+		} else {
+			lo = m + 1
+		}
+	}
+	return lo
+}
+
+// bounds are the threshold-derived limits in force at one point of the
+// search: any build that can still enter the pool has its nominal IC in
+// [icLo, icHi] and its nominal VCE within delta·VCC of its target.
+type bounds struct {
+	thr, delta, icLo, icHi float64
+	finite                 bool
+}
+
+// boundsNow derives the limits from the pool's current threshold.
+func (e *evaluator) boundsNow(p *pool) bounds {
+	b := bounds{thr: p.threshold(), delta: math.Inf(1)}
+	if e.s.w.QPoint > 0 && !math.IsInf(b.thr, 1) {
+		b.delta = b.thr / e.s.w.QPoint
+		b.finite = true
+	}
+	b.icLo = e.s.icT * math.Max(0, 1-b.delta)
+	b.icHi = e.s.icT * (1 + b.delta)
+	return b
+}
+
+// targetBand returns bounds on the VCE target over all builds of device
+// dev: the request's VCE, the mid-point rule without load and bypass, and
+// [VCE(sat), mid-point] otherwise (the swing rule's r_ac/(R_dc+r_ac) lies
+// in (0, 1/2] because r_ac ≤ R_dc).
+func (e *evaluator) targetBand(dv *device) (lo, hi float64) {
+	if e.s.vceT > 0 {
+		return e.s.vceT, e.s.vceT
+	}
+	mid := (e.s.vcc + dv.vceSat) / 2
+	if e.s.rl == 0 && !e.s.bypass {
+		return mid, mid
+	}
+	return dv.vceSat, mid
+}

@@ -1,0 +1,101 @@
+package picker
+
+import (
+	"math"
+
+	"biasbin/solver"
+)
+
+// counters of a search.
+type counters struct {
+	evaluated int64 // builds whose every pre-yield term was computed
+	solves    int64
+}
+
+// scoreVariants scores every value combination of the tuple whose
+// quantities fit, computing the cheap terms first and stopping as soon as
+// a build's partial score exceeds the threshold thr() (the score of the
+// pool's last passing member; +Inf while the pool is not full of passing
+// builds). Each build that is fully scored goes to keep.
+func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep func(*evaluated), cnt *counters) {
+	if !t.ok {
+		return
+	}
+	n := e.lay.n
+	var L [maxPos][]int
+	for i := range n {
+		L[i] = e.vs.levels[t.c.lv[i]].values
+	}
+	// k walks every value combination, the last position fastest.
+	var k [maxPos]int
+	c := t.c
+	for {
+		for i := range n {
+			c.val[i] = L[i][k[i]]
+		}
+		e.scoreOne(t, c, thr, lastScore, keep, cnt)
+		i := n - 1
+		for ; i >= 0; i-- {
+			if k[i]++; k[i] < len(L[i]) {
+				break
+			}
+			k[i] = 0
+		}
+		if i < 0 {
+			return
+		}
+	}
+}
+
+// scoreOne scores one value combination of a solved tuple (see
+// scoreVariants).
+func (e *evaluator) scoreOne(t *tuple, c combo, thr, lastScore func() float64, keep func(*evaluated), cnt *counters) {
+	w := e.s.w
+	if !e.fitsQuantity(c) {
+		return
+	}
+	b := e.build(c)
+	dis := solver.EvalDissipation(b, t.op, e.s.ambMax, e.s.lim)
+	partial := w.QPoint*t.q + w.Emitter*t.em + w.Utilization*dis.MaxUtilization
+	if partial > thr() {
+		return
+	}
+	if th := thr(); !t.betaDone && !math.IsInf(th, 1) && w.Beta > 0 &&
+		partial+w.Beta*e.betaFloorAt(t) > th {
+		return // the beta term's floor settles it without two solves
+	}
+	e.betaSpread(t, cnt)
+	if !t.betaOK {
+		return
+	}
+	partial += w.Beta * math.Abs(t.beta)
+	if partial > thr() {
+		return
+	}
+	hlb, fails := e.headroomFloor(c.dev, b, cnt)
+	fails = fails || t.bench != nil
+	if th := thr(); fails && !math.IsInf(th, 1) || partial+w.Headroom*hlb > th {
+		return
+	}
+	if fails && partial+w.Headroom*hlb > lastScore() {
+		return // fails for certain and ranks below the last member
+	}
+	ev := e.finish(c, b, t, dis.MaxUtilization)
+	cnt.evaluated++
+	if ev != nil {
+		keep(ev)
+	}
+}
+
+// betaFloorAt is betaFloor at a solved divider tuple: its exact R_TH, RE,
+// RC and nominal IC (0 unless the tuple is active at its nominal point,
+// and 0 for the other topologies, which bound the beta term otherwise).
+func (e *evaluator) betaFloorAt(t *tuple) float64 {
+	if t.op.Region != solver.Active || e.lay.topo != solver.Divider {
+		return 0
+	}
+	r := t.r
+	ic := t.op.IC_A
+	rth := r[iR1] * r[iR2] / (r[iR1] + r[iR2])
+	return e.betaFloor(&e.devs[t.c.dev], betaWindow{RTH: rth, RTHMax: rth, RE: r[iRE], RCMin: r[iRC], RCMax: r[iRC], ICLo: ic, ICHi: ic})
+}
