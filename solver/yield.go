@@ -45,6 +45,25 @@ type YieldResult struct {
 	StdErr float64
 	Seed   uint64 // the seed when run by EvalYieldSeeded; 0 from EvalYield
 	Failed int    // boards whose solve returned an error (counted as failures)
+	// Samples holds every board's operating points, in drawing order, when
+	// YieldOptions.KeepBoards is set (nil otherwise).
+	Samples []BoardSample
+}
+
+// BoardSample is one Monte Carlo board as solved: its Q-point at each
+// ambient it was solved at (one with AmbientUniform, the minimum then the
+// maximum with AmbientExtremes) and whether it passed.
+type BoardSample struct {
+	Points []SamplePoint // the ambients solved before a failure, if any
+	Pass   bool          // inside the window at every ambient solved
+	Failed bool          // a solve returned an error (the board counts as a failure)
+}
+
+// SamplePoint is a board's Q-point at one ambient temperature.
+type SamplePoint struct {
+	Ambient_C float64
+	IC_A      float64
+	VCE_V     float64
 }
 
 // ResistorDist is how resistor values are drawn within their tolerance.
@@ -89,6 +108,9 @@ type YieldOptions struct {
 	Resistors ResistorDist
 	Beta      BetaDist
 	Ambient   AmbientMode
+	// KeepBoards fills YieldResult.Samples with every board's Q-points
+	// (for pictures of the spread); it changes no figure.
+	KeepBoards bool
 }
 
 // EvalYield runs a seeded Monte Carlo over n boards with the default
@@ -170,6 +192,12 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 		}
 		vccFactor := 1 + b.VCCTol*unit.Rand()
 		pass, failed := true, false
+		var sample BoardSample
+		keep := func(ta float64, op *OperatingPoint) {
+			if opt.KeepBoards {
+				sample.Points = append(sample.Points, SamplePoint{Ambient_C: ta, IC_A: op.IC_A, VCE_V: op.VCE_V})
+			}
+		}
 		if opt.Ambient == AmbientExtremes {
 			for _, ta := range [2]float64{b.AmbientMin_C, b.AmbientMax_C} {
 				op, err := SolveSelfHeated(b.Resolve(dev, vccFactor, ta), m, ta, theta, tjMax)
@@ -177,6 +205,7 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 					failed = true
 					break
 				}
+				keep(ta, &op)
 				if !w.Contains(&op) {
 					pass = false
 				}
@@ -187,8 +216,13 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 			if err != nil {
 				failed = true
 			} else {
+				keep(ta, &op)
 				pass = w.Contains(&op)
 			}
+		}
+		if opt.KeepBoards {
+			sample.Pass, sample.Failed = pass && !failed, failed
+			res.Samples = append(res.Samples, sample)
 		}
 		switch {
 		case failed:

@@ -3,6 +3,7 @@ package solver
 import (
 	"math"
 	"math/rand/v2"
+	"reflect"
 	"testing"
 )
 
@@ -130,7 +131,7 @@ func TestYieldReproducible(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if a != again {
+	if !reflect.DeepEqual(a, again) {
 		t.Errorf("same seed gave %+v then %+v", a, again)
 	}
 }
@@ -180,6 +181,67 @@ func BenchmarkYield10k(b *testing.B) {
 	for b.Loop() {
 		if _, err := EvalYieldSeeded(bd, w, 10000, 1, YieldOptions{}); err != nil {
 			b.Fatal(err)
+		}
+	}
+}
+
+// TestYieldKeepBoards checks the kept samples against the yield's own
+// definition (a board passes when its IC and VCE lie in the window at every
+// ambient solved; REFERENCE.md §9): the kept boards reproduce the counts,
+// and keeping them changes no figure.
+func TestYieldKeepBoards(t *testing.T) {
+	b := dividerBuild()
+	b.AmbientMin_C, b.AmbientMax_C = -10, 60
+	wc, err := WorstCaseExtremes(b, Limits{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := Window{ICMax_A: 0.5 * (wc.ICMin_A + wc.ICMax_A)}
+	for _, amb := range []AmbientMode{AmbientUniform, AmbientExtremes} {
+		plain, err := EvalYieldSeeded(b, w, 500, 3, YieldOptions{Ambient: amb})
+		if err != nil {
+			t.Fatal(err)
+		}
+		kept, err := EvalYieldSeeded(b, w, 500, 3, YieldOptions{Ambient: amb, KeepBoards: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(kept.Samples) != 500 || plain.Samples != nil {
+			t.Fatalf("ambient mode %d: %d samples kept, %d without asking; want 500 and 0", amb, len(kept.Samples), len(plain.Samples))
+		}
+		samples := kept.Samples
+		kept.Samples = nil
+		if !reflect.DeepEqual(kept, plain) {
+			t.Errorf("ambient mode %d: keeping boards changed the result: %+v, want %+v", amb, kept, plain)
+		}
+		pass := 0
+		for i, s := range samples {
+			want := 1
+			if amb == AmbientExtremes {
+				want = 2
+			}
+			if len(s.Points) != want {
+				t.Fatalf("ambient mode %d: board %d has %d points, want %d", amb, i, len(s.Points), want)
+			}
+			in := true
+			for j, p := range s.Points {
+				if p.Ambient_C < b.AmbientMin_C || p.Ambient_C > b.AmbientMax_C {
+					t.Errorf("board %d: ambient %g °C outside the range", i, p.Ambient_C)
+				}
+				if amb == AmbientExtremes && p.Ambient_C != [2]float64{b.AmbientMin_C, b.AmbientMax_C}[j] {
+					t.Errorf("board %d point %d: ambient %g °C, want the range's ends in order", i, j, p.Ambient_C)
+				}
+				in = in && w.Contains(&OperatingPoint{IC_A: p.IC_A, VCE_V: p.VCE_V})
+			}
+			if in != s.Pass {
+				t.Errorf("board %d: pass %v, but its points inside the window: %v", i, s.Pass, in)
+			}
+			if s.Pass {
+				pass++
+			}
+		}
+		if pass != kept.Pass || pass == 0 || pass == 500 {
+			t.Errorf("ambient mode %d: %d kept boards pass, result says %d (want strictly between 0 and 500)", amb, pass, kept.Pass)
 		}
 	}
 }
