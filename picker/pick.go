@@ -186,13 +186,7 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 		VCETarget_V:     e.vceTarget(d, e.ohms(ev.c.lv)),
 	}
 	for i, vi := range ev.c.val[:e.lay.n] {
-		v := e.vs.values[vi]
-		pos := Position{Ohm: v.ohm, Arrangement: v.arr, Spec: v.spec}
-		for _, li := range v.parts() {
-			r := e.vs.lines[li]
-			pos.Parts = append(pos.Parts, Part{ID: r.ID, Ohm: r.Ohm, Bin: r.Bin})
-		}
-		c.Positions[e.lay.names[i]] = pos
+		c.Positions[e.lay.names[i]] = e.vs.position(vi)
 	}
 	if wc, err := solver.EvalWorstCase(b, e.s.lim); err == nil {
 		c.Worst = wc
