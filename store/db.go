@@ -17,7 +17,13 @@ import (
 )
 
 // DB is an open stock database.
-type DB struct{ x *sqlx.DB }
+type DB struct {
+	x    *sqlx.DB
+	path string
+	// readOnly is set when the stock could only be opened for reading;
+	// every write then fails with ErrReadOnly.
+	readOnly bool
+}
 
 // busyTimeoutMS is how long a connection waits on another process's lock
 // before SQLite reports SQLITE_BUSY.
@@ -53,8 +59,19 @@ func escapePath(p string) string {
 // Open opens the stock database at path, creating the file if needed and
 // bringing an older schema up to date. A database written by a newer
 // biasbin is refused with ErrNewerSchema and left as it was.
+//
+// Open refuses what is not a stock file (a folder, a link to nothing, a
+// file that is not an SQLite database) with ErrNotStockFile, and writes
+// nothing into it.
 func Open(ctx context.Context, path string) (*DB, error) {
-	return open(ctx, path, dsn(path))
+	if err := checkStockPath(path, true); err != nil {
+		return nil, err
+	}
+	if !writable(path) {
+		return openReadOnly(ctx, path)
+	}
+	db, err := open(ctx, path, dsn(path))
+	return db, explainOpen(path, err)
 }
 
 // OpenExisting opens the stock database at path like Open, but only when
@@ -62,15 +79,29 @@ func Open(ctx context.Context, path string) (*DB, error) {
 // nothing is created (no file, no folder, no -wal or -shm). Every pooled
 // connection opens without the create flag, so a file removed meanwhile is
 // not made again either. Another process may write the stock meanwhile.
+//
+// A stock the user may only read (the file, its folder or a -shm left by
+// another user is not writable) is opened read-only, immutable when SQLite
+// cannot otherwise read it without writing; it serves every read and
+// refuses every change with ErrReadOnly. What is not a stock file is
+// refused as Open does, and so is an empty file (ErrEmptyFile).
 func OpenExisting(ctx context.Context, path string) (*DB, error) {
-	if missing(path) {
-		return nil, fmt.Errorf("open stock file %s: %w", path, ErrNoFile)
+	if err := checkStockPath(path, false); err != nil {
+		return nil, err
+	}
+	if !writable(path) {
+		return openReadOnly(ctx, path)
 	}
 	db, err := open(ctx, path, dsnExisting(path))
 	if err != nil && sqliteCode(err)&0xff == sqlite3.SQLITE_CANTOPEN && missing(path) {
 		return nil, fmt.Errorf("open stock file %s: %w", path, ErrNoFile)
 	}
-	return db, err
+	if err != nil && readOnlyCause(err) {
+		if ro, rerr := openReadOnly(ctx, path); rerr == nil {
+			return ro, nil
+		}
+	}
+	return db, explainOpen(path, err)
 }
 
 // missing reports whether nothing at all is at path.
@@ -85,7 +116,7 @@ func open(ctx context.Context, path, dsn string) (*DB, error) {
 	if err != nil {
 		return nil, fmt.Errorf("open stock file %s: %w", path, err)
 	}
-	db := &DB{x: x}
+	db := &DB{x: x, path: path}
 	if err := db.setup(ctx, path); err != nil {
 		x.Close()
 		return nil, err

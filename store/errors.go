@@ -49,6 +49,9 @@ func (p Problem) String() string { return p.Field + ": " + p.Msg }
 // ErrInvalid) holds.
 type InvalidError struct {
 	Problems []Problem
+	// More counts problems found after the list was full
+	// (MaxImportProblems); the search stopped at the first of them.
+	More int
 }
 
 func (e *InvalidError) Error() string {

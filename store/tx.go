@@ -7,6 +7,7 @@ import (
 	"time"
 
 	"github.com/jmoiron/sqlx"
+	sqlite3 "modernc.org/sqlite/lib"
 )
 
 // retryFor bounds how long a write keeps retrying after SQLITE_BUSY on top
@@ -37,8 +38,14 @@ func retry(ctx context.Context, fn func() error) error {
 // write runs fn in one IMMEDIATE transaction, committing when fn returns
 // nil and rolling back otherwise; a busy database is retried from the start.
 func (db *DB) write(ctx context.Context, fn func(tx *sqlx.Tx) error) error {
+	if err := db.refuseWrite(); err != nil {
+		return err
+	}
 	return retry(ctx, func() error {
 		tx, err := db.x.BeginTxx(ctx, nil)
+		if err != nil && sqliteCode(err)&0xff == sqlite3.SQLITE_READONLY {
+			return readOnlyError(db.path)
+		}
 		if err != nil {
 			return fmt.Errorf("begin write: %w", err)
 		}
@@ -51,6 +58,35 @@ func (db *DB) write(ctx context.Context, fn func(tx *sqlx.Tx) error) error {
 		}
 		return nil
 	})
+}
+
+// writeStream runs fn once in one IMMEDIATE transaction, committing when
+// fn returns nil: only taking the write lock is retried while another
+// process holds it, so fn may consume a stream.
+func (db *DB) writeStream(ctx context.Context, fn func(tx *sqlx.Tx) error) error {
+	if err := db.refuseWrite(); err != nil {
+		return err
+	}
+	var tx *sqlx.Tx
+	err := retry(ctx, func() error {
+		var err error
+		tx, err = db.x.BeginTxx(ctx, nil)
+		return err
+	})
+	if err != nil && sqliteCode(err)&0xff == sqlite3.SQLITE_READONLY {
+		return readOnlyError(db.path)
+	}
+	if err != nil {
+		return fmt.Errorf("begin write: %w", err)
+	}
+	if err := fn(tx); err != nil {
+		tx.Rollback()
+		return err
+	}
+	if err := tx.Commit(); err != nil {
+		return fmt.Errorf("commit: %w", err)
+	}
+	return nil
 }
 
 // read runs fn in one read-only (deferred) transaction, so that its queries

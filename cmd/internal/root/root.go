@@ -26,7 +26,7 @@ tolerance, supply and temperature, and ranks the builds.`,
 	}
 	cmd.SetOut(f.IO.Out)
 	cmd.SetErr(f.IO.ErrOut)
-	cmd.PersistentFlags().StringVar(&f.DBPath, "db", "",
+	cmd.PersistentFlags().Var(dbFlag{&f.DBPath}, "db",
 		"stock database file (default $BIASBIN_DB, else $XDG_DATA_HOME/biasbin/stock.db, else ~/.local/share/biasbin/stock.db)")
 	cmd.SetFlagErrorFunc(func(_ *cobra.Command, err error) error {
 		return &cmdutil.UsageError{Err: err}

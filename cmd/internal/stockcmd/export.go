@@ -18,19 +18,29 @@ import (
 type ExportOptions struct {
 	IO    *cmdutil.IOStreams
 	Store StoreFunc
+	// StockPath names the stock file (Factory.ResolveDBPath), so that an
+	// export onto it or its -wal or -shm is refused.
+	StockPath func() (string, error)
 
 	Kind string
 	File string // "" writes standard output
 }
 
 func newExportCmd(f *cmdutil.Factory, runF func(*ExportOptions) error) *cobra.Command {
-	o := &ExportOptions{IO: f.IO, Store: f.ExistingStore}
+	o := &ExportOptions{IO: f.IO, Store: f.ExistingStore, StockPath: f.ResolveDBPath}
 	cmd := &cobra.Command{
 		Use:   "export --kind resistor|transistor [FILE]",
 		Short: "Write one kind's stock as CSV in the import format",
 		Long: `Write the resistor or transistor stock as CSV with every import column, to
 FILE or standard output. Importing the file into an empty stock gives the
-same stock back.`,
+same stock back.
+
+FILE is written whole to a temporary file beside it and then renamed into
+place, so a failed export leaves any earlier FILE as it was. FILE may not
+be the stock file itself or its -wal, -shm or -journal (under any
+spelling or link). Text cells starting with = + - @ tab or carriage
+return get a leading ' so that a spreadsheet shows them as text; import
+takes the ' off again.`,
 		Example: `  biasbin stock export --kind resistor > resistors.csv
   biasbin stock export --kind transistor transistors.csv`,
 		Args: usageArgs(cobra.MaximumNArgs(1)),
@@ -54,6 +64,16 @@ same stock back.`,
 }
 
 func runExport(ctx context.Context, o *ExportOptions) error {
+	if o.File != "" && o.StockPath != nil {
+		dbPath, err := o.StockPath()
+		if err != nil {
+			return err
+		}
+		if store.IsStockFile(dbPath, o.File) {
+			return cmdutil.Usagef("export: %s is the stock file %s (or one SQLite keeps beside it): "+
+				"writing there would destroy the stock; name another file", o.File, dbPath)
+		}
+	}
 	db, err := o.Store(ctx)
 	if err != nil {
 		return err
@@ -79,14 +99,34 @@ func runExport(ctx context.Context, o *ExportOptions) error {
 }
 
 // writeFileAtomic writes a temporary file beside path and renames it into
-// place, so an interrupted export never leaves half a file.
+// place, so an interrupted export never leaves half a file. A symbolic
+// link at path is written through (the link stays); the file keeps its
+// permissions, a new one gets 0644.
 func writeFileAtomic(path string, write func(io.Writer) error) error {
+	if real, err := filepath.EvalSymlinks(path); err == nil {
+		path = real
+	}
+	mode := os.FileMode(0o644)
+	if fi, err := os.Stat(path); err == nil {
+		if !fi.Mode().IsRegular() {
+			return fmt.Errorf("export %s: not a regular file", path)
+		}
+		mode = fi.Mode().Perm()
+	}
 	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*")
 	if err != nil {
 		return fmt.Errorf("export %s: %w", path, err)
 	}
 	defer os.Remove(tmp.Name())
 	if err := write(tmp); err != nil {
+		tmp.Close()
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	if err := tmp.Chmod(mode); err != nil {
+		tmp.Close()
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	if err := tmp.Sync(); err != nil {
 		tmp.Close()
 		return fmt.Errorf("export %s: %w", path, err)
 	}

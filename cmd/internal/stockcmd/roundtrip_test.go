@@ -71,12 +71,17 @@ func mixedNotationFile(rng *rand.Rand, n int) string {
 	tols := []string{"1%", "±5 %", "J", "F", "5", "0.5%", "K", "M", "G"}
 	powers := []string{"0.25W", "1/4W", "250mW", "0.125", "1/8 W", "0.6W", "2W"}
 	techs := []string{"", "metal film", "Thick-Film", "carbon", "thin", "wirewound"}
+	// One TCR per technology: rows of one part must agree on everything
+	// but quantity, note and tags to merge.
+	tcrOf := map[string]string{"": "", "metal film": "±50 ppm", "Thick-Film": "", "carbon": "-200",
+		"thin": "15ppm/K", "wirewound": ""}
 	var b strings.Builder
 	b.WriteString("value,tolerance,power,qty,bin,tech,tcr,tags,note\n")
 	for range n {
+		tech := techs[rng.IntN(len(techs))]
 		fields := []string{values[rng.IntN(len(values))], tols[rng.IntN(len(tols))], powers[rng.IntN(len(powers))],
 			[]string{"0", "1", "25", "100"}[rng.IntN(4)], []string{"A1", "B2", ""}[rng.IntN(3)],
-			techs[rng.IntN(len(techs))], []string{"", "±50 ppm", "-200", "15ppm/K"}[rng.IntN(4)],
+			tech, tcrOf[tech],
 			[]string{"", "rohs", "approved;rohs"}[rng.IntN(3)], []string{"", "\"a, b\""}[rng.IntN(2)]}
 		b.WriteString(strings.Join(fields, ",") + "\n")
 	}

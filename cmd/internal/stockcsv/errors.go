@@ -49,23 +49,34 @@ func sortProblems(ps []Problem) {
 
 // Explain turns the store's *store.InvalidError about f's parts into a
 // *FileError naming the lines; other errors come back as they are.
-func (f *File) Explain(err error) error {
+func (f *File) Explain(err error) error { return Explain(f.Name, f.Lines, err) }
+
+// Explain turns the store's *store.InvalidError about the parts of file
+// name into a *FileError naming the lines: lines[i] is the line part i
+// starts on. Other errors come back as they are.
+func Explain(name string, lines []int, err error) error {
 	var ie *store.InvalidError
 	if !errors.As(err, &ie) {
 		return err
 	}
-	fe := &FileError{File: f.Name}
+	fe := &FileError{File: name}
+	last := 0
 	for _, p := range ie.Problems {
 		line := 0
-		if p.Index >= 0 && p.Index < len(f.Lines) {
-			line = f.Lines[p.Index]
+		if p.Index >= 0 && p.Index < len(lines) {
+			line = lines[p.Index]
 		}
+		last = max(last, line)
 		msg := p.Msg
-		if p.Ref > 0 && p.Ref <= len(f.Lines) {
-			msg = fmt.Sprintf("%s (line %d)", msg, f.Lines[p.Ref-1])
+		if p.Ref > 0 && p.Ref <= len(lines) {
+			msg = fmt.Sprintf("%s (line %d)", msg, lines[p.Ref-1])
 		}
 		fe.Problems = append(fe.Problems, Problem{Line: line, Column: p.Field, Msg: msg})
 	}
 	sortProblems(fe.Problems)
+	if ie.More > 0 {
+		fe.Problems = append(fe.Problems, Problem{Line: last,
+			Msg: fmt.Sprintf("stopped checking after %d problems", len(ie.Problems))})
+	}
 	return fe
 }

@@ -1,6 +1,7 @@
 package stockcsv
 
 import (
+	"bufio"
 	"bytes"
 	"encoding/csv"
 	"errors"
@@ -27,89 +28,230 @@ type File struct {
 // utf8BOM is the byte-order mark some spreadsheets write first.
 var utf8BOM = []byte{0xEF, 0xBB, 0xBF}
 
-// Read reads a whole stock file. name is used in messages. When anything
-// is wrong the error is a *FileError listing every problem found.
+// Limits on what Scan and Read take (stated in `stock import --help`), so
+// that any input, however large or strange, is read in bounded memory.
+const (
+	// MaxFieldChars is the longest cell: the store keeps bins, labels and
+	// notes of up to 1000 characters.
+	MaxFieldChars = 1000
+	// MaxRowBytes is the longest row in bytes, line breaks inside quotes
+	// included.
+	MaxRowBytes = 64 << 10
+	// MaxRows is the most rows one file may hold.
+	MaxRows = 1_000_000
+	// MaxProblems is how many problems are listed before reading stops.
+	MaxProblems = store.MaxImportProblems
+)
+
+// Row is one row of a stock file that read without problems.
+type Row struct {
+	// Line is the line the row starts on (1 = the header).
+	Line int
+	// Kind is the file's kind.
+	Kind store.Kind
+	// Resistor or Transistor holds the part, as the file's Kind says.
+	Resistor   store.Resistor
+	Transistor store.Transistor
+}
+
+// Summary is what Scan saw.
+type Summary struct {
+	// Kind is the kind the header row names.
+	Kind store.Kind
+	// Rows is the number of rows (blank lines not counted).
+	Rows int
+}
+
+// Read reads a whole stock file into memory. name is used in messages.
+// When anything is wrong the error is a *FileError listing every problem
+// found (up to MaxProblems).
 func Read(r io.Reader, name string) (*File, error) {
-	data, err := io.ReadAll(r)
+	f := &File{Name: name}
+	sum, err := Scan(r, name, func(row Row) error {
+		if row.Kind == store.KindTransistor {
+			f.Batch.Transistors = append(f.Batch.Transistors, row.Transistor)
+		} else {
+			f.Batch.Resistors = append(f.Batch.Resistors, row.Resistor)
+		}
+		f.Lines = append(f.Lines, row.Line)
+		return nil
+	})
 	if err != nil {
-		return nil, fmt.Errorf("read %s: %w", name, err)
+		return nil, err
 	}
-	data = bytes.TrimPrefix(data, utf8BOM)
-	cr := csv.NewReader(bytes.NewReader(data))
+	f.Kind = sum.Kind
+	return f, nil
+}
+
+// Scan reads a stock file row by row and calls each for every row, in
+// order, as long as no row so far had a problem; it reads on to the end
+// to find every problem (up to MaxProblems). Memory stays bounded by the
+// limits above whatever comes in. When anything is wrong the error is a
+// *FileError; an error from each stops the scan and is returned as it is.
+func Scan(r io.Reader, name string, each func(Row) error) (Summary, error) {
+	var sum Summary
+	lim := &rowLimit{r: r}
+	br := bufio.NewReader(lim)
+	if b, err := br.Peek(len(utf8BOM)); err == nil && bytes.Equal(b, utf8BOM) {
+		br.Discard(len(utf8BOM))
+	}
+	cr := csv.NewReader(br)
 	cr.FieldsPerRecord = -1
 	cr.ReuseRecord = true
-	f := &File{Name: name}
 	var ps []Problem
-	fail := func() (*File, error) {
+	add := func(p Problem) bool {
+		if len(ps) == MaxProblems {
+			ps = append(ps, Problem{Line: p.Line, Msg: fmt.Sprintf("stopped reading after %d problems", MaxProblems)})
+			return false
+		}
+		ps = append(ps, p)
+		return true
+	}
+	fail := func() (Summary, error) {
 		sortProblems(ps)
-		return nil, &FileError{File: name, Problems: ps}
+		return sum, &FileError{File: name, Problems: ps}
+	}
+	// read returns the next record, or a problem that ends the file.
+	read := func(line int) ([]string, *Problem) {
+		lim.mark(cr.InputOffset())
+		rec, err := cr.Read()
+		switch {
+		case err == nil:
+			return rec, nil
+		case errors.Is(err, io.EOF):
+			return nil, nil
+		case errors.Is(err, errRowTooLong):
+			return nil, &Problem{Line: line, Msg: fmt.Sprintf(
+				"a row longer than %d bytes (is this a stock CSV file?); reading stopped", MaxRowBytes)}
+		}
+		p := csvProblem(err)
+		return nil, &p
 	}
 
-	rec, err := cr.Read()
-	if errors.Is(err, io.EOF) {
-		ps = append(ps, Problem{Line: 1, Column: "header", Msg: "empty file: the first row must name the columns"})
+	rec, p := read(1)
+	if p != nil {
+		add(*p)
 		return fail()
 	}
-	if err != nil {
-		ps = append(ps, csvProblem(err))
+	if rec == nil {
+		add(Problem{Line: 1, Column: "header", Msg: "empty file: the first row must name the columns"})
 		return fail()
 	}
-	cols, hps := readHeader(rec)
+	cols, hps := readHeader(unescapeAll(rec))
 	if len(hps) > 0 {
 		ps = append(ps, hps...)
 		return fail()
 	}
-	f.Kind = cols.kind
+	sum.Kind = cols.kind
+	row := make(map[string]string, len(cols.names))
+	lastLine := 1
 	for {
-		rec, err := cr.Read()
-		if errors.Is(err, io.EOF) {
+		rec, p := read(lastLine + 1)
+		if p != nil {
+			// A quoting error or an over-long row leaves the reader lost:
+			// report it and stop.
+			add(*p)
 			break
 		}
-		if err != nil {
-			// A quoting error leaves the reader lost: report it and stop.
-			ps = append(ps, csvProblem(err))
+		if rec == nil {
 			break
 		}
 		line, _ := cr.FieldPos(0)
+		lastLine = line
+		if sum.Rows == MaxRows {
+			add(Problem{Line: line, Msg: fmt.Sprintf("more than %d rows: split the file", MaxRows)})
+			break
+		}
+		sum.Rows++
 		if len(rec) != len(cols.names) {
-			ps = append(ps, Problem{Line: line, Msg: fmt.Sprintf(
-				"row has %d fields, the header has %d (a cut-off or unquoted comma?)", len(rec), len(cols.names))})
-			continue
-		}
-		row := make(map[string]string, len(rec))
-		bad := false
-		for i, v := range rec {
-			if !utf8.ValidString(v) {
-				ps = append(ps, Problem{Line: line, Column: cols.names[i],
-					Msg: "not UTF-8 text (save the file as UTF-8 CSV)"})
-				bad = true
-				continue
+			if !add(Problem{Line: line, Msg: fmt.Sprintf(
+				"row has %d fields, the header has %d (a cut-off or unquoted comma?)", len(rec), len(cols.names))}) {
+				break
 			}
-			row[cols.names[i]] = v
-		}
-		if bad {
 			continue
+		}
+		clear(row)
+		var bad []Problem
+		for i, v := range rec {
+			switch {
+			case !utf8.ValidString(v):
+				bad = append(bad, Problem{Line: line, Column: cols.names[i],
+					Msg: "not UTF-8 text (save the file as UTF-8 CSV)"})
+			case utf8.RuneCountInString(v) > MaxFieldChars:
+				bad = append(bad, Problem{Line: line, Column: cols.names[i],
+					Msg: fmt.Sprintf("longer than %d characters", MaxFieldChars)})
+			default:
+				row[cols.names[i]] = UnescapeFormula(v)
+			}
 		}
 		var rowPs []Problem
-		if f.Kind == store.KindResistor {
-			var r store.Resistor
-			r, rowPs = ResistorFromFields(row)
-			f.Batch.Resistors = append(f.Batch.Resistors, r)
-		} else {
-			var t store.Transistor
-			t, rowPs = TransistorFromFields(row)
-			f.Batch.Transistors = append(f.Batch.Transistors, t)
+		var part Row
+		if len(bad) == 0 {
+			part.Line, part.Kind = line, cols.kind
+			if cols.kind == store.KindResistor {
+				part.Resistor, rowPs = ResistorFromFields(row)
+			} else {
+				part.Transistor, rowPs = TransistorFromFields(row)
+			}
 		}
-		for _, p := range rowPs {
+		stop := false
+		for _, p := range append(bad, rowPs...) {
 			p.Line = line
-			ps = append(ps, p)
+			if !add(p) {
+				stop = true
+				break
+			}
 		}
-		f.Lines = append(f.Lines, line)
+		if stop {
+			break
+		}
+		if len(ps) == 0 && each != nil {
+			if err := each(part); err != nil {
+				return sum, err
+			}
+		}
 	}
 	if len(ps) > 0 {
 		return fail()
 	}
-	return f, nil
+	return sum, nil
+}
+
+// errRowTooLong stops reading a row longer than MaxRowBytes.
+var errRowTooLong = errors.New("row too long")
+
+// rowLimit passes bytes through until more than MaxRowBytes (plus what the
+// CSV reader's buffer reads ahead) follow the start of the current row.
+type rowLimit struct {
+	r     io.Reader
+	read  int64 // bytes handed out
+	start int64 // offset where the current row starts
+}
+
+// readAhead covers the bytes the buffered readers hold beyond the row.
+const readAhead = 2 * 4096
+
+func (l *rowLimit) mark(offset int64) { l.start = offset }
+
+func (l *rowLimit) Read(p []byte) (int, error) {
+	room := l.start + MaxRowBytes + readAhead - l.read
+	if room <= 0 {
+		return 0, errRowTooLong
+	}
+	if int64(len(p)) > room {
+		p = p[:room]
+	}
+	n, err := l.r.Read(p)
+	l.read += int64(n)
+	return n, err
+}
+
+// unescapeAll takes the formula guard off every cell of a record.
+func unescapeAll(rec []string) []string {
+	for i, v := range rec {
+		rec[i] = UnescapeFormula(v)
+	}
+	return rec
 }
 
 // csvProblem turns an encoding/csv error into a Problem on its line.

@@ -35,10 +35,10 @@ func WriteResistors(w io.Writer, rs []store.Resistor) error {
 		r := rs[i]
 		return []string{
 			Ohms(r.Ohm), exactPercent(r.Tol), plain(r.Rated_W, "W", notation.ParsePower),
-			strconv.Itoa(r.Qty), r.Bin,
+			strconv.Itoa(r.Qty), EscapeFormula(r.Bin),
 			plain(r.TCR_PPMPerK, "", notation.ParseTCR), r.Tech,
 			plain(r.Knee_C, "", notation.ParseTemperature), plain(r.Max_C, "", notation.ParseTemperature),
-			strings.Join(r.Tags, ";"), r.Note,
+			EscapeFormula(strings.Join(r.Tags, ";")), EscapeFormula(r.Note),
 		}
 	})
 }
@@ -50,7 +50,7 @@ func WriteTransistors(w io.Writer, ts []store.Transistor) error {
 	return writeCSV(w, store.KindTransistor, len(ts), func(i int) []string {
 		t := ts[i]
 		return []string{
-			t.Label, t.Polarity, optional(t.HFEMin, num, ""), optional(t.HFEMax, num, ""), strconv.Itoa(t.Qty),
+			EscapeFormula(t.Label), t.Polarity, optional(t.HFEMin, num, ""), optional(t.HFEMax, num, ""), strconv.Itoa(t.Qty),
 			optional(t.HFETyp, num, ""), optional(t.HFEAt_A, amp, "A"),
 			optional(t.VBEOn_V, volt, "V"), optional(t.VBEAt_A, amp, "A"),
 			optional(t.VCESat_V, volt, "V"), optional(t.VCEO_V, volt, "V"), optional(t.ICMax_A, amp, "A"),
@@ -58,7 +58,7 @@ func WriteTransistors(w io.Writer, ts []store.Transistor) error {
 			optional(t.ThetaJA_KPerW, notation.ParseThermalResistance, ""),
 			optional(t.TjMax_C, notation.ParseTemperature, ""),
 			optional(t.VAF_V, volt, "V"), optional(t.ICBO_A, amp, "A"),
-			t.Bin, strings.Join(t.Tags, ";"), t.Note,
+			EscapeFormula(t.Bin), EscapeFormula(strings.Join(t.Tags, ";")), EscapeFormula(t.Note),
 		}
 	})
 }
