@@ -128,6 +128,8 @@ func domainError(err error) error {
 	}
 	msg := err.Error()
 	switch {
+	case strings.Contains(msg, "at most 16 tags"):
+		return fmt.Errorf("%w: a stock line carries at most %d tags", ErrInvalid, MaxTags)
 	case strings.Contains(msg, "qty"):
 		return fmt.Errorf("%w: a quantity cannot go below zero", ErrBelowZero)
 	case strings.Contains(msg, "hfe_max >= hfe_min"):

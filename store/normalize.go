@@ -45,13 +45,20 @@ func NormalizeTags(tags []string) []string {
 	return out
 }
 
+// MaxTags is the most tags one stock line may carry: enough for an
+// approval list, a supplier and a few properties, few enough to read.
+const MaxTags = 16
+
 // checkTag reports what is wrong with a normalized tag, or "".
 func checkTag(t string) string {
 	if len(t) > 64 {
 		return fmt.Sprintf("tag %q is longer than 64 characters", t)
 	}
+	if hidden(t) {
+		return fmt.Sprintf("tag %q contains an invisible control or direction-override character", t)
+	}
 	for _, r := range t {
-		if unicode.IsSpace(r) || r == ';' || r == ',' || unicode.IsControl(r) {
+		if unicode.IsSpace(r) || r == ';' || r == ',' {
 			return fmt.Sprintf("tag %q: a tag is one word without spaces, commas or semicolons", t)
 		}
 	}
@@ -67,11 +74,30 @@ func checkText(s string, multiline bool) string {
 		if r == '\n' && multiline {
 			continue
 		}
-		if unicode.IsControl(r) || r == unicode.ReplacementChar {
-			return fmt.Sprintf("contains the control or invalid character %q", r)
+		if unicode.IsControl(r) || r == unicode.ReplacementChar || invisible(r) {
+			return fmt.Sprintf("contains the control, invisible or direction-override character %U", r)
 		}
 	}
 	return ""
+}
+
+// invisible reports a character that changes how text around it shows
+// without showing itself: Unicode format characters (Cf), among them the
+// direction overrides U+202A..U+202E and isolates U+2066..U+2069 that can
+// make a label read as another (Unicode Standard Annex #9), and the line
+// and paragraph separators.
+func invisible(r rune) bool {
+	return unicode.Is(unicode.Cf, r) || unicode.Is(unicode.Zl, r) || unicode.Is(unicode.Zp, r)
+}
+
+// hidden reports whether s holds a control or invisible character.
+func hidden(s string) bool {
+	for _, r := range s {
+		if unicode.IsControl(r) || invisible(r) || r == unicode.ReplacementChar {
+			return true
+		}
+	}
+	return false
 }
 
 // finiteIn reports whether lo < v < hi and v is a number.
@@ -163,6 +189,9 @@ func commonProblems(k Kind, qty int, bin, note string, tags []string) []Problem 
 		if m := checkTag(t); m != "" {
 			add("tags", m)
 		}
+	}
+	if len(tags) > MaxTags {
+		add("tags", fmt.Sprintf("%d tags; a line carries at most %d", len(tags), MaxTags))
 	}
 	return ps
 }

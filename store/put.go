@@ -12,7 +12,7 @@ import (
 // putter writes stock lines inside one transaction with prepared
 // statements, so that a large import costs one parse per statement.
 type putter struct {
-	tx                        *sqlx.Tx
+	tx                          *sqlx.Tx
 	findID, insPart, insR, insT *sqlx.Stmt
 	spelling                    *sqlx.Stmt
 	getR, getT, getTags         *sqlx.Stmt
@@ -133,8 +133,8 @@ func (p *putter) addTags(ctx context.Context, id int64, tags []string) error {
 // replace sets its quantity, note and tags, after checking the differences
 // diffs between the line and the part: without replace any difference is a
 // problem, as is a quantity above MaxQty.
-func (p *putter) merge(ctx context.Context, id int64, stockedQty int, l line, diffs []difference,
-	replace bool) ([]Change, error) {
+func (p *putter) merge(ctx context.Context, id int64, stockedQty int, stockedTags []string, l line,
+	diffs []difference, replace bool) ([]Change, error) {
 	var ps []Problem
 	if !replace {
 		for _, d := range diffs {
@@ -145,6 +145,10 @@ func (p *putter) merge(ctx context.Context, id int64, stockedQty int, l line, di
 	qty := l.qty
 	if !replace {
 		qty += stockedQty
+		if n := len(unionTags(stockedTags, l.tags)); n > MaxTags {
+			ps = append(ps, Problem{Kind: l.kind, Field: "tags", Msg: fmt.Sprintf(
+				"stocked line #%d would carry %d tags with this one's; at most %d", id, n, MaxTags)})
+		}
 	}
 	if qty > MaxQty {
 		ps = append(ps, Problem{Kind: l.kind, Field: "qty", Msg: fmt.Sprintf(
@@ -200,7 +204,7 @@ func (p *putter) putResistor(ctx context.Context, raw, r Resistor, replace bool)
 	if stocked.Tags, err = p.tagsOf(ctx, id); err != nil {
 		return res, err
 	}
-	if res.changes, err = p.merge(ctx, id, stocked.Qty, l, diffResistor(stocked, raw, r, replace), replace); err != nil {
+	if res.changes, err = p.merge(ctx, id, stocked.Qty, stocked.Tags, l, diffResistor(stocked, raw, r, replace), replace); err != nil {
 		return res, err
 	}
 	if replace {
@@ -245,7 +249,7 @@ func (p *putter) putTransistor(ctx context.Context, raw, t Transistor, replace b
 	if stocked.Tags, err = p.tagsOf(ctx, id); err != nil {
 		return res, err
 	}
-	if res.changes, err = p.merge(ctx, id, stocked.Qty, l, diffTransistor(stocked, raw, t, replace), replace); err != nil {
+	if res.changes, err = p.merge(ctx, id, stocked.Qty, stocked.Tags, l, diffTransistor(stocked, raw, t, replace), replace); err != nil {
 		return res, err
 	}
 	if replace {
@@ -320,4 +324,9 @@ func (db *DB) AddTransistor(ctx context.Context, t Transistor) (AddResult, error
 	return db.add(ctx, "transistor", def.Validate(), func(p *putter) (putResult, error) {
 		return p.putTransistor(ctx, t, def, false)
 	})
+}
+
+// unionTags returns the tags in a or b (both sorted), each once.
+func unionTags(a, b []string) []string {
+	return NormalizeTags(append(append([]string(nil), a...), b...))
 }

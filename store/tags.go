@@ -53,6 +53,10 @@ func (db *DB) retag(ctx context.Context, verb, stmt string, id int64, tags []str
 			}
 		}
 		out, err = tagsOfPart(ctx, tx, id)
+		if err == nil && len(out) > MaxTags {
+			return &InvalidError{Problems: []Problem{{Field: "tags",
+				Msg: fmt.Sprintf("the line would carry %d tags; at most %d", len(out), MaxTags)}}}
+		}
 		return err
 	})
 	if err != nil {

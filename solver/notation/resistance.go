@@ -231,6 +231,32 @@ func FormatResistance(ohm float64) string {
 		return "?" + strconv.FormatFloat(ohm, 'g', -1, 64)
 	}
 	digits, e := sigDigits(ohm)
+	return placeLetter(digits, e)
+}
+
+// FormatResistanceExact writes ohm in the letter-and-digit code with as
+// many significant digits as it takes to read back to ohm rounded to 12
+// significant digits (the precision the stock keeps), and at least two:
+// 1001 → "1K001" where FormatResistance writes "1K0", so two stock lines
+// of different values never print alike. Values of three significant
+// digits or fewer print as FormatResistance prints them.
+func FormatResistanceExact(ohm float64) string {
+	if !(ohm > 0) || math.IsInf(ohm, 1) {
+		return FormatResistance(ohm)
+	}
+	s := strconv.FormatFloat(ohm, 'e', 11, 64) // d.ddddddddddde±XX
+	mant, exp, _ := strings.Cut(s, "e")
+	digits := strings.TrimRight(strings.Replace(mant, ".", "", 1), "0")
+	if len(digits) <= 3 {
+		return FormatResistance(ohm)
+	}
+	e, _ := strconv.Atoi(exp)
+	return placeLetter(digits, e)
+}
+
+// placeLetter writes significant digits whose first has decimal exponent
+// e with the IEC 60062 letter in place of the decimal point.
+func placeLetter(digits string, e int) string {
 	switch {
 	case e == -1 || e == -2: // 0.01 Ω to 1 Ω: R47, R047
 		return "R" + strings.Repeat("0", -e-1) + digits

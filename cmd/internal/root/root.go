@@ -35,5 +35,6 @@ tolerance, supply and temperature, and ranks the builds.`,
 	for _, sub := range subcommands(f) {
 		cmd.AddCommand(sub)
 	}
+	cmdutil.RefuseRepeatedFlags(cmd)
 	return cmd
 }

@@ -34,3 +34,30 @@ func BenchmarkImport10kResistors(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkImport200kResistors imports a 200,000-row resistor file into a
+// fresh stock file. Goal (issue: bounded reading): peak memory under 60 MB
+// with the rows streamed into one transaction; run it alone to read its
+// peak RSS: BENCH=Import200k BENCHTIME=1x bash .ci/bench ./cmd/internal/stockcmd
+func BenchmarkImport200kResistors(b *testing.B) {
+	dir := b.TempDir()
+	file := filepath.Join(dir, "200k.csv")
+	fh, err := os.Create(file)
+	if err != nil {
+		b.Fatal(err)
+	}
+	fmt.Fprintln(fh, "value,tolerance,power,qty,bin,tags,note")
+	for i := range 200_000 {
+		fmt.Fprintf(fh, "%.2f,1%%,0.25W,%d,B%d,rohs,row %d\n", 1+float64(i)*0.37, i%50, i%97, i)
+	}
+	if err := fh.Close(); err != nil {
+		b.Fatal(err)
+	}
+	b.ResetTimer()
+	for i := range b.N {
+		r := run(b, filepath.Join(dir, fmt.Sprintf("bench-%d.db", i)), "", "stock", "import", file)
+		if r.code != 0 || !strings.Contains(r.out, "200000 resistor rows: 200000 new lines") {
+			b.Fatalf("import: %s%s", r.out, r.errOut)
+		}
+	}
+}

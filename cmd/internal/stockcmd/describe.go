@@ -11,7 +11,7 @@ import (
 // describeResistor names a resistor line in one phrase:
 // "4K7 ±5 % 250 mW metal film, bin A1".
 func describeResistor(r store.Resistor) string {
-	return fmt.Sprintf("%s %s %s %s%s", notation.FormatResistance(r.Ohm), notation.FormatTolerance(r.Tol),
+	return fmt.Sprintf("%s %s %s %s%s", notation.FormatResistanceExact(r.Ohm), notation.FormatTolerance(r.Tol),
 		notation.FormatPower(r.Rated_W), r.Tech, binPhrase(r.Bin))
 }
 
@@ -46,7 +46,7 @@ type jsonResistor struct {
 }
 
 func toJSONResistor(r store.Resistor) jsonResistor {
-	return jsonResistor{ID: r.ID, Kind: string(store.KindResistor), Code: notation.FormatResistance(r.Ohm),
+	return jsonResistor{ID: r.ID, Kind: string(store.KindResistor), Code: notation.FormatResistanceExact(r.Ohm),
 		Ohms: r.Ohm, Tol: r.Tol, Power_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C,
 		TCR_PPMPerK: r.TCR_PPMPerK, Tech: r.Tech, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: nonNil(r.Tags)}
 }

@@ -159,7 +159,12 @@ func listCmd(f *cmdutil.Factory, got *any) *cobra.Command {
 }
 
 func exportCmd(f *cmdutil.Factory, got *any) *cobra.Command {
-	return newExportCmd(f, func(o *ExportOptions) error { c := *o; c.IO, c.Store, c.StockPath = nil, nil, nil; *got = c; return nil })
+	return newExportCmd(f, func(o *ExportOptions) error {
+		c := *o
+		c.IO, c.Store, c.StockPath = nil, nil, nil
+		*got = c
+		return nil
+	})
 }
 
 func importCmd(f *cmdutil.Factory, got *any) *cobra.Command {

@@ -46,7 +46,7 @@ Transistor columns: label,polarity,hfe_min,hfe_max,qty required;
 hfe_typ,hfe_at,vbe,vbe_at,vce_sat,vceo,ic_max,pd,theta_ja,tj_max,vaf,icbo,
 bin,tags,note optional. Tags are separated by ';'.
 
-Values may be in any notation (4K7, 4.7k, 1%, J, 250mW, 1/4W, 2mA ...).
+Values may be in any notation (4K7, 4.7k, 1%%, J, 250mW, 1/4W, 2mA ...).
 A cell a spreadsheet would read as a formula may be written with a leading
 ' (as export writes it); the ' is taken off.
 

@@ -112,7 +112,7 @@ func runList(ctx context.Context, o *ListOptions) error {
 	if len(rs) > 0 {
 		fmt.Fprintln(w, "ID\tRESISTOR\tTOL\tPOWER\tTECH\tTCR\tQTY\tBIN\tTAGS")
 		for _, r := range rs {
-			fmt.Fprintf(w, "%d\t%s\t%s\t%s\t%s\t%s\t%d\t%s\t%s\n", r.ID, notation.FormatResistance(r.Ohm),
+			fmt.Fprintf(w, "%d\t%s\t%s\t%s\t%s\t%s\t%d\t%s\t%s\n", r.ID, notation.FormatResistanceExact(r.Ohm),
 				notation.FormatTolerance(r.Tol), notation.FormatPower(r.Rated_W), r.Tech,
 				notation.FormatTCR(r.TCR_PPMPerK), r.Qty, orDash(r.Bin), orDash(strings.Join(r.Tags, ",")))
 		}
