@@ -170,6 +170,12 @@ func (b Build) Resolve(dev [NumSlots]float64, vccFactor, temp_C float64) Stage {
 
 // resolve is Resolve without copying the build.
 func (b *Build) resolve(dev *[NumSlots]float64, vccFactor, temp_C float64) Stage {
+	return b.resolveTCR(dev, nil, vccFactor, temp_C)
+}
+
+// resolveTCR is resolve with each resistor's TCR taken from tcr (ppm/K)
+// instead of its stated value; tcr nil means the stated values.
+func (b *Build) resolveTCR(dev, tcr *[NumSlots]float64, vccFactor, temp_C float64) Stage {
 	s := Stage{
 		Topology: b.Topology,
 		VCC_V:    b.VCC_V * vccFactor,
@@ -184,7 +190,11 @@ func (b *Build) resolve(dev *[NumSlots]float64, vccFactor, temp_C float64) Stage
 			continue
 		}
 		r := b.Resistors[i]
-		s.R_Ohm[i] = r.Nominal_Ohm * (1 + dev[i]) * (1 + r.TCR_PPMPerK*1e-6*dt)
+		a := r.TCR_PPMPerK
+		if tcr != nil {
+			a = tcr[i]
+		}
+		s.R_Ohm[i] = r.Nominal_Ohm * (1 + dev[i]) * (1 + a*1e-6*dt)
 	}
 	if re := b.Resistors[RE].Nominal_Ohm; re > 0 && b.RBypass_Ohm > 0 {
 		s.RBypass_Ohm = s.R_Ohm[RE] * math.Min(b.RBypass_Ohm/re, 1)

@@ -34,6 +34,12 @@ const (
 	DefaultVBEOn_V = 0.65
 	// DefaultVBEAt_A is the test current assumed for VBE(on).
 	DefaultVBEAt_A = 1e-3
+	// DefaultVBESpread_V is the part-to-part VBE(on) half-range assumed
+	// when the stock states none: the top of the usual ±10..30 mV spread
+	// across makers and lots of one type at a fixed current and
+	// temperature (common practice, from memory; REFERENCE.md §21), so
+	// conservative for a bin of mixed lots.
+	DefaultVBESpread_V = 0.03
 	// DefaultVCESat_V is the VCE(sat) assumed when a datasheet gives none
 	// (common practice).
 	DefaultVCESat_V = 0.2
@@ -76,6 +82,12 @@ type Datasheet struct {
 	TjMax_C       float64 // maximum junction temperature; 0 = 150 °C
 	VAF_V         float64 // Early voltage magnitude; 0 = infinite
 	ICBO_A        float64 // collector-base leakage at 25 °C; 0 = none
+	// VBEMin_V and VBEMax_V are the part-to-part VBE(on) range of the
+	// line at VBEAt_A and 25 °C; both 0 = VBE(on) ± DefaultVBESpread_V.
+	VBEMin_V, VBEMax_V float64
+	// VAFMin_V and VAFMax_V are the part-to-part Early-voltage range;
+	// both 0 = every part has VAF_V.
+	VAFMin_V, VAFMax_V float64
 }
 
 // Model is the SPICE BJT parameter set (the Gummel-Poon model reduced to
@@ -110,6 +122,7 @@ func (d Datasheet) Validate() error {
 		{"vce_sat", d.VCESat_V}, {"vceo", d.VCEO_V}, {"ic_max", d.ICMax_A},
 		{"pd", d.PD25_W}, {"theta_ja", d.ThetaJA_KPerW}, {"tj_max", d.TjMax_C},
 		{"vaf", d.VAF_V}, {"icbo", d.ICBO_A},
+		{"vbe_min", d.VBEMin_V}, {"vbe_max", d.VBEMax_V}, {"vaf_min", d.VAFMin_V}, {"vaf_max", d.VAFMax_V},
 	}
 	for _, c := range checks {
 		if math.IsNaN(c.v) || math.IsInf(c.v, 0) {
@@ -134,6 +147,9 @@ func (d Datasheet) Validate() error {
 	if d.VAF_V > 0 && d.VAF_V < minVAF_V {
 		return &InputError{Field: "vaf", Problem: fmt.Sprintf("%g V is not an Early voltage (want >= %g V, 0 = infinite)", d.VAF_V, minVAF_V)}
 	}
+	if err := d.validateRanges(); err != nil {
+		return err
+	}
 	if d.TjMax_C != 0 && d.TjMax_C > MaxTj_C {
 		return &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C is above %g °C", d.TjMax_C, MaxTj_C)}
 	}
@@ -156,22 +172,13 @@ func ModelFor(d Datasheet, bf float64) (Model, error) {
 	if !(bf > 0) || math.IsInf(bf, 0) {
 		return Model{}, fmt.Errorf("model for %q: %w", d.Label, &InputError{Field: "bf", Problem: fmt.Sprintf("%g: want a finite forward beta > 0", bf)})
 	}
-	vbe, at := d.VBEOn_V, d.VBEAt_A
-	if vbe == 0 {
-		vbe = DefaultVBEOn_V
-	}
-	if at == 0 {
-		at = DefaultVBEAt_A
-	}
-	vt := thermalVoltage(DefaultTNOM_C)
-	is := at / math.Expm1(vbe/vt)
 	m := Model{
 		Polarity: d.Polarity,
-		IS_A:     is,
+		IS_A:     isFor(d, vbeOnOf(d)),
 		BF:       bf,
 		BR:       DefaultBR,
 		NF:       1,
-		VAF_V:    d.VAF_V,
+		VAF_V:    vafOf(d),
 		XTI:      DefaultXTI,
 		XTB:      DefaultXTB,
 		EG_eV:    DefaultEG_eV,

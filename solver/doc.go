@@ -135,16 +135,25 @@
 // √(min·max)), self-heated through ThermalResistance (θJA, else the θJA
 // implied by PD25 and Tj max, else none).
 //
-// EvalWorstCase solves every corner of {hFE min, max} × {each resistor
-// ±tol} × {supply ±tol} × {ambient min, max}, self-heated, with BF = the
-// hFE bound itself (hFE is specified at 25 °C = TNOM); it reports the IC
-// and VCE extremes with their corners, the test-point bands, the worst
-// dissipation, whether every corner is active with VCE ≥ VCE(sat) + margin,
-// and a linearised root-sum-square figure (GUM, JCGM 100:2008 §5.1.2, with
-// uniform inputs u = a/√3, GUM §4.3.7; from memory for the clauses).
-// EvalYield is a seeded Monte Carlo (gonum/stat/distuv; resistors uniform
-// on ±tol or truncated normal σ = tol/3, hFE uniform or log-uniform, supply
-// and ambient uniform) with the binomial standard error √(p(1−p)/n).
+// Every uncertain input of a build — each resistor's value within its
+// tolerance and its TCR within ± its stated bound, the supply within its
+// tolerance, hFE within the datasheet range, VBE(on) from part to part
+// (the stocked vbe_min..vbe_max, else ±30 mV, common practice), the Early
+// voltage where a range is stocked — is listed by Uncertainties with its
+// range and distribution; the corners, the RSS spread and the Monte Carlo
+// all take the same bounds from there. EvalWorstCase solves every corner
+// of those bounds × {ambient min, max}, self-heated, with BF = the hFE
+// bound itself (hFE is specified at 25 °C = TNOM); it reports the IC and
+// VCE extremes with their corners, the test-point bands, the worst
+// dissipation, whether every corner is active with VCE ≥ VCE(sat) +
+// margin, and a linearised root-sum-square figure (GUM, JCGM 100:2008
+// §5.1.2, with uniform inputs u = a/√3, GUM §4.3.7; from memory for the
+// clauses). EvalYield is a seeded Monte Carlo (gonum/stat/distuv) that
+// draws every input rectangular between its limits (JCGM 101:2008
+// §6.4.2.1: only the limits are known) and counts a board good only if
+// IC and VCE stay inside the window over the whole ambient range (both
+// ends, and a turning point between them where the response is not
+// monotonic: YieldDefinition), with the Clopper–Pearson 95 % interval.
 // EvalDissipation checks each resistor against its rating derated linearly
 // from the knee (70 °C) to zero at its maximum temperature (155 °C), IEC
 // 60115-1 style, and the transistor against (Tj max − Ta)/θJA, each times

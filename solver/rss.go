@@ -7,8 +7,8 @@ import (
 
 // RSSTerm is one input's share of the linearised spread.
 type RSSTerm struct {
-	Input     string  // "r1" .. "rb", "vcc", "hfe", "ambient"
-	HalfWidth float64 // a: half the input's range, in its unit (Ω, V, 1, °C)
+	Input     string  // as Uncertainty.Input: "r1" .. "rb", "r1 tcr" .., "vcc", "hfe", "vbe_on", "vaf", "ambient"
+	HalfWidth float64 // a: half the input's range, in its unit (Ω, ppm/K, V, 1, °C)
 	U         float64 // standard uncertainty a/√3 (uniform over ±a)
 	DIC       float64 // ∂IC/∂x at the midpoint, A per unit
 	DVCE      float64 // ∂VCE/∂x at the midpoint, V per unit
@@ -16,7 +16,7 @@ type RSSTerm struct {
 
 // RSS is the linearised root-sum-square analysis of a build.
 type RSS struct {
-	Terms [NumSlots + 3]RSSTerm
+	Terms [2*NumSlots + 5]RSSTerm
 	N     int // terms in use
 	// IC_A and VCE_V are the midpoint values the linearisation is taken at.
 	IC_A, VCE_V float64
@@ -34,11 +34,14 @@ type RSS struct {
 const rssStep = 0.01
 
 // EvalRSS linearises IC and VCE of b about the midpoint of every input
-// range (resistors at nominal, supply at nominal, hFE at (min+max)/2,
-// ambient at (min+max)/2) by central finite differences of the self-heated
-// solve, and combines the inputs by the GUM law of propagation (JCGM
-// 100:2008 §5.1.2, eq. (10); from memory for the clause) with each input
-// uniform over its range, u = a/√3 (GUM §4.3.7; from memory for the clause).
+// range of Uncertainties (resistors at nominal, each TCR at 0, the middle
+// of its ± bound, supply at nominal, hFE, VBE(on) and VAF at the middle
+// of their ranges, ambient at (min+max)/2) by central finite differences
+// of the self-heated solve, and combines the inputs by the GUM law of
+// propagation (JCGM 100:2008 §5.1.2, eq. (10); from memory for the clause)
+// with each input uniform over its range, u = a/√3 (GUM §4.3.7; from
+// memory for the clause). Being a linearisation at the midpoint, a TCR
+// term is zero when the ambient range is centred on 25 °C.
 func EvalRSS(b Build) (RSS, error) {
 	if err := b.Validate(); err != nil {
 		return RSS{}, fmt.Errorf("rss: %w", err)
@@ -55,8 +58,10 @@ func rssSpread(b Build, theta, tjMax float64) (uIC, uVCE float64, err error) {
 // rssPoint is one evaluation point of the linearisation.
 type rssPoint struct {
 	dev       [NumSlots]float64
+	tcr       [NumSlots]float64
 	vccFactor float64
 	beta      float64
+	vbe, vaf  float64
 	ambient   float64
 }
 
@@ -66,11 +71,15 @@ func evalRSS(b Build, theta, tjMax float64) (RSS, error) {
 	if err != nil {
 		return RSS{}, fmt.Errorf("rss: %w", err)
 	}
-	mid := rssPoint{vccFactor: 1, beta: m.BF, ambient: 0.5 * (b.AmbientMin_C + b.AmbientMax_C)}
+	vbeLo, vbeHi, _ := VBEOnRange(d)
+	vafLo, vafHi := VAFRange(d)
+	mid := rssPoint{vccFactor: 1, beta: m.BF, vbe: 0.5 * (vbeLo + vbeHi), vaf: 0.5 * (vafLo + vafHi), ambient: 0.5 * (b.AmbientMin_C + b.AmbientMax_C)}
 	eval := func(p rssPoint) (ic, vce float64, err error) {
 		mm := m
 		mm.BF = p.beta // ModelFor depends on bf only through BF
-		op, err := SolveSelfHeated(b.Resolve(p.dev, p.vccFactor, p.ambient), mm, p.ambient, theta, tjMax)
+		mm.IS_A = isFor(d, p.vbe)
+		mm.VAF_V = p.vaf
+		op, err := SolveSelfHeated(b.resolveTCR(&p.dev, &p.tcr, p.vccFactor, p.ambient), mm, p.ambient, theta, tjMax)
 		if err != nil {
 			return 0, 0, fmt.Errorf("rss: hFE %.4g, ambient %.4g °C: %w", p.beta, p.ambient, err)
 		}
@@ -116,11 +125,28 @@ func evalRSS(b Build, theta, tjMax float64) (RSS, error) {
 			return r, err
 		}
 	}
+	for i := range NumSlots {
+		if !b.usedSlot(i) {
+			continue
+		}
+		a := math.Abs(b.Resistors[i].TCR_PPMPerK)
+		if err := term(i.String()+" tcr", a, func(p *rssPoint, s float64) { p.tcr[i] = s * a }); err != nil {
+			return r, err
+		}
+	}
 	if err := term("vcc", math.Abs(b.VCC_V)*b.VCCTol, func(p *rssPoint, s float64) { p.vccFactor = 1 + s*b.VCCTol }); err != nil {
 		return r, err
 	}
 	halfBeta := 0.5 * (d.HFEMax - d.HFEMin)
 	if err := term("hfe", halfBeta, func(p *rssPoint, s float64) { p.beta = mid.beta + s*halfBeta }); err != nil {
+		return r, err
+	}
+	halfVBE := 0.5 * (vbeHi - vbeLo)
+	if err := term("vbe_on", halfVBE, func(p *rssPoint, s float64) { p.vbe = mid.vbe + s*halfVBE }); err != nil {
+		return r, err
+	}
+	halfVAF := 0.5 * (vafHi - vafLo)
+	if err := term("vaf", halfVAF, func(p *rssPoint, s float64) { p.vaf = mid.vaf + s*halfVAF }); err != nil {
 		return r, err
 	}
 	halfT := 0.5 * (b.AmbientMax_C - b.AmbientMin_C)

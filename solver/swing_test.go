@@ -74,6 +74,27 @@ func TestEvalSwing(t *testing.T) {
 			rel:     0.02,
 		},
 		{
+			// Part of RE unbypassed: the collector sees rac = RC‖RL + RE1
+			// (REFERENCE.md §19, the standard textbook treatment of the
+			// swamped amplifier, from memory), here 2.2k‖4.7k + 220 Ω =
+			// 1718.551 Ω. Q from the exact Thevenin solution at β = 100,
+			// VBE 0.7 V: ICQ 1.24050 mA, VCEQ 7.96801 V; the book
+			// formulas then give ic(sat) 5.8770 mA, vce(cut) 10.0998 V,
+			// MPP 4.2636 V, cutoff first (REFERENCE.md §19 worked numbers).
+			name:   "RE partly bypassed, loaded",
+			source: "source: REFERENCE.md §19 partly-bypassed example (12 V, 47k/10k, 2.2k, 220 Ω + 820 Ω bypassed, 4.7k load)",
+			s: Stage{Topology: Divider, VCC_V: 12, R_Ohm: [NumSlots]float64{R1: 47e3, R2: 10e3, RC: 2200, RE: 1040},
+				RBypass_Ohm: 820, RL_Ohm: 4700},
+			op:      OperatingPoint{Region: Active, IC_A: 1.24050e-3, VCE_V: 7.96801},
+			rac:     1718.551,
+			icSatAC: 5.8770e-3,
+			vceCut:  10.0998,
+			vpk:     4.2636 / 2,
+			clips:   ClipCutoff,
+			optIC:   -1,
+			rel:     2e-4,
+		},
+		{
 			// Q low on the load line: ICQ·rac = 1 mA × 1 k = 1 V < VCEQ − VCE(sat).
 			name:   "cutoff clips first",
 			source: "source: REFERENCE.md §7 clipping rule (Malvino & Bates 7th ed. Ex. 12-2 form)",

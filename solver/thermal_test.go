@@ -94,8 +94,17 @@ func TestSelfHeatedStableBelowHalfSupply(t *testing.T) {
 		if err != nil {
 			t.Fatalf("θJA %g K/W: %v", th, err)
 		}
-		a, _ := solver.Solve(c.s, c.m, op.Tj_C-0.5)
-		b, _ := solver.Solve(c.s, c.m, op.Tj_C+0.5)
+		a, err := solver.Solve(c.s, c.m, op.Tj_C-0.5)
+		if err != nil {
+			t.Fatalf("θJA %g K/W: solve at Tj − 0.5 K: %v", th, err)
+		}
+		b, err := solver.Solve(c.s, c.m, op.Tj_C+0.5)
+		if err != nil {
+			t.Fatalf("θJA %g K/W: solve at Tj + 0.5 K: %v", th, err)
+		}
+		if b.PTransistor_W == a.PTransistor_W {
+			t.Fatalf("θJA %g K/W: dissipation %g W does not move with Tj: no slope to check", th, a.PTransistor_W)
+		}
 		if loop := th * (b.PTransistor_W - a.PTransistor_W); loop >= 1 {
 			t.Errorf("θJA %g K/W: θ·dP/dTj = %g at the equilibrium, want < 1", th, loop)
 		}

@@ -1,6 +1,9 @@
 package solver
 
-import "fmt"
+import (
+	"fmt"
+	"math"
+)
 
 // Corner is one worst-case corner solved.
 type Corner struct {
@@ -8,7 +11,15 @@ type Corner struct {
 	// itself. hFE is specified at 25 °C, which is the model's TNOM, so the
 	// bound is what a simulator's .model line takes; the model's XTB then
 	// moves beta with the junction temperature.
-	BF     float64
+	BF float64
+	// VBEOn_V is the VBE(on) of the corner's transistor (an end of
+	// VBEOnRange) and VAF_V its Early voltage (an end of VAFRange; 0 =
+	// infinite).
+	VBEOn_V float64
+	VAF_V   float64
+	// IS_A is the corner's transport saturation current at TNOM: the one
+	// that gives VBEOn_V at the VBE(on) test current (ModelFor).
+	IS_A   float64
 	Temp_C float64           // ambient (and resistor) temperature
 	Tj_C   float64           // device temperature after self-heating
 	VCC_V  float64           // collector rail at this corner
@@ -64,21 +75,25 @@ type WorstCaseOptions struct {
 	SkipRSS bool
 }
 
-// EvalWorstCase solves every corner of b: each combination of {hFE min,
-// max} × {each used resistor −tol, +tol} × {supply −tol, +tol} ×
-// {ambient min, max} (an input without spread contributes one level, so a
-// divider with four toleranced resistors has 2⁷ = 128 corners). Every
-// resistor's TCR is applied at the corner's ambient (resistors are taken
-// to be at the ambient temperature); the transistor is self-heated through
-// ThermalResistance(b.Device). The corner evaluation is exact only where
-// IC and VCE are monotonic in each input (REFERENCE.md §9).
+// EvalWorstCase solves every corner of b over the same input bounds as
+// the Monte Carlo yield (Uncertainties): each combination of {hFE min,
+// max} × {VBE(on) low, high} × {VAF low, high, when a range is stocked} ×
+// {each used resistor low, high} × {supply −tol, +tol} × {ambient min,
+// max} (an input without spread contributes one level, so a divider with
+// four toleranced resistors has 2⁸ = 256 corners). A resistor's low level
+// at an ambient Ta is R·(1 − tol)·(1 − |TCR|·|Ta − 25 °C|) and its high
+// level R·(1 + tol)·(1 + |TCR|·|Ta − 25 °C|): the ends of what its
+// tolerance and ± its TCR bound allow at that ambient (resistors are
+// taken to be at the ambient temperature); the transistor is self-heated
+// through ThermalResistance(b.Device). The corner evaluation is exact
+// only where IC and VCE are monotonic in each input (REFERENCE.md §9).
 //
 // The RSS figures are the GUM law of propagation of uncertainty (JCGM
 // 100:2008 §5.1.2, eq. (10); from memory for the clause) for uncorrelated
 // inputs, u_c(Y) = √Σ(∂Y/∂x_i·u_i)², with every input taken as uniform
 // (rectangular) over its range, u_i = a_i/√3 for the half-width a_i (GUM
-// §4.3.7; from memory for the clause): resistors and supply over their
-// tolerance, hFE over [min, max], ambient over [min, max]. The sensitivity
+// §4.3.7; from memory for the clause), over the ranges of Uncertainties
+// (see EvalRSS). The sensitivity
 // coefficients are central finite differences of the self-heated solve at
 // the midpoint of every range. The figure is one standard uncertainty
 // (coverage factor 1), one-sided.
@@ -101,6 +116,8 @@ const (
 	axisSupply
 	axisAmbient
 	axisResistor
+	axisVBE
+	axisVAF
 )
 
 // cornerAxis is one input with two levels.
@@ -112,17 +129,22 @@ type cornerAxis struct {
 // cornerPlan is the corner enumeration of one build: its axes and the two
 // device models.
 type cornerPlan struct {
-	b        Build
-	axes     [NumSlots + 3]cornerAxis
-	n        int
-	mLo, mHi Model
-	theta    float64
-	tjMax    float64
-	allow    [2]allowances // the parts' limits at the low and high ambient
-	// dev[i][j] is model i (0 mLo, 1 mHi) at ambient j (0 min, 1 max);
-	// check[i][j] is SolveSelfHeated's input check of that pair.
-	dev   [2][2]device
-	check [2][2]error
+	b     Build
+	axes  [NumSlots + 5]cornerAxis
+	n     int
+	theta float64
+	tjMax float64
+	allow [2]allowances // the parts' limits at the low and high ambient
+	// models[i] is the transistor with bit 0 of i picking hFE max, bit 1
+	// the high VBE(on) and bit 2 the high VAF; vbe and vaf hold the two
+	// ends of those ranges.
+	models [8]Model
+	vbe    [2]float64
+	vaf    [2]float64
+	// dev[i][j] is models[i] at ambient j (0 min, 1 max); check[i][j] is
+	// SolveSelfHeated's input check of that pair.
+	dev   [8][2]device
+	check [8][2]error
 }
 
 // newCornerPlan lists the axes of b (resistors first, ambient last), builds
@@ -143,19 +165,32 @@ func newCornerPlan(b Build, lim Limits) (cornerPlan, error) {
 	if b.Device.HFEMax > b.Device.HFEMin {
 		add(axisBeta, 0)
 	}
+	p.vbe[0], p.vbe[1], _ = VBEOnRange(b.Device)
+	if p.vbe[1] > p.vbe[0] {
+		add(axisVBE, 0)
+	}
+	p.vaf[0], p.vaf[1] = VAFRange(b.Device)
+	if p.vaf[1] > p.vaf[0] {
+		add(axisVAF, 0)
+	}
 	if b.AmbientMax_C > b.AmbientMin_C {
 		add(axisAmbient, 0)
 	}
-	var err error
-	if p.mLo, err = ModelFor(b.Device, b.Device.HFEMin); err != nil {
+	base, err := ModelFor(b.Device, b.Device.HFEMin)
+	if err != nil {
 		return p, err
 	}
-	p.mHi = p.mLo
-	p.mHi.BF = b.Device.HFEMax // ModelFor depends on bf only through BF
-	for i, m := range [2]*Model{&p.mLo, &p.mHi} {
+	for i := range p.models {
+		m := base
+		if i&1 != 0 {
+			m.BF = b.Device.HFEMax // ModelFor depends on bf only through BF
+		}
+		m.IS_A = isFor(b.Device, p.vbe[i>>1&1])
+		m.VAF_V = p.vaf[i>>2&1]
+		p.models[i] = m
 		for j, amb := range [2]float64{b.AmbientMin_C, b.AmbientMax_C} {
-			if p.check[i][j] = checkSelfHeated(m, amb, p.theta, p.tjMax); p.check[i][j] == nil {
-				p.dev[i][j] = m.at(amb)
+			if p.check[i][j] = checkSelfHeated(&p.models[i], amb, p.theta, p.tjMax); p.check[i][j] == nil {
+				p.dev[i][j] = p.models[i].at(amb)
 			}
 		}
 	}
@@ -170,7 +205,9 @@ func CornerCount(b Build) int {
 			n++
 		}
 	}
-	for _, spread := range []bool{b.VCCTol > 0, b.Device.HFEMax > b.Device.HFEMin, b.AmbientMax_C > b.AmbientMin_C} {
+	vbeLo, vbeHi, _ := VBEOnRange(b.Device)
+	vafLo, vafHi := VAFRange(b.Device)
+	for _, spread := range []bool{b.VCCTol > 0, b.Device.HFEMax > b.Device.HFEMin, vbeHi > vbeLo, vafHi > vafLo, b.AmbientMax_C > b.AmbientMin_C} {
 		if spread {
 			n++
 		}
@@ -182,19 +219,36 @@ func CornerCount(b Build) int {
 // gives what SolveSelfHeated gives at the corner, with the models, their
 // devices at the two ambients and the input checks shared by all corners.
 func (p *cornerPlan) solve(k int) (Corner, error) {
-	var dev [NumSlots]float64
-	vccFactor, ambient, m := 1.0, p.b.AmbientMin_C, &p.mLo
+	var dev, tcr [NumSlots]float64
+	vccFactor, ambient := 1.0, p.b.AmbientMin_C
 	mi, ai := 0, 0
+	for j := 0; j < p.n; j++ {
+		if p.axes[j].kind == axisAmbient && k>>j&1 == 1 {
+			ambient, ai = p.b.AmbientMax_C, 1
+		}
+	}
+	// The TCR sign that moves R the way of the level at this ambient.
+	tcrSign := 1.0
+	if ambient < TCRReference_C {
+		tcrSign = -1
+	}
+	// A resistor without tolerance has no axis; its TCR bound still
+	// spreads it: take the end that moves it up.
+	for i := range NumSlots {
+		if r := &p.b.Resistors[i]; p.b.usedSlot(i) && r.Tol <= 0 {
+			tcr[i] = tcrSign * math.Abs(r.TCR_PPMPerK)
+		}
+	}
 	for j := 0; j < p.n; j++ {
 		hi := k>>j&1 == 1
 		ax := p.axes[j]
 		switch ax.kind {
 		case axisResistor:
-			tol := p.b.Resistors[ax.slot].Tol
+			r := &p.b.Resistors[ax.slot]
 			if hi {
-				dev[ax.slot] = tol
+				dev[ax.slot], tcr[ax.slot] = r.Tol, tcrSign*math.Abs(r.TCR_PPMPerK)
 			} else {
-				dev[ax.slot] = -tol
+				dev[ax.slot], tcr[ax.slot] = -r.Tol, -tcrSign*math.Abs(r.TCR_PPMPerK)
 			}
 		case axisSupply:
 			if hi {
@@ -204,16 +258,21 @@ func (p *cornerPlan) solve(k int) (Corner, error) {
 			}
 		case axisBeta:
 			if hi {
-				m, mi = &p.mHi, 1
+				mi |= 1
 			}
-		case axisAmbient:
+		case axisVBE:
 			if hi {
-				ambient, ai = p.b.AmbientMax_C, 1
+				mi |= 2
+			}
+		case axisVAF:
+			if hi {
+				mi |= 4
 			}
 		}
 	}
-	s := p.b.resolve(&dev, vccFactor, ambient)
-	c := Corner{BF: m.BF, Temp_C: ambient, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm}
+	m := &p.models[mi]
+	s := p.b.resolveTCR(&dev, &tcr, vccFactor, ambient)
+	c := Corner{BF: m.BF, VBEOn_V: p.vbe[mi>>1&1], VAF_V: m.VAF_V, IS_A: m.IS_A, Temp_C: ambient, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm}
 	err := p.check[mi][ai]
 	var op OperatingPoint
 	if err == nil {

@@ -33,6 +33,12 @@ func randomBuild(rng *rand.Rand) Build {
 		VBEAt_A: logU(1e-4, 1e-2), VCESat_V: 0.2, ThetaJA_KPerW: pick(0, logU(50, 500), logU(50, 500)), TjMax_C: pick(0, 125, 150, 175)}
 	if rng.IntN(2) == 0 {
 		b.Device.VAF_V = logU(20, 200)
+		if rng.IntN(2) == 0 {
+			b.Device.VAFMin_V, b.Device.VAFMax_V = 0.7*b.Device.VAF_V, 1.5*b.Device.VAF_V
+		}
+	}
+	if rng.IntN(3) == 0 {
+		b.Device.VBEMin_V, b.Device.VBEMax_V = b.Device.VBEOn_V-0.04*rng.Float64(), b.Device.VBEOn_V+0.04*rng.Float64()
 	}
 	if rng.IntN(3) == 0 {
 		b.Device.ICBO_A = logU(1e-10, 1e-7)
@@ -53,19 +59,43 @@ func randomBuild(rng *rand.Rand) Build {
 // referenceCorner solves corner k of b the plain way: the corner's inputs
 // taken from its number as EvalWorstCase documents it (bit j high = axis j
 // at its high level; axes are the toleranced resistors in slot order, then
-// the supply, hFE and the ambient, each only when it has a spread) and one
-// SolveSelfHeated call from scratch.
+// the supply, hFE, VBE(on), VAF and the ambient, each only when it has a
+// spread; a resistor's level at ambient Ta is R·(1 ± tol)·(1 ± |TCR|·|Ta −
+// 25 °C|), one without tolerance at its upper end) and one SolveSelfHeated
+// call from scratch.
 func referenceCorner(b Build, k int) (Corner, error) {
-	var dev [NumSlots]float64
-	vccFactor, bf, ambient := 1.0, b.Device.HFEMin, b.AmbientMin_C
+	n := 0
+	for i := range NumSlots {
+		if b.Topology.uses(i) && b.Resistors[i].Nominal_Ohm > 0 && b.Resistors[i].Tol > 0 {
+			n++
+		}
+	}
+	vbeLo, vbeHi, _ := VBEOnRange(b.Device)
+	vafLo, vafHi := VAFRange(b.Device)
+	for _, spread := range []bool{b.VCCTol > 0, b.Device.HFEMax > b.Device.HFEMin, vbeHi > vbeLo, vafHi > vafLo} {
+		if spread {
+			n++
+		}
+	}
+	ambient := b.AmbientMin_C
+	if b.AmbientMax_C > b.AmbientMin_C && k>>n&1 == 1 {
+		ambient = b.AmbientMax_C
+	}
+	drift := math.Abs(ambient-25) * 1e-6
+	var r [NumSlots]float64
+	vccFactor, bf, vbe, vaf := 1.0, b.Device.HFEMin, vbeLo, vafLo
 	j := 0
 	bit := func() bool { hi := k>>j&1 == 1; j++; return hi }
 	for i := range NumSlots {
-		if tol := b.Resistors[i].Tol; b.Topology.uses(i) && b.Resistors[i].Nominal_Ohm > 0 && tol > 0 {
-			dev[i] = -tol
-			if bit() {
-				dev[i] = tol
-			}
+		rs := b.Resistors[i]
+		if !b.Topology.uses(i) || rs.Nominal_Ohm == 0 {
+			continue
+		}
+		a := math.Abs(rs.TCR_PPMPerK) * drift
+		if rs.Tol == 0 || bit() {
+			r[i] = rs.Nominal_Ohm * (1 + rs.Tol) * (1 + a)
+		} else {
+			r[i] = rs.Nominal_Ohm * (1 - rs.Tol) * (1 - a)
 		}
 	}
 	if b.VCCTol > 0 {
@@ -77,16 +107,30 @@ func referenceCorner(b Build, k int) (Corner, error) {
 	if b.Device.HFEMax > b.Device.HFEMin && bit() {
 		bf = b.Device.HFEMax
 	}
-	if b.AmbientMax_C > b.AmbientMin_C && bit() {
-		ambient = b.AmbientMax_C
+	if vbeHi > vbeLo && bit() {
+		vbe = vbeHi
 	}
-	m, err := ModelFor(b.Device, bf)
+	if vafHi > vafLo && bit() {
+		vaf = vafHi
+	}
+	d := b.Device
+	d.VBEOn_V, d.VBEMin_V, d.VBEMax_V = vbe, 0, 0
+	d.VAF_V, d.VAFMin_V, d.VAFMax_V = vaf, 0, 0
+	m, err := ModelFor(d, bf)
 	if err != nil {
 		return Corner{}, err
 	}
-	s := b.Resolve(dev, vccFactor, ambient)
+	s := b.Resolve([NumSlots]float64{}, vccFactor, 25)
+	for i := range NumSlots {
+		if r[i] > 0 {
+			s.R_Ohm[i] = r[i]
+		}
+	}
+	if re := b.Resistors[RE].Nominal_Ohm; re > 0 && b.RBypass_Ohm > 0 {
+		s.RBypass_Ohm = s.R_Ohm[RE] * math.Min(b.RBypass_Ohm/re, 1)
+	}
 	op, err := SolveSelfHeated(s, m, ambient, ThermalResistance(b.Device), tjMaxOf(b.Device))
-	return Corner{BF: bf, Temp_C: ambient, Tj_C: op.Tj_C, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm, OP: op}, err
+	return Corner{BF: bf, VBEOn_V: vbe, VAF_V: vaf, IS_A: m.IS_A, Temp_C: ambient, Tj_C: op.Tj_C, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm, OP: op}, err
 }
 
 // TestWorstCaseFastPathMatchesReferencePath is a regression check of the
@@ -130,7 +174,11 @@ func TestWorstCaseFastPathMatchesReferencePath(t *testing.T) {
 		for k, r := range ref {
 			c := wc.Corners[k]
 			corners++
-			if c.BF != r.BF || c.Temp_C != r.Temp_C || c.VCC_V != r.VCC_V || c.R_Ohm != r.R_Ohm {
+			sameR := true
+			for s := range NumSlots {
+				sameR = sameR && near(c.R_Ohm[s], r.R_Ohm[s])
+			}
+			if c.BF != r.BF || c.VBEOn_V != r.VBEOn_V || c.VAF_V != r.VAF_V || !near(c.IS_A, r.IS_A) || c.Temp_C != r.Temp_C || c.VCC_V != r.VCC_V || !sameR {
 				t.Fatalf("#%d corner %d: inputs %+v, reference %+v", i, k, c, r)
 			}
 			if !near(c.OP.IC_A, r.OP.IC_A) || !near(c.OP.VCE_V, r.OP.VCE_V) || !near(c.Tj_C, r.Tj_C) || c.OP.Region != r.OP.Region {

@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
-
-	"gonum.org/v1/gonum/stat/distuv"
 )
 
 // Window is the acceptance band for yield. A zero maximum means no upper
@@ -37,25 +35,44 @@ func (w Window) validate() error {
 	return nil
 }
 
+// YieldDefinition is what the yield counts, as stated to the user.
+const YieldDefinition = "the share of boards, every uncertain input drawn at random within its stated limits, " +
+	"whose IC and VCE stay inside the window at every ambient temperature of the range: " +
+	"each board is solved at both ends of the range, and where its IC or VCE turns between the ends, at the turning point too"
+
+// YieldIntervalMethod names the interval reported with the yield.
+const YieldIntervalMethod = "Clopper-Pearson exact binomial, 95 % two-sided " +
+	"(Clopper & Pearson, Biometrika 26, 1934)"
+
 // YieldResult is a Monte Carlo yield estimate.
 type YieldResult struct {
 	Boards int
 	Pass   int
-	Yield  float64
+	Yield  float64 // Pass/Boards, the point estimate
+	// Low95 and High95 are the Clopper–Pearson 95 % two-sided interval of
+	// the yield (YieldIntervalMethod); never of zero width.
+	Low95, High95 float64
+	// StdErr is the binomial standard error √(p(1−p)/n) of the point
+	// estimate (REFERENCE.md §9); it is 0 when every board passes, so it
+	// is no interval: report Low95..High95.
 	StdErr float64
 	Seed   uint64 // the seed when run by EvalYieldSeeded; 0 from EvalYield
 	Failed int    // boards whose solve returned an error (counted as failures)
+	// Turned counts boards whose IC or VCE was not monotonic over the
+	// ambient range, so that a turning point between the ends was solved.
+	Turned int
 	// Samples holds every board's operating points, in drawing order, when
 	// YieldOptions.KeepBoards is set (nil otherwise).
 	Samples []BoardSample
 }
 
-// BoardSample is one Monte Carlo board as solved: its Q-point at each
-// ambient it was solved at (one with AmbientUniform, the minimum then the
-// maximum with AmbientExtremes) and whether it passed.
+// BoardSample is one Monte Carlo board as solved: its Q-point at the
+// minimum and then the maximum ambient (one point for a range of one
+// temperature; fewer when a solve failed), and whether it passed. The
+// points the monotonicity check solved between the ends are not kept.
 type BoardSample struct {
-	Points []SamplePoint // the ambients solved before a failure, if any
-	Pass   bool          // inside the window at every ambient solved
+	Points []SamplePoint // the ends solved before a failure, if any
+	Pass   bool          // inside the window at every ambient of the range
 	Failed bool          // a solve returned an error (the board counts as a failure)
 }
 
@@ -70,8 +87,9 @@ type SamplePoint struct {
 type ResistorDist int
 
 const (
-	// ResistorUniform draws uniformly on ±tol: the conservative choice
-	// (common practice, REFERENCE.md §9).
+	// ResistorUniform draws uniformly on ±tol: the rectangular
+	// distribution of limits alone (JCGM 101:2008 §6.4.2.1; REFERENCE.md
+	// §9, §13).
 	ResistorUniform ResistorDist = iota
 	// ResistorNormal draws from a normal distribution with σ = tol/3,
 	// truncated at ±tol (common practice, REFERENCE.md §9).
@@ -88,40 +106,39 @@ const (
 	BetaLogUniform
 )
 
-// AmbientMode is how the ambient temperature enters a board.
-type AmbientMode int
-
-const (
-	// AmbientUniform gives each board one ambient drawn uniformly over
-	// [AmbientMin_C, AmbientMax_C].
-	AmbientUniform AmbientMode = iota
-	// AmbientExtremes solves each board at both ambient extremes and
-	// passes it only if both points are inside the window: the board must
-	// work over the whole range (temperature swept at its extremes rather
-	// than sampled, common practice, REFERENCE.md §9). Twice the solves.
-	AmbientExtremes
-)
-
 // YieldOptions selects the sampling distributions. The zero value is what
-// EvalYield uses: resistors, hFE, supply and ambient all uniform.
+// EvalYield uses: every input rectangular between its limits.
 type YieldOptions struct {
 	Resistors ResistorDist
 	Beta      BetaDist
-	Ambient   AmbientMode
 	// KeepBoards fills YieldResult.Samples with every board's Q-points
 	// (for pictures of the spread); it changes no figure.
 	KeepBoards bool
 }
 
 // EvalYield runs a seeded Monte Carlo over n boards with the default
-// YieldOptions. Each board draws, independently: every used resistor
-// uniform on its ±tol (conservative, common practice, REFERENCE.md §9),
-// hFE uniform on [hFE min, hFE max], the supply factor uniform on ±VCCTol,
-// and the ambient uniform over [AmbientMin_C, AmbientMax_C]; the resistors
-// sit at the ambient (TCR applied) and the transistor is self-heated. The
-// yield is the share of boards whose IC and VCE lie in w, with the
-// binomial standard error √(p(1−p)/n) (REFERENCE.md §9). A board whose
-// solve fails counts as a failure. The same rng state gives the same result.
+// YieldOptions (YieldDefinition). Each board draws, independently and in
+// the order of Uncertainties: every used resistor's value on its ±tol and
+// its TCR on ± its stated bound, the supply factor on ±VCCTol, hFE on
+// [hFE min, hFE max], VBE(on) on VBEOnRange (through IS) and the Early
+// voltage on VAFRange, each rectangular (only limits are known, JCGM
+// 101:2008 §6.4.2.1). The ambient is not drawn: the board is solved,
+// self-heated, with its resistors at the ambient, at both ends of the
+// range and counts as good only if IC and VCE are inside w at both.
+//
+// Between the ends: the response is checked for monotonicity by the
+// slope of IC and VCE at each end (a one-sided difference over 1 % of the
+// range, the points solved being checked too). Where a slope changes sign
+// the response has a turning point inside the range, which is found by a
+// golden-section search (each point it solves is checked) and checked.
+// Every temperature mechanism of the model is monotonic and smooth in the
+// temperature (IS(T), BF(T) and ICBO(T) rise, each resistor drifts
+// linearly), so a response with at most one turning point is covered
+// exactly; TestYieldSweepAgrees checks the rule against a dense sweep.
+//
+// The result carries the Clopper–Pearson 95 % interval. A board whose
+// solve fails counts as a failure. The same rng state gives the same
+// result.
 func EvalYield(b Build, w Window, n int, rng *rand.Rand) (YieldResult, error) {
 	return EvalYieldWith(b, w, n, rng, YieldOptions{})
 }
@@ -152,86 +169,36 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 	if rng == nil {
 		panic("solver: EvalYield with a nil random source")
 	}
-	d := b.Device
-	m, err := ModelFor(d, d.HFEMin)
+	smp, err := newBoardSampler(&b, rng, opt)
 	if err != nil {
 		return YieldResult{}, fmt.Errorf("yield: %w", err)
 	}
-	theta, tjMax := ThermalResistance(d), tjMaxOf(d)
-	unit := distuv.Uniform{Min: -1, Max: 1, Src: rng}
-	norm := distuv.Normal{Mu: 0, Sigma: 1.0 / 3, Src: rng}
-	var slots [NumSlots]Slot
-	ns := 0
-	for i := range NumSlots {
-		if b.usedSlot(i) && b.Resistors[i].Tol > 0 {
-			slots[ns] = i
-			ns++
-		}
-	}
-	logMin, logMax := math.Log(d.HFEMin), math.Log(d.HFEMax)
+	j := newBoardJudge(&b, w)
 	res := YieldResult{Boards: n}
+	var bd board
 	for range n {
-		var dev [NumSlots]float64
-		for _, i := range slots[:ns] {
-			x := 0.0
-			if opt.Resistors == ResistorNormal {
-				x = norm.Rand()
-				for math.Abs(x) > 1 { // truncate at ±tol by redrawing
-					x = norm.Rand()
-				}
-			} else {
-				x = unit.Rand()
-			}
-			dev[i] = x * b.Resistors[i].Tol
-		}
-		u := 0.5 * (unit.Rand() + 1) // [0, 1)
-		if opt.Beta == BetaLogUniform {
-			m.BF = math.Exp(logMin + u*(logMax-logMin))
-		} else {
-			m.BF = d.HFEMin + u*(d.HFEMax-d.HFEMin) // ModelFor depends on bf only through BF
-		}
-		vccFactor := 1 + b.VCCTol*unit.Rand()
-		pass, failed := true, false
+		smp.draw(&bd)
 		var sample BoardSample
-		keep := func(ta float64, op *OperatingPoint) {
-			if opt.KeepBoards {
-				sample.Points = append(sample.Points, SamplePoint{Ambient_C: ta, IC_A: op.IC_A, VCE_V: op.VCE_V})
-			}
-		}
-		if opt.Ambient == AmbientExtremes {
-			for _, ta := range [2]float64{b.AmbientMin_C, b.AmbientMax_C} {
-				op, err := SolveSelfHeated(b.Resolve(dev, vccFactor, ta), m, ta, theta, tjMax)
-				if err != nil {
-					failed = true
-					break
-				}
-				keep(ta, &op)
-				if !w.Contains(&op) {
-					pass = false
-				}
-			}
-		} else {
-			ta := b.AmbientMin_C + 0.5*(unit.Rand()+1)*(b.AmbientMax_C-b.AmbientMin_C)
-			op, err := SolveSelfHeated(b.Resolve(dev, vccFactor, ta), m, ta, theta, tjMax)
-			if err != nil {
-				failed = true
-			} else {
-				keep(ta, &op)
-				pass = w.Contains(&op)
-			}
-		}
 		if opt.KeepBoards {
-			sample.Pass, sample.Failed = pass && !failed, failed
+			j.keep = &sample
+		}
+		pass, turned, err := j.judge(&bd)
+		if opt.KeepBoards {
+			sample.Pass, sample.Failed = pass && err == nil, err != nil
 			res.Samples = append(res.Samples, sample)
 		}
 		switch {
-		case failed:
+		case err != nil:
 			res.Failed++
 		case pass:
 			res.Pass++
 		}
+		if turned {
+			res.Turned++
+		}
 	}
 	res.Yield = float64(res.Pass) / float64(n)
 	res.StdErr = math.Sqrt(res.Yield * (1 - res.Yield) / float64(n))
+	res.Low95, res.High95 = ClopperPearson95(res.Pass, n)
 	return res, nil
 }

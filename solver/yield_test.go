@@ -14,6 +14,7 @@ func oneInputBuild(keep Slot, betaSpread bool) Build {
 	b.VCCTol = 0
 	b.Device.ThetaJA_KPerW = 0
 	b.AmbientMin_C, b.AmbientMax_C = 25, 25
+	b.Device.VBEMin_V, b.Device.VBEMax_V = 0.65, 0.65 // no VBE(on) spread
 	if !betaSpread {
 		b.Device.HFEMin, b.Device.HFEMax = 200, 200
 	}
@@ -96,7 +97,7 @@ func TestYieldInsideCorners(t *testing.T) {
 		t.Fatal(err)
 	}
 	w := Window{ICMin_A: wc.ICMin_A * (1 - 1e-9), ICMax_A: wc.ICMax_A * (1 + 1e-9), VCEMin_V: wc.VCEMin_V - 1e-9, VCEMax_V: wc.VCEMax_V + 1e-9}
-	for _, opt := range []YieldOptions{{}, {Resistors: ResistorNormal, Beta: BetaLogUniform, Ambient: AmbientExtremes}} {
+	for _, opt := range []YieldOptions{{}, {Resistors: ResistorNormal, Beta: BetaLogUniform}} {
 		y, err := EvalYieldWith(b, w, 2000, rand.New(rand.NewPCG(7, 7)), opt)
 		if err != nil {
 			t.Fatal(err)
@@ -187,8 +188,11 @@ func BenchmarkYield10k(b *testing.B) {
 
 // TestYieldKeepBoards checks the kept samples against the yield's own
 // definition (a board passes when its IC and VCE lie in the window at every
-// ambient solved; REFERENCE.md §9): the kept boards reproduce the counts,
-// and keeping them changes no figure.
+// ambient of the range; YieldDefinition, REFERENCE.md §9): each board
+// keeps the two ends of the range in order, a passing board is inside at
+// both, a failing one outside at one of them unless it turned between
+// them, the kept boards reproduce the counts, and keeping them changes no
+// figure.
 func TestYieldKeepBoards(t *testing.T) {
 	b := dividerBuild()
 	b.AmbientMin_C, b.AmbientMax_C = -10, 60
@@ -197,51 +201,53 @@ func TestYieldKeepBoards(t *testing.T) {
 		t.Fatal(err)
 	}
 	w := Window{ICMax_A: 0.5 * (wc.ICMin_A + wc.ICMax_A)}
-	for _, amb := range []AmbientMode{AmbientUniform, AmbientExtremes} {
-		plain, err := EvalYieldSeeded(b, w, 500, 3, YieldOptions{Ambient: amb})
-		if err != nil {
-			t.Fatal(err)
+	plain, err := EvalYieldSeeded(b, w, 500, 3, YieldOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	kept, err := EvalYieldSeeded(b, w, 500, 3, YieldOptions{KeepBoards: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(kept.Samples) != 500 || plain.Samples != nil {
+		t.Fatalf("%d samples kept, %d without asking; want 500 and 0", len(kept.Samples), len(plain.Samples))
+	}
+	samples := kept.Samples
+	kept.Samples = nil
+	if !reflect.DeepEqual(kept, plain) {
+		t.Errorf("keeping boards changed the result: %+v, want %+v", kept, plain)
+	}
+	pass, between := 0, 0
+	for i, s := range samples {
+		if len(s.Points) != 2 {
+			t.Fatalf("board %d: %d points, want both ends", i, len(s.Points))
 		}
-		kept, err := EvalYieldSeeded(b, w, 500, 3, YieldOptions{Ambient: amb, KeepBoards: true})
-		if err != nil {
-			t.Fatal(err)
-		}
-		if len(kept.Samples) != 500 || plain.Samples != nil {
-			t.Fatalf("ambient mode %d: %d samples kept, %d without asking; want 500 and 0", amb, len(kept.Samples), len(plain.Samples))
-		}
-		samples := kept.Samples
-		kept.Samples = nil
-		if !reflect.DeepEqual(kept, plain) {
-			t.Errorf("ambient mode %d: keeping boards changed the result: %+v, want %+v", amb, kept, plain)
-		}
-		pass := 0
-		for i, s := range samples {
-			want := 1
-			if amb == AmbientExtremes {
-				want = 2
+		in := true
+		for j, p := range s.Points {
+			if p.Ambient_C < b.AmbientMin_C || p.Ambient_C > b.AmbientMax_C {
+				t.Errorf("board %d: ambient %g °C outside the range", i, p.Ambient_C)
 			}
-			if len(s.Points) != want {
-				t.Fatalf("ambient mode %d: board %d has %d points, want %d", amb, i, len(s.Points), want)
+			if j < 2 && p.Ambient_C != [2]float64{b.AmbientMin_C, b.AmbientMax_C}[j] {
+				t.Errorf("board %d point %d: ambient %g °C, want the range's ends in order", i, j, p.Ambient_C)
 			}
-			in := true
-			for j, p := range s.Points {
-				if p.Ambient_C < b.AmbientMin_C || p.Ambient_C > b.AmbientMax_C {
-					t.Errorf("board %d: ambient %g °C outside the range", i, p.Ambient_C)
-				}
-				if amb == AmbientExtremes && p.Ambient_C != [2]float64{b.AmbientMin_C, b.AmbientMax_C}[j] {
-					t.Errorf("board %d point %d: ambient %g °C, want the range's ends in order", i, j, p.Ambient_C)
-				}
-				in = in && w.Contains(&OperatingPoint{IC_A: p.IC_A, VCE_V: p.VCE_V})
-			}
-			if in != s.Pass {
-				t.Errorf("board %d: pass %v, but its points inside the window: %v", i, s.Pass, in)
-			}
-			if s.Pass {
-				pass++
-			}
+			in = in && w.Contains(&OperatingPoint{IC_A: p.IC_A, VCE_V: p.VCE_V})
 		}
-		if pass != kept.Pass || pass == 0 || pass == 500 {
-			t.Errorf("ambient mode %d: %d kept boards pass, result says %d (want strictly between 0 and 500)", amb, pass, kept.Pass)
+		// Only the ends are kept: a board inside at both may still fail
+		// between them, never the other way round.
+		if s.Pass && !in {
+			t.Errorf("board %d: passed, but an end lies outside the window", i)
 		}
+		if !s.Pass && in {
+			between++
+		}
+		if s.Pass {
+			pass++
+		}
+	}
+	if between > kept.Turned {
+		t.Errorf("%d boards failed between ends that are inside, but only %d turned", between, kept.Turned)
+	}
+	if pass != kept.Pass || pass == 0 || pass == 500 {
+		t.Errorf("%d kept boards pass, result says %d (want strictly between 0 and 500)", pass, kept.Pass)
 	}
 }

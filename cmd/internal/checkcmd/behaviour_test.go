@@ -153,11 +153,12 @@ func TestJSONFields(t *testing.T) {
 		}
 	}
 	corners := doc["corners"].([]any)
-	if len(corners) != 128 {
-		t.Fatalf("%d corners, want 128", len(corners))
+	// 4 resistors, supply, hFE, VBE(on), ambient: 2^8 (REFERENCE.md §9).
+	if len(corners) != 256 {
+		t.Fatalf("%d corners, want 256", len(corners))
 	}
 	c := corners[0].(map[string]any)
-	for _, k := range []string{"bf", "temp_c", "tj_c", "vcc_v", "ohms", "ic_a", "vce_v", "region"} {
+	for _, k := range []string{"bf", "vbe_on_v", "is_a", "vaf_v", "temp_c", "tj_c", "vcc_v", "ohms", "ic_a", "vce_v", "region"} {
 		if _, ok := c[k]; !ok {
 			t.Errorf("corners[0].%s missing", k)
 		}

@@ -79,6 +79,9 @@ type jsonBand struct {
 
 type jsonCorner struct {
 	BF       float64            `json:"bf"`
+	VBEOn_V  float64            `json:"vbe_on_v"`
+	IS_A     float64            `json:"is_a"`
+	VAF_V    float64            `json:"vaf_v"`
 	Temp_C   float64            `json:"temp_c"`
 	Tj_C     float64            `json:"tj_c"`
 	VCC_V    float64            `json:"vcc_v"`
@@ -239,7 +242,7 @@ func (r *result) jsonDoc() jsonDoc {
 	if wc := r.wc; wc != nil {
 		for _, c := range wc.Corners {
 			jc := jsonCorner{
-				BF: c.BF, Temp_C: c.Temp_C, Tj_C: c.Tj_C, VCC_V: c.VCC_V, VEE_V: c.VEE_V, Ohms: map[string]float64{},
+				BF: c.BF, VBEOn_V: c.VBEOn_V, IS_A: c.IS_A, VAF_V: c.VAF_V, Temp_C: c.Temp_C, Tj_C: c.Tj_C, VCC_V: c.VCC_V, VEE_V: c.VEE_V, Ohms: map[string]float64{},
 				IC_A: c.OP.IC_A, IB_A: c.OP.IB_A, VCE_V: c.OP.VCE_V, VB_V: c.OP.VB_V, VC_V: c.OP.VC_V, VE_V: c.OP.VE_V,
 				Region: c.OP.Region.String(), PTrans_W: c.OP.PTransistor_W,
 			}

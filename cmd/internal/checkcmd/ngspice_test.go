@@ -35,6 +35,8 @@ type checkDoc struct {
 	} `json:"resistors"`
 	Corners []struct {
 		BF     float64            `json:"bf"`
+		IS_A   float64            `json:"is_a"`
+		VAF_V  float64            `json:"vaf_v"`
 		Tj_C   float64            `json:"tj_c"`
 		VCC_V  float64            `json:"vcc_v"`
 		VEE_V  float64            `json:"vee_v"`
@@ -100,9 +102,9 @@ func TestCheckSaturationAgainstNgspice(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		model := func(bf float64) solver.Model {
+		model := func(bf, is, vaf float64) solver.Model {
 			mj := doc.Model
-			return solver.Model{Polarity: pol, IS_A: mj.IS_A, BF: bf, BR: mj.BR, NF: mj.NF, VAF_V: mj.VAF_V,
+			return solver.Model{Polarity: pol, IS_A: is, BF: bf, BR: mj.BR, NF: mj.NF, VAF_V: vaf,
 				XTI: mj.XTI, XTB: mj.XTB, EG_eV: mj.EG_eV, TNOM_C: mj.TNOM_C, ICBO_A: mj.ICBO_A}
 		}
 		stage := func(vcc, vee float64, ohms map[string]float64) solver.Stage {
@@ -121,9 +123,9 @@ func TestCheckSaturationAgainstNgspice(t *testing.T) {
 			nomOhms[name] = r.EffectiveOhms
 		}
 		n := doc.Nominal
-		runs = append(runs, rerun{bd.name + ", nominal", stage(doc.VCC_V, doc.VEE_V, nomOhms), model(n.BF), n.Tj_C, n.IC_A, n.VB_V, n.VC_V, n.VE_V, doc.Region})
+		runs = append(runs, rerun{bd.name + ", nominal", stage(doc.VCC_V, doc.VEE_V, nomOhms), model(n.BF, doc.Model.IS_A, doc.Model.VAF_V), n.Tj_C, n.IC_A, n.VB_V, n.VC_V, n.VE_V, doc.Region})
 		for i, c := range doc.Corners {
-			runs = append(runs, rerun{fmt.Sprintf("%s, corner %d", bd.name, i), stage(c.VCC_V, c.VEE_V, c.Ohms), model(c.BF), c.Tj_C, c.IC_A, c.VB_V, c.VC_V, c.VE_V, c.Region})
+			runs = append(runs, rerun{fmt.Sprintf("%s, corner %d", bd.name, i), stage(c.VCC_V, c.VEE_V, c.Ohms), model(c.BF, c.IS_A, c.VAF_V), c.Tj_C, c.IC_A, c.VB_V, c.VC_V, c.VE_V, c.Region})
 		}
 	}
 	for _, r := range runs {

@@ -77,7 +77,7 @@ func writeText(w io.Writer, r *result) {
 
 	// Worst case.
 	if wc := r.wc; wc != nil {
-		fmt.Fprintf(w, "\nWorst case (%d corners: hFE, resistor and supply tolerance, ambient; TCR at ambient, self-heated)\n", wc.Count)
+		fmt.Fprintf(w, "\nWorst case (%d corners: hFE, VBE(on), resistor and supply tolerance, ± TCR, ambient; self-heated)\n", wc.Count)
 		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 		fmt.Fprintf(tw, "  IC\t%s .. %s\tRSS u(IC) %s\n", fA(wc.ICMin_A), fA(wc.ICMax_A), fA(wc.RSSIC_A))
 		fmt.Fprintf(tw, "  VCE\t%s .. %s\tRSS u(VCE) %s\n", fV(wc.VCEMin_V), fV(wc.VCEMax_V), fV(wc.RSSVCE_V))

@@ -58,7 +58,7 @@ func subjectOf(t testing.TB, b solver.Build, boards int) Subject {
 		t.Fatal(err)
 	}
 	w := solver.Window{ICMin_A: 0.9 * op.IC_A, ICMax_A: 1.1 * op.IC_A, VCEMin_V: 0.8 * op.VCE_V, VCEMax_V: 1.2 * op.VCE_V}
-	y, err := solver.EvalYieldSeeded(b, w, boards, 1, solver.YieldOptions{Ambient: solver.AmbientExtremes, KeepBoards: true})
+	y, err := solver.EvalYieldSeeded(b, w, boards, 1, solver.YieldOptions{KeepBoards: true})
 	if err != nil {
 		t.Fatal(err)
 	}
