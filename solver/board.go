@@ -184,15 +184,18 @@ func (j *boardJudge) judge(bd *board) (pass, turned bool, err error) {
 	if !j.w.Contains(&lo2) || !j.w.Contains(&hi2) {
 		return false, false, nil
 	}
-	for _, q := range [2]func(*OperatingPoint) float64{icOf, vceOf} {
-		sLo, sHi := q(&lo2)-q(&lo), q(&hi)-q(&hi2)
-		if sLo*sHi >= 0 {
+	slopes := [2][2]float64{ // IC, VCE; at the low and the high end
+		{lo2.IC_A - lo.IC_A, hi.IC_A - hi2.IC_A},
+		{lo2.VCE_V - lo.VCE_V, hi.VCE_V - hi2.VCE_V},
+	}
+	for q, sl := range slopes {
+		if sl[0]*sl[1] >= 0 {
 			continue // same sign at both ends (or flat): monotonic
 		}
 		turned = true
 		// A maximum when the slope goes from rising to falling, else a
-		// minimum; search inside the inner points.
-		ok, err := j.turningInside(bd, q, sLo > 0)
+		// minimum.
+		ok, err := j.turningInside(bd, q == 1, sl[0] > 0)
 		if err != nil || !ok {
 			return false, turned, err
 		}
@@ -200,18 +203,15 @@ func (j *boardJudge) judge(bd *board) (pass, turned bool, err error) {
 	return true, turned, nil
 }
 
-func icOf(op *OperatingPoint) float64  { return op.IC_A }
-func vceOf(op *OperatingPoint) float64 { return op.VCE_V }
-
 // goldenSteps bounds the golden-section search for a turning point: the
 // bracket shrinks to 0.618^40 ≈ 4e-9 of the range.
 const goldenSteps = 40
 
-// turningInside finds the turning point of q (a maximum when max is set)
-// between the ambient ends by golden-section search, checking every point
-// it solves against the window. It reports false at the first point
-// outside.
-func (j *boardJudge) turningInside(bd *board, q func(*OperatingPoint) float64, max bool) (bool, error) {
+// turningInside finds the turning point of IC (of VCE when vce is set),
+// a maximum when max is set, between the ambient ends by golden-section
+// search, checking every point it solves against the window. It reports
+// false at the first point outside.
+func (j *boardJudge) turningInside(bd *board, vce, max bool) (bool, error) {
 	const r = 0.6180339887498949 // (√5 − 1)/2
 	a, c := j.lo, j.hi
 	f := func(t float64) (float64, bool, error) {
@@ -219,7 +219,10 @@ func (j *boardJudge) turningInside(bd *board, q func(*OperatingPoint) float64, m
 		if err != nil {
 			return 0, false, err
 		}
-		v := q(&op)
+		v := op.IC_A
+		if vce {
+			v = op.VCE_V
+		}
 		if !max {
 			v = -v
 		}
