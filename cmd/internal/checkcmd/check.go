@@ -13,6 +13,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/store"
 )
@@ -193,7 +194,7 @@ func Run(ctx context.Context, o *Options) error {
 	if err != nil {
 		return err
 	}
-	res, err := analyse(in)
+	res, err := job.Check(in)
 	if err != nil {
 		var ie *solver.InputError
 		if errors.As(err, &ie) {
@@ -207,15 +208,15 @@ func Run(ctx context.Context, o *Options) error {
 			return fmt.Errorf("check: write JSON: %w", err)
 		}
 	case o.Spice:
-		fmt.Fprint(o.IO.Out, res.netlist())
+		fmt.Fprint(o.IO.Out, netlist(res))
 	default:
 		writeText(o.IO.Out, res)
 	}
-	for _, c := range res.cautions() {
+	for _, c := range cautions(res) {
 		fmt.Fprintln(o.IO.ErrOut, "caution:", c)
 	}
-	if len(res.problems) > 0 {
-		for _, p := range res.problems {
+	if len(res.Problems) > 0 {
+		for _, p := range problems(res) {
 			fmt.Fprintln(o.IO.ErrOut, "biasbin: check:", p)
 		}
 		return cmdutil.ErrSilent

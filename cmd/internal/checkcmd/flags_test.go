@@ -11,6 +11,7 @@ import (
 
 	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/store"
 )
@@ -18,11 +19,11 @@ import (
 // parseFlags runs the command's flag parsing on args and returns the input
 // it builds, or the error a user would see. open, when not nil, is the
 // stock; otherwise opening the stock fails the test.
-func parseFlags(t *testing.T, args []string, open func(context.Context) (*store.DB, error)) (input, error) {
+func parseFlags(t *testing.T, args []string, open func(context.Context) (*store.DB, error)) (job.CheckRequest, error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
 	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
-	var in input
+	var in job.CheckRequest
 	cmd := newCmd(f, func(o *Options) error {
 		if open != nil {
 			o.Store = open
@@ -53,10 +54,10 @@ func TestFlags(t *testing.T) {
 	tests := []struct {
 		name  string
 		args  []string
-		check func(t *testing.T, in input)
+		check func(t *testing.T, in job.CheckRequest)
 	}{
-		{"defaults", divider, func(t *testing.T, in input) {
-			b := in.b
+		{"defaults", divider, func(t *testing.T, in job.CheckRequest) {
+			b := in.Build
 			if b.Topology != solver.Divider || b.Device.Polarity != solver.NPN || !near(b.VCC_V, 15) || !near(b.VCCTol, 0.05) {
 				t.Errorf("topology %v polarity %v vcc %g tol %g; want divider npn 15 0.05", b.Topology, b.Device.Polarity, b.VCC_V, b.VCCTol)
 			}
@@ -73,48 +74,48 @@ func TestFlags(t *testing.T) {
 			if b.Device.HFEMin != 100 || b.Device.HFEMax != 300 {
 				t.Errorf("hFE %g..%g, want 100..300", b.Device.HFEMin, b.Device.HFEMax)
 			}
-			if !in.window.icIsPct || !near(in.window.icPct, 0.1) || !in.window.vceIsPct || !near(in.window.vcePct, 0.2) {
-				t.Errorf("window %+v, want ±10 %% IC, ±20 %% VCE", in.window)
+			if !in.Window.IC.Relative || !near(in.Window.IC.Frac, 0.1) || !in.Window.VCE.Relative || !near(in.Window.VCE.Frac, 0.2) {
+				t.Errorf("window %+v, want ±10 %% IC, ±20 %% VCE", in.Window)
 			}
-			if in.boards != 10000 || in.seed != 1 || in.label != "" {
-				t.Errorf("boards %d seed %d label %q", in.boards, in.seed, in.label)
-			}
-		}},
-		{"tolerance letter on a value", args("--r2", "4K7F", "--tol", "2%"), func(t *testing.T, in input) {
-			if !near(in.b.Resistors[solver.R2].Tol, 0.01) || !near(in.b.Resistors[solver.R1].Tol, 0.02) {
-				t.Errorf("tolerances %g, %g; want 0.01 (F) and 0.02 (--tol)", in.b.Resistors[solver.R2].Tol, in.b.Resistors[solver.R1].Tol)
+			if in.Boards != 10000 || in.Seed != 1 || in.Label != "" {
+				t.Errorf("boards %d seed %d label %q", in.Boards, in.Seed, in.Label)
 			}
 		}},
-		{"SI values", args("--r1", "10k", "--rc", "2.2 kΩ", "--tcr", "-200ppm/K", "--power", "1/2W"), func(t *testing.T, in input) {
-			if !near(in.b.Resistors[solver.R1].Nominal_Ohm, 10e3) || !near(in.b.Resistors[solver.RC].Nominal_Ohm, 2200) ||
-				!near(in.b.Resistors[solver.RC].TCR_PPMPerK, -200) || !near(in.b.Resistors[solver.RC].Rated_W, 0.5) {
-				t.Errorf("resistors %+v", in.b.Resistors)
+		{"tolerance letter on a value", args("--r2", "4K7F", "--tol", "2%"), func(t *testing.T, in job.CheckRequest) {
+			if !near(in.Build.Resistors[solver.R2].Tol, 0.01) || !near(in.Build.Resistors[solver.R1].Tol, 0.02) {
+				t.Errorf("tolerances %g, %g; want 0.01 (F) and 0.02 (--tol)", in.Build.Resistors[solver.R2].Tol, in.Build.Resistors[solver.R1].Tol)
 			}
 		}},
-		{"pnp magnitude rail", args("--polarity", "pnp", "--vcc", "9V"), func(t *testing.T, in input) {
-			if in.b.Device.Polarity != solver.PNP || !near(in.b.VCC_V, -9) {
-				t.Errorf("polarity %v vcc %g, want pnp -9", in.b.Device.Polarity, in.b.VCC_V)
+		{"SI values", args("--r1", "10k", "--rc", "2.2 kΩ", "--tcr", "-200ppm/K", "--power", "1/2W"), func(t *testing.T, in job.CheckRequest) {
+			if !near(in.Build.Resistors[solver.R1].Nominal_Ohm, 10e3) || !near(in.Build.Resistors[solver.RC].Nominal_Ohm, 2200) ||
+				!near(in.Build.Resistors[solver.RC].TCR_PPMPerK, -200) || !near(in.Build.Resistors[solver.RC].Rated_W, 0.5) {
+				t.Errorf("resistors %+v", in.Build.Resistors)
 			}
 		}},
-		{"pnp signed rail", args("--polarity", "PNP", "--vcc", "-9V"), func(t *testing.T, in input) {
-			if !near(in.b.VCC_V, -9) {
-				t.Errorf("vcc %g, want -9", in.b.VCC_V)
+		{"pnp magnitude rail", args("--polarity", "pnp", "--vcc", "9V"), func(t *testing.T, in job.CheckRequest) {
+			if in.Build.Device.Polarity != solver.PNP || !near(in.Build.VCC_V, -9) {
+				t.Errorf("polarity %v vcc %g, want pnp -9", in.Build.Device.Polarity, in.Build.VCC_V)
 			}
 		}},
-		{"split supply", []string{"--topology", "split-supply", "--vcc", "15V", "--vee", "15V", "--rb", "0", "--rc", "10K", "--re", "20K", "--hfe", "100..300"}, func(t *testing.T, in input) {
-			b := in.b
+		{"pnp signed rail", args("--polarity", "PNP", "--vcc", "-9V"), func(t *testing.T, in job.CheckRequest) {
+			if !near(in.Build.VCC_V, -9) {
+				t.Errorf("vcc %g, want -9", in.Build.VCC_V)
+			}
+		}},
+		{"split supply", []string{"--topology", "split-supply", "--vcc", "15V", "--vee", "15V", "--rb", "0", "--rc", "10K", "--re", "20K", "--hfe", "100..300"}, func(t *testing.T, in job.CheckRequest) {
+			b := in.Build
 			if b.Topology != solver.SplitSupply || !near(b.VEE_V, -15) || b.Resistors[solver.RB].Nominal_Ohm != 0 || !near(b.Resistors[solver.RE].Nominal_Ohm, 20e3) {
 				t.Errorf("split supply build %+v", b)
 			}
 		}},
-		{"collector feedback without RE", []string{"--topology", "collector-feedback", "--vcc", "10V", "--rf", "250K", "--rc", "4K7", "--hfe", "90"}, func(t *testing.T, in input) {
-			b := in.b
+		{"collector feedback without RE", []string{"--topology", "collector-feedback", "--vcc", "10V", "--rf", "250K", "--rc", "4K7", "--hfe", "90"}, func(t *testing.T, in job.CheckRequest) {
+			b := in.Build
 			if b.Topology != solver.CollectorFeedback || !near(b.Resistors[solver.RF].Nominal_Ohm, 250e3) || b.Resistors[solver.RE].Nominal_Ohm != 0 || b.Device.HFEMin != 90 || b.Device.HFEMax != 90 {
 				t.Errorf("feedback build %+v", b)
 			}
 		}},
-		{"inline datasheet", args("--hfe", "110..800@2mA", "--hfe-typ", "290", "--vbe", "0.66V@2mA", "--vce-sat", "0.25V", "--vaf", "74V", "--vceo", "45V", "--ic-max", "100mA", "--pd", "625mW", "--theta-ja", "200K/W", "--tj-max", "150", "--icbo", "15nA"), func(t *testing.T, in input) {
-			d := in.b.Device
+		{"inline datasheet", args("--hfe", "110..800@2mA", "--hfe-typ", "290", "--vbe", "0.66V@2mA", "--vce-sat", "0.25V", "--vaf", "74V", "--vceo", "45V", "--ic-max", "100mA", "--pd", "625mW", "--theta-ja", "200K/W", "--tj-max", "150", "--icbo", "15nA"), func(t *testing.T, in job.CheckRequest) {
+			d := in.Build.Device
 			want := solver.Datasheet{Polarity: solver.NPN, HFEMin: 110, HFEMax: 800, HFETyp: 290, HFEAt_A: 2e-3, VBEOn_V: 0.66, VBEAt_A: 2e-3,
 				VCESat_V: 0.25, VAF_V: 74, VCEO_V: 45, ICMax_A: 0.1, PD25_W: 0.625, ThetaJA_KPerW: 200, TjMax_C: 150, ICBO_A: 15e-9}
 			for _, c := range []struct {
@@ -129,24 +130,24 @@ func TestFlags(t *testing.T) {
 				}
 			}
 		}},
-		{"bare --bypass is all of RE", args("--bypass", "--load", "10K"), func(t *testing.T, in input) {
-			if !near(in.b.RBypass_Ohm, 1e3) || !near(in.b.RL_Ohm, 10e3) {
-				t.Errorf("bypass %g load %g, want 1000 and 10000", in.b.RBypass_Ohm, in.b.RL_Ohm)
+		{"bare --bypass is all of RE", args("--bypass", "--load", "10K"), func(t *testing.T, in job.CheckRequest) {
+			if !near(in.Build.RBypass_Ohm, 1e3) || !near(in.Build.RL_Ohm, 10e3) {
+				t.Errorf("bypass %g load %g, want 1000 and 10000", in.Build.RBypass_Ohm, in.Build.RL_Ohm)
 			}
 		}},
-		{"partial bypass", args("--bypass=470R"), func(t *testing.T, in input) {
-			if !near(in.b.RBypass_Ohm, 470) {
-				t.Errorf("bypass %g, want 470", in.b.RBypass_Ohm)
+		{"partial bypass", args("--bypass=470R"), func(t *testing.T, in job.CheckRequest) {
+			if !near(in.Build.RBypass_Ohm, 470) {
+				t.Errorf("bypass %g, want 470", in.Build.RBypass_Ohm)
 			}
 		}},
-		{"absolute window, nominal point pinned", args("--window", "1.8mA..2.2mA,4V..8V", "--beta", "200", "--temp", "40", "--ambient", "-10..60", "--boards", "500", "--seed", "9"), func(t *testing.T, in input) {
-			w := in.window.at(solver.OperatingPoint{IC_A: 1, VCE_V: 1})
+		{"absolute window, nominal point pinned", args("--window", "1.8mA..2.2mA,4V..8V", "--beta", "200", "--temp", "40", "--ambient", "-10..60", "--boards", "500", "--seed", "9"), func(t *testing.T, in job.CheckRequest) {
+			w := in.Window.At(solver.OperatingPoint{IC_A: 1, VCE_V: 1})
 			if !near(w.ICMin_A, 1.8e-3) || !near(w.ICMax_A, 2.2e-3) || !near(w.VCEMin_V, 4) || !near(w.VCEMax_V, 8) {
 				t.Errorf("window %+v", w)
 			}
-			b := in.b
-			if b.NominalBeta != 200 || b.NominalAmbient_C != 40 || b.AmbientMin_C != -10 || b.AmbientMax_C != 60 || in.boards != 500 || in.seed != 9 {
-				t.Errorf("nominal %g/%g ambient %g..%g boards %d seed %d", b.NominalBeta, b.NominalAmbient_C, b.AmbientMin_C, b.AmbientMax_C, in.boards, in.seed)
+			b := in.Build
+			if b.NominalBeta != 200 || b.NominalAmbient_C != 40 || b.AmbientMin_C != -10 || b.AmbientMax_C != 60 || in.Boards != 500 || in.Seed != 9 {
+				t.Errorf("nominal %g/%g ambient %g..%g boards %d seed %d", b.NominalBeta, b.NominalAmbient_C, b.AmbientMin_C, b.AmbientMax_C, in.Boards, in.Seed)
 			}
 		}},
 	}
@@ -230,17 +231,17 @@ func TestFlagsStockTransistor(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	d := in.b.Device
-	if opened != 1 || in.label != "GP-PNP" || d.Polarity != solver.PNP || d.HFEMin != 120 || d.HFEMax != 360 || d.ThetaJA_KPerW != 250 || !near(in.b.VCC_V, -9) {
-		t.Errorf("stock transistor read as %+v (label %q, vcc %g, opened %d)", d, in.label, in.b.VCC_V, opened)
+	d := in.Build.Device
+	if opened != 1 || in.Label != "GP-PNP" || d.Polarity != solver.PNP || d.HFEMin != 120 || d.HFEMax != 360 || d.ThetaJA_KPerW != 250 || !near(in.Build.VCC_V, -9) {
+		t.Errorf("stock transistor read as %+v (label %q, vcc %g, opened %d)", d, in.Label, in.Build.VCC_V, opened)
 	}
 	// Inline flags override the stock line.
 	in, err = parseFlags(t, []string{"--vcc", "9V", "--r1", "10K", "--r2", "2K2", "--rc", "3K6", "--transistor", "GP-PNP", "--theta-ja", "100", "--hfe", "150..200"}, open)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if in.b.Device.ThetaJA_KPerW != 100 || in.b.Device.HFEMin != 150 || in.b.Device.HFEMax != 200 {
-		t.Errorf("overrides not applied: %+v", in.b.Device)
+	if in.Build.Device.ThetaJA_KPerW != 100 || in.Build.Device.HFEMin != 150 || in.Build.Device.HFEMax != 200 {
+		t.Errorf("overrides not applied: %+v", in.Build.Device)
 	}
 	_, err = parseFlags(t, []string{"--vcc", "9V", "--r1", "10K", "--r2", "2K2", "--rc", "3K6", "--transistor", "NOPE"}, open)
 	if err == nil || cmdutil.ExitCode(err) != 2 || !strings.Contains(err.Error(), "--transistor") {
@@ -289,8 +290,8 @@ func TestStockTransistorLabelCase(t *testing.T) {
 			in, err := parseFlags(t, []string{"--vcc", "9V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--transistor", tc.ask}, open)
 			if tc.want >= 0 {
 				w := tc.stock[tc.want]
-				if err != nil || in.label != w.label || in.b.Device.HFEMin != w.hfeMin {
-					t.Fatalf("got label %q hFE min %g (%v), want %s with hFE min %g", in.label, in.b.Device.HFEMin, err, w.label, w.hfeMin)
+				if err != nil || in.Label != w.label || in.Build.Device.HFEMin != w.hfeMin {
+					t.Fatalf("got label %q hFE min %g (%v), want %s with hFE min %g", in.Label, in.Build.Device.HFEMin, err, w.label, w.hfeMin)
 				}
 				return
 			}

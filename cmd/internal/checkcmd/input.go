@@ -4,46 +4,15 @@ import (
 	"context"
 	"errors"
 	"fmt"
-	"math"
 	"strings"
 
 	"biasbin/cmd/internal/cmdutil"
-	"biasbin/cmd/internal/report"
+	"biasbin/cmd/internal/stockparts"
+	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/solver/notation"
 	"biasbin/store"
 )
-
-// input is a check request: the build to analyse and how to run the yield.
-type input struct {
-	b      solver.Build
-	label  string // the stock label, or "" for an inline transistor
-	window windowSpec
-	boards int
-	seed   uint64
-}
-
-// windowSpec is the --window flag: each of IC and VCE either a band of
-// ±pct around the nominal point or an absolute range.
-type windowSpec struct {
-	icPct, vcePct     float64 // > 0: band around nominal
-	icLo, icHi        float64 // absolute when icPct == 0
-	vceLo, vceHi      float64
-	icText, vceText   string
-	icIsPct, vceIsPct bool
-}
-
-// at returns the yield window around the nominal operating point op.
-func (w windowSpec) at(op solver.OperatingPoint) solver.Window {
-	out := solver.Window{ICMin_A: w.icLo, ICMax_A: w.icHi, VCEMin_V: w.vceLo, VCEMax_V: w.vceHi}
-	if w.icIsPct {
-		out.ICMin_A, out.ICMax_A = math.Max(0, op.IC_A*(1-w.icPct)), op.IC_A*(1+w.icPct)
-	}
-	if w.vceIsPct {
-		out.VCEMin_V, out.VCEMax_V = math.Max(0, op.VCE_V*(1-w.vcePct)), op.VCE_V*(1+w.vcePct)
-	}
-	return out
-}
 
 // usage returns a usage error (exit 2) naming the flag.
 func usage(flag string, err error) error {
@@ -57,9 +26,9 @@ func usagef(flag, format string, a ...any) error {
 
 // input parses the flags into a build. The stock is opened only when
 // --transistor is given.
-func (o *Options) input(ctx context.Context) (input, error) {
-	var in input
-	b := &in.b
+func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
+	var in job.CheckRequest
+	b := &in.Build
 	top, err := solver.ParseTopology(strings.ToLower(strings.TrimSpace(o.Topology)))
 	if err != nil {
 		return in, usage("topology", err)
@@ -71,7 +40,7 @@ func (o *Options) input(ctx context.Context) (input, error) {
 		return in, err
 	}
 	b.Device = d
-	in.label = label
+	in.Label = label
 	sign := 1.0
 	if d.Polarity == solver.PNP {
 		sign = -1
@@ -178,13 +147,13 @@ func (o *Options) input(ctx context.Context) (input, error) {
 	}
 
 	// Yield.
-	if in.window, err = parseWindow(o.Window); err != nil {
+	if in.Window, err = parseWindow(o.Window); err != nil {
 		return in, err
 	}
 	if o.Boards < 1 || o.Boards > maxBoards {
 		return in, usagef("boards", "%d: want 1 to %d", o.Boards, maxBoards)
 	}
-	in.boards, in.seed = o.Boards, o.Seed
+	in.Boards, in.Seed = o.Boards, o.Seed
 
 	if err := b.Validate(); err != nil {
 		return in, buildError(err)
@@ -276,41 +245,42 @@ func rail(text string, sign float64, flag string) (float64, error) {
 }
 
 // parseWindow reads --window "IC,VCE".
-func parseWindow(text string) (windowSpec, error) {
-	var w windowSpec
+func parseWindow(text string) (job.WindowSpec, error) {
+	var w job.WindowSpec
 	ic, vce, ok := strings.Cut(text, ",")
 	if !ok || strings.TrimSpace(ic) == "" || strings.TrimSpace(vce) == "" {
 		return w, usagef("window", "%q: want IC,VCE, e.g. 10%%,20%% or 1.8mA..2.2mA,4V..8V", text)
 	}
-	w.icText, w.vceText = strings.TrimSpace(ic), strings.TrimSpace(vce)
 	var err error
-	if w.icIsPct, w.icPct, w.icLo, w.icHi, err = windowPart(w.icText, notation.ParseCurrent); err != nil {
+	if w.IC, err = windowPart(strings.TrimSpace(ic), notation.ParseCurrent); err != nil {
 		return w, err
 	}
-	if w.vceIsPct, w.vcePct, w.vceLo, w.vceHi, err = windowPart(w.vceText, notation.ParseVoltage); err != nil {
+	if w.VCE, err = windowPart(strings.TrimSpace(vce), notation.ParseVoltage); err != nil {
 		return w, err
 	}
-	if !w.icIsPct && w.icHi == 0 || !w.vceIsPct && w.vceHi == 0 {
+	if !w.IC.Relative && w.IC.Max == 0 || !w.VCE.Relative && w.VCE.Max == 0 {
 		return w, usagef("window", "%q: an absolute range needs a maximum above 0", text)
 	}
-	if w.vceLo < 0 {
+	if w.VCE.Min < 0 {
 		return w, usagef("window", "%q: VCE is a magnitude", text)
 	}
 	return w, nil
 }
 
 // windowPart reads one part of --window: "10%" or "MIN..MAX".
-func windowPart(text string, parse notation.Parser) (isPct bool, pct, lo, hi float64, err error) {
+func windowPart(text string, parse notation.Parser) (job.Band, error) {
 	if strings.HasSuffix(text, "%") {
-		if pct, err = notation.ParseTolerance(text); err != nil {
-			return false, 0, 0, 0, usage("window", err)
+		pct, err := notation.ParseTolerance(text)
+		if err != nil {
+			return job.Band{}, usage("window", err)
 		}
-		return true, pct, 0, 0, nil
+		return job.Band{Relative: true, Frac: pct}, nil
 	}
-	if lo, hi, err = notation.ParseRange(text, parse); err != nil {
-		return false, 0, 0, 0, usage("window", err)
+	lo, hi, err := notation.ParseRange(text, parse)
+	if err != nil {
+		return job.Band{}, usage("window", err)
 	}
-	return false, 0, lo, hi, nil
+	return job.Band{Min: lo, Max: hi}, nil
 }
 
 // device reads the transistor: the stock line when --transistor is given
@@ -355,7 +325,7 @@ func (o *Options) stockDevice(ctx context.Context) (solver.Datasheet, string, er
 	case err != nil:
 		return solver.Datasheet{}, "", fmt.Errorf("--transistor %s: %w", o.Transistor, err)
 	}
-	d, err := report.Sheet(t)
+	d, err := stockparts.Sheet(t)
 	if err != nil {
 		return d, "", fmt.Errorf("--transistor %s: %w", o.Transistor, err)
 	}

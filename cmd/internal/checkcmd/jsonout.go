@@ -6,6 +6,7 @@ import (
 	"io"
 
 	"biasbin/cmd/internal/report"
+	"biasbin/picker/job"
 	"biasbin/solver"
 )
 
@@ -178,10 +179,10 @@ type jsonSensitivity struct {
 
 // writeJSON writes the whole result; json.Marshal refuses NaN and Inf, so
 // a non-finite figure anywhere is an error rather than bad output.
-func writeJSON(w io.Writer, r *result, withSpice bool) error {
-	doc := r.jsonDoc()
+func writeJSON(w io.Writer, r *job.Analysis, withSpice bool) error {
+	doc := jsonDocOf(r)
 	if withSpice {
-		doc.Spice = r.netlist()
+		doc.Spice = netlist(r)
 	}
 	data, err := json.MarshalIndent(doc, "", "  ")
 	if err != nil {
@@ -191,13 +192,13 @@ func writeJSON(w io.Writer, r *result, withSpice bool) error {
 	return err
 }
 
-func (r *result) jsonDoc() jsonDoc {
-	b := r.in.b
-	op := r.op
+func jsonDocOf(r *job.Analysis) jsonDoc {
+	b := r.Request.Build
+	op := r.Nominal
 	doc := jsonDoc{
 		Topology:   b.Topology.String(),
 		Polarity:   b.Device.Polarity.String(),
-		Transistor: r.in.label,
+		Transistor: r.Request.Label,
 		VCC_V:      b.VCC_V,
 		VEE_V:      b.VEE_V,
 		VCCTol:     b.VCCTol,
@@ -206,40 +207,40 @@ func (r *result) jsonDoc() jsonDoc {
 		Nominal: jsonNominal{
 			Ambient_C: b.NominalAmbient_C, Region: op.Region.String(),
 			IC_A: op.IC_A, IB_A: op.IB_A, IE_A: op.IE_A, VCE_V: op.VCE_V, VBE_V: op.VBE_V,
-			VB_V: op.VB_V, VE_V: op.VE_V, VC_V: op.VC_V, Beta: r.dcBeta(), BF: r.m.BF, Tj_C: op.Tj_C,
+			VB_V: op.VB_V, VE_V: op.VE_V, VC_V: op.VC_V, Beta: r.DCBeta(), BF: r.Model.BF, Tj_C: op.Tj_C,
 			IDivider_A: op.IDivider_A, PTransistorW: op.PTransistor_W,
 		},
-		Model:      report.ModelOf(r.m),
+		Model:      report.ModelOf(r.Model),
 		Resistors:  map[string]jsonResistor{},
 		TestPoints: map[string]jsonBand{},
 		Corners:    []jsonCorner{},
 		Swing: jsonSwing{
-			RDC_Ohm: r.swing.RDC_Ohm, RAC_Ohm: r.swing.RAC_Ohm, RL_Ohm: b.RL_Ohm, RBypass_Ohm: b.RBypass_Ohm,
-			ICSatDC_A: r.swing.ICSatDC_A, VCECutDC_V: r.swing.VCECutDC_V,
-			ICSatAC_A: r.swing.ICSatAC_A, VCECutAC_V: r.swing.VCECutAC_V,
-			VPeak_V: r.swing.VPeak_V, VPeakLoad_V: r.swing.VPeakLoad_V, ClipsFirst: r.swing.ClipsFirst,
-			OptimumIC_A: r.swing.OptimumIC_A, OptimumVCE_V: r.swing.OptimumVCE_V, OptimumVPeak_V: r.swing.OptimumVPeak_V,
+			RDC_Ohm: r.Swing.RDC_Ohm, RAC_Ohm: r.Swing.RAC_Ohm, RL_Ohm: b.RL_Ohm, RBypass_Ohm: b.RBypass_Ohm,
+			ICSatDC_A: r.Swing.ICSatDC_A, VCECutDC_V: r.Swing.VCECutDC_V,
+			ICSatAC_A: r.Swing.ICSatAC_A, VCECutAC_V: r.Swing.VCECutAC_V,
+			VPeak_V: r.Swing.VPeak_V, VPeakLoad_V: r.Swing.VPeakLoad_V, ClipsFirst: r.Swing.ClipsFirst,
+			OptimumIC_A: r.Swing.OptimumIC_A, OptimumVCE_V: r.Swing.OptimumVCE_V, OptimumVPeak_V: r.Swing.OptimumVPeak_V,
 		},
-		Dissipation: jsonDissipation{Nominal: r.dissSet(r.nomDiss), Worst: r.dissSet(r.worstDiss())},
-		Cautions:    r.cautions(),
-		Problems:    r.problems,
+		Dissipation: jsonDissipation{Nominal: dissSet(r, r.NominalDissipation), Worst: dissSet(r, r.WorstDissipation())},
+		Cautions:    cautions(r),
+		Problems:    problems(r),
 	}
-	worst := r.worstDiss()
-	for _, p := range r.parts(r.nomDiss) {
-		if p.slot < 0 {
+	worst := r.WorstDissipation()
+	for _, p := range r.Loads(r.NominalDissipation) {
+		if p.Part == job.PartQ1 {
 			continue
 		}
-		spec := b.Resistors[p.slot]
-		doc.Resistors[p.name] = jsonResistor{
+		spec := b.Resistors[p.Slot]
+		doc.Resistors[p.Part] = jsonResistor{
 			Ohms: spec.Nominal_Ohm, Tol: spec.Tol, TCR_PPMPerK: spec.TCR_PPMPerK, Rated_W: spec.Rated_W,
-			EffectiveOhms: r.stage.R_Ohm[p.slot], Power_W: p.load.Power_W, Allowed_W: p.load.Allowed_W,
-			Utilization: p.load.Utilization, WorstPower_W: worst.Resistor[p.slot].Power_W, WorstUtil: worst.Resistor[p.slot].Utilization,
+			EffectiveOhms: r.Stage.R_Ohm[p.Slot], Power_W: p.Load.Power_W, Allowed_W: p.Load.Allowed_W,
+			Utilization: p.Load.Utilization, WorstPower_W: worst.Resistor[p.Slot].Power_W, WorstUtil: worst.Resistor[p.Slot].Utilization,
 		}
 	}
-	for _, tp := range r.testPoints() {
-		doc.TestPoints[tp.name] = jsonBand{tp.nominal, tp.min, tp.max}
+	for _, tp := range r.TestPoints {
+		doc.TestPoints[tp.Node.String()] = jsonBand{tp.Nominal_V, tp.Min_V, tp.Max_V}
 	}
-	if wc := r.wc; wc != nil {
+	if wc := r.Worst; wc != nil {
 		for _, c := range wc.Corners {
 			jc := jsonCorner{
 				BF: c.BF, VBEOn_V: c.VBEOn_V, IS_A: c.IS_A, VAF_V: c.VAF_V, Temp_C: c.Temp_C, Tj_C: c.Tj_C, VCC_V: c.VCC_V, VEE_V: c.VEE_V, Ohms: map[string]float64{},
@@ -254,18 +255,18 @@ func (r *result) jsonDoc() jsonDoc {
 		doc.Worst = &jsonWorst{
 			Corners: wc.Count, ICMin_A: wc.ICMin_A, ICMax_A: wc.ICMax_A, VCEMin_V: wc.VCEMin_V, VCEMax_V: wc.VCEMax_V,
 			ICMinCorner: wc.ICMinCorner, ICMaxCorner: wc.ICMaxCorner, VCEMinCorner: wc.VCEMinCorner, VCEMaxCorner: wc.VCEMaxCorner,
-			AllActive: wc.AllActive, NotActive: wc.NotActive, VCEFloor_V: r.vceFloor(),
+			AllActive: wc.AllActive, NotActive: wc.NotActive, VCEFloor_V: r.VCEFloor_V(),
 			RSSIC_A: wc.RSSIC_A, RSSVCE_V: wc.RSSVCE_V, TjMax_C: wc.TjMax_C,
 		}
 	}
-	if y := r.yield; y != nil {
+	if y := r.Yield; y != nil {
 		doc.Yield = &jsonYield{
 			Boards: y.Boards, Pass: y.Pass, Failed: y.Failed, Yield: y.Yield, StdErr: y.StdErr, Seed: y.Seed,
-			ICMin_A: r.window.ICMin_A, ICMax_A: r.window.ICMax_A, VCEMin_V: r.window.VCEMin_V, VCEMax_V: r.window.VCEMax_V,
+			ICMin_A: r.Window.ICMin_A, ICMax_A: r.Window.ICMax_A, VCEMin_V: r.Window.VCEMin_V, VCEMax_V: r.Window.VCEMax_V,
 			Resistors: "uniform ±tol", HFE: "uniform min..max", AmbientDst: "uniform min..max",
 		}
 	}
-	if s := r.sens; s != nil {
+	if s := r.Sensitivity; s != nil {
 		doc.Sensitivity = &jsonSensitivity{s.SI, s.SV_S, s.SBeta_A, s.BetaSpread, s.ICAtHFEMin_A, s.ICAtHFEMax_A, s.Tj_C}
 	}
 	if doc.Cautions == nil {
@@ -278,10 +279,10 @@ func (r *result) jsonDoc() jsonDoc {
 }
 
 // dissSet is the JSON shape of one dissipation check.
-func (r *result) dissSet(d solver.Dissipation) jsonDissSet {
+func dissSet(r *job.Analysis, d solver.Dissipation) jsonDissSet {
 	set := jsonDissSet{Parts: map[string]jsonLoad{}, MaxUtilization: d.MaxUtilization, Ok: d.Ok}
-	for _, p := range r.parts(d) {
-		set.Parts[p.name] = jsonLoad{p.load.Power_W, p.load.Allowed_W, p.load.Utilization, p.load.Rated}
+	for _, p := range r.Loads(d) {
+		set.Parts[p.Part] = jsonLoad{p.Load.Power_W, p.Load.Allowed_W, p.Load.Utilization, p.Load.Rated}
 	}
 	return set
 }

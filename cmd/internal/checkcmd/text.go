@@ -6,6 +6,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/solver/notation"
 )
@@ -20,10 +21,10 @@ var (
 )
 
 // writeText writes the readable report.
-func writeText(w io.Writer, r *result) {
-	b := r.in.b
+func writeText(w io.Writer, r *job.Analysis) {
+	b := r.Request.Build
 	d := b.Device
-	op := r.op
+	op := r.Nominal
 
 	// Build.
 	fmt.Fprintf(w, "%s %s stage, VCC %s", d.Polarity, b.Topology, fV(b.VCC_V))
@@ -41,21 +42,21 @@ func writeText(w io.Writer, r *result) {
 	}
 	fmt.Fprintf(w, "resistors: %s\n", strings.Join(rs, ", "))
 	name := "inline"
-	if r.in.label != "" {
-		name = r.in.label
+	if r.Request.Label != "" {
+		name = r.Request.Label
 	}
 	fmt.Fprintf(w, "transistor: %s, hFE %s..%s, VBE(on) %s at %s, VCE(sat) %s",
-		name, num(d.HFEMin), num(d.HFEMax), fV(orDefault(d.VBEOn_V, solver.DefaultVBEOn_V)), fA(orDefault(d.VBEAt_A, solver.DefaultVBEAt_A)), fV(r.vceSat))
+		name, num(d.HFEMin), num(d.HFEMax), fV(orDefault(d.VBEOn_V, solver.DefaultVBEOn_V)), fA(orDefault(d.VBEAt_A, solver.DefaultVBEAt_A)), fV(r.VCESat_V))
 	if th := solver.ThermalResistance(d); th > 0 {
 		fmt.Fprintf(w, ", θJA %s", notation.FormatThermalResistance(th))
 	}
 	fmt.Fprintln(w)
 
 	// Operating point.
-	fmt.Fprintf(w, "\nOperating point (%s ambient, beta %s at TNOM): %s\n", fT(b.NominalAmbient_C), num(r.m.BF), strings.ToUpper(op.Region.String()))
+	fmt.Fprintf(w, "\nOperating point (%s ambient, beta %s at TNOM): %s\n", fT(b.NominalAmbient_C), num(r.Model.BF), strings.ToUpper(op.Region.String()))
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "  IC\t%s\tIB\t%s\tIE\t%s\n", fA(op.IC_A), fA(op.IB_A), fA(op.IE_A))
-	fmt.Fprintf(tw, "  VCE\t%s\tVBE\t%s\tIC/IB\t%s\n", fV(op.VCE_V), fV(op.VBE_V), num(r.dcBeta()))
+	fmt.Fprintf(tw, "  VCE\t%s\tVBE\t%s\tIC/IB\t%s\n", fV(op.VCE_V), fV(op.VBE_V), num(r.DCBeta()))
 	fmt.Fprintf(tw, "  Tj\t%s\tPD\t%s\n", fT(op.Tj_C), fW(op.PTransistor_W))
 	tw.Flush()
 	if op.Region != solver.Active {
@@ -66,17 +67,17 @@ func writeText(w io.Writer, r *result) {
 	fmt.Fprintln(w, "\nTest points (measure to ground)")
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "  node\tnominal\tworst-case band")
-	for _, tp := range r.testPoints() {
+	for _, tp := range r.TestPoints {
 		band := "not solved"
-		if r.wc != nil {
-			band = fV(tp.min) + " .. " + fV(tp.max)
+		if tp.HaveBand {
+			band = fV(tp.Min_V) + " .. " + fV(tp.Max_V)
 		}
-		fmt.Fprintf(tw, "  %s\t%s\t%s\n", strings.ToUpper(tp.name), fV(tp.nominal), band)
+		fmt.Fprintf(tw, "  %s\t%s\t%s\n", strings.ToUpper(tp.Node.String()), fV(tp.Nominal_V), band)
 	}
 	tw.Flush()
 
 	// Worst case.
-	if wc := r.wc; wc != nil {
+	if wc := r.Worst; wc != nil {
 		fmt.Fprintf(w, "\nWorst case (%d corners: hFE, VBE(on), resistor and supply tolerance, ± TCR, ambient; self-heated)\n", wc.Count)
 		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 		fmt.Fprintf(tw, "  IC\t%s .. %s\tRSS u(IC) %s\n", fA(wc.ICMin_A), fA(wc.ICMax_A), fA(wc.RSSIC_A))
@@ -84,16 +85,16 @@ func writeText(w io.Writer, r *result) {
 		fmt.Fprintf(tw, "  Tj\tup to %s\n", fT(wc.TjMax_C))
 		tw.Flush()
 		if wc.AllActive {
-			fmt.Fprintf(w, "  every corner active with VCE >= %s (VCE(sat) + margin)\n", fV(r.vceFloor()))
+			fmt.Fprintf(w, "  every corner active with VCE >= %s (VCE(sat) + margin)\n", fV(r.VCEFloor_V()))
 		} else {
 			fmt.Fprintf(w, "  %d of %d corners NOT active with VCE >= %s; lowest VCE %s (%s) at hFE %s, %s ambient\n",
-				wc.NotActive, wc.Count, fV(r.vceFloor()), fV(wc.VCEMin_V), wc.VCEMinAt.OP.Region, num(wc.VCEMinAt.BF), fT(wc.VCEMinAt.Temp_C))
+				wc.NotActive, wc.Count, fV(r.VCEFloor_V()), fV(wc.VCEMin_V), wc.VCEMinAt.OP.Region, num(wc.VCEMinAt.BF), fT(wc.VCEMinAt.Temp_C))
 		}
 	}
 
 	// Yield.
-	if y := r.yield; y != nil {
-		win := r.window
+	if y := r.Yield; y != nil {
+		win := r.Window
 		fmt.Fprintf(w, "\nYield: %.1f %% ± %.1f %% of %d boards (seed %d) with IC %s..%s and VCE %s..%s\n",
 			100*y.Yield, 100*y.StdErr, y.Boards, y.Seed, fA(win.ICMin_A), fA(win.ICMax_A), fV(win.VCEMin_V), fV(win.VCEMax_V))
 		if y.Failed > 0 {
@@ -102,15 +103,15 @@ func writeText(w io.Writer, r *result) {
 	}
 
 	// Dissipation.
-	worst := r.worstDiss()
+	worst := r.WorstDissipation()
 	fmt.Fprintf(w, "\nDissipation (design limit: resistors %.0f %%, transistor %.0f %% of the derated rating)\n",
-		100*r.lim.WithDefaults().ResistorMaxFraction, 100*r.lim.WithDefaults().TransistorMaxFraction)
+		100*r.Limits.ResistorMaxFraction, 100*r.Limits.TransistorMaxFraction)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "  part\tat %s\tlimit\tuse\tworst corner\tuse\n", fT(b.NominalAmbient_C))
-	nom := r.parts(r.nomDiss)
-	for i, p := range r.parts(worst) {
-		n := nom[i].load
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\n", strings.ToUpper(p.name), fW(n.Power_W), limit(n), use(n), fW(p.load.Power_W), use(p.load))
+	nom := r.Loads(r.NominalDissipation)
+	for i, p := range r.Loads(worst) {
+		n := nom[i].Load
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\n", strings.ToUpper(p.Part), fW(n.Power_W), limit(n), use(n), fW(p.Load.Power_W), use(p.Load))
 	}
 	tw.Flush()
 	if !worst.Ok {
@@ -118,7 +119,7 @@ func writeText(w io.Writer, r *result) {
 	}
 
 	// Swing.
-	sw := r.swing
+	sw := r.Swing
 	fmt.Fprintln(w, "\nSwing")
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "  DC load line\t%s to %s\tRdc %s\n", fA(sw.ICSatDC_A), fV(sw.VCECutDC_V), fR(sw.RDC_Ohm))
@@ -128,7 +129,7 @@ func writeText(w io.Writer, r *result) {
 	tw.Flush()
 
 	// Sensitivity.
-	if s := r.sens; s != nil {
+	if s := r.Sensitivity; s != nil {
 		fmt.Fprintf(w, "\nSensitivity: S_I %s, S_V %s/V, S_beta %s/unit; hFE min to max moves IC %s .. %s (%.1f %% of nominal)\n",
 			num(s.SI), fA(s.SV_S), fA(s.SBeta_A), fA(s.ICAtHFEMin_A), fA(s.ICAtHFEMax_A), 100*s.BetaSpread)
 	}

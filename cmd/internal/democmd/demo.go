@@ -17,6 +17,9 @@ import (
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/pickcmd"
 	"biasbin/cmd/internal/stockcsv"
+	"biasbin/cmd/internal/stockparts"
+	"biasbin/picker"
+	"biasbin/picker/job"
 	"biasbin/store"
 )
 
@@ -68,8 +71,17 @@ func Run(ctx context.Context, o *Options) error {
 	if err := load(ctx, w, path); err != nil {
 		return err
 	}
+	db, err := store.OpenExisting(ctx, path)
+	if err != nil {
+		return fmt.Errorf("demo stock: %w", err)
+	}
+	defer db.Close()
+	stock, err := stockparts.Read(ctx, db)
+	if err != nil {
+		return fmt.Errorf("demo stock: %w", err)
+	}
 	for i, sc := range scenarios() {
-		if err := runScenario(ctx, w, path, i+1, sc); err != nil {
+		if err := runScenario(w, stock, i+1, sc); err != nil {
 			return err
 		}
 	}
@@ -131,26 +143,26 @@ func load(ctx context.Context, w io.Writer, path string) error {
 	return nil
 }
 
-// runScenario narrates one pick and runs it as the pick command would run
-// from the command line, with its notes on the same stream so the story
-// reads in order.
-func runScenario(ctx context.Context, w io.Writer, path string, n int, sc scenario) error {
+// runScenario narrates one pick and runs it as biasbin pick does, through
+// the same application layer and the same text renderer, with its notes
+// on the same stream so the story reads in order.
+func runScenario(w io.Writer, stock picker.Stock, n int, sc scenario) error {
 	fmt.Fprintf(w, "\n=== Pick %d: %s\n", n, sc.title)
 	fmt.Fprintln(w, sc.story)
 	fmt.Fprintf(w, "$ biasbin pick %s\n\n", strings.Join(sc.args, " "))
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, w, w), DBPath: path, Getenv: func(string) string { return "" }}
-	defer f.Close()
-	cmd := pickcmd.New(f)
-	cmd.SetArgs(sc.args)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err := cmd.ExecuteContext(ctx)
-	switch {
-	case err == nil && sc.nothingFits:
-		fmt.Fprintln(w, "(this time the stock was enough after all)")
-	case errors.Is(err, cmdutil.ErrSilent) && sc.nothingFits:
-		fmt.Fprintln(w, "(pick exits with status 1 here: nothing fits, and it says what to buy)")
-	case err != nil:
+	out, err := job.Pick(stock, sc.req, picker.Pick)
+	if err != nil {
 		return fmt.Errorf("demo pick %d: %w", n, err)
+	}
+	pickcmd.WriteText(w, out)
+	pickcmd.WriteNotes(w, out)
+	switch {
+	case out.Fits && sc.nothingFits:
+		fmt.Fprintln(w, "(this time the stock was enough after all)")
+	case !out.Fits && sc.nothingFits:
+		fmt.Fprintln(w, "(pick exits with status 1 here: nothing fits, and it says what to buy)")
+	case !out.Fits:
+		return fmt.Errorf("demo pick %d: nothing fits", n)
 	}
 	return nil
 }

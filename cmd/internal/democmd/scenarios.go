@@ -1,11 +1,18 @@
 package democmd
 
-// scenario is one pick the demo runs: what it asks, in words and as the
-// command line a technician would type.
+import (
+	"biasbin/picker"
+	"biasbin/solver"
+)
+
+// scenario is one pick the demo runs: what it asks, in words, as the
+// command line a technician would type (shown, and checked by a test to
+// ask the same), and as the request the demo hands the picker.
 type scenario struct {
 	title string
 	story string
 	args  []string
+	req   picker.Request
 	// nothingFits marks the pick that is meant to come up short.
 	nothingFits bool
 }
@@ -21,6 +28,8 @@ func scenarios() []scenario {
 for a 10K load on the collector; five boards need five of every part,
 and ten where one drawer fills two positions.`,
 			args: []string{"--vcc", "12V", "--ic", "2mA", "--load", "10K", "--boards", "5", "--top", "2"},
+			req: picker.Request{Topology: solver.Divider, Polarity: solver.NPN, VCC_V: 12, VCCTol: 0.05, IC_A: 2e-3,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 5, RL_Ohm: 10e3, Top: 2, Seed: 1},
 		},
 		{
 			title: "A 9 V low-noise stage at 500 µA from the approved list, pairs allowed",
@@ -28,12 +37,16 @@ and ten where one drawer fills two positions.`,
 The ideal values fall between those sparse singles, so pick may join two
 stocked parts in series or parallel to land closer.`,
 			args: []string{"--vcc", "9V", "--ic", "500uA", "--vce", "4V", "--require-tag", "approved", "--pairs", "--boards", "10", "--top", "1"},
+			req: picker.Request{Topology: solver.Divider, Polarity: solver.NPN, VCC_V: 9, VCCTol: 0.05, IC_A: 500e-6, VCE_V: 4,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 10, RequireTags: []string{"approved"}, Pairs: true, Top: 1, Seed: 1},
 		},
 		{
 			title: "A 15 V PNP stage at 1 mA for a run of 30 boards",
 			story: `The PNP drawers hold 12 and 8 parts: not enough for 30 boards. pick says
 why nothing fits, shows the nearest builds and names what to buy.`,
-			args:        []string{"--vcc", "15V", "--ic", "1mA", "--polarity", "pnp", "--boards", "30", "--top", "1"},
+			args: []string{"--vcc", "15V", "--ic", "1mA", "--polarity", "pnp", "--boards", "30", "--top", "1"},
+			req: picker.Request{Topology: solver.Divider, Polarity: solver.PNP, VCC_V: -15, VCCTol: 0.05, IC_A: 1e-3,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 30, Top: 1, Seed: 1},
 			nothingFits: true,
 		},
 	}

@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"context"
 	"errors"
-	"fmt"
 	"strings"
 	"testing"
 	"time"
@@ -182,47 +181,6 @@ func TestNothingFits(t *testing.T) {
 	}
 	if snapshot(t, path) != before {
 		t.Error("stock changed")
-	}
-}
-
-func TestFewerBoards(t *testing.T) {
-	tests := []struct {
-		boards, limit int // the fake stock builds up to limit boards
-		want          int
-		maxSearches   int
-	}{
-		{30, 12, 12, 6}, // one board, then log2(29) rounded up
-		{30, 29, 29, 6},
-		{30, 1, 1, 6},
-		{30, 0, 0, 1}, // not even one board: a single search settles it
-		{2, 1, 1, 1},
-	}
-	for _, tt := range tests {
-		searches := 0
-		pick := func(_ picker.Stock, r picker.Request) (picker.Result, error) {
-			searches++
-			if r.Boards > tt.limit {
-				return picker.Result{}, nil
-			}
-			c := fakeCandidate(1)
-			c.ID = fmt.Sprint(r.Boards)
-			return picker.Result{Candidates: []picker.Candidate{c}}, nil
-		}
-		req := fakeRequest()
-		req.Boards = tt.boards
-		n, res, err := fewerBoards(pick, picker.Stock{}, req)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if n != tt.want {
-			t.Errorf("%d boards, stock for %d: found %d", tt.boards, tt.limit, n)
-		}
-		if n > 0 && (len(res.Candidates) != 1 || res.Candidates[0].ID != fmt.Sprint(n)) {
-			t.Errorf("%d boards, stock for %d: result is not the search for %d boards: %+v", tt.boards, tt.limit, n, res.Candidates)
-		}
-		if searches > tt.maxSearches {
-			t.Errorf("%d boards: %d searches, want at most %d", tt.boards, searches, tt.maxSearches)
-		}
 	}
 }
 

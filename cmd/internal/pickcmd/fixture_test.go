@@ -2,10 +2,12 @@ package pickcmd
 
 import (
 	"context"
+	"math"
 	"path/filepath"
 	"testing"
 
 	"biasbin/picker"
+	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/store"
 )
@@ -36,7 +38,7 @@ func fakeCandidate(rank int, failing ...picker.Failure) picker.Candidate {
 	op := func(ic, vb, ve, vc float64) solver.OperatingPoint {
 		return solver.OperatingPoint{Region: solver.Active, IC_A: ic, IB_A: ic / 180, VB_V: vb, VE_V: ve, VC_V: vc, VCE_V: vc - ve, Tj_C: 27.4}
 	}
-	return picker.Candidate{
+	c := picker.Candidate{
 		ID:         "b-" + string(rune('0'+rank)) + "f3a9c01",
 		Rank:       rank,
 		Score:      0.1234 * float64(rank),
@@ -67,6 +69,34 @@ func fakeCandidate(rank int, failing ...picker.Failure) picker.Candidate {
 		MaxUtilization:  0.31,
 		Failing:         failing,
 	}
+	// The test-point extremes over the corners, as the solver fills them.
+	wc := &c.Worst
+	wc.Count = len(wc.Corners)
+	wc.VBMin_V, wc.VEMin_V, wc.VCMin_V = math.Inf(1), math.Inf(1), math.Inf(1)
+	wc.VBMax_V, wc.VEMax_V, wc.VCMax_V = math.Inf(-1), math.Inf(-1), math.Inf(-1)
+	for _, k := range wc.Corners {
+		wc.VBMin_V, wc.VBMax_V = min(wc.VBMin_V, k.OP.VB_V), max(wc.VBMax_V, k.OP.VB_V)
+		wc.VEMin_V, wc.VEMax_V = min(wc.VEMin_V, k.OP.VE_V), max(wc.VEMax_V, k.OP.VE_V)
+		wc.VCMin_V, wc.VCMax_V = min(wc.VCMin_V, k.OP.VC_V), max(wc.VCMax_V, k.OP.VC_V)
+	}
+	return c
+}
+
+// outcome runs job.Pick on fakeStock with a search that answers res for
+// more than buildable boards and fewer for buildable boards or less, as a
+// stock short for the run would.
+func outcome(req picker.Request, res picker.Result, buildable int, fewer picker.Result) *job.PickOutcome {
+	search := func(_ picker.Stock, r picker.Request) (picker.Result, error) {
+		if buildable > 0 && r.Boards <= buildable {
+			return fewer, nil
+		}
+		return res, nil
+	}
+	o, err := job.Pick(fakeStock(), req, search)
+	if err != nil {
+		panic(err)
+	}
+	return o
 }
 
 // fakeRequest is the request fakeResult answers.

@@ -7,6 +7,7 @@ import (
 
 	"biasbin/cmd/internal/report"
 	"biasbin/picker"
+	"biasbin/picker/job"
 	"biasbin/solver"
 )
 
@@ -153,24 +154,21 @@ type jsonPurchase struct {
 }
 
 // writeJSON writes the whole result as one indented JSON document.
-func writeJSON(w io.Writer, v view) error {
+func writeJSON(w io.Writer, v *job.PickOutcome) error {
 	doc := jsonResult{
-		Request:         jsonRequestOf(v.req),
-		Evaluated:       v.res.Evaluated,
-		Solved:          v.res.Solved,
-		Considered:      v.res.Considered,
-		Fits:            v.fits(),
-		BuildableBoards: v.buildable,
+		Request:         jsonRequestOf(v.Request),
+		Evaluated:       v.Result.Evaluated,
+		Solved:          v.Result.Solved,
+		Considered:      v.Result.Considered,
+		Fits:            v.Fits,
+		BuildableBoards: v.Buildable,
 		Candidates:      []jsonCandidate{},
-		Cautions:        v.cautions(),
+		Cautions:        report.Words(v.Cautions, cautionText),
 	}
-	if doc.Cautions == nil {
-		doc.Cautions = []string{}
+	for _, b := range v.Builds {
+		doc.Candidates = append(doc.Candidates, jsonCandidateOf(b))
 	}
-	for _, c := range v.shown() {
-		doc.Candidates = append(doc.Candidates, v.jsonCandidate(c))
-	}
-	if s := v.res.Shortfall; s != nil {
+	if s := v.Result.Shortfall; s != nil {
 		sf := &jsonShortfall{Reasons: report.Words(s.Reasons, report.Reason), Buy: report.Words(s.Purchases, report.Purchase),
 			Rejected:  report.Words(s.Rejected, report.Rejection),
 			Purchases: []jsonPurchase{}, TopUp: []jsonPull{}}
@@ -178,10 +176,8 @@ func writeJSON(w io.Writer, v view) error {
 			sf.Purchases = append(sf.Purchases, jsonPurchase{Slot: p.Slot, Ohms: p.Ohm, Series: p.Series, Tol: p.Tol,
 				Rated_W: p.Rated_W, Qty: p.Qty, Note: report.Purchase(p)})
 		}
-		if v.short() {
-			for _, p := range shortLines(v.pullList(v.shown()[0])) {
-				sf.TopUp = append(sf.TopUp, jsonPullOf(p))
-			}
+		for _, p := range v.TopUp {
+			sf.TopUp = append(sf.TopUp, jsonPullOf(p))
 		}
 		doc.Shortfall = sf
 	}
@@ -213,7 +209,7 @@ func jsonRequestOf(r picker.Request) jsonRequest {
 	}
 }
 
-func (v view) jsonCandidate(c picker.Candidate) jsonCandidate {
+func jsonCandidateOf(c job.Build) jsonCandidate {
 	jc := jsonCandidate{
 		ID:    c.ID,
 		Rank:  c.Rank,
@@ -254,7 +250,7 @@ func (v view) jsonCandidate(c picker.Candidate) jsonCandidate {
 		Model:           report.ModelOf(c.Model),
 		Failing:         report.Words(c.Failing, report.Failure),
 	}
-	for _, slot := range slotsOf(c) {
+	for _, slot := range job.Slots(c.Candidate) {
 		p := c.Positions[slot]
 		jp := jsonPosition{
 			Ohms:        p.Ohm,
@@ -269,18 +265,18 @@ func (v view) jsonCandidate(c picker.Candidate) jsonCandidate {
 		}
 		jc.Resistors[slot] = jp
 	}
-	for _, tp := range testPoints(c) {
-		jc.TestPoints[tp.name] = jsonBand{Nominal_V: tp.nominal, Min_V: tp.lo, Max_V: tp.hi}
+	for _, tp := range c.TestPoints {
+		jc.TestPoints[tp.Node.String()] = jsonBand{Nominal_V: tp.Nominal_V, Min_V: tp.Min_V, Max_V: tp.Max_V}
 	}
-	for _, p := range v.pullList(c) {
+	for _, p := range c.Pull {
 		jc.Pull = append(jc.Pull, jsonPullOf(p))
 	}
 	return jc
 }
 
 // jsonPullOf converts one pull-list line.
-func jsonPullOf(p pull) jsonPull {
-	return jsonPull{ID: p.id, Kind: p.kind, Value: p.value, Bin: p.bin, Qty: p.qty, OnHand: p.onHand, Missing: max(0, p.qty-p.onHand)}
+func jsonPullOf(p job.PullLine) jsonPull {
+	return jsonPull{ID: p.ID, Kind: pullKind(p), Value: pullValue(p), Bin: p.Bin, Qty: p.Qty, OnHand: p.OnHand, Missing: p.Missing()}
 }
 
 // betaAt is IC/IB at the operating point (0 when IB is zero).

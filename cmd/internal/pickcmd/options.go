@@ -53,11 +53,4 @@ const (
 	defaultTop       = 5
 	defaultBoards    = 1
 	defaultSeed      = 1
-	// hotSupply_V is the supply above which pick prints its hot-parts
-	// caution: 50 V is the usual extra-low-voltage boundary for DC work
-	// (common practice; local rules differ).
-	hotSupply_V = 50.0
-	// nearRating is the utilization of the design limit above which a part
-	// earns a caution (common practice).
-	nearRating = 0.8
 )

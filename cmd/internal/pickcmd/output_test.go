@@ -10,6 +10,7 @@ import (
 
 	"biasbin/cmd/internal/cmdtest"
 	"biasbin/picker"
+	"biasbin/picker/job"
 	"biasbin/solver"
 )
 
@@ -20,16 +21,16 @@ func golden(t *testing.T, name, got string) {
 }
 
 // render writes v as the command would: data on one stream, notes on the other.
-func render(v view, asJSON bool) (stdout, stderr string) {
+func render(v *job.PickOutcome, asJSON bool) (stdout, stderr string) {
 	var out, errOut bytes.Buffer
 	if asJSON {
 		if err := writeJSON(&out, v); err != nil {
 			panic(err)
 		}
 	} else {
-		writeText(&out, v)
+		WriteText(&out, v)
 	}
-	writeNotes(&errOut, v)
+	WriteNotes(&errOut, v)
 	return out.String(), errOut.String()
 }
 
@@ -40,29 +41,29 @@ func TestOutputGolden(t *testing.T) {
 	hotCand.MaxUtilization = 0.9
 	tests := []struct {
 		name string
-		v    view
+		v    *job.PickOutcome
 		json bool
 	}{
-		{"table", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
-			Candidates: []picker.Candidate{fakeCandidate(1), fakeCandidate(2)}, Evaluated: 321, Considered: 12345}}, false},
-		{"json", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
-			Candidates: []picker.Candidate{fakeCandidate(1)}, Evaluated: 321, Considered: 12345}}, true},
-		{"nothing_fits", view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{
+		{"table", outcome(fakeRequest(), picker.Result{
+			Candidates: []picker.Candidate{fakeCandidate(1), fakeCandidate(2)}, Evaluated: 321, Considered: 12345}, 0, picker.Result{}), false},
+		{"json", outcome(fakeRequest(), picker.Result{
+			Candidates: []picker.Candidate{fakeCandidate(1)}, Evaluated: 321, Considered: 12345}, 0, picker.Result{}), true},
+		{"nothing_fits", outcome(fakeRequest(), picker.Result{
 			Candidates: []picker.Candidate{fakeCandidate(1, picker.Failure{Kind: picker.FailAllowance, Part: "r2", Utilization: 1.12})},
 			Evaluated:  12, Considered: 400,
 			Shortfall: &picker.Shortfall{
 				Reasons:   []picker.Reason{{Kind: picker.NearestFail, Limit: picker.FailAllowance, Count: 1, Of: 1}},
 				Purchases: []picker.Purchase{{Slot: "r2", Ohm: 4.7e3, Series: "E24", Tol: 0.05, Rated_W: 0.5, Qty: 4}},
-			}}}, false},
-		{"short_run", view{req: fakeRequest(), stock: fakeStock(), buildable: 3,
-			res: picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
+			}}, 0, picker.Result{}), false},
+		{"short_run", outcome(fakeRequest(),
+			picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
 				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 8, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 8, Boards: 4}}}},
-			fewer: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}, false},
-		{"short_run_json", view{req: fakeRequest(), stock: fakeStock(), buildable: 3,
-			res: picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
+			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}), false},
+		{"short_run_json", outcome(fakeRequest(),
+			picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
 				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 8, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 8, Boards: 4}}}},
-			fewer: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}, true},
-		{"hot", view{req: hot, stock: fakeStock(), res: picker.Result{Candidates: []picker.Candidate{hotCand}}}, false},
+			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}), true},
+		{"hot", outcome(hot, picker.Result{Candidates: []picker.Candidate{hotCand}}, 0, picker.Result{}), false},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -76,7 +77,7 @@ func TestOutputGolden(t *testing.T) {
 // TestOutputContent checks the facts the golden files must hold, so a
 // rewritten golden file cannot silently drop them.
 func TestOutputContent(t *testing.T) {
-	v := view{req: fakeRequest(), stock: fakeStock(), res: picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}}
+	v := outcome(fakeRequest(), picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}, 0, picker.Result{})
 	out, errOut := render(v, false)
 	for _, want := range []string{
 		"4K7+330R", "series", // a series pair shown as a pair

@@ -15,9 +15,10 @@ import (
 
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/report"
+	"biasbin/cmd/internal/stockparts"
 	"biasbin/picker"
+	"biasbin/picker/job"
 	"biasbin/solver"
-	"biasbin/store"
 )
 
 // New returns the pick command.
@@ -127,11 +128,8 @@ func Run(ctx context.Context, o *Options) error {
 	if err != nil {
 		return err
 	}
-	stock, err := readStock(ctx, db)
+	stock, err := stockparts.Read(ctx, db)
 	if err != nil {
-		return err
-	}
-	if err := checkStock(stock, req); err != nil {
 		return err
 	}
 	done := func() {}
@@ -144,191 +142,104 @@ func Run(ctx context.Context, o *Options) error {
 		req.Progress, done = p.update, p.finish
 		defer p.finish() // on the error paths; finishing twice is harmless
 	}
-	res, err := o.Pick(stock, req)
+	out, err := job.Pick(stock, req, o.Pick)
 	if err != nil {
 		return pickError(err)
 	}
-	v := view{req: req, res: res, stock: stock}
-	if !v.fits() && req.Boards > 1 {
-		// Perhaps the run is too large for the stock: find how many
-		// boards the parts on hand do build, and show those builds as
-		// the nearest.
-		if v.buildable, v.fewer, err = fewerBoards(o.Pick, stock, req); err != nil {
-			return pickError(err)
-		}
-	}
 	done() // erase the indicator before any output
-	v.req.Progress = nil
+	out.Request.Progress = nil
 	if o.JSON {
-		if err := writeJSON(o.IO.Out, v); err != nil {
+		if err := writeJSON(o.IO.Out, out); err != nil {
 			return fmt.Errorf("write JSON: %w", err)
 		}
 	} else {
-		writeText(o.IO.Out, v)
+		WriteText(o.IO.Out, out)
 	}
-	writeNotes(o.IO.ErrOut, v)
-	if !v.fits() {
+	WriteNotes(o.IO.ErrOut, out)
+	if !out.Fits {
 		return cmdutil.ErrSilent
 	}
 	return nil
-}
-
-// fewerBoards finds the largest number of boards below req.Boards that the
-// stock builds (fewer boards only loosen the quantity limits, so a binary
-// search is exact) and returns it with that search's result; 0 when not
-// even one board can be built.
-func fewerBoards(pick func(picker.Stock, picker.Request) (picker.Result, error), st picker.Stock, req picker.Request) (int, picker.Result, error) {
-	fits := func(boards int) (picker.Result, bool, error) {
-		r := req
-		r.Boards = boards
-		res, err := pick(st, r)
-		return res, (view{res: res}).fits(), err
-	}
-	// One board first: when even that fails, quantities are not the
-	// problem and one search settles it.
-	best, ok, err := fits(1)
-	if err != nil || !ok {
-		return 0, picker.Result{}, err
-	}
-	lo, hi := 1, req.Boards-1 // lo builds, hi+1 does not
-	for lo < hi {
-		mid := (lo + hi + 1) / 2
-		res, ok, err := fits(mid)
-		if err != nil {
-			return 0, picker.Result{}, err
-		}
-		if ok {
-			lo, best = mid, res
-		} else {
-			hi = mid - 1
-		}
-	}
-	return lo, best, nil
 }
 
 // pickError wraps a search error; a bad request is a usage error (exit 2).
 func pickError(err error) error {
 	var in *solver.InputError
 	var pin *picker.InputError
-	if errors.As(err, &in) || errors.As(err, &pin) {
+	var gap *job.StockGapError
+	switch {
+	case errors.As(err, &gap):
+		return stockGap(gap)
+	case errors.As(err, &in) || errors.As(err, &pin):
 		return &cmdutil.UsageError{Err: fmt.Errorf("pick: %w", err)}
 	}
 	return fmt.Errorf("pick: %w", err)
 }
 
-// readStock reads every stock line and converts it for the picker.
-func readStock(ctx context.Context, db *store.DB) (picker.Stock, error) {
-	rs, err := db.ListResistors(ctx, store.Filter{})
-	if err != nil {
-		return picker.Stock{}, fmt.Errorf("read resistor stock: %w", err)
-	}
-	ts, err := db.ListTransistors(ctx, store.Filter{})
-	if err != nil {
-		return picker.Stock{}, fmt.Errorf("read transistor stock: %w", err)
-	}
-	return toStock(rs, ts)
-}
-
-// checkStock refuses a search that cannot find anything because a kind of
-// part is missing altogether, naming what to add.
-func checkStock(st picker.Stock, req picker.Request) error {
-	tagged := func(tags []string) bool {
-		for _, want := range req.RequireTags {
-			found := false
-			for _, t := range tags {
-				if strings.EqualFold(t, want) {
-					found = true
-				}
-			}
-			if !found {
-				return false
-			}
-		}
-		return true
-	}
+// stockGap words a missing kind of part with what to add.
+func stockGap(g *job.StockGapError) error {
 	tagNote := ""
-	if len(req.RequireTags) > 0 {
-		tagNote = " tagged " + strings.Join(req.RequireTags, " and ")
+	if len(g.Tags) > 0 {
+		tagNote = " tagged " + strings.Join(g.Tags, " and ")
 	}
-	var nRes int
-	for _, r := range st.Resistors {
-		if r.Qty > 0 && tagged(r.Tags) {
-			nRes++
-		}
-	}
-	if nRes == 0 {
+	if g.Resistors {
 		if tagNote != "" {
 			return fmt.Errorf("no resistor in stock is%s: tag the approved lines with `biasbin stock tag ID TAG`, or drop --require-tag", tagNote)
 		}
 		return errors.New("the stock holds no resistors: add them with `biasbin stock import FILE.csv` or `biasbin stock add resistor VALUE ...` (`biasbin demo` shows a stocked run)")
 	}
-	var same, other int
-	for _, t := range st.Transistors {
-		if t.Qty == 0 || !tagged(t.Tags) {
-			continue
+	pol := strings.ToUpper(g.Polarity.String())
+	msg := fmt.Sprintf("no %s transistor in stock%s: add one with `biasbin stock add transistor LABEL --polarity %s --hfe MIN..MAX ...`",
+		pol, tagNote, g.Polarity)
+	if g.OtherPolarity > 0 {
+		flip := solver.NPN
+		if g.Polarity == solver.NPN {
+			flip = solver.PNP
 		}
-		if t.Sheet.Polarity == req.Polarity {
-			same++
-		} else {
-			other++
-		}
+		msg += fmt.Sprintf(", or design for --polarity %s (%d line%s in stock)", flip, g.OtherPolarity, plural(g.OtherPolarity))
 	}
-	if same == 0 {
-		pol := strings.ToUpper(req.Polarity.String())
-		msg := fmt.Sprintf("no %s transistor in stock%s: add one with `biasbin stock add transistor LABEL --polarity %s --hfe MIN..MAX ...`",
-			pol, tagNote, req.Polarity)
-		if other > 0 {
-			flip := solver.NPN
-			if req.Polarity == solver.NPN {
-				flip = solver.PNP
-			}
-			msg += fmt.Sprintf(", or design for --polarity %s (%d line%s in stock)", flip, other, plural(other))
-		}
-		return errors.New(msg)
-	}
-	return nil
+	return errors.New(msg)
 }
 
-// writeText writes the readable result: the request, each build, and the
+// WriteText writes the readable result: the request, each build, and the
 // pull list of the best build that fits. When nothing fits the builds shown
 // are the nearest ones: each with the limit it breaks, or, when the stock
 // runs short for the run, the best builds for the boards it does supply.
-func writeText(w io.Writer, v view) {
+func WriteText(w io.Writer, v *job.PickOutcome) {
 	writeHeader(w, v)
-	shown := v.shown()
-	if len(shown) == 0 {
+	if len(v.Builds) == 0 {
 		fmt.Fprintln(w, "\nno build to show")
 		return
 	}
 	switch {
-	case v.short():
+	case v.Short():
 		fmt.Fprintf(w, "\nNothing fits %d boards: the stock on hand builds at most %d.\nThe best builds for %d boards (the pull list counts what all %d take):\n",
-			v.boards(), v.buildable, v.buildable, v.boards())
-	case !v.fits():
+			v.Boards, v.Buildable, v.Buildable, v.Boards)
+	case !v.Fits:
 		fmt.Fprintln(w, "\nNothing fits. The nearest builds, each with the limit it breaks:")
 	}
-	for _, c := range shown {
-		writeCandidate(w, v, c)
+	for _, b := range v.Builds {
+		writeCandidate(w, b)
 	}
-	for _, c := range shown {
-		if len(c.Failing) == 0 {
-			writePullList(w, v, c)
+	for _, b := range v.Builds {
+		if b.Fits() {
+			writePullList(w, v, b)
 			break
 		}
 	}
 }
 
-// writeNotes writes the shortfall explanation, the parts to buy and the
+// WriteNotes writes the shortfall explanation, the parts to buy and the
 // hot-part cautions on stderr.
-func writeNotes(w io.Writer, v view) {
+func WriteNotes(w io.Writer, v *job.PickOutcome) {
 	var reasons, buy, rejected []string
-	if s := v.res.Shortfall; s != nil {
+	if s := v.Result.Shortfall; s != nil {
 		reasons = report.Words(s.Reasons, report.Reason)
 		buy = report.Words(s.Purchases, report.Purchase)
 		rejected = report.Words(s.Rejected, report.Rejection)
 	}
 	switch {
-	case !v.fits():
+	case !v.Fits:
 		fmt.Fprintln(w, "nothing fits this request:")
 		if len(reasons)+len(rejected) == 0 {
 			fmt.Fprintln(w, "  - no build passes every limit")
@@ -339,15 +250,12 @@ func writeNotes(w io.Writer, v view) {
 	for _, r := range reasons {
 		fmt.Fprintf(w, "  - %s\n", r)
 	}
-	if !v.fits() || len(reasons)+len(buy) > 0 {
+	if !v.Fits || len(reasons)+len(buy) > 0 {
 		for _, r := range rejected {
 			fmt.Fprintf(w, "  - left out: %s\n", r)
 		}
 	}
-	var topUp []pull
-	if v.short() {
-		topUp = shortLines(v.pullList(v.shown()[0]))
-	}
+	topUp := v.TopUp
 	if len(buy)+len(topUp) > 0 {
 		fmt.Fprintln(w, "parts to buy for a good build:")
 		for _, b := range buy {
@@ -355,20 +263,20 @@ func writeNotes(w io.Writer, v view) {
 		}
 		for _, p := range topUp {
 			fmt.Fprintf(w, "  - %d × %s for build #1 on all %d boards (bin %s #%d holds %d of the %d it takes)\n",
-				p.qty-p.onHand, p.value, v.boards(), binName(p.bin), p.id, p.onHand, p.qty)
+				p.Missing(), pullValue(p), v.Boards, binName(p.Bin), p.ID, p.OnHand, p.Qty)
 		}
 	}
-	if !v.fits() {
-		if v.short() {
+	if !v.Fits {
+		if v.Short() {
 			fmt.Fprintf(w, "the stock on hand builds %d of the %d boards; the best builds for %d are listed on stdout\n",
-				v.buildable, v.boards(), v.buildable)
-		} else if len(v.res.Candidates) > 0 {
+				v.Buildable, v.Boards, v.Buildable)
+		} else if len(v.Result.Candidates) > 0 {
 			fmt.Fprintln(w, "the nearest builds are listed on stdout, each with the limit it breaks")
 		} else {
 			fmt.Fprintln(w, "no build came near enough to show")
 		}
 	}
-	for _, c := range v.cautions() {
-		fmt.Fprintf(w, "caution: %s\n", c)
+	for _, c := range v.Cautions {
+		fmt.Fprintf(w, "caution: %s\n", cautionText(c))
 	}
 }

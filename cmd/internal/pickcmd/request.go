@@ -173,8 +173,8 @@ func (o *Options) window(req picker.Request) (solver.Window, error) {
 	var w solver.Window
 	icDefault := strings.TrimSpace(o.ICWindow) == defaultICWindow
 	vceDefault := strings.TrimSpace(o.VCEWindow) == defaultVCEWindow
-	if req.VCE_V == 0 && icDefault && vceDefault {
-		return w, nil // the picker's own default window, per build
+	if icDefault && vceDefault {
+		return w, nil // the picker's own default window around each build's target
 	}
 	var err error
 	if w.ICMin_A, w.ICMax_A, err = band("--ic-window", o.ICWindow, req.IC_A, "A", notation.ParseCurrent); err != nil {

@@ -7,14 +7,14 @@ import (
 	"text/tabwriter"
 
 	"biasbin/cmd/internal/report"
-	"biasbin/picker"
+	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/solver/notation"
 )
 
 // writeHeader writes what was asked and how much was searched.
-func writeHeader(w io.Writer, v view) {
-	r := v.req
+func writeHeader(w io.Writer, v *job.PickOutcome) {
+	r := v.Request
 	vce := "VCE by the swing rule"
 	if r.VCE_V != 0 {
 		vce = "VCE " + quantity(r.VCE_V, "V")
@@ -25,7 +25,7 @@ func writeHeader(w io.Writer, v view) {
 	}
 	fmt.Fprintf(w, "%s %s stage on %s ±%s: IC %s, %s, ambient %s..%s °C, %d board%s, %s\n",
 		strings.ToUpper(r.Polarity.String()), r.Topology, quantity(r.VCC_V, "V"), strings.TrimSuffix(percent(r.VCCTol), " %")+" %",
-		quantity(r.IC_A, "A"), vce, trimNum(r.AmbientMin_C), trimNum(r.AmbientMax_C), v.boards(), plural(v.boards()), pairs)
+		quantity(r.IC_A, "A"), vce, trimNum(r.AmbientMin_C), trimNum(r.AmbientMax_C), v.Boards, plural(v.Boards), pairs)
 	if r.RL_Ohm > 0 || r.Bypass {
 		load := "no AC load"
 		if r.RL_Ohm > 0 {
@@ -44,23 +44,20 @@ func writeHeader(w io.Writer, v view) {
 	if r.Exhaustive {
 		mode = "exhaustive search"
 	}
-	st := v.res
-	if v.short() {
-		st = v.fewer // the search whose builds are shown
-	}
+	st := v.Shown() // the search whose builds are shown
 	fmt.Fprintf(w, "%s: %d combinations covered, %d builds solved in full\n", mode, st.Considered, st.Evaluated)
 }
 
 // writeCandidate writes one build as a block: what to pull, the Q-point,
 // the worst-case band, the test points, yield and the score terms.
-func writeCandidate(w io.Writer, v view, c picker.Candidate) {
+func writeCandidate(w io.Writer, c job.Build) {
 	fmt.Fprintf(w, "\n#%d  %s  score %.3f  (id %s)\n", c.Rank, c.Transistor.Sheet.Label, c.Score, c.ID)
 	for _, why := range c.Failing {
 		fmt.Fprintf(w, "    FAILS: %s\n", report.Failure(why))
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (bin, stock line)\n")
-	for _, slot := range slotsOf(c) {
+	for _, slot := range job.Slots(c.Candidate) {
 		p := c.Positions[slot]
 		var from []string
 		for _, part := range p.Parts {
@@ -83,10 +80,10 @@ func writeCandidate(w io.Writer, v view, c picker.Candidate) {
 		quantity(c.Worst.ICMin_A, "A"), quantity(c.Worst.ICMax_A, "A"),
 		quantity(c.Worst.VCEMin_V, "V"), quantity(c.Worst.VCEMax_V, "V"), active)
 	var tps []string
-	for _, tp := range testPoints(c) {
-		s := fmt.Sprintf("%s %s", strings.ToUpper(tp.name), quantity(tp.nominal, "V"))
-		if tp.haveBand {
-			s += fmt.Sprintf(" (%s..%s)", quantity(tp.lo, "V"), quantity(tp.hi, "V"))
+	for _, tp := range c.TestPoints {
+		s := fmt.Sprintf("%s %s", strings.ToUpper(tp.Node.String()), quantity(tp.Nominal_V, "V"))
+		if tp.HaveBand {
+			s += fmt.Sprintf(" (%s..%s)", quantity(tp.Min_V, "V"), quantity(tp.Max_V, "V"))
 		}
 		tps = append(tps, s)
 	}
@@ -104,16 +101,16 @@ func writeCandidate(w io.Writer, v view, c picker.Candidate) {
 
 // writePullList writes the best build's parts for the whole run, one line
 // per stock line, with what each bin holds.
-func writePullList(w io.Writer, v view, c picker.Candidate) {
-	fmt.Fprintf(w, "\nPull list for #%d, %d board%s:\n", c.Rank, v.boards(), plural(v.boards()))
+func writePullList(w io.Writer, v *job.PickOutcome, c job.Build) {
+	fmt.Fprintf(w, "\nPull list for #%d, %d board%s:\n", c.Rank, v.Boards, plural(v.Boards))
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "    bin\tline\tpart\ttake\ton hand\n")
-	for _, p := range v.pullList(c) {
+	for _, p := range c.Pull {
 		short := ""
-		if p.qty > p.onHand {
-			short = fmt.Sprintf("  SHORT by %d", p.qty-p.onHand)
+		if p.Missing() > 0 {
+			short = fmt.Sprintf("  SHORT by %d", p.Missing())
 		}
-		fmt.Fprintf(tw, "    %s\t#%d\t%s\t%d\t%d%s\n", binName(p.bin), p.id, p.value, p.qty, p.onHand, short)
+		fmt.Fprintf(tw, "    %s\t#%d\t%s\t%d\t%d%s\n", binName(p.Bin), p.ID, pullValue(p), p.Qty, p.OnHand, short)
 	}
 	tw.Flush()
 }

@@ -1,6 +1,6 @@
-// Package report holds the small output pieces the pick and check commands
-// share: the JSON shape of a transistor model and the conversion of a stock
-// transistor line into the solver's datasheet. It prints nothing itself.
+// Package report holds the output pieces the commands share: the JSON
+// shape of a transistor model and the words for the picker's typed
+// reasons. It prints nothing itself.
 package report
 
 import "biasbin/solver"

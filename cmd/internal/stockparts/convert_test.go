@@ -1,4 +1,4 @@
-package pickcmd
+package stockparts
 
 import (
 	"strings"
@@ -28,7 +28,7 @@ func TestToStock(t *testing.T) {
 		// 150 °C (common practice).
 		{ID: 21, Label: "QN-104A", Polarity: "NPN", HFEMin: 110, HFEMax: 330, Qty: 2, Bin: "D1"},
 	}
-	got, err := toStock(rs, ts)
+	got, err := Stock(rs, ts)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -66,7 +66,7 @@ func TestToStock(t *testing.T) {
 }
 
 func TestToStockBadPolarity(t *testing.T) {
-	_, err := toStock(nil, []store.Transistor{{ID: 5, Label: "QX-1", Polarity: "fet", HFEMin: 1, HFEMax: 2}})
+	_, err := Stock(nil, []store.Transistor{{ID: 5, Label: "QX-1", Polarity: "fet", HFEMin: 1, HFEMax: 2}})
 	if err == nil || !strings.Contains(err.Error(), "stock line 5 (QX-1)") {
 		t.Fatalf("err = %v, want one naming stock line 5 (QX-1)", err)
 	}

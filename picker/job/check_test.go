@@ -1,0 +1,61 @@
+package job
+
+import (
+	"math"
+	"testing"
+
+	"biasbin/solver"
+)
+
+// divider60 is a divider stage on a 60 V rail (invented values; the test
+// checks which cautions the analysis raises, not the solved figures).
+func divider60() solver.Build {
+	spec := func(ohm float64) solver.ResistorSpec {
+		return solver.ResistorSpec{Nominal_Ohm: ohm, Tol: 0.05, TCR_PPMPerK: 100, Rated_W: 0.25}
+	}
+	var b solver.Build
+	b.Topology = solver.Divider
+	b.VCC_V, b.VCCTol = 60, 0.05
+	b.Resistors[solver.R1], b.Resistors[solver.R2] = spec(100e3), spec(10e3)
+	b.Resistors[solver.RC], b.Resistors[solver.RE] = spec(10e3), spec(2.2e3)
+	b.Device = solver.Datasheet{Polarity: solver.NPN, HFEMin: 100, HFEMax: 300, VCEO_V: 45}
+	b.AmbientMin_C, b.AmbientMax_C, b.NominalAmbient_C = 0, 50, 25
+	return b
+}
+
+// TestCheckCautions: a 60 V supply at +5 % (63 V) is above the 50 V
+// extra-low-voltage boundary for DC (common practice), and above the
+// transistor's 45 V VCEO, so the analysis cautions both, as figures.
+func TestCheckCautions(t *testing.T) {
+	a, err := Check(CheckRequest{Build: divider60(), Window: WindowSpec{IC: Band{Relative: true, Frac: 0.1}, VCE: Band{Relative: true, Frac: 0.2}}, Boards: 200, Seed: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var supply, vceo bool
+	for _, c := range a.Cautions {
+		switch c.Kind {
+		case CautionSupply:
+			supply = math.Abs(c.Value-63) < 1e-9 && c.Limit == 50
+		case CautionVCEO, CautionVCEOCutoff:
+			vceo = c.Limit == 45
+		}
+	}
+	if !supply || !vceo {
+		t.Errorf("cautions %+v: want the 63 V supply above 50 V and VCEO 45 V", a.Cautions)
+	}
+	if len(a.TestPoints) != 3 || !a.TestPoints[0].HaveBand || a.TestPoints[0].Min_V > a.TestPoints[0].Nominal_V || a.TestPoints[0].Max_V < a.TestPoints[0].Nominal_V {
+		t.Errorf("test points %+v: want VB, VE, VC with bands around the nominal", a.TestPoints)
+	}
+}
+
+// TestWindowAt: a relative band is ±Frac of the nominal value, never below
+// 0; an absolute band ignores the nominal value.
+func TestWindowAt(t *testing.T) {
+	w := WindowSpec{IC: Band{Relative: true, Frac: 0.1}, VCE: Band{Min: 4, Max: 8}}.At(solver.OperatingPoint{IC_A: 2e-3, VCE_V: 6})
+	if math.Abs(w.ICMin_A-1.8e-3) > 1e-15 || math.Abs(w.ICMax_A-2.2e-3) > 1e-15 || w.VCEMin_V != 4 || w.VCEMax_V != 8 {
+		t.Errorf("window %+v", w)
+	}
+	if lo, _ := (Band{Relative: true, Frac: 1.5}).Around(1); lo != 0 {
+		t.Errorf("a 150 %% band starts at %g, want 0", lo)
+	}
+}
