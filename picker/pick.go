@@ -194,7 +194,8 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 		c.Worst = ev.worst
 	}
 	seed := e.s.req.Seed ^ keySeed(ev.key)
-	y, err := solver.EvalYieldSeeded(b, e.window(c.VCETarget_V), e.s.yieldBoards, seed, solver.YieldOptions{})
+	c.Window = e.window(c.VCETarget_V)
+	y, err := solver.EvalYieldSeeded(b, c.Window, e.s.yieldBoards, seed, solver.YieldOptions{})
 	if err != nil {
 		return c, fmt.Errorf("yield of build %s: %w", c.ID, err)
 	}

@@ -104,17 +104,19 @@ type Terms struct {
 
 // Candidate is one ranked build.
 type Candidate struct {
-	ID              string // stable for the same stock and request
-	Rank            int
-	Score           float64
-	Terms           Terms
-	Transistor      Transistor
-	Positions       map[string]Position // keyed by slot name: "r1", "r2", "rc", "re"
-	Build           solver.Build
-	Model           solver.Model
-	Nominal         solver.OperatingPoint
-	Worst           solver.WorstCase
-	Yield           solver.YieldResult
+	ID         string // stable for the same stock and request
+	Rank       int
+	Score      float64
+	Terms      Terms
+	Transistor Transistor
+	Positions  map[string]Position // keyed by slot name: "r1", "r2", "rc", "re"
+	Build      solver.Build
+	Model      solver.Model
+	Nominal    solver.OperatingPoint
+	Worst      solver.WorstCase
+	Yield      solver.YieldResult
+	// Window is the yield window the build's Monte Carlo ran against.
+	Window          solver.Window
 	BetaSensitivity float64
 	MaxUtilization  float64
 	Failing         []Failure // the hard limits the build breaks; empty for a good build

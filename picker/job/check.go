@@ -19,6 +19,9 @@ type CheckRequest struct {
 	// Limits are the design limits; the zero value means the solver's
 	// documented defaults.
 	Limits solver.Limits
+	// KeepBoards keeps every Monte Carlo board's Q-points in
+	// Analysis.Yield.Samples (for pictures); it changes no figure.
+	KeepBoards bool
 }
 
 // Analysis is everything known about one build.
@@ -93,7 +96,7 @@ func Check(req CheckRequest) (*Analysis, error) {
 		a.Worst = &wc
 	}
 	a.Window = req.Window.At(a.Nominal)
-	if y, err := solver.EvalYieldSeeded(b, a.Window, req.Boards, req.Seed, solver.YieldOptions{}); err != nil {
+	if y, err := solver.EvalYieldSeeded(b, a.Window, req.Boards, req.Seed, solver.YieldOptions{KeepBoards: req.KeepBoards}); err != nil {
 		a.Problems = append(a.Problems, Problem{AnalysisYield, err})
 	} else {
 		a.Yield = &y
