@@ -11,6 +11,7 @@ import (
 	"fmt"
 
 	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
 
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/picker/job"
@@ -60,6 +61,13 @@ type Options struct {
 	Seed       uint64
 	JSON       bool
 	Spice      bool
+	// Plot is the file check --plot draws the picture to; Out is plot's.
+	Plot string
+	Out  string
+	// PlotSize is the picture size as typed (WIDTHxHEIGHT); Kind the
+	// picture plot draws.
+	PlotSize string
+	Kind     string
 }
 
 // Flag defaults, shown in --help.
@@ -137,6 +145,66 @@ the nominal point cannot be solved, 2 for bad flags.`,
 		},
 	}
 	fl := cmd.Flags()
+	o.bindBuild(fl)
+	fl.StringVar(&o.Plot, "plot", "", "also draw the load-line picture to FILE (.svg, .png or .pdf; see biasbin plot)")
+	fl.StringVar(&o.PlotSize, "plot-size", "", "size of the --plot picture in pixels, WIDTHxHEIGHT (default "+defaultSize()+")")
+	fl.BoolVar(&o.JSON, "json", false, "write every figure as JSON (SI base units)")
+	fl.BoolVar(&o.Spice, "spice", false, "print an equivalent SPICE netlist of the nominal point instead of the report (with --json: add it as \"spice\")")
+	return cmd
+}
+
+// Run executes a check with o; tests call it with buffer streams.
+func Run(ctx context.Context, o *Options) error {
+	if ctx == nil {
+		ctx = context.Background()
+	}
+	pic, err := o.pictureOptions("plot", o.Plot)
+	if err != nil {
+		return err
+	}
+	in, err := o.input(ctx)
+	if err != nil {
+		return err
+	}
+	in.KeepBoards = pic != nil
+	res, err := job.Check(in)
+	if err != nil {
+		var ie *solver.InputError
+		if errors.As(err, &ie) {
+			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", flagName(ie.Field), ie.Problem)}
+		}
+		return fmt.Errorf("check: %w", err)
+	}
+	switch {
+	case o.JSON:
+		if err := writeJSON(o.IO.Out, res, o.Spice); err != nil {
+			return fmt.Errorf("check: write JSON: %w", err)
+		}
+	case o.Spice:
+		fmt.Fprint(o.IO.Out, netlist(res))
+	default:
+		writeText(o.IO.Out, res)
+	}
+	for _, c := range cautions(res) {
+		fmt.Fprintln(o.IO.ErrOut, "caution:", c)
+	}
+	if pic != nil {
+		if err := pic.write(o.IO, res); err != nil {
+			return err
+		}
+	}
+	if len(res.Problems) > 0 {
+		for _, p := range problems(res) {
+			fmt.Fprintln(o.IO.ErrOut, "biasbin: check:", p)
+		}
+		return cmdutil.ErrSilent
+	}
+	return nil
+}
+
+// bindBuild binds the flags that name a build and its analysis, shared by
+// check and plot.
+func (o *Options) bindBuild(fl *pflag.FlagSet) {
 	o.Changed = fl.Changed
 	fl.StringVar(&o.Topology, "topology", defaultTopology, "bias circuit: divider, collector-feedback or split-supply")
 	fl.StringVar(&o.VCC, "vcc", "", "collector supply, e.g. 12V")
@@ -180,46 +248,4 @@ the nominal point cannot be solved, 2 for bad flags.`,
 	fl.StringVar(&o.Window, "window", defaultWindow, "yield window IC,VCE: each ±percent of nominal or MIN..MAX")
 	fl.IntVar(&o.Boards, "boards", defaultBoards, "Monte Carlo boards for the yield")
 	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "Monte Carlo seed")
-	fl.BoolVar(&o.JSON, "json", false, "write every figure as JSON (SI base units)")
-	fl.BoolVar(&o.Spice, "spice", false, "print an equivalent SPICE netlist of the nominal point instead of the report (with --json: add it as \"spice\")")
-	return cmd
-}
-
-// Run executes a check with o; tests call it with buffer streams.
-func Run(ctx context.Context, o *Options) error {
-	if ctx == nil {
-		ctx = context.Background()
-	}
-	in, err := o.input(ctx)
-	if err != nil {
-		return err
-	}
-	res, err := job.Check(in)
-	if err != nil {
-		var ie *solver.InputError
-		if errors.As(err, &ie) {
-			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", flagName(ie.Field), ie.Problem)}
-		}
-		return fmt.Errorf("check: %w", err)
-	}
-	switch {
-	case o.JSON:
-		if err := writeJSON(o.IO.Out, res, o.Spice); err != nil {
-			return fmt.Errorf("check: write JSON: %w", err)
-		}
-	case o.Spice:
-		fmt.Fprint(o.IO.Out, netlist(res))
-	default:
-		writeText(o.IO.Out, res)
-	}
-	for _, c := range cautions(res) {
-		fmt.Fprintln(o.IO.ErrOut, "caution:", c)
-	}
-	if len(res.Problems) > 0 {
-		for _, p := range problems(res) {
-			fmt.Fprintln(o.IO.ErrOut, "biasbin: check:", p)
-		}
-		return cmdutil.ErrSilent
-	}
-	return nil
 }

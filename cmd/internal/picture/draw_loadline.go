@@ -60,11 +60,14 @@ func (c LoadLineChart) compose() (*plot.Plot, plot.Legend) {
 	if len(c.Traces) == 1 {
 		leg.Add(fmt.Sprintf("saturation, VCE < %s", notation.FormatVoltage(c.Saturation.VCEMax_V)), sat)
 		leg.Add("cut-off, IC ≈ 0", cut)
-	} else {
+	} else if c.VCEAxisMin_V < c.Saturation.VCEMax_V || c.ICAxisMin_A < c.Cutoff.ICMax_A {
 		leg.Add(fmt.Sprintf("grey: saturation (VCE < %s), cut-off (IC ≈ 0)", notation.FormatVoltage(c.Saturation.VCEMax_V)), sat)
 	}
-	p.X.Min, p.X.Max = 0, c.VCEAxis_V
-	p.Y.Min, p.Y.Max = 0, c.ICAxis_A*mA
+	if c.Zoomed {
+		leg.Add("(axes close in on the spread; load lines run on)")
+	}
+	p.X.Min, p.X.Max = c.VCEAxisMin_V, c.VCEAxis_V
+	p.Y.Min, p.Y.Max = c.ICAxisMin_A*mA, c.ICAxis_A*mA
 	return p, leg
 }
 
@@ -177,7 +180,7 @@ func (c *LoadLineChart) composeMany(p *plot.Plot, leg *plot.Legend) {
 		nominal := scatter([]Point{t.Nominal}, st.filled, st.color, 5)
 		outline := scatter([]Point{t.Nominal}, st.open, black, 5.5)
 		p.Add(dc, nominal, outline)
-		leg.Add(fmt.Sprintf("%d  %s", i+1, t.Name), dc, nominal, outline)
+		leg.Add(t.Name, dc, nominal, outline)
 	}
 	t := c.Traces[0]
 	leg.Add("large marker: nominal Q-point; outline: worst-case hull")

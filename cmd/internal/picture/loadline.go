@@ -94,8 +94,13 @@ type LoadLineChart struct {
 	// CutoffShare of the IC axis so that it can be seen; the stage is cut
 	// off well below it (the solver's 100 nA junction threshold).
 	Cutoff Box
-	// VCEAxis_V and ICAxis_A are the axis ends.
-	VCEAxis_V, ICAxis_A float64
+	// VCEAxis_V and ICAxis_A are the axis ends, VCEAxisMin_V and
+	// ICAxisMin_A their starts: 0 for one build; with several builds the
+	// axes close in on their spread so that the tightest one can be told
+	// (Zoomed).
+	VCEAxis_V, ICAxis_A       float64
+	VCEAxisMin_V, ICAxisMin_A float64
+	Zoomed                    bool
 }
 
 // CutoffShare is the height of the cut-off band as a share of the IC axis.
@@ -151,7 +156,41 @@ func LoadLine(subjects []Subject, opt LoadLineOptions) (LoadLineChart, error) {
 	c.VCEAxis_V, c.ICAxis_A = 1.05*vceTop, 1.08*icTop
 	c.Saturation = Box{VCEMin_V: 0, VCEMax_V: satTop, ICMin_A: 0, ICMax_A: c.ICAxis_A}
 	c.Cutoff = Box{VCEMin_V: 0, VCEMax_V: c.VCEAxis_V, ICMin_A: 0, ICMax_A: CutoffShare * c.ICAxis_A}
+	if len(c.Traces) > 1 {
+		c.zoom()
+	}
 	return c, nil
+}
+
+// zoom closes the axes in on the builds' spread (nominal points, corners,
+// boards, windows) with as much room again around it, within the full
+// plane.
+func (c *LoadLineChart) zoom() {
+	lo, hi := Point{math.Inf(1), math.Inf(1)}, Point{math.Inf(-1), math.Inf(-1)}
+	grow := func(p Point) {
+		if math.IsInf(p.VCE_V, 0) || math.IsInf(p.IC_A, 0) {
+			return
+		}
+		lo = Point{math.Min(lo.VCE_V, p.VCE_V), math.Min(lo.IC_A, p.IC_A)}
+		hi = Point{math.Max(hi.VCE_V, p.VCE_V), math.Max(hi.IC_A, p.IC_A)}
+	}
+	for _, t := range c.Traces {
+		for _, pts := range [][]Point{{t.Nominal}, t.Corners, t.Cloud.Cold, t.Cloud.Hot, t.Cloud.Between} {
+			for _, p := range pts {
+				grow(p)
+			}
+		}
+		w := t.Window
+		grow(Point{w.VCEMin_V, w.ICMin_A})
+		grow(Point{w.VCEMax_V, w.ICMax_A})
+	}
+	if math.IsInf(lo.VCE_V, 1) {
+		return
+	}
+	dv, di := hi.VCE_V-lo.VCE_V, hi.IC_A-lo.IC_A
+	c.VCEAxisMin_V, c.VCEAxis_V = math.Max(0, lo.VCE_V-0.5*dv), math.Min(c.VCEAxis_V, hi.VCE_V+0.5*dv)
+	c.ICAxisMin_A, c.ICAxis_A = math.Max(0, lo.IC_A-0.5*di), math.Min(c.ICAxis_A, hi.IC_A+0.5*di)
+	c.Zoomed = true
 }
 
 // trace builds one build's data.

@@ -36,13 +36,15 @@ type Subject struct {
 }
 
 // BuildName names a build in the trade's letter-and-digit code (IEC 60062):
-// the transistor, then each fitted resistor and the rails, e.g.
+// the transistor (its stock label, else its polarity and hFE range), then
+// each fitted resistor and the rails, e.g.
 // "NPN-GP · R1 47K · R2 10K · RC 2K2 · RE 470R · 12V".
 func BuildName(b solver.Build, transistor string) string {
-	parts := []string{}
-	if transistor != "" {
-		parts = append(parts, transistor)
+	if transistor == "" {
+		d := b.Device
+		transistor = fmt.Sprintf("%s hFE %.4g..%.4g", strings.ToUpper(d.Polarity.String()), d.HFEMin, d.HFEMax)
 	}
+	parts := []string{transistor}
 	for _, s := range b.Topology.Slots() {
 		if r := b.Resistors[s].Nominal_Ohm; r > 0 {
 			parts = append(parts, strings.ToUpper(s.String())+" "+notation.FormatResistance(r))

@@ -16,6 +16,7 @@ func subcommands(f *cmdutil.Factory) []*cobra.Command {
 	return []*cobra.Command{
 		pickcmd.New(f),
 		checkcmd.New(f),
+		checkcmd.NewPlot(f),
 		democmd.New(f),
 		stockcmd.New(f),
 		backupcmd.New(f),
