@@ -42,6 +42,11 @@ type Options struct {
 	ShowFailing bool
 	Seed        uint64
 	JSON        bool
+	// Plot is the picture file of the first build (or of the first Compare
+	// builds overlaid); PlotSize its size as typed (WIDTHxHEIGHT).
+	Plot     string
+	Compare  int
+	PlotSize string
 }
 
 // Flag defaults, shown in --help.

@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/picture"
 	"biasbin/cmd/internal/report"
 	"biasbin/cmd/internal/stockparts"
 	"biasbin/picker"
@@ -112,6 +113,9 @@ Bad flags exit 2. pick only reads the stock; it never changes it.`,
 	fl.BoolVar(&o.ShowFailing, "show-failing", false, "also show builds that break a hard limit, with the reason")
 	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "seed of the Monte Carlo yield runs")
 	fl.BoolVar(&o.JSON, "json", false, "write the result as JSON")
+	fl.StringVar(&o.Plot, "plot", "", "also draw the first build's load-line picture to FILE (.svg, .png or .pdf; see biasbin plot)")
+	fl.IntVar(&o.Compare, "compare", 0, fmt.Sprintf("with --plot: overlay the first N builds (2 to %d) in one picture", picture.MaxCompare))
+	fl.StringVar(&o.PlotSize, "plot-size", "", fmt.Sprintf("size of the --plot picture in pixels, WIDTHxHEIGHT (default %dx%d)", picture.DefaultSize.Width_px, picture.DefaultSize.Height_px))
 	return cmd
 }
 
@@ -121,6 +125,10 @@ func Run(ctx context.Context, o *Options) error {
 		ctx = context.Background()
 	}
 	req, err := o.request()
+	if err != nil {
+		return err
+	}
+	pic, err := o.pictureOptions()
 	if err != nil {
 		return err
 	}
@@ -156,6 +164,11 @@ func Run(ctx context.Context, o *Options) error {
 		WriteText(o.IO.Out, out)
 	}
 	WriteNotes(o.IO.ErrOut, out)
+	if pic != nil {
+		if err := pic.write(o.IO, out); err != nil {
+			return err
+		}
+	}
 	if !out.Fits {
 		return cmdutil.ErrSilent
 	}
