@@ -73,10 +73,10 @@ type checkJSON struct {
 // −1/r_ac with r_ac = RC‖RL (REFERENCE.md §7, §19).
 func TestPlotAgreesWithCheckJSON(t *testing.T) {
 	for _, tc := range []struct {
-		name           string
-		args           []string
+		name          string
+		args          []string
 		span_V, rdc_Ω float64
-		rac_Ω          float64 // 0: no AC load line
+		rac_Ω         float64 // 0: no AC load line
 	}{
 		{"divider with load", []string{"--vcc", "12V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--hfe", "100..300", "--load", "10K", "--bypass"}, 12, 2670, 2200 * 10e3 / 12.2e3},
 		{"collector feedback", []string{"--topology", "collector-feedback", "--vcc", "12V", "--rf", "220K", "--rc", "2K2", "--re", "470R", "--hfe", "100..400", "--theta-ja", "250"}, 12, 2670, 0},
