@@ -15,6 +15,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/picture"
 	"biasbin/cmd/internal/pickcmd"
 	"biasbin/cmd/internal/stockcsv"
 	"biasbin/cmd/internal/stockparts"
@@ -30,6 +31,9 @@ type Options struct {
 	// for exploring; otherwise it lives in a temporary folder removed at
 	// the end.
 	Keep string
+	// Plot, when not empty, is where the load-line picture of the first
+	// pick's best build is drawn (.svg, .png or .pdf).
+	Plot string
 }
 
 // New returns the demo command.
@@ -52,6 +56,7 @@ PATH so you can try commands on it: biasbin --db PATH stock list.`,
 		},
 	}
 	cmd.Flags().StringVar(&o.Keep, "keep", "", "make the demo stock file at `PATH` and keep it (must not exist yet)")
+	cmd.Flags().StringVar(&o.Plot, "plot", "", "also draw the first pick's best build to `FILE` (.svg, .png or .pdf), as pick --plot does")
 	return cmd
 }
 
@@ -59,6 +64,11 @@ PATH so you can try commands on it: biasbin --db PATH stock list.`,
 func Run(ctx context.Context, o *Options) error {
 	if ctx == nil {
 		ctx = context.Background()
+	}
+	if o.Plot != "" {
+		if _, err := picture.FormatOf(o.Plot); err != nil {
+			return cmdutil.Usagef("--plot: %v", err)
+		}
 	}
 	path, cleanup, err := demoPath(o.Keep)
 	if err != nil {
@@ -81,8 +91,15 @@ func Run(ctx context.Context, o *Options) error {
 		return fmt.Errorf("demo stock: %w", err)
 	}
 	for i, sc := range scenarios() {
-		if err := runScenario(w, stock, i+1, sc); err != nil {
+		out, err := runScenario(w, stock, i+1, sc)
+		if err != nil {
 			return err
+		}
+		if i == 0 && o.Plot != "" {
+			if _, err := pickcmd.DrawBuilds(o.Plot, picture.DefaultSize, out, 1); err != nil {
+				return fmt.Errorf("demo: --plot: %w", err)
+			}
+			fmt.Fprintf(w, "\nThe load-line picture of #1 is in %s (biasbin pick ... --plot FILE draws it).\n", o.Plot)
 		}
 	}
 	fmt.Fprintln(w)
@@ -146,13 +163,13 @@ func load(ctx context.Context, w io.Writer, path string) error {
 // runScenario narrates one pick and runs it as biasbin pick does, through
 // the same application layer and the same text renderer, with its notes
 // on the same stream so the story reads in order.
-func runScenario(w io.Writer, stock picker.Stock, n int, sc scenario) error {
+func runScenario(w io.Writer, stock picker.Stock, n int, sc scenario) (*job.PickOutcome, error) {
 	fmt.Fprintf(w, "\n=== Pick %d: %s\n", n, sc.title)
 	fmt.Fprintln(w, sc.story)
 	fmt.Fprintf(w, "$ biasbin pick %s\n\n", strings.Join(sc.args, " "))
 	out, err := job.Pick(stock, sc.req, picker.Pick)
 	if err != nil {
-		return fmt.Errorf("demo pick %d: %w", n, err)
+		return nil, fmt.Errorf("demo pick %d: %w", n, err)
 	}
 	pickcmd.WriteText(w, out)
 	pickcmd.WriteNotes(w, out)
@@ -162,7 +179,7 @@ func runScenario(w io.Writer, stock picker.Stock, n int, sc scenario) error {
 	case !out.Fits && sc.nothingFits:
 		fmt.Fprintln(w, "(pick exits with status 1 here: nothing fits, and it says what to buy)")
 	case !out.Fits:
-		return fmt.Errorf("demo pick %d: nothing fits", n)
+		return nil, fmt.Errorf("demo pick %d: nothing fits", n)
 	}
-	return nil
+	return out, nil
 }

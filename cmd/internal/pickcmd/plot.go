@@ -47,32 +47,10 @@ func (o *Options) pictureOptions() (*pictureJob, error) {
 	return pj, nil
 }
 
-// write draws the first builds of the pick, each analysed as check
-// analyses a build with the window, boards and seed of its own yield run
-// (so each picture counts the boards the pick counted), and says where on
-// stderr.
+// write draws the first builds of the pick and says where on stderr.
 func (pj *pictureJob) write(io *cmdutil.IOStreams, out *job.PickOutcome) error {
-	if len(out.Builds) == 0 {
-		return fmt.Errorf("pick: --plot: no build to draw")
-	}
-	n := min(pj.builds, len(out.Builds))
-	subjects := make([]picture.Subject, 0, n)
-	for _, b := range out.Builds[:n] {
-		req := job.CandidateRequest(b.Candidate)
-		req.KeepBoards = true
-		a, err := job.Check(req)
-		if err != nil {
-			return fmt.Errorf("pick: --plot: build %s: %w", b.ID, err)
-		}
-		s := picture.FromAnalysis(a)
-		s.Name = fmt.Sprintf("#%d %s", b.Rank, s.Name)
-		subjects = append(subjects, s)
-	}
-	c, err := picture.LoadLine(subjects, picture.LoadLineOptions{})
+	n, err := DrawBuilds(pj.path, pj.size, out, pj.builds)
 	if err != nil {
-		return fmt.Errorf("pick: --plot: %w", err)
-	}
-	if err := picture.WriteFile(pj.path, c, pj.size); err != nil {
 		return fmt.Errorf("pick: --plot: %w", err)
 	}
 	what := "the first build"
@@ -84,4 +62,36 @@ func (pj *pictureJob) write(io *cmdutil.IOStreams, out *job.PickOutcome) error {
 	}
 	fmt.Fprintf(io.ErrOut, "picture: %s written to %s\n", what, pj.path)
 	return nil
+}
+
+// DrawBuilds draws the first n builds of a pick (one: its load-line
+// picture; up to picture.MaxCompare: overlaid) to path, each analysed as
+// check analyses a build with the window, boards and seed of its own yield
+// run, so each picture counts the boards the pick counted. It returns how
+// many builds it drew.
+func DrawBuilds(path string, size picture.Size, out *job.PickOutcome, n int) (int, error) {
+	if len(out.Builds) == 0 {
+		return 0, fmt.Errorf("no build to draw")
+	}
+	n = min(n, len(out.Builds))
+	subjects := make([]picture.Subject, 0, n)
+	for _, b := range out.Builds[:n] {
+		req := job.CandidateRequest(b.Candidate)
+		req.KeepBoards = true
+		a, err := job.Check(req)
+		if err != nil {
+			return 0, fmt.Errorf("build %s: %w", b.ID, err)
+		}
+		s := picture.FromAnalysis(a)
+		s.Name = fmt.Sprintf("#%d %s", b.Rank, s.Name)
+		subjects = append(subjects, s)
+	}
+	c, err := picture.LoadLine(subjects, picture.LoadLineOptions{})
+	if err != nil {
+		return 0, err
+	}
+	if err := picture.WriteFile(path, c, size); err != nil {
+		return 0, err
+	}
+	return n, nil
 }
