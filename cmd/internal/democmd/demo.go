@@ -15,8 +15,8 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
-	"biasbin/cmd/internal/picture"
 	"biasbin/cmd/internal/pickcmd"
+	"biasbin/cmd/internal/picture"
 	"biasbin/cmd/internal/stockcsv"
 	"biasbin/cmd/internal/stockparts"
 	"biasbin/picker"
