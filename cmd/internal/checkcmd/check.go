@@ -68,6 +68,8 @@ type Options struct {
 	// picture plot draws.
 	PlotSize string
 	Kind     string
+	// Zoom closes plot's axes in on the Q-point spread.
+	Zoom bool
 }
 
 // Flag defaults, shown in --help.

@@ -32,6 +32,7 @@ saturation region (VCE below VCE(sat)) and cut-off (IC ≈ 0) shaded grey,
 the nominal Q-point, the hull of the worst-case corners, the Monte Carlo
 boards (each at both ends of the ambient range, told apart by marker) and
 the yield window. At most 2,000 boards are drawn, the first of the run.
+--zoom closes the axes in on the spread, to tell it against the window.
 --kind ic-histogram draws IC over every Monte Carlo board at each ambient
 end, with the yield window's IC bounds and the worst-case band.
 
@@ -63,6 +64,7 @@ the first N builds).`,
 	fl.StringVar(&o.Out, "out", "", "the picture file: .svg, .png or .pdf (required)")
 	fl.StringVar(&o.Kind, "kind", picture.KindLoadLine.String(), "the picture: load-line or ic-histogram")
 	fl.StringVar(&o.PlotSize, "size", "", "picture size in pixels, WIDTHxHEIGHT (default "+defaultSize()+")")
+	fl.BoolVar(&o.Zoom, "zoom", false, "load-line picture: close the axes in on the Q-point spread (the load lines run on)")
 	return cmd
 }
 
@@ -126,6 +128,7 @@ type pictureJob struct {
 	path string
 	kind picture.Kind
 	size picture.Size
+	zoom bool
 }
 
 // pictureOptions checks the picture flags before any analysis: nil when
@@ -134,7 +137,7 @@ func (o *Options) pictureOptions(flag, path string) (*pictureJob, error) {
 	if path == "" {
 		return nil, nil
 	}
-	pj := &pictureJob{path: path, size: picture.DefaultSize}
+	pj := &pictureJob{path: path, size: picture.DefaultSize, zoom: o.Zoom}
 	if _, err := picture.FormatOf(path); err != nil {
 		return nil, usage(flag, err)
 	}
@@ -177,7 +180,7 @@ func (pj *pictureJob) chart(a *job.Analysis) (picture.Chart, error) {
 	if a.Yield == nil && pj.kind == picture.KindICHistogram {
 		return nil, fmt.Errorf("plot: the Monte Carlo run failed, so there is no IC histogram to draw")
 	}
-	c, err := picture.Draw(pj.kind, []picture.Subject{picture.FromAnalysis(a)}, picture.LoadLineOptions{})
+	c, err := picture.Draw(pj.kind, []picture.Subject{picture.FromAnalysis(a)}, picture.LoadLineOptions{Zoom: pj.zoom})
 	if err != nil {
 		return nil, fmt.Errorf("plot: %w", err)
 	}

@@ -109,7 +109,7 @@ func (h HistogramChart) compose() (*plot.Plot, plot.Legend) {
 	if band != nil {
 		leg.Add("worst case "+icRange(h.WorstICMin_A, h.WorstICMax_A), band)
 	}
-	leg.Add(fmt.Sprintf("%s of %s boards pass", count(h.Passed), count(h.Boards)))
+	leg.Add(fmt.Sprintf("%s of %s boards pass (IC and VCE)", count(h.Passed), count(h.Boards)))
 	p.X.Min, p.X.Max = lo*mA, hi*mA
 	p.Y.Min, p.Y.Max = 0, yTop
 	return p, leg

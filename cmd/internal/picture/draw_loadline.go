@@ -64,7 +64,7 @@ func (c LoadLineChart) compose() (*plot.Plot, plot.Legend) {
 		leg.Add(fmt.Sprintf("grey: saturation (VCE < %s), cut-off (IC ≈ 0)", notation.FormatVoltage(c.Saturation.VCEMax_V)), sat)
 	}
 	if c.Zoomed {
-		leg.Add("(axes close in on the spread; load lines run on)")
+		leg.Add("(axes zoomed on the spread)")
 	}
 	p.X.Min, p.X.Max = c.VCEAxisMin_V, c.VCEAxis_V
 	p.Y.Min, p.Y.Max = c.ICAxisMin_A*mA, c.ICAxis_A*mA
@@ -104,7 +104,7 @@ func (c *LoadLineChart) composeOne(p *plot.Plot, leg *plot.Legend) {
 		ac = line(t.AC, black, medium, acDashes)
 		p.Add(ac)
 	}
-	corners := scatter(t.Corners, draw.CrossGlyph{}, color.RGBA{0x80, 0x50, 0x00, 0xff}, 2.5)
+	corners := scatter(t.Corners, draw.CrossGlyph{}, color.RGBA{0x80, 0x50, 0x00, 0xff}, 2)
 	nominal := scatter([]Point{t.Nominal}, draw.BoxGlyph{}, black, 4.5)
 	p.Add(corners, nominal)
 
@@ -157,6 +157,7 @@ func (c *LoadLineChart) composeMany(p *plot.Plot, leg *plot.Legend) {
 		st := traceStyles[i]
 		hull := c.hull(t, withAlpha(st.color, 0.15), st.color)
 		if hull != nil {
+			hull.LineStyle.Dashes = st.dashes // tells the hulls apart in greyscale
 			p.Add(hull)
 		}
 		if !sameWindow {
@@ -183,7 +184,7 @@ func (c *LoadLineChart) composeMany(p *plot.Plot, leg *plot.Legend) {
 		leg.Add(t.Name, dc, nominal, outline)
 	}
 	t := c.Traces[0]
-	leg.Add("large marker: nominal Q-point; outline: worst-case hull")
+	leg.Add("large marker: nominal Q-point; outline in the line's dash: worst-case hull")
 	if len(t.Cloud.Cold) > 0 && len(t.Cloud.Hot) > 0 {
 		leg.Add(fmt.Sprintf("open: board at %s; filled: at %s", notation.FormatTemperature(t.AmbientMin_C), notation.FormatTemperature(t.AmbientMax_C)), ends)
 	}

@@ -116,6 +116,9 @@ const DefaultMaxBoards = 2000
 type LoadLineOptions struct {
 	// MaxBoards is the most boards drawn per build; 0 = DefaultMaxBoards.
 	MaxBoards int
+	// Zoom closes the axes in on the spread also for a single build
+	// (several builds are always zoomed).
+	Zoom bool
 }
 
 // LoadLine builds the IC–VCE chart of one to MaxCompare builds.
@@ -156,7 +159,7 @@ func LoadLine(subjects []Subject, opt LoadLineOptions) (LoadLineChart, error) {
 	c.VCEAxis_V, c.ICAxis_A = 1.05*vceTop, 1.08*icTop
 	c.Saturation = Box{VCEMin_V: 0, VCEMax_V: satTop, ICMin_A: 0, ICMax_A: c.ICAxis_A}
 	c.Cutoff = Box{VCEMin_V: 0, VCEMax_V: c.VCEAxis_V, ICMin_A: 0, ICMax_A: CutoffShare * c.ICAxis_A}
-	if len(c.Traces) > 1 {
+	if len(c.Traces) > 1 || opt.Zoom {
 		c.zoom()
 	}
 	return c, nil

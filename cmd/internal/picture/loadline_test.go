@@ -214,3 +214,30 @@ func TestConvexHull(t *testing.T) {
 		t.Errorf("hull of one repeated point %v, want the point", h)
 	}
 }
+
+// TestZoom checks that zoomed axes still hold everything the analysis
+// gave (nominal point, corners, boards, window) while closing in on it.
+func TestZoom(t *testing.T) {
+	s := subjectOf(t, feedbackFixture(), 300)
+	full, err := LoadLine([]Subject{s}, LoadLineOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := LoadLine([]Subject{s}, LoadLineOptions{Zoom: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !c.Zoomed || full.Zoomed || c.VCEAxis_V-c.VCEAxisMin_V >= full.VCEAxis_V || c.ICAxis_A-c.ICAxisMin_A >= full.ICAxis_A {
+		t.Fatalf("zoomed axes %g..%g V, %g..%g A; full %g V, %g A", c.VCEAxisMin_V, c.VCEAxis_V, c.ICAxisMin_A, c.ICAxis_A, full.VCEAxis_V, full.ICAxis_A)
+	}
+	view := Box{c.VCEAxisMin_V, c.VCEAxis_V, c.ICAxisMin_A, c.ICAxis_A}
+	tr := c.Traces[0]
+	w := tr.Window
+	pts := append([]Point{tr.Nominal, {w.VCEMin_V, w.ICMin_A}, {w.VCEMax_V, w.ICMax_A}}, tr.Corners...)
+	pts = append(append(pts, tr.Cloud.Cold...), tr.Cloud.Hot...)
+	for _, p := range pts {
+		if !view.Contains(p) {
+			t.Errorf("%v lies outside the zoomed axes %+v", p, view)
+		}
+	}
+}
