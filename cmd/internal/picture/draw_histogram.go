@@ -14,7 +14,11 @@ import (
 
 // compose implements Chart.
 func (h HistogramChart) compose() (*plot.Plot, plot.Legend) {
-	p, leg := newPlot(h.Title, "IC (mA)", "boards per bin")
+	x := "IC (mA)"
+	if h.PNP {
+		x = "|IC| (mA)"
+	}
+	p, leg := newPlot(h.Title, x, "boards per bin")
 	p.Add(plotter.NewGrid())
 	lo, hi := h.Bins[0].ICMin_A, h.Bins[len(h.Bins)-1].ICMax_A
 	top := 0

@@ -42,7 +42,11 @@ func (b Box) corners() plotter.XYs {
 
 // compose implements Chart.
 func (c LoadLineChart) compose() (*plot.Plot, plot.Legend) {
-	p, leg := newPlot(c.Title, "VCE (V)", "IC (mA)")
+	x, y := "VCE (V)", "IC (mA)"
+	if c.PNP {
+		x, y = "|VCE| (V)", "|IC| (mA)"
+	}
+	p, leg := newPlot(c.Title, x, y)
 	p.Add(plotter.NewGrid())
 	region := func(b Box) *plotter.Polygon {
 		poly, _ := plotter.NewPolygon(b.corners())

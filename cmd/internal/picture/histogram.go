@@ -41,6 +41,8 @@ type HistogramChart struct {
 	Nominal_A float64
 	// AmbientMin_C and AmbientMax_C are the ambient range.
 	AmbientMin_C, AmbientMax_C float64
+	// PNP is set for a PNP build: IC is then a magnitude.
+	PNP bool
 }
 
 // Histogram builds the IC histogram of s over all its Monte Carlo boards.
@@ -56,6 +58,7 @@ func Histogram(s Subject) (HistogramChart, error) {
 		WindowICMin_A: w.ICMin_A, WindowICMax_A: w.ICMax_A,
 		Nominal_A:    s.Nominal.IC_A,
 		AmbientMin_C: s.Build.AmbientMin_C, AmbientMax_C: s.Build.AmbientMax_C,
+		PNP: s.Build.Device.Polarity == solver.PNP,
 	}
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, b := range y.Samples {

@@ -101,6 +101,9 @@ type LoadLineChart struct {
 	VCEAxis_V, ICAxis_A       float64
 	VCEAxisMin_V, ICAxisMin_A float64
 	Zoomed                    bool
+	// PNP is set when a build is PNP: the axes then carry magnitudes
+	// (|VCE|, |IC|), as the analyses give them.
+	PNP bool
 }
 
 // CutoffShare is the height of the cut-off band as a share of the IC axis.
@@ -154,6 +157,7 @@ func LoadLine(subjects []Subject, opt LoadLineOptions) (LoadLineChart, error) {
 			icTop = math.Max(icTop, w.ICMax_A)
 		}
 		satTop = math.Max(satTop, t.VCESat_V)
+		c.PNP = c.PNP || s.Build.Device.Polarity == solver.PNP
 		c.Traces = append(c.Traces, t)
 	}
 	c.VCEAxis_V, c.ICAxis_A = 1.05*vceTop, 1.08*icTop
