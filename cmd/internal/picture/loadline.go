@@ -54,8 +54,11 @@ type Cloud struct {
 	BoardPoints [][]Point
 	// Drawn and Boards are the boards drawn and the boards run.
 	Drawn, Boards int
-	// Pass count over every board run, as the analysis reported it.
-	Passed int
+	// Passed is the pass count over every board run, as the analysis
+	// reported it; Turned counts the boards whose IC or VCE turned between
+	// the ambient ends (a board can fail there with both ends inside the
+	// window: the picture shows the ends only).
+	Passed, Turned int
 }
 
 // Trace is one build on the IC–VCE plane.
@@ -227,7 +230,7 @@ func trace(s Subject, maxBoards int) Trace {
 
 // cloud sorts the first maxBoards boards of y by ambient.
 func cloud(y *solver.YieldResult, b solver.Build, maxBoards int) Cloud {
-	c := Cloud{Boards: y.Boards, Passed: y.Pass}
+	c := Cloud{Boards: y.Boards, Passed: y.Pass, Turned: y.Turned}
 	for _, board := range y.Samples {
 		if c.Drawn == maxBoards {
 			break

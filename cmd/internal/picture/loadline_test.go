@@ -150,21 +150,26 @@ func TestPointsInsideDrawnShapes(t *testing.T) {
 		if cl.Drawn != 400 || len(cl.Cold) != 400 || len(cl.Hot) != 400 || len(cl.Between) != 0 {
 			t.Fatalf("%v: %d boards drawn, %d cold and %d hot points, %d between; want 400 at each end", b.Topology, cl.Drawn, len(cl.Cold), len(cl.Hot), len(cl.Between))
 		}
-		passed := 0
+		inside, passed := 0, 0
 		for i, pts := range cl.BoardPoints {
 			in := true
 			for _, p := range pts {
 				in = in && tr.Window.Contains(p)
 			}
-			if in != cl.Pass[i] {
-				t.Errorf("%v: board %d inside the drawn window: %v, counted passing: %v", b.Topology, i, in, cl.Pass[i])
+			if cl.Pass[i] && !in {
+				t.Errorf("%v: board %d counted passing, but drawn outside the window", b.Topology, i)
 			}
 			if in {
+				inside++
+			}
+			if cl.Pass[i] {
 				passed++
 			}
 		}
-		if passed != s.Yield.Pass || passed != cl.Passed {
-			t.Errorf("%v: %d boards inside the drawn window, the yield counted %d", b.Topology, passed, s.Yield.Pass)
+		// A board inside the window at both ends fails only where its IC
+		// or VCE turned between them (REFERENCE.md §9, the whole range).
+		if passed != s.Yield.Pass || passed != cl.Passed || inside-passed > cl.Turned {
+			t.Errorf("%v: %d boards drawn inside the window, %d pass, the yield counted %d with %d turned", b.Topology, inside, passed, s.Yield.Pass, cl.Turned)
 		}
 		n := tr.Nominal
 		if n.IC_A != s.Nominal.IC_A || n.VCE_V != s.Nominal.VCE_V {
