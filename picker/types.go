@@ -69,7 +69,7 @@ type Request struct {
 	ShowFailing  bool   // also list builds that fail a hard limit, with the reason
 	Seed         uint64 // mixed with each build's key to seed its Monte Carlo yield
 	Limits       solver.Limits
-	Progress     func(done, total int64) // optional; called from the search goroutines one call at a time, may be nil
+	Progress     func(done, total int64) `json:"-"` // optional; called from the search goroutines one call at a time, may be nil
 	// Finalists is how many of the best builds by the pre-yield score get
 	// a Monte Carlo yield before the final ranking; 0 = 2·Top + 5.
 	Finalists int

@@ -79,6 +79,22 @@ func (r Region) String() string {
 // MarshalText writes the region's name.
 func (r Region) MarshalText() ([]byte, error) { return []byte(r.String()), nil }
 
+// UnmarshalText reads back what MarshalText writes.
+func (r *Region) UnmarshalText(b []byte) error {
+	for _, v := range []Region{Active, Saturation, Cutoff, ReverseActive} {
+		if string(b) == v.String() {
+			*r = v
+			return nil
+		}
+	}
+	var n int
+	if _, err := fmt.Sscanf(string(b), "Region(%d)", &n); err != nil {
+		return fmt.Errorf("region %q: want active, saturation, cutoff or reverse-active", b)
+	}
+	*r = Region(n)
+	return nil
+}
+
 // ConductingCurrent_A is the ideal diode current at which the solver counts
 // a junction as conducting when it names the region (doc.go, "Regions"): a
 // forward-active operating point has a base-emitter injection of at least
@@ -116,6 +132,21 @@ func (t Topology) String() string {
 
 // MarshalText writes the topology's name.
 func (t Topology) MarshalText() ([]byte, error) { return []byte(t.String()), nil }
+
+// UnmarshalText reads back what MarshalText writes (also the unset
+// topology, "Topology(0)").
+func (t *Topology) UnmarshalText(b []byte) error {
+	if v, err := ParseTopology(string(b)); err == nil {
+		*t = v
+		return nil
+	}
+	var n int
+	if _, err := fmt.Sscanf(string(b), "Topology(%d)", &n); err != nil {
+		return fmt.Errorf("topology %q: want divider, collector-feedback or split-supply", b)
+	}
+	*t = Topology(n)
+	return nil
+}
 
 // ParseTopology reads a topology name as written by String.
 func ParseTopology(s string) (Topology, error) {

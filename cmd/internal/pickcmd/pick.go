@@ -13,6 +13,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/picture"
 	"biasbin/cmd/internal/report"
@@ -74,7 +75,9 @@ the nearest builds on stdout, and exits 1. The nearest builds are those that
 break a limit (each with the reason), or, when the stock is short for the
 number of boards, the best builds for the most boards it does supply, with
 the extra parts all boards would take.
-Bad flags exit 2. pick only reads the stock; it never changes it.`,
+Bad flags exit 2. pick never changes the stock; it keeps the builds it lists
+in the stock file for 30 days, so that "biasbin build new ID --boards N"
+can take their parts out of stock later.`,
 		Example: `  biasbin pick --vcc 12V --ic 2mA
   biasbin pick --vcc 9V --ic 500uA --polarity pnp --boards 20 --pairs
   biasbin pick --vcc 15V --ic 1mA --vce 6V --load 10K --bypass --weights q=2,yield=0.5 --json`,
@@ -156,6 +159,9 @@ func Run(ctx context.Context, o *Options) error {
 	}
 	done() // erase the indicator before any output
 	out.Request.Progress = nil
+	if err := buildjob.KeepPick(ctx, db, out, stock); err != nil {
+		fmt.Fprintf(o.IO.ErrOut, "warning: the builds are not kept, so build new cannot take their IDs: %v\n", err)
+	}
 	if o.JSON {
 		if err := writeJSON(o.IO.Out, out); err != nil {
 			return fmt.Errorf("write JSON: %w", err)

@@ -4,9 +4,11 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/backupcmd"
+	"biasbin/cmd/internal/buildcmd"
 	"biasbin/cmd/internal/checkcmd"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/democmd"
+	"biasbin/cmd/internal/ledgercmd"
 	"biasbin/cmd/internal/pickcmd"
 	"biasbin/cmd/internal/stockcmd"
 )
@@ -18,6 +20,8 @@ func subcommands(f *cmdutil.Factory) []*cobra.Command {
 		checkcmd.New(f),
 		checkcmd.NewPlot(f),
 		democmd.New(f),
+		buildcmd.New(f),
+		ledgercmd.New(f),
 		stockcmd.New(f),
 		backupcmd.New(f),
 	}
