@@ -7,8 +7,6 @@ package buildcmd
 
 import (
 	"context"
-	"encoding/json"
-	"fmt"
 	"io"
 	"strconv"
 	"strings"
@@ -77,15 +75,8 @@ func oneBuildID(verb string) cobra.PositionalArgs {
 	}
 }
 
-// writeJSON writes v indented, with a final newline.
-func writeJSON(w io.Writer, v any) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	if err := enc.Encode(v); err != nil {
-		return fmt.Errorf("write JSON: %w", err)
-	}
-	return nil
-}
+// writeJSON writes v as every --json output is written.
+func writeJSON(w io.Writer, v any) error { return cmdutil.WriteJSON(w, v) }
 
 // binName shows an empty bin as "-".
 func binName(b string) string {

@@ -141,4 +141,6 @@ func TestMeasureNamesInjectedFaults(t *testing.T) {
 }
 
 // readingsOf gathers three readings.
-func readingsOf(vb, ve, vc float64) fault.Readings { return fault.Readings{VB_V: vb, VE_V: ve, VC_V: vc} }
+func readingsOf(vb, ve, vc float64) fault.Readings {
+	return fault.Readings{VB_V: vb, VE_V: ve, VC_V: vc}
+}

@@ -1,6 +1,8 @@
 package cmdutil
 
 import (
+	"encoding/json"
+	"fmt"
 	"io"
 	"os"
 
@@ -40,3 +42,14 @@ func (s *IOStreams) IsStdoutTTY() bool { return s.outTTY }
 // IsStderrTTY reports whether ErrOut is a terminal (progress indicators
 // are drawn only then).
 func (s *IOStreams) IsStderrTTY() bool { return s.errTTY }
+
+// WriteJSON writes v to w indented by two spaces, with a final newline:
+// the --json output of every command.
+func WriteJSON(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	if err := enc.Encode(v); err != nil {
+		return fmt.Errorf("write JSON: %w", err)
+	}
+	return nil
+}

@@ -4,7 +4,6 @@ package ledgercmd
 
 import (
 	"context"
-	"encoding/json"
 	"fmt"
 	"strconv"
 	"strings"
@@ -124,12 +123,7 @@ func Run(ctx context.Context, o *Options) error {
 			}
 			out.Entries = append(out.Entries, je)
 		}
-		enc := json.NewEncoder(o.IO.Out)
-		enc.SetIndent("", "  ")
-		if err := enc.Encode(out); err != nil {
-			return fmt.Errorf("write JSON: %w", err)
-		}
-		return nil
+		return cmdutil.WriteJSON(o.IO.Out, out)
 	}
 	if len(es) == 0 {
 		fmt.Fprintln(o.IO.Out, "no ledger entries")

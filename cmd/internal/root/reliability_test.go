@@ -1,10 +1,8 @@
 package root
 
 import (
-	"bytes"
 	"context"
 	"encoding/json"
-	"errors"
 	"fmt"
 	"math/rand/v2"
 	"os"
@@ -16,32 +14,17 @@ import (
 	"testing"
 	"time"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/store"
 )
 
 // child returns a command that runs this test binary as biasbin on the
 // stock file db.
-func child(db string, args ...string) *exec.Cmd {
-	cmd := exec.Command(os.Args[0], append([]string{"--", "--db", db}, args...)...)
-	cmd.Env = append(os.Environ(), childEnv+"=1")
-	return cmd
-}
+func child(db string, args ...string) *exec.Cmd { return cmdtest.Child(childEnv, db, args...) }
 
 // runChild runs a child to its end.
 func runChild(db string, args ...string) (stdout, stderr string, code int) {
-	cmd := child(db, args...)
-	var out, errOut bytes.Buffer
-	cmd.Stdout, cmd.Stderr = &out, &errOut
-	err := cmd.Run()
-	var ee *exec.ExitError
-	switch {
-	case errors.As(err, &ee):
-		code = ee.ExitCode()
-	case err != nil:
-		code = -1
-		errOut.WriteString(err.Error())
-	}
-	return out.String(), errOut.String(), code
+	return cmdtest.RunChild(childEnv, db, args...)
 }
 
 // picked stocks the tour's parts, picks a build for 4 boards and returns

@@ -11,6 +11,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 )
 
@@ -20,26 +21,7 @@ import (
 const childEnv = "BIASBIN_STOCKCMD_CHILD"
 
 func TestMain(m *testing.M) {
-	if os.Getenv(childEnv) == "1" {
-		args := os.Args[1:]
-		for i, a := range args {
-			if a == "--" {
-				args = args[i+1:]
-				break
-			}
-		}
-		f := cmdutil.New()
-		cmd := testRoot(f)
-		cmd.SetArgs(args)
-		err := cmd.Execute()
-		if cerr := f.Close(); err == nil && cerr != nil {
-			err = cerr
-		}
-		if err != nil {
-			fmt.Fprintln(os.Stderr, "biasbin:", err)
-		}
-		os.Exit(cmdutil.ExitCode(err))
-	}
+	cmdtest.ChildMain(childEnv, testRoot)
 	os.Exit(m.Run())
 }
 
