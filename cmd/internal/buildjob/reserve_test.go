@@ -149,8 +149,8 @@ func TestReserveRefusals(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		tr.VCEO_V, tr.Qty, tr.Tags = 5, 0, nil
-		if _, err := db.AddTransistor(ctx, tr); err != nil {
+		tr.VCEO_V = 5
+		if _, err := db.Import(ctx, store.Batch{Transistors: []store.Transistor{tr}}, store.ImportOptions{Replace: true}); err != nil {
 			t.Fatal(err)
 		}
 		before := qtys(t, db)
