@@ -41,7 +41,7 @@ type jsonShow struct {
 	Note       string             `json:"note"`
 	BoardCount int                `json:"board_count"`
 	Request    jsonRequest        `json:"request"`
-	Figures    jsonFigures        `json:"figures"`
+	Figures    buildjob.Figures   `json:"figures"`
 	Parts      []jsonPart         `json:"parts"`
 	Bands      buildjob.Bands     `json:"bands"`
 	Boards     []jsonBoard        `json:"boards"`
@@ -63,19 +63,6 @@ type jsonRequest struct {
 	RequireTags  []string `json:"require_tags,omitempty"`
 	Load_Ohm     float64  `json:"load_ohms,omitempty"`
 	Bypass       bool     `json:"bypass"`
-}
-
-// jsonFigures are the figures the build was picked with.
-type jsonFigures struct {
-	Rank     int     `json:"rank"`
-	Score    float64 `json:"score"`
-	IC_A     float64 `json:"ic_a"`
-	VCE_V    float64 `json:"vce_v"`
-	ICMin_A  float64 `json:"ic_min_a"`
-	ICMax_A  float64 `json:"ic_max_a"`
-	VCEMin_V float64 `json:"vce_min_v"`
-	VCEMax_V float64 `json:"vce_max_v"`
-	Yield    float64 `json:"yield"`
 }
 
 // jsonPart is one line the build took parts from.
@@ -114,10 +101,8 @@ func showJSON(v buildjob.View) jsonShow {
 		Request: jsonRequest{Polarity: p.Build.Device.Polarity.String(), VCC_V: r.VCC_V, VCCTol: p.Build.VCCTol, IC_A: r.IC_A,
 			VCE_V: r.VCE_V, AmbientMin_C: p.Build.AmbientMin_C, AmbientMax_C: p.Build.AmbientMax_C, Boards: max(1, r.Boards),
 			Pairs: r.Pairs, RequireTags: r.RequireTags, Load_Ohm: r.RL_Ohm, Bypass: r.Bypass},
-		Figures: jsonFigures{Rank: p.Figures.Rank, Score: p.Figures.Score, IC_A: p.Figures.IC_A, VCE_V: p.Figures.VCE_V,
-			ICMin_A: p.Figures.ICMin_A, ICMax_A: p.Figures.ICMax_A, VCEMin_V: p.Figures.VCEMin_V, VCEMax_V: p.Figures.VCEMax_V,
-			Yield: p.Figures.Yield},
-		Bands: p.Bands, Parts: []jsonPart{}, Stage: map[string]float64{}, Transistor: p.Build.Device.Label}
+		Figures: p.Figures,
+		Bands:   p.Bands, Parts: []jsonPart{}, Stage: map[string]float64{}, Transistor: p.Build.Device.Label}
 	for _, s := range p.Slots {
 		out.Stage[s.Slot] = s.Ohm
 	}

@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"io"
 
 	"github.com/spf13/cobra"
 
@@ -108,7 +109,12 @@ func runMeasure(ctx context.Context, o *MeasureOptions) error {
 	if o.JSON {
 		return writeJSON(o.IO.Out, showJSON(v).Boards[rd.Board-1])
 	}
-	fmt.Fprintf(o.IO.Out, "build %d ", o.ID)
-	writeReading(o.IO.Out, "", rd, v.Plan.Bands)
+	WriteMeasured(o.IO.Out, o.ID, rd, v.Plan.Bands)
 	return nil
+}
+
+// WriteMeasured writes one board's record as build measure prints it.
+func WriteMeasured(w io.Writer, id int64, rd buildjob.Reading, bands buildjob.Bands) {
+	fmt.Fprintf(w, "build %d ", id)
+	writeReading(w, "", rd, bands)
 }

@@ -77,7 +77,13 @@ func runNew(ctx context.Context, o *NewOptions) error {
 	if o.JSON {
 		return writeJSON(o.IO.Out, showJSON(res.Build))
 	}
-	w := o.IO.Out
+	WriteReserved(o.IO.Out, res)
+	return nil
+}
+
+// WriteReserved writes a build just taken out of stock, as build new
+// prints it.
+func WriteReserved(w io.Writer, res buildjob.Reserved) {
 	fmt.Fprintf(w, "build %d: %d board%s of %s, parts taken out of stock\n", res.Build.ID, res.Build.Boards,
 		plural(res.Build.Boards), res.Build.Candidate)
 	if len(res.Changes) > 0 {
@@ -86,7 +92,6 @@ func runNew(ctx context.Context, o *NewOptions) error {
 	}
 	writeParts(w, res.Build)
 	fmt.Fprintf(w, "next: biasbin build sheet %d   (pull list and test points)\n", res.Build.ID)
-	return nil
 }
 
 // newError words why a build was not taken; nothing changed in each case.

@@ -9,6 +9,7 @@ import (
 	"biasbin/cmd/internal/stockparts"
 	"biasbin/picker"
 	"biasbin/picker/job"
+	"biasbin/solver"
 	"biasbin/store"
 )
 
@@ -44,7 +45,7 @@ func seed(t *testing.T) (*store.DB, picker.Candidate) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	req := picker.Request{VCC_V: 12, VCCTol: 0.05, IC_A: 1e-3, Top: 2, Seed: 1}
+	req := picker.Request{Polarity: solver.NPN, VCC_V: 12, VCCTol: 0.05, IC_A: 1e-3, Top: 2, Seed: 1}
 	out, err := job.Pick(st, req, picker.Pick)
 	if err != nil || len(out.Builds) == 0 {
 		t.Fatalf("pick: %v", err)

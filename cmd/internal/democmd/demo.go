@@ -46,7 +46,10 @@ func New(f *cmdutil.Factory) *cobra.Command {
 film resistors in E6/E12/E24 values, 5 % and 1 %, 1/4 W and 1/2 W, a few NPN
 and PNP types; some drawers nearly empty) through the normal CSV import,
 then run three picks: a plain build, one from a sparse approved list where
-pairs fill the gaps, and a run larger than the stock can supply.
+pairs fill the gaps, and a run larger than the stock can supply. Then it
+commits the first pick's best build (the parts leave the demo stock) and
+records two boards' bring-up readings, one of them out of its band with
+the likely cause named, and shows the build's ledger rows.
 
 Your own stock is never touched. With --keep PATH the demo stock stays at
 PATH so you can try commands on it: biasbin --db PATH stock list.`,
@@ -90,6 +93,7 @@ func Run(ctx context.Context, o *Options) error {
 	if err != nil {
 		return fmt.Errorf("demo stock: %w", err)
 	}
+	var first *job.PickOutcome
 	for i, sc := range scenarios() {
 		out, err := runScenario(w, stock, i+1, sc)
 		if err != nil {
@@ -101,6 +105,12 @@ func Run(ctx context.Context, o *Options) error {
 			}
 			fmt.Fprintf(w, "\nThe load-line picture of #1 is in %s (biasbin pick ... --plot FILE draws it).\n", o.Plot)
 		}
+		if i == 0 {
+			first = out
+		}
+	}
+	if err := buildStep(ctx, w, db, stock, first); err != nil {
+		return err
 	}
 	fmt.Fprintln(w)
 	if o.Keep != "" {

@@ -30,6 +30,8 @@ func TestDemoEndToEnd(t *testing.T) {
 		"measure   VB",
 		"nothing fits this request", "parts to buy", "(pick exits with status 1 here",
 		"kept at " + keep,
+		"=== Build:", "parts taken out of stock", ": pass\n", "OUT OF BAND", "most likely: RC shorted",
+		"$ biasbin ledger --build 1",
 	} {
 		if !strings.Contains(out, want) {
 			t.Errorf("demo output lacks %q", want)
@@ -52,5 +54,15 @@ func TestDemoEndToEnd(t *testing.T) {
 	ts, err := db.ListTransistors(context.Background(), store.Filter{})
 	if err != nil || len(ts) != 6 {
 		t.Errorf("kept stock: %d transistor lines, err %v", len(ts), err)
+	}
+	// It holds the demo build with two boards recorded, one out of band,
+	// and its ledger adds up.
+	b, err := db.Build(context.Background(), 1)
+	if err != nil || b.State != store.BuildOpen || len(b.Readings) != 2 || b.Readings[0].Verdict != "pass" ||
+		b.Readings[1].Verdict != "out-of-band" {
+		t.Errorf("demo build: %+v %v", b, err)
+	}
+	if ps, err := db.Verify(context.Background()); err != nil || len(ps) > 0 {
+		t.Errorf("verify the kept demo stock: %v %v", ps, err)
 	}
 }

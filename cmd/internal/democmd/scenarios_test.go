@@ -2,6 +2,7 @@ package democmd
 
 import (
 	"bytes"
+	"context"
 	"fmt"
 	"path/filepath"
 	"regexp"
@@ -11,6 +12,7 @@ import (
 	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/pickcmd"
+	"biasbin/store"
 )
 
 // TestScenariosAskWhatTheyShow: the demo hands the picker typed requests
@@ -22,6 +24,17 @@ func TestScenariosAskWhatTheyShow(t *testing.T) {
 	demo, errOut, err := runDemo(t, "--keep", keep)
 	if err != nil {
 		t.Fatalf("demo: %v\n%s", err, errOut)
+	}
+	// The demo ends by committing a build; cancelling it puts the stock
+	// back as the picks saw it.
+	db, err := store.OpenExisting(context.Background(), keep)
+	if err != nil {
+		t.Fatal(err)
+	}
+	err = db.CancelBuild(context.Background(), 1)
+	db.Close()
+	if err != nil {
+		t.Fatalf("cancel the demo build: %v", err)
 	}
 	for i, sc := range scenarios() {
 		t.Run(fmt.Sprint(i+1), func(t *testing.T) {

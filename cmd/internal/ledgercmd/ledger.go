@@ -5,6 +5,7 @@ package ledgercmd
 import (
 	"context"
 	"fmt"
+	"io"
 	"strconv"
 	"strings"
 	"text/tabwriter"
@@ -125,11 +126,16 @@ func Run(ctx context.Context, o *Options) error {
 		}
 		return cmdutil.WriteJSON(o.IO.Out, out)
 	}
+	return WriteText(o.IO.Out, es)
+}
+
+// WriteText writes ledger entries as a table, as ledger prints them.
+func WriteText(w io.Writer, es []store.LedgerEntry) error {
 	if len(es) == 0 {
-		fmt.Fprintln(o.IO.Out, "no ledger entries")
-		return nil
+		_, err := fmt.Fprintln(w, "no ledger entries")
+		return err
 	}
-	tw := tabwriter.NewWriter(o.IO.Out, 0, 0, 2, ' ', 0)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "TIME (UTC)\tLINE\tCHANGE\tQTY AFTER\tREASON\tBUILD")
 	for _, e := range es {
 		b := ""
