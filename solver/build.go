@@ -250,18 +250,9 @@ func (b Build) Validate() error {
 		if r.Nominal_Ohm == 0 {
 			continue
 		}
-		if !finite(r.Tol) || r.Tol < 0 || r.Tol >= maxTol {
-			return bad(name+" tolerance", "%g: want a fraction from 0 to %g", r.Tol, maxTol)
-		}
-		if !finite(r.TCR_PPMPerK) || math.Abs(r.TCR_PPMPerK) > maxTCR_PPMPerK {
-			return bad(name+" tcr", "%g ppm/K: want at most ±%g", r.TCR_PPMPerK, maxTCR_PPMPerK)
-		}
-		if !finite(r.Rated_W) || r.Rated_W < 0 {
-			return bad(name+" power", "%g W: want a positive rating (or 0 for unrated)", r.Rated_W)
-		}
-		knee, top := r.derating()
-		if !finite(knee) || !finite(top) || knee >= top {
-			return bad(name+" derating", "knee %g °C must be below the zero-power temperature %g °C", knee, top)
+		if err := r.validateRatings(); err != nil {
+			err.Field = name + " " + err.Field
+			return err
 		}
 	}
 	if !finite(b.RBypass_Ohm) || b.RBypass_Ohm < 0 || b.RBypass_Ohm > b.Resistors[RE].Nominal_Ohm*(1+1e-12) {
@@ -309,6 +300,41 @@ func signWord(sign float64) string {
 
 // derating returns the resistor's knee and zero-power temperatures with
 // the defaults applied.
+// Validate reports the first bad figure of a resistor as an *InputError
+// naming the field ("ohms", "tolerance", "tcr", "power", "derating"): the
+// rules a resistor must meet in any build.
+func (r ResistorSpec) Validate() error {
+	if math.IsNaN(r.Nominal_Ohm) || math.IsInf(r.Nominal_Ohm, 0) || r.Nominal_Ohm <= 0 {
+		return &InputError{Field: "ohms", Problem: fmt.Sprintf("%g Ω: want a positive resistance", r.Nominal_Ohm)}
+	}
+	if err := r.validateRatings(); err != nil {
+		return err
+	}
+	return nil
+}
+
+// validateRatings checks everything of a resistor but its value.
+func (r ResistorSpec) validateRatings() *InputError {
+	bad := func(field, format string, a ...any) *InputError {
+		return &InputError{Field: field, Problem: fmt.Sprintf(format, a...)}
+	}
+	finite := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+	if !finite(r.Tol) || r.Tol < 0 || r.Tol >= maxTol {
+		return bad("tolerance", "%g: want a fraction from 0 to %g", r.Tol, maxTol)
+	}
+	if !finite(r.TCR_PPMPerK) || math.Abs(r.TCR_PPMPerK) > maxTCR_PPMPerK {
+		return bad("tcr", "%g ppm/K: want at most ±%g", r.TCR_PPMPerK, maxTCR_PPMPerK)
+	}
+	if !finite(r.Rated_W) || r.Rated_W < 0 {
+		return bad("power", "%g W: want a positive rating (or 0 for unrated)", r.Rated_W)
+	}
+	knee, top := r.derating()
+	if !finite(knee) || !finite(top) || knee >= top {
+		return bad("derating", "knee %g °C must be below the zero-power temperature %g °C", knee, top)
+	}
+	return nil
+}
+
 func (r ResistorSpec) derating() (knee_C, max_C float64) {
 	knee_C, max_C = r.Knee_C, r.Max_C
 	if knee_C == 0 {

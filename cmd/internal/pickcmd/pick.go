@@ -181,15 +181,17 @@ func Run(ctx context.Context, o *Options) error {
 	return nil
 }
 
-// pickError wraps a search error; a bad request is a usage error (exit 2).
+// pickError wraps a search error by its cause: a request the picker
+// refuses is a usage error (exit 2); anything else — a kind of part
+// missing from the stock, stock data the solver refuses — means the job
+// could not be done (exit 1).
 func pickError(err error) error {
-	var in *solver.InputError
 	var pin *picker.InputError
 	var gap *job.StockGapError
 	switch {
 	case errors.As(err, &gap):
 		return stockGap(gap)
-	case errors.As(err, &in) || errors.As(err, &pin):
+	case errors.As(err, &pin):
 		return &cmdutil.UsageError{Err: fmt.Errorf("pick: %w", err)}
 	}
 	return fmt.Errorf("pick: %w", err)

@@ -19,7 +19,14 @@ func New(f *cmdutil.Factory) *cobra.Command {
 		Long: `biasbin keeps a parts stock in a local SQLite file, searches stocked
 resistors (singles and series/parallel pairs) and transistors for bias
 builds, solves each build's operating point exactly over hFE spread,
-tolerance, supply and temperature, and ranks the builds.`,
+tolerance, supply and temperature, and ranks the builds.
+
+Exit status, the same for every command:
+  0  the job is done
+  1  the job could not be done: nothing fits, a stock line holds data the
+     math refuses (the message names the line and the field), a file
+     cannot be read or written, the stock file is missing
+  2  a usage error: a flag or argument is wrong (the message names it)`,
 		Version:       Version,
 		SilenceUsage:  true,
 		SilenceErrors: true,

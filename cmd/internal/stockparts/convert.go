@@ -9,6 +9,8 @@ import (
 	"fmt"
 
 	"biasbin/picker"
+	"biasbin/solver"
+	"biasbin/solver/notation"
 	"biasbin/store"
 )
 
@@ -29,14 +31,19 @@ func Read(ctx context.Context, db *store.DB) (picker.Stock, error) {
 // picker searches. Zero optional fields take the store's documented
 // defaults (knee, zero-power temperature, the technology's TCR, VBE(on),
 // Tj max), so the picker sees every rating it needs. A transistor line with
-// an unknown polarity is an error naming the line.
+// data the solver refuses (a 60 % tolerance, an unknown polarity) is a
+// *LineError naming the line and the field.
 func Stock(rs []store.Resistor, ts []store.Transistor) (picker.Stock, error) {
 	st := picker.Stock{
 		Resistors:   make([]picker.Resistor, 0, len(rs)),
 		Transistors: make([]picker.Transistor, 0, len(ts)),
 	}
 	for _, r := range rs {
-		st.Resistors = append(st.Resistors, Resistor(r))
+		pr, err := Resistor(r)
+		if err != nil {
+			return picker.Stock{}, err
+		}
+		st.Resistors = append(st.Resistors, pr)
 	}
 	for _, t := range ts {
 		pt, err := Transistor(t)
@@ -49,9 +56,14 @@ func Stock(rs []store.Resistor, ts []store.Transistor) (picker.Stock, error) {
 }
 
 // Resistor converts one resistor line, with the store's defaults filled
-// in for any rating the line leaves zero.
-func Resistor(r store.Resistor) picker.Resistor {
+// in for any rating the line leaves zero; data the solver refuses is a
+// *LineError.
+func Resistor(r store.Resistor) (picker.Resistor, error) {
 	r = r.WithDefaults()
+	spec := solver.ResistorSpec{Nominal_Ohm: r.Ohm, Tol: r.Tol, TCR_PPMPerK: r.TCR_PPMPerK, Rated_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C}
+	if err := spec.Validate(); err != nil {
+		return picker.Resistor{}, lineError(store.KindResistor, r.ID, notation.FormatResistance(r.Ohm), r.Bin, err)
+	}
 	return picker.Resistor{
 		ID:          r.ID,
 		Ohm:         r.Ohm,
@@ -63,7 +75,7 @@ func Resistor(r store.Resistor) picker.Resistor {
 		Qty:         r.Qty,
 		Bin:         r.Bin,
 		Tags:        r.Tags,
-	}
+	}, nil
 }
 
 // Transistor converts one transistor line (Sheet fills the datasheet with

@@ -1,6 +1,8 @@
 package stockparts
 
 import (
+	"errors"
+	"fmt"
 	"strings"
 	"testing"
 
@@ -65,9 +67,32 @@ func TestToStock(t *testing.T) {
 	}
 }
 
-func TestToStockBadPolarity(t *testing.T) {
-	_, err := Stock(nil, []store.Transistor{{ID: 5, Label: "QX-1", Polarity: "fet", HFEMin: 1, HFEMax: 2}})
-	if err == nil || !strings.Contains(err.Error(), "stock line 5 (QX-1)") {
-		t.Fatalf("err = %v, want one naming stock line 5 (QX-1)", err)
+// TestBadStockLines: a line whose data the solver refuses is a
+// *LineError naming the line and the field; the solver's accepted ranges
+// are the reference (tolerance below 50 %, npn or pnp, hFE max not below
+// hFE min).
+func TestBadStockLines(t *testing.T) {
+	tests := []struct {
+		name  string
+		rs    []store.Resistor
+		ts    []store.Transistor
+		id    int64
+		field string
+	}{
+		{"polarity", nil, []store.Transistor{{ID: 5, Label: "QX-1", Polarity: "fet", HFEMin: 1, HFEMax: 2}}, 5, "polarity"},
+		{"hFE reversed", nil, []store.Transistor{{ID: 6, Label: "QX-2", Polarity: "npn", HFEMin: 300, HFEMax: 100}}, 6, "hfe_max"},
+		{"60 % tolerance", []store.Resistor{{ID: 7, Ohm: 4700, Tol: 0.6, Rated_W: 0.25, Qty: 3}}, nil, 7, "tolerance"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			_, err := Stock(tt.rs, tt.ts)
+			var le *LineError
+			if !errors.As(err, &le) || le.ID != tt.id || le.Field != tt.field {
+				t.Fatalf("err = %v, want a LineError for line %d, field %s", err, tt.id, tt.field)
+			}
+			if !strings.Contains(err.Error(), fmt.Sprintf("stock line #%d", tt.id)) {
+				t.Errorf("message %q does not name the line", err)
+			}
+		})
 	}
 }

@@ -1,22 +1,21 @@
 package stockparts
 
 import (
-	"fmt"
-
 	"biasbin/solver"
 	"biasbin/store"
 )
 
 // Sheet converts a stock transistor line into the datasheet the solver
 // models, with the store's defaults filled in for the fields the line
-// leaves zero (the solver shares the zero-means-default convention).
+// leaves zero (the solver shares the zero-means-default convention). Data
+// the solver refuses is a *LineError naming the line and the field.
 func Sheet(t store.Transistor) (solver.Datasheet, error) {
 	t = t.WithDefaults()
 	pol, err := solver.ParsePolarity(t.Polarity)
 	if err != nil {
-		return solver.Datasheet{}, fmt.Errorf("stock line %d (%s): %w", t.ID, t.Label, err)
+		return solver.Datasheet{}, lineError(store.KindTransistor, t.ID, t.Label, t.Bin, &solver.InputError{Field: "polarity", Problem: err.Error()})
 	}
-	return solver.Datasheet{
+	d := solver.Datasheet{
 		Label:         t.Label,
 		Polarity:      pol,
 		HFEMin:        t.HFEMin,
@@ -33,5 +32,9 @@ func Sheet(t store.Transistor) (solver.Datasheet, error) {
 		TjMax_C:       t.TjMax_C,
 		VAF_V:         t.VAF_V,
 		ICBO_A:        t.ICBO_A,
-	}, nil
+	}
+	if err := d.Validate(); err != nil {
+		return solver.Datasheet{}, lineError(store.KindTransistor, t.ID, t.Label, t.Bin, err)
+	}
+	return d, nil
 }
