@@ -16,10 +16,6 @@ type CheckRequest struct {
 	// Boards and Seed size and seed the Monte Carlo yield.
 	Boards int
 	Seed   uint64
-	// KeepBoards keeps every Monte Carlo board's Q-points in
-	// Analysis.Yield.Samples (for pictures of the spread); it changes no
-	// figure.
-	KeepBoards bool
 	// Limits are the design limits; the zero value means the solver's
 	// documented defaults.
 	Limits solver.Limits

@@ -21,13 +21,17 @@ type IOStreams struct {
 }
 
 // System returns the process's own streams.
-func System() *IOStreams {
+func System() *IOStreams { return Files(os.Stdin, os.Stdout, os.Stderr) }
+
+// Files returns streams over open files, each output marked a terminal
+// only when it is one (a pipe or a regular file is not).
+func Files(in, out, errOut *os.File) *IOStreams {
 	return &IOStreams{
-		In:     os.Stdin,
-		Out:    os.Stdout,
-		ErrOut: os.Stderr,
-		outTTY: term.IsTerminal(int(os.Stdout.Fd())),
-		errTTY: term.IsTerminal(int(os.Stderr.Fd())),
+		In:     in,
+		Out:    out,
+		ErrOut: errOut,
+		outTTY: term.IsTerminal(int(out.Fd())),
+		errTTY: term.IsTerminal(int(errOut.Fd())),
 	}
 }
 
@@ -36,7 +40,8 @@ func Test(in io.Reader, out, errOut io.Writer) *IOStreams {
 	return &IOStreams{In: in, Out: out, ErrOut: errOut}
 }
 
-// IsStdoutTTY reports whether Out is a terminal.
+// IsStdoutTTY reports whether Out is a terminal (text output may then
+// mark what must not be missed in bold).
 func (s *IOStreams) IsStdoutTTY() bool { return s.outTTY }
 
 // IsStderrTTY reports whether ErrOut is a terminal (progress indicators

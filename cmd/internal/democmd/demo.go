@@ -95,7 +95,7 @@ func Run(ctx context.Context, o *Options) error {
 	}
 	var first *job.PickOutcome
 	for i, sc := range scenarios() {
-		out, err := runScenario(w, stock, i+1, sc)
+		out, err := runScenario(w, pickcmd.StyleFor(o.IO), stock, i+1, sc)
 		if err != nil {
 			return err
 		}
@@ -173,7 +173,7 @@ func load(ctx context.Context, w io.Writer, path string) error {
 // runScenario narrates one pick and runs it as biasbin pick does, through
 // the same application layer and the same text renderer, with its notes
 // on the same stream so the story reads in order.
-func runScenario(w io.Writer, stock picker.Stock, n int, sc scenario) (*job.PickOutcome, error) {
+func runScenario(w io.Writer, st pickcmd.Style, stock picker.Stock, n int, sc scenario) (*job.PickOutcome, error) {
 	fmt.Fprintf(w, "\n=== Pick %d: %s\n", n, sc.title)
 	fmt.Fprintln(w, sc.story)
 	fmt.Fprintf(w, "$ biasbin pick %s\n\n", strings.Join(sc.args, " "))
@@ -181,7 +181,7 @@ func runScenario(w io.Writer, stock picker.Stock, n int, sc scenario) (*job.Pick
 	if err != nil {
 		return nil, fmt.Errorf("demo pick %d: %w", n, err)
 	}
-	pickcmd.WriteText(w, out)
+	pickcmd.WriteText(w, out, st)
 	pickcmd.WriteNotes(w, out)
 	switch {
 	case out.Fits && sc.nothingFits:

@@ -28,7 +28,7 @@ func render(v *job.PickOutcome, asJSON bool) (stdout, stderr string) {
 			panic(err)
 		}
 	} else {
-		WriteText(&out, v)
+		WriteText(&out, v, Style{})
 	}
 	WriteNotes(&errOut, v)
 	return out.String(), errOut.String()
@@ -138,5 +138,24 @@ func TestOutputContent(t *testing.T) {
 	}
 	if tr := c["transistor"].(map[string]any); tr["label"] != "QN-104A" || tr["id"].(float64) != 10 {
 		t.Errorf("transistor = %v", tr)
+	}
+}
+
+// TestStyleMarksOnlyOnATerminal: with a terminal's style the broken limit
+// and the short stock line are in bold (ECMA-48 SGR 1 ... SGR 0); the plain
+// style writes the same words without any escape sequence.
+func TestStyleMarksOnlyOnATerminal(t *testing.T) {
+	v := outcome(fakeRequest(), picker.Result{Candidates: []picker.Candidate{
+		fakeCandidate(1), fakeCandidate(2, picker.Failure{Kind: picker.FailICMax, IC_A: 0.2, ICMax_A: 0.1})}}, 0, picker.Result{})
+	var bold, plain bytes.Buffer
+	WriteText(&bold, v, Style{Bold: true})
+	WriteText(&plain, v, Style{})
+	for _, want := range []string{"\x1b[1mFAILS:\x1b[0m", "\x1b[1mSHORT by 1\x1b[0m"} {
+		if !strings.Contains(bold.String(), want) {
+			t.Errorf("terminal output lacks %q:\n%s", want, bold.String())
+		}
+	}
+	if strings.Contains(plain.String(), "\x1b") || !strings.Contains(plain.String(), "FAILS:") || !strings.Contains(plain.String(), "SHORT by 1") {
+		t.Errorf("plain output:\n%s", plain.String())
 	}
 }

@@ -167,7 +167,7 @@ func Run(ctx context.Context, o *Options) error {
 			return fmt.Errorf("write JSON: %w", err)
 		}
 	} else {
-		WriteText(o.IO.Out, out)
+		WriteText(o.IO.Out, out, StyleFor(o.IO))
 	}
 	WriteNotes(o.IO.ErrOut, out)
 	if pic != nil {
@@ -226,7 +226,7 @@ func stockGap(g *job.StockGapError) error {
 // pull list of the best build that fits. When nothing fits the builds shown
 // are the nearest ones: each with the limit it breaks, or, when the stock
 // runs short for the run, the best builds for the boards it does supply.
-func WriteText(w io.Writer, v *job.PickOutcome) {
+func WriteText(w io.Writer, v *job.PickOutcome, st Style) {
 	writeHeader(w, v)
 	if len(v.Builds) == 0 {
 		fmt.Fprintln(w, "\nno build to show")
@@ -240,11 +240,11 @@ func WriteText(w io.Writer, v *job.PickOutcome) {
 		fmt.Fprintln(w, "\nNothing fits. The nearest builds, each with the limit it breaks:")
 	}
 	for _, b := range v.Builds {
-		writeCandidate(w, b)
+		writeCandidate(w, b, st)
 	}
 	for _, b := range v.Builds {
 		if b.Fits() {
-			writePullList(w, v, b)
+			writePullList(w, v, b, st)
 			break
 		}
 	}

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/report"
 	"biasbin/picker/job"
 	"biasbin/solver"
@@ -50,10 +51,10 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 
 // writeCandidate writes one build as a block: what to pull, the Q-point,
 // the worst-case band, the test points, yield and the score terms.
-func writeCandidate(w io.Writer, c job.Build) {
+func writeCandidate(w io.Writer, c job.Build, st Style) {
 	fmt.Fprintf(w, "\n#%d  %s  score %.3f  (id %s)\n", c.Rank, c.Transistor.Sheet.Label, c.Score, c.ID)
 	for _, why := range c.Failing {
-		fmt.Fprintf(w, "    FAILS: %s\n", report.Failure(why))
+		fmt.Fprintf(w, "    %s %s\n", st.mark("FAILS:"), report.Failure(why))
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (bin, stock line)\n")
@@ -74,7 +75,7 @@ func writeCandidate(w io.Writer, c job.Build) {
 		quantity(n.IC_A, "A"), quantity(n.VCE_V, "V"), quantity(n.IB_A, "A"), betaAt(n), notation.FormatTemperature(n.Tj_C))
 	active := "every corner active"
 	if !c.Worst.AllActive {
-		active = "NOT every corner active"
+		active = st.mark("NOT every corner active")
 	}
 	fmt.Fprintf(w, "    worst     IC %s..%s  VCE %s..%s  (%s)\n",
 		quantity(c.Worst.ICMin_A, "A"), quantity(c.Worst.ICMax_A, "A"),
@@ -101,14 +102,14 @@ func writeCandidate(w io.Writer, c job.Build) {
 
 // writePullList writes the best build's parts for the whole run, one line
 // per stock line, with what each bin holds.
-func writePullList(w io.Writer, v *job.PickOutcome, c job.Build) {
+func writePullList(w io.Writer, v *job.PickOutcome, c job.Build, st Style) {
 	fmt.Fprintf(w, "\nPull list for #%d, %d board%s:\n", c.Rank, v.Boards, plural(v.Boards))
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "    bin\tline\tpart\ttake\ton hand\n")
 	for _, p := range c.Pull {
 		short := ""
 		if p.Missing() > 0 {
-			short = fmt.Sprintf("  SHORT by %d", p.Missing())
+			short = "  " + st.mark(fmt.Sprintf("SHORT by %d", p.Missing()))
 		}
 		fmt.Fprintf(tw, "    %s\t#%d\t%s\t%d\t%d%s\n", binName(p.Bin), p.ID, pullValue(p), p.Qty, p.OnHand, short)
 	}
@@ -136,4 +137,24 @@ func plural(n int) string {
 		return ""
 	}
 	return "s"
+}
+
+// Style says how the text output may mark what a technician must not
+// miss (a broken limit, a short stock line): in bold on a terminal, plain
+// when the output goes to a pipe or a file.
+type Style struct {
+	// Bold is true only when the output is a terminal.
+	Bold bool
+}
+
+// StyleFor is the style for streams: bold only when stdout is a terminal.
+func StyleFor(io *cmdutil.IOStreams) Style { return Style{Bold: io.IsStdoutTTY()} }
+
+// mark returns text in bold (ECMA-48 SGR 1, then SGR 0) when the style
+// allows it, else as it is.
+func (s Style) mark(text string) string {
+	if !s.Bold {
+		return text
+	}
+	return "\x1b[1m" + text + "\x1b[0m"
 }
