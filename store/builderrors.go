@@ -62,6 +62,9 @@ type BuildStateError struct {
 }
 
 func (e *BuildStateError) Error() string {
+	if e.State == BuildCancelled && e.Want != BuildClosed && e.Want != BuildCancelled {
+		return fmt.Sprintf("build %d is cancelled: its parts went back to stock, so it cannot be %s", e.Build, e.Want)
+	}
 	return fmt.Sprintf("build %d is %s already; only an open build can be %s", e.Build, e.State, e.Want)
 }
 

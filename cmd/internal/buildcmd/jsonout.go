@@ -4,6 +4,7 @@ import (
 	"time"
 
 	"biasbin/cmd/internal/buildjob"
+	"biasbin/picker/job"
 	"biasbin/store"
 )
 
@@ -47,6 +48,30 @@ type jsonShow struct {
 	Boards     []jsonBoard        `json:"boards"`
 	Stage      map[string]float64 `json:"stage_ohms"`
 	Transistor string             `json:"transistor"`
+	Cautions   []jsonCaution      `json:"cautions"`
+}
+
+// jsonCaution is one hazard of the build: kind "supply" (value_v, limit_v)
+// or "hot-part" (utilization of the design limit).
+type jsonCaution struct {
+	Kind        string  `json:"kind"`
+	Value_V     float64 `json:"value_v,omitempty"`
+	Limit_V     float64 `json:"limit_v,omitempty"`
+	Utilization float64 `json:"utilization,omitempty"`
+}
+
+// cautionsJSON lists a build's cautions for --json.
+func cautionsJSON(cs []job.Caution) []jsonCaution {
+	out := []jsonCaution{}
+	for _, c := range cs {
+		switch c.Kind {
+		case job.CautionSupply:
+			out = append(out, jsonCaution{Kind: "supply", Value_V: c.Value, Limit_V: c.Limit})
+		case job.CautionHotPart:
+			out = append(out, jsonCaution{Kind: "hot-part", Utilization: c.Utilization})
+		}
+	}
+	return out
 }
 
 // jsonRequest is what the build was picked for, SI.
@@ -102,7 +127,8 @@ func showJSON(v buildjob.View) jsonShow {
 			VCE_V: r.VCE_V, AmbientMin_C: p.Build.AmbientMin_C, AmbientMax_C: p.Build.AmbientMax_C, Boards: max(1, r.Boards),
 			Pairs: r.Pairs, RequireTags: r.RequireTags, Load_Ohm: r.RL_Ohm, Bypass: r.Bypass},
 		Figures: p.Figures,
-		Bands:   p.Bands, Parts: []jsonPart{}, Stage: map[string]float64{}, Transistor: p.Build.Device.Label}
+		Bands:   p.Bands, Parts: []jsonPart{}, Stage: map[string]float64{}, Transistor: p.Build.Device.Label,
+		Cautions: cautionsJSON(p.Cautions)}
 	for _, s := range p.Slots {
 		out.Stage[s.Slot] = s.Ohm
 	}

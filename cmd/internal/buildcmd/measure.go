@@ -96,6 +96,10 @@ func runMeasure(ctx context.Context, o *MeasureOptions) error {
 	}
 	rd, err := buildjob.Measure(ctx, db, o.ID, o.Board, o.Readings)
 	var re *fault.ReadingError
+	var be *buildjob.BoardError
+	if errors.As(err, &be) {
+		return cmdutil.Usagef("--board %d: %v; nothing was recorded", o.Board, be)
+	}
 	if errors.As(err, &re) {
 		return cmdutil.Usagef("build %d board %d: --%s: %s; nothing was recorded", o.ID, o.Board, re.Reading, re.Problem)
 	}

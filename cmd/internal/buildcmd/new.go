@@ -91,6 +91,7 @@ func WriteReserved(w io.Writer, res buildjob.Reserved) {
 			changedLines(res.Changes))
 	}
 	writeParts(w, res.Build)
+	writeCautions(w, "", res.Build.Plan.Cautions)
 	fmt.Fprintf(w, "next: biasbin build sheet %d   (pull list and test points)\n", res.Build.ID)
 }
 

@@ -87,6 +87,10 @@ func writeSheetMD(w io.Writer, v buildjob.View) {
 	if v.Note != "" {
 		fmt.Fprintf(w, "Note: %s\n", mdCell(v.Note))
 	}
+	if len(v.Plan.Cautions) > 0 {
+		fmt.Fprintln(w)
+		writeCautions(w, "- ", v.Plan.Cautions)
+	}
 	fmt.Fprintln(w, "\n## Pull list, by bin\n\n| Bin | Line | Part | Per board | Pull |\n|---|---:|---|---:|---:|")
 	for _, part := range v.Parts {
 		fmt.Fprintf(w, "| %s | %d | %s | %d | %d |\n", mdCell(binName(part.Bin)), part.Line, mdCell(partName(part)),

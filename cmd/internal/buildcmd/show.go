@@ -92,6 +92,7 @@ func writeShow(w io.Writer, v buildjob.View) {
 		stage = append(stage, fmt.Sprintf("%s %s%s", strings.ToUpper(s.Slot), notation.FormatResistance(s.Ohm), arr))
 	}
 	fmt.Fprintf(w, "stage: %s, transistor %s\n", strings.Join(stage, ", "), p.Build.Device.Label)
+	writeCautions(w, "", p.Cautions)
 	fmt.Fprintln(w, "\nparts by bin:")
 	writeParts(w, v)
 	fmt.Fprintln(w, "\ntest points per board, to ground (band: worst case over hFE spread, tolerances, supply, ambient):")

@@ -13,7 +13,14 @@ import (
 func KeepPick(ctx context.Context, db *store.DB, out *job.PickOutcome, stock picker.Stock) error {
 	kept := make([]store.KeptPick, 0, len(out.Builds))
 	for _, b := range out.Builds {
-		enc, err := PlanFor(b.Candidate, out.Request, stock).encode()
+		p := PlanFor(b.Candidate, out.Request, stock)
+		for _, c := range out.Cautions {
+			if c.Build == 0 || c.Build == b.Rank {
+				c.Build = 0
+				p.Cautions = append(p.Cautions, c)
+			}
+		}
+		enc, err := p.encode()
 		if err != nil {
 			return err
 		}

@@ -57,6 +57,16 @@ type Reading struct {
 	Causes    []Cause
 }
 
+// BoardError means a board number the build does not have.
+type BoardError struct {
+	Build         int64
+	Board, Boards int
+}
+
+func (e *BoardError) Error() string {
+	return fmt.Sprintf("build %d has boards 1 to %d, not %d", e.Build, e.Boards, e.Board)
+}
+
 // readingDetail is what a board's record keeps beside the readings.
 type readingDetail struct {
 	InBand    [3]bool `json:"in_band"`
@@ -74,6 +84,12 @@ func Measure(ctx context.Context, db *store.DB, id int64, board int, r fault.Rea
 	b, err := db.Build(ctx, id)
 	if err != nil {
 		return Reading{}, err
+	}
+	if board < 1 || board > b.Boards {
+		return Reading{}, &BoardError{Build: id, Board: board, Boards: b.Boards}
+	}
+	if b.State == store.BuildCancelled {
+		return Reading{}, &store.BuildStateError{Build: id, State: b.State, Want: "measured"}
 	}
 	p, err := decodePlan(b.Plan)
 	if err != nil {

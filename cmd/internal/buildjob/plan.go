@@ -35,6 +35,9 @@ type Plan struct {
 	Lines   []LineSnapshot `json:"lines"`
 	Figures Figures        `json:"figures"`
 	Bands   Bands          `json:"bands"`
+	// Cautions are the pick's hazards that concern this build: a supply
+	// above the extra-low-voltage boundary, a part near its design limit.
+	Cautions []job.Caution `json:"cautions,omitempty"`
 }
 
 // SlotUse is what fills one resistor position.

@@ -100,7 +100,9 @@ func Reserve(ctx context.Context, db *store.DB, o Order) (Reserved, error) {
 			refused.Failing = c.Failing
 			return Reserved{}, refused
 		}
+		cautions := p.Cautions
 		p = PlanFor(c, p.Request, now)
+		p.Cautions = cautions
 	} else if len(p.Figures.Failing) > 0 {
 		refused.Failing = p.Figures.Failing
 		return Reserved{}, refused

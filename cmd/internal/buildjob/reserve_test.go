@@ -10,6 +10,7 @@ import (
 	"biasbin/picker"
 	"biasbin/picker/job"
 	"biasbin/solver"
+	"biasbin/solver/fault"
 	"biasbin/store"
 )
 
@@ -180,6 +181,93 @@ func assertSame(t *testing.T, before, after map[int64]int) {
 	for id, q := range before {
 		if after[id] != q {
 			t.Errorf("line %d changed %d -> %d on a refusal", id, q, after[id])
+		}
+	}
+}
+
+// TestMeasureRefusals: a board the build does not have, readings beyond
+// the rails and a cancelled build are refused and nothing is recorded.
+func TestMeasureRefusals(t *testing.T) {
+	db, c := seed(t)
+	ctx := context.Background()
+	res, err := Reserve(ctx, db, Order{Candidate: c.ID, Boards: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	id := res.Build.ID
+	var be *BoardError
+	if _, err := Measure(ctx, db, id, 3, fault.Readings{VB_V: 2, VE_V: 1.4, VC_V: 7}); !errors.As(err, &be) {
+		t.Errorf("board 3 of 2: %v", err)
+	}
+	var re *fault.ReadingError
+	if _, err := Measure(ctx, db, id, 1, fault.Readings{VB_V: 2, VE_V: 1.4, VC_V: 30}); !errors.As(err, &re) || re.Reading != "vc" {
+		t.Errorf("VC above a 12 V rail: %v", err)
+	}
+	if err := Cancel(ctx, db, id); err != nil {
+		t.Fatal(err)
+	}
+	if _, err := Measure(ctx, db, id, 1, fault.Readings{VB_V: 2, VE_V: 1.4, VC_V: 7}); !errors.Is(err, store.ErrBuildState) {
+		t.Errorf("cancelled build: %v", err)
+	}
+	if v, _ := Show(ctx, db, id); len(v.Readings) != 0 {
+		t.Errorf("recorded %+v", v.Readings)
+	}
+}
+
+// TestFailingBuildIsRefused: a build the pick listed although it breaks a
+// hard limit (--show-failing) is not taken.
+func TestFailingBuildIsRefused(t *testing.T) {
+	db, c := seed(t)
+	ctx := context.Background()
+	kept, err := db.Pick(ctx, c.ID)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := decodePlan(kept.Plan)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p.Figures.Failing = []picker.Failure{{Kind: picker.FailCorners, NotActive: 3, Corners: 64}}
+	enc, _ := p.encode()
+	if err := db.KeepPicks(ctx, []store.KeptPick{{Candidate: c.ID, Plan: enc}}); err != nil {
+		t.Fatal(err)
+	}
+	before := qtys(t, db)
+	_, err = Reserve(ctx, db, Order{Candidate: c.ID, Boards: 1})
+	var re *RefusedError
+	if !errors.As(err, &re) || len(re.Failing) != 1 || len(re.Changes) != 0 {
+		t.Fatalf("error %v", err)
+	}
+	assertSame(t, before, qtys(t, db))
+}
+
+// TestKeptCautionsFollowTheirBuild: a pick's supply caution goes with every
+// build it keeps, a hot-part caution only with the build it names.
+func TestKeptCautionsFollowTheirBuild(t *testing.T) {
+	db, _ := seed(t)
+	ctx := context.Background()
+	st, err := stockparts.Read(ctx, db)
+	if err != nil {
+		t.Fatal(err)
+	}
+	req := picker.Request{Polarity: solver.NPN, VCC_V: 12, VCCTol: 0.05, IC_A: 1e-3, Top: 2, Seed: 1}
+	out, err := job.Pick(st, req, picker.Pick)
+	if err != nil || len(out.Builds) < 2 {
+		t.Fatalf("pick: %v", err)
+	}
+	out.Cautions = []job.Caution{{Kind: job.CautionSupply, Value: 63, Limit: 50},
+		{Kind: job.CautionHotPart, Build: out.Builds[1].Rank, Utilization: 0.9}}
+	if err := KeepPick(ctx, db, out, st); err != nil {
+		t.Fatal(err)
+	}
+	for i, want := range []int{1, 2} {
+		kept, err := db.Pick(ctx, out.Builds[i].ID)
+		if err != nil {
+			t.Fatal(err)
+		}
+		p, err := decodePlan(kept.Plan)
+		if err != nil || len(p.Cautions) != want || p.Cautions[0].Kind != job.CautionSupply {
+			t.Errorf("build %d: cautions %+v, want %d (%v)", i+1, p.Cautions, want, err)
 		}
 	}
 }
