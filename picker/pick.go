@@ -98,11 +98,16 @@ func sign64(v int64) int64 {
 }
 
 // combinations is the number of builds the search covers: devices times
-// the values per position to the power of the positions.
+// the values per position to the power of the positions, saturating at
+// math.MaxInt64 (a large stock covers more than that).
 func (e *evaluator) combinations() int64 {
 	c := int64(len(e.devs))
+	n := int64(len(e.vs.values))
 	for range e.lay.n {
-		c *= int64(len(e.vs.values))
+		if n != 0 && c > math.MaxInt64/n {
+			return math.MaxInt64
+		}
+		c *= n
 	}
 	return c
 }

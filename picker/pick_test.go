@@ -322,9 +322,9 @@ func TestOverloadedEverywhere(t *testing.T) {
 // TestShowFailing: failing builds are listed only on request and never
 // above a passing one; the progress callback reaches the total.
 func TestShowFailing(t *testing.T) {
-	st := Stock{Resistors: seriesStock(eseries.E3, 100, 100e3, 0.05, 0.002, 20, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	st := Stock{Resistors: seriesStock(eseries.E3, 100, 100e3, 0.2, 0.002, 20, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
 	var last, total int64
-	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 300, Finalists: 300, YieldBoards: 20, ShowFailing: true,
+	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 50, Finalists: 105, YieldBoards: 20, ShowFailing: true,
 		Progress: func(done, all int64) { last, total = done, all }}
 	res, err := Pick(st, req)
 	if err != nil {

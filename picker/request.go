@@ -42,9 +42,6 @@ const (
 	// CurrentDerating is the share of IC max the target current may use
 	// (50 %, common practice), leaving room for the worst-case spread.
 	CurrentDerating = 0.5
-	// maxIC_A bounds the target current: a small-signal bias picker has no
-	// business above 10 A.
-	maxIC_A = 10.0
 )
 
 // DefaultWeights returns the ranking weights used when Request.Weights is
@@ -96,6 +93,15 @@ type settings struct {
 	rl          float64
 }
 
+// CheckRequest reports the first thing wrong with req (an *InputError or a
+// *solver.InputError naming the input and its accepted range), without
+// looking at any stock: Pick makes the same check, so a front end calls
+// this to refuse a bad request before it reads the stock.
+func CheckRequest(req Request) error {
+	_, err := normalize(req)
+	return err
+}
+
 // normalize validates req and fills its defaults.
 func normalize(req Request) (settings, error) {
 	s := settings{req: req}
@@ -129,6 +135,9 @@ func normalize(req Request) (settings, error) {
 			"%g V is the wrong sign for a %v stage", req.VCC_V, s.pol)
 	}
 	s.vcc = math.Abs(req.VCC_V)
+	if err := solver.SupplyRange.Check(s.vcc); err != nil {
+		return s, err
+	}
 	if !finite(req.VCCTol) || req.VCCTol < 0 || req.VCCTol >= 0.5 {
 		return s, inputErr("vcc_tol", "give a tolerance between 0 and 50 %", "%g is not a supply tolerance", req.VCCTol)
 	}
@@ -136,8 +145,8 @@ func normalize(req Request) (settings, error) {
 	if !finite(req.IC_A) || req.IC_A <= 0 {
 		return s, inputErr("ic", "give the target collector current, e.g. --ic 1mA", "%g A is not a collector current", req.IC_A)
 	}
-	if req.IC_A > maxIC_A {
-		return s, inputErr("ic", "lower --ic", "%g A is beyond any small-signal stage (limit %g A)", req.IC_A, maxIC_A)
+	if err := ICRange.Check(req.IC_A); err != nil {
+		return s, err
 	}
 	s.icT = req.IC_A
 	vceLow := s.vcc * (1 - s.vccTol)
@@ -175,12 +184,18 @@ func normalize(req Request) (settings, error) {
 	if s.boards == 0 {
 		s.boards = 1
 	}
+	if err := BoardsRange.Check(float64(s.boards)); err != nil {
+		return s, err
+	}
 	s.top = req.Top
 	if s.top < 0 {
 		return s, inputErr("top", "give a positive number of builds to show", "%d builds", s.top)
 	}
 	if s.top == 0 {
 		s.top = DefaultTop
+	}
+	if err := TopRange.Check(float64(s.top)); err != nil {
+		return s, err
 	}
 	s.pool = req.Finalists
 	if s.pool < 0 {
@@ -189,6 +204,9 @@ func normalize(req Request) (settings, error) {
 	if s.pool == 0 {
 		s.pool = defaultPool(s.top)
 	}
+	if err := FinalistsRange.Check(float64(s.pool)); err != nil {
+		return s, err
+	}
 	s.pool = max(s.pool, s.top)
 	s.yieldBoards = req.YieldBoards
 	if s.yieldBoards < 0 {
@@ -196,6 +214,9 @@ func normalize(req Request) (settings, error) {
 	}
 	if s.yieldBoards == 0 {
 		s.yieldBoards = DefaultYieldBoards
+	}
+	if err := solver.YieldBoardsRange.Check(float64(s.yieldBoards)); err != nil {
+		return s, err
 	}
 	s.w = req.Weights
 	if s.w == (Weights{}) {

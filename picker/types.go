@@ -139,7 +139,7 @@ type Shortfall struct {
 type Result struct {
 	Candidates []Candidate
 	Evaluated  int64 // builds fully evaluated
-	Considered int64 // combinations covered (evaluated or pruned)
+	Considered int64 // combinations covered (evaluated or pruned); math.MaxInt64 = at least that many
 	// Solved counts the nominal level tuples solved (each one exact
 	// self-heated operating point), the search's main cost.
 	Solved    int64

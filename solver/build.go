@@ -235,6 +235,14 @@ func (b Build) Validate() error {
 			return bad("vee", "%g V: an %s split-supply stage needs a %s emitter rail", b.VEE_V, d.Polarity, signWord(-sign))
 		}
 	}
+	if err := SupplyRange.Check(math.Abs(b.VCC_V)); err != nil {
+		return err
+	}
+	if b.Topology == SplitSupply {
+		if err := SupplyRange.named("vee").Check(math.Abs(b.VEE_V)); err != nil {
+			return err
+		}
+	}
 	if !finite(b.VCCTol) || b.VCCTol < 0 || b.VCCTol >= maxTol {
 		return bad("vcc_tol", "%g: want a fraction from 0 to %g", b.VCCTol, maxTol)
 	}
@@ -250,6 +258,9 @@ func (b Build) Validate() error {
 		if r.Nominal_Ohm == 0 {
 			continue
 		}
+		if err := ResistanceRange.named(name).Check(r.Nominal_Ohm); err != nil {
+			return err
+		}
 		if err := r.validateRatings(); err != nil {
 			err.Field = name + " " + err.Field
 			return err
@@ -264,8 +275,14 @@ func (b Build) Validate() error {
 	if err := d.Validate(); err != nil {
 		return err
 	}
-	if b.NominalBeta != 0 && (!finite(b.NominalBeta) || b.NominalBeta <= 0) {
-		return bad("beta", "%g: want a positive beta", b.NominalBeta)
+	if b.NominalBeta != 0 {
+		if err := HFERange.named("beta").Check(b.NominalBeta); err != nil {
+			return err
+		}
+	}
+	if low := math.Abs(b.VCC_V) * (1 - b.VCCTol); d.VCESat_V >= low {
+		return &InputError{Field: "vce_sat", Problem: fmt.Sprintf("VCE(sat) %.4g V is not below the lowest supply %.4g V: "+
+			"the transistor could never leave saturation", d.VCESat_V, low)}
 	}
 	if tjMax := tjMaxOf(d); tjMax <= TCRReference_C {
 		return bad("tj_max", "%g °C: want above 25 °C", tjMax)
@@ -306,6 +323,9 @@ func signWord(sign float64) string {
 func (r ResistorSpec) Validate() error {
 	if math.IsNaN(r.Nominal_Ohm) || math.IsInf(r.Nominal_Ohm, 0) || r.Nominal_Ohm <= 0 {
 		return &InputError{Field: "ohms", Problem: fmt.Sprintf("%g Ω: want a positive resistance", r.Nominal_Ohm)}
+	}
+	if err := ResistanceRange.named("ohms").Check(r.Nominal_Ohm); err != nil {
+		return err
 	}
 	if err := r.validateRatings(); err != nil {
 		return err

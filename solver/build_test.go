@@ -61,7 +61,17 @@ func TestBuildValidate(t *testing.T) {
 		{"ambient below -55 °C", func(b *Build) { b.AmbientMin_C = -60 }, "ambient"},
 		{"ambient above 150 °C", func(b *Build) { b.AmbientMax_C = 151 }, "ambient"},
 		{"ambient range reversed", func(b *Build) { b.AmbientMin_C, b.AmbientMax_C = 60, -10 }, "ambient"},
-		{"ambient at the junction limit", func(b *Build) { b.Device.TjMax_C = 50 }, "ambient"},
+		{"ambient at the junction limit", func(b *Build) { b.Device.TjMax_C, b.AmbientMax_C = 120, 130 }, "ambient"},
+		// Physically absurd values, each refused against its range in
+		// ranges.go (the reasons stand beside each range there).
+		{"supply 1e-300 V", func(b *Build) { b.VCC_V = 1e-300 }, "vcc"},
+		{"supply 1 GV", func(b *Build) { b.VCC_V = 1e9 }, "vcc"},
+		{"beta 1e12", func(b *Build) { b.NominalBeta = 1e12 }, "beta"},
+		{"ICBO 1 A", func(b *Build) { b.Device.ICBO_A = 1 }, "icbo"},
+		{"VCE(sat) above the supply", func(b *Build) { b.VCC_V, b.Device.VCESat_V = 3, 4.9 }, "vce_sat"},
+		{"hFE 1e-30", func(b *Build) { b.Device.HFEMin, b.Device.HFEMax, b.Device.HFETyp = 1e-30, 1e-30, 0 }, "hfe_min"},
+		{"Tj max 20 °C", func(b *Build) { b.Device.TjMax_C = 20 }, "tj_max"},
+		{"a 1e-30 Ω resistor", func(b *Build) { b.Resistors[RC].Nominal_Ohm = 1e-30 }, "rc"},
 		{"nominal ambient out of range", func(b *Build) { b.NominalAmbient_C = 200 }, "temp"},
 		{"negative nominal beta", func(b *Build) { b.NominalBeta = -1 }, "beta"},
 		{"supply tolerance 50 %", func(b *Build) { b.VCCTol = 0.5 }, "vcc_tol"},

@@ -132,8 +132,31 @@ func (d Datasheet) Validate() error {
 			return &InputError{Field: c.field, Problem: fmt.Sprintf("%g is negative; give the magnitude", c.v)}
 		}
 	}
-	if d.HFEMin <= 0 {
-		return &InputError{Field: "hfe_min", Problem: "must be > 0"}
+	for _, c := range []struct {
+		r Range
+		v float64
+	}{
+		{HFERange.named("hfe_min"), d.HFEMin}, {HFERange.named("hfe_max"), d.HFEMax},
+		{ICBORange, d.ICBO_A}, {VCESatRange, d.VCESat_V},
+	} {
+		if err := c.r.Check(c.v); err != nil {
+			return err
+		}
+	}
+	if d.HFETyp != 0 {
+		if err := HFERange.named("hfe_typ").Check(d.HFETyp); err != nil {
+			return err
+		}
+	}
+	if d.TjMax_C != 0 {
+		if err := TjMaxRange.Check(d.TjMax_C); err != nil {
+			return err
+		}
+	}
+	if d.VBEOn_V != 0 {
+		if err := JunctionVoltageRange.Check(d.VBEOn_V); err != nil {
+			return err
+		}
 	}
 	if d.HFEMax < d.HFEMin {
 		return &InputError{Field: "hfe_max", Problem: fmt.Sprintf("%g is below hfe_min %g", d.HFEMax, d.HFEMin)}
@@ -141,17 +164,11 @@ func (d Datasheet) Validate() error {
 	if d.HFETyp != 0 && (d.HFETyp < d.HFEMin || d.HFETyp > d.HFEMax) {
 		return &InputError{Field: "hfe_typ", Problem: fmt.Sprintf("%g is outside hfe_min..hfe_max %g..%g", d.HFETyp, d.HFEMin, d.HFEMax)}
 	}
-	if d.VBEOn_V != 0 && (d.VBEOn_V < 0.2 || d.VBEOn_V > 1.5) {
-		return &InputError{Field: "vbe_on", Problem: fmt.Sprintf("%g V is not a silicon junction voltage (want 0.2..1.5 V, 0 = %g V)", d.VBEOn_V, DefaultVBEOn_V)}
-	}
 	if d.VAF_V > 0 && d.VAF_V < minVAF_V {
 		return &InputError{Field: "vaf", Problem: fmt.Sprintf("%g V is not an Early voltage (want >= %g V, 0 = infinite)", d.VAF_V, minVAF_V)}
 	}
 	if err := d.validateRanges(); err != nil {
 		return err
-	}
-	if d.TjMax_C != 0 && d.TjMax_C > MaxTj_C {
-		return &InputError{Field: "tj_max", Problem: fmt.Sprintf("%g °C is above %g °C", d.TjMax_C, MaxTj_C)}
 	}
 	return nil
 }

@@ -87,8 +87,9 @@ func (d Datasheet) validateRanges() error {
 		return err
 	}
 	if d.VBEMin_V > 0 {
-		if d.VBEMin_V < 0.2 || d.VBEMax_V > 1.5 {
-			return &InputError{Field: "vbe_min", Problem: fmt.Sprintf("%g..%g V is not a silicon junction voltage range (want within 0.2..1.5 V)", d.VBEMin_V, d.VBEMax_V)}
+		if !JunctionVoltageRange.Contains(d.VBEMin_V) || !JunctionVoltageRange.Contains(d.VBEMax_V) {
+			return &InputError{Field: "vbe_min", Problem: fmt.Sprintf("%g..%g V is not a junction voltage range (want within %s: %s)",
+				d.VBEMin_V, d.VBEMax_V, JunctionVoltageRange.Span(), JunctionVoltageRange.Why), Range: &JunctionVoltageRange}
 		}
 		if d.VBEOn_V > 0 && (d.VBEOn_V < d.VBEMin_V || d.VBEOn_V > d.VBEMax_V) {
 			return &InputError{Field: "vbe_on", Problem: fmt.Sprintf("%g V is outside vbe_min..vbe_max %g..%g V", d.VBEOn_V, d.VBEMin_V, d.VBEMax_V)}

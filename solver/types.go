@@ -216,6 +216,8 @@ func ParseSlot(name string) (Slot, error) {
 type InputError struct {
 	Field   string
 	Problem string
+	// Range, when set, is the accepted range the value fell outside.
+	Range *Range
 }
 
 func (e *InputError) Error() string { return e.Field + ": " + e.Problem }

@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/report"
 	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/store"
@@ -125,7 +126,9 @@ pins it). Yield: --window IC,VCE where each part is ±percent around the
 nominal point (10%) or an absolute range (1.8mA..2.2mA, 4V..8V).
 
 Exit status: 0 when analysed (whatever the region), 1 when a corner or
-the nominal point cannot be solved, 2 for bad flags.`,
+the nominal point cannot be solved, 2 for bad flags.
+
+` + report.Ranges(solver.Ranges()),
 		Example: `  biasbin check --vcc 15V --r1 10K --r2 5K --rc 1K --re 1K --hfe 100..300
   biasbin check --vcc 12V --r1 47K --r2 10K --rc 2K2 --re 470R --transistor NPN-GP --json
   biasbin check --topology split-supply --vcc 15V --vee 15V --rb 10K --rc 10K --re 20K --hfe 100..300 --spice

@@ -194,7 +194,11 @@ func TestFlagErrors(t *testing.T) {
 		{"tolerance too wide", args("--tol", "60%"), "tol"},
 		{"zero power rating", args("--power", "0W"), "--power"},
 		{"vbe not a silicon junction", args("--vbe", "3V@1mA"), "--vbe"},
-		{"tj max above the ambient limit", args("--tj-max", "40", "--ambient", "0..50"), "--ambient"},
+		{"ambient up to tj max", args("--tj-max", "125", "--ambient", "0..130"), "--ambient"},
+		{"tj max 0 (refused, not read as the default)", args("--tj-max", "0"), "--tj-max"},
+		{"beta 1e12", args("--beta", "1e12"), "--beta"},
+		{"icbo 1 A", args("--icbo", "1A"), "--icbo"},
+		{"boards 0", args("--boards", "0"), "--boards"},
 		{"stray argument", args("extra"), "argument"},
 		{"unknown flag", args("--r7", "1K"), "r7"},
 	}

@@ -150,8 +150,8 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 	if in.Window, err = parseWindow(o.Window); err != nil {
 		return in, err
 	}
-	if o.Boards < 1 || o.Boards > maxBoards {
-		return in, usagef("boards", "%d: want 1 to %d", o.Boards, maxBoards)
+	if err := solver.YieldBoardsRange.Check(float64(o.Boards)); err != nil {
+		return in, buildError(err)
 	}
 	in.Boards, in.Seed = o.Boards, o.Seed
 
@@ -160,9 +160,6 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 	}
 	return in, nil
 }
-
-// maxBoards bounds --boards (a million boards take some seconds).
-const maxBoards = 1_000_000
 
 // buildError turns a solver input error into a usage error naming the flag.
 func buildError(err error) error {
@@ -200,6 +197,8 @@ func flagName(field string) string {
 		return "--" + f[0]
 	case "window":
 		return "--window"
+	case "yield_boards":
+		return "--boards"
 	}
 	if _, err := solver.ParseSlot(f[0]); err == nil {
 		if len(f) > 1 {
@@ -380,6 +379,12 @@ func (o *Options) inlineDevice(d solver.Datasheet) (solver.Datasheet, error) {
 			return d, usagef(f.flag, "%q: give the magnitude", f.text)
 		}
 		*f.dst = v
+	}
+	if o.TjMax != "" {
+		// 0 would read as "not given" below: a Tj max typed in is checked here.
+		if err := solver.TjMaxRange.Check(d.TjMax_C); err != nil {
+			return d, buildError(err)
+		}
 	}
 	if o.VBE != "" {
 		if d.VBEOn_V, d.VBEAt_A, _, err = notation.ParseAt(o.VBE, notation.ParseVoltage); err != nil {

@@ -77,7 +77,9 @@ number of boards, the best builds for the most boards it does supply, with
 the extra parts all boards would take.
 Bad flags exit 2. pick never changes the stock; it keeps the builds it lists
 in the stock file for 30 days, so that "biasbin build new ID --boards N"
-can take their parts out of stock later.`,
+can take their parts out of stock later.
+
+` + report.Ranges(append([]solver.Range{solver.SupplyRange}, picker.RequestRanges()...)),
 		Example: `  biasbin pick --vcc 12V --ic 2mA
   biasbin pick --vcc 9V --ic 500uA --polarity pnp --boards 20 --pairs
   biasbin pick --vcc 15V --ic 1mA --vce 6V --load 10K --bypass --weights q=2,yield=0.5 --json`,
@@ -130,6 +132,9 @@ func Run(ctx context.Context, o *Options) error {
 	req, err := o.request()
 	if err != nil {
 		return err
+	}
+	if err := picker.CheckRequest(req); err != nil {
+		return pickError(err)
 	}
 	pic, err := o.pictureOptions()
 	if err != nil {

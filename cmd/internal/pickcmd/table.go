@@ -3,6 +3,8 @@ package pickcmd
 import (
 	"fmt"
 	"io"
+	"math"
+	"strconv"
 	"strings"
 	"text/tabwriter"
 
@@ -46,7 +48,11 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 		mode = "exhaustive search"
 	}
 	st := v.Shown() // the search whose builds are shown
-	fmt.Fprintf(w, "%s: %d combinations covered, %d builds solved in full\n", mode, st.Considered, st.Evaluated)
+	covered := strconv.FormatInt(st.Considered, 10)
+	if st.Considered == math.MaxInt64 {
+		covered = "over 9.2e18"
+	}
+	fmt.Fprintf(w, "%s: %s combinations covered, %d builds solved in full\n", mode, covered, st.Evaluated)
 }
 
 // writeCandidate writes one build as a block: what to pull, the Q-point,

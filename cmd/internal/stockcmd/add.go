@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -193,13 +194,16 @@ func num(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 
 // usageProblems turns field problems into one usage error naming flags.
 func usageProblems(o *AddOptions, ps []stockcsv.Problem) error {
-	msgs := make([]string, len(ps))
-	for i, p := range ps {
+	var msgs []string
+	for _, p := range ps {
 		name := o.flagOf[p.Column]
 		if name == "" {
 			name = p.Column
 		}
-		msgs[i] = name + ": " + p.Msg
+		// hfe_min and hfe_max both come from --hfe: say a thing once.
+		if m := name + ": " + p.Msg; !slices.Contains(msgs, m) {
+			msgs = append(msgs, m)
+		}
 	}
 	return cmdutil.Usagef("%s", strings.Join(msgs, "\n"))
 }

@@ -1,11 +1,13 @@
 package stockcsv
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
 	"strings"
 
+	"biasbin/solver"
 	"biasbin/solver/notation"
 	"biasbin/store"
 )
@@ -93,6 +95,27 @@ func (p *parser) tags() []string {
 	return strings.Split(s, ";")
 }
 
+// inRange checks each given cell's value against the solver's accepted
+// range for it (solver.Ranges), the same ranges check and pick enforce.
+func (p *parser) inRange(checks []rangeCheck) {
+	for _, c := range checks {
+		if p.row[c.col] == "" || p.failed[c.col] {
+			continue
+		}
+		var ie *solver.InputError
+		if err := c.r.Check(c.v); errors.As(err, &ie) {
+			p.fail(c.col, ie.Problem)
+		}
+	}
+}
+
+// rangeCheck is one column's value and its accepted range.
+type rangeCheck struct {
+	col string
+	v   float64
+	r   solver.Range
+}
+
 // validate adds the store's problems for columns that read correctly.
 func (p *parser) validate(ps []store.Problem) {
 	for _, v := range ps {
@@ -159,6 +182,7 @@ func (p *parser) resistor() store.Resistor {
 	r.Max_C = p.value("max_c", false, notation.ParseTemperature)
 	r.Tags = p.tags()
 	r.Note = p.row["note"]
+	p.inRange([]rangeCheck{{"value", r.Ohm, solver.ResistanceRange}})
 	return r
 }
 
@@ -189,6 +213,10 @@ func (p *parser) transistor() store.Transistor {
 	t.Bin = p.row["bin"]
 	t.Tags = p.tags()
 	t.Note = p.row["note"]
+	p.inRange([]rangeCheck{{"hfe_min", t.HFEMin, solver.HFERange}, {"hfe_max", t.HFEMax, solver.HFERange},
+		{"hfe_typ", t.HFETyp, solver.HFERange}, {"icbo", t.ICBO_A, solver.ICBORange},
+		{"vce_sat", t.VCESat_V, solver.VCESatRange}, {"tj_max", t.TjMax_C, solver.TjMaxRange},
+		{"vbe", t.VBEOn_V, solver.JunctionVoltageRange}})
 	return t
 }
 
