@@ -15,11 +15,11 @@ var (
 	BoardsRange = solver.Range{Field: "boards", Quantity: "boards", Min: 1, Max: 1_000_000,
 		Why: "a million boards is past any parts wall, and keeps every count of parts exact"}
 	// TopRange bounds the builds shown.
-	TopRange = solver.Range{Field: "top", Quantity: "builds shown", Min: 1, Max: 50,
-		Why: "each shown build gets its own Monte Carlo yield, so time and memory grow with it; " +
-			"50 is more than anyone compares"}
+	TopRange = solver.Range{Field: "top", Quantity: "builds shown", Min: 1, Max: 256,
+		Why: "enough to rank every build of four stocked values (4⁴); each shown build gets its own " +
+			"Monte Carlo yield, so time and memory grow with it"}
 	// FinalistsRange bounds the pool given a Monte Carlo yield.
-	FinalistsRange = solver.Range{Field: "finalists", Quantity: "finalists", Min: 1, Max: 2*50 + 5,
+	FinalistsRange = solver.Range{Field: "finalists", Quantity: "finalists", Min: 1, Max: 2*256 + 5,
 		Why: "the default pool for the most builds shown (2·top + 5)"}
 )
 

@@ -134,7 +134,9 @@ func Run(ctx context.Context, o *Options) error {
 		return err
 	}
 	if err := picker.CheckRequest(req); err != nil {
-		return pickError(err)
+		// Only the request is looked at here: whatever is wrong, the
+		// flags are (exit 2).
+		return &cmdutil.UsageError{Err: fmt.Errorf("pick: %w", err)}
 	}
 	pic, err := o.pictureOptions()
 	if err != nil {

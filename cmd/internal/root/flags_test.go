@@ -64,7 +64,7 @@ func TestAbsurdRequestsAreRefused(t *testing.T) {
 		{"check a 1e-30 Ω resistor", append(check("--vcc", "12", "--hfe", "100..300"), "--rc", "1e-30"), "given twice"},
 		{"pick IC 1e-300", pick("--vcc", "12", "--ic", "1e-300"), "ic: target IC 1e-300 A is outside the accepted 100 nA..10 A"},
 		{"pick supply 1 GV", pick("--vcc", "1e9", "--ic", "1mA"), "vcc: supply voltage (magnitude) 1 GV is outside"},
-		{"pick --top 1e9", pick("--vcc", "12", "--ic", "1mA", "--top", "1000000000"), "top: builds shown 1e+09 is outside the accepted 1..50"},
+		{"pick --top 1e9", pick("--vcc", "12", "--ic", "1mA", "--top", "1000000000"), "top: builds shown 1e+09 is outside the accepted 1..256"},
 		{"pick --boards 2^63-1", pick("--vcc", "12", "--ic", "1mA", "--boards", "9223372036854775807"), "boards: boards 9.223e+18 is outside the accepted 1..1000000"},
 		{"pick --boards 1e12", pick("--vcc", "12", "--ic", "1mA", "--boards", "1000000000000"), "boards: boards 1e+12 is outside"},
 	} {
