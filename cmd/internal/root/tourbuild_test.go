@@ -125,6 +125,14 @@ func TestTourBuild(t *testing.T) {
 			t.Errorf("ledger entry %v", e)
 		}
 	}
+	var line struct {
+		Line int64 `json:"line"`
+	}
+	json.Unmarshal(show.Parts[0], &line)
+	if _, errOut, code = run(t, env, "stock", "remove", jsonNumber(float64(line.Line))); code != 1 ||
+		!strings.Contains(errOut, "held by open build 1") {
+		t.Errorf("remove a line the open build holds: exit %d: %s", code, errOut)
+	}
 	if _, errOut, code = run(t, env, "build", "close", "1"); code != 0 {
 		t.Fatalf("close: %s", errOut)
 	}
