@@ -24,7 +24,7 @@ func TestBenchPointsHold(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		e, _ := newEvaluator(s, mixedStock())
+		e, _ := newEvaluator(s, mixedStock(), s.topo)
 		rng := rand.New(rand.NewPCG(uint64(amb[0]+100), 5))
 		n := len(e.vs.levels)
 		for range 3000 {

@@ -1,9 +1,11 @@
 package picker
 
 import (
+	"fmt"
 	"testing"
 	"time"
 
+	"biasbin/solver"
 	"biasbin/solver/eseries"
 )
 
@@ -102,12 +104,45 @@ func BenchmarkBetaFloor(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	e, _ := newEvaluator(s, st)
+	e, _ := newEvaluator(s, st, s.topo)
 	w := betaWindow{RTH: 20e3, RTHMax: 20e3, RE: 1e3, RCMin: 4.7e3, RCMax: 4.7e3, ICLo: 0.95e-3, ICHi: 1.05e-3}
 	if e.betaFloor(&e.devs[0], w) <= 0 {
 		b.Fatal("no floor")
 	}
 	for b.Loop() {
 		e.betaFloor(&e.devs[0], w)
+	}
+}
+
+// BenchmarkTopologies: stocks as users have them — six transistor types,
+// E96 10 Ω–1 MΩ singles and E12 10 Ω–1 MΩ with pairs — for every
+// topology and --topology any, at IC 0.1, 1 and 10 mA on 12 V (split
+// supply −12 V), top 10 (goals: E96 singles under 300 ms, E12 with pairs
+// under 1 s per topology; any within the sum of the three).
+func BenchmarkTopologies(b *testing.B) {
+	stocks := []struct {
+		name  string
+		st    Stock
+		pairs bool
+	}{
+		{"E96", Stock{Resistors: seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}, false},
+		{"E12pairs", Stock{Resistors: seriesStock(eseries.E12, 10, 1e6, 0.05, 0.25, 100, 1000), Transistors: benchTransistors(6)}, true},
+	}
+	for _, sk := range stocks {
+		for _, topo := range []solver.Topology{solver.Divider, solver.CollectorFeedback, solver.SplitSupply, AnyTopology} {
+			for _, ic := range []float64{0.1e-3, 1e-3, 10e-3} {
+				name := fmt.Sprintf("%s/%v/%gmA", sk.name, topo, ic*1e3)
+				if topo == AnyTopology {
+					name = fmt.Sprintf("%s/any/%gmA", sk.name, ic*1e3)
+				}
+				b.Run(name, func(b *testing.B) {
+					req := Request{Topology: topo, VCC_V: 12, IC_A: ic, Top: 10, Pairs: sk.pairs}
+					if topo == solver.SplitSupply || topo == AnyTopology {
+						req.VEE_V = -12
+					}
+					benchPick(b, sk.st, req)
+				})
+			}
+		}
 	}
 }

@@ -66,7 +66,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	// VCE·IC ≤ IC(VCC − IC(RC + RE)) ≤ VCC²/(4(RC + RE)), and the base
 	// loop V_TH = IB(R_TH + RE) + IC·RE + VBE ≤ VCC gives IB ≤ VCC/(R_TH +
 	// RE), so VBE·IB ≤ VBEcap·VCC/(R_TH + RE) (VBEcap of the widest range).
-	vcc := e.s.vcc
+	vcc := e.span
 	th := NominalAmbient_C + thermalSlack_K // no self-heating
 	if dv.thetaJA > 0 {
 		th = dv.tjMax_C + thermalSlack_K
@@ -179,7 +179,7 @@ type betaModel struct {
 func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMax, icLo float64) (betaModel, bool) {
 	m := dv.typ
 	bm := betaModel{m: m, b1: dv.lo.BF, bt: m.BF, b2: dv.hi.BF, br: m.BR, th: th,
-		vcc: e.s.vcc, re: reOhm, rcMin: rcMin, rcMax: rcMax, a: rth + reOhm, aMax: rthMax + reOhm, icLo: icLo, theta: dv.thetaJA}
+		vcc: e.span, re: reOhm, rcMin: rcMin, rcMax: rcMax, a: rth + reOhm, aMax: rthMax + reOhm, icLo: icLo, theta: dv.thetaJA}
 	bm.tLo_C = NominalAmbient_C - thermalSlack_K
 	bm.tLoK = bm.tLo_C + 273.15
 	bm.dT = th - bm.tLo_C
@@ -243,7 +243,7 @@ func newNominalDevice(m solver.Model) nominalDevice {
 // hotVBECap is newBetaModel's VBE bound for junctions up to Tj max with
 // this RE (at most VCC), without the rest of the model.
 func (e *evaluator) hotVBECap(dv *device, reOhm float64) float64 {
-	vcc := e.s.vcc
+	vcc := e.span
 	m := dv.typ
 	at := dv.nominal()
 	th := dv.tjMax_C + thermalSlack_K

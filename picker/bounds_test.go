@@ -40,7 +40,7 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		e, _ := newEvaluator(s, st)
+		e, _ := newEvaluator(s, st, s.topo)
 		rng := rand.New(rand.NewPCG(uint64(math.Abs(vcc)), 1))
 		n := len(e.vs.levels)
 		for range 6000 {
@@ -106,4 +106,77 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 		t.Errorf("beta floor positive on only %d of %d builds", positive, checked)
 	}
 	t.Logf("%d builds checked; beta floor positive on %d, on average %.2f of the exact term", checked, positive, sumRatio/float64(max(positive, 1)))
+}
+
+// TestOtherTopologyBoundsHold checks the bounds of the collector-feedback
+// and split-supply plans against the exact self-heated solution of random
+// builds (solver.SolveSelfHeated is the reference): the beta-term floor
+// through baseLoop at the exact point, F-B over a window around it, the
+// QPoint floor F-Q, and nominalBetaMin, for builds whose three bench
+// points are active with the VCE margin (the premise of the bounds). The
+// stock is that of TestBoundsHoldOnRandomBuilds with a PNP line.
+func TestOtherTopologyBoundsHold(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}
+	st.Transistors[3].Sheet.VAF_V = 25
+	st.Transistors[4].Sheet.ThetaJA_KPerW = 500
+	st.Transistors[5].Sheet.ThetaJA_KPerW = 1000
+	pnp := smallPNP(40, 80, 320)
+	pnp.Sheet.ThetaJA_KPerW = 400
+	st.Transistors = append(st.Transistors, pnp)
+	checked := map[solver.Topology]int{}
+	for _, req := range []Request{
+		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3},
+		{Topology: solver.CollectorFeedback, VCC_V: -9, IC_A: 1e-3},
+		{Topology: solver.SplitSupply, VCC_V: 12, VEE_V: -12, IC_A: 1e-3},
+		{Topology: solver.SplitSupply, VCC_V: -15, VEE_V: 5, IC_A: 1e-3},
+	} {
+		s, err := normalize(req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		e, _ := newEvaluator(s, st, s.topo)
+		rng := rand.New(rand.NewPCG(uint64(math.Abs(req.VCC_V)), 2))
+		n := len(e.vs.levels)
+		for range 6000 {
+			di := rng.IntN(len(e.devs))
+			lv := [maxPos]int{rng.IntN(n), rng.IntN(n), rng.IntN(n)}
+			a := e.newTuple(di, lv)
+			if !a.ok || a.op.Region != solver.Active {
+				continue
+			}
+			var cnt counters
+			e.betaSpread(a, &cnt)
+			if !a.betaOK || a.bench != nil {
+				continue
+			}
+			checked[req.Topology]++
+			dv := &e.devs[di]
+			if b := a.op.IC_A / a.op.IB_A; b < dv.betaNomMin*(1-1e-9) {
+				t.Errorf("%v %v: IC/IB %g under nominalBetaMin %g", req.Topology, a.r, b, dv.betaNomMin)
+			}
+			if f := e.betaFloorAt(a); f > math.Abs(a.beta)*(1+1e-9)+1e-12 {
+				t.Errorf("%v %v: beta floor %g over the beta term %g", req.Topology, a.r, f, math.Abs(a.beta))
+			}
+			if req.Topology != solver.CollectorFeedback {
+				continue
+			}
+			vceLo, vceHi := e.targetBand(dv)
+			kE := 1 + 1/dv.betaNomMin
+			r := a.r[fRC] + a.r[fRE]
+			if f := e.feedbackQFloor(r, kE, vceLo, vceHi); f > a.q*(1+1e-9) {
+				t.Errorf("%v: QPoint floor %g over the term %g", a.r, f, a.q)
+			}
+			ic := a.op.IC_A
+			bd := bounds{icLo: ic * 0.9, icHi: ic * 1.1, finite: true}
+			f := &feedbackPlan{e: e}
+			if fl := f.betaFloorRC(dv, bd, r); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
+				t.Errorf("%v: F-B floor %g over the beta term %g", a.r, fl, math.Abs(a.beta))
+			}
+		}
+	}
+	for _, topo := range []solver.Topology{solver.CollectorFeedback, solver.SplitSupply} {
+		if checked[topo] < 200 {
+			t.Errorf("%v: only %d builds checked", topo, checked[topo])
+		}
+	}
 }

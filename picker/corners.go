@@ -46,7 +46,7 @@ func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h flo
 	if err != nil || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
 		return 0, true
 	}
-	sat := (opV.VCE_V - d.vceSat - e.s.lim.VCEMargin_V) / e.s.vcc
+	sat := (opV.VCE_V - d.vceSat - e.s.lim.VCEMargin_V) / e.span
 	h = math.Max(0, 1-sat/headroomSatBand)
 	return h + math.Max(0, 1-opI.IC_A/e.s.icT/headroomCutBand), false
 }
@@ -79,7 +79,7 @@ func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *eva
 // beyond), plus a cut-off part growing from 0 when the lowest corner IC is
 // headroomCutBand of the target to 1 at IC = 0.
 func (e *evaluator) headroom(d *device, wc solver.WorstCase) float64 {
-	sat := (wc.VCEMin_V - d.vceSat - e.s.lim.VCEMargin_V) / e.s.vcc
+	sat := (wc.VCEMin_V - d.vceSat - e.s.lim.VCEMargin_V) / e.span
 	h := math.Max(0, 1-sat/headroomSatBand)
 	cut := wc.ICMin_A / e.s.icT
 	return h + math.Max(0, 1-cut/headroomCutBand)

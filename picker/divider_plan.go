@@ -89,31 +89,6 @@ func (d *dividerPlan) seed(p *pool, cnt *counters) {
 	}
 }
 
-// rcBand returns the RC levels whose builds can have a nominal VCE within
-// delta·VCC of the target band (bound RC, doc.go): with IC in
-// [icLo, icHi] and IE in [IC, kE·IC], VCE = VCC − IC·RC − IE·RE lies in
-// [VCC − icHi(RC + kE·RE), VCC − icLo(RC + RE)].
-func (e *evaluator) rcBand(b bounds, reOhm, kE, vceLo, vceHi float64) (lo, hi int) {
-	n := len(e.vs.levels)
-	if !b.finite {
-		return 0, n - 1
-	}
-	vcc := e.s.vcc
-	lo = e.vs.levelAtOrAbove((vcc-vceHi-b.delta*vcc)/b.icHi - kE*reOhm)
-	hi = n - 1
-	if b.icLo > 0 {
-		rcMax := (vcc-vceLo+b.delta*vcc)/b.icLo - reOhm
-		if rcMax < 0 {
-			return 1, 0
-		}
-		hi = min(n-1, e.vs.levelAtOrAbove(rcMax*(1+1e-12))-1)
-		if hi+1 < n && sameOhm(e.vs.levels[hi+1].ohm, rcMax) {
-			hi++
-		}
-	}
-	return lo, hi
-}
-
 // search is the branch and bound over (device, RE, R2, R1, RC); doc.go
 // states each bound and why it is sound.
 func (d *dividerPlan) search(p *pool, cnt *counters) {
@@ -122,8 +97,6 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 	if n == 0 {
 		return
 	}
-	s := &e.s
-	w := s.w
 	order := make([]int, len(e.devs))
 	for i := range order {
 		order[i] = i
@@ -178,33 +151,16 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 			vceLo, vceHi := e.targetBand(dv)
 			kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
 			bd := e.boundsNow(p)
-			reOhm := e.vs.levels[it.re].ohm
-			if bd.finite {
-				// Bound U-RE: P(RE) = IE²·RE ≥ icLo²·RE. Bound Q-RE:
-				// VCE ≤ VCC − IC·(RC + RE) ≤ VCC − icLo·(RCmin + RE).
-				// Bound E-RE: VE = IE·RE ≥ icLo·RE, so the emitter term
-				// is at least (icLo·RE − VE max)/VCC. All rise with RE.
-				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr ||
-					w.QPoint*(vceLo-(s.vcc-bd.icLo*(e.vs.levels[0].ohm+reOhm)))/s.vcc > bd.thr ||
-					w.Emitter*(bd.icLo*reOhm-s.veHi)/s.vcc > bd.thr {
-					if it.up {
-						for {
-							cur := upStop[it.di].Load()
-							if int64(it.re) >= cur || upStop[it.di].CompareAndSwap(cur, int64(it.re)) {
-								break
-							}
+			if stop, skip := e.reCuts(bd, it.re, kE, vceLo); skip {
+				if stop && it.up {
+					for {
+						cur := upStop[it.di].Load()
+						if int64(it.re) >= cur || upStop[it.di].CompareAndSwap(cur, int64(it.re)) {
+							break
 						}
 					}
-					continue
 				}
-				if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[it.re].allowHot_W > bd.thr {
-					continue
-				}
-				// Bound E-RE, low side: VE = IE·RE ≤ kE·icHi·RE, so the
-				// emitter term is at least (VE min − kE·icHi·RE)/VCC.
-				if w.Emitter*(s.veLo-kE*bd.icHi*reOhm)/s.vcc > bd.thr {
-					continue
-				}
+				continue
 			}
 			wd.searchRE(e, p, wc, it.di, it.re, kE, vceLo, vceHi)
 		}
@@ -222,6 +178,36 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 		cnt.solves += c.solves
 	}
 	e.progress(total, total)
+}
+
+// reCuts applies the bounds of one RE level (doc.go) for any topology
+// whose VCE is at most span − IC·(RC + RE) and whose every build carries
+// RE: U-RE (RE dissipates IE²·RE ≥ icLo²·RE), Q-RE (VCE ≤ span −
+// icLo·(RCmin + RE)) and, where the emitter band applies, E-RE (VE = IE·RE
+// ≥ icLo·RE: the emitter term is at least (icLo·RE − VE max)/VCC). These
+// rise with RE: stop is true when one is over the threshold, and no larger
+// RE can enter either. skip is true when this RE cannot enter: those, or
+// U-RE with this level's own allowance, or E-RE's low side (VE = IE·RE ≤
+// kE·icHi·RE, so the emitter term is at least (VE min − kE·icHi·RE)/VCC).
+func (e *evaluator) reCuts(bd bounds, re int, kE, vceLo float64) (stop, skip bool) {
+	if !bd.finite {
+		return false, false
+	}
+	s, w := &e.s, e.s.w
+	reOhm := e.vs.levels[re].ohm
+	band := e.lay.emitterBand
+	if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr ||
+		w.QPoint*(vceLo-(e.span-bd.icLo*(e.vs.levels[0].ohm+reOhm)))/e.span > bd.thr ||
+		band && w.Emitter*(bd.icLo*reOhm-s.veHi)/s.vcc > bd.thr {
+		return true, true
+	}
+	if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W > bd.thr {
+		return false, true
+	}
+	if band && w.Emitter*(s.veLo-kE*bd.icHi*reOhm)/s.vcc > bd.thr {
+		return false, true
+	}
+	return false, false
 }
 
 // searchWorkers is the number of goroutines of the default search. The

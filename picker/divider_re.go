@@ -2,8 +2,6 @@ package picker
 
 import (
 	"math"
-
-	"biasbin/solver"
 )
 
 // searchRE covers every build of device di with RE level re.
@@ -59,7 +57,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	skip := 1
 	for r2 := start; r2 < n; r2++ {
 		bd := e.boundsNow(p)
-		rcLo, rcHi := e.rcBand(bd, reOhm, kE, vceLo, vceHi)
+		rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
 		if rcLo > rcHi {
 			break // the band only narrows as the threshold falls
 		}
@@ -143,7 +141,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				if v, ok := floorSeen[i]; ok && v > icHi {
 					return false
 				}
-				ic, any := d.icFloor(di, i, r2, re, rcLo, rcHi, icHi, cnt)
+				ic, any := icFloor(func(rc int) *tuple { return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt) }, rcLo, rcHi, icHi)
 				if !any {
 					ic = math.Inf(1)
 				}
@@ -178,105 +176,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				}
 				b1 = w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1) + w.Emitter*eLo
 			}
-			d.scanRC(e, p, cnt, di, r1, r2, re, rcLo, rcHi, vceLo, vceHi, kE, b1)
+			lv := [maxPos]int{r1, r2, 0, re}
+			e.scanRC(p, &d.cache, cnt, di, lv, iRC, &d.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, b1)
 		}
 	}
 }
 
 // r1Block is how many R1 levels share one beta floor in searchRE.
 const r1Block = 8
-
-// icFloor is the lower envelope of the nominal IC over the builds at
-// (R1, R2, RE) with RC in [rcLo, rcHi] that are active at their nominal
-// point: IC falls with RC (lemma L2) and saturation only deepens with RC,
-// so it is IC at the largest band RC whose nominal point is active. any
-// is false when no band RC is active (every such build fails a hard
-// limit).
-func (d *dividerPlan) icFloor(di, r1, r2, re, rcLo, rcHi int, icHi float64, cnt *counters) (ic float64, any bool) {
-	probe := func(rc int) *tuple { return d.tuple(di, [maxPos]int{r1, r2, rc, re}, cnt) }
-	top := probe(rcHi)
-	if top.ok && top.op.Region != solver.Saturation {
-		return top.op.IC_A, true
-	}
-	// Saturated at the top of the band. If the bottom is saturated too,
-	// so is every band RC; if the bottom is active with IC at most icHi,
-	// the floor (IC at the last active RC, at most IC at the bottom) is
-	// too, which is all the caller asks.
-	if bot := probe(rcLo); bot.ok {
-		if bot.op.Region == solver.Saturation {
-			return 0, false
-		}
-		if bot.op.IC_A <= icHi {
-			return bot.op.IC_A, true
-		}
-	}
-	// first band RC that saturates; the one below it is the last active
-	k := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool {
-		t := probe(rcLo + i)
-		return t.ok && t.op.Region == solver.Saturation
-	})
-	if k == rcLo {
-		return 0, false
-	}
-	t := probe(k - 1)
-	if !t.ok {
-		return 0, true
-	}
-	return t.op.IC_A, true
-}
-
-// scanRC scores the RC levels of one (R1, R2, RE) outward from the VCE
-// target: VCE falls with RC (lemma L2), so below the first RC whose VCE is
-// at or under the top of the target band the VCE term only grows going
-// down, and from it upward only grows once VCE is under the bottom of the
-// band. IC falls with RC too, so going down an IC already over the target
-// only moves further off, and going up one already under it likewise.
-func (d *dividerPlan) scanRC(e *evaluator, p *pool, cnt *counters, di, r1, r2, re, rcLo, rcHi int, vceLo, vceHi, kE, base float64) {
-	w, vcc, ict := e.s.w, e.s.vcc, e.s.icT
-	tup := func(rc int) *tuple { return d.tuple(di, [maxPos]int{r1, r2, rc, re}, cnt) }
-	reOhm := e.vs.levels[re].ohm
-	// IC at the band's bottom bounds IC at every band RC from above and, for builds active
-	// at their nominal point, IC at the top of the band bounds it from
-	// below (lemma L2); both are usually solved already by the R1 range
-	// search. With them VCE = VCC − IC·RC − IE·RE is bounded before a
-	// solve: VCE ≥ VCC − icUp(RC + kE·RE) and VCE ≤ VCC − icDn(RC + RE).
-	icUp, icDn := math.Inf(1), 0.0
-	if t, ok := d.cache.peek([maxPos]int{r1, r2, rcLo, re}); ok && t.ok {
-		icUp = t.op.IC_A
-	}
-	if t, ok := d.cache.peek([maxPos]int{r1, r2, rcHi, re}); ok && t.ok && t.op.Region == solver.Active {
-		icDn = t.op.IC_A
-	}
-	// the QPoint term's IC part is at least the envelope's distance
-	// from the target; with the other terms' floor that may settle it
-	if base+w.QPoint*math.Max(0, math.Max(icDn-ict, ict-icUp))/ict > p.threshold() {
-		return
-	}
-	split := rcLo + firstFrom(rcHi-rcLo+1, d.splitGuess-rcLo, func(i int) bool { return tup(rcLo + i).vceAtMost(vceHi) })
-	d.splitGuess = split
-	for rc := split - 1; rc >= rcLo; rc-- {
-		rcOhm := e.vs.levels[rc].ohm
-		if vceMin := vcc - icUp*(rcOhm+kE*reOhm); base+w.QPoint*(vceMin-vceHi)/vcc > p.threshold() {
-			break
-		}
-		t := tup(rc)
-		if t.ok {
-			icOff := math.Max(0, math.Max(t.op.IC_A-ict, ict-icUp)) / ict
-			if base+w.QPoint*((t.op.VCE_V-vceHi)/vcc+icOff) > p.threshold() {
-				break
-			}
-		}
-		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
-	}
-	for rc := split; rc <= rcHi; rc++ {
-		rcOhm := e.vs.levels[rc].ohm
-		if vceMax := vcc - icDn*(rcOhm+reOhm); base+w.QPoint*(vceLo-vceMax)/vcc > p.threshold() {
-			break
-		}
-		t := tup(rc)
-		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
-			break
-		}
-		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
-	}
-}

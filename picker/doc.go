@@ -6,7 +6,8 @@
 //
 // # Request defaults
 //
-// A zero field means its default: Topology divider; Polarity from the sign
+// A zero field means its default: Topology divider (AnyTopology: every
+// topology, see "Several topologies"); Polarity from the sign
 // of VCC_V; VCE_V the maximum-symmetrical-swing rule below; ambient
 // 0..50 °C; Boards 1; Top 5 (DefaultTop); Window ±10 % IC around the
 // target and ±20 % VCE around the build's VCE target; Weights
@@ -214,6 +215,55 @@
 //     worst-case corner. A build proved failing is evaluated fully only
 //     while the pool has room for it: once the pool is full, a failing
 //     build whose floor exceeds the last member's score ranks below it.
+//
+// # The collector-feedback plan
+//
+// RF from the collector to the base, RC, RE; it covers (device, RE, RC,
+// RF). Its base loop is VCC − VBE = IB·RF + IE·(RC + RE) and VCE = VCC −
+// IE·(RC + RE): the transistor sees exactly what it would in a divider with
+// V_TH = VCC, R_TH = RF, an emitter resistor RC + RE and no collector
+// resistor (baseLoop), so bound B and nominalBetaMin carry over. VCB =
+// IB·RF ≥ 0: the stage never saturates.
+//
+//   - F1: IC falls as RF rises (the base drive falls; as L1, the Early
+//     effect and self-heating scale the change but cannot reverse it).
+//   - U-RE, Q-RE, E-RE as for the divider (reCuts; VCE ≤ VCC − IC(RC + RE)).
+//   - RC band: RC carries IE, so VCE lies in [VCC − kE·icHi(RC + RE),
+//     VCC − icLo(RC + RE)] (rcBand with kRC = kE).
+//   - F-Q: at a current x, VCE lies in [VCC − kE·x·r, VCC − x·r] with
+//     r = RC + RE; the QPoint term is at least the least over x of
+//     |x − IC_t|/IC_t plus that interval's distance from the target band,
+//     a convex function whose least value is at a breakpoint
+//     (feedbackQFloor).
+//   - F-B: IB ≤ IC/β_min gives RF ≥ β_min(VCC − VBE_hi − kE·icHi·r)/icHi;
+//     bound B over R_TH from there up bounds the beta term of every build
+//     at (RC, RE). With RE's utilization and emitter floors it skips an RC
+//     and narrows the IC window.
+//   - RF window: by F1 the RF levels with IC in the window are found by two
+//     searches; bound B over the window narrows it again.
+//
+// # The split-supply plan
+//
+// RB from the base to ground, RC, RE to the emitter rail VEE (signed
+// opposite to VCC, the supply tolerance applies to it too); it covers
+// (device, RE, RB, RC). Its base loop is |VEE| − VBE = IB·RB + IE·RE and
+// VCE = |VCC| + |VEE| − IC·RC − IE·RE: a divider with V_TH = |VEE|,
+// R_TH = RB on the span |VCC| + |VEE|, so L1 (IC falls as RB or RE rises),
+// L2, U-RE, Q-RE, the RC band, the RC scan and bound B carry over with the
+// span in place of VCC. The emitter term is 0 (the emitter resistor's share
+// of the supply is set by VEE, not by the parts). RB's range comes from
+// the envelopes as R1's does for the divider: IC at the band's bottom RC
+// falls with RB, and IC at the band's largest active RC bounds the active
+// builds from below.
+//
+// # Several topologies
+//
+// With AnyTopology each topology (split supply only with an emitter rail)
+// is searched with its own pool and finalists, exactly as alone; the
+// finalists of all are ranked together by the final score (every term is
+// a share, so the scale is one), and Result.Rivals holds the best build of
+// each topology other than the first's, with the term it trails the first
+// in most. Every term's share of the supply is of the build's own span.
 //
 // The default search runs on two goroutines, each taking (device, RE)
 // items in order and sharing the pool; the pool keeps the exact best

@@ -23,6 +23,13 @@ type layout struct {
 	// to give the lowest VCE and the one expected to give the lowest IC.
 	// Any choice keeps the floor a lower bound; a good one makes it tight.
 	lowVCE, lowIC [maxPos]float64
+	// emitterBand is whether the emitter term applies: the share of the
+	// supply the emitter resistor takes is a choice of the divider and the
+	// collector-feedback stage; in the split-supply stage it is fixed by
+	// the emitter rail (|VEE| − VBE), so the term is 0 there.
+	emitterBand bool
+	// split is whether the emitter returns to the emitter rail VEE.
+	split bool
 }
 
 // dividerLayout: R1, R2, RC, RE. The lowest VCE comes with the most base
@@ -33,12 +40,42 @@ var dividerLayout = layout{
 	slots: [maxPos]solver.Slot{solver.R1, solver.R2, solver.RC, solver.RE},
 	names: [maxPos]string{"r1", "r2", "rc", "re"},
 	rc:    2, re: 3,
-	lowVCE: [maxPos]float64{-1, 1, 1, -1},
-	lowIC:  [maxPos]float64{1, -1, 1, 1},
+	lowVCE:      [maxPos]float64{-1, 1, 1, -1},
+	lowIC:       [maxPos]float64{1, -1, 1, 1},
+	emitterBand: true,
+}
+
+// feedbackLayout: RF, RC, RE. Less RF means more base drive and more IC;
+// RC carries IE and lowers VC, so more RC means less VCE and less IC.
+var feedbackLayout = layout{
+	topo: solver.CollectorFeedback, n: 3,
+	slots: [maxPos]solver.Slot{solver.RF, solver.RC, solver.RE},
+	names: [maxPos]string{"rf", "rc", "re"},
+	rc:    1, re: 2,
+	lowVCE:      [maxPos]float64{-1, 1, -1},
+	lowIC:       [maxPos]float64{1, 1, 1},
+	emitterBand: true,
+}
+
+// splitLayout: RB, RC, RE. Less RB and RE mean more IC; RC lowers VCE.
+var splitLayout = layout{
+	topo: solver.SplitSupply, n: 3,
+	slots: [maxPos]solver.Slot{solver.RB, solver.RC, solver.RE},
+	names: [maxPos]string{"rb", "rc", "re"},
+	rc:    1, re: 2,
+	lowVCE: [maxPos]float64{-1, 1, -1},
+	lowIC:  [maxPos]float64{1, 1, 1},
+	split:  true,
 }
 
 // layoutOf returns the layout of a topology.
 func layoutOf(t solver.Topology) *layout {
+	switch t {
+	case solver.CollectorFeedback:
+		return &feedbackLayout
+	case solver.SplitSupply:
+		return &splitLayout
+	}
 	return &dividerLayout
 }
 

@@ -12,6 +12,10 @@ type evaluator struct {
 	lay  *layout
 	vs   *valueSet
 	devs []device
+	// span is the supply the collector-emitter loop spans: |VCC|, plus
+	// |VEE| for the split-supply stage. The VCE target, the Q-point
+	// term's VCE part and the headroom term are shares of it.
+	span float64
 }
 
 // tuple holds what depends only on the device and the level tuple.
@@ -46,7 +50,7 @@ func (e *evaluator) ohms(lv [maxPos]int) [maxPos]float64 {
 // stage is the nominal circuit of a level tuple (values at their marked
 // resistance; at 25 °C TCR moves nothing).
 func (e *evaluator) stage(r [maxPos]float64) solver.Stage {
-	st := solver.Stage{Topology: e.lay.topo, VCC_V: e.s.sign * e.s.vcc, RL_Ohm: e.s.rl}
+	st := solver.Stage{Topology: e.lay.topo, VCC_V: e.s.sign * e.s.vcc, VEE_V: e.veeSigned(), RL_Ohm: e.s.rl}
 	for i := range e.lay.n {
 		st.R_Ohm[e.lay.slots[i]] = r[i]
 	}
@@ -73,7 +77,16 @@ func (e *evaluator) vceTarget(d *device, r [maxPos]float64) float64 {
 	if e.s.vceT > 0 {
 		return e.s.vceT
 	}
-	return swingVCE(e.s.vcc, d.vceSat, r[e.lay.rc], r[e.lay.re], e.s.rl, e.s.bypass)
+	return swingVCE(e.span, d.vceSat, r[e.lay.rc], r[e.lay.re], e.s.rl, e.s.bypass)
+}
+
+// veeSigned is the emitter rail as the solver takes it (opposite in sign
+// to VCC), 0 for a stage without one.
+func (e *evaluator) veeSigned() float64 {
+	if !e.lay.split {
+		return 0
+	}
+	return -e.s.sign * e.s.vee
 }
 
 // swingVCE is the maximum-symmetrical-swing VCE of a stage.
@@ -94,12 +107,16 @@ func swingVCE(vcc, vceSat, rc, re, rl float64, bypass bool) float64 {
 
 // qpoint is the Q-point term of an operating point.
 func (e *evaluator) qpoint(op solver.OperatingPoint, vceT float64) float64 {
-	return math.Abs(op.IC_A-e.s.icT)/e.s.icT + math.Abs(op.VCE_V-vceT)/e.s.vcc
+	return math.Abs(op.IC_A-e.s.icT)/e.s.icT + math.Abs(op.VCE_V-vceT)/e.span
 }
 
 // emitter is the emitter term of an operating point: how far the emitter
-// voltage lies outside the emitter band, as a share of |VCC| (0 inside).
+// voltage lies outside the emitter band, as a share of |VCC| (0 inside;
+// always 0 where the layout has no emitter band).
 func (e *evaluator) emitter(op solver.OperatingPoint) float64 {
+	if !e.lay.emitterBand {
+		return 0
+	}
 	ve := math.Abs(op.VE_V)
 	return (math.Max(0, ve-e.s.veHi) + math.Max(0, e.s.veLo-ve)) / e.s.vcc
 }

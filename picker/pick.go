@@ -26,34 +26,52 @@ func Pick(stock Stock, req Request) (Result, error) {
 	if err := s.checkStock(stock); err != nil {
 		return Result{}, err
 	}
-	e, rejected := newEvaluator(s, stock)
 	var res Result
-	var cnt counters
-	p := newPool(s.pool)
-	if len(e.devs) > 0 && len(e.vs.levels) > 0 {
-		if s.req.Exhaustive {
-			e.exhaustive(p, &cnt)
-		} else {
-			pl := planFor(e)
-			pl.seed(p, &cnt)
-			e.polish(p, &cnt)
-			pl.search(p, &cnt)
+	var all []fin
+	var rejected []Rejection
+	var evs []*evaluator
+	best := map[solver.Topology]fin{}
+	for _, topo := range s.topos {
+		e, rej := newEvaluator(s, stock, topo)
+		evs = append(evs, e)
+		for _, r := range rej {
+			if !slices.ContainsFunc(rejected, func(x Rejection) bool { return x.Line.ID == r.Line.ID }) {
+				rejected = append(rejected, r)
+			}
 		}
+		var cnt counters
+		p := newPool(s.pool)
+		if len(e.devs) > 0 && len(e.vs.levels) > 0 {
+			if s.req.Exhaustive {
+				e.exhaustive(p, &cnt)
+			} else {
+				pl := planFor(e)
+				pl.seed(p, &cnt)
+				e.polish(p, &cnt)
+				pl.search(p, &cnt)
+			}
+		}
+		res.Evaluated += cnt.evaluated
+		res.Solved += cnt.solves
+		res.Considered += e.combinations()
+		fs, err := e.finalists(p.items)
+		if err != nil {
+			return Result{}, err
+		}
+		if len(fs) > 0 {
+			best[topo] = fs[0]
+		}
+		all = append(all, fs...)
 	}
-	res.Evaluated = cnt.evaluated
-	res.Solved = cnt.solves
-	res.Considered = e.combinations()
-	final, err := e.finalists(p.items)
-	if err != nil {
-		return Result{}, err
-	}
+	slices.SortStableFunc(all, finOrder)
 	passing := 0
-	for _, c := range final {
-		if len(c.Failing) == 0 {
+	for _, f := range all {
+		if len(f.c.Failing) == 0 {
 			passing++
 		}
 	}
-	for i, c := range final {
+	for i, f := range all {
+		c := f.c
 		if len(res.Candidates) == s.top {
 			break
 		}
@@ -63,14 +81,23 @@ func Pick(stock Stock, req Request) (Result, error) {
 		c.Rank = i + 1
 		res.Candidates = append(res.Candidates, c)
 	}
+	if len(s.topos) > 1 && len(res.Candidates) > 0 {
+		res.Rivals = rivals(s, res.Candidates[0], best)
+	}
+	// the shortfall speaks for the topology of the nearest build
+	e := evs[0]
+	if len(all) > 0 {
+		e = all[0].ev.e
+	}
 	if !slices.ContainsFunc(res.Candidates, e.fits) {
 		res.Shortfall = e.shortfall(rejected, res.Candidates)
 	}
 	return res, nil
 }
 
-// newEvaluator prepares the value sets and devices of a request.
-func newEvaluator(s settings, stock Stock) (*evaluator, []Rejection) {
+// newEvaluator prepares the value sets and devices of a request for one
+// topology.
+func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []Rejection) {
 	var lines []Resistor
 	for _, r := range stock.Resistors {
 		if hasTags(r.Tags, s.req.RequireTags) {
@@ -78,9 +105,14 @@ func newEvaluator(s settings, stock Stock) (*evaluator, []Rejection) {
 		}
 	}
 	vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim)
-	devs, rejected := s.transistorCandidates(stock.Transistors)
+	lay := layoutOf(topo)
+	span := s.vcc
+	if lay.split {
+		span += s.vee
+	}
+	devs, rejected := s.transistorCandidates(stock.Transistors, span)
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
-	e := &evaluator{s: s, lay: layoutOf(s.topo), vs: &vs, devs: devs}
+	e := &evaluator{s: s, lay: lay, vs: &vs, devs: devs, span: span}
 	for i := range e.devs {
 		e.devs[i].betaNomMin = e.nominalBetaMin(&e.devs[i])
 	}
@@ -112,15 +144,33 @@ func (e *evaluator) combinations() int64 {
 	return c
 }
 
-// finalists runs the Monte Carlo yield of the pool, adds the yield term
-// and returns the candidates in final order: passing first, then by final
-// score, then the tie-break key.
-func (e *evaluator) finalists(items []*evaluated) ([]Candidate, error) {
-	type fin struct {
-		ev    *evaluated
-		score float64
-		c     Candidate
+// fin is a finalist: the pooled build and its candidate with the yield
+// term added.
+type fin struct {
+	ev *evaluated
+	c  Candidate
+}
+
+// finOrder is the final order: passing first, then the final score, then
+// the tie-break key.
+func finOrder(a, b fin) int {
+	af, bf := len(a.ev.failing) > 0, len(b.ev.failing) > 0
+	switch {
+	case af != bf && !af:
+		return -1
+	case af != bf:
+		return 1
+	case a.c.Score < b.c.Score:
+		return -1
+	case a.c.Score > b.c.Score:
+		return 1
 	}
+	return strings.Compare(a.ev.key, b.ev.key)
+}
+
+// finalists runs the Monte Carlo yield of the pool, adds the yield term
+// and returns the finalists in final order (finOrder).
+func (e *evaluator) finalists(items []*evaluated) ([]fin, error) {
 	fs := make([]fin, 0, len(items))
 	for _, ev := range items {
 		c, err := ev.e.candidate(ev)
@@ -129,27 +179,10 @@ func (e *evaluator) finalists(items []*evaluated) ([]Candidate, error) {
 		}
 		c.Terms.Yield = 1 - c.Yield.Yield
 		c.Score = ev.score + e.s.w.Yield*c.Terms.Yield
-		fs = append(fs, fin{ev: ev, score: c.Score, c: c})
+		fs = append(fs, fin{ev: ev, c: c})
 	}
-	slices.SortStableFunc(fs, func(a, b fin) int {
-		af, bf := len(a.ev.failing) > 0, len(b.ev.failing) > 0
-		switch {
-		case af != bf && !af:
-			return -1
-		case af != bf:
-			return 1
-		case a.score < b.score:
-			return -1
-		case a.score > b.score:
-			return 1
-		}
-		return strings.Compare(a.ev.key, b.ev.key)
-	})
-	out := make([]Candidate, len(fs))
-	for i, f := range fs {
-		out[i] = f.c
-	}
-	return out, nil
+	slices.SortStableFunc(fs, finOrder)
+	return fs, nil
 }
 
 // fits reports whether a build is good: it passes every hard limit and
@@ -178,6 +211,7 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 	d := &e.devs[ev.c.dev]
 	c := Candidate{
 		ID:              e.id(ev.c),
+		Topology:        e.lay.topo,
 		Score:           ev.score,
 		Terms:           ev.terms,
 		Transistor:      d.line,

@@ -132,7 +132,7 @@ func scoreOf(t *testing.T, st Stock, req Request, tr int64, ohms [nPos]float64) 
 	if err != nil {
 		t.Fatal(err)
 	}
-	e, _ := newEvaluator(s, st)
+	e, _ := newEvaluator(s, st, s.topo)
 	dev := -1
 	for i := range e.devs {
 		if e.devs[i].line.ID == tr {

@@ -1,6 +1,12 @@
 package picker
 
-import "math"
+import (
+	"cmp"
+	"math"
+	"slices"
+
+	"biasbin/solver"
+)
 
 // plan is the search over one topology's positions. Each topology
 // provides one (doc.go, "Search", says what a plan must guarantee); the
@@ -16,6 +22,12 @@ type plan interface {
 
 // planFor returns the search plan of the evaluator's topology.
 func planFor(e *evaluator) plan {
+	switch e.lay.topo {
+	case solver.CollectorFeedback:
+		return &feedbackPlan{e: e}
+	case solver.SplitSupply:
+		return &splitPlan{e: e}
+	}
 	return &dividerPlan{e: e}
 }
 
@@ -213,9 +225,75 @@ func (e *evaluator) targetBand(dv *device) (lo, hi float64) {
 	if e.s.vceT > 0 {
 		return e.s.vceT, e.s.vceT
 	}
-	mid := (e.s.vcc + dv.vceSat) / 2
+	mid := (e.span + dv.vceSat) / 2
 	if e.s.rl == 0 && !e.s.bypass {
 		return mid, mid
 	}
 	return dv.vceSat, mid
+}
+
+// seedOrder keeps, per device, the best passing seed's score and RE
+// level: plans visit devices from the best seed and RE levels outward from
+// it (any order is sound; this one tightens the threshold early).
+type seedOrder struct {
+	best []float64
+	re   []int
+}
+
+// reset prepares for nDev devices.
+func (so *seedOrder) reset(nDev int) {
+	so.best, so.re = make([]float64, nDev), make([]int, nDev)
+	for i := range so.best {
+		so.best[i] = math.Inf(1)
+	}
+}
+
+// note records a seed build of device di at RE level re.
+func (so *seedOrder) note(di, re int, ev *evaluated) {
+	if len(ev.failing) == 0 && ev.score < so.best[di] {
+		so.best[di], so.re[di] = ev.score, re
+	}
+}
+
+// order returns the device indexes from the best seed.
+func (so *seedOrder) order(nDev int) []int {
+	order := make([]int, nDev)
+	for i := range order {
+		order[i] = i
+	}
+	if len(so.best) == nDev {
+		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(so.best[a], so.best[b]) })
+	}
+	return order
+}
+
+// start is the RE level device di's search starts from.
+func (so *seedOrder) start(di int) int {
+	if di < len(so.re) {
+		return so.re[di]
+	}
+	return 0
+}
+
+// eachRE visits the RE levels from start upward, until reCuts says no
+// larger RE can enter, then from start − 1 downward, skipping the levels
+// reCuts settles; visit gets the bounds in force.
+func (e *evaluator) eachRE(p *pool, start int, kE, vceLo float64, visit func(re int, bd bounds)) {
+	n := len(e.vs.levels)
+	for re := start; re < n; re++ {
+		bd := e.boundsNow(p)
+		stop, skip := e.reCuts(bd, re, kE, vceLo)
+		if stop {
+			break
+		}
+		if !skip {
+			visit(re, bd)
+		}
+	}
+	for re := start - 1; re >= 0; re-- {
+		bd := e.boundsNow(p)
+		if _, skip := e.reCuts(bd, re, kE, vceLo); !skip {
+			visit(re, bd)
+		}
+	}
 }

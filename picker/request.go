@@ -70,10 +70,17 @@ func inputErr(field, fix, format string, a ...any) error {
 	return &InputError{Field: field, Problem: fmt.Sprintf(format, a...), Fix: fix}
 }
 
+// AnyTopology as Request.Topology searches every topology and ranks their
+// builds on one scale (split supply only when Request.VEE_V is given).
+const AnyTopology solver.Topology = -1
+
 // settings is a validated request with every default filled in.
 type settings struct {
 	req         Request
 	topo        solver.Topology
+	topos       []solver.Topology // the topologies searched (several for AnyTopology)
+	vee         float64           // emitter rail magnitude (split supply), 0 = none
+	spanMax     float64           // the largest supply span of the topologies searched
 	pol         solver.Polarity
 	vcc         float64 // magnitude
 	sign        float64 // +1 NPN, -1 PNP
@@ -109,8 +116,10 @@ func normalize(req Request) (settings, error) {
 	switch req.Topology {
 	case 0, solver.Divider:
 		s.topo = solver.Divider
+	case solver.CollectorFeedback, solver.SplitSupply, AnyTopology:
+		s.topo = req.Topology
 	default:
-		return s, inputErr("topology", "use --topology divider", "%v is not searched yet", req.Topology)
+		return s, inputErr("topology", "use divider, collector-feedback, split-supply or any", "%v is not a topology", req.Topology)
 	}
 	if !finite(req.VCC_V) || req.VCC_V == 0 {
 		return s, inputErr("vcc", "give the supply, e.g. --vcc 12V", "%g V is not a supply voltage", req.VCC_V)
@@ -138,6 +147,37 @@ func normalize(req Request) (settings, error) {
 	if err := solver.SupplyRange.Check(s.vcc); err != nil {
 		return s, err
 	}
+	if !finite(req.VEE_V) || req.VEE_V*s.sign > 0 {
+		return s, inputErr("vee", "give the emitter rail with the sign opposite to the collector rail",
+			"%g V is not an emitter rail for a %v stage", req.VEE_V, s.pol)
+	}
+	s.vee = math.Abs(req.VEE_V)
+	if s.vee > 0 {
+		r := solver.SupplyRange
+		r.Field = "vee"
+		if err := r.Check(s.vee); err != nil {
+			return s, err
+		}
+	}
+	switch {
+	case s.topo == solver.SplitSupply && s.vee == 0:
+		return s, inputErr("vee", "give the emitter rail, e.g. --vee 12V", "the split-supply stage needs an emitter rail")
+	case s.vee > 0 && s.topo != solver.SplitSupply && s.topo != AnyTopology:
+		return s, inputErr("vee", "leave --vee out, or ask for --topology split-supply", "only the split-supply stage has an emitter rail")
+	}
+	switch s.topo {
+	case AnyTopology:
+		s.topos = []solver.Topology{solver.Divider, solver.CollectorFeedback}
+		if s.vee > 0 {
+			s.topos = append(s.topos, solver.SplitSupply)
+		}
+	default:
+		s.topos = []solver.Topology{s.topo}
+	}
+	s.spanMax = s.vcc
+	if slices.Contains(s.topos, solver.SplitSupply) {
+		s.spanMax += s.vee
+	}
 	if !finite(req.VCCTol) || req.VCCTol < 0 || req.VCCTol >= 0.5 {
 		return s, inputErr("vcc_tol", "give a tolerance between 0 and 50 %", "%g is not a supply tolerance", req.VCCTol)
 	}
@@ -149,13 +189,13 @@ func normalize(req Request) (settings, error) {
 		return s, err
 	}
 	s.icT = req.IC_A
-	vceLow := s.vcc * (1 - s.vccTol)
+	vceLow := s.spanMax * (1 - s.vccTol)
 	if !finite(req.VCE_V) || req.VCE_V < 0 {
 		return s, inputErr("vce", "give a VCE magnitude, or leave it out for the maximum-swing rule", "%g V is not a VCE target", req.VCE_V)
 	}
 	if req.VCE_V >= vceLow {
 		return s, inputErr("vce", fmt.Sprintf("choose a VCE below %.3g V or raise --vcc", vceLow),
-			"%g V cannot exist with a %g V supply at -%g %%", req.VCE_V, s.vcc, 100*s.vccTol)
+			"%g V cannot exist with a %g V supply at -%g %%", req.VCE_V, s.spanMax, 100*s.vccTol)
 	}
 	s.vceT = req.VCE_V
 	if !finite(req.VEMin_V) || !finite(req.VEMax_V) || req.VEMin_V < 0 || req.VEMax_V < req.VEMin_V {
@@ -295,7 +335,7 @@ func (s settings) checkStock(st Stock) error {
 	}
 	// RC and RE are at least the smallest stocked value each, so no build
 	// can carry more than this collector current.
-	if icMax := s.vcc * (1 + s.vccTol) / (2 * rmin); s.icT > icMax {
+	if icMax := s.spanMax * (1 + s.vccTol) / (2 * rmin); s.icT > icMax {
 		return inputErr("ic", fmt.Sprintf("lower --ic below %.3g A or raise --vcc", icMax),
 			"%g A cannot flow from a %g V supply through the smallest stocked RC and RE (%g ohm each)", s.icT, s.vcc, rmin)
 	}

@@ -34,7 +34,10 @@ func TestBadInput(t *testing.T) {
 		{"ambient upside down", good, func(r *Request) { r.AmbientMin_C, r.AmbientMax_C = 60, 10 }, "ambient"},
 		{"negative boards", good, func(r *Request) { r.Boards = -2 }, "boards"},
 		{"negative load", good, func(r *Request) { r.RL_Ohm = -1 }, "load"},
-		{"other topology", good, func(r *Request) { r.Topology = solver.SplitSupply }, "topology"},
+		{"unknown topology", good, func(r *Request) { r.Topology = solver.Topology(9) }, "topology"},
+		{"split supply without its rail", good, func(r *Request) { r.Topology = solver.SplitSupply }, "vee"},
+		{"emitter rail on a divider", good, func(r *Request) { r.VEE_V = -12 }, "vee"},
+		{"emitter rail of the collector's sign", good, func(r *Request) { r.Topology = solver.SplitSupply; r.VEE_V = 12 }, "vee"},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {

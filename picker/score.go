@@ -87,15 +87,34 @@ func (e *evaluator) scoreOne(t *tuple, c combo, thr, lastScore func() float64, k
 	}
 }
 
-// betaFloorAt is betaFloor at a solved divider tuple: its exact R_TH, RE,
-// RC and nominal IC (0 unless the tuple is active at its nominal point,
-// and 0 for the other topologies, which bound the beta term otherwise).
+// betaFloorAt is betaFloor at a solved tuple: its exact base-loop
+// resistances (baseLoop) and nominal IC (0 unless the tuple is active at
+// its nominal point).
 func (e *evaluator) betaFloorAt(t *tuple) float64 {
-	if t.op.Region != solver.Active || e.lay.topo != solver.Divider {
+	if t.op.Region != solver.Active {
 		return 0
 	}
-	r := t.r
 	ic := t.op.IC_A
-	rth := r[iR1] * r[iR2] / (r[iR1] + r[iR2])
-	return e.betaFloor(&e.devs[t.c.dev], betaWindow{RTH: rth, RTHMax: rth, RE: r[iRE], RCMin: r[iRC], RCMax: r[iRC], ICLo: ic, ICHi: ic})
+	rth, re, rc := e.baseLoop(t.r)
+	return e.betaFloor(&e.devs[t.c.dev], betaWindow{RTH: rth, RTHMax: rth, RE: re, RCMin: rc, RCMax: rc, ICLo: ic, ICHi: ic})
+}
+
+// baseLoop maps a build's resistances onto the divider's base loop that
+// betaFloor bounds, V_TH − VBE = IB·R_TH + IE·RE with VCE = V − IC·RC −
+// IE·RE (V the span): the transistor's VBE, VCE and currents are the same
+// in both circuits, so the bound carries over.
+//
+//   - divider: R_TH = R1‖R2, RE, RC (V_TH = VCC·R2/(R1 + R2));
+//   - collector feedback: VCC − VBE = IB·RF + IE·(RC + RE) and VCE = VCC −
+//     IE·(RC + RE), so R_TH = RF, RE' = RC + RE, RC' = 0 (V_TH = VCC);
+//   - split supply: |VEE| − VBE = IB·RB + IE·RE and VCE = VCC + |VEE| −
+//     IC·RC − IE·RE, so R_TH = RB, RE, RC on the span (V_TH = |VEE|).
+func (e *evaluator) baseLoop(r [maxPos]float64) (rth, re, rc float64) {
+	switch e.lay.topo {
+	case solver.CollectorFeedback:
+		return r[fRF], r[fRC] + r[fRE], 0
+	case solver.SplitSupply:
+		return r[sRB], r[sRE], r[sRC]
+	}
+	return r[iR1] * r[iR2] / (r[iR1] + r[iR2]), r[iRE], r[iRC]
 }

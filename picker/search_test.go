@@ -5,6 +5,7 @@ import (
 	"math/rand/v2"
 	"testing"
 
+	"biasbin/solver"
 	"biasbin/solver/eseries"
 )
 
@@ -56,7 +57,19 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 		// ambient ranges that hold 25 °C and ones wholly below or above it
 		amb := [][2]float64{{0, 0}, {-20, 10}, {30, 70}, {-40, 85}}[rng.IntN(4)]
 		req.AmbientMin_C, req.AmbientMax_C = amb[0], amb[1]
-		t.Run(fmt.Sprintf("case%02d", k), func(t *testing.T) {
+		// every topology, both polarities (the PNP stage mirrors the NPN
+		// one: signed rails, the same transistors of the other polarity)
+		req.Topology = []solver.Topology{solver.Divider, solver.CollectorFeedback, solver.SplitSupply}[k%3]
+		if req.Topology == solver.SplitSupply {
+			req.VEE_V = -[]float64{5, 9, 12}[rng.IntN(3)]
+		}
+		if k%4 == 1 {
+			req.VCC_V, req.VEE_V = -req.VCC_V, -req.VEE_V
+			for i := range st.Transistors {
+				st.Transistors[i].Sheet.Polarity = solver.PNP
+			}
+		}
+		t.Run(fmt.Sprintf("case%02d_%v", k, req.Topology), func(t *testing.T) {
 			fast, errFast := Pick(st, req)
 			req.Exhaustive = true
 			full, err := Pick(st, req)

@@ -98,22 +98,6 @@ func (e *evaluator) buyTransistor() Purchase {
 		VCEO_V: math.Ceil(s.vcc * (1 + s.vccTol) / VoltageDerating), ICMax_A: s.icT / CurrentDerating}
 }
 
-// ideal is the hand-method design for device d: VE = VCC/10, VCE at its
-// target, R_TH = 0.1(hFE min + 1)·RE, VBE 0.65 V (common practice).
-func (e *evaluator) ideal(d *device) [nPos]float64 {
-	s := e.s
-	vceT := s.vceT
-	if vceT == 0 {
-		vceT = (s.vcc + d.vceSat) / 2
-	}
-	ve := s.vcc / 10
-	re := ve / s.icT
-	rc := math.Max((s.vcc-vceT-ve)/s.icT, re/10)
-	rth := 0.1 * (d.hfeMin + 1) * re
-	vb := ve + 0.65
-	return [nPos]float64{rth * s.vcc / vb, rth * s.vcc / (s.vcc - vb), rc, re}
-}
-
 // buyResistors tries hand-method values (for the transistor of the
 // nearest build): one slot's value at a time, then two, and returns the
 // first purchase that gives a build that fits (nil when none does).
@@ -128,14 +112,12 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 		}
 	}
 	id := e.ideal(d)
-	var parts [nPos]Purchase
-	for i, r := range id {
+	var parts [maxPos]Purchase
+	np := e.lay.n
+	for i, r := range id[:np] {
 		ohm := eseries.Nearest(buySeries, r)
 		p := Purchase{Slot: e.lay.names[i], Ohm: ohm, Series: buySeries.String(), Tol: buyTol, Qty: 2 * s.boards}
-		est := s.icT * s.icT * ohm // collector and emitter positions
-		if i == iR1 || i == iR2 {
-			est = s.vcc * s.vcc / (id[iR1] + id[iR2]) * (id[i] / (id[iR1] + id[iR2]))
-		}
+		est := e.idealPower_W(d, id, i, ohm)
 		p.Rated_W = buyRatings_W[len(buyRatings_W)-1]
 		for _, w := range buyRatings_W {
 			if est <= w*s.lim.ResistorMaxFraction*derateAt(s.ambMax) {
@@ -158,13 +140,13 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 		}
 		return e.fitsWith(d, id, bought)
 	}
-	for i := range nPos {
+	for i := range np {
 		if try(i) {
 			return []Purchase{parts[i]}
 		}
 	}
-	for i := range nPos {
-		for j := i + 1; j < nPos; j++ {
+	for i := range np {
+		for j := i + 1; j < np; j++ {
 			if try(i, j) {
 				return []Purchase{parts[i], parts[j]}
 			}
@@ -176,7 +158,7 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 // fitsWith reports whether some build made of the bought values (in their
 // slots) and the stocked levels nearest the ideal values (two per other
 // slot) fits, on device d.
-func (e *evaluator) fitsWith(d *device, ideal [nPos]float64, bought map[int]Purchase) bool {
+func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Purchase) bool {
 	lines := append([]Resistor(nil), e.vs.lines...)
 	for k, p := range bought {
 		lines = append(lines, Resistor{ID: -1 - int64(k), Ohm: p.Ohm, Tol: p.Tol, TCR_PPMPerK: buyTCR_PPMPerK, Rated_W: p.Rated_W,
@@ -186,38 +168,51 @@ func (e *evaluator) fitsWith(d *device, ideal [nPos]float64, bought map[int]Purc
 	if len(vs.levels) == 0 {
 		return false
 	}
-	ev := &evaluator{s: e.s, lay: e.lay, vs: &vs, devs: []device{*d}}
+	ev := &evaluator{s: e.s, lay: e.lay, vs: &vs, devs: []device{*d}, span: e.span}
 	ev.devs[0].betaNomMin = ev.nominalBetaMin(&ev.devs[0]) // over these values
 	inf := func() float64 { return math.Inf(1) }
-	var choices [nPos][]int
-	for i := range nPos {
+	var choices [maxPos][]int
+	np := e.lay.n
+	for i := range np {
 		if p, ok := bought[i]; ok {
 			choices[i] = []int{vs.levelAtOrAbove(p.Ohm * (1 - 1e-9))}
 			continue
 		}
 		choices[i] = nearestLevels(&vs, ideal[i])
-	}
-	for _, a := range choices[0] {
-		for _, b := range choices[1] {
-			for _, c := range choices[2] {
-				for _, r := range choices[3] {
-					t := ev.newTuple(0, [nPos]int{a, b, c, r})
-					found := false
-					ev.scoreVariants(t, inf, inf, func(x *evaluated) {
-						if found || len(x.failing) > 0 {
-							return
-						}
-						cand := Candidate{Failing: x.failing, Nominal: x.op, VCETarget_V: ev.vceTarget(d, t.r)}
-						found = ev.fits(cand)
-					}, &counters{})
-					if found {
-						return true
-					}
-				}
-			}
+		if len(choices[i]) == 0 {
+			return false
 		}
 	}
-	return false
+	// k walks every choice combination
+	var k [maxPos]int
+	for {
+		var lv [maxPos]int
+		for i := range np {
+			lv[i] = choices[i][k[i]]
+		}
+		t := ev.newTuple(0, lv)
+		found := false
+		ev.scoreVariants(t, inf, inf, func(x *evaluated) {
+			if found || len(x.failing) > 0 {
+				return
+			}
+			cand := Candidate{Failing: x.failing, Nominal: x.op, VCETarget_V: ev.vceTarget(d, t.r)}
+			found = ev.fits(cand)
+		}, &counters{})
+		if found {
+			return true
+		}
+		i := np - 1
+		for ; i >= 0; i-- {
+			if k[i]++; k[i] < len(choices[i]) {
+				break
+			}
+			k[i] = 0
+		}
+		if i < 0 {
+			return false
+		}
+	}
 }
 
 // buyTCR_PPMPerK is the TCR assumed for a bought part: thick film's

@@ -54,8 +54,8 @@ func tjMaxOf(d solver.Datasheet) float64 {
 // least the target over CurrentDerating; the dissipation at the target
 // current and the mid-supply VCE within the derated, margined allowance at
 // the hottest ambient. The worst-case corners check each build again.
-func (s settings) transistorCandidates(ts []Transistor) (devs []device, rejected []Rejection) {
-	vccHi := s.vcc * (1 + s.vccTol)
+func (s settings) transistorCandidates(ts []Transistor, span float64) (devs []device, rejected []Rejection) {
+	vccHi := span * (1 + s.vccTol)
 	for _, t := range ts {
 		d := t.Sheet
 		if d.Polarity != s.pol || !hasTags(t.Tags, s.req.RequireTags) {

@@ -45,12 +45,17 @@ type Weights struct {
 // Request is what the technician asks for. The zero value of each optional
 // field means its documented default.
 type Request struct {
-	Topology solver.Topology // 0 = divider
+	Topology solver.Topology // 0 = divider; AnyTopology = every topology on one scale
 	Polarity solver.Polarity
 	VCC_V    float64 // signed (negative for PNP)
-	VCCTol   float64
-	IC_A     float64 // target collector current
-	VCE_V    float64 // target VCE magnitude; 0 = the maximum-symmetrical-swing rule
+	// VEE_V is the emitter rail of the split-supply stage, signed opposite
+	// to VCC_V (negative for NPN, positive for PNP); VCCTol applies to it
+	// too. Required for split supply; with AnyTopology, split-supply builds
+	// are searched only when it is given.
+	VEE_V  float64
+	VCCTol float64
+	IC_A   float64 // target collector current
+	VCE_V  float64 // target VCE magnitude; 0 = the maximum-symmetrical-swing rule
 	// VEMin_V and VEMax_V bound the emitter voltage magnitude the emitter
 	// term aims at; both 0 = DefaultVEMinFrac..DefaultVEMaxFrac of |VCC|.
 	VEMin_V      float64
@@ -105,11 +110,12 @@ type Terms struct {
 // Candidate is one ranked build.
 type Candidate struct {
 	ID         string // stable for the same stock and request
+	Topology   solver.Topology
 	Rank       int
 	Score      float64
 	Terms      Terms
 	Transistor Transistor
-	Positions  map[string]Position // keyed by slot name: "r1", "r2", "rc", "re"
+	Positions  map[string]Position // keyed by position name: "r1", "r2", "rc", "re" (divider), "rf", "rc", "re", "rb"
 	Build      solver.Build
 	Model      solver.Model
 	Nominal    solver.OperatingPoint
@@ -144,4 +150,23 @@ type Result struct {
 	// self-heated operating point), the search's main cost.
 	Solved    int64
 	Shortfall *Shortfall
+	// Rivals, when several topologies were searched, hold the best build
+	// of each topology other than the first candidate's.
+	Rivals []Rival
+}
+
+// Rival is the best build of one topology set against the first
+// candidate of another.
+type Rival struct {
+	Topology solver.Topology
+	// Best is nil when the topology has no build at all.
+	Best *Candidate
+	// Term is the score term (a Weights field name in lower case:
+	// "qpoint", "emitter", "beta", "headroom", "utilization", "yield",
+	// "parts") in which Best, weighted, trails the first candidate the
+	// most; "" when Best does not trail at all or is missing. Failing is
+	// true when Best fails a hard limit (it then ranks below every passing
+	// build whatever its score).
+	Term    string
+	Failing bool
 }

@@ -1,0 +1,192 @@
+package picker
+
+import (
+	"math"
+)
+
+// Positions of a collector-feedback build's arrays (feedbackLayout).
+const (
+	fRF = iota
+	fRC
+	fRE
+)
+
+// feedbackPlan searches RF, RC, RE of a collector-feedback stage over
+// (device, RE, RC, RF); doc.go, "The collector-feedback plan", states its
+// bounds.
+type feedbackPlan struct {
+	e     *evaluator
+	cache tupleCache
+	seeds seedOrder
+}
+
+// tuple returns the (cached) solved level tuple of device di.
+func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
+	return f.cache.get(f.e, di, [maxPos]int{rf, rc, re}, cnt)
+}
+
+// rfWindow returns the RF levels whose builds at (RC, RE) can have a
+// nominal IC in [icLo, icHi]: IC falls as RF rises (lemma F1), so the
+// window is found by two searches, from the guesses given. A tuple that
+// cannot be solved never narrows the window.
+func (f *feedbackPlan) rfWindow(di, rc, re int, icLo, icHi float64, gLo, gHi int, cnt *counters) (lo, hi int) {
+	n := len(f.e.vs.levels)
+	lo = firstFrom(n, gLo, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(icHi) })
+	hi = firstFrom(n, gHi, func(i int) bool {
+		t := f.tuple(di, i, rc, re, cnt)
+		return t.ok && t.op.IC_A < icLo
+	}) - 1
+	return lo, hi
+}
+
+// seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2
+// and 0.05 of VCC, RE = VE/IC, RC for the target VCE, RF by a search for
+// the target current (then RC and RF once more), and the 3×3 RF, RC
+// levels around them. It changes only the order of the search.
+func (f *feedbackPlan) seed(p *pool, cnt *counters) {
+	e := f.e
+	n := len(e.vs.levels)
+	if n == 0 {
+		return
+	}
+	f.seeds.reset(len(e.devs))
+	for di := range e.devs {
+		f.cache.reset()
+		_, vceHi := e.targetBand(&e.devs[di])
+		for _, veShare := range []float64{0.1, 0.2, 0.05} {
+			ve := e.s.vcc * veShare
+			re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
+			rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
+			var rf int
+			for range 2 {
+				rf = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(e.s.icT) }), n)
+				rc = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceAtMost(vceHi) }), n)
+			}
+			for a := max(rf-1, 0); a <= min(rf+1, n-1); a++ {
+				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
+					e.scoreVariants(f.tuple(di, a, c, re, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
+						f.seeds.note(di, re, ev)
+						p.add(ev)
+					}, cnt)
+				}
+			}
+		}
+	}
+}
+
+// search is the branch and bound over (device, RE, RC, RF).
+func (f *feedbackPlan) search(p *pool, cnt *counters) {
+	e := f.e
+	n := len(e.vs.levels)
+	if n == 0 {
+		return
+	}
+	w := e.s.w
+	done := 0
+	for _, di := range f.seeds.order(len(e.devs)) {
+		e.progress(int64(done), int64(len(e.devs)))
+		done++
+		dv := &e.devs[di]
+		vceLo, vceHi := e.targetBand(dv)
+		kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
+		e.eachRE(p, f.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
+			f.cache.reset()
+			reOhm := e.vs.levels[re].ohm
+			// Bound RC (kRC = kE: RC carries IE = IC + IB).
+			rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
+			gLo, gHi := n/2, n/2
+			for rc := rcLo; rc <= rcHi; rc++ {
+				bd := e.boundsNow(p)
+				icLo, icHi := bd.icLo, bd.icHi
+				if bd.finite {
+					// RE's utilization and the emitter term bound every
+					// build at this RE from below (bounds U-RE and
+					// E-RE), and bound B every build at this RC and RE
+					// (F-B); what is left of the threshold bounds the
+					// QPoint term, so the IC window narrows. The
+					// QPoint term itself is at least qFloor (F-Q).
+					uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+					eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+					base := w.Utilization*uRE + w.Emitter*eLo
+					if base > bd.thr {
+						break
+					}
+					r := e.vs.levels[rc].ohm + reOhm
+					if w.Beta > 0 {
+						base += w.Beta * f.betaFloorRC(dv, bd, r)
+					}
+					if base+w.QPoint*e.feedbackQFloor(r, kE, vceLo, vceHi) > bd.thr {
+						continue
+					}
+					if w.QPoint > 0 {
+						d2 := (bd.thr - base) / w.QPoint
+						icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
+					}
+				}
+				lo, hi := f.rfWindow(di, rc, re, icLo, icHi, gLo, gHi, cnt)
+				gLo, gHi = lo, hi+1
+				if lo > hi {
+					continue
+				}
+				if bd.finite && w.Beta > 0 {
+					// Bound B over the window, with R_TH = RF between
+					// its ends and RE' = RC + RE (baseLoop): what is
+					// left of the threshold narrows the window again.
+					bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
+						RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
+					base := w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W + w.Beta*bLo
+					if base > bd.thr {
+						continue
+					}
+					if w.QPoint > 0 {
+						d2 := (bd.thr - base) / w.QPoint
+						lo, hi = f.rfWindow(di, rc, re, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2), lo, hi+1, cnt)
+					}
+				}
+				for rf := lo; rf <= hi; rf++ {
+					e.scoreVariants(f.tuple(di, rf, rc, re, cnt), p.threshold, p.lastScore, p.add, cnt)
+				}
+			}
+		})
+	}
+	e.progress(int64(len(e.devs)), int64(len(e.devs)))
+}
+
+// betaFloorRC is bound B (betaFloor) over every build of dv with
+// RC + RE = r whose nominal IC lies in the window of bd (bound F-B). The
+// base loop is VCC − VBE = IB·RF + IE·r (baseLoop), so with IB ≤ IC/β_min
+// (β_min = betaNomMin) every such build has RF ≥ β_min·(VCC − VBE_hi −
+// kE·icHi·r)/icHi; R_TH runs from there to the largest level.
+func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
+	e := f.e
+	_, vbeHi := e.vbeBounds(dv, bd.icLo, bd.icHi)
+	kE := 1 + 1/dv.betaNomMin
+	rfMin := dv.betaNomMin * (e.s.vcc - vbeHi - kE*bd.icHi*r) / bd.icHi
+	if rfMin <= 0 {
+		return 0
+	}
+	return e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: math.Max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: r,
+		ICLo: bd.icLo, ICHi: bd.icHi})
+}
+
+// feedbackQFloor is a lower bound on the QPoint term of every
+// collector-feedback build with RC + RE = r (bound F-Q): its VCE is
+// VCC − IE·r with IE between IC and kE·IC, so at a current x its VCE lies
+// in [VCC − kE·x·r, VCC − x·r], and the term is at least |x − IC_t|/IC_t
+// plus that interval's distance from the target band [vceLo, vceHi] over
+// the span. That sum is convex in x (a sum of maxima of linear
+// functions), so its least value is at a breakpoint: x = IC_t, or where an
+// end of the interval meets an end of the band.
+func (e *evaluator) feedbackQFloor(r, kE, vceLo, vceHi float64) float64 {
+	vcc, it := e.s.vcc, e.s.icT
+	at := func(x float64) float64 {
+		x = math.Max(0, x)
+		d := math.Max(0, math.Max(vcc-kE*x*r-vceHi, vceLo-(vcc-x*r)))
+		return math.Abs(x-it)/it + d/e.span
+	}
+	q := at(it)
+	for _, x := range []float64{(vcc - vceLo) / r, (vcc - vceHi) / (kE * r), (vcc - vceHi) / r, (vcc - vceLo) / (kE * r)} {
+		q = math.Min(q, at(x))
+	}
+	return q * (1 - 1e-12)
+}

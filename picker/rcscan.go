@@ -1,0 +1,134 @@
+package picker
+
+import (
+	"math"
+
+	"biasbin/solver"
+)
+
+// rcBand returns the RC levels whose builds can have a nominal VCE within
+// delta·VCC of the target band (bound RC, doc.go): with IC in
+// [icLo, icHi] and IE in [IC, kE·IC], VCE = VCC − IC·RC − IE·RE lies in
+// [VCC − icHi(RC + kE·RE), VCC − icLo(RC + RE)] (VCC the span).
+//
+// kRC generalises it to a stage whose RC carries up to kRC·IC (the
+// collector-feedback stage's RC carries IE: kRC = kE); it is 1 where RC
+// carries IC alone.
+func (e *evaluator) rcBand(b bounds, reOhm, kRC, kE, vceLo, vceHi float64) (lo, hi int) {
+	n := len(e.vs.levels)
+	if !b.finite {
+		return 0, n - 1
+	}
+	vcc := e.span
+	lo = e.vs.levelAtOrAbove(((vcc-vceHi-b.delta*vcc)/b.icHi - kE*reOhm) / kRC)
+	hi = n - 1
+	if b.icLo > 0 {
+		rcMax := (vcc-vceLo+b.delta*vcc)/b.icLo - reOhm
+		if rcMax < 0 {
+			return 1, 0
+		}
+		hi = min(n-1, e.vs.levelAtOrAbove(rcMax*(1+1e-12))-1)
+		if hi+1 < n && sameOhm(e.vs.levels[hi+1].ohm, rcMax) {
+			hi++
+		}
+	}
+	return lo, hi
+}
+
+// icFloor is the lower envelope of the nominal IC over the builds at
+// (R1, R2, RE) with RC in [rcLo, rcHi] that are active at their nominal
+// point: IC falls with RC (lemma L2) and saturation only deepens with RC,
+// so it is IC at the largest band RC whose nominal point is active. any
+// is false when no band RC is active (every such build fails a hard
+// limit).
+func icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi float64) (ic float64, any bool) {
+	top := probe(rcHi)
+	if top.ok && top.op.Region != solver.Saturation {
+		return top.op.IC_A, true
+	}
+	// Saturated at the top of the band. If the bottom is saturated too,
+	// so is every band RC; if the bottom is active with IC at most icHi,
+	// the floor (IC at the last active RC, at most IC at the bottom) is
+	// too, which is all the caller asks.
+	if bot := probe(rcLo); bot.ok {
+		if bot.op.Region == solver.Saturation {
+			return 0, false
+		}
+		if bot.op.IC_A <= icHi {
+			return bot.op.IC_A, true
+		}
+	}
+	// first band RC that saturates; the one below it is the last active
+	k := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool {
+		t := probe(rcLo + i)
+		return t.ok && t.op.Region == solver.Saturation
+	})
+	if k == rcLo {
+		return 0, false
+	}
+	t := probe(k - 1)
+	if !t.ok {
+		return 0, true
+	}
+	return t.op.IC_A, true
+}
+
+// scanRC scores the RC levels of one tuple lv (every position but RC's,
+// rcPos, fixed) outward from the VCE target, for any topology whose VCE is
+// span − IC·RC − IE·RE with IC and VCE falling as RC rises (lemma L2):
+// below the first RC whose VCE is at or under the top of the target band
+// the VCE term only grows going down, and from it upward only grows once
+// VCE is under the bottom of the band. IC falls with RC too, so going
+// down an IC already over the target only moves further off, and going up
+// one already under it likewise. guess is where the last scan split.
+func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [maxPos]int, rcPos int, guess *int, rcLo, rcHi int, vceLo, vceHi, kE, base float64) {
+	w, vcc, ict := e.s.w, e.span, e.s.icT
+	at := func(rc int) [maxPos]int { lv[rcPos] = rc; return lv }
+	tup := func(rc int) *tuple { return tc.get(e, di, at(rc), cnt) }
+	re := lv[e.lay.re]
+	reOhm := e.vs.levels[re].ohm
+	// IC at the band's bottom bounds IC at every band RC from above and, for builds active
+	// at their nominal point, IC at the top of the band bounds it from
+	// below (lemma L2); both are usually solved already by the R1 range
+	// search. With them VCE = VCC − IC·RC − IE·RE is bounded before a
+	// solve: VCE ≥ VCC − icUp(RC + kE·RE) and VCE ≤ VCC − icDn(RC + RE).
+	icUp, icDn := math.Inf(1), 0.0
+	if t, ok := tc.peek(at(rcLo)); ok && t.ok {
+		icUp = t.op.IC_A
+	}
+	if t, ok := tc.peek(at(rcHi)); ok && t.ok && t.op.Region == solver.Active {
+		icDn = t.op.IC_A
+	}
+	// the QPoint term's IC part is at least the envelope's distance
+	// from the target; with the other terms' floor that may settle it
+	if base+w.QPoint*math.Max(0, math.Max(icDn-ict, ict-icUp))/ict > p.threshold() {
+		return
+	}
+	split := rcLo + firstFrom(rcHi-rcLo+1, *guess-rcLo, func(i int) bool { return tup(rcLo + i).vceAtMost(vceHi) })
+	*guess = split
+	for rc := split - 1; rc >= rcLo; rc-- {
+		rcOhm := e.vs.levels[rc].ohm
+		if vceMin := vcc - icUp*(rcOhm+kE*reOhm); base+w.QPoint*(vceMin-vceHi)/vcc > p.threshold() {
+			break
+		}
+		t := tup(rc)
+		if t.ok {
+			icOff := math.Max(0, math.Max(t.op.IC_A-ict, ict-icUp)) / ict
+			if base+w.QPoint*((t.op.VCE_V-vceHi)/vcc+icOff) > p.threshold() {
+				break
+			}
+		}
+		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
+	}
+	for rc := split; rc <= rcHi; rc++ {
+		rcOhm := e.vs.levels[rc].ohm
+		if vceMax := vcc - icDn*(rcOhm+reOhm); base+w.QPoint*(vceLo-vceMax)/vcc > p.threshold() {
+			break
+		}
+		t := tup(rc)
+		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
+			break
+		}
+		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
+	}
+}

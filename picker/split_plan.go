@@ -1,0 +1,122 @@
+package picker
+
+import (
+	"math"
+)
+
+// Positions of a split-supply build's arrays (splitLayout).
+const (
+	sRB = iota
+	sRC
+	sRE
+)
+
+// splitPlan searches RB, RC, RE of a split-supply stage over (device, RE,
+// RB, RC); doc.go, "The split-supply plan", states its bounds.
+type splitPlan struct {
+	e     *evaluator
+	cache tupleCache
+	// splitGuess is where the last RC scan split (a start for the next)
+	splitGuess int
+	seeds      seedOrder
+}
+
+// tuple returns the (cached) solved level tuple of device di.
+func (sp *splitPlan) tuple(di, rb, rc, re int, cnt *counters) *tuple {
+	return sp.cache.get(sp.e, di, [maxPos]int{rb, rc, re}, cnt)
+}
+
+// seed evaluates, for every device, hand-method builds: RB = 0.1, 0.03
+// and 0.3 of hFE min·RE, RE by a search for the target current, RC for
+// the target VCE, and the 3×3 RE, RC levels around them. It changes only
+// the order of the search.
+func (sp *splitPlan) seed(p *pool, cnt *counters) {
+	e := sp.e
+	n := len(e.vs.levels)
+	if n == 0 {
+		return
+	}
+	sp.seeds.reset(len(e.devs))
+	for di := range e.devs {
+		sp.cache.reset()
+		dv := &e.devs[di]
+		_, vceHi := e.targetBand(dv)
+		re0 := clampLevel(e.vs.levelAtOrAbove((e.s.vee-handVBE_V)/e.s.icT), n)
+		rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc+handVBE_V-vceHi)/e.s.icT), n)
+		for _, stiff := range []float64{0.1, 0.03, 0.3} {
+			rb := clampLevel(e.vs.levelAtOrAbove(stiff*dv.hfeMin*e.vs.levels[re0].ohm), n)
+			re := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, rc, i, cnt).icAtMost(e.s.icT) }), n)
+			rc := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, i, re, cnt).vceAtMost(vceHi) }), n)
+			for a := max(re-1, 0); a <= min(re+1, n-1); a++ {
+				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
+					e.scoreVariants(sp.tuple(di, rb, c, a, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
+						sp.seeds.note(di, a, ev)
+						p.add(ev)
+					}, cnt)
+				}
+			}
+		}
+	}
+}
+
+// search is the branch and bound over (device, RE, RB, RC).
+func (sp *splitPlan) search(p *pool, cnt *counters) {
+	e := sp.e
+	n := len(e.vs.levels)
+	if n == 0 {
+		return
+	}
+	w := e.s.w
+	done := 0
+	for _, di := range sp.seeds.order(len(e.devs)) {
+		e.progress(int64(done), int64(len(e.devs)))
+		done++
+		dv := &e.devs[di]
+		vceLo, vceHi := e.targetBand(dv)
+		kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
+		e.eachRE(p, sp.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
+			sp.cache.reset()
+			reOhm := e.vs.levels[re].ohm
+			rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
+			if rcLo > rcHi {
+				return
+			}
+			icLo, icHi := bd.icLo, bd.icHi
+			base := 0.0
+			if bd.finite {
+				// RE's utilization bounds every build at this RE from
+				// below (U-RE); what is left of the threshold bounds
+				// the QPoint term, so the IC window narrows.
+				base = w.Utilization * bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+				if w.QPoint > 0 {
+					d2 := (bd.thr - base) / w.QPoint
+					icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
+				}
+			}
+			// Bound IC-RB: IC falls with RB (lemma L1 with R_TH = RB)
+			// and with RC (L2). IC at the band's bottom RC bounds every
+			// band build from above, so RB past the first where it is
+			// under the window is out; the IC of the band's largest
+			// active RC bounds the active builds from below, so RB
+			// before the first where that floor is within the window is
+			// out.
+			// (Only once the pool is full of passing builds: before, a
+			// failing build may still enter.)
+			rbLo, rbHi := 0, n-1
+			if bd.finite {
+				rbHi = firstFrom(n, n/2, func(i int) bool {
+					t := sp.tuple(di, i, rcLo, re, cnt)
+					return t.ok && t.op.IC_A < icLo
+				}) - 1
+				rbLo = firstFrom(n, 0, func(i int) bool {
+					ic, any := icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi)
+					return any && ic <= icHi
+				})
+			}
+			for rb := rbLo; rb <= rbHi; rb++ {
+				e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base)
+			}
+		})
+	}
+	e.progress(int64(len(e.devs)), int64(len(e.devs)))
+}
