@@ -24,13 +24,16 @@ type jsonResult struct {
 	BuildableBoards int             `json:"buildable_boards,omitempty"`
 	Candidates      []jsonCandidate `json:"candidates"`
 	Shortfall       *jsonShortfall  `json:"shortfall"`
-	Cautions        []string        `json:"cautions"`
+	// Rivals (topology any): the best build of each other topology.
+	Rivals   []jsonRival `json:"rivals,omitempty"`
+	Cautions []string    `json:"cautions"`
 }
 
 type jsonRequest struct {
 	Topology     string   `json:"topology"`
 	Polarity     string   `json:"polarity"`
 	VCC_V        float64  `json:"vcc_v"`
+	VEE_V        float64  `json:"vee_v,omitempty"` // split supply: the emitter rail, signed
 	VCCTol       float64  `json:"vcc_tol"`
 	IC_A         float64  `json:"ic_a"`
 	VCE_V        float64  `json:"vce_v"`    // 0 = the maximum-symmetrical-swing rule
@@ -48,8 +51,19 @@ type jsonRequest struct {
 	Seed         uint64   `json:"seed"`
 }
 
+// jsonRival is the best build of one topology against the first build.
+type jsonRival struct {
+	Topology string  `json:"topology"`
+	ID       string  `json:"id,omitempty"` // "" when the topology has no build
+	Score    float64 `json:"score,omitempty"`
+	Failing  bool    `json:"failing,omitempty"`
+	// Term is the score term it trails the first build in most, weighted.
+	Term string `json:"term,omitempty"`
+}
+
 type jsonCandidate struct {
 	ID              string                  `json:"id"`
+	Topology        string                  `json:"topology"`
 	Rank            int                     `json:"rank"`
 	Score           float64                 `json:"score"`
 	Terms           jsonTerms               `json:"terms"`
@@ -168,6 +182,13 @@ func writeJSON(w io.Writer, v *job.PickOutcome) error {
 	for _, b := range v.Builds {
 		doc.Candidates = append(doc.Candidates, jsonCandidateOf(b))
 	}
+	for _, r := range v.Result.Rivals {
+		jr := jsonRival{Topology: r.Topology.String(), Term: r.Term, Failing: r.Failing}
+		if r.Best != nil {
+			jr.ID, jr.Score = r.Best.ID, r.Best.Score
+		}
+		doc.Rivals = append(doc.Rivals, jr)
+	}
 	if s := v.Result.Shortfall; s != nil {
 		sf := &jsonShortfall{Reasons: report.Words(s.Reasons, report.Reason), Buy: report.Words(s.Purchases, report.Purchase),
 			Rejected:  report.Words(s.Rejected, report.Rejection),
@@ -188,9 +209,10 @@ func writeJSON(w io.Writer, v *job.PickOutcome) error {
 
 func jsonRequestOf(r picker.Request) jsonRequest {
 	return jsonRequest{
-		Topology:     r.Topology.String(),
+		Topology:     topologyName(r.Topology),
 		Polarity:     r.Polarity.String(),
 		VCC_V:        r.VCC_V,
+		VEE_V:        r.VEE_V,
 		VCCTol:       r.VCCTol,
 		IC_A:         r.IC_A,
 		VCE_V:        r.VCE_V,
@@ -211,9 +233,10 @@ func jsonRequestOf(r picker.Request) jsonRequest {
 
 func jsonCandidateOf(c job.Build) jsonCandidate {
 	jc := jsonCandidate{
-		ID:    c.ID,
-		Rank:  c.Rank,
-		Score: c.Score,
+		ID:       c.ID,
+		Topology: c.Build.Topology.String(),
+		Rank:     c.Rank,
+		Score:    c.Score,
 		Terms: jsonTerms{
 			QPoint:      c.Terms.QPoint,
 			Emitter:     c.Terms.Emitter,

@@ -28,6 +28,7 @@ type Options struct {
 	VE          string
 	Polarity    string
 	Topology    string
+	VEE         string
 	Ambient     string
 	Boards      int
 	Load        string

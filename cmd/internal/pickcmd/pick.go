@@ -42,6 +42,14 @@ band, the voltages to measure at bring-up and the Monte Carlo yield.
 
 Values take the letter-and-digit code or SI: 12V, 2mA, 4K7, 470R, 10k.
 
+Topologies (--topology): divider (R1, R2, RC, RE), collector-feedback (RF
+from collector to base, RC, RE) and split-supply (RB from base to ground,
+RC, RE to the emitter rail --vee). "any" searches every one (split supply
+only with --vee), ranks their builds on one scale, names each build's
+topology and says in one line why the first beats the best of each other
+topology. For split supply the supply span is VCC + VEE and the emitter
+term does not apply (VEE sets the emitter resistor's drop).
+
 Without --vce the target VCE is, for each build, the one that gives the
 largest symmetrical swing on its load lines:
   VCE = VCE(sat) + (VCC - VCE(sat)) * r_ac / (R_dc + r_ac)
@@ -82,7 +90,9 @@ can take their parts out of stock later.
 ` + report.Ranges(append([]solver.Range{solver.SupplyRange}, picker.RequestRanges()...)),
 		Example: `  biasbin pick --vcc 12V --ic 2mA
   biasbin pick --vcc 9V --ic 500uA --polarity pnp --boards 20 --pairs
-  biasbin pick --vcc 15V --ic 1mA --vce 6V --load 10K --bypass --weights q=2,yield=0.5 --json`,
+  biasbin pick --vcc 15V --ic 1mA --vce 6V --load 10K --bypass --weights q=2,yield=0.5 --json
+  biasbin pick --vcc 12V --vee 12V --ic 1mA --topology split-supply
+  biasbin pick --vcc 9V --ic 1mA --topology any`,
 		Args: func(_ *cobra.Command, args []string) error {
 			if len(args) > 0 {
 				return cmdutil.Usagef("pick takes no arguments, only flags (got %q); e.g. biasbin pick --vcc 12V --ic 2mA", args[0])
@@ -103,7 +113,8 @@ can take their parts out of stock later.
 	fl.StringVar(&o.VCE, "vce", "", "target VCE (default: the maximum-symmetrical-swing rule, see above)")
 	fl.StringVar(&o.VE, "ve", "", "emitter voltage band MIN..MAX or a single value (default 5 % to 20 % of the supply)")
 	fl.StringVar(&o.Polarity, "polarity", "npn", "transistor polarity: npn or pnp")
-	fl.StringVar(&o.Topology, "topology", "divider", "bias circuit (divider; others not yet supported)")
+	fl.StringVar(&o.Topology, "topology", "divider", "bias circuit: divider, collector-feedback, split-supply, or any (every one, ranked on one scale)")
+	fl.StringVar(&o.VEE, "vee", "", "emitter rail of the split-supply stage, e.g. 12V (a magnitude, taken opposite to --vcc; --vcc-tol applies to it too)")
 	fl.StringVar(&o.Ambient, "ambient", defaultAmbient, "ambient temperature range in °C, MIN..MAX")
 	fl.IntVar(&o.Boards, "boards", defaultBoards, "boards to build; every part is needed this many times")
 	fl.StringVar(&o.Load, "load", "", "AC load on the collector, e.g. 10K (for the AC load line)")
@@ -246,8 +257,12 @@ func WriteText(w io.Writer, v *job.PickOutcome, st Style) {
 	case !v.Fits:
 		fmt.Fprintln(w, "\nNothing fits. The nearest builds, each with the limit it breaks:")
 	}
+	several := v.Request.Topology == picker.AnyTopology
 	for _, b := range v.Builds {
-		writeCandidate(w, b, st)
+		writeCandidate(w, b, several, st)
+	}
+	if len(v.Result.Rivals) > 0 {
+		writeRivals(w, v.Builds[0], v.Result.Rivals)
 	}
 	for _, b := range v.Builds {
 		if b.Fits() {

@@ -46,6 +46,19 @@ func (o *Options) request() (picker.Request, error) {
 	if pol == solver.PNP {
 		req.VCC_V = -mag // PNP rails are signed: the mirror of the NPN stage
 	}
+	span := mag
+	if o.VEE != "" {
+		vee, err := notation.ParseVoltage(o.VEE)
+		if err != nil {
+			return req, cmdutil.Usagef("--vee: %v", err)
+		}
+		if vee == 0 {
+			return req, cmdutil.Usagef("--vee 0: give the emitter rail's voltage, e.g. --vee 12V, or leave --vee out")
+		}
+		// the emitter rail lies opposite the collector rail
+		req.VEE_V = -math.Abs(vee) * math.Copysign(1, req.VCC_V)
+		span += math.Abs(vee)
+	}
 
 	if req.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
 		return req, cmdutil.Usagef("--vcc-tol: %v", err)
@@ -72,9 +85,9 @@ func (o *Options) request() (picker.Request, error) {
 		if req.VCE_V == 0 {
 			return req, cmdutil.Usagef("--vce 0: the transistor would sit in saturation; give a VCE between 1 V and the supply, or leave --vce out for the swing rule")
 		}
-		if req.VCE_V >= mag*(1-req.VCCTol) {
+		if req.VCE_V >= span*(1-req.VCCTol) {
 			return req, cmdutil.Usagef("--vce %s cannot exist on a %s supply (lowest %s at -%s): VCE must stay below the supply; lower --vce or raise --vcc",
-				o.VCE, trimV(mag), trimV(mag*(1-req.VCCTol)), strings.TrimSpace(o.VCCTol))
+				o.VCE, trimV(span), trimV(span*(1-req.VCCTol)), strings.TrimSpace(o.VCCTol))
 		}
 	}
 
@@ -138,15 +151,14 @@ func (o *Options) request() (picker.Request, error) {
 	return req, nil
 }
 
-// parseTopology accepts the divider; the other topologies are known but not
-// searched yet.
+// parseTopology reads --topology: a topology's name or "any".
 func parseTopology(s string) (solver.Topology, error) {
+	if strings.TrimSpace(s) == "any" {
+		return picker.AnyTopology, nil
+	}
 	t, err := solver.ParseTopology(strings.TrimSpace(s))
 	if err != nil {
-		return 0, cmdutil.Usagef("--topology %q: want divider", s)
-	}
-	if t != solver.Divider {
-		return 0, cmdutil.Usagef("--topology %s: not yet supported by pick; use --topology divider (biasbin check analyses a %s build you name)", t, t)
+		return 0, cmdutil.Usagef("--topology %q: want divider, collector-feedback, split-supply or any", s)
 	}
 	return t, nil
 }

@@ -140,7 +140,7 @@ func TestFlagErrors(t *testing.T) {
 		{"vce above the supply", append(base, "--vce", "15V"), []string{"--vce 15V cannot exist", "12 V supply", "lower --vce or raise --vcc"}},
 		{"vce at the supply's low end", append(base, "--vce", "11.5V"), []string{"cannot exist", "11.4 V"}},
 		{"unknown polarity", append(base, "--polarity", "fet"), []string{"--polarity", "npn or pnp"}},
-		{"other topology", append(base, "--topology", "collector-feedback"), []string{"not yet supported", "--topology divider"}},
+		{"zero emitter rail", append(base, "--topology", "split-supply", "--vee", "0"), []string{"--vee 0", "--vee 12V"}},
 		{"unknown topology", append(base, "--topology", "cascode"), []string{"--topology", "want divider"}},
 		{"ambient backwards", append(base, "--ambient", "60..-10"), []string{"--ambient"}},
 		{"ambient not a range", append(base, "--ambient", "25"), []string{"--ambient", "0..50"}},

@@ -10,6 +10,7 @@ import (
 
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/report"
+	"biasbin/picker"
 	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/solver/notation"
@@ -26,8 +27,16 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	if r.Pairs {
 		pairs = "pairs allowed"
 	}
-	fmt.Fprintf(w, "%s %s stage on %s ±%s: IC %s, %s, ambient %s..%s °C, %d board%s, %s\n",
-		strings.ToUpper(r.Polarity.String()), r.Topology, quantity(r.VCC_V, "V"), strings.TrimSuffix(percent(r.VCCTol), " %")+" %",
+	rails := quantity(r.VCC_V, "V")
+	if r.VEE_V != 0 {
+		rails += " and VEE " + quantity(r.VEE_V, "V")
+	}
+	stage := r.Topology.String() + " stage"
+	if r.Topology == picker.AnyTopology {
+		stage = "stage of any topology"
+	}
+	fmt.Fprintf(w, "%s %s on %s ±%s: IC %s, %s, ambient %s..%s °C, %d board%s, %s\n",
+		strings.ToUpper(r.Polarity.String()), stage, rails, strings.TrimSuffix(percent(r.VCCTol), " %")+" %",
 		quantity(r.IC_A, "A"), vce, trimNum(r.AmbientMin_C), trimNum(r.AmbientMax_C), v.Boards, plural(v.Boards), pairs)
 	if r.RL_Ohm > 0 || r.Bypass {
 		load := "no AC load"
@@ -57,8 +66,13 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 
 // writeCandidate writes one build as a block: what to pull, the Q-point,
 // the worst-case band, the test points, yield and the score terms.
-func writeCandidate(w io.Writer, c job.Build, st Style) {
-	fmt.Fprintf(w, "\n#%d  %s  score %.3f  (id %s)\n", c.Rank, c.Transistor.Sheet.Label, c.Score, c.ID)
+// With several topologies it names the build's.
+func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
+	topo := ""
+	if several {
+		topo = "  " + c.Build.Topology.String()
+	}
+	fmt.Fprintf(w, "\n#%d  %s%s  score %.3f  (id %s)\n", c.Rank, c.Transistor.Sheet.Label, topo, c.Score, c.ID)
 	for _, why := range c.Failing {
 		fmt.Fprintf(w, "    %s %s\n", st.mark("FAILS:"), report.Failure(why))
 	}
@@ -104,6 +118,57 @@ func writeCandidate(w io.Writer, c job.Build, st Style) {
 	t := c.Terms
 	fmt.Fprintf(w, "    terms     Q-point %.3f  emitter %.3f  beta %.3f  headroom %.3f  utilization %.3f  yield %.3f\n",
 		t.QPoint, t.Emitter, t.Beta, t.Headroom, t.Utilization, t.Yield)
+}
+
+// topologyName is a requested topology's name, "any" for every one.
+func topologyName(t solver.Topology) string {
+	if t == picker.AnyTopology {
+		return "any"
+	}
+	return t.String()
+}
+
+// termWords names a score term (picker.Rival.Term) on screen.
+var termWords = map[string]string{
+	"qpoint": "Q-point error", "emitter": "emitter band", "beta": "hFE sensitivity",
+	"headroom": "worst-case headroom", "utilization": "part loading", "yield": "yield loss",
+}
+
+// termOf returns the named term of t.
+func termOf(t picker.Terms, name string) float64 {
+	switch name {
+	case "qpoint":
+		return t.QPoint
+	case "emitter":
+		return t.Emitter
+	case "beta":
+		return t.Beta
+	case "headroom":
+		return t.Headroom
+	case "utilization":
+		return t.Utilization
+	}
+	return t.Yield
+}
+
+// writeRivals writes, in one line, why the first build beats the best of
+// each other topology searched.
+func writeRivals(w io.Writer, first job.Build, rivals []picker.Rival) {
+	var parts []string
+	for _, r := range rivals {
+		switch {
+		case r.Best == nil:
+			parts = append(parts, fmt.Sprintf("no %s build came out of the stock", r.Topology))
+		case r.Failing:
+			parts = append(parts, fmt.Sprintf("the best %s build (score %.3f) breaks a hard limit", r.Topology, r.Best.Score))
+		case r.Term == "":
+			parts = append(parts, fmt.Sprintf("the best %s build scores %.3f", r.Topology, r.Best.Score))
+		default:
+			parts = append(parts, fmt.Sprintf("the best %s build scores %.3f, mostly on %s (%.3f against %.3f)", r.Topology, r.Best.Score,
+				termWords[r.Term], termOf(r.Best.Terms, r.Term), termOf(first.Terms, r.Term)))
+		}
+	}
+	fmt.Fprintf(w, "\nwhy #%d (%s, score %.3f) leads: %s\n", first.Rank, first.Build.Topology, first.Score, strings.Join(parts, "; "))
 }
 
 // writePullList writes the best build's parts for the whole run, one line
