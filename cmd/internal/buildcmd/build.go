@@ -90,7 +90,7 @@ func binName(b string) string {
 // its label.
 func partName(p store.BuildPart) string {
 	if p.Kind == store.KindResistor {
-		return notation.FormatResistance(p.Ohm)
+		return notation.FormatResistanceExact(p.Ohm)
 	}
 	return p.Label
 }

@@ -82,7 +82,7 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 		p := c.Positions[slot]
 		var from []string
 		for _, part := range p.Parts {
-			from = append(from, fmt.Sprintf("bin %s #%d %s", binName(part.Bin), part.ID, notation.FormatResistance(part.Ohm)))
+			from = append(from, fmt.Sprintf("bin %s #%d %s", binName(part.Bin), part.ID, notation.FormatResistanceExact(part.Ohm)))
 		}
 		fmt.Fprintf(tw, "    %s\t%s\t%s %s\t%s\n", strings.ToUpper(slot), positionCode(p), p.Arrangement, specNote(p.Spec), strings.Join(from, " + "))
 	}

@@ -13,11 +13,11 @@ import (
 // series pair as 4K7+330R and a parallel pair as 10K‖10K.
 func positionCode(p picker.Position) string {
 	if len(p.Parts) < 2 {
-		return notation.FormatResistance(p.Ohm)
+		return notation.FormatResistanceExact(p.Ohm)
 	}
 	codes := make([]string, len(p.Parts))
 	for i, part := range p.Parts {
-		codes[i] = notation.FormatResistance(part.Ohm)
+		codes[i] = notation.FormatResistanceExact(part.Ohm)
 	}
 	sep := "+"
 	if p.Arrangement == "parallel" {
@@ -30,7 +30,7 @@ func positionCode(p picker.Position) string {
 // transistor's label.
 func pullValue(p job.PullLine) string {
 	if p.Kind == job.Resistor {
-		return notation.FormatResistance(p.Ohm)
+		return notation.FormatResistanceExact(p.Ohm)
 	}
 	return p.Label
 }

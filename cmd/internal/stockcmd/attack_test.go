@@ -212,3 +212,16 @@ func TestHiddenCharactersAndTooManyTags(t *testing.T) {
 		t.Errorf("exit %d or the stock changed", r.code)
 	}
 }
+
+// Point 12: a 1001 Ω line and a 1 kΩ line never print alike.
+func TestCloseValuesPrintApart(t *testing.T) {
+	db := tempDB(t)
+	body := "value,tolerance,power,qty,bin\n1K0,1%,0.25W,5,A\n1001,1%,0.25W,5,A\n"
+	if r := run(t, db, "", "stock", "import", writeFile(t, "r.csv", body)); r.code != 0 {
+		t.Fatal(r.errOut)
+	}
+	r := run(t, db, "", "stock", "list", "--kind", "resistor")
+	if !strings.Contains(r.out, " 1K0 ") || !strings.Contains(r.out, " 1K001 ") {
+		t.Errorf("list does not tell the lines apart:\n%s", r.out)
+	}
+}

@@ -108,10 +108,18 @@ func writeFileAtomic(path string, write func(io.Writer) error) error {
 	}
 	mode := os.FileMode(0o644)
 	if fi, err := os.Stat(path); err == nil {
-		if !fi.Mode().IsRegular() {
-			return fmt.Errorf("export %s: not a regular file", path)
+		switch {
+		case fi.IsDir():
+			return fmt.Errorf("export %s: is a folder; name a file in it", path)
+		case !fi.Mode().IsRegular():
+			// A device or pipe (/dev/stdout, a FIFO) is written as it is:
+			// there is no file to replace.
+			return writeDevice(path, write)
 		}
 		mode = fi.Mode().Perm()
+	}
+	if fi, err := os.Stat(filepath.Dir(path)); err != nil || !fi.IsDir() {
+		return fmt.Errorf("export %s: there is no folder %s", path, filepath.Dir(path))
 	}
 	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*")
 	if err != nil {
@@ -134,6 +142,22 @@ func writeFileAtomic(path string, write func(io.Writer) error) error {
 		return fmt.Errorf("export %s: %w", path, err)
 	}
 	if err := os.Rename(tmp.Name(), path); err != nil {
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	return nil
+}
+
+// writeDevice writes to a device or pipe that is already there.
+func writeDevice(path string, write func(io.Writer) error) error {
+	fh, err := os.OpenFile(path, os.O_WRONLY, 0)
+	if err != nil {
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	if err := write(fh); err != nil {
+		fh.Close()
+		return fmt.Errorf("export %s: %w", path, err)
+	}
+	if err := fh.Close(); err != nil {
 		return fmt.Errorf("export %s: %w", path, err)
 	}
 	return nil

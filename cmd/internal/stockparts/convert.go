@@ -62,7 +62,7 @@ func Resistor(r store.Resistor) (picker.Resistor, error) {
 	r = r.WithDefaults()
 	spec := solver.ResistorSpec{Nominal_Ohm: r.Ohm, Tol: r.Tol, TCR_PPMPerK: r.TCR_PPMPerK, Rated_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C}
 	if err := spec.Validate(); err != nil {
-		return picker.Resistor{}, lineError(store.KindResistor, r.ID, notation.FormatResistance(r.Ohm), r.Bin, err)
+		return picker.Resistor{}, lineError(store.KindResistor, r.ID, notation.FormatResistanceExact(r.Ohm), r.Bin, err)
 	}
 	return picker.Resistor{
 		ID:          r.ID,
