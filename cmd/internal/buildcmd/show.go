@@ -46,7 +46,8 @@ readings and verdict.`,
 			return runShow(cmd.Context(), o)
 		},
 	}
-	cmd.Flags().BoolVar(&o.JSON, "json", false, "print the build as JSON")
+	cmd.Flags().BoolVar(&o.JSON, "json", false,
+		"print the build as JSON: id, candidate, state, created, note, board_count, request, figures, parts[], bands, boards[] (every board of the run; unmeasured ones have verdict \"unmeasured\"), cautions[]")
 	return cmd
 }
 
