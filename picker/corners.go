@@ -87,8 +87,8 @@ func (e *evaluator) headroom(d *device, wc solver.WorstCase) float64 {
 
 // hardLimits lists why a build fails: a corner outside the active region
 // or within the VCE margin of saturation, a part over its derated,
-// margined rating at some corner, the collector current over the
-// transistor's IC max.
+// margined rating or a resistor over its limiting element voltage at some
+// corner, the collector current over the transistor's IC max.
 func (e *evaluator) hardLimits(d *device, wc solver.WorstCase) []Failure {
 	var why []Failure
 	if !wc.AllActive {
@@ -106,7 +106,14 @@ func (e *evaluator) hardLimits(d *device, wc solver.WorstCase) []Failure {
 		if u := wc.Dissipation.Transistor.Utilization; u > worstU {
 			worstU, worstName = u, PartTransistor
 		}
-		why = append(why, Failure{Kind: FailAllowance, Part: worstName, Utilization: worstU})
+		if worstU > 1 {
+			why = append(why, Failure{Kind: FailAllowance, Part: worstName, Utilization: worstU})
+		}
+		for j := range e.lay.n {
+			if pl := wc.Dissipation.Resistor[e.lay.slots[j]]; pl.VoltageUtilization > 1 {
+				why = append(why, Failure{Kind: FailVoltage, Part: e.lay.names[j], Voltage_V: pl.Voltage_V, VoltageAllowed_V: pl.VoltageAllowed_V})
+			}
+		}
 	}
 	if im := d.line.Sheet.ICMax_A; im > 0 && wc.ICMax_A > im {
 		why = append(why, Failure{Kind: FailICMax, IC_A: wc.ICMax_A, ICMax_A: im})

@@ -28,7 +28,14 @@ func partSpec(r Resistor) solver.ResistorSpec {
 		Rated_W:     r.Rated_W,
 		Knee_C:      kneeOf(r),
 		Max_C:       maxOf(r),
+		LEV_V:       levOf(r),
 	}
+}
+
+// levOf is the line's limiting element voltage with the default by power
+// rating filled in (0 = not checked).
+func levOf(r Resistor) float64 {
+	return solver.ResistorSpec{Rated_W: r.Rated_W, LEV_V: r.LEV_V}.LimitingVoltage_V()
 }
 
 func kneeOf(r Resistor) float64 {
@@ -59,6 +66,10 @@ func maxOf(r Resistor) float64 {
 // Ra+Rb. The derating curve is the pessimistic one of the two (lower knee,
 // lower zero-power temperature), which is below both parts' curves at
 // every ambient.
+//
+// Limiting voltage: part i carries V·Ri/(Ra+Rb) of the pair's voltage V,
+// so the pair may see min(Ua·(Ra+Rb)/Ra, Ub·(Ra+Rb)/Rb); 0 (not checked)
+// when either part has none.
 func seriesSpec(a, b Resistor) solver.ResistorSpec {
 	r := a.Ohm + b.Ohm
 	s := solver.ResistorSpec{
@@ -70,6 +81,9 @@ func seriesSpec(a, b Resistor) solver.ResistorSpec {
 	}
 	if a.Rated_W > 0 && b.Rated_W > 0 {
 		s.Rated_W = math.Min(a.Rated_W/a.Ohm, b.Rated_W/b.Ohm) * r
+	}
+	if ua, ub := levOf(a), levOf(b); ua > 0 && ub > 0 {
+		s.LEV_V = math.Min(ua*r/a.Ohm, ub*r/b.Ohm)
 	}
 	return s
 }
@@ -86,7 +100,8 @@ func seriesSpec(a, b Resistor) solver.ResistorSpec {
 // conductance-weighted mean.
 //
 // Rating: one voltage V across both, part i dissipates V²/Ri, so the pair
-// may see V² = min(Pa·Ra, Pb·Rb) and its rating is that over R.
+// may see V² = min(Pa·Ra, Pb·Rb) and its rating is that over R. The same
+// voltage is across both, so the pair's limiting voltage is the lower one.
 func parallelSpec(a, b Resistor) solver.ResistorSpec {
 	r := a.Ohm * b.Ohm / (a.Ohm + b.Ohm)
 	par := func(x, y float64) float64 { return x * y / (x + y) }
@@ -102,6 +117,9 @@ func parallelSpec(a, b Resistor) solver.ResistorSpec {
 	}
 	if a.Rated_W > 0 && b.Rated_W > 0 {
 		s.Rated_W = math.Min(a.Rated_W*a.Ohm, b.Rated_W*b.Ohm) / r
+	}
+	if ua, ub := levOf(a), levOf(b); ua > 0 && ub > 0 {
+		s.LEV_V = math.Min(ua, ub)
 	}
 	return s
 }

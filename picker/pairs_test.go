@@ -112,3 +112,32 @@ func TestPairRating(t *testing.T) {
 		}
 	}
 }
+
+// TestPairLimitingVoltage checks the pair's limiting element voltage: at
+// the pair's limit the part that reaches its own limit first is exactly at
+// it and the other within its own (source: the voltage divides ∝ R in
+// series and is the same across both in parallel, Ohm's law). A part that
+// states no LEV takes the default by rating (REFERENCE.md §16).
+func TestPairLimitingVoltage(t *testing.T) {
+	parts := [][2]Resistor{
+		{{Ohm: 1e6, Rated_W: 0.25, LEV_V: 250}, {Ohm: 1e6, Rated_W: 0.25, LEV_V: 250}},
+		{{Ohm: 470e3, Rated_W: 0.25}, {Ohm: 33e3, Rated_W: 0.1}},
+		{{Ohm: 2.2e6, Rated_W: 0.5, LEV_V: 350}, {Ohm: 100e3, Rated_W: 0.125}},
+	}
+	for _, p := range parts {
+		a, b := p[0], p[1]
+		la, lb := levOf(a), levOf(b)
+		for _, arr := range []string{Series, Parallel} {
+			spec := seriesSpec(a, b)
+			va, vb := spec.LEV_V*a.Ohm/spec.Nominal_Ohm, spec.LEV_V*b.Ohm/spec.Nominal_Ohm
+			if arr == Parallel {
+				spec = parallelSpec(a, b)
+				va, vb = spec.LEV_V, spec.LEV_V
+			}
+			ua, ub := va/la, vb/lb
+			if math.Abs(math.Max(ua, ub)-1) > 1e-12 || ua > 1+1e-12 || ub > 1+1e-12 {
+				t.Errorf("%s %g Ω/%g V, %g Ω/%g V: pair limit %g V puts the parts at %.4g and %.4g of theirs", arr, a.Ohm, la, b.Ohm, lb, spec.LEV_V, ua, ub)
+			}
+		}
+	}
+}

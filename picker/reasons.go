@@ -20,6 +20,9 @@ const (
 	// FailBench: the board on the bench at NominalAmbient_C, at hFE min,
 	// typical or max, leaves the active region or the VCE margin.
 	FailBench
+	// FailVoltage: a resistor's voltage at some corner is over its
+	// limiting element voltage times the margin fraction.
+	FailVoltage
 )
 
 // HFEPoint names one of the three hFE values a bench point is solved at.
@@ -56,8 +59,12 @@ type Failure struct {
 
 	// FailAllowance: the part (a slot name such as "rc", or PartTransistor)
 	// and its utilization of the allowance.
-	Part        string
-	Utilization float64
+	// FailVoltage: the resistor (slot name), its highest voltage over the
+	// corners and the margined limiting element voltage.
+	Part             string
+	Utilization      float64
+	Voltage_V        float64
+	VoltageAllowed_V float64
 
 	// FailICMax: the highest corner IC and the transistor's IC max.
 	IC_A    float64

@@ -11,9 +11,12 @@ type Resistor struct {
 	Rated_W     float64
 	Knee_C      float64
 	Max_C       float64
-	Qty         int
-	Bin         string
-	Tags        []string
+	// LEV_V is the limiting element voltage the line states; 0 = the
+	// default by power rating (solver.DefaultLEV_V).
+	LEV_V float64
+	Qty   int
+	Bin   string
+	Tags  []string
 }
 
 // Transistor is one stocked transistor line.

@@ -14,6 +14,9 @@ type ResistorSpec struct {
 	Rated_W     float64 // rated power at the knee temperature; 0 = not rated (not checked)
 	Knee_C      float64 // derating knee (rated ambient); 0 = 70 °C
 	Max_C       float64 // zero-power temperature; 0 = 155 °C
+	// LEV_V is the limiting element voltage (IEC 60115-1); 0 = the
+	// default by power rating (DefaultLEV_V).
+	LEV_V float64
 }
 
 // Resistor temperature defaults, IEC 60115-1 style (REFERENCE.md §3; from
@@ -59,6 +62,7 @@ type Limits struct {
 	ResistorMaxFraction   float64 // of the derated rating; 0 = 0.5 (common practice)
 	TransistorMaxFraction float64 // of (TjMax-Ta)/thetaJA; 0 = 0.75 (common practice)
 	VCEMargin_V           float64 // required above VCE(sat) at every corner; 0 = 0.5 V
+	VoltageMaxFraction    float64 // of a resistor's limiting element voltage; 0 = 0.8 (common practice)
 }
 
 // Limit defaults.
@@ -72,6 +76,9 @@ const (
 	// DefaultVCEMargin_V is the headroom above VCE(sat) every corner must
 	// keep (common practice).
 	DefaultVCEMargin_V = 0.5
+	// DefaultVoltageMaxFraction keeps a resistor's voltage at or below 80 %
+	// of its limiting element voltage (common practice; REFERENCE.md §3).
+	DefaultVoltageMaxFraction = 0.8
 )
 
 // WithDefaults returns l with the documented default in place of every
@@ -85,6 +92,9 @@ func (l Limits) WithDefaults() Limits {
 	}
 	if !(l.VCEMargin_V > 0) {
 		l.VCEMargin_V = DefaultVCEMargin_V
+	}
+	if !(l.VoltageMaxFraction > 0) {
+		l.VoltageMaxFraction = DefaultVoltageMaxFraction
 	}
 	return l
 }
@@ -347,6 +357,9 @@ func (r ResistorSpec) validateRatings() *InputError {
 	}
 	if !finite(r.Rated_W) || r.Rated_W < 0 {
 		return bad("power", "%g W: want a positive rating (or 0 for unrated)", r.Rated_W)
+	}
+	if !finite(r.LEV_V) || r.LEV_V < 0 {
+		return bad("lev", "%g V: want a positive limiting element voltage (or 0 for the default by rating)", r.LEV_V)
 	}
 	knee, top := r.derating()
 	if !finite(knee) || !finite(top) || knee >= top {

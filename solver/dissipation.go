@@ -1,11 +1,15 @@
 package solver
 
-// Dissipation compares each part's power with its derated rating.
+// Dissipation compares each part's power with its derated rating, and
+// each resistor's voltage with its limiting element voltage.
 type Dissipation struct {
 	Resistor       [NumSlots]PartLoad
 	Transistor     PartLoad
-	MaxUtilization float64 // largest utilization of any part (1 = at the design limit)
-	Ok             bool    // every part within its limit
+	MaxUtilization float64 // largest power utilization of any part (1 = at the design limit)
+	// MaxVoltageUtilization is the largest voltage utilization of any
+	// resistor (1 = at the design limit).
+	MaxVoltageUtilization float64
+	Ok                    bool // every part within its power and voltage limits
 }
 
 // PartLoad is one part's dissipation against its derated, margined limit.
@@ -17,6 +21,16 @@ type PartLoad struct {
 	// unused slot, a resistor with Rated_W = 0, a transistor with neither
 	// θJA nor PD25); Allowed_W and Utilization are then 0.
 	Rated bool
+	// Voltage_V is the voltage across a resistor (a magnitude; 0 for the
+	// transistor, whose VCE is judged against its VCEO elsewhere).
+	Voltage_V float64
+	// VoltageAllowed_V is the resistor's limiting element voltage times
+	// the margin fraction; 0 when not checked (an unrated resistor that
+	// states no LEV, the transistor).
+	VoltageAllowed_V float64
+	// VoltageUtilization is Voltage_V / VoltageAllowed_V (0 when not
+	// checked).
+	VoltageUtilization float64
 }
 
 // OverloadUtilization is the utilization reported for a part that
@@ -73,6 +87,7 @@ func EvalDissipation(b Build, op OperatingPoint, ambient_C float64, lim Limits) 
 type allowances struct {
 	r      [NumSlots]float64
 	rRated [NumSlots]bool
+	v      [NumSlots]float64 // margined limiting element voltages; 0 = not checked
 	q      float64
 	qRated bool
 }
@@ -86,6 +101,9 @@ func newAllowances(b *Build, ambient_C float64, lim Limits) allowances {
 			knee, top := r.derating()
 			a.r[i] = ResistorAllowed_W(r.Rated_W, knee, top, ambient_C) * lim.ResistorMaxFraction
 			a.rRated[i] = true
+		}
+		if b.usedSlot(i) {
+			a.v[i] = b.Resistors[i].LimitingVoltage_V() * lim.VoltageMaxFraction
 		}
 	}
 	if p, ok := TransistorAllowed_W(b.Device, ambient_C); ok {
@@ -104,6 +122,11 @@ func (a *allowances) eval(b *Build, op *OperatingPoint) Dissipation {
 		pl := PartLoad{Power_W: op.P_W[i]}
 		if a.rRated[i] {
 			pl.rate(a.r[i])
+		}
+		pl.Voltage_V = op.V_V[i]
+		if a.v[i] > 0 {
+			pl.VoltageAllowed_V = a.v[i]
+			pl.VoltageUtilization = op.V_V[i] / a.v[i]
 		}
 		d.Resistor[i] = pl
 		d.note(pl)
@@ -130,6 +153,12 @@ func (pl *PartLoad) rate(allowed_W float64) {
 
 // note folds one part's load into the totals.
 func (d *Dissipation) note(pl PartLoad) {
+	if pl.VoltageUtilization > 0 {
+		d.MaxVoltageUtilization = max(d.MaxVoltageUtilization, pl.VoltageUtilization)
+		if pl.VoltageUtilization > 1 {
+			d.Ok = false
+		}
+	}
 	if !pl.Rated {
 		return
 	}
@@ -143,13 +172,27 @@ func (d *Dissipation) note(pl PartLoad) {
 // part's highest utilization (used to collect the worst over corners).
 func (d *Dissipation) worse(o Dissipation) {
 	for i := range NumSlots {
+		v := d.Resistor[i].Voltage_V
 		if o.Resistor[i].Utilization > d.Resistor[i].Utilization || (!d.Resistor[i].Rated && o.Resistor[i].Power_W > d.Resistor[i].Power_W) {
 			d.Resistor[i] = o.Resistor[i]
+		}
+		// The highest voltage over the corners is kept beside the
+		// hottest corner's power: the two may come from different corners.
+		if hv := max(v, o.Resistor[i].Voltage_V); hv > d.Resistor[i].Voltage_V {
+			pl := &d.Resistor[i]
+			pl.Voltage_V = hv
+			if pl.VoltageAllowed_V == 0 {
+				pl.VoltageAllowed_V = o.Resistor[i].VoltageAllowed_V
+			}
+			if pl.VoltageAllowed_V > 0 {
+				pl.VoltageUtilization = hv / pl.VoltageAllowed_V
+			}
 		}
 	}
 	if o.Transistor.Utilization > d.Transistor.Utilization || (!d.Transistor.Rated && o.Transistor.Power_W > d.Transistor.Power_W) {
 		d.Transistor = o.Transistor
 	}
 	d.MaxUtilization = max(d.MaxUtilization, o.MaxUtilization)
+	d.MaxVoltageUtilization = max(d.MaxVoltageUtilization, o.MaxVoltageUtilization)
 	d.Ok = d.Ok && o.Ok
 }

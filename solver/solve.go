@@ -375,27 +375,28 @@ func (ck *circuit) assemble(s Stage, ib, ic, vb, vc, ve, sg float64) OperatingPo
 	}
 	r := &s.R_Ohm
 	vcc := s.VCC_V * sg
-	pw := func(v, rr float64) float64 {
-		if rr <= 0 {
-			return 0
+	across := func(sl Slot, v float64) {
+		if r[sl] <= 0 {
+			return
 		}
-		return v * v / rr
+		op.P_W[sl] = v * v / r[sl]
+		op.V_V[sl] = math.Abs(v)
 	}
 	switch s.Topology {
 	case Divider:
-		op.P_W[R1] = pw(vcc-vb, r[R1])
-		op.P_W[R2] = pw(vb, r[R2])
-		op.P_W[RC] = pw(vcc-vc, r[RC])
-		op.P_W[RE] = pw(ve, r[RE])
+		across(R1, vcc-vb)
+		across(R2, vb)
+		across(RC, vcc-vc)
+		across(RE, ve)
 		op.IDivider_A = vb / r[R2]
 	case CollectorFeedback:
-		op.P_W[RF] = pw(vc-vb, r[RF])
-		op.P_W[RC] = pw(vcc-vc, r[RC])
-		op.P_W[RE] = pw(ve, r[RE])
+		across(RF, vc-vb)
+		across(RC, vcc-vc)
+		across(RE, ve)
 	case SplitSupply:
-		op.P_W[RB] = pw(vb, r[RB])
-		op.P_W[RC] = pw(vcc-vc, r[RC])
-		op.P_W[RE] = pw(ve-ck.e0, r[RE])
+		across(RB, vb)
+		across(RC, vcc-vc)
+		across(RE, ve-ck.e0)
 		if r[RB] > 0 {
 			op.IDivider_A = -vb / r[RB]
 		} else {

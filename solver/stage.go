@@ -34,6 +34,7 @@ type OperatingPoint struct {
 	VBE_V         float64
 	IDivider_A    float64           // current in R2 (divider) or RB (split supply); 0 otherwise
 	P_W           [NumSlots]float64 // each resistor's dissipation
+	V_V           [NumSlots]float64 // the voltage across each resistor, a magnitude
 	PTransistor_W float64           // VCE*IC + VBE*IB
 	Tj_C          float64           // device temperature the model was evaluated at
 }

@@ -27,6 +27,9 @@ func Failure(f picker.Failure) string {
 		return fmt.Sprintf("%s reaches %.0f %% of its derated, margined allowance at the worst corner", part, 100*f.Utilization)
 	case picker.FailICMax:
 		return fmt.Sprintf("IC reaches %.3g A, over the %.3g A IC max", f.IC_A, f.ICMax_A)
+	case picker.FailVoltage:
+		return fmt.Sprintf("%s sees %s at a worst-case corner, over the %s its limiting element voltage allows with margin",
+			strings.ToUpper(f.Part), notation.FormatVoltage(f.Voltage_V), notation.FormatVoltage(f.VoltageAllowed_V))
 	case picker.FailWorstCase:
 		return fmt.Sprintf("worst case: %v", f.Err)
 	case picker.FailBench:
@@ -50,6 +53,7 @@ var limitSay = map[picker.FailureKind]string{
 	picker.FailICMax:     "exceeds the transistor's IC max",
 	picker.FailWorstCase: "has a worst-case corner that cannot be solved",
 	picker.FailBench:     "leaves the active region or the VCE margin on the bench",
+	picker.FailVoltage:   "puts a resistor over its limiting element voltage",
 }
 
 // Reason words one cause of a shortfall.
