@@ -88,6 +88,8 @@ func diffResistor(s, raw, def Resistor, replace bool) []difference {
 	c.number("knee_c", s.Knee_C, raw.Knee_C, def.Knee_C, " °C")
 	c.number("max_c", s.Max_C, raw.Max_C, def.Max_C, " °C")
 	c.number("tcr", s.TCR_PPMPerK, raw.TCR_PPMPerK, def.TCR_PPMPerK, " ppm/K")
+	c.number("lev", s.LEV_V, raw.LEV_V, def.LEV_V, " V")
+	c.text("part_number", s.PartNumber, def.PartNumber, false)
 	c.text("note", s.Note, def.Note, false)
 	c.tags(s.Tags, def.Tags)
 	return c.diffs
@@ -112,6 +114,7 @@ func diffTransistor(s, raw, def Transistor, replace bool) []difference {
 	c.number("tj_max", s.TjMax_C, raw.TjMax_C, def.TjMax_C, " °C")
 	c.number("vaf", s.VAF_V, raw.VAF_V, def.VAF_V, " V")
 	c.number("icbo", s.ICBO_A, raw.ICBO_A, def.ICBO_A, " A")
+	c.text("part_number", s.PartNumber, def.PartNumber, false)
 	c.text("note", s.Note, def.Note, false)
 	c.tags(s.Tags, def.Tags)
 	return c.diffs

@@ -127,6 +127,8 @@ func (r Resistor) WithDefaults() Resistor {
 	}
 	r.Ohm, r.Tol, r.Rated_W = canon(r.Ohm), canon(r.Tol), canon(r.Rated_W)
 	r.Knee_C, r.Max_C, r.TCR_PPMPerK = canon(r.Knee_C), canon(r.Max_C), canon(r.TCR_PPMPerK)
+	r.LEV_V = canon(r.LEV_V)
+	r.PartNumber = strings.TrimSpace(r.PartNumber)
 	r.Bin = strings.TrimSpace(r.Bin)
 	r.Note = strings.TrimSpace(r.Note)
 	r.Tags = NormalizeTags(r.Tags)
@@ -166,8 +168,21 @@ func (r Resistor) Validate() []Problem {
 	if _, ok := DefaultTCR_PPMPerK(r.Tech); !ok {
 		add("tech", "unknown technology %q (want %s)", r.Tech, strings.Join(Technologies(), ", "))
 	}
+	if math.IsNaN(r.LEV_V) || r.LEV_V < 0 || r.LEV_V >= 1e6 {
+		add("lev", "limiting element voltage %g V is negative or out of range (0 = not stated)", r.LEV_V)
+	}
+	ps = append(ps, partNumberProblems(KindResistor, r.PartNumber)...)
 	ps = append(ps, commonProblems(KindResistor, r.Qty, r.Bin, r.Note, r.Tags)...)
 	return ps
+}
+
+// partNumberProblems checks a maker's part number: one line of printable
+// text.
+func partNumberProblems(k Kind, pn string) []Problem {
+	if m := checkText(pn, false); m != "" {
+		return []Problem{{Kind: k, Field: "part_number", Msg: "part number " + m}}
+	}
+	return nil
 }
 
 // commonProblems checks the fields every kind has.
@@ -220,6 +235,7 @@ func (t Transistor) WithDefaults() Transistor {
 		&t.VCESat_V, &t.VCEO_V, &t.ICMax_A, &t.PD25_W, &t.ThetaJA_KPerW, &t.TjMax_C, &t.VAF_V, &t.ICBO_A} {
 		*p = canon(*p)
 	}
+	t.PartNumber = strings.TrimSpace(t.PartNumber)
 	t.Bin = strings.TrimSpace(t.Bin)
 	t.Note = strings.TrimSpace(t.Note)
 	t.Tags = NormalizeTags(t.Tags)
@@ -283,6 +299,7 @@ func (t Transistor) Validate() []Problem {
 	if !finiteIn(t.TjMax_C, 25, 1000) {
 		add("tj_max", "Tj max %g °C is not above 25 °C", t.TjMax_C)
 	}
+	ps = append(ps, partNumberProblems(KindTransistor, t.PartNumber)...)
 	ps = append(ps, commonProblems(KindTransistor, t.Qty, t.Bin, t.Note, t.Tags)...)
 	return ps
 }

@@ -131,7 +131,8 @@ func TestUpgradeFromOldestSchema(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if r.Qty != 12 || r.Ohm != 4700 || len(r.Tags) != 1 {
+	if r.Qty != 12 || r.Ohm != 4700 || len(r.Tags) != 1 || r.Tech != TechMetalFilm || r.TCR_PPMPerK != 50 ||
+		r.LEV_V != 0 || r.PartNumber != "" {
 		t.Fatalf("after upgrade: %+v", r)
 	}
 	if ps, err := db.Verify(ctx); err != nil || len(ps) > 0 {

@@ -35,18 +35,18 @@ func newPutter(ctx context.Context, tx *sqlx.Tx) (*putter, error) {
 			ORDER BY id LIMIT 1`},
 		// A new line never takes the ID of a removed one: the ledger and
 		// the builds keep naming removed lines by their IDs.
-		{&p.insPart, `INSERT INTO parts (id, kind, ident, qty, bin, note) VALUES (1 + max(
+		{&p.insPart, `INSERT INTO parts (id, kind, ident, qty, bin, note, part_number) VALUES (1 + max(
 			(SELECT coalesce(max(id), 0) FROM parts), (SELECT coalesce(max(line), 0) FROM ledger),
-			(SELECT coalesce(max(line), 0) FROM build_parts)), ?, ?, ?, ?, ?)`},
-		{&p.insR, `INSERT INTO resistors (part_id, ohm, tol, rated_w, knee_c, max_c, tcr_ppm_per_k, tech)
-			VALUES (?, ?, ?, ?, ?, ?, ?, ?)`},
+			(SELECT coalesce(max(line), 0) FROM build_parts)), ?, ?, ?, ?, ?, ?)`},
+		{&p.insR, `INSERT INTO resistors (part_id, ohm, tol, rated_w, knee_c, max_c, tcr_ppm_per_k, tech, lev_v)
+			VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)`},
 		{&p.insT, `INSERT INTO transistors (part_id, label, polarity, hfe_min, hfe_max, hfe_typ, hfe_at_a,
 			vbe_on_v, vbe_at_a, vce_sat_v, vceo_v, ic_max_a, pd25_w, theta_ja_k_per_w, tj_max_c, vaf_v, icbo_a)
 			VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`},
-		{&p.addQty, `UPDATE parts SET qty = qty + ?, note = CASE WHEN note = '' THEN ? ELSE note END
-			WHERE id = ?`},
-		{&p.setQty, `UPDATE parts SET qty = ?, note = ? WHERE id = ?`},
-		{&p.updR, `UPDATE resistors SET knee_c = ?, max_c = ?, tcr_ppm_per_k = ? WHERE part_id = ?`},
+		{&p.addQty, `UPDATE parts SET qty = qty + ?, note = CASE WHEN note = '' THEN ? ELSE note END,
+			part_number = CASE WHEN part_number = '' THEN ? ELSE part_number END WHERE id = ?`},
+		{&p.setQty, `UPDATE parts SET qty = ?, note = ?, part_number = ? WHERE id = ?`},
+		{&p.updR, `UPDATE resistors SET knee_c = ?, max_c = ?, tcr_ppm_per_k = ?, lev_v = ? WHERE part_id = ?`},
 		{&p.updT, `UPDATE transistors SET polarity = ?, hfe_min = ?, hfe_max = ?, hfe_typ = ?, hfe_at_a = ?,
 			vbe_on_v = ?, vbe_at_a = ?, vce_sat_v = ?, vceo_v = ?, ic_max_a = ?, pd25_w = ?,
 			theta_ja_k_per_w = ?, tj_max_c = ?, vaf_v = ?, icbo_a = ? WHERE part_id = ?`},
@@ -94,6 +94,7 @@ type line struct {
 	qty   int
 	bin   string
 	note  string
+	pn    string // the maker's part number
 	tags  []string
 }
 
@@ -109,7 +110,7 @@ func (p *putter) find(ctx context.Context, l line) (int64, bool, error) {
 
 // insert makes a new line for l and returns its ID.
 func (p *putter) insert(ctx context.Context, l line) (int64, error) {
-	res, err := p.insPart.ExecContext(ctx, string(l.kind), l.ident, l.qty, l.bin, l.note)
+	res, err := p.insPart.ExecContext(ctx, string(l.kind), l.ident, l.qty, l.bin, l.note, l.pn)
 	if err != nil {
 		return 0, domainError(err)
 	}
@@ -159,12 +160,12 @@ func (p *putter) merge(ctx context.Context, id int64, stockedQty int, stockedTag
 		return nil, &problemError{problems: ps}
 	}
 	if !replace {
-		if _, err := p.addQty.ExecContext(ctx, l.qty, l.note, id); err != nil {
+		if _, err := p.addQty.ExecContext(ctx, l.qty, l.note, l.pn, id); err != nil {
 			return nil, domainError(err)
 		}
 		return nil, p.addTags(ctx, id, l.tags)
 	}
-	if _, err := p.setQty.ExecContext(ctx, qty, l.note, id); err != nil {
+	if _, err := p.setQty.ExecContext(ctx, qty, l.note, l.pn, id); err != nil {
 		return nil, domainError(err)
 	}
 	if _, err := p.delTags.ExecContext(ctx, id); err != nil {
@@ -182,7 +183,7 @@ func (p *putter) merge(ctx context.Context, id int64, stockedQty int, stockedTag
 
 // putResistor stocks r (raw as given, def with defaults filled in).
 func (p *putter) putResistor(ctx context.Context, raw, r Resistor, replace bool) (putResult, error) {
-	l := line{KindResistor, r.ident(), r.Qty, r.Bin, r.Note, r.Tags}
+	l := line{KindResistor, r.ident(), r.Qty, r.Bin, r.Note, r.PartNumber, r.Tags}
 	res := putResult{kind: KindResistor, identField: "value"}
 	id, found, err := p.find(ctx, l)
 	if err != nil {
@@ -193,7 +194,7 @@ func (p *putter) putResistor(ctx context.Context, raw, r Resistor, replace bool)
 		if res.id, err = p.insert(ctx, l); err != nil {
 			return res, err
 		}
-		_, err = p.insR.ExecContext(ctx, res.id, r.Ohm, r.Tol, r.Rated_W, r.Knee_C, r.Max_C, r.TCR_PPMPerK, r.Tech)
+		_, err = p.insR.ExecContext(ctx, res.id, r.Ohm, r.Tol, r.Rated_W, r.Knee_C, r.Max_C, r.TCR_PPMPerK, r.Tech, r.LEV_V)
 		return res, domainError(err)
 	}
 	var row resistorRow
@@ -208,7 +209,7 @@ func (p *putter) putResistor(ctx context.Context, raw, r Resistor, replace bool)
 		return res, err
 	}
 	if replace {
-		_, err = p.updR.ExecContext(ctx, r.Knee_C, r.Max_C, r.TCR_PPMPerK, id)
+		_, err = p.updR.ExecContext(ctx, r.Knee_C, r.Max_C, r.TCR_PPMPerK, r.LEV_V, id)
 	}
 	return res, domainError(err)
 }
@@ -226,7 +227,7 @@ func (p *putter) putTransistor(ctx context.Context, raw, t Transistor, replace b
 	case !errors.Is(err, sql.ErrNoRows):
 		return res, err
 	}
-	l := line{KindTransistor, ident, t.Qty, t.Bin, t.Note, t.Tags}
+	l := line{KindTransistor, ident, t.Qty, t.Bin, t.Note, t.PartNumber, t.Tags}
 	id, found, err := p.find(ctx, l)
 	if err != nil {
 		return res, err

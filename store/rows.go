@@ -21,6 +21,8 @@ type resistorRow struct {
 	MaxC   float64 `db:"max_c"`
 	TCR    float64 `db:"tcr_ppm_per_k"`
 	Tech   string  `db:"tech"`
+	LEV    float64 `db:"lev_v"`
+	PN     string  `db:"part_number"`
 	Ident  string  `db:"ident"`
 }
 
@@ -28,11 +30,11 @@ func (r resistorRow) partID() int64 { return r.ID }
 
 func (r resistorRow) part() Resistor {
 	return Resistor{ID: r.ID, Ohm: r.Ohm, Tol: r.Tol, Rated_W: r.RatedW, Knee_C: r.KneeC, Max_C: r.MaxC,
-		TCR_PPMPerK: r.TCR, Tech: r.Tech, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: []string{}}
+		TCR_PPMPerK: r.TCR, Tech: r.Tech, LEV_V: r.LEV, PartNumber: r.PN, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: []string{}}
 }
 
-const resistorSelect = `SELECT p.id, p.qty, p.bin, p.note, p.ident, r.ohm, r.tol, r.rated_w, r.knee_c,
-	r.max_c, r.tcr_ppm_per_k, r.tech
+const resistorSelect = `SELECT p.id, p.qty, p.bin, p.note, p.ident, p.part_number, r.ohm, r.tol, r.rated_w,
+	r.knee_c, r.max_c, r.tcr_ppm_per_k, r.tech, r.lev_v
 	FROM parts p JOIN resistors r ON r.part_id = p.id`
 
 // transistorRow is one transistors row joined with its part.
@@ -58,6 +60,7 @@ type transistorRow struct {
 	TjMax    float64 `db:"tj_max_c"`
 	VAF      float64 `db:"vaf_v"`
 	ICBO     float64 `db:"icbo_a"`
+	PN       string  `db:"part_number"`
 }
 
 func (r transistorRow) partID() int64 { return r.ID }
@@ -66,10 +69,10 @@ func (r transistorRow) part() Transistor {
 	return Transistor{ID: r.ID, Label: r.Label, Polarity: r.Polarity, HFEMin: r.HFEMin, HFEMax: r.HFEMax,
 		HFETyp: r.HFETyp, HFEAt_A: r.HFEAt, VBEOn_V: r.VBEOn, VBEAt_A: r.VBEAt, VCESat_V: r.VCESat,
 		VCEO_V: r.VCEO, ICMax_A: r.ICMax, PD25_W: r.PD25, ThetaJA_KPerW: r.ThetaJA, TjMax_C: r.TjMax,
-		VAF_V: r.VAF, ICBO_A: r.ICBO, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: []string{}}
+		VAF_V: r.VAF, ICBO_A: r.ICBO, PartNumber: r.PN, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: []string{}}
 }
 
-const transistorSelect = `SELECT p.id, p.qty, p.bin, p.note, p.ident, t.label, t.polarity, t.hfe_min,
+const transistorSelect = `SELECT p.id, p.qty, p.bin, p.note, p.ident, p.part_number, t.label, t.polarity, t.hfe_min,
 	t.hfe_max, t.hfe_typ, t.hfe_at_a, t.vbe_on_v, t.vbe_at_a, t.vce_sat_v, t.vceo_v, t.ic_max_a,
 	t.pd25_w, t.theta_ja_k_per_w, t.tj_max_c, t.vaf_v, t.icbo_a
 	FROM parts p JOIN transistors t ON t.part_id = p.id`

@@ -19,11 +19,13 @@ const (
 	TechMetalFilm  = "metal film"
 	TechCarbonFilm = "carbon film"
 	TechWirewound  = "wirewound"
+	TechMetalOxide = "metal oxide"
+	TechCermet     = "cermet"
 )
 
 // Technologies lists the resistor technologies in the order shown to users.
 func Technologies() []string {
-	return []string{TechThickFilm, TechThinFilm, TechMetalFilm, TechCarbonFilm, TechWirewound}
+	return []string{TechThickFilm, TechThinFilm, TechMetalFilm, TechCarbonFilm, TechWirewound, TechMetalOxide, TechCermet}
 }
 
 // Resistor is one stock line of fixed resistors: identical parts in one bin.
@@ -47,9 +49,15 @@ type Resistor struct {
 	TCR_PPMPerK float64
 	// Tech is one of Technologies(); "" when adding means TechThickFilm.
 	Tech string
-	Qty  int
-	Bin  string
-	Note string
+	// LEV_V is the limiting element voltage (IEC 60115-1, "maximum
+	// working voltage" on datasheets); 0 = not stated (the analyses then
+	// take a default by power rating).
+	LEV_V float64
+	// PartNumber is the maker's part number; "" = not given.
+	PartNumber string
+	Qty        int
+	Bin        string
+	Note       string
 	// Tags are lower-case free words (approved, rohs, reel ...), sorted.
 	Tags []string
 }
@@ -76,9 +84,11 @@ type Transistor struct {
 	TjMax_C       float64 // 0 when adding = DefaultTjMax_C
 	VAF_V         float64 // Early voltage; 0 = not given (infinite)
 	ICBO_A        float64 // collector-base leakage at 25 °C; 0 = not given
-	Qty           int
-	Bin           string
-	Note          string
+	// PartNumber is the maker's part number; "" = not given.
+	PartNumber string
+	Qty        int
+	Bin        string
+	Note       string
 	// Tags are lower-case free words, sorted.
 	Tags []string
 }
@@ -124,6 +134,12 @@ func DefaultTCR_PPMPerK(tech string) (float64, bool) {
 		return -500, true
 	case TechWirewound:
 		return 20, true // wirewound ±20 ppm/K (from memory)
+	case TechMetalOxide:
+		// metal oxide film ±200 to ±350 ppm/K; the upper figure, as a
+		// spread taken too small would flatter the worst case (from memory)
+		return 350, true
+	case TechCermet:
+		return 100, true // cermet (thick film on ceramic) ±100 ppm/K (from memory)
 	}
 	return 0, false
 }

@@ -108,6 +108,8 @@ TCR; derating starts at --knee (70 °C) and reaches zero at --max-temp
 		{"tech", "tech", store.TechThickFilm, "technology: " + strings.Join(store.Technologies(), ", ")},
 		{"knee", "knee_c", "", "temperature where derating starts, °C (default 70)"},
 		{"max-temp", "max_c", "", "temperature where the allowed power reaches zero, °C (default 155)"},
+		{"lev", "lev", "", "limiting element voltage, the datasheet's maximum working voltage (empty: check and pick assume one by power rating)"},
+		{"part-number", "part_number", "", "the maker's part number"},
 		{"note", "note", "", "free note"},
 	})
 	bindCommon(cmd, o)
@@ -173,6 +175,7 @@ magnitudes for both polarities.`,
 		{"vaf", "vaf", "", "Early voltage"},
 		{"icbo", "icbo", "", "collector-base leakage at 25 °C"},
 		{"bin", "bin", "", "bin location"},
+		{"part-number", "part_number", "", "the maker's part number"},
 		{"note", "note", "", "free note"},
 	})
 	o.flagOf["vbe_at"] = "--vbe"

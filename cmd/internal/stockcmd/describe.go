@@ -29,26 +29,30 @@ func binPhrase(bin string) string {
 
 // jsonResistor is a resistor line in --json output (SI keys).
 type jsonResistor struct {
-	ID          int64    `json:"id"`
-	Kind        string   `json:"kind"`
-	Code        string   `json:"code"`
-	Ohms        float64  `json:"ohms"`
-	Tol         float64  `json:"tol"`
-	Power_W     float64  `json:"power_w"`
-	Knee_C      float64  `json:"knee_c"`
-	Max_C       float64  `json:"max_c"`
-	TCR_PPMPerK float64  `json:"tcr_ppm_per_k"`
-	Tech        string   `json:"tech"`
-	Qty         int      `json:"qty"`
-	Bin         string   `json:"bin"`
-	Note        string   `json:"note"`
-	Tags        []string `json:"tags"`
+	ID          int64   `json:"id"`
+	Kind        string  `json:"kind"`
+	Code        string  `json:"code"`
+	Ohms        float64 `json:"ohms"`
+	Tol         float64 `json:"tol"`
+	Power_W     float64 `json:"power_w"`
+	Knee_C      float64 `json:"knee_c"`
+	Max_C       float64 `json:"max_c"`
+	TCR_PPMPerK float64 `json:"tcr_ppm_per_k"`
+	Tech        string  `json:"tech"`
+	// LEV_V is the limiting element voltage the line states; 0 = not
+	// stated (check and pick then take the default by power rating).
+	LEV_V      float64  `json:"lev_v"`
+	PartNumber string   `json:"part_number"`
+	Qty        int      `json:"qty"`
+	Bin        string   `json:"bin"`
+	Note       string   `json:"note"`
+	Tags       []string `json:"tags"`
 }
 
 func toJSONResistor(r store.Resistor) jsonResistor {
 	return jsonResistor{ID: r.ID, Kind: string(store.KindResistor), Code: notation.FormatResistanceExact(r.Ohm),
 		Ohms: r.Ohm, Tol: r.Tol, Power_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C,
-		TCR_PPMPerK: r.TCR_PPMPerK, Tech: r.Tech, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: nonNil(r.Tags)}
+		TCR_PPMPerK: r.TCR_PPMPerK, Tech: r.Tech, LEV_V: r.LEV_V, PartNumber: r.PartNumber, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: nonNil(r.Tags)}
 }
 
 // jsonTransistor is a transistor line in --json output (SI keys; 0 means
@@ -72,6 +76,7 @@ type jsonTransistor struct {
 	TjMax_C       float64  `json:"tj_max_c"`
 	VAF_V         float64  `json:"vaf_v"`
 	ICBO_A        float64  `json:"icbo_a"`
+	PartNumber    string   `json:"part_number"`
 	Qty           int      `json:"qty"`
 	Bin           string   `json:"bin"`
 	Note          string   `json:"note"`
@@ -83,7 +88,7 @@ func toJSONTransistor(t store.Transistor) jsonTransistor {
 		HFEMin: t.HFEMin, HFEMax: t.HFEMax, HFETyp: t.HFETyp, HFEAt_A: t.HFEAt_A, VBEOn_V: t.VBEOn_V,
 		VBEAt_A: t.VBEAt_A, VCESat_V: t.VCESat_V, VCEO_V: t.VCEO_V, ICMax_A: t.ICMax_A, PD25_W: t.PD25_W,
 		ThetaJA_KPerW: t.ThetaJA_KPerW, TjMax_C: t.TjMax_C, VAF_V: t.VAF_V, ICBO_A: t.ICBO_A,
-		Qty: t.Qty, Bin: t.Bin, Note: t.Note, Tags: nonNil(t.Tags)}
+		PartNumber: t.PartNumber, Qty: t.Qty, Bin: t.Bin, Note: t.Note, Tags: nonNil(t.Tags)}
 }
 
 func nonNil(s []string) []string {

@@ -6,10 +6,10 @@ import "biasbin/store"
 // header; optional ones may be left out or left empty.
 var (
 	resistorRequired   = []string{"value", "tolerance", "power", "qty", "bin"}
-	resistorOptional   = []string{"tcr", "tech", "knee_c", "max_c", "tags", "note"}
+	resistorOptional   = []string{"tcr", "tech", "knee_c", "max_c", "tags", "note", "lev", "part_number"}
 	transistorRequired = []string{"label", "polarity", "hfe_min", "hfe_max", "qty"}
 	transistorOptional = []string{"hfe_typ", "hfe_at", "vbe", "vbe_at", "vce_sat", "vceo", "ic_max", "pd",
-		"theta_ja", "tj_max", "vaf", "icbo", "bin", "tags", "note"}
+		"theta_ja", "tj_max", "vaf", "icbo", "bin", "tags", "note", "part_number"}
 )
 
 // Columns returns the required and optional columns of kind k.

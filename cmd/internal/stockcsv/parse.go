@@ -132,6 +132,8 @@ var techNames = map[string]string{
 	"metal": store.TechMetalFilm, "metal film": store.TechMetalFilm,
 	"carbon": store.TechCarbonFilm, "carbon film": store.TechCarbonFilm,
 	"wirewound": store.TechWirewound, "wire wound": store.TechWirewound, "ww": store.TechWirewound,
+	"metal oxide": store.TechMetalOxide, "metal oxide film": store.TechMetalOxide, "mo": store.TechMetalOxide,
+	"cermet": store.TechCermet,
 }
 
 // Tech returns the stored name of a technology as a technician writes it
@@ -182,6 +184,8 @@ func (p *parser) resistor() store.Resistor {
 	r.Max_C = p.value("max_c", false, notation.ParseTemperature)
 	r.Tags = p.tags()
 	r.Note = p.row["note"]
+	r.LEV_V = p.value("lev", false, magnitude(notation.ParseVoltage))
+	r.PartNumber = p.row["part_number"]
 	p.inRange([]rangeCheck{{"value", r.Ohm, solver.ResistanceRange}})
 	return r
 }
@@ -213,6 +217,7 @@ func (p *parser) transistor() store.Transistor {
 	t.Bin = p.row["bin"]
 	t.Tags = p.tags()
 	t.Note = p.row["note"]
+	t.PartNumber = p.row["part_number"]
 	p.inRange([]rangeCheck{{"hfe_min", t.HFEMin, solver.HFERange}, {"hfe_max", t.HFEMax, solver.HFERange},
 		{"hfe_typ", t.HFETyp, solver.HFERange}, {"icbo", t.ICBO_A, solver.ICBORange},
 		{"vce_sat", t.VCESat_V, solver.VCESatRange}, {"tj_max", t.TjMax_C, solver.TjMaxRange},
@@ -222,7 +227,7 @@ func (p *parser) transistor() store.Transistor {
 
 // ResistorFromFields reads one resistor from column texts keyed by CSV
 // column name (value, tolerance, power, qty, bin, tcr, tech, knee_c,
-// max_c, tags, note), as a row of a file would be read. The problems have
+// max_c, tags, note, lev, part_number), as a row of a file would be read. The problems have
 // Line 0.
 func ResistorFromFields(fields map[string]string) (store.Resistor, []Problem) {
 	p := parser{row: trimmed(fields)}

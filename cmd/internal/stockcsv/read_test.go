@@ -107,7 +107,7 @@ func TestReadBadFiles(t *testing.T) {
 		{"fractional quantity", rHeader + "1K,5%,0.25W,2.5,A\n", []string{"bad.csv:2: qty: quantity \"2.5\" is not a whole number"}},
 		{"tolerance differs from letter", rHeader + "4K7J,1%,0.25W,1,A\n", []string{"bad.csv:2: tolerance: "}},
 		{"no tolerance anywhere", rHeader + "4K7,,0.25W,1,A\n", []string{"bad.csv:2: tolerance: empty"}},
-		{"unknown technology", "value,tolerance,power,qty,bin,tech\n1K,5%,0.25W,1,A,cermet\n", []string{"bad.csv:2: tech: unknown technology"}},
+		{"unknown technology", "value,tolerance,power,qty,bin,tech\n1K,5%,0.25W,1,A,bakelite\n", []string{"bad.csv:2: tech: unknown technology"}},
 		{"hFE min above max", tHeader + "Q1,npn,300,100,5\n", []string{"bad.csv:2: hfe_max: hFE min 300 is above hFE max 100"}},
 		{"unknown polarity", tHeader + "Q1,nnp,100,300,5\n", []string{"bad.csv:2: polarity: unknown polarity \"nnp\""}},
 		{"missing header column", "value,tolerance,qty,bin\n1K,5%,1,A\n", []string{"bad.csv:1: header: missing required resistor column \"power\""}},

@@ -39,6 +39,7 @@ func WriteResistors(w io.Writer, rs []store.Resistor) error {
 			plain(r.TCR_PPMPerK, "", notation.ParseTCR), r.Tech,
 			plain(r.Knee_C, "", notation.ParseTemperature), plain(r.Max_C, "", notation.ParseTemperature),
 			EscapeFormula(strings.Join(r.Tags, ";")), EscapeFormula(r.Note),
+			optional(r.LEV_V, notation.ParseVoltage, "V"), EscapeFormula(r.PartNumber),
 		}
 	})
 }
@@ -58,7 +59,7 @@ func WriteTransistors(w io.Writer, ts []store.Transistor) error {
 			optional(t.ThetaJA_KPerW, notation.ParseThermalResistance, ""),
 			optional(t.TjMax_C, notation.ParseTemperature, ""),
 			optional(t.VAF_V, volt, "V"), optional(t.ICBO_A, amp, "A"),
-			EscapeFormula(t.Bin), EscapeFormula(strings.Join(t.Tags, ";")), EscapeFormula(t.Note),
+			EscapeFormula(t.Bin), EscapeFormula(strings.Join(t.Tags, ";")), EscapeFormula(t.Note), EscapeFormula(t.PartNumber),
 		}
 	})
 }

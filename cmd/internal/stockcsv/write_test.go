@@ -138,6 +138,7 @@ func TestWriteFormat(t *testing.T) {
 		{Ohm: 4700, Tol: 0.05, Rated_W: 0.25, Knee_C: 70, Max_C: 155, TCR_PPMPerK: 100, Tech: store.TechThickFilm, Qty: 100, Bin: "A1", Tags: []string{"approved", "rohs"}},
 		{Ohm: 0.47, Tol: 0.01, Rated_W: 0.5, Knee_C: 70, Max_C: 155, TCR_PPMPerK: -500, Tech: store.TechCarbonFilm, Qty: 3, Note: `a "quoted", note`},
 		{Ohm: 1234.5, Tol: 0.001, Rated_W: 0.1, Knee_C: 70, Max_C: 155, TCR_PPMPerK: 25, Tech: store.TechThinFilm, Qty: 1},
+		{Ohm: 1e6, Tol: 0.01, Rated_W: 0.5, Knee_C: 70, Max_C: 155, TCR_PPMPerK: 350, Tech: store.TechMetalOxide, LEV_V: 350, PartNumber: "MO-1M-350", Qty: 2},
 	}
 	var b bytes.Buffer
 	if err := WriteResistors(&b, rs); err != nil {
@@ -146,10 +147,11 @@ func TestWriteFormat(t *testing.T) {
 	// Letter-and-digit codes per IEC 60062 (REFERENCE.md §2): 4700 Ω is
 	// 4K7, 0.47 Ω is R47; 1234.5 Ω needs five digits, beyond the code's
 	// three, so it is written as a plain number.
-	want := "value,tolerance,power,qty,bin,tcr,tech,knee_c,max_c,tags,note\n" +
-		"4K7,5%,0.25W,100,A1,100,thick film,70,155,approved;rohs,\n" +
-		"R47,1%,0.5W,3,,-500,carbon film,70,155,,\"a \"\"quoted\"\", note\"\n" +
-		"1234.5,0.1%,0.1W,1,,25,thin film,70,155,,\n"
+	want := "value,tolerance,power,qty,bin,tcr,tech,knee_c,max_c,tags,note,lev,part_number\n" +
+		"4K7,5%,0.25W,100,A1,100,thick film,70,155,approved;rohs,,,\n" +
+		"R47,1%,0.5W,3,,-500,carbon film,70,155,,\"a \"\"quoted\"\", note\",,\n" +
+		"1234.5,0.1%,0.1W,1,,25,thin film,70,155,,,,\n" +
+		"1M0,1%,0.5W,2,,350,metal oxide,70,155,,,350V,MO-1M-350\n"
 	if b.String() != want {
 		t.Fatalf("got\n%s\nwant\n%s", b.String(), want)
 	}

@@ -60,7 +60,7 @@ func Stock(rs []store.Resistor, ts []store.Transistor) (picker.Stock, error) {
 // *LineError.
 func Resistor(r store.Resistor) (picker.Resistor, error) {
 	r = r.WithDefaults()
-	spec := solver.ResistorSpec{Nominal_Ohm: r.Ohm, Tol: r.Tol, TCR_PPMPerK: r.TCR_PPMPerK, Rated_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C}
+	spec := solver.ResistorSpec{Nominal_Ohm: r.Ohm, Tol: r.Tol, TCR_PPMPerK: r.TCR_PPMPerK, Rated_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C, LEV_V: r.LEV_V}
 	if err := spec.Validate(); err != nil {
 		return picker.Resistor{}, lineError(store.KindResistor, r.ID, notation.FormatResistanceExact(r.Ohm), r.Bin, err)
 	}
@@ -72,6 +72,7 @@ func Resistor(r store.Resistor) (picker.Resistor, error) {
 		Rated_W:     r.Rated_W,
 		Knee_C:      r.Knee_C,
 		Max_C:       r.Max_C,
+		LEV_V:       r.LEV_V,
 		Qty:         r.Qty,
 		Bin:         r.Bin,
 		Tags:        r.Tags,
