@@ -223,6 +223,7 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 		MaxUtilization:  ev.util,
 		Failing:         ev.failing,
 		VCETarget_V:     e.vceTarget(d, e.ohms(ev.c.lv)),
+		UnknownRatings:  solver.UnknownRatings(d.line.Sheet, e.s.icT),
 	}
 	for i, vi := range ev.c.val[:e.lay.n] {
 		c.Positions[e.lay.names[i]] = e.vs.position(vi)

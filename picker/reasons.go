@@ -141,6 +141,10 @@ const (
 	RejectPower
 	// RejectDatasheet: the line's datasheet cannot be modelled (Err).
 	RejectDatasheet
+	// RejectUnrated: the line does not state the ratings Unknown, which
+	// matter for the request (solver.UnknownRatings), and the request does
+	// not allow unrated parts.
+	RejectUnrated
 )
 
 // Rejection is one transistor line of the polarity left out, with why.
@@ -161,6 +165,8 @@ type Rejection struct {
 	Power_W   float64
 	Allowed_W float64
 	Ambient_C float64
+
+	Unknown []solver.Rating
 
 	Err error
 }

@@ -65,6 +65,10 @@ func (s settings) transistorCandidates(ts []Transistor, span float64) (devs []de
 			r.Line = t
 			rejected = append(rejected, r)
 		}
+		if unknown := solver.UnknownRatings(d, s.icT); len(unknown) > 0 && !s.req.AllowUnrated {
+			reject(Rejection{Kind: RejectUnrated, Unknown: unknown})
+			continue
+		}
 		if t.Qty < s.boards {
 			reject(Rejection{Kind: RejectQty, Qty: t.Qty, Boards: s.boards})
 			continue

@@ -74,7 +74,12 @@ type Request struct {
 	RequireTags  []string
 	Top          int // 0 = 5
 	Exhaustive   bool
-	ShowFailing  bool   // also list builds that fail a hard limit, with the reason
+	ShowFailing  bool // also list builds that fail a hard limit, with the reason
+	// AllowUnrated lets transistor lines whose ratings that matter for the
+	// request are not stated (solver.UnknownRatings) into the search;
+	// without it they are left out with the reason. Each build on such a
+	// line lists them in Candidate.UnknownRatings.
+	AllowUnrated bool
 	Seed         uint64 // mixed with each build's key to seed its Monte Carlo yield
 	Limits       solver.Limits
 	Progress     func(done, total int64) `json:"-"` // optional; called from the search goroutines one call at a time, may be nil
@@ -132,6 +137,11 @@ type Candidate struct {
 	// VCETarget_V is the VCE the Q-point term aimed at: the request's, or
 	// this build's maximum-symmetrical-swing VCE.
 	VCETarget_V float64
+	// UnknownRatings are the transistor's ratings that matter for the
+	// request but its line does not state (solver.UnknownRatings); only
+	// with Request.AllowUnrated can they be non-empty. Such a build is
+	// not known to be safe.
+	UnknownRatings []solver.Rating
 }
 
 // Shortfall explains why nothing (or too little) fits, with a suggestion.

@@ -80,6 +80,9 @@ type jsonCandidate struct {
 	Model           report.Model            `json:"model"`
 	Pull            []jsonPull              `json:"pull"`
 	Failing         []string                `json:"failing"`
+	// UnknownRatings names the transistor ratings that matter but are not
+	// stated ("vceo", "dissipation", "ic_max"): the build is not known safe.
+	UnknownRatings []solver.Rating `json:"unknown_ratings"`
 }
 
 type jsonTerms struct {
@@ -272,6 +275,7 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 		MaxUtilization:  c.MaxUtilization,
 		Model:           report.ModelOf(c.Model),
 		Failing:         report.Words(c.Failing, report.Failure),
+		UnknownRatings:  append([]solver.Rating{}, c.UnknownRatings...),
 	}
 	for _, slot := range job.Slots(c.Candidate) {
 		p := c.Positions[slot]

@@ -41,8 +41,11 @@ type Options struct {
 	Top         int
 	Exhaustive  bool
 	ShowFailing bool
-	Seed        uint64
-	JSON        bool
+	// AllowUnrated lets transistor lines that state no VCEO or power
+	// rating into the search (each such build says so).
+	AllowUnrated bool
+	Seed         uint64
+	JSON         bool
 	// Plot is the picture file of the first build (or of the first Compare
 	// builds overlaid); PlotSize its size as typed (WIDTHxHEIGHT).
 	Plot     string

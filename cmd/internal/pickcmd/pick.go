@@ -77,6 +77,9 @@ derated, margined rating or IC over IC max at a corner, or when the board
 on the bench at 25 °C (marked values, hFE min, typical or max) leaves the
 active region or the margin, whatever --ambient says. A failing build never
 ranks above a passing one (--show-failing lists them with the reason).
+A transistor line that does not state VCEO, a power rating (PD or θJA) or,
+above 50 mA, IC max is left out: nothing can say a build on it survives.
+--allow-unrated lets it in, and every build on it names what is unknown.
 
 When nothing fits, pick writes the reasons and the parts to buy on stderr,
 the nearest builds on stdout, and exits 1. The nearest builds are those that
@@ -127,6 +130,7 @@ can take their parts out of stock later.
 	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
 	fl.BoolVar(&o.Exhaustive, "exhaustive", false, "evaluate every combination instead of the pruned search")
 	fl.BoolVar(&o.ShowFailing, "show-failing", false, "also show builds that break a hard limit, with the reason")
+	fl.BoolVar(&o.AllowUnrated, "allow-unrated", false, "also use transistors that state no VCEO or power rating (each such build says what is unknown)")
 	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "seed of the Monte Carlo yield runs")
 	fl.BoolVar(&o.JSON, "json", false, "write the result as JSON")
 	fl.StringVar(&o.Plot, "plot", "", "also draw the first build's load-line picture to FILE (.svg, .png or .pdf; see biasbin plot)")

@@ -76,6 +76,9 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 	for _, why := range c.Failing {
 		fmt.Fprintf(w, "    %s %s\n", st.mark("FAILS:"), report.Failure(why))
 	}
+	if len(c.UnknownRatings) > 0 {
+		fmt.Fprintf(w, "    NOT KNOWN SAFE: the transistor's %s not stated; nothing here says it survives\n", report.RatingList(c.UnknownRatings))
+	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (bin, stock line)\n")
 	for _, slot := range job.Slots(c.Candidate) {

@@ -97,6 +97,8 @@ func Rejection(r picker.Rejection) string {
 		why = fmt.Sprintf("%.3g W at the target (mid-supply VCE) is over its %.3g W allowance at %g °C", r.Power_W, r.Allowed_W, r.Ambient_C)
 	case picker.RejectDatasheet:
 		why = fmt.Sprintf("datasheet: %v", r.Err)
+	case picker.RejectUnrated:
+		why = fmt.Sprintf("its %s not stated, so no build on it can be called safe (--allow-unrated uses it anyway)", RatingList(r.Unknown))
 	default:
 		why = fmt.Sprintf("left out (%d)", r.Kind)
 	}
