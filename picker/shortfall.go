@@ -77,7 +77,7 @@ const stiffBeta = 0.2
 // build's own reasons).
 func failureSummary(nearest []Candidate) []Reason {
 	var out []Reason
-	for _, k := range []FailureKind{FailCorners, FailAllowance, FailICMax, FailWorstCase} {
+	for _, k := range []FailureKind{FailCorners, FailAllowance, FailVoltage, FailICMax, FailWorstCase} {
 		n := 0
 		for _, c := range nearest {
 			if slices.ContainsFunc(c.Failing, func(f Failure) bool { return f.Kind == k }) {
