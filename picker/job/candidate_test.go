@@ -18,7 +18,7 @@ func TestCandidateRequest(t *testing.T) {
 		st.Resistors = append(st.Resistors, picker.Resistor{ID: int64(i + 1), Ohm: ohm, Tol: 0.05, TCR_PPMPerK: 100, Rated_W: 0.25, Qty: 20, Bin: "A"})
 	}
 	st.Transistors = []picker.Transistor{{ID: 100, Qty: 20, Bin: "T", Sheet: solver.Datasheet{Label: "QX-1", Polarity: solver.NPN,
-		HFEMin: 100, HFEMax: 300, VBEOn_V: 0.65, VBEAt_A: 1e-3, VCESat_V: 0.2, ThetaJA_KPerW: 200, TjMax_C: 150}}}
+		HFEMin: 100, HFEMax: 300, VBEOn_V: 0.65, VBEAt_A: 1e-3, VCESat_V: 0.2, VCEO_V: 40, ThetaJA_KPerW: 200, TjMax_C: 150}}}
 	res, err := picker.Pick(st, picker.Request{Polarity: solver.NPN, VCC_V: 12, VCCTol: 0.05, IC_A: 2e-3, Top: 2, Seed: 3,
 		Window: solver.Window{ICMin_A: 1.9e-3, ICMax_A: 2.1e-3, VCEMin_V: 1, VCEMax_V: 11}}) // a narrow IC band: some boards fail
 	if err != nil {

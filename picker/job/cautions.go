@@ -1,14 +1,16 @@
 package job
 
+import "biasbin/solver/safety"
+
 // Caution thresholds.
 const (
 	// HotSupply_V is the supply span above which a build earns the
-	// hot-parts caution: 50 V is the usual extra-low-voltage boundary for
-	// DC work (common practice; local rules differ).
-	HotSupply_V = 50.0
+	// supply caution: the d.c. voltage generally safe to touch
+	// (safety.TouchVoltage_V, REFERENCE.md §17).
+	HotSupply_V = safety.TouchVoltage_V
 	// NearRating is the utilization of the design limit above which a part
-	// earns a caution (common practice).
-	NearRating = 0.8
+	// earns a caution (safety.NearUse, common practice).
+	NearRating = safety.NearUse
 )
 
 // CautionKind says what a caution warns of.
@@ -52,33 +54,25 @@ type Caution struct {
 	Utilization float64
 }
 
-// cautions lists the hazards of an analysed build.
+// cautions lists the hazards of an analysed build in the short form,
+// read off a.Safety (the one place the rules live, solver/safety).
 func (a *Analysis) cautions() []Caution {
 	var out []Caution
-	if s := a.SupplySpan_V(); s > HotSupply_V {
-		out = append(out, Caution{Kind: CautionSupply, Value: s, Limit: HotSupply_V})
-	}
-	dev := a.Request.Build.Device
-	vceMax, icMax := a.Nominal.VCE_V, a.Nominal.IC_A
-	if a.Worst != nil {
-		vceMax, icMax = a.Worst.VCEMax_V, a.Worst.ICMax_A
-	}
-	switch {
-	case dev.VCEO_V > 0 && vceMax > dev.VCEO_V:
-		out = append(out, Caution{Kind: CautionVCEO, Value: vceMax, Limit: dev.VCEO_V})
-	case dev.VCEO_V > 0 && a.SupplySpan_V() > dev.VCEO_V:
-		out = append(out, Caution{Kind: CautionVCEOCutoff, Value: a.SupplySpan_V(), Limit: dev.VCEO_V})
-	}
-	if dev.ICMax_A > 0 && icMax > dev.ICMax_A {
-		out = append(out, Caution{Kind: CautionICMax, Value: icMax, Limit: dev.ICMax_A})
-	}
-	for _, p := range a.Loads(a.WorstDissipation()) {
-		if p.Load.Rated && p.Load.Utilization > NearRating {
-			out = append(out, Caution{Kind: CautionHotPart, Part: p.Part, Power_W: p.Load.Power_W, Allowed_W: p.Load.Allowed_W, Utilization: p.Load.Utilization})
+	for _, c := range a.Safety {
+		switch c.Kind {
+		case safety.AboveTouchVoltage, safety.AboveELV:
+			out = append(out, Caution{Kind: CautionSupply, Value: c.Supply_V, Limit: c.Limit_V})
+		case safety.OverVCEO:
+			out = append(out, Caution{Kind: CautionVCEO, Value: c.VCE_V, Limit: c.VCEO_V})
+		case safety.SupplyOverVCEO:
+			out = append(out, Caution{Kind: CautionVCEOCutoff, Value: c.Supply_V, Limit: c.VCEO_V})
+		case safety.OverICMax:
+			out = append(out, Caution{Kind: CautionICMax, Value: c.IC_A, Limit: c.ICMax_A})
+		case safety.NearDesignLimit, safety.OverDesignLimit, safety.OverRating:
+			out = append(out, Caution{Kind: CautionHotPart, Part: c.Part, Power_W: c.Power_W, Allowed_W: c.Allowed_W, Utilization: c.Use})
+		case safety.NominalOnly:
+			out = append(out, Caution{Kind: CautionNominalOnly})
 		}
-	}
-	if a.Worst == nil && len(a.Problems) > 0 {
-		out = append(out, Caution{Kind: CautionNominalOnly})
 	}
 	return out
 }

@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"biasbin/solver"
+	"biasbin/solver/safety"
 )
 
 // CheckRequest is one build to analyse and how to run its yield.
@@ -51,7 +52,13 @@ type Analysis struct {
 	Sensitivity *solver.Sensitivity
 	// TestPoints are VB, VE and VC with their worst-case bands.
 	TestPoints []TestPoint
-	// Cautions are the hazards a technician must hear about.
+	// Safety lists the build's hard limits and cautions in the order of
+	// severity (solver/safety): what the front ends show. Verdict reads
+	// them: the build fails when any is a hard limit.
+	Safety  []safety.Caution
+	Verdict safety.Verdict
+	// Cautions are the hazards a technician must hear about, in the short
+	// form kept with a build plan (derived from Safety).
 	Cautions []Caution
 	// Problems are the analyses that failed; the job is then not done.
 	Problems []Problem
@@ -108,6 +115,8 @@ func Check(req CheckRequest) (*Analysis, error) {
 		a.Sensitivity = &s
 	}
 	a.TestPoints = TestPoints(a.Nominal, a.Worst)
+	a.Safety = safety.Assess(safety.Input{Build: b, Nominal: a.Nominal, Worst: a.Worst, Limits: a.Limits})
+	a.Verdict = safety.VerdictOf(a.Safety)
 	a.Cautions = a.cautions()
 	return a, nil
 }

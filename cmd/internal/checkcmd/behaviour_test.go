@@ -74,17 +74,19 @@ func TestBehaviour(t *testing.T) {
 	}{
 		{"divider_text", args("--theta-ja", "200", "--boards", "2000"), 0, false, ""},
 		{"saturated_json", []string{"--vcc", "15V", "--r1", "10K", "--r2", "5K", "--rc", "3K3", "--re", "1K", "--hfe", "100..300",
-			"--theta-ja", "200", "--boards", "500", "--json"}, 0, true, ""},
+			"--theta-ja", "200", "--boards", "500", "--json"}, 1, true, "the build fails: 128 of 128 worst-case corners"},
 		{"pnp_split_spice", []string{"--topology", "split-supply", "--polarity", "pnp", "--vcc", "15V", "--vee", "15V",
-			"--rb", "10K", "--rc", "10K", "--re", "20K", "--hfe", "100..300", "--spice", "--boards", "100"}, 0, false, ""},
+			"--rb", "10K", "--rc", "10K", "--re", "20K", "--hfe", "100..300", "--spice", "--boards", "100"}, 0, false, "caution: the transistor's VCEO and power rating"},
 		{"feedback_text", []string{"--topology", "collector-feedback", "--vcc", "10V", "--rf", "250K", "--rc", "4K7", "--re", "1K2",
 			"--hfe", "90..135", "--bypass", "--load", "10K", "--ambient", "-10..60", "--boards", "1000"}, 0, false, ""},
 		{"hot_text", []string{"--vcc", "60V", "--r1", "470K", "--r2", "47K", "--rc", "22K", "--re", "4K7", "--hfe", "100..300",
-			"--pd", "625mW", "--boards", "500"}, 0, false, "follow local codes and licensed practice"},
+			"--pd", "625mW", "--boards", "500"}, 0, false, ""},
 		{"runaway_text", []string{"--vcc", "60V", "--r1", "47K", "--r2", "5K6", "--rc", "1K", "--re", "470R", "--hfe", "100..300",
 			"--pd", "625mW", "--boards", "500"}, 1, false, "thermal runaway"},
 		{"vceo_text", []string{"--vcc", "40V", "--r1", "470K", "--r2", "47K", "--rc", "22K", "--re", "4K7", "--hfe", "100..300",
-			"--vceo", "30V", "--ic-max", "1mA", "--boards", "200"}, 0, false, "above the transistor's VCEO 30 V"},
+			"--vceo", "30V", "--ic-max", "1mA", "--boards", "200"}, 0, false, ""},
+		{"vceo_fails_text", []string{"--vcc", "250V", "--r1", "2M2", "--r2", "100K", "--rc", "100K", "--re", "10K", "--hfe", "100..300",
+			"--vceo", "80V", "--pd", "625mW", "--ic-max", "100mA", "--boards", "200"}, 1, false, "the build fails: VCE reaches"},
 		{"bad_flag", args("--r1", "4K7X9"), 2, false, "--r1"},
 	}
 	for _, tt := range tests {

@@ -125,8 +125,19 @@ hFE (the datasheet typical, else the geometric mean of min and max; --beta
 pins it). Yield: --window IC,VCE where each part is ±percent around the
 nominal point (10%) or an absolute range (1.8mA..2.2mA, 4V..8V).
 
-Exit status: 0 when analysed (whatever the region), 1 when a corner or
-the nominal point cannot be solved, 2 for bad flags.
+The report leads with a verdict. A build fails when it breaks a hard
+limit: a worst-case corner leaves the active region or the VCE margin, a
+part runs over its design limit (resistors 50 %, the transistor 75 % of
+the rating derated to the hottest ambient) or over its rating, a resistor
+carries more than 80 % of its limiting element voltage (stated in the stock,
+else assumed from its power rating), VCE passes VCEO or IC passes IC max.
+Cautions follow in plain words: parts hot enough to burn a finger, a supply
+above the touchable 60 V d.c. or beyond extra-low voltage, transistor
+ratings not stated. With --json or --spice they go to stderr.
+
+Exit status: 0 when the build passes (cautions or not), 1 when it fails a
+hard limit or a corner or the nominal point cannot be solved, 2 for bad
+flags.
 
 ` + report.Ranges(solver.Ranges()),
 		Example: `  biasbin check --vcc 15V --r1 10K --r2 5K --rc 1K --re 1K --hfe 100..300
@@ -188,10 +199,18 @@ func Run(ctx context.Context, o *Options) error {
 	case o.Spice:
 		fmt.Fprint(o.IO.Out, netlist(res))
 	default:
+		fmt.Fprintf(o.IO.Out, "verdict: %s\n", report.Verdict(res.Verdict))
+		for _, c := range res.Safety {
+			fmt.Fprintf(o.IO.Out, "  %s %s\n", cautionMark(c), report.Caution(c))
+		}
+		fmt.Fprintln(o.IO.Out)
 		writeText(o.IO.Out, res)
 	}
-	for _, c := range cautions(res) {
-		fmt.Fprintln(o.IO.ErrOut, "caution:", c)
+	if o.JSON || o.Spice {
+		// The report leads with them; data-only output keeps them on stderr.
+		for _, c := range cautions(res) {
+			fmt.Fprintln(o.IO.ErrOut, "caution:", c)
+		}
 	}
 	if pic != nil {
 		if err := pic.write(o.IO, res); err != nil {
@@ -202,6 +221,10 @@ func Run(ctx context.Context, o *Options) error {
 		for _, p := range problems(res) {
 			fmt.Fprintln(o.IO.ErrOut, "biasbin: check:", p)
 		}
+		return cmdutil.ErrSilent
+	}
+	if res.Verdict.Fails {
+		fmt.Fprintln(o.IO.ErrOut, "biasbin: check: the build fails:", report.Caution(*res.Verdict.First))
 		return cmdutil.ErrSilent
 	}
 	return nil

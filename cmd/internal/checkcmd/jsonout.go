@@ -8,6 +8,7 @@ import (
 	"biasbin/cmd/internal/report"
 	"biasbin/picker/job"
 	"biasbin/solver"
+	"biasbin/solver/safety"
 )
 
 // The JSON document of `check --json`. Units are SI base units, named in
@@ -31,9 +32,23 @@ type jsonDoc struct {
 	Swing       jsonSwing               `json:"swing"`
 	Dissipation jsonDissipation         `json:"dissipation"`
 	Sensitivity *jsonSensitivity        `json:"sensitivity"`
-	Cautions    []string                `json:"cautions"`
+	Verdict     jsonVerdict             `json:"verdict"`
+	Cautions    []jsonCaution           `json:"cautions"`
 	Problems    []string                `json:"problems"`
 	Spice       string                  `json:"spice,omitempty"`
+}
+
+// jsonVerdict is the build's standing: fails when a hard limit breaks.
+type jsonVerdict struct {
+	Fails    bool   `json:"fails"`
+	Cautions int    `json:"cautions"`
+	Text     string `json:"text"`
+}
+
+// jsonCaution is one caution: its typed figures and the same in words.
+type jsonCaution struct {
+	safety.Caution
+	Text string `json:"text"`
 }
 
 type jsonRange struct {
@@ -222,7 +237,8 @@ func jsonDocOf(r *job.Analysis) jsonDoc {
 			OptimumIC_A: r.Swing.OptimumIC_A, OptimumVCE_V: r.Swing.OptimumVCE_V, OptimumVPeak_V: r.Swing.OptimumVPeak_V,
 		},
 		Dissipation: jsonDissipation{Nominal: dissSet(r, r.NominalDissipation), Worst: dissSet(r, r.WorstDissipation())},
-		Cautions:    cautions(r),
+		Verdict:     jsonVerdict{Fails: r.Verdict.Fails, Cautions: r.Verdict.Cautions, Text: report.Verdict(r.Verdict)},
+		Cautions:    []jsonCaution{},
 		Problems:    problems(r),
 	}
 	worst := r.WorstDissipation()
@@ -269,8 +285,8 @@ func jsonDocOf(r *job.Analysis) jsonDoc {
 	if s := r.Sensitivity; s != nil {
 		doc.Sensitivity = &jsonSensitivity{s.SI, s.SV_S, s.SBeta_A, s.BetaSpread, s.ICAtHFEMin_A, s.ICAtHFEMax_A, s.Tj_C}
 	}
-	if doc.Cautions == nil {
-		doc.Cautions = []string{}
+	for _, c := range r.Safety {
+		doc.Cautions = append(doc.Cautions, jsonCaution{Caution: c, Text: report.Caution(c)})
 	}
 	if doc.Problems == nil {
 		doc.Problems = []string{}
