@@ -112,6 +112,9 @@ against its derated rating, the load lines and swing, and the test-point
 voltages (VB, VE, VC to ground) to measure at bring-up with their bands.
 
 Values take the letter-and-digit code or SI: 12V, 4K7, 470R, 10k, 2mA.
+A supply that moves over a range (a battery from fresh to flat) is given as
+the range, --vcc 7V..9.6V: the nominal point sits at its middle and the
+worst case reaches both ends.
 A resistor value may carry its own tolerance (4K7F, "10k 1%"); otherwise
 --tol applies. For PNP give --vcc as a magnitude or as the negative rail;
 --vee is the emitter rail of the split-supply stage (magnitude or signed).
@@ -235,7 +238,7 @@ func Run(ctx context.Context, o *Options) error {
 func (o *Options) bindBuild(fl *pflag.FlagSet) {
 	o.Changed = fl.Changed
 	fl.StringVar(&o.Topology, "topology", defaultTopology, "bias circuit: divider, collector-feedback or split-supply")
-	fl.StringVar(&o.VCC, "vcc", "", "collector supply, e.g. 12V")
+	fl.StringVar(&o.VCC, "vcc", "", "collector supply, e.g. 12V, or the range it moves over, e.g. 7V..9.6V for a 9 V battery (then no --vcc-tol)")
 	fl.StringVar(&o.VEE, "vee", "", "emitter supply of the split-supply stage, e.g. 12V (taken as the rail opposite --vcc)")
 	for _, s := range []struct {
 		slot solver.Slot

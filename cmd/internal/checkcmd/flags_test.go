@@ -56,6 +56,14 @@ func TestFlags(t *testing.T) {
 		args  []string
 		check func(t *testing.T, in job.CheckRequest)
 	}{
+		// A 9 V battery from 9.6 V fresh to 7 V flat (common practice):
+		// the middle ± the tolerance that reaches both ends.
+		{"supply range", []string{"--vcc", "7V..9.6V", "--r1", "10K", "--r2", "5K", "--rc", "1K", "--re", "1K", "--hfe", "100..300"}, func(t *testing.T, in job.CheckRequest) {
+			b := in.Build
+			if !near(b.VCC_V*(1-b.VCCTol), 7) || !near(b.VCC_V*(1+b.VCCTol), 9.6) {
+				t.Errorf("vcc %g ±%g: spans %g..%g, want 7..9.6", b.VCC_V, b.VCCTol, b.VCC_V*(1-b.VCCTol), b.VCC_V*(1+b.VCCTol))
+			}
+		}},
 		{"defaults", divider, func(t *testing.T, in job.CheckRequest) {
 			b := in.Build
 			if b.Topology != solver.Divider || b.Device.Polarity != solver.NPN || !near(b.VCC_V, 15) || !near(b.VCCTol, 0.05) {
@@ -169,6 +177,8 @@ func TestFlagErrors(t *testing.T) {
 		want string // the flag the message must name
 	}{
 		{"no supply", []string{"--r1", "10K", "--r2", "5K", "--rc", "1K", "--hfe", "100..300"}, "--vcc"},
+		{"supply range and tolerance", []string{"--vcc", "7V..9.6V", "--vcc-tol", "5%", "--r1", "10K", "--r2", "5K", "--rc", "1K", "--hfe", "100..300"}, "--vcc-tol"},
+		{"supply range across 0 V", []string{"--vcc", "-5V..5V", "--r1", "10K", "--r2", "5K", "--rc", "1K", "--hfe", "100..300"}, "--vcc"},
 		{"negative rail for npn", args("--vcc", "-12V"), "--vcc"},
 		{"bad resistance", args("--r1", "ten"), "--r1"},
 		{"negative resistance", args("--rc", "-1K"), "--rc"},

@@ -50,7 +50,11 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 	if o.VCC == "" {
 		return in, usagef("vcc", "missing: give the collector supply, e.g. --vcc 12V")
 	}
-	if b.VCC_V, err = rail(o.VCC, sign, "vcc"); err != nil {
+	vcc, vccTol, vccRange, err := notation.ParseSupply(o.VCC)
+	if err != nil {
+		return in, usage("vcc", err)
+	}
+	if b.VCC_V, err = railOf(vcc, sign, "vcc"); err != nil {
 		return in, err
 	}
 	switch {
@@ -63,8 +67,17 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 			return in, err
 		}
 	}
-	if b.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
-		return in, usage("vcc-tol", err)
+	switch {
+	case vccRange && o.Changed != nil && o.Changed("vcc-tol"):
+		return in, usagef("vcc-tol", "--vcc %s is already a range; give either the range or --vcc-tol, not both", o.VCC)
+	case vccRange && vccTol >= 0.5:
+		return in, usagef("vcc", "%s: the top of a supply range must be below 3 times its bottom", o.VCC)
+	case vccRange:
+		b.VCCTol = vccTol
+	default:
+		if b.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
+			return in, usage("vcc-tol", err)
+		}
 	}
 
 	// Resistors.
@@ -232,6 +245,11 @@ func rail(text string, sign float64, flag string) (float64, error) {
 	if err != nil {
 		return 0, usage(flag, err)
 	}
+	return railOf(v, sign, flag)
+}
+
+// railOf signs a parsed supply v as rail does.
+func railOf(v, sign float64, flag string) (float64, error) {
 	switch {
 	case v == 0:
 		return 0, usagef(flag, "a supply of 0 V")

@@ -20,6 +20,9 @@ type Options struct {
 	Pick func(picker.Stock, picker.Request) (picker.Result, error)
 	// Now reads the clock for the progress indicator (time.Now outside tests).
 	Now func() time.Time
+	// Changed reports whether a flag was given on the command line (nil:
+	// none was).
+	Changed func(name string) bool
 
 	VCC         string
 	VCCTol      string
@@ -63,3 +66,6 @@ const (
 	defaultBoards    = 1
 	defaultSeed      = 1
 )
+
+// changed reports whether the flag name was given on the command line.
+func (o *Options) changed(name string) bool { return o.Changed != nil && o.Changed(name) }

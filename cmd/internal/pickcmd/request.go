@@ -31,7 +31,7 @@ func (o *Options) request() (picker.Request, error) {
 	if o.VCC == "" {
 		return req, cmdutil.Usagef("--vcc is required: the supply voltage, e.g. --vcc 12V")
 	}
-	vcc, err := notation.ParseVoltage(o.VCC)
+	vcc, vccTol, vccRange, err := notation.ParseSupply(o.VCC)
 	if err != nil {
 		return req, cmdutil.Usagef("--vcc: %v", err)
 	}
@@ -60,11 +60,21 @@ func (o *Options) request() (picker.Request, error) {
 		span += math.Abs(vee)
 	}
 
-	if req.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
-		return req, cmdutil.Usagef("--vcc-tol: %v", err)
-	}
-	if req.VCCTol >= 0.5 {
-		return req, cmdutil.Usagef("--vcc-tol %s: a supply tolerance must be below 50 %%; typical is 5%%", o.VCCTol)
+	switch {
+	case vccRange && o.changed("vcc-tol"):
+		return req, cmdutil.Usagef("--vcc %s is already a range; give either the range or --vcc-tol, not both", o.VCC)
+	case vccRange:
+		req.VCCTol = vccTol
+		if req.VCCTol >= 0.5 {
+			return req, cmdutil.Usagef("--vcc %s: the top of a supply range must be below 3 times its bottom", o.VCC)
+		}
+	default:
+		if req.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
+			return req, cmdutil.Usagef("--vcc-tol: %v", err)
+		}
+		if req.VCCTol >= 0.5 {
+			return req, cmdutil.Usagef("--vcc-tol %s: a supply tolerance must be below 50 %%; typical is 5%%", o.VCCTol)
+		}
 	}
 
 	if o.IC == "" {

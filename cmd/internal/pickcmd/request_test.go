@@ -42,6 +42,12 @@ func TestFlags(t *testing.T) {
 		args  []string
 		check func(t *testing.T, r picker.Request)
 	}{
+		// A 9 V battery, 9.6 V fresh to 7 V flat (common practice).
+		{"supply range", []string{"--vcc", "7V..9.6V", "--ic", "2mA"}, func(t *testing.T, r picker.Request) {
+			if !near(r.VCC_V*(1-r.VCCTol), 7) || !near(r.VCC_V*(1+r.VCCTol), 9.6) {
+				t.Errorf("vcc %g ±%g spans %g..%g, want 7..9.6", r.VCC_V, r.VCCTol, r.VCC_V*(1-r.VCCTol), r.VCC_V*(1+r.VCCTol))
+			}
+		}},
 		{"defaults", base, func(t *testing.T, r picker.Request) {
 			if r.Topology != solver.Divider || r.Polarity != solver.NPN {
 				t.Errorf("topology/polarity = %v/%v, want divider/npn", r.Topology, r.Polarity)
@@ -134,6 +140,8 @@ func TestFlagErrors(t *testing.T) {
 		{"no vcc", []string{"--ic", "2mA"}, []string{"--vcc is required", "--vcc 12V"}},
 		{"no ic", []string{"--vcc", "12V"}, []string{"--ic is required", "--ic 2mA"}},
 		{"bad vcc", []string{"--vcc", "12X", "--ic", "2mA"}, []string{"--vcc"}},
+		{"vcc range and tolerance", []string{"--vcc", "7V..9.6V", "--vcc-tol", "5%", "--ic", "2mA"}, []string{"already a range", "not both"}},
+		{"vcc range too wide", []string{"--vcc", "3V..12V", "--ic", "2mA"}, []string{"below 3 times"}},
 		{"zero vcc", []string{"--vcc", "0", "--ic", "2mA"}, []string{"--vcc 0", "needs a supply"}},
 		{"negative rail for npn", []string{"--vcc", "-12V", "--ic", "2mA"}, []string{"positive supply", "--polarity pnp"}},
 		{"negative ic", []string{"--vcc", "12V", "--ic", "-2mA"}, []string{"--ic", "negative"}},
