@@ -57,10 +57,15 @@ func checkTag(t string) string {
 	if hidden(t) {
 		return fmt.Sprintf("tag %q contains an invisible control or direction-override character", t)
 	}
+	digits := true
 	for _, r := range t {
 		if unicode.IsSpace(r) || r == ';' || r == ',' {
 			return fmt.Sprintf("tag %q: a tag is one word without spaces, commas or semicolons", t)
 		}
+		digits = digits && r >= '0' && r <= '9'
+	}
+	if digits {
+		return fmt.Sprintf("tag %q is only digits, which reads as a line ID; give a word (batch-%s)", t, t)
 	}
 	return ""
 }

@@ -135,7 +135,10 @@ func TestOtherFlags(t *testing.T) {
 		{"import dry run", importCmd, []string{"stock.csv", "--dry-run"}, ImportOptions{File: "stock.csv", DryRun: true}, 0},
 		{"import replace", importCmd, []string{"--replace", "-"}, ImportOptions{File: "-", Replace: true}, 0},
 		{"import without file", importCmd, nil, nil, 2},
-		{"tag", tagCmd, []string{"7", "rohs", "reel"}, TagOptions{Add: true, ID: 7, Tags: []string{"rohs", "reel"}}, 0},
+		{"tag", tagCmd, []string{"7", "rohs", "reel"}, TagOptions{Add: true, IDs: []int64{7}, Tags: []string{"rohs", "reel"}}, 0},
+		{"tag several lines", tagCmd, []string{"--tag", "approved", "5", "6", "7"}, TagOptions{Add: true, IDs: []int64{5, 6, 7}, Tags: []string{"approved"}}, 0},
+		{"tag several tags and lines", tagCmd, []string{"--tag", "approved,rohs", "5", "6"}, TagOptions{Add: true, IDs: []int64{5, 6}, Tags: []string{"approved", "rohs"}}, 0},
+		{"tag with --tag and a word", tagCmd, []string{"--tag", "approved", "5", "reel"}, nil, 2},
 		{"tag without tags", tagCmd, []string{"7"}, nil, 2},
 		{"tag bad ID", tagCmd, []string{"x", "rohs"}, nil, 2},
 	} {
