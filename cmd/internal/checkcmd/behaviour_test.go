@@ -74,7 +74,7 @@ func TestBehaviour(t *testing.T) {
 	}{
 		{"divider_text", args("--theta-ja", "200", "--boards", "2000"), 0, false, ""},
 		{"saturated_json", []string{"--vcc", "15V", "--r1", "10K", "--r2", "5K", "--rc", "3K3", "--re", "1K", "--hfe", "100..300",
-			"--theta-ja", "200", "--boards", "500", "--json"}, 1, true, "the build fails: 128 of 128 worst-case corners"},
+			"--theta-ja", "200", "--boards", "500", "--json"}, 1, true, "the build fails: 256 of 256 worst-case corners"},
 		{"pnp_split_spice", []string{"--topology", "split-supply", "--polarity", "pnp", "--vcc", "15V", "--vee", "15V",
 			"--rb", "10K", "--rc", "10K", "--re", "20K", "--hfe", "100..300", "--spice", "--boards", "100"}, 0, false, "caution: the transistor's VCEO and power rating"},
 		{"feedback_text", []string{"--topology", "collector-feedback", "--vcc", "10V", "--rf", "250K", "--rc", "4K7", "--re", "1K2",
