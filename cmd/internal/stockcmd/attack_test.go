@@ -127,7 +127,7 @@ func TestFormulaCellsRoundTrip(t *testing.T) {
 		t.Fatal(r.errOut)
 	}
 	first := run(t, db, "", "stock", "export", "--kind", "transistor")
-	for _, w := range []string{"\n'+Q5,", `"'=HYPERLINK(""http://x"")",'-a,'@SUM(1)`, ",'=typed as text\n"} {
+	for _, w := range []string{"\n'+Q5,", `"'=HYPERLINK(""http://x"")",'-a,'@SUM(1)`, ",'=typed as text,"} {
 		if !strings.Contains(first.out, w) {
 			t.Errorf("export lacks %q:\n%s", w, first.out)
 		}
