@@ -41,12 +41,15 @@ type jsonResistor struct {
 	Tech        string  `json:"tech"`
 	// LEV_V is the limiting element voltage the line states; 0 = not
 	// stated (check and pick then take the default by power rating).
-	LEV_V      float64  `json:"lev_v"`
-	PartNumber string   `json:"part_number"`
-	Qty        int      `json:"qty"`
-	Bin        string   `json:"bin"`
-	Note       string   `json:"note"`
-	Tags       []string `json:"tags"`
+	LEV_V      float64 `json:"lev_v"`
+	PartNumber string  `json:"part_number"`
+	// Match is how the line stands to `stock list --value` ("in",
+	// "below", "above"); omitted otherwise.
+	Match string   `json:"match,omitempty"`
+	Qty   int      `json:"qty"`
+	Bin   string   `json:"bin"`
+	Note  string   `json:"note"`
+	Tags  []string `json:"tags"`
 }
 
 func toJSONResistor(r store.Resistor) jsonResistor {

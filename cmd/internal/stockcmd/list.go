@@ -3,6 +3,7 @@ package stockcmd
 import (
 	"context"
 	"fmt"
+	"slices"
 	"strconv"
 	"strings"
 	"text/tabwriter"
@@ -23,6 +24,11 @@ type ListOptions struct {
 	Kind string // "", "resistor" or "transistor"
 	Bin  string
 	Tags []string
+	// Value, when not empty, asks for one resistor value or a range
+	// ("6K8", "4K..5K"): the lines in it and the nearest either side.
+	Value string
+	// Long adds the limiting element voltage and the note to each line.
+	Long bool
 }
 
 func newListCmd(f *cmdutil.Factory, runF func(*ListOptions) error) *cobra.Command {
@@ -32,7 +38,9 @@ func newListCmd(f *cmdutil.Factory, runF func(*ListOptions) error) *cobra.Comman
 		Short: "List the stock, resistors by value then transistors by label",
 		Example: `  biasbin stock list
   biasbin stock list --kind resistor --bin A3
-  biasbin stock list --tag approved --json`,
+  biasbin stock list --tag approved --json
+  biasbin stock list --value 6K8
+  biasbin stock list --value 4K..5K --long`,
 		Args: usageArgs(cobra.NoArgs),
 		RunE: func(cmd *cobra.Command, _ []string) error {
 			k, err := parseKind(o.Kind, true)
@@ -40,6 +48,12 @@ func newListCmd(f *cmdutil.Factory, runF func(*ListOptions) error) *cobra.Comman
 				return err
 			}
 			o.Kind = string(k)
+			if o.Value != "" {
+				if k == store.KindTransistor {
+					return cmdutil.Usagef("--value looks for resistors; leave out --kind transistor")
+				}
+				o.Kind = string(store.KindResistor)
+			}
 			if runF != nil {
 				return runF(o)
 			}
@@ -50,6 +64,8 @@ func newListCmd(f *cmdutil.Factory, runF func(*ListOptions) error) *cobra.Comman
 	fl.StringVar(&o.Kind, "kind", "", "only resistor or transistor lines")
 	fl.StringVar(&o.Bin, "bin", "", "only lines in this bin")
 	fl.StringSliceVar(&o.Tags, "tag", nil, "only lines carrying this tag (repeatable: all must match)")
+	fl.StringVar(&o.Value, "value", "", "resistors of this value or range (6K8, 4K..5K), with the nearest stocked values either side")
+	fl.BoolVar(&o.Long, "long", false, "also show each line's limiting element voltage and note")
 	fl.BoolVar(&o.JSON, "json", false, "print JSON (SI units: ohms, tol as a fraction, power_w ...)")
 	return cmd
 }
@@ -72,6 +88,8 @@ func parseKind(s string, optional bool) (store.Kind, error) {
 
 // listResult is the --json output of stock list.
 type listResult struct {
+	// Value is the value or range asked for with --value (omitted without).
+	Value       *jsonValueQuery  `json:"value,omitempty"`
 	Resistors   []jsonResistor   `json:"resistors"`
 	Transistors []jsonTransistor `json:"transistors"`
 }
@@ -94,15 +112,43 @@ func runList(ctx context.Context, o *ListOptions) error {
 			return err
 		}
 	}
+	var how []store.ValueMatch
+	var q *jsonValueQuery
+	if o.Value != "" {
+		lo, hi, err := notation.ParseRange(o.Value, notation.ParseOhms)
+		if err != nil {
+			return cmdutil.Usagef("--value: %v", err)
+		}
+		if !(lo > 0) {
+			return cmdutil.Usagef("--value %s: a resistance above 0 Ω", o.Value)
+		}
+		rs, how = store.NearValues(rs, lo, hi)
+		q = &jsonValueQuery{Lo_Ohm: lo, Hi_Ohm: hi, Stocked: slices.Contains(how, store.MatchIn)}
+	}
+	match := func(i int) string {
+		if how == nil {
+			return ""
+		}
+		return how[i].String()
+	}
 	if o.JSON {
-		out := listResult{Resistors: []jsonResistor{}, Transistors: []jsonTransistor{}}
-		for _, r := range rs {
-			out.Resistors = append(out.Resistors, toJSONResistor(r))
+		out := listResult{Value: q, Resistors: []jsonResistor{}, Transistors: []jsonTransistor{}}
+		for i, r := range rs {
+			jr := toJSONResistor(r)
+			jr.Match = match(i)
+			out.Resistors = append(out.Resistors, jr)
 		}
 		for _, t := range ts {
 			out.Transistors = append(out.Transistors, toJSONTransistor(t))
 		}
 		return writeJSON(o.IO.Out, out)
+	}
+	if q != nil && !q.Stocked {
+		fmt.Fprintf(o.IO.ErrOut, "no line of %s in stock", o.Value)
+		if len(rs) > 0 {
+			fmt.Fprint(o.IO.ErrOut, "; the nearest either side are listed")
+		}
+		fmt.Fprintln(o.IO.ErrOut)
 	}
 	if len(rs) == 0 && len(ts) == 0 {
 		_, err := fmt.Fprintln(o.IO.ErrOut, "no parts in stock match")
@@ -110,23 +156,49 @@ func runList(ctx context.Context, o *ListOptions) error {
 	}
 	w := tabwriter.NewWriter(o.IO.Out, 0, 0, 2, ' ', 0)
 	if len(rs) > 0 {
-		fmt.Fprintln(w, "ID\tRESISTOR\tTOL\tPOWER\tTECH\tTCR\tQTY\tBIN\tTAGS")
-		for _, r := range rs {
-			fmt.Fprintf(w, "%d\t%s\t%s\t%s\t%s\t%s\t%d\t%s\t%s\n", r.ID, notation.FormatResistanceExact(r.Ohm),
+		head := "ID\tRESISTOR\tTOL\tPOWER\tTECH\tTCR\tQTY\tBIN\tPART NO\tTAGS"
+		if how != nil {
+			head = "MATCH\t" + head
+		}
+		if o.Long {
+			head += "\tLEV\tNOTE"
+		}
+		fmt.Fprintln(w, head)
+		for i, r := range rs {
+			if how != nil {
+				fmt.Fprintf(w, "%s\t", matchWord[how[i]])
+			}
+			fmt.Fprintf(w, "%d\t%s\t%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s", r.ID, notation.FormatResistanceExact(r.Ohm),
 				notation.FormatTolerance(r.Tol), notation.FormatPower(r.Rated_W), r.Tech,
-				notation.FormatTCR(r.TCR_PPMPerK), r.Qty, orDash(r.Bin), orDash(strings.Join(r.Tags, ",")))
+				notation.FormatTCR(r.TCR_PPMPerK), r.Qty, orDash(r.Bin), orDash(r.PartNumber), orDash(strings.Join(r.Tags, ",")))
+			if o.Long {
+				lev := "-"
+				if r.LEV_V > 0 {
+					lev = notation.FormatVoltage(r.LEV_V)
+				}
+				fmt.Fprintf(w, "\t%s\t%s", lev, orDash(oneLine(r.Note)))
+			}
+			fmt.Fprintln(w)
 		}
 	}
 	if len(rs) > 0 && len(ts) > 0 {
 		fmt.Fprintln(w)
 	}
 	if len(ts) > 0 {
-		fmt.Fprintln(w, "ID\tTRANSISTOR\tPOL\tHFE\tVBE(ON)\tVCEO\tPD\tQTY\tBIN\tTAGS")
+		head := "ID\tTRANSISTOR\tPOL\tHFE\tVBE(ON)\tVCEO\tPD\tQTY\tBIN\tPART NO\tTAGS"
+		if o.Long {
+			head += "\tNOTE"
+		}
+		fmt.Fprintln(w, head)
 		for _, t := range ts {
-			fmt.Fprintf(w, "%d\t%s\t%s\t%s\t%s\t%s\t%s\t%d\t%s\t%s\n", t.ID, t.Label, t.Polarity, hfeText(t),
+			fmt.Fprintf(w, "%d\t%s\t%s\t%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s", t.ID, t.Label, t.Polarity, hfeText(t),
 				notation.FormatVoltage(t.VBEOn_V)+" @ "+notation.FormatCurrent(t.VBEAt_A),
 				unknownOr(t.VCEO_V, notation.FormatVoltage), unknownOr(t.PD25_W, notation.FormatPower),
-				t.Qty, orDash(t.Bin), orDash(strings.Join(t.Tags, ",")))
+				t.Qty, orDash(t.Bin), orDash(t.PartNumber), orDash(strings.Join(t.Tags, ",")))
+			if o.Long {
+				fmt.Fprintf(w, "\t%s", orDash(oneLine(t.Note)))
+			}
+			fmt.Fprintln(w)
 		}
 	}
 	return w.Flush()
@@ -148,3 +220,17 @@ func unknownOr(v float64, format func(float64) string) string {
 	}
 	return format(v)
 }
+
+// jsonValueQuery is what --value asked for in --json output.
+type jsonValueQuery struct {
+	Lo_Ohm float64 `json:"lo_ohms"`
+	Hi_Ohm float64 `json:"hi_ohms"`
+	// Stocked is true when some line lies in the value or range.
+	Stocked bool `json:"stocked"`
+}
+
+// matchWord is the MATCH column of `stock list --value`.
+var matchWord = map[store.ValueMatch]string{store.MatchIn: "yes", store.MatchBelow: "nearest below", store.MatchAbove: "nearest above"}
+
+// oneLine writes a note on one line of a table.
+func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
