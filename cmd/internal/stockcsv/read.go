@@ -95,7 +95,11 @@ func Scan(r io.Reader, name string, each func(Row) error) (Summary, error) {
 	if b, err := br.Peek(len(utf8BOM)); err == nil && bytes.Equal(b, utf8BOM) {
 		br.Discard(len(utf8BOM))
 	}
+	decimalComma := semicolonHeader(br)
 	cr := csv.NewReader(br)
+	if decimalComma {
+		cr.Comma = ';'
+	}
 	cr.FieldsPerRecord = -1
 	cr.ReuseRecord = true
 	var ps []Problem
@@ -165,7 +169,7 @@ func Scan(r io.Reader, name string, each func(Row) error) (Summary, error) {
 		sum.Rows++
 		if len(rec) != len(cols.names) {
 			if !add(Problem{Line: line, Msg: fmt.Sprintf(
-				"row has %d fields, the header has %d (a cut-off or unquoted comma?)", len(rec), len(cols.names))}) {
+				"row has %d fields, the header has %d (a cut-off or unquoted comma? numbers written with a decimal comma, like 4,7k, need a file with semicolons between fields, as spreadsheets export it in those locales)", len(rec), len(cols.names))}) {
 				break
 			}
 			continue
@@ -180,6 +184,8 @@ func Scan(r io.Reader, name string, each func(Row) error) (Summary, error) {
 			case utf8.RuneCountInString(v) > MaxFieldChars:
 				bad = append(bad, Problem{Line: line, Column: cols.names[i],
 					Msg: fmt.Sprintf("longer than %d characters", MaxFieldChars)})
+			case decimalComma && !textColumns[cols.names[i]]:
+				row[cols.names[i]] = strings.ReplaceAll(UnescapeFormula(v), ",", ".")
 			default:
 				row[cols.names[i]] = UnescapeFormula(v)
 			}
@@ -318,3 +324,20 @@ func readHeader(rec []string) (columns, []Problem) {
 	}
 	return columns{kind: kind, names: names}, ps
 }
+
+// semicolonHeader reports whether the header row (the first line) is
+// separated by semicolons and holds no comma: the CSV a spreadsheet writes
+// where the comma is the decimal mark ("4,7k;5%;0,25W"). Such a file is
+// read with ';' between fields and ',' as the decimal mark in every number
+// column.
+func semicolonHeader(br *bufio.Reader) bool {
+	head, _ := br.Peek(4096)
+	if i := bytes.IndexByte(head, '\n'); i >= 0 {
+		head = head[:i]
+	}
+	return bytes.IndexByte(head, ';') >= 0 && bytes.IndexByte(head, ',') < 0
+}
+
+// textColumns are the columns of free text, where a comma is a comma.
+var textColumns = map[string]bool{"bin": true, "tags": true, "note": true, "tech": true, "label": true,
+	"polarity": true, "part_number": true}

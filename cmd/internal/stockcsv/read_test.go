@@ -171,3 +171,30 @@ func TestExplainNamesLines(t *testing.T) {
 		t.Fatalf("got %q", got)
 	}
 }
+
+// TestReadDecimalComma: a spreadsheet set to a comma decimal mark writes
+// "4,7k;5%;0,25W" with semicolons between fields (the usual export in
+// locales that write 4,7 for 4.7, common practice). The header row tells:
+// semicolons and no comma. Numbers read with the comma as decimal mark;
+// free text keeps its commas.
+func TestReadDecimalComma(t *testing.T) {
+	in := "value;tolerance;power;qty;bin;note\n4,7k;5%;0,25W;100;A1;\"one, two\"\n2K2;0,5%;0,125W;3;A2;\n"
+	f, err := Read(strings.NewReader(in), "semi.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	rs := f.Batch.Resistors
+	if len(rs) != 2 {
+		t.Fatalf("%d rows", len(rs))
+	}
+	if rs[0].Ohm != 4700 || rs[0].Rated_W != 0.25 || rs[0].Note != "one, two" || rs[1].Tol != 0.005 || rs[1].Rated_W != 0.125 {
+		t.Fatalf("read %+v / %+v", rs[0], rs[1])
+	}
+	// A comma-separated file keeps the comma as the field separator: a
+	// comma decimal there splits the row, which the reader reports.
+	_, err = Read(strings.NewReader("value,tolerance,power,qty,bin\n4,7k,5%,0.25W,1,A\n"), "bad.csv")
+	var fe *FileError
+	if !errors.As(err, &fe) || !strings.Contains(fe.Error(), "fields") {
+		t.Fatalf("comma file with a comma decimal: %v", err)
+	}
+}
