@@ -1,10 +1,10 @@
 package job
 
 import (
-	"math"
 	"slices"
 
 	"biasbin/picker"
+	"biasbin/solver/safety"
 )
 
 // Search runs one search of the stock (picker.Pick outside tests).
@@ -18,6 +18,9 @@ type Build struct {
 	TestPoints []TestPoint
 	// Pull is what the run takes from each stock line.
 	Pull []PullLine
+	// Safety lists the build's hard limits and cautions, as Check lists
+	// them for one build (solver/safety).
+	Safety []safety.Caution
 }
 
 // Fits reports whether the build passes every hard limit.
@@ -87,7 +90,8 @@ func Pick(stock picker.Stock, req picker.Request, search Search) (*PickOutcome, 
 	}
 	for _, c := range o.Shown().Candidates {
 		wc := c.Worst
-		o.Builds = append(o.Builds, Build{Candidate: c, TestPoints: TestPoints(c.Nominal, &wc), Pull: PullList(c, stock, o.Boards)})
+		o.Builds = append(o.Builds, Build{Candidate: c, TestPoints: TestPoints(c.Nominal, &wc), Pull: PullList(c, stock, o.Boards),
+			Safety: safety.Assess(safety.Input{Build: c.Build, Nominal: c.Nominal, Worst: &wc, Limits: req.Limits})})
 	}
 	if o.Short() && len(o.Builds) > 0 {
 		o.TopUp = ShortLines(o.Builds[0].Pull)
@@ -139,12 +143,22 @@ func fewerBoards(search Search, st picker.Stock, req picker.Request) (int, picke
 // near its design limit.
 func (o *PickOutcome) cautions() []Caution {
 	var out []Caution
-	if hi := math.Abs(o.Request.VCC_V) * (1 + o.Request.VCCTol); hi > HotSupply_V {
-		out = append(out, Caution{Kind: CautionSupply, Value: hi, Limit: HotSupply_V})
-	}
+	supply := false
 	for _, b := range o.Builds {
-		if b.MaxUtilization > NearRating && b.Fits() {
-			out = append(out, Caution{Kind: CautionHotPart, Build: b.Rank, Utilization: b.MaxUtilization})
+		hot := 0.0
+		for _, c := range b.Safety {
+			switch c.Kind {
+			case safety.AboveTouchVoltage, safety.AboveELV:
+				if !supply {
+					supply = true
+					out = append([]Caution{{Kind: CautionSupply, Value: c.Supply_V, Limit: c.Limit_V}}, out...)
+				}
+			case safety.NearDesignLimit:
+				hot = max(hot, c.Use)
+			}
+		}
+		if hot > 0 && b.Fits() {
+			out = append(out, Caution{Kind: CautionHotPart, Build: b.Rank, Utilization: hot})
 		}
 	}
 	return out

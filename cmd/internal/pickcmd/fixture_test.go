@@ -26,7 +26,8 @@ func fakeStock() picker.Stock {
 			{ID: 5, Ohm: 10e3, Tol: 0.01, Rated_W: 0.25, Qty: 50, Bin: "A9"},
 		},
 		Transistors: []picker.Transistor{
-			{ID: 10, Qty: 8, Bin: "D1", Sheet: solver.Datasheet{Label: "QN-104A", Polarity: solver.NPN, HFEMin: 110, HFEMax: 330}},
+			{ID: 10, Qty: 8, Bin: "D1", Sheet: solver.Datasheet{Label: "QN-104A", Polarity: solver.NPN, HFEMin: 110, HFEMax: 330,
+				VCEO_V: 80, PD25_W: 0.625, ICMax_A: 0.2}},
 		},
 	}
 }
@@ -54,7 +55,11 @@ func fakeCandidate(rank int, failing ...picker.Failure) picker.Candidate {
 			"re": {Ohm: 5e3, Arrangement: "parallel", Parts: []picker.Part{{ID: 5, Ohm: 10e3, Bin: "A9"}, {ID: 5, Ohm: 10e3, Bin: "A9"}},
 				Spec: solver.ResistorSpec{Nominal_Ohm: 5e3, Tol: 0.01, Rated_W: 0.5}},
 		},
-		Build:   solver.Build{Topology: solver.Divider},
+		Build: solver.Build{Topology: solver.Divider, VCC_V: 12, VCCTol: 0.05, Device: tr.Sheet,
+			Resistors: [solver.NumSlots]solver.ResistorSpec{
+				{Nominal_Ohm: 39e3, Tol: 0.05, Rated_W: 0.25}, {Nominal_Ohm: 5030, Tol: 0.05, Rated_W: 0.25},
+				{Nominal_Ohm: 2.2e3, Tol: 0.01, Rated_W: 0.25}, {Nominal_Ohm: 5e3, Tol: 0.01, Rated_W: 0.5}},
+			AmbientMax_C: 50, NominalAmbient_C: 25},
 		Model:   solver.Model{Polarity: solver.NPN, IS_A: 1.2e-14, BF: 180, BR: 1, NF: 1, XTI: 3, XTB: 1.5, EG_eV: 1.11, TNOM_C: 27},
 		Nominal: op(2.01e-3, 1.62, 0.95, 7.58),
 		Worst: solver.WorstCase{
@@ -62,7 +67,9 @@ func fakeCandidate(rank int, failing ...picker.Failure) picker.Candidate {
 				{OP: op(1.82e-3, 1.55, 0.9, 8.0)},
 				{OP: op(2.21e-3, 1.7, 1.0, 7.1)},
 			},
-			ICMin_A: 1.82e-3, ICMax_A: 2.21e-3, VCEMin_V: 6.1, VCEMax_V: 7.1, AllActive: len(failing) == 0,
+			ICMin_A: 1.82e-3, ICMax_A: 2.21e-3, VCEMin_V: 6.1, VCEMax_V: 7.1, AllActive: len(failing) == 0, TjMax_C: 52,
+			Dissipation: solver.Dissipation{Ok: true, MaxUtilization: 0.31,
+				Resistor: [solver.NumSlots]solver.PartLoad{solver.RC: {Power_W: 0.03875, Allowed_W: 0.125, Utilization: 0.31, Rated: true}}},
 		},
 		Yield:           solver.YieldResult{Boards: 1000, Pass: 987, Yield: 0.987, StdErr: 0.0036, Seed: 1},
 		BetaSensitivity: 0.064,

@@ -9,6 +9,7 @@ import (
 	"biasbin/picker"
 	"biasbin/picker/job"
 	"biasbin/solver"
+	"biasbin/solver/safety"
 )
 
 // jsonResult is the --json document. Units are SI base units; keys carry
@@ -83,6 +84,15 @@ type jsonCandidate struct {
 	// UnknownRatings names the transistor ratings that matter but are not
 	// stated ("vceo", "dissipation", "ic_max"): the build is not known safe.
 	UnknownRatings []solver.Rating `json:"unknown_ratings"`
+	// Cautions are the build's hard limits and cautions as check lists
+	// them, typed, each with its text.
+	Cautions []jsonCaution `json:"cautions"`
+}
+
+// jsonCaution is one caution: its typed figures and the same in words.
+type jsonCaution struct {
+	safety.Caution
+	Text string `json:"text"`
 }
 
 type jsonTerms struct {
@@ -276,6 +286,7 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 		Model:           report.ModelOf(c.Model),
 		Failing:         report.Words(c.Failing, report.Failure),
 		UnknownRatings:  append([]solver.Rating{}, c.UnknownRatings...),
+		Cautions:        []jsonCaution{},
 	}
 	for _, slot := range job.Slots(c.Candidate) {
 		p := c.Positions[slot]
@@ -297,6 +308,9 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 	}
 	for _, p := range c.Pull {
 		jc.Pull = append(jc.Pull, jsonPullOf(p))
+	}
+	for _, k := range c.Safety {
+		jc.Cautions = append(jc.Cautions, jsonCaution{Caution: k, Text: report.Caution(k)})
 	}
 	return jc
 }

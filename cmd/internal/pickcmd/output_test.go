@@ -39,6 +39,8 @@ func TestOutputGolden(t *testing.T) {
 	hot.VCC_V = 60
 	hotCand := fakeCandidate(1)
 	hotCand.MaxUtilization = 0.9
+	hotCand.Build.VCC_V = 60
+	hotCand.Worst.Dissipation.Resistor[solver.RC] = solver.PartLoad{Power_W: 0.1125, Allowed_W: 0.125, Utilization: 0.9, Rated: true}
 	tests := []struct {
 		name string
 		v    *job.PickOutcome

@@ -116,8 +116,17 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 		fmt.Fprintf(w, "    yield     %s ± %s of %d simulated boards inside the window\n",
 			percent(c.Yield.Yield), percent(c.Yield.StdErr), c.Yield.Boards)
 	}
-	fmt.Fprintf(w, "    load      hottest part at %s of its design limit; IC moves %s across the hFE spread\n",
-		percent(c.MaxUtilization), percent(c.BetaSensitivity))
+	if name, pl := hottest(c); name != "" {
+		fmt.Fprintf(w, "    load      hottest %s at %s of its design limit at the worst corner (%s of %s); IC moves %s across the hFE spread\n",
+			name, percent(pl.Utilization), quantity(pl.Power_W, "W"), quantity(pl.Allowed_W, "W"), percent(c.BetaSensitivity))
+	} else {
+		fmt.Fprintf(w, "    load      no part rated; IC moves %s across the hFE spread\n", percent(c.BetaSensitivity))
+	}
+	for _, k := range c.Safety {
+		if !k.Fails {
+			fmt.Fprintf(w, "    caution   %s\n", report.Caution(k))
+		}
+	}
 	t := c.Terms
 	fmt.Fprintf(w, "    terms     Q-point %.3f  emitter %.3f  beta %.3f  headroom %.3f  utilization %.3f  yield %.3f\n",
 		t.QPoint, t.Emitter, t.Beta, t.Headroom, t.Utilization, t.Yield)

@@ -6,6 +6,7 @@ import (
 
 	"biasbin/picker"
 	"biasbin/picker/job"
+	"biasbin/solver"
 	"biasbin/solver/notation"
 )
 
@@ -43,15 +44,35 @@ func pullKind(p job.PullLine) string {
 	return "transistor"
 }
 
-// cautionText words a pick's caution.
+// cautionText words a pick's caution for the summary: a supply caution
+// once, each build's others under its rank.
 func cautionText(c job.Caution) string {
 	switch c.Kind {
 	case job.CautionSupply:
-		return fmt.Sprintf("the supply reaches %s, above %s: parts run hot and can burn, and touching the circuit can hurt; follow your local codes and licensed practice",
+		return fmt.Sprintf("the supply reaches %s, above the %s d.c. generally safe to touch: touching the circuit can give a shock; switch off before working on it, and follow your local codes and licensed practice",
 			trimV(c.Value), trimV(c.Limit))
 	case job.CautionHotPart:
-		return fmt.Sprintf("build %d runs a part at %.0f %% of its design limit: it will be hot and can burn; keep it clear of other parts and follow local codes and licensed practice",
+		return fmt.Sprintf("build #%d runs a part at %.0f %% of its design limit: it will be hot and can burn; keep it clear of other parts",
 			c.Build, c.Utilization*100)
 	}
 	return fmt.Sprintf("caution %d", c.Kind)
+}
+
+// hottest is the part nearest its design limit over the worst-case
+// corners: its name ("RC", "the transistor") and load.
+func hottest(c job.Build) (string, solver.PartLoad) {
+	name, load := "", solver.PartLoad{}
+	for _, slot := range job.Slots(c.Candidate) {
+		sl, err := solver.ParseSlot(slot)
+		if err != nil {
+			continue
+		}
+		if pl := c.Worst.Dissipation.Resistor[sl]; pl.Rated && pl.Utilization > load.Utilization {
+			name, load = strings.ToUpper(slot), pl
+		}
+	}
+	if pl := c.Worst.Dissipation.Transistor; pl.Rated && pl.Utilization > load.Utilization {
+		name, load = "the transistor", pl
+	}
+	return name, load
 }
