@@ -225,6 +225,7 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 		VCETarget_V:     e.vceTarget(d, e.ohms(ev.c.lv)),
 		UnknownRatings:  solver.UnknownRatings(d.line.Sheet, e.s.icT),
 	}
+	c.OnTarget = e.window(c.VCETarget_V).Contains(&c.Nominal)
 	for i, vi := range ev.c.val[:e.lay.n] {
 		c.Positions[e.lay.names[i]] = e.vs.position(vi)
 	}

@@ -142,6 +142,10 @@ type Candidate struct {
 	// with Request.AllowUnrated can they be non-empty. Such a build is
 	// not known to be safe.
 	UnknownRatings []solver.Rating
+	// OnTarget is true when the nominal point lies inside the yield window
+	// around the target: a build that passes every hard limit and is on
+	// target fits the request.
+	OnTarget bool
 }
 
 // Shortfall explains why nothing (or too little) fits, with a suggestion.

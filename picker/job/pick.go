@@ -26,6 +26,10 @@ type Build struct {
 // Fits reports whether the build passes every hard limit.
 func (b Build) Fits() bool { return len(b.Failing) == 0 }
 
+// FitsTarget reports whether the build passes every hard limit with its
+// nominal point on target: a build to make.
+func (b Build) FitsTarget() bool { return b.Fits() && b.OnTarget }
+
 // PickOutcome is one pick: the builds to show and what explains them.
 type PickOutcome struct {
 	Request picker.Request
@@ -34,7 +38,7 @@ type PickOutcome struct {
 	// Result is the search as asked.
 	Result picker.Result
 	// Fits reports whether at least one build passes every hard limit
-	// for Boards.
+	// with its nominal point on target, for Boards.
 	Fits bool
 	// Buildable is, when nothing fits and the stock runs short for the
 	// run, the most boards it does supply (0 when not even one, or when
@@ -100,9 +104,16 @@ func Pick(stock picker.Stock, req picker.Request, search Search) (*PickOutcome, 
 	return o, nil
 }
 
-// fits reports whether at least one build of res passes every hard limit.
+// fits reports whether at least one build of res passes every hard limit
+// with its nominal point on target.
 func fits(res picker.Result) bool {
-	return slices.ContainsFunc(res.Candidates, func(c picker.Candidate) bool { return len(c.Failing) == 0 })
+	return slices.ContainsFunc(res.Candidates, func(c picker.Candidate) bool { return len(c.Failing) == 0 && c.OnTarget })
+}
+
+// Passing reports whether some shown build passes every hard limit, on
+// target or not: when nothing fits, the nearest builds are then off target.
+func (o *PickOutcome) Passing() bool {
+	return slices.ContainsFunc(o.Builds, func(b Build) bool { return b.Fits() })
 }
 
 // fewerBoards finds the largest number of boards below req.Boards that the

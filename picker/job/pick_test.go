@@ -24,7 +24,7 @@ func tinyStock() picker.Stock {
 func tinyBuild(id string) picker.Candidate {
 	st := tinyStock()
 	pos := picker.Position{Ohm: 10e3, Arrangement: "single", Parts: []picker.Part{{ID: 1, Ohm: 10e3, Bin: "A1"}}}
-	return picker.Candidate{ID: id, Rank: 1, Transistor: st.Transistors[0],
+	return picker.Candidate{ID: id, Rank: 1, Transistor: st.Transistors[0], OnTarget: true,
 		Positions: map[string]picker.Position{"r1": pos, "r2": pos, "rc": pos, "re": pos}}
 }
 

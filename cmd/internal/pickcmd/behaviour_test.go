@@ -174,7 +174,7 @@ func TestNothingFits(t *testing.T) {
 			t.Errorf("stderr lacks %q:\n%s", w, inv.stderr)
 		}
 	}
-	for _, w := range []string{"Nothing fits. The nearest builds", "FAILS: rc reaches 130 % of its derated, margined allowance"} {
+	for _, w := range []string{"NOTHING FITS: the nearest builds", "FAILS: rc reaches 130 % of its derated, margined allowance"} {
 		if !strings.Contains(inv.stdout, w) {
 			t.Errorf("stdout lacks %q:\n%s", w, inv.stdout)
 		}
@@ -197,7 +197,7 @@ func TestStockRunsShort(t *testing.T) {
 	if cmdutil.ExitCode(inv.err) != 1 {
 		t.Errorf("exit %d, want 1: the run as asked does not fit", cmdutil.ExitCode(inv.err))
 	}
-	for _, w := range []string{"Nothing fits 25 boards: the stock on hand builds at most 10.", "Pull list for #1, 25 boards"} {
+	for _, w := range []string{"NOTHING FITS 25 BOARDS: the stock on hand builds at most 10.", "Pull list for #1, 25 boards"} {
 		if !strings.Contains(inv.stdout, w) {
 			t.Errorf("stdout lacks %q:\n%s", w, inv.stdout)
 		}

@@ -75,6 +75,7 @@ func fakeCandidate(rank int, failing ...picker.Failure) picker.Candidate {
 		BetaSensitivity: 0.064,
 		MaxUtilization:  0.31,
 		Failing:         failing,
+		OnTarget:        true,
 	}
 	// The test-point extremes over the corners, as the solver fills them.
 	wc := &c.Worst

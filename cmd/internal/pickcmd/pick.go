@@ -21,6 +21,7 @@ import (
 	"biasbin/picker"
 	"biasbin/picker/job"
 	"biasbin/solver"
+	"biasbin/solver/notation"
 )
 
 // New returns the pick command.
@@ -250,17 +251,24 @@ func stockGap(g *job.StockGapError) error {
 // are the nearest ones: each with the limit it breaks, or, when the stock
 // runs short for the run, the best builds for the boards it does supply.
 func WriteText(w io.Writer, v *job.PickOutcome, st Style) {
+	switch {
+	case v.Short():
+		fmt.Fprintf(w, "%s the stock on hand builds at most %d.\n", st.mark(fmt.Sprintf("NOTHING FITS %d BOARDS:", v.Boards)), v.Buildable)
+	case !v.Fits && v.Passing():
+		fmt.Fprintf(w, "%s the nearest are listed below, off target, with no pull list.\n",
+			st.mark(fmt.Sprintf("NO BUILD REACHES THE TARGET (IC %s):", notation.FormatCurrent(v.Request.IC_A))))
+	case !v.Fits && len(v.Builds) > 0:
+		fmt.Fprintf(w, "%s the nearest builds are listed below, each with the limit it breaks.\n", st.mark("NOTHING FITS:"))
+	case !v.Fits:
+		fmt.Fprintln(w, st.mark("NOTHING FITS."))
+	}
 	writeHeader(w, v)
 	if len(v.Builds) == 0 {
 		fmt.Fprintln(w, "\nno build to show")
 		return
 	}
-	switch {
-	case v.Short():
-		fmt.Fprintf(w, "\nNothing fits %d boards: the stock on hand builds at most %d.\nThe best builds for %d boards (the pull list counts what all %d take):\n",
-			v.Boards, v.Buildable, v.Buildable, v.Boards)
-	case !v.Fits:
-		fmt.Fprintln(w, "\nNothing fits. The nearest builds, each with the limit it breaks:")
+	if v.Short() {
+		fmt.Fprintf(w, "\nThe best builds for %d boards (the pull list counts what all %d take):\n", v.Buildable, v.Boards)
 	}
 	several := v.Request.Topology == picker.AnyTopology
 	for _, b := range v.Builds {
@@ -270,7 +278,7 @@ func WriteText(w io.Writer, v *job.PickOutcome, st Style) {
 		writeRivals(w, v.Builds[0], v.Result.Rivals)
 	}
 	for _, b := range v.Builds {
-		if b.Fits() {
+		if b.FitsTarget() || (v.Short() && b.Fits()) {
 			writePullList(w, v, b, st)
 			break
 		}
@@ -318,6 +326,8 @@ func WriteNotes(w io.Writer, v *job.PickOutcome) {
 		if v.Short() {
 			fmt.Fprintf(w, "the stock on hand builds %d of the %d boards; the best builds for %d are listed on stdout\n",
 				v.Buildable, v.Boards, v.Buildable)
+		} else if v.Passing() {
+			fmt.Fprintln(w, "the nearest builds are listed on stdout: they keep every limit but miss the target")
 		} else if len(v.Result.Candidates) > 0 {
 			fmt.Fprintln(w, "the nearest builds are listed on stdout, each with the limit it breaks")
 		} else {

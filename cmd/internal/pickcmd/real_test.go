@@ -30,7 +30,7 @@ func tinyWall() store.Batch {
 
 // searchEffort matches the counts of work done, which depend on how the
 // picker's workers interleave (the builds found do not).
-var searchEffort = regexp.MustCompile(`(\d+ combinations covered, |"evaluated": |"solved": )\d+`)
+var searchEffort = regexp.MustCompile(`(search: |"evaluated": |"solved": )\d+`)
 
 // TestRealPick runs pick end to end (store, conversion, the real picker,
 // output) on tinyWall. The golden files pin the layout of real results;
@@ -53,8 +53,10 @@ func TestRealPick(t *testing.T) {
 			[]string{"#1  QN-104A", "Pull list for #1, 4 boards", "measure   VB"}, nil},
 		{"real_json", []string{"--vcc", "12V", "--ic", "1mA", "--top", "1", "--json"}, 0,
 			[]string{`"fits": true`, `"label": "QN-104A"`}, nil},
+		{"real_off_target", []string{"--vcc", "12V", "--ic", "30mA", "--top", "1"}, 1,
+			[]string{"NO BUILD REACHES THE TARGET (IC 30 mA)", "#1  QN-104A"}, []string{"no build reaches the target"}},
 		{"real_short", []string{"--vcc", "12V", "--ic", "1mA", "--polarity", "pnp", "--boards", "5", "--top", "1"}, 1,
-			[]string{"Nothing fits 5 boards: the stock on hand builds at most 2.", "#1  QP-104B"},
+			[]string{"NOTHING FITS 5 BOARDS: the stock on hand builds at most 2.", "#1  QP-104B"},
 			[]string{"nothing fits this request", "3 × QP-104B for build #1 on all 5 boards"}},
 		{"real_feedback", []string{"--vcc", "12V", "--ic", "1mA", "--topology", "collector-feedback", "--top", "1", "--show-failing"}, -1,
 			[]string{"NPN collector-feedback stage", "    RF  ", "    RC  ", "    RE  "}, nil},
