@@ -59,17 +59,17 @@ func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *eva
 	wc, err := solver.EvalWorstCaseWith(b, e.s.lim, solver.WorstCaseOptions{SkipCorners: true, SkipRSS: true})
 	if err != nil {
 		ev.failing = append(ev.failing, Failure{Kind: FailWorstCase, Err: err})
-		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util}
+		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util, Parts: e.extraParts(c)}
 	} else {
 		ev.worst = wc
-		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util}
+		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util, Parts: e.extraParts(c)}
 		ev.failing = e.hardLimits(d, wc)
 	}
 	if t.bench != nil {
 		ev.failing = append(ev.failing, *t.bench)
 	}
 	w := e.s.w
-	ev.score = w.QPoint*ev.terms.QPoint + w.Emitter*ev.terms.Emitter + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization
+	ev.score = w.QPoint*ev.terms.QPoint + w.Emitter*ev.terms.Emitter + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization + w.Parts*ev.terms.Parts
 	return ev
 }
 

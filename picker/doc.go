@@ -51,9 +51,13 @@
 //	Utilization the largest part utilization at the nominal point against the
 //	            ratings derated at the hottest ambient (solver.EvalDissipation)
 //	Yield       1 − Monte Carlo yield (solver.EvalYieldSeeded), finalists only
+//	Parts       the number of positions filled by a pair: each pair is one
+//	            more part to place and solder
 //
 // Default weights: QPoint 2, Emitter 2, Beta 1, Headroom 1,
-// Utilization 0.25, Yield 1. The VCE target is the request's, or the VCE that maximises the
+// Utilization 0.25, Yield 1, Parts 0.05 (DefaultPartsWeight: a pair's
+// extra placement costs what a 2.5 % IC error does, so a pair must buy
+// more than that to beat a stocked single). The VCE target is the request's, or the VCE that maximises the
 // symmetrical swing of this build at the target current: with
 // r_ac = RC‖RL + RE(unbypassed) and R_dc = RC + RE it is
 // VCE(sat) + (|VCC| − VCE(sat))·r_ac/(R_dc + r_ac), which is the mid-point

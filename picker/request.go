@@ -44,10 +44,17 @@ const (
 	CurrentDerating = 0.5
 )
 
+// DefaultPartsWeight is the default weight of the parts term: a pair's
+// extra placement costs 0.05, what a 2.5 % IC error costs at the default
+// Q-point weight — half a 5 % part's tolerance. A pair has to buy more than
+// that to beat a stocked single, so 22K‖22K does not displace a stocked 11K
+// on a hair's difference.
+const DefaultPartsWeight = 0.05
+
 // DefaultWeights returns the ranking weights used when Request.Weights is
 // the zero value (see doc.go for what each term measures).
 func DefaultWeights() Weights {
-	return Weights{QPoint: 2, Emitter: 2, Beta: 1, Headroom: 1, Utilization: 0.25, Yield: 1}
+	return Weights{QPoint: 2, Emitter: 2, Beta: 1, Headroom: 1, Utilization: 0.25, Yield: 1, Parts: DefaultPartsWeight}
 }
 
 // InputError is a request the picker cannot work on: Field names the
@@ -265,7 +272,7 @@ func normalize(req Request) (settings, error) {
 	for _, t := range []struct {
 		name string
 		v    float64
-	}{{"qpoint", s.w.QPoint}, {"emitter", s.w.Emitter}, {"beta", s.w.Beta}, {"headroom", s.w.Headroom}, {"utilization", s.w.Utilization}, {"yield", s.w.Yield}} {
+	}{{"qpoint", s.w.QPoint}, {"emitter", s.w.Emitter}, {"beta", s.w.Beta}, {"headroom", s.w.Headroom}, {"utilization", s.w.Utilization}, {"yield", s.w.Yield}, {"parts", s.w.Parts}} {
 		if !finite(t.v) || t.v < 0 {
 			return s, inputErr("weights."+t.name, "use 0 to ignore the term or a positive number to stress it",
 				"%g: a weight cannot be negative", t.v)

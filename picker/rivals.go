@@ -37,6 +37,7 @@ func trailingTerm(w Weights, a, b Terms) string {
 		{"headroom", w.Headroom, a.Headroom, b.Headroom},
 		{"utilization", w.Utilization, a.Utilization, b.Utilization},
 		{"yield", w.Yield, a.Yield, b.Yield},
+		{"parts", w.Parts, a.Parts, b.Parts},
 	} {
 		if d := t.w * (t.tb - t.ta); d > most {
 			name, most = t.name, d

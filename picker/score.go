@@ -56,7 +56,7 @@ func (e *evaluator) scoreOne(t *tuple, c combo, thr, lastScore func() float64, k
 	}
 	b := e.build(c)
 	dis := solver.EvalDissipation(b, t.op, e.s.ambMax, e.s.lim)
-	partial := w.QPoint*t.q + w.Emitter*t.em + w.Utilization*dis.MaxUtilization
+	partial := w.QPoint*t.q + w.Emitter*t.em + w.Utilization*dis.MaxUtilization + w.Parts*e.extraParts(c)
 	if partial > thr() {
 		return
 	}
@@ -85,6 +85,18 @@ func (e *evaluator) scoreOne(t *tuple, c combo, thr, lastScore func() float64, k
 	if ev != nil {
 		keep(ev)
 	}
+}
+
+// extraParts is the parts term of a combo: one per position filled by a
+// pair.
+func (e *evaluator) extraParts(c combo) float64 {
+	n := 0
+	for _, vi := range c.val[:e.lay.n] {
+		if e.vs.values[vi].lines[1] >= 0 {
+			n++
+		}
+	}
+	return float64(n)
 }
 
 // betaFloorAt is betaFloor at a solved tuple: its exact base-loop

@@ -43,6 +43,8 @@ type Weights struct {
 	Headroom    float64
 	Utilization float64
 	Yield       float64
+	// Parts weighs the extra placement each pair costs (Terms.Parts).
+	Parts float64
 }
 
 // Request is what the technician asks for. The zero value of each optional
@@ -113,6 +115,9 @@ type Terms struct {
 	Headroom    float64
 	Utilization float64
 	Yield       float64
+	// Parts is the number of extra parts the build's pairs add (one per
+	// pair): each is one more placement and one more joint.
+	Parts float64
 }
 
 // Candidate is one ranked build.

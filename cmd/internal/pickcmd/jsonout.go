@@ -102,6 +102,7 @@ type jsonTerms struct {
 	Headroom    float64 `json:"headroom"`
 	Utilization float64 `json:"utilization"`
 	Yield       float64 `json:"yield"`
+	Parts       float64 `json:"parts"`
 }
 
 type jsonTransistor struct {
@@ -257,6 +258,7 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 			Headroom:    c.Terms.Headroom,
 			Utilization: c.Terms.Utilization,
 			Yield:       c.Terms.Yield,
+			Parts:       c.Terms.Parts,
 		},
 		Transistor: jsonTransistor{Label: c.Transistor.Sheet.Label, ID: c.Transistor.ID, Bin: c.Transistor.Bin},
 		Resistors:  map[string]jsonPosition{},

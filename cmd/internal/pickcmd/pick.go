@@ -68,7 +68,7 @@ the picker's per-build default (±20 % of that build's target) unless given
 as a range.
 
 Ranking weights (--weights NAME=VALUE,...; NAME one of q, emitter, beta,
-headroom, util, yield): every term is at least 0 and lower is better; the score is
+headroom, util, yield, parts): every term is at least 0 and lower is better; the score is
 their weighted sum. A weight of 0 ignores a term; negative weights are
 refused. Terms left out keep their defaults: ` + weightsHelp() + `.
 

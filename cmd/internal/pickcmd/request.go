@@ -255,6 +255,7 @@ var weightNames = map[string]func(*picker.Weights) *float64{
 	"util":        func(w *picker.Weights) *float64 { return &w.Utilization },
 	"utilization": func(w *picker.Weights) *float64 { return &w.Utilization },
 	"yield":       func(w *picker.Weights) *float64 { return &w.Yield },
+	"parts":       func(w *picker.Weights) *float64 { return &w.Parts },
 }
 
 // parseWeights reads "q=2,beta=1,..." on top of the default weights.
@@ -269,7 +270,7 @@ func parseWeights(s string) (picker.Weights, error) {
 		name = strings.ToLower(strings.TrimSpace(name))
 		field, known := weightNames[name]
 		if !ok || !known {
-			return picker.Weights{}, cmdutil.Usagef("--weights %q: want NAME=VALUE pairs with NAME one of q, beta, headroom, util, yield, e.g. --weights q=2,yield=0.5", item)
+			return picker.Weights{}, cmdutil.Usagef("--weights %q: want NAME=VALUE pairs with NAME one of q, emitter, beta, headroom, util, yield, parts, e.g. --weights q=2,yield=0.5", item)
 		}
 		v, err := strconv.ParseFloat(strings.TrimSpace(val), 64)
 		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
@@ -300,5 +301,5 @@ func defaultWeights() picker.Weights { return picker.DefaultWeights() }
 func weightsHelp() string {
 	w := defaultWeights()
 	return "q=" + trimNum(w.QPoint) + ",emitter=" + trimNum(w.Emitter) + ",beta=" + trimNum(w.Beta) + ",headroom=" + trimNum(w.Headroom) +
-		",util=" + trimNum(w.Utilization) + ",yield=" + trimNum(w.Yield)
+		",util=" + trimNum(w.Utilization) + ",yield=" + trimNum(w.Yield) + ",parts=" + trimNum(w.Parts)
 }

@@ -124,6 +124,9 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 	t := c.Terms
 	fmt.Fprintf(w, "    terms     Q-point %.3f  emitter %.3f  beta %.3f  headroom %.3f  utilization %.3f  yield %.3f\n",
 		t.QPoint, t.Emitter, t.Beta, t.Headroom, t.Utilization, t.Yield)
+	if t.Parts > 0 {
+		fmt.Fprintf(w, "              parts %.0f (each pair adds one placement)\n", t.Parts)
+	}
 }
 
 // topologyName is a requested topology's name, "any" for every one.
@@ -137,7 +140,7 @@ func topologyName(t solver.Topology) string {
 // termWords names a score term (picker.Rival.Term) on screen.
 var termWords = map[string]string{
 	"qpoint": "Q-point error", "emitter": "emitter band", "beta": "hFE sensitivity",
-	"headroom": "worst-case headroom", "utilization": "part loading", "yield": "yield loss",
+	"headroom": "worst-case headroom", "utilization": "part loading", "yield": "yield loss", "parts": "extra parts",
 }
 
 // termOf returns the named term of t.
@@ -153,6 +156,8 @@ func termOf(t picker.Terms, name string) float64 {
 		return t.Headroom
 	case "utilization":
 		return t.Utilization
+	case "parts":
+		return t.Parts
 	}
 	return t.Yield
 }
