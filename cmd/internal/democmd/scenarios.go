@@ -49,5 +49,30 @@ why nothing fits, shows the nearest builds and names what to buy.`,
 				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 30, Top: 1, Seed: 1},
 			nothingFits: true,
 		},
+		{
+			title: "A 9 V collector-feedback stage at 1 mA for a repair",
+			story: `An older board biases its stage with one resistor from the collector to
+the base: two parts fewer than a divider, and the feedback steadies IC
+against hFE, though less than a divider does.`,
+			args: []string{"--vcc", "9V", "--ic", "1mA", "--topology", "collector-feedback", "--top", "1"},
+			req: picker.Request{Topology: solver.CollectorFeedback, Polarity: solver.NPN, VCC_V: 9, VCCTol: 0.05, IC_A: 1e-3,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 1, Top: 1, Seed: 1},
+		},
+		{
+			title: "A split-supply stage on ±12 V at 1 mA",
+			story: `With a negative rail the emitter resistor to VEE sets the current and the
+base sits near ground through RB: IC hardly moves with hFE.`,
+			args: []string{"--vcc", "12V", "--vee", "12V", "--ic", "1mA", "--topology", "split-supply", "--top", "1"},
+			req: picker.Request{Topology: solver.SplitSupply, Polarity: solver.NPN, VCC_V: 12, VEE_V: -12, VCCTol: 0.05, IC_A: 1e-3,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 1, Top: 1, Seed: 1},
+		},
+		{
+			title: "Which topology serves a 12 V stage at 1 mA best?",
+			story: `--topology any searches the divider, collector feedback and (with --vee)
+the split supply, ranks them on one scale and says why the first wins.`,
+			args: []string{"--vcc", "12V", "--vee", "12V", "--ic", "1mA", "--topology", "any", "--top", "2"},
+			req: picker.Request{Topology: picker.AnyTopology, Polarity: solver.NPN, VCC_V: 12, VEE_V: -12, VCCTol: 0.05, IC_A: 1e-3,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 1, Top: 2, Seed: 1},
+		},
 	}
 }
