@@ -1,6 +1,7 @@
 package picture
 
 import (
+	"bytes"
 	"fmt"
 	"io"
 	"path/filepath"
@@ -130,11 +131,29 @@ func Render(w io.Writer, c Chart, f Format, s Size) error {
 		p.Draw(draw.Crop(dc, margin, -margin, legH+2*margin, -margin))
 		leg.Draw(draw.Crop(dc, 4*margin, -margin, margin, -(ht - legH - margin)))
 	}
+	if f == SVG {
+		// The SVG names the typeface without embedding it; Arial and
+		// Helvetica share Liberation Sans's metrics, so a viewer without it
+		// still lays the text out as drawn.
+		var buf bytes.Buffer
+		if _, err := cw.WriteTo(&buf); err != nil {
+			return fmt.Errorf("picture: write %s: %w", f, err)
+		}
+		_, err := w.Write(bytes.ReplaceAll(buf.Bytes(), []byte("font-family:Liberation Sans;"), []byte(svgFonts)))
+		if err != nil {
+			return fmt.Errorf("picture: write %s: %w", f, err)
+		}
+		return nil
+	}
 	if _, err := cw.WriteTo(w); err != nil {
 		return fmt.Errorf("picture: write %s: %w", f, err)
 	}
 	return nil
 }
+
+// svgFonts is the SVG's font list: Liberation Sans, then the faces with
+// the same metrics (Arial, Helvetica), then any sans-serif.
+const svgFonts = "font-family:'Liberation Sans',Arial,Helvetica,sans-serif;"
 
 // Text sizes: 11 pt and up reads at 100 % on a screen and on paper.
 const (

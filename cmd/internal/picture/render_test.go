@@ -40,6 +40,9 @@ func TestRenderFormats(t *testing.T) {
 			switch f {
 			case SVG:
 				checkSVG(t, name, data, "600pt", "375pt")
+				if !bytes.Contains(data, []byte("Arial,Helvetica,sans-serif")) || bytes.Contains(data, []byte("font-family:Liberation Sans;")) {
+					t.Errorf("%s: SVG text names no typeface to fall back on", name)
+				}
 			case PNG:
 				img, err := png.Decode(bytes.NewReader(data))
 				if err != nil {
