@@ -8,11 +8,10 @@ package buildcmd
 import (
 	"context"
 	"io"
-	"strconv"
-	"strings"
 
 	"github.com/spf13/cobra"
 
+	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/solver/notation"
 	"biasbin/store"
@@ -58,9 +57,9 @@ close" ends the run ("build cancel" returns the parts instead).`,
 
 // parseBuildID reads a build number as build list shows it.
 func parseBuildID(s string) (int64, error) {
-	id, err := strconv.ParseInt(strings.TrimPrefix(strings.TrimSpace(s), "#"), 10, 64)
-	if err != nil || id <= 0 {
-		return 0, cmdutil.Usagef("build %q: want the number shown by `biasbin build list`", s)
+	id, err := buildjob.ParseBuildNumber(s)
+	if err != nil {
+		return 0, &cmdutil.UsageError{Err: err}
 	}
 	return id, nil
 }

@@ -71,6 +71,11 @@ type Options struct {
 	Kind     string
 	// Zoom closes plot's axes in on the Q-point spread.
 	Zoom bool
+	// Refs are the builds plot draws by reference (a pick's build ID or a
+	// reserved build's number) instead of by the build flags.
+	Refs []string
+	// buildFlags are the flags that name a build, refused beside Refs.
+	buildFlags []string
 }
 
 // Flag defaults, shown in --help.

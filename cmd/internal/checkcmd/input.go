@@ -159,19 +159,27 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 		}
 	}
 
-	// Yield.
-	if in.Window, err = parseWindow(o.Window); err != nil {
+	if err := o.yieldRequest(&in); err != nil {
 		return in, err
 	}
-	if err := solver.YieldBoardsRange.Check(float64(o.Boards)); err != nil {
-		return in, buildError(err)
-	}
-	in.Boards, in.Seed = o.Boards, o.Seed
-
 	if err := b.Validate(); err != nil {
 		return in, buildError(err)
 	}
 	return in, nil
+}
+
+// yieldRequest fills in the yield window and the Monte Carlo's size and
+// seed from --window, --boards and --seed.
+func (o *Options) yieldRequest(in *job.CheckRequest) error {
+	var err error
+	if in.Window, err = parseWindow(o.Window); err != nil {
+		return err
+	}
+	if err := solver.YieldBoardsRange.Check(float64(o.Boards)); err != nil {
+		return buildError(err)
+	}
+	in.Boards, in.Seed = o.Boards, o.Seed
+	return nil
 }
 
 // buildError turns a solver input error into a usage error naming the flag.

@@ -4,9 +4,12 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"strings"
 
 	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
 
+	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/picture"
 	"biasbin/picker/job"
@@ -21,7 +24,7 @@ func NewPlot(f *cmdutil.Factory) *cobra.Command { return newPlotCmd(f, nil) }
 func newPlotCmd(f *cmdutil.Factory, runF func(*Options) error) *cobra.Command {
 	o := &Options{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
-		Use:   "plot --out FILE --vcc V --r1 R ... (--transistor LABEL | --hfe MIN..MAX) [flags]",
+		Use:   "plot --out FILE (--vcc V --r1 R ... | BUILD-ID...) [flags]",
 		Short: "Draw one build: load lines, Q-point spread, yield window (SVG, PNG or PDF)",
 		Long: `Analyse one build as check does (the same flags) and draw it to --out;
 the file's extension picks the format: .svg, .png or .pdf.
@@ -41,18 +44,24 @@ readers; every series also differs by marker or dash, so a greyscale print
 reads the same. --size is in pixels (a PNG has exactly that many; SVG and
 PDF are that size at 96 pixels per inch).
 
-To draw a picked build, use pick --plot FILE (and --compare N to overlay
-the first N builds).`,
+Instead of the build flags, name up to four builds: a pick's build ID (as
+pick shows it, kept for 30 days) or a reserved build's number (build list).
+Each is analysed as check analyses a build (--window, --boards and --seed
+apply) and several are overlaid, each in its own colour, marker and dash,
+with the axes closed in on their spread. pick --plot FILE draws the first
+build of a pick as it runs (--compare N overlays the first N).`,
 		Example: `  biasbin plot --out q.svg --vcc 12V --r1 47K --r2 10K --rc 2K2 --re 470R --hfe 100..300 --load 10K --bypass
   biasbin plot --out q.png --size 1200x800 --vcc 15V --r1 10K --r2 5K --rc 1K --re 1K --transistor NPN-GP
-  biasbin plot --out ic.pdf --kind ic-histogram --topology collector-feedback --vcc 12V --rf 220K --rc 2K2 --re 470R --hfe 100..400`,
+  biasbin plot --out ic.pdf --kind ic-histogram --topology collector-feedback --vcc 12V --rf 220K --rc 2K2 --re 470R --hfe 100..400
+  biasbin plot --out two.svg b3b39a272f57c b04ae2b60b913`,
 		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) == 0 {
-				return nil
+			if len(args) > picture.MaxCompare {
+				return cmdutil.Usagef("plot draws up to %d builds, not %d", picture.MaxCompare, len(args))
 			}
-			return cmdutil.Usagef("plot takes no arguments, only flags (got %q)", args[0])
+			return nil
 		},
-		RunE: func(cmd *cobra.Command, _ []string) error {
+		RunE: func(cmd *cobra.Command, args []string) error {
+			o.Refs = args
 			if runF != nil {
 				return runF(o)
 			}
@@ -61,6 +70,11 @@ the first N builds).`,
 	}
 	fl := cmd.Flags()
 	o.bindBuild(fl)
+	fl.VisitAll(func(f *pflag.Flag) {
+		if f.Name != "window" && f.Name != "boards" && f.Name != "seed" {
+			o.buildFlags = append(o.buildFlags, f.Name)
+		}
+	})
 	fl.StringVar(&o.Out, "out", "", "the picture file: .svg, .png or .pdf (required)")
 	fl.StringVar(&o.Kind, "kind", picture.KindLoadLine.String(), "the picture: load-line or ic-histogram")
 	fl.StringVar(&o.PlotSize, "size", "", "picture size in pixels, WIDTHxHEIGHT (default "+defaultSize()+")")
@@ -72,6 +86,9 @@ the first N builds).`,
 func RunPlot(ctx context.Context, o *Options) error {
 	if ctx == nil {
 		ctx = context.Background()
+	}
+	if len(o.Refs) > 0 {
+		return o.plotRefs(ctx)
 	}
 	pic, res, err := o.analysePlot(ctx)
 	if err != nil {
@@ -185,4 +202,79 @@ func (pj *pictureJob) chart(a *job.Analysis) (picture.Chart, error) {
 		return nil, fmt.Errorf("plot: %w", err)
 	}
 	return c, nil
+}
+
+// plotRefs draws the builds named by reference, each analysed as check
+// analyses a build.
+func (o *Options) plotRefs(ctx context.Context) error {
+	pic, c, failed, err := o.refChart(ctx)
+	if err != nil {
+		return err
+	}
+	if err := picture.WriteFile(pic.path, c, pic.size); err != nil {
+		return fmt.Errorf("plot: %w", err)
+	}
+	fmt.Fprintf(o.IO.ErrOut, "picture: %s of %s written to %s\n", pic.kind, strings.Join(o.Refs, ", "), pic.path)
+	if failed {
+		return cmdutil.ErrSilent
+	}
+	return nil
+}
+
+// refChart checks the flags beside build references and builds the chart
+// of the builds they name; failed reports an analysis that failed (said
+// on stderr).
+func (o *Options) refChart(ctx context.Context) (pic *pictureJob, c picture.Chart, failed bool, err error) {
+	for _, name := range o.buildFlags {
+		if o.changed(name) {
+			return nil, nil, false, usagef(name, "give either build IDs or the build flags, not both")
+		}
+	}
+	if o.Out == "" {
+		return nil, nil, false, usagef("out", "missing: name the picture file, e.g. --out q.svg")
+	}
+	if pic, err = o.pictureOptions("out", o.Out); err != nil {
+		return nil, nil, false, err
+	}
+	if pic.kind == picture.KindICHistogram && len(o.Refs) > 1 {
+		return nil, nil, false, usagef("kind", "the IC histogram shows one build, not %d", len(o.Refs))
+	}
+	var base job.CheckRequest
+	if err := o.yieldRequest(&base); err != nil {
+		return nil, nil, false, err
+	}
+	refs := make([]buildjob.Ref, len(o.Refs))
+	for i, s := range o.Refs {
+		if refs[i], err = buildjob.ParseRef(s); err != nil {
+			return nil, nil, false, cmdutil.Usagef("plot: build %w", err)
+		}
+	}
+	db, err := o.Store(ctx)
+	if err != nil {
+		return nil, nil, false, err
+	}
+	var subjects []picture.Subject
+	for _, r := range refs {
+		plan, err := buildjob.PlanOf(ctx, db, r)
+		if err != nil {
+			return nil, nil, false, fmt.Errorf("plot: %w", err) // names the build
+		}
+		req := base
+		req.Build, req.Label, req.KeepBoards = plan.Build, plan.Build.Device.Label, true
+		a, err := job.Check(req)
+		if err != nil {
+			return nil, nil, false, fmt.Errorf("plot: build %s: %w", r, err)
+		}
+		for _, p := range problems(a) {
+			fmt.Fprintf(o.IO.ErrOut, "biasbin: plot: build %s: %s\n", r, p)
+			failed = true
+		}
+		s := picture.FromAnalysis(a)
+		s.Name = r.String() + " " + s.Name
+		subjects = append(subjects, s)
+	}
+	if c, err = picture.Draw(pic.kind, subjects, picture.LoadLineOptions{Zoom: pic.zoom}); err != nil {
+		return nil, nil, false, fmt.Errorf("plot: %w", err)
+	}
+	return pic, c, failed, nil
 }
