@@ -168,29 +168,33 @@ func (c *LoadLineChart) composeMany(p *plot.Plot, leg *plot.Legend) {
 			p.Add(c.windowLine(t.Window, st.color))
 		}
 	}
-	var ends plot.Thumbnailer
-	for i, t := range c.Traces {
-		st := traceStyles[i]
+	ends := scatter(nil, traceStyles[0].open, black, 3.5)
+	for i := len(c.Traces) - 1; i >= 0; i-- { // the first build's boards on top
+		t, st := c.Traces[i], traceStyles[i]
 		cold := scatter(t.Cloud.Cold, st.open, withAlpha(st.color, 0.6), 2)
-		hot := scatter(t.Cloud.Hot, st.filled, withAlpha(st.color, 0.5), 2)
-		between := scatter(t.Cloud.Between, st.filled, withAlpha(st.color, 0.5), 1.6)
+		hot := scatter(t.Cloud.Hot, st.filled, withAlpha(st.color, 0.45), 2)
+		between := scatter(t.Cloud.Between, st.filled, withAlpha(st.color, 0.45), 1.6)
 		p.Add(cold, hot, between)
-		if ends == nil {
-			ends = scatter(nil, st.open, black, 3.5)
-		}
 	}
-	for i, t := range c.Traces {
-		st := traceStyles[i]
+	thumbs := make([][]plot.Thumbnailer, len(c.Traces))
+	for i := len(c.Traces) - 1; i >= 0; i-- { // the first build on top
+		t, st := c.Traces[i], traceStyles[i]
 		dc := line(t.DC[:], st.color, medium, st.dashes)
 		nominal := scatter([]Point{t.Nominal}, st.filled, st.color, 5)
 		outline := scatter([]Point{t.Nominal}, st.open, black, 5.5)
 		p.Add(dc, nominal, outline)
-		leg.Add(t.Name, dc, nominal, outline)
+		thumbs[i] = []plot.Thumbnailer{dc, nominal, outline}
+	}
+	for i, t := range c.Traces {
+		leg.Add(t.Name, thumbs[i]...)
 	}
 	t := c.Traces[0]
 	leg.Add("large marker: nominal Q-point; outline in the line's dash: worst-case hull")
 	if len(t.Cloud.Cold) > 0 && len(t.Cloud.Hot) > 0 {
 		leg.Add(fmt.Sprintf("open: board at %s; filled: at %s", notation.FormatTemperature(t.AmbientMin_C), notation.FormatTemperature(t.AmbientMax_C)), ends)
+	}
+	if t.Cloud.Drawn > 0 && t.Cloud.Drawn < t.Cloud.Boards {
+		leg.Add(fmt.Sprintf("(the first %s Monte Carlo boards of each build drawn)", count(t.Cloud.Drawn)))
 	}
 }
 

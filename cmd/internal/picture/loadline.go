@@ -118,9 +118,15 @@ const CutoffShare = 0.02
 // because every board is drawn independently.
 const DefaultMaxBoards = 2000
 
+// DefaultCompareBoards is how many boards per build a picture of several
+// builds draws by default: more clouds on top of each other hide the
+// ones below.
+const DefaultCompareBoards = 400
+
 // LoadLineOptions tune LoadLine; the zero value is the defaults.
 type LoadLineOptions struct {
-	// MaxBoards is the most boards drawn per build; 0 = DefaultMaxBoards.
+	// MaxBoards is the most boards drawn per build; 0 = DefaultMaxBoards
+	// for one build, DefaultCompareBoards for several.
 	MaxBoards int
 	// Zoom closes the axes in on the spread also for a single build
 	// (several builds are always zoomed).
@@ -133,7 +139,11 @@ func LoadLine(subjects []Subject, opt LoadLineOptions) (LoadLineChart, error) {
 		return LoadLineChart{}, fmt.Errorf("picture: %d builds: want 1 to %d", len(subjects), MaxCompare)
 	}
 	maxBoards := opt.MaxBoards
-	if maxBoards <= 0 {
+	switch {
+	case maxBoards > 0:
+	case len(subjects) > 1:
+		maxBoards = DefaultCompareBoards
+	default:
 		maxBoards = DefaultMaxBoards
 	}
 	var c LoadLineChart
