@@ -65,17 +65,29 @@ func writeReading(w io.Writer, indent string, rd buildjob.Reading, bands buildjo
 	if rd.Explained {
 		fmt.Fprintf(w, "%s  most likely: %s (matches every reading within the meter's accuracy)\n", indent, causeWords(first))
 	} else {
-		fmt.Fprintf(w, "%s  no single fault matches every reading within the meter's accuracy; nearest: %s (off by %.1f× the meter accuracy)\n",
-			indent, causeWords(first), first.Fit)
+		fmt.Fprintf(w, "%s  no single fault matches every reading within the meter's accuracy; nearest: %s (off by %s× the meter accuracy)\n",
+			indent, causeWords(first), fitWords(first.Fit))
 	}
 	var then []string
 	for _, c := range rd.Causes[1:] {
-		then = append(then, fmt.Sprintf("%s (fit %.2g)", causeWords(c), c.Fit))
+		then = append(then, fmt.Sprintf("%s (off by %s× the meter accuracy)", causeWords(c), fitWords(c.Fit)))
 	}
 	if len(then) > 0 {
 		fmt.Fprintf(w, "%s  then: %s\n", indent, strings.Join(then, "; "))
 	}
-	fmt.Fprintf(w, "%s  check %s first (power off)\n", indent, checkFirst(rd.Causes))
+	if rd.Explained {
+		fmt.Fprintf(w, "%s  check %s first (power off)\n", indent, checkFirst(rd.Causes))
+		return
+	}
+	fmt.Fprintf(w, "%s  check the supply, the ground lead and the readings first; then %s (power off)\n", indent, checkFirst(rd.Causes))
+}
+
+// fitWords writes a fit: one decimal below 10, whole above.
+func fitWords(f float64) string {
+	if f < 10 {
+		return fmt.Sprintf("%.1f", f)
+	}
+	return fmt.Sprintf("%.0f", f)
 }
 
 // checkFirst names the parts of the top two causes.
