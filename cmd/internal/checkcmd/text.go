@@ -70,7 +70,7 @@ func writeText(w io.Writer, r *job.Analysis) {
 	for _, tp := range r.TestPoints {
 		band := "not solved"
 		if tp.HaveBand {
-			band = fV(tp.Min_V) + " .. " + fV(tp.Max_V)
+			band = notation.FormatBand(tp.Min_V, tp.Max_V, "V")
 		}
 		fmt.Fprintf(tw, "  %s\t%s\t%s\n", strings.ToUpper(tp.Node.String()), fV(tp.Nominal_V), band)
 	}
@@ -80,8 +80,8 @@ func writeText(w io.Writer, r *job.Analysis) {
 	if wc := r.Worst; wc != nil {
 		fmt.Fprintf(w, "\nWorst case (%d corners: hFE, VBE(on), resistor and supply tolerance, ± TCR, ambient; self-heated)\n", wc.Count)
 		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-		fmt.Fprintf(tw, "  IC\t%s .. %s\tRSS u(IC) %s\n", fA(wc.ICMin_A), fA(wc.ICMax_A), fA(wc.RSSIC_A))
-		fmt.Fprintf(tw, "  VCE\t%s .. %s\tRSS u(VCE) %s\n", fV(wc.VCEMin_V), fV(wc.VCEMax_V), fV(wc.RSSVCE_V))
+		fmt.Fprintf(tw, "  IC\t%s\tRSS u(IC) %s\n", notation.FormatBand(wc.ICMin_A, wc.ICMax_A, "A"), fA(wc.RSSIC_A))
+		fmt.Fprintf(tw, "  VCE\t%s\tRSS u(VCE) %s\n", notation.FormatBand(wc.VCEMin_V, wc.VCEMax_V, "V"), fV(wc.RSSVCE_V))
 		fmt.Fprintf(tw, "  Tj\tup to %s\n", fT(wc.TjMax_C))
 		tw.Flush()
 		if wc.AllActive {

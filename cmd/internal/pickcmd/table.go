@@ -94,14 +94,14 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 	if !c.Worst.AllActive {
 		active = st.mark("NOT every corner active")
 	}
-	fmt.Fprintf(w, "    worst     IC %s..%s  VCE %s..%s  (%s)\n",
-		quantity(c.Worst.ICMin_A, "A"), quantity(c.Worst.ICMax_A, "A"),
-		quantity(c.Worst.VCEMin_V, "V"), quantity(c.Worst.VCEMax_V, "V"), active)
+	fmt.Fprintf(w, "    worst     IC %s  VCE %s  (%s)\n",
+		notation.FormatBand(c.Worst.ICMin_A, c.Worst.ICMax_A, "A"),
+		notation.FormatBand(c.Worst.VCEMin_V, c.Worst.VCEMax_V, "V"), active)
 	var tps []string
 	for _, tp := range c.TestPoints {
 		s := fmt.Sprintf("%s %s", strings.ToUpper(tp.Node.String()), quantity(tp.Nominal_V, "V"))
 		if tp.HaveBand {
-			s += fmt.Sprintf(" (%s..%s)", quantity(tp.Min_V, "V"), quantity(tp.Max_V, "V"))
+			s += " (" + notation.FormatBand(tp.Min_V, tp.Max_V, "V") + ")"
 		}
 		tps = append(tps, s)
 	}
