@@ -313,9 +313,19 @@ func WriteNotes(w io.Writer, v *job.PickOutcome) {
 	}
 	topUp := v.TopUp
 	if len(buy)+len(topUp) > 0 {
-		fmt.Fprintln(w, "parts to buy for a good build:")
+		// The purchase and the top-up are two ways to a good build: buy
+		// the one or the other, not both.
+		either := len(buy) > 0 && len(topUp) > 0
+		if either {
+			fmt.Fprintln(w, "parts to buy for a good build, either these (all of them):")
+		} else {
+			fmt.Fprintln(w, "parts to buy for a good build (all of them):")
+		}
 		for _, b := range buy {
 			fmt.Fprintf(w, "  - %s\n", b)
+		}
+		if either {
+			fmt.Fprintln(w, "or these, to make build #1 on all the boards:")
 		}
 		for _, p := range topUp {
 			fmt.Fprintf(w, "  - %d × %s for build #1 on all %d boards (bin %s #%d holds %d of the %d it takes)\n",

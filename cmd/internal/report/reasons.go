@@ -108,9 +108,17 @@ func Rejection(r picker.Rejection) string {
 // Purchase words one part to buy, e.g. "RE: 1K0 (E24, ±5 %, 0.25 W), 2 pieces".
 func Purchase(p picker.Purchase) string {
 	if p.Slot == picker.PartTransistor {
-		return fmt.Sprintf("transistor: %v with VCEO ≥ %.3g V, IC max ≥ %s, %d pieces", p.Polarity, p.VCEO_V, notation.FormatCurrent(p.ICMax_A), p.Qty)
+		return fmt.Sprintf("transistor: %v with VCEO ≥ %.3g V, IC max ≥ %s, %s", p.Polarity, p.VCEO_V, notation.FormatCurrent(p.ICMax_A), Pieces(p.Qty))
 	}
-	return fmt.Sprintf("%s: %s (%s, ±%g %%, %g W), %d pieces", strings.ToUpper(p.Slot), notation.FormatResistance(p.Ohm), p.Series, 100*p.Tol, p.Rated_W, p.Qty)
+	return fmt.Sprintf("%s: %s (%s, ±%g %%, %g W), %s", strings.ToUpper(p.Slot), notation.FormatResistance(p.Ohm), p.Series, 100*p.Tol, p.Rated_W, Pieces(p.Qty))
+}
+
+// Pieces writes a count of parts: "1 piece", "4 pieces".
+func Pieces(n int) string {
+	if n == 1 {
+		return "1 piece"
+	}
+	return fmt.Sprintf("%d pieces", n)
 }
 
 // Words applies word to each item of xs.
