@@ -108,7 +108,9 @@
 //
 // # Hand method and stability factors
 //
-// SolveFixedVBE is the textbook hand method (fixed VBE, IC = β·IB +
+// The tests check the exact solver against the textbook hand method, kept
+// in fixedvbe_test.go as a reference (the program itself never uses it):
+// SolveFixedVBE is that hand method (fixed VBE, IC = β·IB +
 // (β+1)·ICBO) in closed form; every topology reduces to one base loop
 // V = IB·Rb + VBE + IE·Re (divider: V_TH, R_TH, RE; collector feedback:
 // VCC, RF, RC+RE; split supply: |VEE|, RB, RE), so
