@@ -19,7 +19,9 @@
 //
 // # Candidates
 //
-// Transistors: lines of the polarity carrying every required tag, holding
+// Transistors: lines of the polarity carrying every required tag (and,
+// with Request.Transistor, bearing that label, ASCII letter case aside;
+// the search is then the search of a stock holding only those lines), holding
 // at least Boards parts, with VCEO ≥ VCC·(1+tol)/0.8, IC max ≥ IC/0.5 and
 // the dissipation at the target current and mid-supply VCE within the
 // derated, margined allowance at the hottest ambient (common practice

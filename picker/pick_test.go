@@ -27,6 +27,8 @@ func TestAgreesWithSolverAnalyses(t *testing.T) {
 	for _, req := range []Request{
 		{VCC_V: 12, IC_A: 1e-3, Top: 3},
 		{VCC_V: -9, IC_A: 0.5e-3, Top: 3, RL_Ohm: 10e3, Bypass: true},
+		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3, Top: 3},
+		{Topology: solver.SplitSupply, VCC_V: -12, VEE_V: 6, IC_A: 1e-3, Top: 3},
 	} {
 		res, err := Pick(mixedStock(), req)
 		if err != nil {
@@ -76,6 +78,11 @@ func TestPickedBuildInNgspice(t *testing.T) {
 		{VCC_V: 24, IC_A: 2e-3, RL_Ohm: 4.7e3, Bypass: true},
 		{VCC_V: -9, IC_A: 1e-3},
 		{VCC_V: -15, IC_A: 0.2e-3, Pairs: true},
+		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3},
+		{Topology: solver.CollectorFeedback, VCC_V: -9, IC_A: 0.5e-3},
+		{Topology: solver.SplitSupply, VCC_V: 12, VEE_V: -12, IC_A: 1e-3},
+		{Topology: solver.SplitSupply, VCC_V: -9, VEE_V: 5, IC_A: 1e-3, Pairs: true},
+		{Topology: AnyTopology, VCC_V: 15, VEE_V: -15, IC_A: 2e-3},
 	}
 	var jobs []spicecheck.Job
 	var want []float64
@@ -126,7 +133,7 @@ func handMethod(vcc, ic, hfeMin float64) [nPos]float64 {
 // transistor line and, per position, the stocked single nearest the ohms
 // (on a log scale). It returns the final score (with yield) and whether
 // the build passes.
-func scoreOf(t *testing.T, st Stock, req Request, tr int64, ohms [nPos]float64) (float64, bool) {
+func scoreOf(t *testing.T, st Stock, req Request, tr int64, ohms [maxPos]float64) (float64, bool) {
 	t.Helper()
 	s, err := normalize(req)
 	if err != nil {
@@ -141,7 +148,7 @@ func scoreOf(t *testing.T, st Stock, req Request, tr int64, ohms [nPos]float64) 
 	}
 	var c combo
 	c.dev = dev
-	for i, r := range ohms {
+	for i, r := range ohms[:e.lay.n] {
 		best := math.Inf(1)
 		for l, lv := range e.vs.levels {
 			if d := math.Abs(math.Log(lv.ohm / r)); d < best {
@@ -197,6 +204,83 @@ func TestNeverWorseThanHandMethod(t *testing.T) {
 				t.Errorf("stock %d, %g V %g A: hand method scores %.4g, better than the picker's first %.4g", si, req.VCC_V, req.IC_A, score, first.Score)
 			}
 			t.Logf("stock %d, %g V %g A: picker %.4g, hand method %.4g (passes %v)", si, req.VCC_V, req.IC_A, first.Score, score, pass)
+		}
+	}
+}
+
+// TestNeverWorseThanHandRulesOtherTopologies: the hand rules of the other
+// topologies (common practice, REFERENCE.md §20), each value rounded to
+// the nearest stocked part, never score better than the picker's first
+// build. Collector feedback: VE = VCC/10 across RE = VE/IC, RC from the
+// target IC and the mid-supply VCE, RF = β·RC with β the geometric mean of
+// the hFE range. Split supply: RE = (VEE − 0.7 V)/IC, RB = 0.1·β_min·RE,
+// RC for a VCE at the middle of the span with the emitter at −0.7 V.
+func TestNeverWorseThanHandRulesOtherTopologies(t *testing.T) {
+	stocks := []Stock{mixedStock(),
+		{Resistors: seriesStock(eseries.E12, 10, 1e6, 0.05, 0.25, 10, 1000), Transistors: []Transistor{smallNPN(1, 100, 300)}}}
+	checked := 0
+	for si, st := range stocks {
+		for _, req := range []Request{
+			{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3}, {Topology: solver.CollectorFeedback, VCC_V: 9, IC_A: 0.5e-3},
+			{Topology: solver.SplitSupply, VCC_V: 12, VEE_V: -12, IC_A: 1e-3}, {Topology: solver.SplitSupply, VCC_V: 9, VEE_V: -5, IC_A: 2e-3},
+		} {
+			res, err := Pick(st, req)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if len(res.Candidates) == 0 || len(res.Candidates[0].Failing) > 0 {
+				continue
+			}
+			first := res.Candidates[0]
+			tr := st.Transistors[0].Sheet
+			vcc, vee, ic := req.VCC_V, -req.VEE_V, req.IC_A
+			var hand [maxPos]float64
+			if req.Topology == solver.CollectorFeedback {
+				re := vcc / 10 / ic
+				rc := (vcc - vcc/2 - vcc/10) / ic
+				hand = [maxPos]float64{math.Sqrt(tr.HFEMin*tr.HFEMax) * rc, rc, re}
+			} else {
+				re := (vee - 0.7) / ic
+				rc := (vcc + 0.7 - (vcc+vee)/2) / ic
+				hand = [maxPos]float64{0.1 * tr.HFEMin * re, rc, re}
+			}
+			score, pass := scoreOf(t, st, req, st.Transistors[0].ID, hand)
+			if pass && score < first.Score {
+				t.Errorf("stock %d, %v %g V %g A: hand rule scores %.4g, better than the picker's first %.4g", si, req.Topology, vcc, ic, score, first.Score)
+			}
+			checked++
+			t.Logf("stock %d, %v %g V %g A: picker %.4g, hand rule %.4g (passes %v)", si, req.Topology, vcc, ic, first.Score, score, pass)
+		}
+	}
+	if checked < 4 {
+		t.Errorf("only %d requests had a passing first build", checked)
+	}
+}
+
+// TestOneTransistor: with Request.Transistor every build uses that line
+// (matched without regard to ASCII letter case), and the first build is
+// the best of that line in the unrestricted search's terms: the same as
+// searching a stock that holds only that line.
+func TestOneTransistor(t *testing.T) {
+	st := mixedStock()
+	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 3, Transistor: "qn-c"}
+	res, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	only := st
+	only.Transistors = []Transistor{st.Transistors[1]}
+	req.Transistor = ""
+	want, err := Pick(only, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.Candidates) == 0 || len(res.Candidates) != len(want.Candidates) {
+		t.Fatalf("%d builds, want %d", len(res.Candidates), len(want.Candidates))
+	}
+	for i, c := range res.Candidates {
+		if c.Transistor.Sheet.Label != "QN-C" || c.ID != want.Candidates[i].ID {
+			t.Errorf("rank %d: %s %s, want %s on QN-C", i+1, c.Transistor.Sheet.Label, c.ID, want.Candidates[i].ID)
 		}
 	}
 }

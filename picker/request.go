@@ -330,6 +330,9 @@ func (s settings) checkStock(st Stock) error {
 	if len(st.Resistors) == 0 {
 		return inputErr("stock", "add resistors to the stock first", "the stock holds no resistors")
 	}
+	if s.req.Transistor != "" && !slices.ContainsFunc(st.Transistors, func(t Transistor) bool { return labelMatches(t.Sheet.Label, s.req.Transistor) }) {
+		return inputErr("transistor", "give a label the stock holds (biasbin stock list)", "no transistor line is labelled %q", s.req.Transistor)
+	}
 	if !slices.ContainsFunc(st.Transistors, func(t Transistor) bool { return t.Sheet.Polarity == s.pol }) {
 		return inputErr("polarity", fmt.Sprintf("add %v transistors to the stock or ask for the other polarity", s.pol),
 			"the stock holds no %v transistor", s.pol)

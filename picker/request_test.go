@@ -34,6 +34,7 @@ func TestBadInput(t *testing.T) {
 		{"ambient upside down", good, func(r *Request) { r.AmbientMin_C, r.AmbientMax_C = 60, 10 }, "ambient"},
 		{"negative boards", good, func(r *Request) { r.Boards = -2 }, "boards"},
 		{"negative load", good, func(r *Request) { r.RL_Ohm = -1 }, "load"},
+		{"transistor not stocked", good, func(r *Request) { r.Transistor = "QX-9" }, "transistor"},
 		{"unknown topology", good, func(r *Request) { r.Topology = solver.Topology(9) }, "topology"},
 		{"split supply without its rail", good, func(r *Request) { r.Topology = solver.SplitSupply }, "vee"},
 		{"emitter rail on a divider", good, func(r *Request) { r.VEE_V = -12 }, "vee"},

@@ -74,9 +74,12 @@ type Request struct {
 	Weights      Weights
 	Pairs        bool
 	RequireTags  []string
-	Top          int // 0 = 5
-	Exhaustive   bool
-	ShowFailing  bool // also list builds that fail a hard limit, with the reason
+	// Transistor, when not "", is the one transistor label the builds may
+	// use (letter case aside, ASCII only, as the stock matches labels).
+	Transistor  string
+	Top         int // 0 = 5
+	Exhaustive  bool
+	ShowFailing bool // also list builds that fail a hard limit, with the reason
 	// AllowUnrated lets transistor lines whose ratings that matter for the
 	// request are not stated (solver.UnknownRatings) into the search;
 	// without it they are left out with the reason. Each build on such a

@@ -41,6 +41,7 @@ type Options struct {
 	Weights     string
 	Pairs       bool
 	RequireTags []string
+	Transistor  string
 	Top         int
 	Exhaustive  bool
 	ShowFailing bool

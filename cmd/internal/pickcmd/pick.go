@@ -129,6 +129,7 @@ can take their parts out of stock later.
 	fl.StringVar(&o.Weights, "weights", "", "ranking weights NAME=VALUE,... (default "+weightsHelp()+")")
 	fl.BoolVar(&o.Pairs, "pairs", false, "also use series and parallel pairs of two stocked resistors")
 	fl.StringArrayVar(&o.RequireTags, "require-tag", nil, "use only parts carrying this tag (repeatable)")
+	fl.StringVar(&o.Transistor, "transistor", "", "use only the transistor line(s) with this label (letter case aside), e.g. for a repair")
 	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
 	fl.BoolVar(&o.Exhaustive, "exhaustive", false, "evaluate every combination instead of the pruned search")
 	fl.BoolVar(&o.ShowFailing, "show-failing", false, "also show builds that break a hard limit, with the reason")

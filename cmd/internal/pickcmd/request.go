@@ -159,6 +159,7 @@ func (o *Options) request() (picker.Request, error) {
 			req.RequireTags = append(req.RequireTags, t)
 		}
 	}
+	req.Transistor = strings.TrimSpace(o.Transistor)
 	return req, nil
 }
 
