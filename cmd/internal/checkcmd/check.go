@@ -120,7 +120,9 @@ Values take the letter-and-digit code or SI: 12V, 4K7, 470R, 10k, 2mA.
 A supply that moves over a range (a battery from fresh to flat) is given as
 the range, --vcc 7V..9.6V: the nominal point sits at its middle and the
 worst case reaches both ends.
-A resistor value may carry its own tolerance (4K7F, "10k 1%"); otherwise
+A resistor may carry its own tolerance and power rating after slashes
+(6K8/10%/1W, 4K7F/0.5W) or name a resistor stock line ('#26': its stocked
+tolerance, rating, TCR and element voltage); otherwise
 --tol applies. For PNP give --vcc as a magnitude or as the negative rail;
 --vee is the emitter rail of the split-supply stage (magnitude or signed).
 
@@ -256,7 +258,7 @@ func (o *Options) bindBuild(fl *pflag.FlagSet) {
 		{solver.RF, "collector-feedback: collector to base"},
 		{solver.RB, "split-supply: base to ground"},
 	} {
-		fl.StringVar(&o.R[s.slot], s.slot.String(), "", s.help+", e.g. 4K7 or 4.7k (may carry a tolerance: 4K7F)")
+		fl.StringVar(&o.R[s.slot], s.slot.String(), "", s.help+", e.g. 4K7 or 4.7k; with tolerance and rating 6K8/10%/1W; or a stock line '#26'")
 	}
 	fl.StringVar(&o.Transistor, "transistor", "", "transistor by stock label (any letter case)")
 	fl.StringVar(&o.Polarity, "polarity", "", "inline transistor: npn or pnp (default npn)")

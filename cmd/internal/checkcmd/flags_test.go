@@ -322,3 +322,40 @@ func TestStockTransistorLabelCase(t *testing.T) {
 		})
 	}
 }
+
+// TestResistorFlagForms: a resistor flag takes VALUE/TOLERANCE/POWER
+// (IEC 60062 code, REFERENCE.md §2) or a stock line #ID, whose stocked
+// tolerance, rating, TCR and element voltage are used.
+func TestResistorFlagForms(t *testing.T) {
+	ctx := context.Background()
+	db, err := store.Open(ctx, filepath.Join(t.TempDir(), "stock.db"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer db.Close()
+	line, err := db.AddResistor(ctx, store.Resistor{Ohm: 6800, Tol: 0.1, Rated_W: 1, Tech: store.TechMetalOxide, LEV_V: 350, Qty: 4, Bin: "A"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	open := func(context.Context) (*store.DB, error) { return db, nil }
+	base := []string{"--vcc", "15V", "--r1", "10K", "--r2", "5K", "--re", "1K", "--hfe", "100..300"}
+
+	in, err := parseFlags(t, append(base, "--rc", "6K8/10%/1W"), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if rc := in.Build.Resistors[solver.RC]; rc.Nominal_Ohm != 6800 || !near(rc.Tol, 0.1) || rc.Rated_W != 1 {
+		t.Errorf("--rc 6K8/10%%/1W: %+v", rc)
+	}
+	in, err = parseFlags(t, append(base, "--rc", "#"+strconv.FormatInt(line.ID, 10)), open)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Metal oxide ±350 ppm/K is the store's default (from memory).
+	if rc := in.Build.Resistors[solver.RC]; rc.Nominal_Ohm != 6800 || !near(rc.Tol, 0.1) || rc.Rated_W != 1 || rc.LEV_V != 350 || rc.TCR_PPMPerK != 350 {
+		t.Errorf("--rc #%d: %+v", line.ID, rc)
+	}
+	if _, err := parseFlags(t, append(base, "--rc", "#999"), open); err == nil || !strings.Contains(err.Error(), "--rc") {
+		t.Errorf("--rc #999: %v", err)
+	}
+}

@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"strconv"
 	"strings"
 
 	"biasbin/cmd/internal/cmdutil"
@@ -112,14 +113,26 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 			}
 			return in, usagef(name, "missing: the %s stage needs %s", top, slotList(top))
 		}
-		ohm, rtol, hasTol, err := notation.ParseResistance(text)
+		if strings.HasPrefix(text, "#") {
+			spec, err := o.stockResistor(ctx, name, text)
+			if err != nil {
+				return in, err
+			}
+			b.Resistors[s] = spec
+			continue
+		}
+		rt, err := notation.ParseResistorText(text)
 		if err != nil {
 			return in, usage(name, err)
 		}
-		if !hasTol {
-			rtol = tol
+		spec := solver.ResistorSpec{Nominal_Ohm: rt.Ohm, Tol: tol, TCR_PPMPerK: tcr, Rated_W: power}
+		if rt.HasTol {
+			spec.Tol = rt.Tol
 		}
-		b.Resistors[s] = solver.ResistorSpec{Nominal_Ohm: ohm, Tol: rtol, TCR_PPMPerK: tcr, Rated_W: power}
+		if rt.HasPower {
+			spec.Rated_W = rt.Rated_W
+		}
+		b.Resistors[s] = spec
 	}
 
 	// AC side.
@@ -325,6 +338,33 @@ func (o *Options) device(ctx context.Context) (d solver.Datasheet, label string,
 	}
 	d, err = o.inlineDevice(d)
 	return d, label, err
+}
+
+// stockResistor reads the resistor stock line a position names as "#ID"
+// (its value, tolerance, rating, derating, TCR and element voltage as
+// stocked, the store's defaults filled in).
+func (o *Options) stockResistor(ctx context.Context, flag, text string) (solver.ResistorSpec, error) {
+	id, err := strconv.ParseInt(strings.TrimSpace(strings.TrimPrefix(text, "#")), 10, 64)
+	if err != nil || id <= 0 {
+		return solver.ResistorSpec{}, usagef(flag, "%q: a stock line is written #ID, like #26 (see biasbin stock list)", text)
+	}
+	if o.Store == nil {
+		return solver.ResistorSpec{}, fmt.Errorf("--%s %s: no stock available", flag, text)
+	}
+	db, err := o.Store(ctx)
+	if err != nil {
+		return solver.ResistorSpec{}, err
+	}
+	r, err := db.ResistorByID(ctx, id)
+	switch {
+	case errors.Is(err, store.ErrNotFound):
+		return solver.ResistorSpec{}, usagef(flag, "%s is not a resistor line in stock (see biasbin stock list --kind resistor)", text)
+	case err != nil:
+		return solver.ResistorSpec{}, fmt.Errorf("--%s %s: %w", flag, text, err)
+	}
+	r = r.WithDefaults()
+	return solver.ResistorSpec{Nominal_Ohm: r.Ohm, Tol: r.Tol, TCR_PPMPerK: r.TCR_PPMPerK, Rated_W: r.Rated_W,
+		Knee_C: r.Knee_C, Max_C: r.Max_C, LEV_V: r.LEV_V}, nil
 }
 
 // stockDevice reads the stock line --transistor names. A label stocked in
