@@ -13,6 +13,7 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 
+	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/report"
 	"biasbin/picker/job"
@@ -62,6 +63,9 @@ type Options struct {
 	Seed       uint64
 	JSON       bool
 	Spice      bool
+	// Ref is a build ID given as the argument (a pick's build, or a
+	// reserved build's number): the build to check instead of the flags.
+	Ref string
 	// Plot is the file check --plot draws the picture to; Out is plot's.
 	Plot string
 	Out  string
@@ -106,7 +110,7 @@ func New(f *cmdutil.Factory) *cobra.Command { return newCmd(f, nil) }
 func newCmd(f *cmdutil.Factory, runF func(*Options) error) *cobra.Command {
 	o := &Options{IO: f.IO, Store: f.ExistingStore}
 	cmd := &cobra.Command{
-		Use:   "check --vcc V --r1 R ... (--transistor LABEL | --hfe MIN..MAX) [flags]",
+		Use:   "check (--vcc V --r1 R ... (--transistor LABEL | --hfe MIN..MAX) | BUILD-ID) [flags]",
 		Short: "Analyse one bias build: Q-point, worst case, yield, dissipation, swing",
 		Long: `Solve one bias build exactly and show how it holds up: the nominal
 operating point and region, every worst-case corner of hFE spread, resistor
@@ -120,6 +124,9 @@ Values take the letter-and-digit code or SI: 12V, 4K7, 470R, 10k, 2mA.
 A supply that moves over a range (a battery from fresh to flat) is given as
 the range, --vcc 7V..9.6V: the nominal point sits at its middle and the
 worst case reaches both ends.
+A build a pick listed (its ID, like b3b39a272f57c, kept 30 days) or a
+reserved build (its number from build list) is checked by naming it:
+check b3b39a272f57c; --window, --boards and --seed still apply.
 A resistor may carry its own tolerance and power rating after slashes
 (6K8/10%/1W, 4K7F/0.5W) or name a resistor stock line ('#26': its stocked
 tolerance, rating, TCR and element voltage); otherwise
@@ -156,6 +163,10 @@ flags.
   biasbin check --polarity pnp --vcc 9V --r1 10K --r2 2K2 --rc 3K6 --re 1K --hfe 100..300 --ambient -10..60`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) == 0 {
+				return nil
+			}
+			if _, err := buildjob.ParseRef(args[0]); err == nil && len(args) == 1 && !(cmd.Flags().Changed("bypass") && o.Bypass == bypassAll) {
+				o.Ref = args[0]
 				return nil
 			}
 			if cmd.Flags().Changed("bypass") && o.Bypass == bypassAll {

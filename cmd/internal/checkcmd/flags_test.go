@@ -1,6 +1,8 @@
 package checkcmd
 
 import (
+	"biasbin/cmd/internal/buildjob"
+	"biasbin/picker"
 	"bytes"
 	"context"
 	"math"
@@ -357,5 +359,46 @@ func TestResistorFlagForms(t *testing.T) {
 	}
 	if _, err := parseFlags(t, append(base, "--rc", "#999"), open); err == nil || !strings.Contains(err.Error(), "--rc") {
 		t.Errorf("--rc #999: %v", err)
+	}
+}
+
+// TestCheckBuildID: `check ID` takes the build a pick listed, kept with
+// the pick, exactly as picked (the stock is invented); build flags beside
+// an ID are refused.
+func TestCheckBuildID(t *testing.T) {
+	ctx := context.Background()
+	db, err := store.Open(ctx, filepath.Join(t.TempDir(), "stock.db"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer db.Close()
+	var st picker.Stock
+	for i, ohm := range []float64{1e3, 2.2e3, 4.7e3, 10e3, 22e3, 47e3} {
+		st.Resistors = append(st.Resistors, picker.Resistor{ID: int64(i + 1), Ohm: ohm, Tol: 0.05, TCR_PPMPerK: 100, Rated_W: 0.25, Qty: 10, Bin: "A"})
+	}
+	st.Transistors = []picker.Transistor{{ID: 9, Qty: 5, Bin: "T", Sheet: solver.Datasheet{Label: "QX-1", Polarity: solver.NPN,
+		HFEMin: 100, HFEMax: 300, VCEO_V: 40, PD25_W: 0.5, ICMax_A: 0.1}}}
+	out, err := job.Pick(st, picker.Request{Polarity: solver.NPN, VCC_V: 12, VCCTol: 0.05, IC_A: 1e-3, Top: 1}, picker.Pick)
+	if err != nil || len(out.Builds) == 0 {
+		t.Fatalf("pick: %v", err)
+	}
+	if err := buildjob.KeepPick(ctx, db, out, st); err != nil {
+		t.Fatal(err)
+	}
+	open := func(context.Context) (*store.DB, error) { return db, nil }
+	id := out.Builds[0].ID
+	in, err := parseFlags(t, []string{id}, open)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := out.Builds[0].Build
+	if in.Build.VCC_V != want.VCC_V || in.Build.Resistors != want.Resistors || in.Build.Device.Label != "QX-1" {
+		t.Errorf("check %s: build %+v, want %+v", id, in.Build, want)
+	}
+	if _, err := parseFlags(t, []string{id, "--vcc", "9V"}, open); err == nil || !strings.Contains(err.Error(), "--vcc") {
+		t.Errorf("check %s --vcc 9V: %v", id, err)
+	}
+	if _, err := parseFlags(t, []string{"b0000000000000"}, open); err == nil {
+		t.Error("an unknown build ID was accepted")
 	}
 }

@@ -28,6 +28,9 @@ func usagef(flag, format string, a ...any) error {
 // input parses the flags into a build. The stock is opened only when
 // --transistor is given.
 func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
+	if o.Ref != "" {
+		return o.refInput(ctx)
+	}
 	var in job.CheckRequest
 	b := &in.Build
 	top, err := solver.ParseTopology(strings.ToLower(strings.TrimSpace(o.Topology)))
