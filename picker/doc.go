@@ -13,7 +13,7 @@
 // target and ±20 % VCE around the build's VCE target; Weights
 // DefaultWeights(); Limits the solver's defaults (resistors at most 50 %
 // of the derated rating, the transistor at most 75 %, 0.5 V above
-// VCE(sat) at every corner); Finalists 2·Top + 5; YieldBoards 400.
+// VCE(sat) at every corner); Finalists 2·max(Top, 5) + 5; YieldBoards 400.
 // A bad request or stock is an *InputError naming the field, the problem
 // and the fix.
 //
@@ -82,8 +82,13 @@
 // resistance and its preference (single before series before parallel,
 // tighter tolerance, higher rating, smaller |TCR|, lower line IDs). The
 // search keeps the best Finalists builds by the score without the yield
-// term, runs the yield of those, adds the term and re-sorts; the first Top
-// are the result. Candidate.ID is a hash of the topology, the transistor
+// term (the pool) and runs their yield lazily, in that order, until the
+// Top-th best final score is no worse than the next build's score without
+// the term; as the term is never negative, no later build of the pool can
+// overtake it. The pool does not depend on Top up to 5, so the first Top
+// builds are the pool's true first Top whatever Top is (a build outside
+// the pool is not yielded: its score without the yield term is worse than
+// every pooled build's). Candidate.ID is a hash of the topology, the transistor
 // line and each position's arrangement and line IDs, so the same stock
 // lines give the same ID.
 //

@@ -51,13 +51,13 @@ func Pick(stock Stock, req Request) (Result, error) {
 				pl.search(p, &cnt)
 			}
 		}
-		res.Evaluated += cnt.evaluated
-		res.Solved += cnt.solves
-		res.Considered += e.combinations()
-		fs, err := e.finalists(p.items)
+		fs, err := e.finalists(p.items, s.top)
 		if err != nil {
 			return Result{}, err
 		}
+		res.Evaluated += cnt.evaluated
+		res.Solved += cnt.solves
+		res.Considered += e.combinations()
 		if len(fs) > 0 {
 			best[topo] = fs[0]
 		}
@@ -168,20 +168,41 @@ func finOrder(a, b fin) int {
 	return strings.Compare(a.ev.key, b.ev.key)
 }
 
-// finalists runs the Monte Carlo yield of the pool, adds the yield term
-// and returns the finalists in final order (finOrder).
-func (e *evaluator) finalists(items []*evaluated) ([]fin, error) {
-	fs := make([]fin, 0, len(items))
-	for _, ev := range items {
+// finalists returns the pooled builds in final order (finOrder), running
+// the Monte Carlo yield lazily: in the pool's order (the same order by the
+// score without the yield term) until the k-th best final order is no
+// later than the next build's order without the yield term. The yield
+// term is never negative, so no later build of the pool can move ahead of
+// the k-th: the first k are the pool's true first k whatever k is. The
+// list holds every build whose yield was run (at least the first k, when
+// the pool has k).
+func (e *evaluator) finalists(items []*evaluated, k int) (fs []fin, err error) {
+	// before reports whether a (final) comes before the order of ev
+	// without its yield term, or is the same build.
+	before := func(a fin, ev *evaluated) bool {
+		af, bf := len(a.ev.failing) > 0, len(ev.failing) > 0
+		if af != bf {
+			return !af
+		}
+		if a.c.Score != ev.score {
+			return a.c.Score < ev.score
+		}
+		return a.ev.key <= ev.key
+	}
+	for i, ev := range items {
 		c, err := ev.e.candidate(ev)
 		if err != nil {
 			return nil, err
 		}
 		c.Terms.Yield = 1 - c.Yield.Yield
 		c.Score = ev.score + e.s.w.Yield*c.Terms.Yield
-		fs = append(fs, fin{ev: ev, c: c})
+		f := fin{ev: ev, c: c}
+		at, _ := slices.BinarySearchFunc(fs, f, finOrder)
+		fs = slices.Insert(fs, at, f)
+		if len(fs) >= k && i+1 < len(items) && before(fs[k-1], items[i+1]) {
+			break
+		}
 	}
-	slices.SortStableFunc(fs, finOrder)
 	return fs, nil
 }
 

@@ -293,9 +293,11 @@ func normalize(req Request) (settings, error) {
 	return s, nil
 }
 
-// defaultPool is the number of finalists that get a Monte Carlo yield
-// before the final ranking: twice the shown builds plus five.
-func defaultPool(top int) int { return 2*top + 5 }
+// defaultPool is the number of finalists that may get a Monte Carlo
+// yield before the final ranking: twice the default shown builds plus
+// five, or twice the shown builds plus five when more are shown. It does
+// not change for Top up to DefaultTop, so neither does the ranking.
+func defaultPool(top int) int { return 2*max(top, DefaultTop) + 5 }
 
 // limitsWithDefaults fills the zero fields of l with the solver defaults.
 func limitsWithDefaults(l solver.Limits) solver.Limits {
