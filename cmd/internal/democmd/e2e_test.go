@@ -40,10 +40,11 @@ func TestDemoEndToEnd(t *testing.T) {
 			t.Errorf("demo output lacks %q", want)
 		}
 	}
-	// A series pair appears in pick 2's builds, shown as VALUE+VALUE.
+	// A pair appears in pick 2's builds, shown as VALUE+VALUE (series) or
+	// VALUE‖VALUE (parallel).
 	pick2 := section(out, "=== Pick 2:", "=== Pick 3:")
-	if !regexp.MustCompile(`\s[0-9R]+[RKM][0-9]*\+[0-9R]+[RKM][0-9]*\s+series`).MatchString(pick2) {
-		t.Errorf("pick 2 shows no series pair:\n%s", pick2)
+	if !regexp.MustCompile(`\s[0-9R]+[RKM][0-9]*(\+|‖)[0-9R]+[RKM][0-9]*\s+(series|parallel)`).MatchString(pick2) {
+		t.Errorf("pick 2 shows no pair:\n%s", pick2)
 	}
 	if t.Failed() {
 		t.Logf("demo output:\n%s", out)
