@@ -100,7 +100,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []Rejection) {
 	var lines []Resistor
 	for _, r := range stock.Resistors {
-		if hasTags(r.Tags, s.req.RequireTags) {
+		if HasTags(r.Tags, s.req.RequireTags) {
 			lines = append(lines, r)
 		}
 	}

@@ -81,6 +81,14 @@ func inputErr(field, fix, format string, a ...any) error {
 // builds on one scale (split supply only when Request.VEE_V is given).
 const AnyTopology solver.Topology = -1
 
+// Validate reports the first problem of r as an *InputError, by the rules
+// Pick applies: the one home of a pick request's rules (a front end calls
+// it to refuse a request before it reads the stock).
+func (r Request) Validate() error {
+	_, err := normalize(r)
+	return err
+}
+
 // settings is a validated request with every default filled in.
 type settings struct {
 	req         Request
@@ -132,13 +140,8 @@ func normalize(req Request) (settings, error) {
 		return s, inputErr("vcc", "give the supply, e.g. --vcc 12V", "%g V is not a supply voltage", req.VCC_V)
 	}
 	switch req.Polarity {
-	case 0:
-		s.pol = solver.NPN
-		if req.VCC_V < 0 {
-			s.pol = solver.PNP
-		}
-	case solver.NPN, solver.PNP:
-		s.pol = req.Polarity
+	case 0, solver.NPN, solver.PNP:
+		s.pol = req.polarity()
 	default:
 		return s, inputErr("polarity", "use npn or pnp", "%v is not a polarity", req.Polarity)
 	}
@@ -221,8 +224,8 @@ func normalize(req Request) (settings, error) {
 	if s.ambMin == 0 && s.ambMax == 0 {
 		s.ambMin, s.ambMax = DefaultAmbientMin_C, DefaultAmbientMax_C
 	}
-	if !finite(s.ambMin) || !finite(s.ambMax) || s.ambMin > s.ambMax || s.ambMin < solver.MinTemp_C || s.ambMax > 150 {
-		return s, inputErr("ambient", "give MIN..MAX within -55..150 °C", "%g..%g °C is not an ambient range", s.ambMin, s.ambMax)
+	if !finite(s.ambMin) || !finite(s.ambMax) || s.ambMin > s.ambMax || s.ambMin < solver.MinTemp_C || s.ambMax > solver.MaxTemp_C {
+		return s, inputErr("ambient", fmt.Sprintf("give MIN..MAX within %g..%g °C", solver.MinTemp_C, solver.MaxTemp_C), "%g..%g °C is not an ambient range", s.ambMin, s.ambMax)
 	}
 	s.boards = req.Boards
 	if s.boards < 0 {
@@ -313,31 +316,14 @@ func limitsWithDefaults(l solver.Limits) solver.Limits {
 	return l
 }
 
-// hasTags reports whether have carries every tag in want.
-func hasTags(have, want []string) bool {
-	for _, t := range want {
-		if !slices.Contains(have, t) {
-			return false
-		}
-	}
-	return true
-}
-
-// checkStock reports the bad-input cases of the stock itself: nothing at
-// all, no resistors, no transistor of the polarity.
+// checkStock refuses a stock missing a kind of part (CheckStock) and a
+// target current no stocked RC and RE can carry.
 func (s settings) checkStock(st Stock) error {
-	if len(st.Resistors) == 0 && len(st.Transistors) == 0 {
-		return inputErr("stock", "add resistors and transistors to the stock first", "the stock is empty")
-	}
-	if len(st.Resistors) == 0 {
-		return inputErr("stock", "add resistors to the stock first", "the stock holds no resistors")
+	if err := CheckStock(st, s.req); err != nil {
+		return err
 	}
 	if s.req.Transistor != "" && !slices.ContainsFunc(st.Transistors, func(t Transistor) bool { return labelMatches(t.Sheet.Label, s.req.Transistor) }) {
 		return inputErr("transistor", "give a label the stock holds (biasbin stock list)", "no transistor line is labelled %q", s.req.Transistor)
-	}
-	if !slices.ContainsFunc(st.Transistors, func(t Transistor) bool { return t.Sheet.Polarity == s.pol }) {
-		return inputErr("polarity", fmt.Sprintf("add %v transistors to the stock or ask for the other polarity", s.pol),
-			"the stock holds no %v transistor", s.pol)
 	}
 	rmin := math.Inf(1)
 	for _, r := range st.Resistors {

@@ -20,9 +20,6 @@ func TestBadInput(t *testing.T) {
 		mod   func(*Request)
 		field string
 	}{
-		{"empty stock", Stock{}, func(*Request) {}, "stock"},
-		{"no resistors", Stock{Transistors: good.Transistors}, func(*Request) {}, "stock"},
-		{"no transistor of the polarity", good, func(r *Request) { r.VCC_V = -12 }, "polarity"},
 		{"zero supply", good, func(r *Request) { r.VCC_V = 0 }, "vcc"},
 		{"pnp with a positive rail", good, func(r *Request) { r.Polarity = solver.PNP }, "vcc"},
 		{"no current", good, func(r *Request) { r.IC_A = 0 }, "ic"},
@@ -53,6 +50,45 @@ func TestBadInput(t *testing.T) {
 				t.Errorf("error %q: field %q (want %q), fix %q", err, ie.Field, c.field, ie.Fix)
 			}
 		})
+	}
+}
+
+// TestStockGap: a stock without resistors (with the tags asked for), or
+// without a transistor of the polarity, is refused before any search,
+// naming what is missing; tags match without regard to letter case.
+func TestStockGap(t *testing.T) {
+	good := Stock{Resistors: seriesStock(eseries.E12, 100, 100e3, 0.05, 0.25, 10, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	tagged := good
+	tagged.Resistors = append([]Resistor(nil), good.Resistors...)
+	for i := range tagged.Resistors {
+		tagged.Resistors[i].Tags = []string{"approved"}
+	}
+	tagged.Transistors = []Transistor{smallNPN(1, 100, 300)}
+	tagged.Transistors[0].Tags = []string{"approved"}
+	cases := []struct {
+		name      string
+		stock     Stock
+		req       Request
+		resistors bool
+		pol       solver.Polarity
+		other     int
+	}{
+		{"empty stock", Stock{}, Request{VCC_V: 12, IC_A: 1e-3}, true, 0, 0},
+		{"no resistors", Stock{Transistors: good.Transistors}, Request{VCC_V: 12, IC_A: 1e-3}, true, 0, 0},
+		{"no resistor with the tag", good, Request{VCC_V: 12, IC_A: 1e-3, RequireTags: []string{"approved"}}, true, 0, 0},
+		{"no transistor of the polarity", good, Request{VCC_V: -12, IC_A: 1e-3}, false, solver.PNP, 1},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			_, err := Pick(c.stock, c.req)
+			var g *StockGapError
+			if !errors.As(err, &g) || g.Resistors != c.resistors || (!c.resistors && (g.Polarity != c.pol || g.OtherPolarity != c.other)) {
+				t.Fatalf("error %v, want a stock gap (resistors %v, polarity %v, other %d)", err, c.resistors, c.pol, c.other)
+			}
+		})
+	}
+	if _, err := Pick(tagged, Request{VCC_V: 12, IC_A: 1e-3, RequireTags: []string{"APPROVED"}, Top: 1}); err != nil {
+		t.Errorf("a tag in capitals does not match the stocked lower-case tag: %v", err)
 	}
 }
 

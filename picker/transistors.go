@@ -82,7 +82,7 @@ func (s settings) transistorCandidates(ts []Transistor, span float64) (devs []de
 	vccHi := span * (1 + s.vccTol)
 	for _, t := range ts {
 		d := t.Sheet
-		if d.Polarity != s.pol || !hasTags(t.Tags, s.req.RequireTags) || !labelMatches(d.Label, s.req.Transistor) {
+		if d.Polarity != s.pol || !HasTags(t.Tags, s.req.RequireTags) || !labelMatches(d.Label, s.req.Transistor) {
 			continue
 		}
 		reject := func(r Rejection) {

@@ -71,13 +71,13 @@ func (o *PickOutcome) Shown() picker.Result {
 
 // Pick searches stock for req with search and assembles what a front end
 // shows. When nothing fits a run of several boards, it also finds how many
-// boards the stock does build and shows the builds for that many. Errors:
-// a *StockGapError when a kind of part is missing altogether, and the
-// search's own (a *picker.InputError or *solver.InputError for a request
-// it refuses).
+// boards the stock does build and shows the builds for that many. Errors
+// are the search's own (picker.Pick: a *picker.StockGapError when a kind
+// of part is missing altogether, a *picker.InputError for a request it
+// refuses).
 func Pick(stock picker.Stock, req picker.Request, search Search) (*PickOutcome, error) {
-	if err := CheckStock(stock, req); err != nil {
-		return nil, err
+	if err := picker.CheckStock(stock, req); err != nil {
+		return nil, err // before any search (and any progress shown)
 	}
 	res, err := search(stock, req)
 	if err != nil {

@@ -97,22 +97,3 @@ func TestPullList(t *testing.T) {
 		t.Errorf("top-up %+v, want line 1 short by 30, then line 2 by 8", o.TopUp)
 	}
 }
-
-// TestStockGap: a stock without resistors, or without a transistor of the
-// polarity, is refused before any search, naming what is missing.
-func TestStockGap(t *testing.T) {
-	never := func(picker.Stock, picker.Request) (picker.Result, error) {
-		t.Fatal("searched a stock with a gap")
-		return picker.Result{}, nil
-	}
-	noRes := tinyStock()
-	noRes.Resistors = nil
-	_, err := Pick(noRes, picker.Request{Polarity: solver.NPN}, never)
-	if g, ok := err.(*StockGapError); !ok || !g.Resistors {
-		t.Errorf("no resistors: %v", err)
-	}
-	_, err = Pick(tinyStock(), picker.Request{Polarity: solver.PNP}, never)
-	if g, ok := err.(*StockGapError); !ok || g.Resistors || g.Polarity != solver.PNP || g.OtherPolarity != 1 {
-		t.Errorf("no PNP: %+v", err)
-	}
-}

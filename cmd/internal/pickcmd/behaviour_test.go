@@ -106,7 +106,7 @@ func TestBadInput(t *testing.T) {
 		want  []string
 	}{
 		{"impossible vce", smallBatch(), []string{"--vcc", "5V", "--ic", "1mA", "--vce", "6V"}, nil, 2,
-			[]string{"cannot exist", "lower --vce or raise --vcc"}},
+			[]string{"cannot exist", "choose a VCE below 4.75 V or raise --vcc"}},
 		{"empty stock", store.Batch{}, []string{"--vcc", "12V", "--ic", "1mA"}, nil, 1,
 			[]string{"no resistors", "biasbin stock import"}},
 		{"no pnp", smallBatch(), []string{"--vcc", "12V", "--ic", "1mA", "--polarity", "pnp"}, nil, 1,

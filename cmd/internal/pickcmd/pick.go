@@ -128,7 +128,7 @@ can take their parts out of stock later.
 	fl.StringVar(&o.VCEWindow, "vce-window", defaultVCEWindow, "yield window for VCE: ±percent of --vce, or MIN..MAX")
 	fl.StringVar(&o.Weights, "weights", "", "ranking weights NAME=VALUE,... (default "+weightsHelp()+")")
 	fl.BoolVar(&o.Pairs, "pairs", false, "also use series and parallel pairs of two stocked resistors")
-	fl.StringArrayVar(&o.RequireTags, "require-tag", nil, "use only parts carrying this tag (repeatable)")
+	fl.StringArrayVar(&o.RequireTags, "require-tag", nil, "use only parts carrying this tag (repeatable; a tag matches in any letter case)")
 	fl.StringVar(&o.Transistor, "transistor", "", "use only the transistor line(s) with this label (letter case aside), e.g. for a repair")
 	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
 	fl.BoolVar(&o.Exhaustive, "exhaustive", false, "evaluate every combination instead of the pruned search")
@@ -212,18 +212,18 @@ func Run(ctx context.Context, o *Options) error {
 // could not be done (exit 1).
 func pickError(err error) error {
 	var pin *picker.InputError
-	var gap *job.StockGapError
+	var gap *picker.StockGapError
 	switch {
 	case errors.As(err, &gap):
 		return stockGap(gap)
 	case errors.As(err, &pin):
-		return &cmdutil.UsageError{Err: fmt.Errorf("pick: %w", err)}
+		return requestError(pin)
 	}
 	return fmt.Errorf("pick: %w", err)
 }
 
 // stockGap words a missing kind of part with what to add.
-func stockGap(g *job.StockGapError) error {
+func stockGap(g *picker.StockGapError) error {
 	tagNote := ""
 	if len(g.Tags) > 0 {
 		tagNote = " tagged " + strings.Join(g.Tags, " and ")

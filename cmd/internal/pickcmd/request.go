@@ -1,6 +1,7 @@
 package pickcmd
 
 import (
+	"errors"
 	"math"
 	"slices"
 	"strconv"
@@ -35,29 +36,17 @@ func (o *Options) request() (picker.Request, error) {
 	if err != nil {
 		return req, cmdutil.Usagef("--vcc: %v", err)
 	}
-	switch {
-	case vcc == 0:
-		return req, cmdutil.Usagef("--vcc 0: a stage needs a supply; give its voltage, e.g. --vcc 12V")
-	case vcc < 0 && pol == solver.NPN:
-		return req, cmdutil.Usagef("--vcc %s: an NPN stage needs a positive supply; give --vcc %s, or --polarity pnp", o.VCC, strings.TrimPrefix(strings.TrimSpace(o.VCC), "-"))
+	if req.VCC_V, err = solver.Rail(vcc, pol, solver.Collector); err != nil {
+		return req, requestError(err)
 	}
-	mag := math.Abs(vcc)
-	req.VCC_V = mag
-	if pol == solver.PNP {
-		req.VCC_V = -mag // PNP rails are signed: the mirror of the NPN stage
-	}
-	span := mag
 	if o.VEE != "" {
 		vee, err := notation.ParseVoltage(o.VEE)
 		if err != nil {
 			return req, cmdutil.Usagef("--vee: %v", err)
 		}
-		if vee == 0 {
-			return req, cmdutil.Usagef("--vee 0: give the emitter rail's voltage, e.g. --vee 12V, or leave --vee out")
+		if req.VEE_V, err = solver.Rail(vee, pol, solver.Emitter); err != nil {
+			return req, requestError(err)
 		}
-		// the emitter rail lies opposite the collector rail
-		req.VEE_V = -math.Abs(vee) * math.Copysign(1, req.VCC_V)
-		span += math.Abs(vee)
 	}
 
 	switch {
@@ -94,10 +83,6 @@ func (o *Options) request() (picker.Request, error) {
 		req.VCE_V = math.Abs(req.VCE_V)
 		if req.VCE_V == 0 {
 			return req, cmdutil.Usagef("--vce 0: the transistor would sit in saturation; give a VCE between 1 V and the supply, or leave --vce out for the swing rule")
-		}
-		if req.VCE_V >= span*(1-req.VCCTol) {
-			return req, cmdutil.Usagef("--vce %s cannot exist on a %s supply (lowest %s at -%s): VCE must stay below the supply; lower --vce or raise --vcc",
-				o.VCE, trimV(span), trimV(span*(1-req.VCCTol)), strings.TrimSpace(o.VCCTol))
 		}
 	}
 
@@ -160,10 +145,49 @@ func (o *Options) request() (picker.Request, error) {
 		}
 	}
 	req.Transistor = strings.TrimSpace(o.Transistor)
+	if err := req.Validate(); err != nil {
+		return req, requestError(err)
+	}
 	return req, nil
 }
 
-// parseTopology reads --topology: a topology's name or "any".
+// requestError turns a request the picker or the solver refuses into a
+// usage error naming the flag (exit 2); any other error is returned as it
+// is.
+func requestError(err error) error {
+	var pin *picker.InputError
+	var sin *solver.InputError
+	switch {
+	case errors.As(err, &pin):
+		msg := pin.Problem
+		if pin.Fix != "" {
+			msg += "; " + pin.Fix
+		}
+		return cmdutil.Usagef("%s: %s", flagOf(pin.Field), msg)
+	case errors.As(err, &sin):
+		return cmdutil.Usagef("%s: %s", flagOf(sin.Field), sin.Problem)
+	}
+	return err
+}
+
+// flagOf names the flag behind a request field.
+func flagOf(field string) string {
+	switch {
+	case field == "vcc_tol":
+		return "--vcc-tol"
+	case strings.HasPrefix(field, "weights"):
+		return "--weights"
+	case field == "window":
+		return "--ic-window/--vce-window"
+	case field == "stock":
+		return "the stock"
+	}
+	return "--" + field
+}
+
+// parseTopology reads --topology: a topology's name or "any" (which
+// topologies pick searches is the picker's rule, checked with the rest of
+// the request).
 func parseTopology(s string) (solver.Topology, error) {
 	if strings.TrimSpace(s) == "any" {
 		return picker.AnyTopology, nil
@@ -182,9 +206,6 @@ func parseAmbient(s string) (lo, hi float64, err error) {
 	}
 	if lo, hi, err = notation.ParseRange(s, notation.ParseTemperature); err != nil {
 		return 0, 0, cmdutil.Usagef("--ambient: %v (want a range in °C like 0..50 or -10..60)", err)
-	}
-	if lo < -55 || hi > 150 {
-		return 0, 0, cmdutil.Usagef("--ambient %s: outside -55..150 °C, the range the device model covers", s)
 	}
 	return lo, hi, nil
 }

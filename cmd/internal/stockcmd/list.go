@@ -63,7 +63,7 @@ func newListCmd(f *cmdutil.Factory, runF func(*ListOptions) error) *cobra.Comman
 	fl := cmd.Flags()
 	fl.StringVar(&o.Kind, "kind", "", "only resistor or transistor lines")
 	fl.StringVar(&o.Bin, "bin", "", "only lines in this bin")
-	fl.StringSliceVar(&o.Tags, "tag", nil, "only lines carrying this tag (repeatable: all must match)")
+	fl.StringSliceVar(&o.Tags, "tag", nil, "only lines carrying this tag (repeatable: all must match; a tag matches in any letter case)")
 	fl.StringVar(&o.Value, "value", "", "resistors of this value or range (6K8, 4K..5K), with the nearest stocked values either side")
 	fl.BoolVar(&o.Long, "long", false, "also show each line's limiting element voltage and note")
 	fl.BoolVar(&o.JSON, "json", false, "print JSON (SI units: ohms, tol as a fraction, power_w ...)")
