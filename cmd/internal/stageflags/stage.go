@@ -1,0 +1,227 @@
+// Package stageflags reads the flags that describe a bias stage as it sits
+// on a board — topology, rails, resistors with their tolerances, ambient —
+// and a transistor taken from stock or given inline, for every command that
+// takes a stage (check, substitute, diagnose): one parser, one set of
+// defaults, one mapping from the solver's field names to the flags.
+package stageflags
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/spf13/pflag"
+
+	"biasbin/cmd/internal/cmdutil"
+	"biasbin/solver"
+	"biasbin/solver/notation"
+)
+
+// Flag defaults, shown in --help.
+const (
+	DefaultTopology = "divider"
+	DefaultVCCTol   = "5%"
+	// DefaultTol is the resistor tolerance when a value carries none: E24
+	// parts are usually ±5 % (common practice, REFERENCE.md §1).
+	DefaultTol = "5%"
+	// DefaultTCR is thick-film's ±100 ppm/K (common practice, REFERENCE.md §3).
+	DefaultTCR = "100ppm"
+	// DefaultPower is the usual 1/4 W through-hole rating (common practice).
+	DefaultPower   = "0.25W"
+	DefaultAmbient = "0..50"
+	DefaultTemp    = "25"
+)
+
+// Stage holds the stage flags as typed.
+type Stage struct {
+	Topology string
+	VCC      string
+	VEE      string
+	R        [solver.NumSlots]string // --r1 --r2 --rc --re --rf --rb
+	VCCTol   string
+	Tol      string
+	TCR      string
+	Power    string
+	Ambient  string
+	Temp     string
+	// Changed reports whether a flag was given on the command line.
+	Changed func(name string) bool
+}
+
+// AddFlags registers the stage flags on fl.
+func (s *Stage) AddFlags(fl *pflag.FlagSet) {
+	s.Changed = fl.Changed
+	fl.StringVar(&s.Topology, "topology", DefaultTopology, "bias circuit: divider, collector-feedback or split-supply")
+	fl.StringVar(&s.VCC, "vcc", "", "collector supply, e.g. 12V, or the range it moves over, e.g. 7V..9.6V for a 9 V battery (then no --vcc-tol)")
+	fl.StringVar(&s.VEE, "vee", "", "emitter supply of the split-supply stage, e.g. 12V (taken as the rail opposite --vcc)")
+	for _, r := range []struct {
+		slot solver.Slot
+		help string
+	}{
+		{solver.R1, "divider: rail to base"},
+		{solver.R2, "divider: base to ground"},
+		{solver.RC, "rail to collector"},
+		{solver.RE, "emitter to ground (or to --vee); 0 or absent = emitter tied to it"},
+		{solver.RF, "collector-feedback: collector to base"},
+		{solver.RB, "split-supply: base to ground"},
+	} {
+		fl.StringVar(&s.R[r.slot], r.slot.String(), "", r.help+", e.g. 4K7 or 4.7k (may carry a tolerance: 4K7F)")
+	}
+	fl.StringVar(&s.VCCTol, "vcc-tol", DefaultVCCTol, "supply tolerance (both rails)")
+	fl.StringVar(&s.Tol, "tol", DefaultTol, "resistor tolerance where the value carries none")
+	fl.StringVar(&s.TCR, "tcr", DefaultTCR, "resistor temperature coefficient")
+	fl.StringVar(&s.Power, "power", DefaultPower, "resistor power rating at 70 °C (derated to 0 at 155 °C)")
+	fl.StringVar(&s.Ambient, "ambient", DefaultAmbient, "ambient temperature range in °C, MIN..MAX")
+	fl.StringVar(&s.Temp, "temp", DefaultTemp, "ambient temperature of the nominal point, °C")
+}
+
+// TopologyOf parses --topology.
+func (s *Stage) TopologyOf() (solver.Topology, error) {
+	top, err := solver.ParseTopology(strings.ToLower(strings.TrimSpace(s.Topology)))
+	if err != nil {
+		return 0, Usage("topology", err)
+	}
+	return top, nil
+}
+
+// Build parses the stage flags into a build for a transistor of polarity
+// pol: topology, signed rails, supply tolerance, resistors, ambient range
+// and nominal ambient. The device, AC side and beta are left to the
+// caller.
+func (s *Stage) Build(pol solver.Polarity) (solver.Build, error) {
+	var b solver.Build
+	top, err := s.TopologyOf()
+	if err != nil {
+		return b, err
+	}
+	b.Topology = top
+	sign := 1.0
+	if pol == solver.PNP {
+		sign = -1
+	}
+	// Rails: a magnitude, or the signed rail of the polarity.
+	if s.VCC == "" {
+		return b, Usagef("vcc", "missing: give the collector supply, e.g. --vcc 12V")
+	}
+	vcc, vccTol, vccRange, err := notation.ParseSupply(s.VCC)
+	if err != nil {
+		return b, Usage("vcc", err)
+	}
+	if b.VCC_V, err = railOf(vcc, sign, "vcc"); err != nil {
+		return b, err
+	}
+	switch {
+	case top == solver.SplitSupply && s.VEE == "":
+		return b, Usagef("vee", "missing: the split-supply stage needs the emitter supply, e.g. --vee 12V")
+	case top != solver.SplitSupply && s.VEE != "":
+		return b, Usagef("vee", "only the split-supply stage has an emitter supply")
+	case s.VEE != "":
+		if b.VEE_V, err = rail(s.VEE, -sign, "vee"); err != nil {
+			return b, err
+		}
+	}
+	switch {
+	case vccRange && s.Changed != nil && s.Changed("vcc-tol"):
+		return b, Usagef("vcc-tol", "--vcc %s is already a range; give either the range or --vcc-tol, not both", s.VCC)
+	case vccRange && vccTol >= 0.5:
+		return b, Usagef("vcc", "%s: the top of a supply range must be below 3 times its bottom", s.VCC)
+	case vccRange:
+		b.VCCTol = vccTol
+	default:
+		if b.VCCTol, err = notation.ParseTolerance(s.VCCTol); err != nil {
+			return b, Usage("vcc-tol", err)
+		}
+	}
+
+	// Resistors.
+	tol, err := notation.ParseTolerance(s.Tol)
+	if err != nil {
+		return b, Usage("tol", err)
+	}
+	tcr, err := notation.ParseTCR(s.TCR)
+	if err != nil {
+		return b, Usage("tcr", err)
+	}
+	power, err := notation.ParsePower(s.Power)
+	if err != nil {
+		return b, Usage("power", err)
+	}
+	used := map[solver.Slot]bool{}
+	for _, sl := range top.Slots() {
+		used[sl] = true
+	}
+	for sl := range solver.NumSlots {
+		text := strings.TrimSpace(s.R[sl])
+		name := sl.String()
+		if !used[sl] {
+			if text != "" {
+				return b, Usagef(name, "the %s stage has no %s (it uses %s)", top, name, SlotList(top))
+			}
+			continue
+		}
+		if text == "" {
+			if sl == solver.RE && top != solver.SplitSupply {
+				continue // emitter tied to ground
+			}
+			return b, Usagef(name, "missing: the %s stage needs %s", top, SlotList(top))
+		}
+		ohm, rtol, hasTol, err := notation.ParseResistance(text)
+		if err != nil {
+			return b, Usage(name, err)
+		}
+		if !hasTol {
+			rtol = tol
+		}
+		b.Resistors[sl] = solver.ResistorSpec{Nominal_Ohm: ohm, Tol: rtol, TCR_PPMPerK: tcr, Rated_W: power}
+	}
+
+	// Temperatures.
+	if b.AmbientMin_C, b.AmbientMax_C, err = notation.ParseRange(s.Ambient, notation.ParseTemperature); err != nil {
+		return b, Usage("ambient", err)
+	}
+	if b.NominalAmbient_C, err = notation.ParseTemperature(s.Temp); err != nil {
+		return b, Usage("temp", err)
+	}
+	return b, nil
+}
+
+// SlotList names the resistor flags a topology takes.
+func SlotList(t solver.Topology) string {
+	var names []string
+	for _, s := range t.Slots() {
+		names = append(names, "--"+s.String())
+	}
+	return strings.Join(names, " ")
+}
+
+// rail reads a supply flag: a magnitude gets sign; a signed value must
+// already have it.
+func rail(text string, sign float64, flag string) (float64, error) {
+	v, err := notation.ParseVoltage(text)
+	if err != nil {
+		return 0, Usage(flag, err)
+	}
+	return railOf(v, sign, flag)
+}
+
+// railOf signs a parsed supply v as rail does.
+func railOf(v, sign float64, flag string) (float64, error) {
+	switch {
+	case v == 0:
+		return 0, Usagef(flag, "a supply of 0 V")
+	case v > 0:
+		return v * sign, nil
+	case sign > 0:
+		return 0, Usagef(flag, "%s: this rail is positive here; give the magnitude", notation.FormatVoltage(v))
+	}
+	return v, nil
+}
+
+// Usage returns a usage error (exit 2) naming the flag.
+func Usage(flag string, err error) error {
+	return &cmdutil.UsageError{Err: fmt.Errorf("--%s: %w", flag, err)}
+}
+
+// Usagef returns a usage error (exit 2) naming the flag.
+func Usagef(flag, format string, a ...any) error {
+	return &cmdutil.UsageError{Err: fmt.Errorf("--%s: "+format, append([]any{flag}, a...)...)}
+}
