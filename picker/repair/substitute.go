@@ -39,8 +39,8 @@ type SubstituteRequest struct {
 	// Tolerance is the IC shift allowed, a fraction; 0 = DefaultTolerance.
 	Tolerance float64
 	Stock     picker.Stock
-	// Changes is how many substitutes get a resistor change; 0 =
-	// DefaultChanges.
+	// Changes is how many substitute types get a resistor change (a type
+	// stocked on several lines counts once); 0 = DefaultChanges.
 	Changes int
 	// Pairs lets the resistor change use series and parallel pairs.
 	Pairs  bool
@@ -260,17 +260,23 @@ func Substitute(req SubstituteRequest) (*Substitution, error) {
 	}
 	if out.NoneWithin {
 		fills := picker.Fillings(req.Stock.Resistors, 1, req.Pairs)
-		n := 0
+		// One change per type: a type stocked in two drawers gets the same
+		// change on each line, counted once.
+		done := map[solver.Datasheet]*Change{}
 		for i := range out.Candidates {
 			c := &out.Candidates[i]
-			if n == changes {
-				break
-			}
 			if failsRating(c.Failing) {
 				continue
 			}
-			n++
+			if ch, ok := done[c.Transistor.Sheet]; ok {
+				c.Change = ch
+				continue
+			}
+			if len(done) == changes {
+				continue
+			}
 			c.Change = bestChange(c, fills, out.Original, tol, lim)
+			done[c.Transistor.Sheet] = c.Change
 		}
 	}
 	return out, nil

@@ -8,9 +8,11 @@ import (
 	"biasbin/cmd/internal/checkcmd"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/democmd"
+	"biasbin/cmd/internal/diagnosecmd"
 	"biasbin/cmd/internal/ledgercmd"
 	"biasbin/cmd/internal/pickcmd"
 	"biasbin/cmd/internal/stockcmd"
+	"biasbin/cmd/internal/substitutecmd"
 )
 
 // subcommands lists the top-level commands in help order.
@@ -18,6 +20,8 @@ func subcommands(f *cmdutil.Factory) []*cobra.Command {
 	return []*cobra.Command{
 		pickcmd.New(f),
 		checkcmd.New(f),
+		substitutecmd.New(f),
+		diagnosecmd.New(f),
 		checkcmd.NewPlot(f),
 		democmd.New(f),
 		buildcmd.New(f),
