@@ -51,7 +51,9 @@ collector-feedback stage, a split-supply stage on ±12 V, and --topology any
 choosing between them. Then it
 commits the first pick's best build (the parts leave the demo stock) and
 records two boards' bring-up readings, one of them out of its band with
-the likely cause named, and shows the build's ledger rows.
+the likely cause named, and shows the build's ledger rows. Last, a repair
+bench on an invented unit: a dead transistor replaced from the wall
+(substitute) and a faulty stage found from its voltages (diagnose).
 
 Your own stock is never touched. With --keep PATH the demo stock stays at
 PATH so you can try commands on it: biasbin --db PATH stock list.`,
@@ -112,6 +114,13 @@ func Run(ctx context.Context, o *Options) error {
 		}
 	}
 	if err := buildStep(ctx, w, db, stock, first); err != nil {
+		return err
+	}
+	// The build took parts out: the repair bench sees the stock as it is now.
+	if stock, err = stockparts.Read(ctx, db); err != nil {
+		return fmt.Errorf("demo stock: %w", err)
+	}
+	if err := runRepair(w, stock); err != nil {
 		return err
 	}
 	fmt.Fprintln(w)

@@ -12,7 +12,8 @@ import (
 
 // TestDemoEndToEnd runs the whole demo on the real store and picker and
 // checks that it shows the job: three picks, a build with a series pair,
-// and a run the stock cannot supply with what to buy.
+// a run the stock cannot supply with what to buy, and the repair bench (a
+// substitution with a resistor change, a diagnosis, the bench cautions).
 func TestDemoEndToEnd(t *testing.T) {
 	keep := filepath.Join(t.TempDir(), "demo.db")
 	out, errOut, err := runDemo(t, "--keep", keep)
@@ -35,6 +36,8 @@ func TestDemoEndToEnd(t *testing.T) {
 		"kept at " + keep,
 		"=== Build:", "parts taken out of stock", ": pass\n", "OUT OF BAND", "most likely: RC shorted",
 		"$ biasbin ledger --build 1",
+		"=== Repair 1:", "$ biasbin substitute", "the one resistor change", "=== Repair 2:", "$ biasbin diagnose",
+		"Explained: Q base-emitter junction open", "follow local codes and licensed practice",
 	} {
 		if !strings.Contains(out, want) {
 			t.Errorf("demo output lacks %q", want)
