@@ -3,6 +3,7 @@ package diagnosecmd
 import (
 	"fmt"
 	"io"
+	"math"
 	"text/tabwriter"
 
 	"biasbin/cmd/internal/report"
@@ -59,7 +60,12 @@ func WriteText(w io.Writer, req repair.DiagnoseRequest, d *repair.Diagnosis, top
 	}
 }
 
-func volts(v float64) string { return fmt.Sprintf("%.3f V", v) }
+func volts(v float64) string {
+	if math.Abs(v) < 0.0005 {
+		v = 0 // no "-0.000 V"
+	}
+	return fmt.Sprintf("%.3f V", v)
+}
 
 func fit(f float64) string {
 	if f > 999 {
