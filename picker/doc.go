@@ -57,9 +57,10 @@
 //	            more part to place and solder
 //
 // Default weights: QPoint 2, Emitter 2, Beta 1, Headroom 1,
-// Utilization 0.25, Yield 1, Parts 0.05 (DefaultPartsWeight: a pair's
-// extra placement costs what a 2.5 % IC error does, so a pair must buy
-// more than that to beat a stocked single). The VCE target is the request's, or the VCE that maximises the
+// Utilization 0.25, Yield 1, Parts 0 (DefaultPartsWeight: off by default,
+// because the search's bounds do not yet count it and a positive weight
+// makes a search with pairs prune far less; --weights parts=0.05 prices a
+// pair's extra placement at what a 2.5 % IC error costs). The VCE target is the request's, or the VCE that maximises the
 // symmetrical swing of this build at the target current: with
 // r_ac = RC‖RL + RE(unbypassed) and R_dc = RC + RE it is
 // VCE(sat) + (|VCC| − VCE(sat))·r_ac/(R_dc + r_ac), which is the mid-point
