@@ -16,6 +16,7 @@ import (
 	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/report"
+	"biasbin/cmd/internal/stageflags"
 	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/store"
@@ -208,7 +209,7 @@ func Run(ctx context.Context, o *Options) error {
 	if err != nil {
 		var ie *solver.InputError
 		if errors.As(err, &ie) {
-			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", flagName(ie.Field), ie.Problem)}
+			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", stageflags.FlagName(ie.Field), ie.Problem)}
 		}
 		return fmt.Errorf("check: %w", err)
 	}

@@ -7,23 +7,13 @@ import (
 	"strconv"
 	"strings"
 
-	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/stageflags"
 	"biasbin/cmd/internal/stockparts"
 	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/solver/notation"
 	"biasbin/store"
 )
-
-// usage returns a usage error (exit 2) naming the flag.
-func usage(flag string, err error) error {
-	return &cmdutil.UsageError{Err: fmt.Errorf("--%s: %w", flag, err)}
-}
-
-// usagef returns a usage error (exit 2) naming the flag.
-func usagef(flag, format string, a ...any) error {
-	return &cmdutil.UsageError{Err: fmt.Errorf("--%s: "+format, append([]any{flag}, a...)...)}
-}
 
 // input parses the flags into a build. The stock is opened only when
 // --transistor is given.
@@ -35,7 +25,7 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 	b := &in.Build
 	top, err := solver.ParseTopology(strings.ToLower(strings.TrimSpace(o.Topology)))
 	if err != nil {
-		return in, usage("topology", err)
+		return in, stageflags.Usage("topology", err)
 	}
 	b.Topology = top
 
@@ -52,50 +42,50 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 
 	// Rails: a magnitude, or the signed rail of the polarity.
 	if o.VCC == "" {
-		return in, usagef("vcc", "missing: give the collector supply, e.g. --vcc 12V")
+		return in, stageflags.Usagef("vcc", "missing: give the collector supply, e.g. --vcc 12V")
 	}
 	vcc, vccTol, vccRange, err := notation.ParseSupply(o.VCC)
 	if err != nil {
-		return in, usage("vcc", err)
+		return in, stageflags.Usage("vcc", err)
 	}
-	if b.VCC_V, err = railOf(vcc, sign, "vcc"); err != nil {
+	if b.VCC_V, err = stageflags.RailOf(vcc, sign, "vcc"); err != nil {
 		return in, err
 	}
 	switch {
 	case top == solver.SplitSupply && o.VEE == "":
-		return in, usagef("vee", "missing: the split-supply stage needs the emitter supply, e.g. --vee 12V")
+		return in, stageflags.Usagef("vee", "missing: the split-supply stage needs the emitter supply, e.g. --vee 12V")
 	case top != solver.SplitSupply && o.VEE != "":
-		return in, usagef("vee", "only the split-supply stage has an emitter supply")
+		return in, stageflags.Usagef("vee", "only the split-supply stage has an emitter supply")
 	case o.VEE != "":
-		if b.VEE_V, err = rail(o.VEE, -sign, "vee"); err != nil {
+		if b.VEE_V, err = stageflags.Rail(o.VEE, -sign, "vee"); err != nil {
 			return in, err
 		}
 	}
 	switch {
 	case vccRange && o.Changed != nil && o.Changed("vcc-tol"):
-		return in, usagef("vcc-tol", "--vcc %s is already a range; give either the range or --vcc-tol, not both", o.VCC)
+		return in, stageflags.Usagef("vcc-tol", "--vcc %s is already a range; give either the range or --vcc-tol, not both", o.VCC)
 	case vccRange && vccTol >= 0.5:
-		return in, usagef("vcc", "%s: the top of a supply range must be below 3 times its bottom", o.VCC)
+		return in, stageflags.Usagef("vcc", "%s: the top of a supply range must be below 3 times its bottom", o.VCC)
 	case vccRange:
 		b.VCCTol = vccTol
 	default:
 		if b.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
-			return in, usage("vcc-tol", err)
+			return in, stageflags.Usage("vcc-tol", err)
 		}
 	}
 
 	// Resistors.
 	tol, err := notation.ParseTolerance(o.Tol)
 	if err != nil {
-		return in, usage("tol", err)
+		return in, stageflags.Usage("tol", err)
 	}
 	tcr, err := notation.ParseTCR(o.TCR)
 	if err != nil {
-		return in, usage("tcr", err)
+		return in, stageflags.Usage("tcr", err)
 	}
 	power, err := notation.ParsePower(o.Power)
 	if err != nil {
-		return in, usage("power", err)
+		return in, stageflags.Usage("power", err)
 	}
 	used := map[solver.Slot]bool{}
 	for _, s := range top.Slots() {
@@ -106,7 +96,7 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 		name := s.String()
 		if !used[s] {
 			if text != "" {
-				return in, usagef(name, "the %s stage has no %s (it uses %s)", top, name, slotList(top))
+				return in, stageflags.Usagef(name, "the %s stage has no %s (it uses %s)", top, name, stageflags.SlotList(top))
 			}
 			continue
 		}
@@ -114,7 +104,7 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 			if s == solver.RE && top != solver.SplitSupply {
 				continue // emitter tied to ground
 			}
-			return in, usagef(name, "missing: the %s stage needs %s", top, slotList(top))
+			return in, stageflags.Usagef(name, "missing: the %s stage needs %s", top, stageflags.SlotList(top))
 		}
 		if strings.HasPrefix(text, "#") {
 			spec, err := o.stockResistor(ctx, name, text)
@@ -126,7 +116,7 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 		}
 		rt, err := notation.ParseResistorText(text)
 		if err != nil {
-			return in, usage(name, err)
+			return in, stageflags.Usage(name, err)
 		}
 		spec := solver.ResistorSpec{Nominal_Ohm: rt.Ohm, Tol: tol, TCR_PPMPerK: tcr, Rated_W: power}
 		if rt.HasTol {
@@ -141,37 +131,37 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 	// AC side.
 	if o.Load != "" {
 		if b.RL_Ohm, err = notation.ParseOhms(o.Load); err != nil {
-			return in, usage("load", err)
+			return in, stageflags.Usage("load", err)
 		}
 	}
 	switch bp := strings.TrimSpace(o.Bypass); {
 	case bp == "":
 	case b.Resistors[solver.RE].Nominal_Ohm == 0:
-		return in, usagef("bypass", "there is no RE to bypass")
+		return in, stageflags.Usagef("bypass", "there is no RE to bypass")
 	case strings.EqualFold(bp, bypassAll):
 		b.RBypass_Ohm = b.Resistors[solver.RE].Nominal_Ohm
 	default:
 		if b.RBypass_Ohm, err = notation.ParseOhms(bp); err != nil {
-			return in, usage("bypass", err)
+			return in, stageflags.Usage("bypass", err)
 		}
 		if b.RBypass_Ohm > b.Resistors[solver.RE].Nominal_Ohm {
-			return in, usagef("bypass", "%s is more than RE (%s)", notation.FormatResistance(b.RBypass_Ohm), notation.FormatResistance(b.Resistors[solver.RE].Nominal_Ohm))
+			return in, stageflags.Usagef("bypass", "%s is more than RE (%s)", notation.FormatResistance(b.RBypass_Ohm), notation.FormatResistance(b.Resistors[solver.RE].Nominal_Ohm))
 		}
 	}
 
 	// Temperatures and the nominal point.
 	if b.AmbientMin_C, b.AmbientMax_C, err = notation.ParseRange(o.Ambient, notation.ParseTemperature); err != nil {
-		return in, usage("ambient", err)
+		return in, stageflags.Usage("ambient", err)
 	}
 	if b.NominalAmbient_C, err = notation.ParseTemperature(o.Temp); err != nil {
-		return in, usage("temp", err)
+		return in, stageflags.Usage("temp", err)
 	}
 	if o.Beta != "" {
 		if b.NominalBeta, err = notation.ParseNumber(o.Beta); err != nil {
-			return in, usage("beta", err)
+			return in, stageflags.Usage("beta", err)
 		}
 		if b.NominalBeta <= 0 {
-			return in, usagef("beta", "%g: want a positive beta", b.NominalBeta)
+			return in, stageflags.Usagef("beta", "%g: want a positive beta", b.NominalBeta)
 		}
 	}
 
@@ -179,7 +169,7 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 		return in, err
 	}
 	if err := b.Validate(); err != nil {
-		return in, buildError(err)
+		return in, stageflags.InputError(err)
 	}
 	return in, nil
 }
@@ -192,97 +182,10 @@ func (o *Options) yieldRequest(in *job.CheckRequest) error {
 		return err
 	}
 	if err := solver.YieldBoardsRange.Check(float64(o.Boards)); err != nil {
-		return buildError(err)
+		return stageflags.InputError(err)
 	}
 	in.Boards, in.Seed = o.Boards, o.Seed
 	return nil
-}
-
-// buildError turns a solver input error into a usage error naming the flag.
-func buildError(err error) error {
-	var ie *solver.InputError
-	if errors.As(err, &ie) {
-		return &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", flagName(ie.Field), ie.Problem)}
-	}
-	return err
-}
-
-// flagName maps a solver input field to the flag a user typed.
-func flagName(field string) string {
-	f := strings.Fields(field)
-	if len(f) == 0 {
-		return "input"
-	}
-	switch f[0] {
-	case "hfe_min", "hfe_max":
-		return "--hfe"
-	case "hfe_typ":
-		return "--hfe-typ"
-	case "vbe_on", "vbe_at":
-		return "--vbe"
-	case "vce_sat":
-		return "--vce-sat"
-	case "ic_max":
-		return "--ic-max"
-	case "theta_ja":
-		return "--theta-ja"
-	case "tj_max":
-		return "--tj-max"
-	case "vcc_tol":
-		return "--vcc-tol"
-	case "pd", "vaf", "vceo", "icbo", "hfe", "vcc", "vee", "ambient", "temp", "beta", "bypass", "load", "polarity":
-		return "--" + f[0]
-	case "window":
-		return "--window"
-	case "yield_boards":
-		return "--boards"
-	}
-	if _, err := solver.ParseSlot(f[0]); err == nil {
-		if len(f) > 1 {
-			switch f[1] {
-			case "tolerance":
-				return "--" + f[0] + " (tolerance, or --tol)"
-			case "tcr":
-				return "--tcr"
-			case "power", "derating":
-				return "--power"
-			}
-		}
-		return "--" + f[0]
-	}
-	return field
-}
-
-// slotList names the resistor flags a topology takes.
-func slotList(t solver.Topology) string {
-	var names []string
-	for _, s := range t.Slots() {
-		names = append(names, "--"+s.String())
-	}
-	return strings.Join(names, " ")
-}
-
-// rail reads a supply flag: a magnitude gets sign; a signed value must
-// already have it.
-func rail(text string, sign float64, flag string) (float64, error) {
-	v, err := notation.ParseVoltage(text)
-	if err != nil {
-		return 0, usage(flag, err)
-	}
-	return railOf(v, sign, flag)
-}
-
-// railOf signs a parsed supply v as rail does.
-func railOf(v, sign float64, flag string) (float64, error) {
-	switch {
-	case v == 0:
-		return 0, usagef(flag, "a supply of 0 V")
-	case v > 0:
-		return v * sign, nil
-	case sign > 0:
-		return 0, usagef(flag, "%s: this rail is positive here; give the magnitude", notation.FormatVoltage(v))
-	}
-	return v, nil
 }
 
 // parseWindow reads --window "IC,VCE".
@@ -290,7 +193,7 @@ func parseWindow(text string) (job.WindowSpec, error) {
 	var w job.WindowSpec
 	ic, vce, ok := strings.Cut(text, ",")
 	if !ok || strings.TrimSpace(ic) == "" || strings.TrimSpace(vce) == "" {
-		return w, usagef("window", "%q: want IC,VCE, e.g. 10%%,20%% or 1.8mA..2.2mA,4V..8V", text)
+		return w, stageflags.Usagef("window", "%q: want IC,VCE, e.g. 10%%,20%% or 1.8mA..2.2mA,4V..8V", text)
 	}
 	var err error
 	if w.IC, err = windowPart(strings.TrimSpace(ic), notation.ParseCurrent); err != nil {
@@ -300,10 +203,10 @@ func parseWindow(text string) (job.WindowSpec, error) {
 		return w, err
 	}
 	if !w.IC.Relative && w.IC.Max == 0 || !w.VCE.Relative && w.VCE.Max == 0 {
-		return w, usagef("window", "%q: an absolute range needs a maximum above 0", text)
+		return w, stageflags.Usagef("window", "%q: an absolute range needs a maximum above 0", text)
 	}
 	if w.VCE.Min < 0 {
-		return w, usagef("window", "%q: VCE is a magnitude", text)
+		return w, stageflags.Usagef("window", "%q: VCE is a magnitude", text)
 	}
 	return w, nil
 }
@@ -313,13 +216,13 @@ func windowPart(text string, parse notation.Parser) (job.Band, error) {
 	if strings.HasSuffix(text, "%") {
 		pct, err := notation.ParseTolerance(text)
 		if err != nil {
-			return job.Band{}, usage("window", err)
+			return job.Band{}, stageflags.Usage("window", err)
 		}
 		return job.Band{Relative: true, Frac: pct}, nil
 	}
 	lo, hi, err := notation.ParseRange(text, parse)
 	if err != nil {
-		return job.Band{}, usage("window", err)
+		return job.Band{}, stageflags.Usage("window", err)
 	}
 	return job.Band{Min: lo, Max: hi}, nil
 }
@@ -336,7 +239,7 @@ func (o *Options) device(ctx context.Context) (d solver.Datasheet, label string,
 	} else {
 		d.Polarity = solver.NPN
 		if o.HFE == "" {
-			return d, "", usagef("hfe", "missing: name a stocked transistor with --transistor LABEL, or give it inline with at least --hfe MIN..MAX")
+			return d, "", stageflags.Usagef("hfe", "missing: name a stocked transistor with --transistor LABEL, or give it inline with at least --hfe MIN..MAX")
 		}
 	}
 	d, err = o.inlineDevice(d)
@@ -349,7 +252,7 @@ func (o *Options) device(ctx context.Context) (d solver.Datasheet, label string,
 func (o *Options) stockResistor(ctx context.Context, flag, text string) (solver.ResistorSpec, error) {
 	id, err := strconv.ParseInt(strings.TrimSpace(strings.TrimPrefix(text, "#")), 10, 64)
 	if err != nil || id <= 0 {
-		return solver.ResistorSpec{}, usagef(flag, "%q: a stock line is written #ID, like #26 (see biasbin stock list)", text)
+		return solver.ResistorSpec{}, stageflags.Usagef(flag, "%q: a stock line is written #ID, like #26 (see biasbin stock list)", text)
 	}
 	if o.Store == nil {
 		return solver.ResistorSpec{}, fmt.Errorf("--%s %s: no stock available", flag, text)
@@ -361,7 +264,7 @@ func (o *Options) stockResistor(ctx context.Context, flag, text string) (solver.
 	r, err := db.ResistorByID(ctx, id)
 	switch {
 	case errors.Is(err, store.ErrNotFound):
-		return solver.ResistorSpec{}, usagef(flag, "%s is not a resistor line in stock (see biasbin stock list --kind resistor)", text)
+		return solver.ResistorSpec{}, stageflags.Usagef(flag, "%s is not a resistor line in stock (see biasbin stock list --kind resistor)", text)
 	case err != nil:
 		return solver.ResistorSpec{}, fmt.Errorf("--%s %s: %w", flag, text, err)
 	}
@@ -385,9 +288,9 @@ func (o *Options) stockDevice(ctx context.Context) (solver.Datasheet, string, er
 	var amb *store.AmbiguousLabelError
 	switch {
 	case errors.Is(err, store.ErrNotFound):
-		return solver.Datasheet{}, "", usagef("transistor", "%q is not in stock (see biasbin stock list)", o.Transistor)
+		return solver.Datasheet{}, "", stageflags.Usagef("transistor", "%q is not in stock (see biasbin stock list)", o.Transistor)
 	case errors.As(err, &amb):
-		return solver.Datasheet{}, "", usagef("transistor", "%v; check takes a label, not a line ID: "+
+		return solver.Datasheet{}, "", stageflags.Usagef("transistor", "%v; check takes a label, not a line ID: "+
 			"make the labels differ by more than letter case, remove the wrong line (biasbin stock remove ID), "+
 			"or give the transistor inline (--hfe ...)", err)
 	case err != nil:
@@ -406,15 +309,15 @@ func (o *Options) inlineDevice(d solver.Datasheet) (solver.Datasheet, error) {
 	var err error
 	if o.Polarity != "" {
 		if d.Polarity, err = solver.ParsePolarity(strings.TrimSpace(o.Polarity)); err != nil {
-			return d, usage("polarity", err)
+			return d, stageflags.Usage("polarity", err)
 		}
 	}
 	if o.HFE != "" {
 		if d.HFEMin, d.HFEMax, d.HFEAt_A, _, err = notation.ParseRangeAt(o.HFE, notation.ParseNumber); err != nil {
-			return d, usage("hfe", err)
+			return d, stageflags.Usage("hfe", err)
 		}
 		if d.HFEMin <= 0 {
-			return d, usagef("hfe", "%q: hFE must be above 0", o.HFE)
+			return d, stageflags.Usagef("hfe", "%q: hFE must be above 0", o.HFE)
 		}
 		if !o.changed("hfe-typ") && (d.HFETyp < d.HFEMin || d.HFETyp > d.HFEMax) {
 			d.HFETyp = 0 // a stock typical outside the new window no longer applies
@@ -442,29 +345,29 @@ func (o *Options) inlineDevice(d solver.Datasheet) (solver.Datasheet, error) {
 		}
 		v, err := f.parse(f.text)
 		if err != nil {
-			return d, usage(f.flag, err)
+			return d, stageflags.Usage(f.flag, err)
 		}
 		if v < 0 {
-			return d, usagef(f.flag, "%q: give the magnitude", f.text)
+			return d, stageflags.Usagef(f.flag, "%q: give the magnitude", f.text)
 		}
 		*f.dst = v
 	}
 	if o.TjMax != "" {
 		// 0 would read as "not given" below: a Tj max typed in is checked here.
 		if err := solver.TjMaxRange.Check(d.TjMax_C); err != nil {
-			return d, buildError(err)
+			return d, stageflags.InputError(err)
 		}
 	}
 	if o.VBE != "" {
 		if d.VBEOn_V, d.VBEAt_A, _, err = notation.ParseAt(o.VBE, notation.ParseVoltage); err != nil {
-			return d, usage("vbe", err)
+			return d, stageflags.Usage("vbe", err)
 		}
 		if d.VBEOn_V <= 0 {
-			return d, usagef("vbe", "%q: give the magnitude of VBE(on)", o.VBE)
+			return d, stageflags.Usagef("vbe", "%q: give the magnitude of VBE(on)", o.VBE)
 		}
 	}
 	if err := d.Validate(); err != nil {
-		return d, buildError(err)
+		return d, stageflags.InputError(err)
 	}
 	return d, nil
 }

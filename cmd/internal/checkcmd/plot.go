@@ -12,6 +12,7 @@ import (
 	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/picture"
+	"biasbin/cmd/internal/stageflags"
 	"biasbin/picker/job"
 	"biasbin/solver"
 )
@@ -113,7 +114,7 @@ func RunPlot(ctx context.Context, o *Options) error {
 // Carlo boards kept.
 func (o *Options) analysePlot(ctx context.Context) (*pictureJob, *job.Analysis, error) {
 	if o.Out == "" {
-		return nil, nil, usagef("out", "missing: name the picture file, e.g. --out q.svg")
+		return nil, nil, stageflags.Usagef("out", "missing: name the picture file, e.g. --out q.svg")
 	}
 	pic, err := o.pictureOptions("out", o.Out)
 	if err != nil {
@@ -128,7 +129,7 @@ func (o *Options) analysePlot(ctx context.Context) (*pictureJob, *job.Analysis, 
 	if err != nil {
 		var ie *solver.InputError
 		if errors.As(err, &ie) {
-			return nil, nil, &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", flagName(ie.Field), ie.Problem)}
+			return nil, nil, &cmdutil.UsageError{Err: fmt.Errorf("%s: %s", stageflags.FlagName(ie.Field), ie.Problem)}
 		}
 		return nil, nil, fmt.Errorf("plot: %w", err)
 	}
@@ -156,12 +157,12 @@ func (o *Options) pictureOptions(flag, path string) (*pictureJob, error) {
 	}
 	pj := &pictureJob{path: path, size: picture.DefaultSize, zoom: o.Zoom}
 	if _, err := picture.FormatOf(path); err != nil {
-		return nil, usage(flag, err)
+		return nil, stageflags.Usage(flag, err)
 	}
 	if o.Kind != "" {
 		k, err := picture.ParseKind(o.Kind)
 		if err != nil {
-			return nil, usage("kind", err)
+			return nil, stageflags.Usage("kind", err)
 		}
 		pj.kind = k
 	}
@@ -172,7 +173,7 @@ func (o *Options) pictureOptions(flag, path string) (*pictureJob, error) {
 			if flag == "plot" {
 				sizeFlag = "plot-size"
 			}
-			return nil, usage(sizeFlag, err)
+			return nil, stageflags.Usage(sizeFlag, err)
 		}
 		pj.size = sz
 	}
@@ -227,17 +228,17 @@ func (o *Options) plotRefs(ctx context.Context) error {
 func (o *Options) refChart(ctx context.Context) (pic *pictureJob, c picture.Chart, failed bool, err error) {
 	for _, name := range o.buildFlags {
 		if o.changed(name) {
-			return nil, nil, false, usagef(name, "give either build IDs or the build flags, not both")
+			return nil, nil, false, stageflags.Usagef(name, "give either build IDs or the build flags, not both")
 		}
 	}
 	if o.Out == "" {
-		return nil, nil, false, usagef("out", "missing: name the picture file, e.g. --out q.svg")
+		return nil, nil, false, stageflags.Usagef("out", "missing: name the picture file, e.g. --out q.svg")
 	}
 	if pic, err = o.pictureOptions("out", o.Out); err != nil {
 		return nil, nil, false, err
 	}
 	if pic.kind == picture.KindICHistogram && len(o.Refs) > 1 {
-		return nil, nil, false, usagef("kind", "the IC histogram shows one build, not %d", len(o.Refs))
+		return nil, nil, false, stageflags.Usagef("kind", "the IC histogram shows one build, not %d", len(o.Refs))
 	}
 	var base job.CheckRequest
 	if err := o.yieldRequest(&base); err != nil {

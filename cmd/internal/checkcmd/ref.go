@@ -6,6 +6,7 @@ import (
 	"fmt"
 
 	"biasbin/cmd/internal/buildjob"
+	"biasbin/cmd/internal/stageflags"
 	"biasbin/picker/job"
 	"biasbin/store"
 )
@@ -23,12 +24,12 @@ func (o *Options) refInput(ctx context.Context) (job.CheckRequest, error) {
 	var in job.CheckRequest
 	for _, f := range buildFlags {
 		if o.Changed != nil && o.Changed(f) {
-			return in, usagef(f, "check %s names the whole build; leave out --%s (only --window, --boards, --seed, --json and --spice go with a build ID)", o.Ref, f)
+			return in, stageflags.Usagef(f, "check %s names the whole build; leave out --%s (only --window, --boards, --seed, --json and --spice go with a build ID)", o.Ref, f)
 		}
 	}
 	ref, err := buildjob.ParseRef(o.Ref)
 	if err != nil {
-		return in, usagef("build", "%v", err)
+		return in, stageflags.Usagef("build", "%v", err)
 	}
 	if o.Store == nil {
 		return in, fmt.Errorf("check %s: no stock available", o.Ref)
@@ -40,9 +41,9 @@ func (o *Options) refInput(ctx context.Context) (job.CheckRequest, error) {
 	plan, err := buildjob.PlanOf(ctx, db, ref)
 	switch {
 	case errors.Is(err, store.ErrNoPick):
-		return in, usagef("build", "%s is not a build a pick listed in the last %d days (pick again, or give the build with flags)", o.Ref, int(store.PickKeep.Hours()/24))
+		return in, stageflags.Usagef("build", "%s is not a build a pick listed in the last %d days (pick again, or give the build with flags)", o.Ref, int(store.PickKeep.Hours()/24))
 	case errors.Is(err, store.ErrNoBuild):
-		return in, usagef("build", "%s is not a reserved build (see biasbin build list)", o.Ref)
+		return in, stageflags.Usagef("build", "%s is not a reserved build (see biasbin build list)", o.Ref)
 	case err != nil:
 		return in, fmt.Errorf("check %s: %w", o.Ref, err)
 	}

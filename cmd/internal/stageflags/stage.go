@@ -106,7 +106,7 @@ func (s *Stage) Build(pol solver.Polarity) (solver.Build, error) {
 	if err != nil {
 		return b, Usage("vcc", err)
 	}
-	if b.VCC_V, err = railOf(vcc, sign, "vcc"); err != nil {
+	if b.VCC_V, err = RailOf(vcc, sign, "vcc"); err != nil {
 		return b, err
 	}
 	switch {
@@ -115,7 +115,7 @@ func (s *Stage) Build(pol solver.Polarity) (solver.Build, error) {
 	case top != solver.SplitSupply && s.VEE != "":
 		return b, Usagef("vee", "only the split-supply stage has an emitter supply")
 	case s.VEE != "":
-		if b.VEE_V, err = rail(s.VEE, -sign, "vee"); err != nil {
+		if b.VEE_V, err = Rail(s.VEE, -sign, "vee"); err != nil {
 			return b, err
 		}
 	}
@@ -193,18 +193,18 @@ func SlotList(t solver.Topology) string {
 	return strings.Join(names, " ")
 }
 
-// rail reads a supply flag: a magnitude gets sign; a signed value must
+// Rail reads a supply flag: a magnitude gets sign; a signed value must
 // already have it.
-func rail(text string, sign float64, flag string) (float64, error) {
+func Rail(text string, sign float64, flag string) (float64, error) {
 	v, err := notation.ParseVoltage(text)
 	if err != nil {
 		return 0, Usage(flag, err)
 	}
-	return railOf(v, sign, flag)
+	return RailOf(v, sign, flag)
 }
 
-// railOf signs a parsed supply v as rail does.
-func railOf(v, sign float64, flag string) (float64, error) {
+// RailOf signs a parsed supply v as Rail does.
+func RailOf(v, sign float64, flag string) (float64, error) {
 	switch {
 	case v == 0:
 		return 0, Usagef(flag, "a supply of 0 V")
