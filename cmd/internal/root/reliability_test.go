@@ -10,6 +10,7 @@ import (
 	"path/filepath"
 	"strings"
 	"sync"
+	"sync/atomic"
 	"syscall"
 	"testing"
 	"time"
@@ -321,6 +322,7 @@ func TestBackupWhileFourProcessesAdjust(t *testing.T) {
 	var wg sync.WaitGroup
 	var mu sync.Mutex
 	var failures []string
+	var adjusted atomic.Int64 // adjustments finished before the backup starts
 	for i := range 4 {
 		wg.Add(1)
 		go func() {
@@ -336,11 +338,20 @@ func TestBackupWhileFourProcessesAdjust(t *testing.T) {
 					mu.Lock()
 					failures = append(failures, errOut)
 					mu.Unlock()
+				} else {
+					adjusted.Add(1)
 				}
 			}
 		}()
 	}
-	time.Sleep(300 * time.Millisecond)
+	// Wait for real adjustments rather than a fixed time: on a loaded
+	// machine a child process can take longer than any sleep to start.
+	for deadline := time.Now().Add(2 * time.Minute); adjusted.Load() < 4 && time.Now().Before(deadline); {
+		time.Sleep(20 * time.Millisecond)
+	}
+	if adjusted.Load() < 4 {
+		t.Fatalf("only %d adjustments finished in 2 minutes", adjusted.Load())
+	}
 	backup := filepath.Join(t.TempDir(), "copy.db")
 	out, errOut, code := runChild(db, "backup", backup)
 	time.Sleep(100 * time.Millisecond)
