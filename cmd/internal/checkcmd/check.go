@@ -33,37 +33,18 @@ type Options struct {
 	// Changed reports whether a flag was given on the command line.
 	Changed func(name string) bool
 
-	Topology   string
-	VCC        string
-	VEE        string
-	R          [solver.NumSlots]string // --r1 --r2 --rc --re --rf --rb
-	Transistor string
-	Polarity   string
-	HFE        string
-	HFETyp     string
-	VBE        string
-	VCESat     string
-	VAF        string
-	VCEO       string
-	ICMax      string
-	PD         string
-	ThetaJA    string
-	TjMax      string
-	ICBO       string
-	VCCTol     string
-	Tol        string
-	TCR        string
-	Power      string
-	Ambient    string
-	Beta       string
-	Temp       string
-	Load       string
-	Bypass     string
-	Window     string
-	Boards     int
-	Seed       uint64
-	JSON       bool
-	Spice      bool
+	// Stage and Device are the stage and transistor flags, shared with
+	// substitute and diagnose (cmd/internal/stageflags).
+	Stage  stageflags.Stage
+	Device stageflags.Device
+	Beta   string
+	Load   string
+	Bypass string
+	Window string
+	Boards int
+	Seed   uint64
+	JSON   bool
+	Spice  bool
 	// Ref is a build ID given as the argument (a pick's build, or a
 	// reserved build's number): the build to check instead of the flags.
 	Ref string
@@ -83,22 +64,11 @@ type Options struct {
 	buildFlags []string
 }
 
-// Flag defaults, shown in --help.
+// Flag defaults, shown in --help (the stage's are stageflags').
 const (
-	defaultTopology = "divider"
-	defaultVCCTol   = "5%"
-	// defaultTol is the resistor tolerance when a value carries none: E24
-	// parts are usually ±5 % (common practice, REFERENCE.md §1).
-	defaultTol = "5%"
-	// defaultTCR is thick-film's ±100 ppm/K (common practice, REFERENCE.md §3).
-	defaultTCR = "100ppm"
-	// defaultPower is the usual 1/4 W through-hole rating (common practice).
-	defaultPower   = "0.25W"
-	defaultAmbient = "0..50"
-	defaultTemp    = "25"
-	defaultWindow  = "10%,20%"
-	defaultBoards  = 10000
-	defaultSeed    = 1
+	defaultWindow = "10%,20%"
+	defaultBoards = 10000
+	defaultSeed   = 1
 	// bypassAll is what a bare --bypass means: all of RE bypassed.
 	bypassAll = "all"
 )
@@ -256,42 +226,9 @@ func Run(ctx context.Context, o *Options) error {
 // check and plot.
 func (o *Options) bindBuild(fl *pflag.FlagSet) {
 	o.Changed = fl.Changed
-	fl.StringVar(&o.Topology, "topology", defaultTopology, "bias circuit: divider, collector-feedback or split-supply")
-	fl.StringVar(&o.VCC, "vcc", "", "collector supply, e.g. 12V, or the range it moves over, e.g. 7V..9.6V for a 9 V battery (then no --vcc-tol)")
-	fl.StringVar(&o.VEE, "vee", "", "emitter supply of the split-supply stage, e.g. 12V (taken as the rail opposite --vcc)")
-	for _, s := range []struct {
-		slot solver.Slot
-		help string
-	}{
-		{solver.R1, "divider: rail to base"},
-		{solver.R2, "divider: base to ground"},
-		{solver.RC, "rail to collector"},
-		{solver.RE, "emitter to ground (or to --vee); 0 or absent = emitter tied to it"},
-		{solver.RF, "collector-feedback: collector to base"},
-		{solver.RB, "split-supply: base to ground"},
-	} {
-		fl.StringVar(&o.R[s.slot], s.slot.String(), "", s.help+", e.g. 4K7 or 4.7k; with tolerance and rating 6K8/10%/1W; or a stock line '#26'")
-	}
-	fl.StringVar(&o.Transistor, "transistor", "", "transistor by stock label (any letter case)")
-	fl.StringVar(&o.Polarity, "polarity", "", "inline transistor: npn or pnp (default npn)")
-	fl.StringVar(&o.HFE, "hfe", "", "inline transistor: hFE MIN..MAX, optionally @IC (100..300@2mA)")
-	fl.StringVar(&o.HFETyp, "hfe-typ", "", "inline transistor: typical hFE (default the geometric mean of min and max)")
-	fl.StringVar(&o.VBE, "vbe", "", "inline transistor: VBE(on)@IC (default 0.65V@1mA)")
-	fl.StringVar(&o.VCESat, "vce-sat", "", "inline transistor: VCE(sat) (default 0.2V)")
-	fl.StringVar(&o.VAF, "vaf", "", "inline transistor: Early voltage (default infinite)")
-	fl.StringVar(&o.VCEO, "vceo", "", "inline transistor: VCEO max")
-	fl.StringVar(&o.ICMax, "ic-max", "", "inline transistor: IC max")
-	fl.StringVar(&o.PD, "pd", "", "inline transistor: total dissipation at 25 °C ambient")
-	fl.StringVar(&o.ThetaJA, "theta-ja", "", "inline transistor: junction-to-ambient thermal resistance, K/W")
-	fl.StringVar(&o.TjMax, "tj-max", "", "inline transistor: maximum junction temperature (default 150)")
-	fl.StringVar(&o.ICBO, "icbo", "", "inline transistor: collector-base leakage at 25 °C")
-	fl.StringVar(&o.VCCTol, "vcc-tol", defaultVCCTol, "supply tolerance (both rails)")
-	fl.StringVar(&o.Tol, "tol", defaultTol, "resistor tolerance where the value carries none")
-	fl.StringVar(&o.TCR, "tcr", defaultTCR, "resistor temperature coefficient")
-	fl.StringVar(&o.Power, "power", defaultPower, "resistor power rating at 70 °C (derated to 0 at 155 °C)")
-	fl.StringVar(&o.Ambient, "ambient", defaultAmbient, "ambient temperature range in °C, MIN..MAX")
+	o.Stage.AddFlags(fl)
+	o.Device.AddFlags(fl, "transistor", "transistor by stock label (any letter case)", "inline transistor")
 	fl.StringVar(&o.Beta, "beta", "", "pin the nominal point's beta (default the typical hFE)")
-	fl.StringVar(&o.Temp, "temp", defaultTemp, "ambient temperature of the nominal point, °C")
 	fl.StringVar(&o.Load, "load", "", "AC load on the collector, e.g. 10K (for the AC load line)")
 	fl.StringVar(&o.Bypass, "bypass", "", "part of RE bypassed for AC, written --bypass=470R; a bare --bypass means all of RE")
 	fl.Lookup("bypass").NoOptDefVal = bypassAll
@@ -299,3 +236,6 @@ func (o *Options) bindBuild(fl *pflag.FlagSet) {
 	fl.IntVar(&o.Boards, "boards", defaultBoards, "Monte Carlo boards for the yield")
 	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "Monte Carlo seed")
 }
+
+// changed reports whether a flag was set on the command line.
+func (o *Options) changed(name string) bool { return o.Changed != nil && o.Changed(name) }

@@ -100,7 +100,7 @@ func (o *Options) Request(ctx context.Context) (repair.DiagnoseRequest, error) {
 		return req, err
 	}
 	req.Device = d
-	b, err := o.Stage.Build(d.Polarity)
+	b, err := o.Stage.Build(ctx, d.Polarity, o.Store)
 	if err != nil {
 		return req, err
 	}

@@ -80,7 +80,7 @@ func (d *Device) PolarityOf() (solver.Polarity, error) {
 // the inline flags alone. open opens the stock; it is called only when a
 // label is given. label is the stock line's label as stocked, or "" for an
 // inline transistor.
-func (d *Device) Datasheet(ctx context.Context, open func(context.Context) (*store.DB, error)) (sheet solver.Datasheet, label string, err error) {
+func (d *Device) Datasheet(ctx context.Context, open Opener) (sheet solver.Datasheet, label string, err error) {
 	if d.Label != "" {
 		if sheet, label, err = d.stockDevice(ctx, open); err != nil {
 			return sheet, "", err
@@ -98,7 +98,7 @@ func (d *Device) Datasheet(ctx context.Context, open func(context.Context) (*sto
 // stockDevice reads the stock line the label names. A label stocked in
 // two spellings (QN-230 and qn-230) is refused with every matching line,
 // since the commands take no line ID.
-func (d *Device) stockDevice(ctx context.Context, open func(context.Context) (*store.DB, error)) (solver.Datasheet, string, error) {
+func (d *Device) stockDevice(ctx context.Context, open Opener) (solver.Datasheet, string, error) {
 	if open == nil {
 		return solver.Datasheet{}, "", fmt.Errorf("--%s %s: no stock available", d.LabelFlag, d.Label)
 	}
@@ -112,9 +112,9 @@ func (d *Device) stockDevice(ctx context.Context, open func(context.Context) (*s
 	case errors.Is(err, store.ErrNotFound):
 		return solver.Datasheet{}, "", Usagef(d.LabelFlag, "%q is not in stock (see biasbin stock list)", d.Label)
 	case errors.As(err, &amb):
-		return solver.Datasheet{}, "", Usagef(d.LabelFlag, "%v; the command takes a label, not a line ID: "+
+		return solver.Datasheet{}, "", Usagef(d.LabelFlag, "%v; --%s takes a label, not a line ID: "+
 			"make the labels differ by more than letter case, remove the wrong line (biasbin stock remove ID), "+
-			"or give the transistor inline (--hfe ...)", err)
+			"or give the transistor inline (--hfe ...)", err, d.LabelFlag)
 	case err != nil:
 		return solver.Datasheet{}, "", fmt.Errorf("--%s %s: %w", d.LabelFlag, d.Label, err)
 	}

@@ -6,15 +6,24 @@
 package stageflags
 
 import (
+	"context"
+	"errors"
 	"fmt"
+	"strconv"
 	"strings"
 
 	"github.com/spf13/pflag"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/stockparts"
 	"biasbin/solver"
 	"biasbin/solver/notation"
+	"biasbin/store"
 )
+
+// Opener opens the stock file; the commands pass the factory's lazy
+// ExistingStore, called only when a flag names a stock line.
+type Opener func(context.Context) (*store.DB, error)
 
 // Flag defaults, shown in --help.
 const (
@@ -64,7 +73,7 @@ func (s *Stage) AddFlags(fl *pflag.FlagSet) {
 		{solver.RF, "collector-feedback: collector to base"},
 		{solver.RB, "split-supply: base to ground"},
 	} {
-		fl.StringVar(&s.R[r.slot], r.slot.String(), "", r.help+", e.g. 4K7 or 4.7k (may carry a tolerance: 4K7F)")
+		fl.StringVar(&s.R[r.slot], r.slot.String(), "", r.help+", e.g. 4K7 or 4.7k; with tolerance and rating 6K8/10%/1W; or a stock line '#26'")
 	}
 	fl.StringVar(&s.VCCTol, "vcc-tol", DefaultVCCTol, "supply tolerance (both rails)")
 	fl.StringVar(&s.Tol, "tol", DefaultTol, "resistor tolerance where the value carries none")
@@ -84,20 +93,17 @@ func (s *Stage) TopologyOf() (solver.Topology, error) {
 }
 
 // Build parses the stage flags into a build for a transistor of polarity
-// pol: topology, signed rails, supply tolerance, resistors, ambient range
-// and nominal ambient. The device, AC side and beta are left to the
-// caller.
-func (s *Stage) Build(pol solver.Polarity) (solver.Build, error) {
+// pol: topology, signed rails (solver.Rail), supply tolerance, resistors,
+// ambient range and nominal ambient. A resistor given as a stock line
+// ("#26") is read through open. The device, AC side and beta are left to
+// the caller.
+func (s *Stage) Build(ctx context.Context, pol solver.Polarity, open Opener) (solver.Build, error) {
 	var b solver.Build
 	top, err := s.TopologyOf()
 	if err != nil {
 		return b, err
 	}
 	b.Topology = top
-	sign := 1.0
-	if pol == solver.PNP {
-		sign = -1
-	}
 	// Rails: a magnitude, or the signed rail of the polarity.
 	if s.VCC == "" {
 		return b, Usagef("vcc", "missing: give the collector supply, e.g. --vcc 12V")
@@ -106,8 +112,8 @@ func (s *Stage) Build(pol solver.Polarity) (solver.Build, error) {
 	if err != nil {
 		return b, Usage("vcc", err)
 	}
-	if b.VCC_V, err = RailOf(vcc, sign, "vcc"); err != nil {
-		return b, err
+	if b.VCC_V, err = solver.Rail(vcc, pol, solver.Collector); err != nil {
+		return b, InputError(err)
 	}
 	switch {
 	case top == solver.SplitSupply && s.VEE == "":
@@ -115,8 +121,12 @@ func (s *Stage) Build(pol solver.Polarity) (solver.Build, error) {
 	case top != solver.SplitSupply && s.VEE != "":
 		return b, Usagef("vee", "only the split-supply stage has an emitter supply")
 	case s.VEE != "":
-		if b.VEE_V, err = Rail(s.VEE, -sign, "vee"); err != nil {
-			return b, err
+		vee, err := notation.ParseVoltage(s.VEE)
+		if err != nil {
+			return b, Usage("vee", err)
+		}
+		if b.VEE_V, err = solver.Rail(vee, pol, solver.Emitter); err != nil {
+			return b, InputError(err)
 		}
 	}
 	switch {
@@ -164,14 +174,24 @@ func (s *Stage) Build(pol solver.Polarity) (solver.Build, error) {
 			}
 			return b, Usagef(name, "missing: the %s stage needs %s", top, SlotList(top))
 		}
-		ohm, rtol, hasTol, err := notation.ParseResistance(text)
+		if strings.HasPrefix(text, "#") {
+			if b.Resistors[sl], err = stockResistor(ctx, open, name, text); err != nil {
+				return b, err
+			}
+			continue
+		}
+		rt, err := notation.ParseResistorText(text)
 		if err != nil {
 			return b, Usage(name, err)
 		}
-		if !hasTol {
-			rtol = tol
+		spec := solver.ResistorSpec{Nominal_Ohm: rt.Ohm, Tol: tol, TCR_PPMPerK: tcr, Rated_W: power}
+		if rt.HasTol {
+			spec.Tol = rt.Tol
 		}
-		b.Resistors[sl] = solver.ResistorSpec{Nominal_Ohm: ohm, Tol: rtol, TCR_PPMPerK: tcr, Rated_W: power}
+		if rt.HasPower {
+			spec.Rated_W = rt.Rated_W
+		}
+		b.Resistors[sl] = spec
 	}
 
 	// Temperatures.
@@ -193,27 +213,33 @@ func SlotList(t solver.Topology) string {
 	return strings.Join(names, " ")
 }
 
-// Rail reads a supply flag: a magnitude gets sign; a signed value must
-// already have it.
-func Rail(text string, sign float64, flag string) (float64, error) {
-	v, err := notation.ParseVoltage(text)
+// stockResistor reads the resistor stock line a position names as "#ID":
+// its value, tolerance, rating, derating, TCR and element voltage as
+// stocked, converted by stockparts (the store's defaults filled in).
+func stockResistor(ctx context.Context, open Opener, flag, text string) (solver.ResistorSpec, error) {
+	id, err := strconv.ParseInt(strings.TrimSpace(strings.TrimPrefix(text, "#")), 10, 64)
+	if err != nil || id <= 0 {
+		return solver.ResistorSpec{}, Usagef(flag, "%q: a stock line is written #ID, like #26 (see biasbin stock list)", text)
+	}
+	if open == nil {
+		return solver.ResistorSpec{}, fmt.Errorf("--%s %s: no stock available", flag, text)
+	}
+	db, err := open(ctx)
 	if err != nil {
-		return 0, Usage(flag, err)
+		return solver.ResistorSpec{}, err
 	}
-	return RailOf(v, sign, flag)
-}
-
-// RailOf signs a parsed supply v as Rail does.
-func RailOf(v, sign float64, flag string) (float64, error) {
+	r, err := db.ResistorByID(ctx, id)
 	switch {
-	case v == 0:
-		return 0, Usagef(flag, "a supply of 0 V")
-	case v > 0:
-		return v * sign, nil
-	case sign > 0:
-		return 0, Usagef(flag, "%s: this rail is positive here; give the magnitude", notation.FormatVoltage(v))
+	case errors.Is(err, store.ErrNotFound):
+		return solver.ResistorSpec{}, Usagef(flag, "%s is not a resistor line in stock (see biasbin stock list --kind resistor)", text)
+	case err != nil:
+		return solver.ResistorSpec{}, fmt.Errorf("--%s %s: %w", flag, text, err)
 	}
-	return v, nil
+	spec, err := stockparts.Spec(r)
+	if err != nil {
+		return spec, fmt.Errorf("--%s %s: %w", flag, text, err)
+	}
+	return spec, nil
 }
 
 // Usage returns a usage error (exit 2) naming the flag.

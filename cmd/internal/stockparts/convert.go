@@ -59,11 +59,10 @@ func Stock(rs []store.Resistor, ts []store.Transistor) (picker.Stock, error) {
 // in for any rating the line leaves zero; data the solver refuses is a
 // *LineError.
 func Resistor(r store.Resistor) (picker.Resistor, error) {
-	r = r.WithDefaults()
-	spec := solver.ResistorSpec{Nominal_Ohm: r.Ohm, Tol: r.Tol, TCR_PPMPerK: r.TCR_PPMPerK, Rated_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C, LEV_V: r.LEV_V}
-	if err := spec.Validate(); err != nil {
-		return picker.Resistor{}, lineError(store.KindResistor, r.ID, notation.FormatResistanceExact(r.Ohm), r.Bin, err)
+	if _, err := Spec(r); err != nil {
+		return picker.Resistor{}, err
 	}
+	r = r.WithDefaults()
 	return picker.Resistor{
 		ID:          r.ID,
 		Ohm:         r.Ohm,
@@ -77,6 +76,19 @@ func Resistor(r store.Resistor) (picker.Resistor, error) {
 		Bin:         r.Bin,
 		Tags:        r.Tags,
 	}, nil
+}
+
+// Spec converts one resistor line into the part the solver takes (as
+// biasbin check --rc '#26' uses it), with the store's defaults filled in
+// for any rating the line leaves zero; data the solver refuses is a
+// *LineError.
+func Spec(r store.Resistor) (solver.ResistorSpec, error) {
+	r = r.WithDefaults()
+	spec := solver.ResistorSpec{Nominal_Ohm: r.Ohm, Tol: r.Tol, TCR_PPMPerK: r.TCR_PPMPerK, Rated_W: r.Rated_W, Knee_C: r.Knee_C, Max_C: r.Max_C, LEV_V: r.LEV_V}
+	if err := spec.Validate(); err != nil {
+		return solver.ResistorSpec{}, lineError(store.KindResistor, r.ID, notation.FormatResistanceExact(r.Ohm), r.Bin, err)
+	}
+	return spec, nil
 }
 
 // Transistor converts one transistor line (Sheet fills the datasheet with

@@ -118,7 +118,7 @@ func (o *Options) Request(ctx context.Context) (repair.SubstituteRequest, error)
 		req.Original, pol = &d, d.Polarity
 	}
 	req.Polarity = pol
-	if req.Build, err = o.Stage.Build(pol); err != nil {
+	if req.Build, err = o.Stage.Build(ctx, pol, o.Store); err != nil {
 		return req, err
 	}
 	if o.Twin.Given() {
