@@ -91,6 +91,11 @@ func Pick(stock Stock, req Request) (Result, error) {
 	}
 	if !slices.ContainsFunc(res.Candidates, e.fits) {
 		res.Shortfall = e.shortfall(rejected, res.Candidates)
+		if len(req.RequireTags) > 0 {
+			if err := approvedOnly(res.Shortfall, stock, req, s.boards); err != nil {
+				return Result{}, err
+			}
+		}
 	}
 	return res, nil
 }

@@ -102,6 +102,9 @@ const (
 	// NoPurchase: no purchase of one or two resistor values gives a build
 	// that fits.
 	NoPurchase
+	// NoApprovedPurchase: with RequireTags (Tags), no line on the approved
+	// list, topped up to the Boards the run needs, gives a build that fits.
+	NoApprovedPurchase
 )
 
 // Reason is one cause of a shortfall, as figures; which fields are set
@@ -123,6 +126,8 @@ type Reason struct {
 	Of    int
 
 	BetaSpread float64
+
+	Tags []string
 }
 
 // RejectKind says why a stocked transistor line was left out of a search.

@@ -21,6 +21,15 @@ type Purchase struct {
 	Polarity solver.Polarity
 	VCEO_V   float64
 	ICMax_A  float64
+	// Line, when not 0, is the stocked line of the approved list (the
+	// lines carrying the request's RequireTags) this purchase tops up:
+	// buy Qty more of exactly that part. Bin, OnHand and Label (a
+	// transistor's) describe the line. Line 0: any part of the
+	// description will do.
+	Line   int64
+	Bin    string
+	OnHand int
+	Label  string
 }
 
 // Purchase defaults: E24 at ±5 % (the customary pairing, IEC 60063:2015

@@ -159,8 +159,14 @@ type Candidate struct {
 // Shortfall explains why nothing (or too little) fits, with a suggestion.
 type Shortfall struct {
 	Reasons []Reason
-	// Purchases are the parts to buy for a build that fits.
+	// Purchases are the parts to buy for a build that fits (all of them).
+	// With RequireTags they are top-ups of approved lines only (each
+	// Purchase.Line set).
 	Purchases []Purchase
+	// Unapproved, with RequireTags only, are parts outside the approved
+	// list that would give a build that fits once approved; never to be
+	// read as parts to buy for the run.
+	Unapproved []Purchase
 	// Rejected lists the transistor lines of the polarity left out, each
 	// with its reason.
 	Rejected []Rejection

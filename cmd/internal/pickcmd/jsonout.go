@@ -165,7 +165,10 @@ type jsonShortfall struct {
 	Reasons   []string       `json:"reasons"`
 	Buy       []string       `json:"buy"`
 	Purchases []jsonPurchase `json:"purchases"`
-	Rejected  []string       `json:"rejected"`
+	// Unapproved (with require_tags only): parts outside the approved
+	// list that would give a good build once approved; not to buy.
+	Unapproved []jsonPurchase `json:"unapproved"`
+	Rejected   []string       `json:"rejected"`
 	// TopUp is, when the stock runs short for the run, what the first
 	// shown build takes beyond the stock on hand for all boards.
 	TopUp []jsonPull `json:"top_up"`
@@ -178,7 +181,13 @@ type jsonPurchase struct {
 	Tol     float64 `json:"tol"`
 	Rated_W float64 `json:"rated_w"`
 	Qty     int     `json:"qty"`
-	Note    string  `json:"note"`
+	// LineID, when not 0, is the approved stock line to top up (Qty
+	// more), holding OnHand; Label is a transistor line's.
+	LineID int64  `json:"line_id,omitempty"`
+	Bin    string `json:"bin,omitempty"`
+	OnHand int    `json:"on_hand,omitempty"`
+	Label  string `json:"label,omitempty"`
+	Note   string `json:"note"`
 }
 
 // writeJSON writes the whole result as one indented JSON document.
@@ -206,11 +215,7 @@ func writeJSON(w io.Writer, v *job.PickOutcome) error {
 	if s := v.Result.Shortfall; s != nil {
 		sf := &jsonShortfall{Reasons: report.Words(s.Reasons, report.Reason), Buy: report.Words(s.Purchases, report.Purchase),
 			Rejected:  report.Words(s.Rejected, report.Rejection),
-			Purchases: []jsonPurchase{}, TopUp: []jsonPull{}}
-		for _, p := range s.Purchases {
-			sf.Purchases = append(sf.Purchases, jsonPurchase{Slot: p.Slot, Ohms: p.Ohm, Series: p.Series, Tol: p.Tol,
-				Rated_W: p.Rated_W, Qty: p.Qty, Note: report.Purchase(p)})
-		}
+			Purchases: jsonPurchases(s.Purchases), Unapproved: jsonPurchases(s.Unapproved), TopUp: []jsonPull{}}
 		for _, p := range v.TopUp {
 			sf.TopUp = append(sf.TopUp, jsonPullOf(p))
 		}
@@ -219,6 +224,15 @@ func writeJSON(w io.Writer, v *job.PickOutcome) error {
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	return enc.Encode(doc)
+}
+
+func jsonPurchases(ps []picker.Purchase) []jsonPurchase {
+	out := []jsonPurchase{}
+	for _, p := range ps {
+		out = append(out, jsonPurchase{Slot: p.Slot, Ohms: p.Ohm, Series: p.Series, Tol: p.Tol, Rated_W: p.Rated_W, Qty: p.Qty,
+			LineID: p.Line, Bin: p.Bin, OnHand: p.OnHand, Label: p.Label, Note: report.Purchase(p)})
+	}
+	return out
 }
 
 func jsonRequestOf(r picker.Request) jsonRequest {

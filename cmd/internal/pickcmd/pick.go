@@ -8,6 +8,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 	"time"
 
@@ -292,7 +293,9 @@ func WriteNotes(w io.Writer, v *job.PickOutcome) {
 	var reasons, buy, rejected []string
 	if s := v.Result.Shortfall; s != nil {
 		reasons = report.Words(s.Reasons, report.Reason)
-		buy = report.Words(s.Purchases, report.Purchase)
+		if !sameTopUp(s.Purchases, v.TopUp) {
+			buy = report.Words(s.Purchases, report.Purchase)
+		}
 		rejected = report.Words(s.Rejected, report.Rejection)
 	}
 	switch {
@@ -333,6 +336,13 @@ func WriteNotes(w io.Writer, v *job.PickOutcome) {
 				p.Missing(), pullValue(p), v.Boards, binName(p.Bin), p.ID, p.OnHand, p.Qty)
 		}
 	}
+	if s := v.Result.Shortfall; s != nil && len(s.Unapproved) > 0 {
+		fmt.Fprintf(w, "not on the approved list (parts tagged %s), so not to buy for this run; these would give a good build once added to it (all of them):\n",
+			strings.Join(v.Request.RequireTags, " and "))
+		for _, b := range report.Words(s.Unapproved, report.Purchase) {
+			fmt.Fprintf(w, "  - %s\n", b)
+		}
+	}
 	if !v.Fits {
 		if v.Short() {
 			fmt.Fprintf(w, "the stock on hand builds %d of the %d boards; the best builds for %d are listed on stdout\n",
@@ -348,4 +358,18 @@ func WriteNotes(w io.Writer, v *job.PickOutcome) {
 	for _, c := range v.Cautions {
 		fmt.Fprintf(w, "caution: %s\n", cautionText(c))
 	}
+}
+
+// sameTopUp reports whether the purchases are top-ups of exactly the lines
+// and counts the first build's top-up lists, so that the notes say it once.
+func sameTopUp(buy []picker.Purchase, topUp []job.PullLine) bool {
+	if len(buy) == 0 || len(buy) != len(topUp) {
+		return false
+	}
+	for _, b := range buy {
+		if b.Line == 0 || !slices.ContainsFunc(topUp, func(p job.PullLine) bool { return p.ID == b.Line && p.Missing() == b.Qty }) {
+			return false
+		}
+	}
+	return true
 }

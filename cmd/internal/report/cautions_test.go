@@ -30,6 +30,13 @@ func TestWords(t *testing.T) {
 	if got := Purchase(picker.Purchase{Slot: "re", Ohm: 1000, Series: "E24", Tol: 0.05, Rated_W: 0.25, Qty: 1}); !strings.HasSuffix(got, ", 1 piece") {
 		t.Errorf("purchase %q", got)
 	}
+	// A top-up of an approved line names the line and what it holds.
+	if got := Purchase(picker.Purchase{Slot: "re", Ohm: 4700, Tol: 0.01, Rated_W: 0.25, Qty: 7, Line: 3, Bin: "A3", OnHand: 3}); got != "RE: 4K7 as line #3 (bin A3, ±1 %, 0.25 W), 7 pieces more (it holds 3)" {
+		t.Errorf("top-up %q", got)
+	}
+	if got := Reason(picker.Reason{Kind: picker.NoApprovedPurchase, Tags: []string{"approved"}, Boards: 10}); !strings.HasPrefix(got, "nothing on the approved list (parts tagged approved) would do") {
+		t.Errorf("reason %q", got)
+	}
 	if got := Pieces(4); got != "4 pieces" {
 		t.Errorf("%q", got)
 	}

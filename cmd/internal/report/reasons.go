@@ -78,6 +78,9 @@ func Reason(r picker.Reason) string {
 		return fmt.Sprintf("no divider stiff enough: the nearest builds move IC by at least %.0f %% over the hFE range", 100*r.BetaSpread)
 	case picker.NoPurchase:
 		return "no purchase of one or two resistor values gives a passing build"
+	case picker.NoApprovedPurchase:
+		return fmt.Sprintf("nothing on the approved list (parts tagged %s) would do: no line of it, topped up to the %d parts the run needs, gives a good build",
+			strings.Join(r.Tags, " and "), r.Boards)
 	}
 	return fmt.Sprintf("shortfall reason %d", r.Kind)
 }
@@ -105,8 +108,17 @@ func Rejection(r picker.Rejection) string {
 	return name + ": " + why
 }
 
-// Purchase words one part to buy, e.g. "RE: 1K0 (E24, ±5 %, 0.25 W), 2 pieces".
+// Purchase words one part to buy, e.g. "RE: 1K0 (E24, ±5 %, 0.25 W), 2 pieces",
+// or a top-up of an approved stock line, e.g. "RE: 1K0 as line #12 (bin
+// A3, ±5 %, 0.25 W), 3 more pieces (it holds 2)".
 func Purchase(p picker.Purchase) string {
+	if p.Line != 0 {
+		slot, what := strings.ToUpper(p.Slot), fmt.Sprintf("%s as line #%d (bin %s, ±%g %%, %g W)", notation.FormatResistance(p.Ohm), p.Line, p.Bin, 100*p.Tol, p.Rated_W)
+		if p.Slot == picker.PartTransistor {
+			slot, what = p.Slot, fmt.Sprintf("%s as line #%d (bin %s)", p.Label, p.Line, p.Bin)
+		}
+		return fmt.Sprintf("%s: %s, %s more (it holds %d)", slot, what, Pieces(p.Qty), p.OnHand)
+	}
 	if p.Slot == picker.PartTransistor {
 		return fmt.Sprintf("transistor: %v with VCEO ≥ %.3g V, IC max ≥ %s, %s", p.Polarity, p.VCEO_V, notation.FormatCurrent(p.ICMax_A), Pieces(p.Qty))
 	}
