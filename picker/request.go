@@ -118,15 +118,6 @@ type settings struct {
 	rl          float64
 }
 
-// CheckRequest reports the first thing wrong with req (an *InputError or a
-// *solver.InputError naming the input and its accepted range), without
-// looking at any stock: Pick makes the same check, so a front end calls
-// this to refuse a bad request before it reads the stock.
-func CheckRequest(req Request) error {
-	_, err := normalize(req)
-	return err
-}
-
 // normalize validates req and fills its defaults.
 func normalize(req Request) (settings, error) {
 	s := settings{req: req}
@@ -191,8 +182,8 @@ func normalize(req Request) (settings, error) {
 	if slices.Contains(s.topos, solver.SplitSupply) {
 		s.spanMax += s.vee
 	}
-	if !finite(req.VCCTol) || req.VCCTol < 0 || req.VCCTol >= 0.5 {
-		return s, inputErr("vcc_tol", "give a tolerance between 0 and 50 %", "%g is not a supply tolerance", req.VCCTol)
+	if err := solver.CheckTolerance("vcc_tol", req.VCCTol); err != nil {
+		return s, err
 	}
 	s.vccTol = req.VCCTol
 	if !finite(req.IC_A) || req.IC_A <= 0 {
@@ -227,8 +218,8 @@ func normalize(req Request) (settings, error) {
 	if s.ambMin == 0 && s.ambMax == 0 {
 		s.ambMin, s.ambMax = DefaultAmbientMin_C, DefaultAmbientMax_C
 	}
-	if !finite(s.ambMin) || !finite(s.ambMax) || s.ambMin > s.ambMax || s.ambMin < solver.MinTemp_C || s.ambMax > solver.MaxTemp_C {
-		return s, inputErr("ambient", fmt.Sprintf("give MIN..MAX within %g..%g °C", solver.MinTemp_C, solver.MaxTemp_C), "%g..%g °C is not an ambient range", s.ambMin, s.ambMax)
+	if err := solver.CheckAmbient(s.ambMin, s.ambMax); err != nil {
+		return s, err
 	}
 	s.boards = req.Boards
 	if s.boards < 0 {
@@ -325,7 +316,7 @@ func (s settings) checkStock(st Stock) error {
 	if err := CheckStock(st, s.req); err != nil {
 		return err
 	}
-	if s.req.Transistor != "" && !slices.ContainsFunc(st.Transistors, func(t Transistor) bool { return labelMatches(t.Sheet.Label, s.req.Transistor) }) {
+	if s.req.Transistor != "" && !slices.ContainsFunc(st.Transistors, func(t Transistor) bool { return LabelMatches(t.Sheet.Label, s.req.Transistor) }) {
 		return inputErr("transistor", "give a label the stock holds (biasbin stock list)", "no transistor line is labelled %q", s.req.Transistor)
 	}
 	rmin := math.Inf(1)

@@ -19,6 +19,31 @@ func HasTags(have, want []string) bool {
 	return true
 }
 
+// LabelMatches reports whether a stocked label is the one asked for ("" =
+// any): equal but for ASCII letter case, as the stock looks a label up
+// (SQLite NOCASE). It is the one label rule of every command.
+func LabelMatches(label, want string) bool {
+	if want == "" {
+		return true
+	}
+	if len(label) != len(want) {
+		return false
+	}
+	for i := range len(label) {
+		a, b := label[i], want[i]
+		if 'A' <= a && a <= 'Z' {
+			a += 'a' - 'A'
+		}
+		if 'A' <= b && b <= 'Z' {
+			b += 'a' - 'A'
+		}
+		if a != b {
+			return false
+		}
+	}
+	return true
+}
+
 // StockGapError means a search cannot find anything because a kind of
 // part is missing from the stock altogether: no resistor line with parts
 // (and the required tags), or no transistor line of the polarity.

@@ -45,30 +45,6 @@ func tjMaxOf(d solver.Datasheet) float64 {
 	return solver.DefaultTjMax_C
 }
 
-// labelMatches reports whether a stocked label is the one asked for ("" =
-// any): equal but for ASCII letter case.
-func labelMatches(label, want string) bool {
-	if want == "" {
-		return true
-	}
-	if len(label) != len(want) {
-		return false
-	}
-	for i := range len(label) {
-		a, b := label[i], want[i]
-		if 'A' <= a && a <= 'Z' {
-			a += 'a' - 'A'
-		}
-		if 'A' <= b && b <= 'Z' {
-			b += 'a' - 'A'
-		}
-		if a != b {
-			return false
-		}
-	}
-	return true
-}
-
 // transistorCandidates returns the lines of the requested polarity that
 // carry the required tags, hold at least `boards` parts and whose ratings
 // hold with margin, and a reason for each line of that polarity left out.
@@ -82,7 +58,7 @@ func (s settings) transistorCandidates(ts []Transistor, span float64) (devs []de
 	vccHi := span * (1 + s.vccTol)
 	for _, t := range ts {
 		d := t.Sheet
-		if d.Polarity != s.pol || !HasTags(t.Tags, s.req.RequireTags) || !labelMatches(d.Label, s.req.Transistor) {
+		if d.Polarity != s.pol || !HasTags(t.Tags, s.req.RequireTags) || !LabelMatches(d.Label, s.req.Transistor) {
 			continue
 		}
 		reject := func(r Rejection) {

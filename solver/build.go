@@ -214,8 +214,6 @@ func (b *Build) resolveTCR(dev, tcr *[NumSlots]float64, vccFactor, temp_C float6
 
 // Input ranges the analyses accept.
 const (
-	// maxTol is the largest tolerance (as a fraction) accepted.
-	maxTol = 0.5
 	// maxTCR_PPMPerK bounds |TCR|.
 	maxTCR_PPMPerK = 10000.0
 )
@@ -253,8 +251,8 @@ func (b Build) Validate() error {
 			return err
 		}
 	}
-	if !finite(b.VCCTol) || b.VCCTol < 0 || b.VCCTol >= maxTol {
-		return bad("vcc_tol", "%g: want a fraction from 0 to %g", b.VCCTol, maxTol)
+	if err := CheckTolerance("vcc_tol", b.VCCTol); err != nil {
+		return err
 	}
 	for _, i := range b.Topology.Slots() {
 		r := b.Resistors[i]
@@ -300,19 +298,14 @@ func (b Build) Validate() error {
 	if err := b.Resolve([NumSlots]float64{}, 1, TCRReference_C).Validate(d.Polarity); err != nil {
 		return err
 	}
-	for _, t := range []struct {
-		field string
-		val   float64
-	}{{"ambient", b.AmbientMin_C}, {"ambient", b.AmbientMax_C}, {"temp", b.NominalAmbient_C}} {
-		if !finite(t.val) || t.val < MinTemp_C || t.val > MaxTemp_C {
-			return bad(t.field, "%g °C outside %g..%g °C", t.val, MinTemp_C, MaxTemp_C)
-		}
+	if err := CheckAmbient(b.AmbientMin_C, b.AmbientMax_C); err != nil {
+		return err
+	}
+	if err := AmbientRange.named("temp").Check(b.NominalAmbient_C); err != nil {
+		return err
 	}
 	if tjMax := tjMaxOf(d); b.AmbientMax_C >= tjMax || b.NominalAmbient_C >= tjMax {
 		return bad("ambient", "%g °C reaches the junction limit %g °C", math.Max(b.AmbientMax_C, b.NominalAmbient_C), tjMax)
-	}
-	if b.AmbientMin_C > b.AmbientMax_C {
-		return bad("ambient", "minimum %g °C above maximum %g °C", b.AmbientMin_C, b.AmbientMax_C)
 	}
 	return nil
 }
@@ -349,8 +342,8 @@ func (r ResistorSpec) validateRatings() *InputError {
 		return &InputError{Field: field, Problem: fmt.Sprintf(format, a...)}
 	}
 	finite := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
-	if !finite(r.Tol) || r.Tol < 0 || r.Tol >= maxTol {
-		return bad("tolerance", "%g: want a fraction from 0 to %g", r.Tol, maxTol)
+	if err := checkTolerance("tolerance", r.Tol); err != nil {
+		return err
 	}
 	if !finite(r.TCR_PPMPerK) || math.Abs(r.TCR_PPMPerK) > maxTCR_PPMPerK {
 		return bad("tcr", "%g ppm/K: want at most ±%g", r.TCR_PPMPerK, maxTCR_PPMPerK)

@@ -101,6 +101,21 @@ var (
 			"temperature laws of the model are not checked"}
 )
 
+// CheckAmbient returns nil for an ambient range whose ends lie within
+// AmbientRange with min not above max, else an *InputError on "ambient":
+// the one rule for an ambient range (a build's, a pick request's).
+func CheckAmbient(min_C, max_C float64) error {
+	for _, t := range []float64{min_C, max_C} {
+		if err := AmbientRange.Check(t); err != nil {
+			return err
+		}
+	}
+	if min_C > max_C {
+		return &InputError{Field: "ambient", Problem: fmt.Sprintf("minimum %g °C above maximum %g °C: give MIN..MAX", min_C, max_C)}
+	}
+	return nil
+}
+
 // Ranges lists every accepted range of the solver, in the order the
 // README's table and --help show them.
 func Ranges() []Range {

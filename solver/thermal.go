@@ -39,8 +39,8 @@ func SolveSelfHeated(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64
 // checkSelfHeated is SolveSelfHeated's input check of everything but the
 // stage (tjMax_C with its default applied).
 func checkSelfHeated(m *Model, ambient_C, thetaJA_KPerW, tjMax_C float64) error {
-	if !finite(ambient_C) || ambient_C < MinTemp_C || ambient_C > MaxTemp_C {
-		return fmt.Errorf("self-heated solve: %w", &InputError{Field: "ambient", Problem: fmt.Sprintf("%g °C is outside %g..%g °C", ambient_C, MinTemp_C, MaxTemp_C)})
+	if !AmbientRange.Contains(ambient_C) {
+		return fmt.Errorf("self-heated solve: %w", AmbientRange.Check(ambient_C))
 	}
 	if !finite(thetaJA_KPerW) || thetaJA_KPerW < 0 {
 		return fmt.Errorf("self-heated solve: %w", &InputError{Field: "theta_ja", Problem: fmt.Sprintf("%g K/W: want a finite value >= 0", thetaJA_KPerW)})

@@ -163,8 +163,8 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 	if err := w.validate(); err != nil {
 		return YieldResult{}, fmt.Errorf("yield: %w", err)
 	}
-	if n < 1 {
-		return YieldResult{}, fmt.Errorf("yield: %w", &InputError{Field: "boards", Problem: fmt.Sprintf("%d: want at least 1", n)})
+	if err := YieldBoardsRange.Check(float64(n)); err != nil {
+		return YieldResult{}, fmt.Errorf("yield: %w", err)
 	}
 	if rng == nil {
 		panic("solver: EvalYield with a nil random source")

@@ -25,6 +25,18 @@ type CheckRequest struct {
 	KeepBoards bool
 }
 
+// Validate reports the first thing the analysis would refuse in req (an
+// *solver.InputError naming the input and its accepted range): the build
+// (solver.Build.Validate) and the yield's boards (solver.YieldBoardsRange).
+// Check makes the same check; a front end calls this to refuse bad input
+// before any work.
+func (req CheckRequest) Validate() error {
+	if err := req.Build.Validate(); err != nil {
+		return err
+	}
+	return solver.YieldBoardsRange.Check(float64(req.Boards))
+}
+
 // Analysis is everything known about one build.
 type Analysis struct {
 	Request CheckRequest
@@ -86,13 +98,16 @@ type Problem struct {
 // the solver refuses, a *solver.InputError) is an error; the other
 // analyses that fail are recorded in Problems.
 func Check(req CheckRequest) (*Analysis, error) {
+	if err := req.Validate(); err != nil {
+		return nil, err
+	}
 	b := req.Build
 	a := &Analysis{Request: req, Limits: req.Limits.WithDefaults(), VCESat_V: b.Device.VCESat_V}
 	if a.VCESat_V == 0 {
 		a.VCESat_V = solver.DefaultVCESat_V
 	}
 	var err error
-	if a.Nominal, a.Model, err = solver.Nominal(b); err != nil { // validates b first
+	if a.Nominal, a.Model, err = solver.Nominal(b); err != nil {
 		return nil, err
 	}
 	a.Stage = b.NominalStage()

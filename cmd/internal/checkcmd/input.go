@@ -65,7 +65,7 @@ func (o *Options) input(ctx context.Context) (job.CheckRequest, error) {
 	if err := o.yieldRequest(&in); err != nil {
 		return in, err
 	}
-	if err := b.Validate(); err != nil {
+	if err := in.Validate(); err != nil {
 		return in, stageflags.InputError(err)
 	}
 	return in, nil
@@ -77,9 +77,6 @@ func (o *Options) yieldRequest(in *job.CheckRequest) error {
 	var err error
 	if in.Window, err = parseWindow(o.Window); err != nil {
 		return err
-	}
-	if err := solver.YieldBoardsRange.Check(float64(o.Boards)); err != nil {
-		return stageflags.InputError(err)
 	}
 	in.Boards, in.Seed = o.Boards, o.Seed
 	return nil

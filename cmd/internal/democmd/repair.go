@@ -42,7 +42,7 @@ type repairExample struct {
 // demoTransistor is the datasheet of a stocked line by label.
 func demoTransistor(stock picker.Stock, label string) (solver.Datasheet, bool) {
 	for _, t := range stock.Transistors {
-		if strings.EqualFold(t.Sheet.Label, label) {
+		if picker.LabelMatches(t.Sheet.Label, label) {
 			return t.Sheet, true
 		}
 	}

@@ -152,11 +152,6 @@ func Run(ctx context.Context, o *Options) error {
 	if err != nil {
 		return err
 	}
-	if err := picker.CheckRequest(req); err != nil {
-		// Only the request is looked at here: whatever is wrong, the
-		// flags are (exit 2).
-		return &cmdutil.UsageError{Err: fmt.Errorf("pick: %w", err)}
-	}
 	pic, err := o.pictureOptions()
 	if err != nil {
 		return err

@@ -54,16 +54,15 @@ func (o *Options) request() (picker.Request, error) {
 		return req, cmdutil.Usagef("--vcc %s is already a range; give either the range or --vcc-tol, not both", o.VCC)
 	case vccRange:
 		req.VCCTol = vccTol
-		if req.VCCTol >= 0.5 {
-			return req, cmdutil.Usagef("--vcc %s: the top of a supply range must be below 3 times its bottom", o.VCC)
-		}
 	default:
 		if req.VCCTol, err = notation.ParseTolerance(o.VCCTol); err != nil {
 			return req, cmdutil.Usagef("--vcc-tol: %v", err)
 		}
-		if req.VCCTol >= 0.5 {
-			return req, cmdutil.Usagef("--vcc-tol %s: a supply tolerance must be below 50 %%; typical is 5%%", o.VCCTol)
-		}
+	}
+	// The picker checks the tolerance with the rest; asked here only to
+	// name the flag the user typed it with.
+	if err := solver.CheckTolerance("vcc_tol", req.VCCTol); err != nil && vccRange {
+		return req, cmdutil.Usagef("--vcc %s: %s", o.VCC, err.(*solver.InputError).Problem)
 	}
 
 	if o.IC == "" {
@@ -71,9 +70,6 @@ func (o *Options) request() (picker.Request, error) {
 	}
 	if req.IC_A, err = notation.ParseCurrent(o.IC); err != nil {
 		return req, cmdutil.Usagef("--ic: %v", err)
-	}
-	if req.IC_A <= 0 {
-		return req, cmdutil.Usagef("--ic %s: the collector current must be positive (a magnitude for PNP too), e.g. --ic 2mA", o.IC)
 	}
 
 	if o.VCE != "" {

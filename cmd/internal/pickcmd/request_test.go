@@ -152,7 +152,7 @@ func TestFlagErrors(t *testing.T) {
 		{"unknown topology", append(base, "--topology", "cascode"), []string{"--topology", "want divider"}},
 		{"ambient backwards", append(base, "--ambient", "60..-10"), []string{"--ambient"}},
 		{"ambient not a range", append(base, "--ambient", "25"), []string{"--ambient", "0..50"}},
-		{"ambient too hot", append(base, "--ambient", "0..200"), []string{"-55..150"}},
+		{"ambient too hot", append(base, "--ambient", "0..200"), []string{"-55 °C..150 °C"}},
 		{"zero boards", append(base, "--boards", "0"), []string{"--boards 0"}},
 		{"zero top", append(base, "--top", "0"), []string{"--top 0"}},
 		{"negative weight", append(base, "--weights", "beta=-1"), []string{"beta=-1", "cannot be negative", "use 0"}},

@@ -39,7 +39,7 @@ func TestExitCodes(t *testing.T) {
 		{"pick done", nil, []string{"pick", "--vcc", "12V", "--ic", "1mA"}, 0, nil},
 		{"check done", nil, []string{"check", "--vcc", "12V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--transistor", "QX-1"}, 0, nil},
 		{"nothing fits", nil, []string{"pick", "--vcc", "12V", "--ic", "1mA", "--boards", "400"}, 1, []string{"nothing fits"}},
-		{"stocked part the solver refuses", [][]string{wide}, []string{"pick", "--vcc", "12V", "--ic", "1mA"}, 1, []string{"stock line #", "tolerance", "0.6"}},
+		{"stocked part the solver refuses", [][]string{wide}, []string{"pick", "--vcc", "12V", "--ic", "1mA"}, 1, []string{"stock line #", "tolerance", "60 %"}},
 		{"missing file", nil, []string{"stock", "import", "no-such-file.csv"}, 1, []string{"no-such-file.csv"}},
 		{"missing stock file", nil, []string{"--db", "/nonexistent/dir/stock.db", "pick", "--vcc", "12V", "--ic", "1mA"}, 1, []string{"no stock file"}},
 		{"missing flag", nil, []string{"pick", "--vcc", "12V"}, 2, []string{"--ic"}},

@@ -132,9 +132,11 @@ func (s *Stage) Build(ctx context.Context, pol solver.Polarity, open Opener) (so
 	switch {
 	case vccRange && s.Changed != nil && s.Changed("vcc-tol"):
 		return b, Usagef("vcc-tol", "--vcc %s is already a range; give either the range or --vcc-tol, not both", s.VCC)
-	case vccRange && vccTol >= 0.5:
-		return b, Usagef("vcc", "%s: the top of a supply range must be below 3 times its bottom", s.VCC)
 	case vccRange:
+		// The solver's rule, asked here to name --vcc rather than --vcc-tol.
+		if err := solver.CheckTolerance("vcc_tol", vccTol); err != nil {
+			return b, Usagef("vcc", "%s: %s", s.VCC, err.(*solver.InputError).Problem)
+		}
 		b.VCCTol = vccTol
 	default:
 		if b.VCCTol, err = notation.ParseTolerance(s.VCCTol); err != nil {
