@@ -1,6 +1,7 @@
 package picker
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -78,6 +79,16 @@ func (e *InputError) Error() string {
 
 func inputErr(field, fix, format string, a ...any) error {
 	return &InputError{Field: field, Problem: fmt.Sprintf(format, a...), Fix: fix}
+}
+
+// withFix turns the solver's refusal of a request's value into the
+// picker's, with how to fix it; other errors pass unchanged.
+func withFix(err error, fix string) error {
+	var ie *solver.InputError
+	if errors.As(err, &ie) {
+		return &InputError{Field: ie.Field, Problem: ie.Problem, Fix: fix}
+	}
+	return err
 }
 
 // AnyTopology as Request.Topology searches every topology and ranks their
@@ -183,7 +194,7 @@ func normalize(req Request) (settings, error) {
 		s.spanMax += s.vee
 	}
 	if err := solver.CheckTolerance("vcc_tol", req.VCCTol); err != nil {
-		return s, err
+		return s, withFix(err, "a supply is typically ±5 %")
 	}
 	s.vccTol = req.VCCTol
 	if !finite(req.IC_A) || req.IC_A <= 0 {
@@ -219,7 +230,7 @@ func normalize(req Request) (settings, error) {
 		s.ambMin, s.ambMax = DefaultAmbientMin_C, DefaultAmbientMax_C
 	}
 	if err := solver.CheckAmbient(s.ambMin, s.ambMax); err != nil {
-		return s, err
+		return s, withFix(err, "give MIN..MAX in °C, e.g. 0..50")
 	}
 	s.boards = req.Boards
 	if s.boards < 0 {
