@@ -113,15 +113,17 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 		up     bool
 	}
 	var items []item
+	reLo, reHi := e.levelRange(iRE)
 	for _, di := range order {
 		start := 0
 		if len(d.seedRE) == len(e.devs) {
 			start = d.seedRE[di]
 		}
-		for re := start; re < n; re++ {
+		start = max(reLo, min(start, reHi))
+		for re := start; re <= reHi; re++ {
 			items = append(items, item{di, re, true})
 		}
-		for re := start - 1; re >= 0; re-- {
+		for re := start - 1; re >= reLo; re-- {
 			items = append(items, item{di, re, false})
 		}
 	}

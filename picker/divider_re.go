@@ -55,7 +55,8 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	// (vbeHi is set by then: skip > 1 only after a level was settled; a
 	// value from an earlier, wider IC window is still an upper bound.)
 	skip := 1
-	for r2 := start; r2 < n; r2++ {
+	r2Lo, r2Hi := e.clampRange(iR2, start, n-1)
+	for r2 := r2Lo; r2 <= r2Hi; r2++ {
 		bd := e.boundsNow(p)
 		rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
 		if rcLo > rcHi {
@@ -75,7 +76,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			clear(upSeen)
 			lastRcLo = rcLo
 		}
-		r1Lo, r1Hi := 0, n-1
+		r1Lo, r1Hi := e.levelRange(iR1)
 		// base is a lower bound on the beta, utilization and emitter
 		// terms of every build at this R2:
 		// bLo·w_Beta + uBase·w_Utilization + eLo·w_Emitter.
@@ -124,6 +125,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				}
 				return t.ok && t.op.IC_A < icLo
 			}) - 1
+			_, r1Hi = e.clampRange(iR1, 0, r1Hi)
 			// R1 dissipates at least (VCC − vbHi)²/R1, which falls with
 			// R1: at R1 ≤ r1Hi it is at least its value at r1Hi (with the
 			// best allowance of any value).
@@ -149,6 +151,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				return any && ic <= icHi
 			})
 			guessLo, guessHi = r1Lo, r1Hi+1
+			r1Lo, r1Hi = e.clampRange(iR1, r1Lo, r1Hi)
 		}
 		// The beta floor is taken per block of r1Block R1 levels, with
 		// R_TH = R1‖R2 between its values at the block's ends (it rises

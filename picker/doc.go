@@ -268,6 +268,33 @@
 // falls with RB, and IC at the band's largest active RC bounds the active
 // builds from below.
 //
+// # Kept parts
+//
+// Request.Keep names resistors already on the board (a repair) by
+// position. Each is one more value of the value set (buildValues, after
+// the stocked values of its level, a new level when its value is not
+// stocked) that only its own position takes: scoreVariants admits at a
+// kept position the kept value alone and, at a free one, stocked values
+// alone (admitted). A kept part has no stock line, so it draws nothing
+// from stock (quantities, the pull list, a reservation), the shortfall
+// never buys it, and its ID names its value, tolerance and rating. Its
+// tolerance and rating default to KeptDefaultTol and KeptDefaultRated_W
+// and its TCR is KeptTCR_PPMPerK (conservative for a part of unknown make
+// and age); Position.Assumed names what was assumed. With AnyTopology only
+// the topologies having every kept position are searched.
+//
+// The guarantees carry over: every bound is a floor over a set of builds
+// that holds the admitted ones (a level's allowance and the smallest
+// level are over the set with the kept values in it, so they only
+// weaken), and the pool holds only admitted builds, so a cut that is
+// sound for every build is sound for them. The plans clamp each
+// position's level range to the kept level (levelRange: eachRE, the
+// divider's RE items, its R2 loop and R1 range, rfWindow, the RB range,
+// rcBand, the exhaustive odometer), so nothing is solved twice; the seeds
+// and the hill-climb solve a kept position at its kept level whatever
+// level they asked for (tupleCache.get), which changes only the order.
+// TestSearchMatchesExhaustive draws kept parts too.
+//
 // # Several topologies
 //
 // With AnyTopology each topology (split supply only with an emitter rail)

@@ -36,7 +36,7 @@ func (f *feedbackPlan) rfWindow(di, rc, re int, icLo, icHi float64, gLo, gHi int
 		t := f.tuple(di, i, rc, re, cnt)
 		return t.ok && t.op.IC_A < icLo
 	}) - 1
-	return lo, hi
+	return f.e.clampRange(fRF, lo, hi)
 }
 
 // seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2

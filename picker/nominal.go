@@ -16,6 +16,12 @@ type evaluator struct {
 	// |VEE| for the split-supply stage. The VCE target, the Q-point
 	// term's VCE part and the headroom term are shares of it.
 	span float64
+	// kept is, per position, whether a kept part fixes it (the zero
+	// value: every position free); keepLv is then its level and keepOne
+	// its value alone (pinKept, keep.go).
+	kept    [maxPos]bool
+	keepLv  [maxPos]int
+	keepOne [maxPos][]int
 }
 
 // tuple holds what depends only on the device and the level tuple.

@@ -109,8 +109,9 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 			lines = append(lines, r)
 		}
 	}
-	vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim)
 	lay := layoutOf(topo)
+	kept, at := s.keptSpecs(lay)
+	vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim, kept...)
 	span := s.vcc
 	if lay.split {
 		span += s.vee
@@ -118,6 +119,7 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 	devs, rejected := s.transistorCandidates(stock.Transistors, span)
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
 	e := &evaluator{s: s, lay: lay, vs: &vs, devs: devs, span: span}
+	e.pinKept(at)
 	for i := range e.devs {
 		e.devs[i].betaNomMin = e.nominalBetaMin(&e.devs[i])
 	}
@@ -135,12 +137,15 @@ func sign64(v int64) int64 {
 }
 
 // combinations is the number of builds the search covers: devices times
-// the values per position to the power of the positions, saturating at
-// math.MaxInt64 (a large stock covers more than that).
+// the stocked values for each free position (a kept position has one),
+// saturating at math.MaxInt64 (a large stock covers more than that).
 func (e *evaluator) combinations() int64 {
 	c := int64(len(e.devs))
-	n := int64(len(e.vs.values))
-	for range e.lay.n {
+	for i := range e.lay.n {
+		n := int64(len(e.vs.values) - len(e.vs.kept))
+		if e.kept[i] {
+			n = 1
+		}
 		if n != 0 && c > math.MaxInt64/n {
 			return math.MaxInt64
 		}
@@ -253,7 +258,11 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 	}
 	c.OnTarget = e.window(c.VCETarget_V).Contains(&c.Nominal)
 	for i, vi := range ev.c.val[:e.lay.n] {
-		c.Positions[e.lay.names[i]] = e.vs.position(vi)
+		pos := e.vs.position(vi)
+		if e.kept[i] {
+			pos.Assumed = e.s.assumedOf(e.lay.names[i])
+		}
+		c.Positions[e.lay.names[i]] = pos
 	}
 	if wc, err := solver.EvalWorstCase(b, e.s.lim); err == nil {
 		c.Worst = wc
@@ -286,6 +295,9 @@ func (e *evaluator) id(c combo) string {
 	for i, vi := range c.val[:e.lay.n] {
 		v := e.vs.values[vi]
 		fmt.Fprintf(&sb, "|%s:%s", e.lay.names[i], v.arr)
+		if v.kept {
+			sb.WriteString(":" + keptNote(v.spec))
+		}
 		for _, li := range v.parts() {
 			fmt.Fprintf(&sb, ":%d", e.vs.lines[li].ID)
 		}

@@ -47,12 +47,17 @@ func (e *evaluator) exhaustive(p *pool, cnt *counters) {
 	if n == 0 {
 		return
 	}
+	// each position runs over its levels (a kept one has one)
+	var lo, hi [maxPos]int
+	for i := range np {
+		lo[i], hi[i] = e.levelRange(i)
+	}
 	total := int64(len(e.devs) * n)
 	for di := range e.devs {
-		for first := range n {
+		for first := lo[0]; first <= hi[0]; first++ {
 			e.progress(int64(di*n+first), total)
 			// the first position is fixed; the others run an odometer
-			var lv [maxPos]int
+			lv := lo
 			lv[0] = first
 			for {
 				t := e.newTuple(di, lv)
@@ -60,10 +65,10 @@ func (e *evaluator) exhaustive(p *pool, cnt *counters) {
 				e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
 				i := np - 1
 				for ; i >= 1; i-- {
-					if lv[i]++; lv[i] < n {
+					if lv[i]++; lv[i] <= hi[i] {
 						break
 					}
-					lv[i] = 0
+					lv[i] = lo[i]
 				}
 				if i < 1 {
 					break
@@ -93,7 +98,13 @@ func (tc *tupleCache) reset() {
 }
 
 // get returns the (cached) solved level tuple of device dev.
+//
+// A kept position is solved at its kept level whatever lv says
+// (pinLevels): the plans' seeds then make builds that keep the parts, and
+// a search over a level range clamped to the kept level (levelRange) asks
+// for nothing else.
 func (tc *tupleCache) get(e *evaluator, dev int, lv [maxPos]int, cnt *counters) *tuple {
+	lv = e.pinLevels(lv)
 	if t, ok := tc.m[lv]; ok {
 		return t
 	}
@@ -104,7 +115,8 @@ func (tc *tupleCache) get(e *evaluator, dev int, lv [maxPos]int, cnt *counters) 
 	return t
 }
 
-// peek returns a cached tuple without solving.
+// peek returns a cached tuple without solving (a miss only costs a
+// bound).
 func (tc *tupleCache) peek(lv [maxPos]int) (*tuple, bool) {
 	t, ok := tc.m[lv]
 	return t, ok
@@ -150,6 +162,9 @@ func (e *evaluator) polish(p *pool, cnt *counters) {
 		for range maxPolishSteps {
 			next, nextScore := cur, best
 			for pos := range e.lay.n {
+				if e.kept[pos] {
+					continue
+				}
 				for _, step := range []int{-1, 1} {
 					lv := cur
 					lv[pos] += step
@@ -279,8 +294,9 @@ func (so *seedOrder) start(di int) int {
 // larger RE can enter, then from start − 1 downward, skipping the levels
 // reCuts settles; visit gets the bounds in force.
 func (e *evaluator) eachRE(p *pool, start int, kE, vceLo float64, visit func(re int, bd bounds)) {
-	n := len(e.vs.levels)
-	for re := start; re < n; re++ {
+	lo, hi := e.levelRange(e.lay.re)
+	start = max(lo, min(start, hi))
+	for re := start; re <= hi; re++ {
 		bd := e.boundsNow(p)
 		stop, skip := e.reCuts(bd, re, kE, vceLo)
 		if stop {
@@ -290,7 +306,7 @@ func (e *evaluator) eachRE(p *pool, start int, kE, vceLo float64, visit func(re 
 			visit(re, bd)
 		}
 	}
-	for re := start - 1; re >= 0; re-- {
+	for re := start - 1; re >= lo; re-- {
 		bd := e.boundsNow(p)
 		if _, skip := e.reCuts(bd, re, kE, vceLo); !skip {
 			visit(re, bd)

@@ -14,7 +14,15 @@ import (
 // kRC generalises it to a stage whose RC carries up to kRC·IC (the
 // collector-feedback stage's RC carries IE: kRC = kE); it is 1 where RC
 // carries IC alone.
+//
+// The band is clamped to the levels RC may take (a kept RC's alone).
 func (e *evaluator) rcBand(b bounds, reOhm, kRC, kE, vceLo, vceHi float64) (lo, hi int) {
+	lo, hi = e.rcBandAll(b, reOhm, kRC, kE, vceLo, vceHi)
+	return e.clampRange(e.lay.rc, lo, hi)
+}
+
+// rcBandAll is rcBand over every level.
+func (e *evaluator) rcBandAll(b bounds, reOhm, kRC, kE, vceLo, vceHi float64) (lo, hi int) {
 	n := len(e.vs.levels)
 	if !b.finite {
 		return 0, n - 1

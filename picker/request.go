@@ -110,6 +110,7 @@ type settings struct {
 	topos       []solver.Topology // the topologies searched (several for AnyTopology)
 	vee         float64           // emitter rail magnitude (split supply), 0 = none
 	spanMax     float64           // the largest supply span of the topologies searched
+	keep        []KeptPart        // the kept parts, positions in lower case
 	pol         solver.Polarity
 	vcc         float64 // magnitude
 	sign        float64 // +1 NPN, -1 PNP
@@ -188,6 +189,9 @@ func normalize(req Request) (settings, error) {
 		}
 	default:
 		s.topos = []solver.Topology{s.topo}
+	}
+	if err := s.checkKeep(req.Keep); err != nil {
+		return s, err
 	}
 	s.spanMax = s.vcc
 	if slices.Contains(s.topos, solver.SplitSupply) {

@@ -24,7 +24,10 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 	n := e.lay.n
 	var L [maxPos][]int
 	for i := range n {
-		L[i] = e.vs.levels[t.c.lv[i]].values
+		// a kept position takes its kept part, a free one stock
+		if L[i] = e.admitted(i, t.c.lv[i]); len(L[i]) == 0 {
+			return
+		}
 	}
 	// k walks every value combination, the last position fastest.
 	var k [maxPos]int

@@ -72,6 +72,9 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 		if k%7 == 3 {
 			req.Transistor = "qn-b" // one line, named in another letter case
 		}
+		if k%4 == 2 || k%6 == 5 {
+			req.Keep = randomKeep(rng, st, req, 1+k%2)
+		}
 		t.Run(fmt.Sprintf("case%02d_%v", k, req.Topology), func(t *testing.T) {
 			fast, errFast := Pick(st, req)
 			req.Exhaustive = true
@@ -92,9 +95,36 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 				if a.ID != b.ID || a.Score != b.Score {
 					t.Errorf("rank %d: default %s (%.6g), exhaustive %s (%.6g)", i+1, a.ID, a.Score, b.ID, b.Score)
 				}
+				for _, kp := range req.Keep {
+					if p := a.Positions[kp.Position]; p.Arrangement != Kept || p.Ohm != kp.Ohm || len(p.Parts) != 0 {
+						t.Errorf("rank %d: %s is %+v, want the kept %g ohm", i+1, kp.Position, p, kp.Ohm)
+					}
+				}
 			}
 		})
 	}
+}
+
+// randomKeep draws n kept parts for distinct random positions of the
+// request's topology: mostly a value near the free search's first build
+// (as on a board that worked), stocked or not, sometimes any E24 value
+// 100 Ω..100 kΩ; with or without a tolerance and rating of its own.
+func randomKeep(rng *rand.Rand, st Stock, req Request, n int) []KeptPart {
+	lay := layoutOf(req.Topology)
+	all := eseries.Range(eseries.E24, 100, 100e3)
+	free, _ := Pick(st, req)
+	var out []KeptPart
+	for _, i := range rng.Perm(lay.n)[:n] {
+		k := KeptPart{Position: lay.names[i], Ohm: all[rng.IntN(len(all))]}
+		if len(free.Candidates) > 0 && rng.IntN(4) > 0 {
+			k.Ohm = free.Candidates[0].Positions[k.Position].Ohm * []float64{1, 1, 1.07, 0.9}[rng.IntN(4)]
+		}
+		if rng.IntN(2) == 0 {
+			k.Tol, k.Rated_W = 0.05, 0.25
+		}
+		out = append(out, k)
+	}
+	return out
 }
 
 // TestE12DefaultEqualsExhaustive: on E12 100 Ω–10 kΩ with one transistor

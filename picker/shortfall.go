@@ -124,6 +124,10 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 	var parts [maxPos]Purchase
 	np := e.lay.n
 	for i, r := range id[:np] {
+		if e.kept[i] {
+			id[i] = e.vs.levels[e.keepLv[i]].ohm // on the board: never bought
+			continue
+		}
 		ohm := eseries.Nearest(buySeries, r)
 		p := Purchase{Slot: e.lay.names[i], Ohm: ohm, Series: buySeries.String(), Tol: buyTol, Qty: 2 * s.boards}
 		est := e.idealPower_W(d, id, i, ohm)
@@ -150,13 +154,13 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 		return e.fitsWith(d, id, bought)
 	}
 	for i := range np {
-		if try(i) {
+		if !e.kept[i] && try(i) {
 			return []Purchase{parts[i]}
 		}
 	}
 	for i := range np {
 		for j := i + 1; j < np; j++ {
-			if try(i, j) {
+			if !e.kept[i] && !e.kept[j] && try(i, j) {
 				return []Purchase{parts[i], parts[j]}
 			}
 		}
@@ -173,16 +177,22 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 		lines = append(lines, Resistor{ID: -1 - int64(k), Ohm: p.Ohm, Tol: p.Tol, TCR_PPMPerK: buyTCR_PPMPerK, Rated_W: p.Rated_W,
 			Qty: p.Qty, Bin: "to buy", Tags: e.s.req.RequireTags})
 	}
-	vs := buildValues(lines, e.s.boards, false, e.s.ambMax, e.s.lim)
+	kept, at := e.s.keptSpecs(e.lay)
+	vs := buildValues(lines, e.s.boards, false, e.s.ambMax, e.s.lim, kept...)
 	if len(vs.levels) == 0 {
 		return false
 	}
 	ev := &evaluator{s: e.s, lay: e.lay, vs: &vs, devs: []device{*d}, span: e.span}
+	ev.pinKept(at)
 	ev.devs[0].betaNomMin = ev.nominalBetaMin(&ev.devs[0]) // over these values
 	inf := func() float64 { return math.Inf(1) }
 	var choices [maxPos][]int
 	np := e.lay.n
 	for i := range np {
+		if ev.kept[i] {
+			choices[i] = []int{ev.keepLv[i]}
+			continue
+		}
 		if p, ok := bought[i]; ok {
 			choices[i] = []int{vs.levelAtOrAbove(p.Ohm * (1 - 1e-9))}
 			continue

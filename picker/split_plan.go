@@ -113,6 +113,7 @@ func (sp *splitPlan) search(p *pool, cnt *counters) {
 					return any && ic <= icHi
 				})
 			}
+			rbLo, rbHi = e.clampRange(sRB, rbLo, rbHi)
 			for rb := rbLo; rb <= rbHi; rb++ {
 				e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base)
 			}

@@ -76,7 +76,11 @@ type Request struct {
 	RequireTags  []string
 	// Transistor, when not "", is the one transistor label the builds may
 	// use (letter case aside, ASCII only, as the stock matches labels).
-	Transistor  string
+	Transistor string
+	// Keep are the resistors on the board the builds keep (a repair), at
+	// most one per position; with AnyTopology only the topologies having
+	// every kept position are searched.
+	Keep        []KeptPart
 	Top         int // 0 = 5
 	Exhaustive  bool
 	ShowFailing bool // also list builds that fail a hard limit, with the reason
@@ -105,9 +109,12 @@ type Part struct {
 // Position is what fills one resistor position: a single part or a pair.
 type Position struct {
 	Ohm         float64 // nominal value of the arrangement
-	Arrangement string  // "single", "series" or "parallel"
+	Arrangement string  // "single", "series", "parallel" or "kept" (Kept: on the board, no parts)
 	Parts       []Part
 	Spec        solver.ResistorSpec
+	// Assumed names the figures of a kept part taken at their defaults
+	// (AssumedTol, AssumedRating, AssumedTCR); empty for stocked parts.
+	Assumed []string
 }
 
 // Terms are the score terms of one candidate (each >= 0, lower is better).

@@ -20,10 +20,15 @@ type value struct {
 	// tie-break uses it, never the index into valueSet.values, which
 	// follows the order the stock lines came in.
 	rank int
+	// kept is a part already on the board (Request.Keep): no stock line.
+	kept bool
 }
 
 // parts returns the line indexes the value draws one part from each.
 func (v value) parts() []int {
+	if v.kept {
+		return nil
+	}
 	if v.lines[1] < 0 {
 		return v.lines[:1]
 	}
@@ -36,6 +41,9 @@ func (v value) parts() []int {
 type level struct {
 	ohm    float64
 	values []int // indexes into valueSet.values, in preference order
+	// stock are the values drawn from stock (values without the kept
+	// parts; the same slice when the set holds none)
+	stock []int
 	// allowHot_W is the largest derated, margined allowance at the hottest
 	// ambient among the level's values (for utilization bounds).
 	allowHot_W float64
@@ -49,19 +57,25 @@ type valueSet struct {
 	levels []level
 	// allowHotMax_W is the largest allowHot_W of any level.
 	allowHotMax_W float64
+	// kept are the value indexes of the kept parts, in the order given
+	// to buildValues.
+	kept []int
 }
 
 // sameOhm reports whether two resistances are one level (relative 1e-9,
 // so 4.7e3 read from text and 4700 agree).
 func sameOhm(a, b float64) bool { return math.Abs(a-b) <= 1e-9*math.Max(a, b) }
 
-// arrRank orders arrangements: singles before series before parallel pairs.
+// arrRank orders arrangements: singles before series before parallel
+// pairs, and kept parts last.
 func arrRank(a string) int {
 	switch a {
 	case Single:
 		return 0
 	case Series:
 		return 1
+	case Kept:
+		return 3
 	}
 	return 2
 }
@@ -72,8 +86,9 @@ func arrRank(a string) int {
 // twice when it holds 2·boards). Levels are ascending; within a level the
 // values are ordered single, series, parallel, then tighter tolerance,
 // higher rating, lower TCR magnitude, lower line IDs — the documented
-// tie-break.
-func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64, lim solver.Limits) valueSet {
+// tie-break. Each kept part (Request.Keep) is one more value, after the
+// stocked ones of its level; only its own position takes it.
+func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64, lim solver.Limits, kept ...solver.ResistorSpec) valueSet {
 	vs := valueSet{lines: lines}
 	for i, r := range lines {
 		if r.Qty < boards || !(r.Ohm > 0) {
@@ -97,6 +112,10 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 				vs.values = append(vs.values, value{ohm: p.Nominal_Ohm, arr: Parallel, lines: [2]int{i, j}, spec: p})
 			}
 		}
+	}
+	for _, k := range kept {
+		vs.kept = append(vs.kept, len(vs.values))
+		vs.values = append(vs.values, value{ohm: k.Nominal_Ohm, arr: Kept, lines: [2]int{-1, -1}, spec: k, kept: true})
 	}
 	idOf := func(v value, k int) int64 {
 		if v.lines[k] < 0 {
@@ -134,6 +153,13 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 			vs.levels = append(vs.levels, level{ohm: v.ohm, values: []int{vi}, allowHot_W: allow})
 		}
 		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
+	}
+	for i := range vs.levels {
+		l := &vs.levels[i]
+		l.stock = l.values
+		if len(kept) > 0 {
+			l.stock = slices.DeleteFunc(slices.Clone(l.values), func(vi int) bool { return vs.values[vi].kept })
+		}
 	}
 	return vs
 }

@@ -11,6 +11,7 @@ import (
 
 	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/picker"
 	"biasbin/solver/notation"
 )
 
@@ -87,7 +88,11 @@ func writeShow(w io.Writer, v buildjob.View) {
 	var stage []string
 	for _, s := range p.Slots {
 		arr := ""
-		if s.Arrangement != "single" {
+		switch s.Arrangement {
+		case picker.Single:
+		case picker.Kept:
+			arr = " (kept on the board)"
+		default:
 			arr = " (" + s.Arrangement + " pair)"
 		}
 		stage = append(stage, fmt.Sprintf("%s %s%s", strings.ToUpper(s.Slot), notation.FormatResistance(s.Ohm), arr))

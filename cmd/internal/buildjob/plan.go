@@ -43,7 +43,8 @@ type Plan struct {
 // SlotUse is what fills one resistor position.
 type SlotUse struct {
 	Slot string `json:"slot"`
-	// Arrangement is "single", "series" or "parallel".
+	// Arrangement is "single", "series", "parallel" or "kept" (on the
+	// board, no stock line).
 	Arrangement string  `json:"arrangement"`
 	Ohm         float64 `json:"ohms"`
 	// Lines are the stock lines of the part or pair (a pair of one line

@@ -50,6 +50,19 @@ type jsonRequest struct {
 	Top          int      `json:"top"`
 	Exhaustive   bool     `json:"exhaustive"`
 	Seed         uint64   `json:"seed"`
+	// Keep are the resistors kept on the board, with the figures used
+	// (defaults filled in) and which of them were assumed.
+	Keep []jsonKept `json:"keep,omitempty"`
+}
+
+// jsonKept is one kept part of the request.
+type jsonKept struct {
+	Position    string   `json:"position"`
+	Ohms        float64  `json:"ohms"`
+	Tol         float64  `json:"tol"`
+	Rated_W     float64  `json:"rated_w"`
+	TCR_PPMPerK float64  `json:"tcr_ppm_per_k"`
+	Assumed     []string `json:"assumed"`
 }
 
 // jsonRival is the best build of one topology against the first build.
@@ -118,6 +131,10 @@ type jsonPosition struct {
 	Tol         float64    `json:"tol"`
 	Rated_W     float64    `json:"rated_w"`
 	Parts       []jsonPart `json:"parts"`
+	// TCR_PPMPerK and Assumed are a kept part's TCR and the figures taken
+	// at their defaults ("tol", "rated_w", "tcr_ppm_per_k").
+	TCR_PPMPerK float64  `json:"tcr_ppm_per_k,omitempty"`
+	Assumed     []string `json:"assumed,omitempty"`
 }
 
 type jsonPart struct {
@@ -236,7 +253,14 @@ func jsonPurchases(ps []picker.Purchase) []jsonPurchase {
 }
 
 func jsonRequestOf(r picker.Request) jsonRequest {
+	var keep []jsonKept
+	for _, k := range r.Keep {
+		spec, assumed := k.Spec()
+		keep = append(keep, jsonKept{Position: k.Position, Ohms: k.Ohm, Tol: spec.Tol, Rated_W: spec.Rated_W,
+			TCR_PPMPerK: spec.TCR_PPMPerK, Assumed: assumed})
+	}
 	return jsonRequest{
+		Keep:         keep,
 		Topology:     topologyName(r.Topology),
 		Polarity:     r.Polarity.String(),
 		VCC_V:        r.VCC_V,
@@ -313,6 +337,9 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 			Tol:         p.Spec.Tol,
 			Rated_W:     p.Spec.Rated_W,
 			Parts:       []jsonPart{},
+		}
+		if p.Arrangement == picker.Kept {
+			jp.TCR_PPMPerK, jp.Assumed = p.Spec.TCR_PPMPerK, p.Assumed
 		}
 		for _, part := range p.Parts {
 			jp.Parts = append(jp.Parts, jsonPart{ID: part.ID, Ohms: part.Ohm, Bin: part.Bin})

@@ -42,6 +42,9 @@ type Options struct {
 	Pairs       bool
 	RequireTags []string
 	Transistor  string
+	// Keep are the --keep flags as typed: POSITION=VALUE items, comma
+	// separated, the flag repeatable.
+	Keep        []string
 	Top         int
 	Exhaustive  bool
 	ShowFailing bool

@@ -52,6 +52,17 @@ topology and says in one line why the first beats the best of each other
 topology. For split supply the supply span is VCC + VEE and the emitter
 term does not apply (VEE sets the emitter resistor's drop).
 
+A repair keeps the resistors still good on the board and fills the rest
+from stock: --keep r1=47K,r2=10K names positions of the topology (r1, r2,
+rc, re for the divider; rf, rc, re for collector feedback; rb, rc, re for
+split supply) and their values, which need not be stocked. A kept part is
+never taken from stock. Give its tolerance and rating if known
+(r1=47K/5%/0.25W); otherwise it is taken as ±` + keptDefaults + `,
+conservative for a part of unknown make and age, and every kept part with
+a TCR of ` + fmt.Sprint(picker.KeptTCR_PPMPerK) + ` ppm/K. With --topology any only the topologies having
+every kept position are searched (a kept r1 means the divider; rc and re
+are in all three).
+
 Without --vce the target VCE is, for each build, the one that gives the
 largest symmetrical swing on its load lines:
   VCE = VCE(sat) + (VCC - VCE(sat)) * r_ac / (R_dc + r_ac)
@@ -97,7 +108,8 @@ can take their parts out of stock later.
   biasbin pick --vcc 9V --ic 500uA --polarity pnp --boards 20 --pairs
   biasbin pick --vcc 15V --ic 1mA --vce 6V --load 10K --bypass --weights q=2,yield=0.5 --json
   biasbin pick --vcc 12V --vee 12V --ic 1mA --topology split-supply
-  biasbin pick --vcc 9V --ic 1mA --topology any`,
+  biasbin pick --vcc 9V --ic 1mA --topology any
+  biasbin pick --vcc 12V --ic 1mA --keep r1=47K,r2=10K`,
 		Args: func(_ *cobra.Command, args []string) error {
 			if len(args) > 0 {
 				return cmdutil.Usagef("pick takes no arguments, only flags (got %q); e.g. biasbin pick --vcc 12V --ic 2mA", args[0])
@@ -131,6 +143,7 @@ can take their parts out of stock later.
 	fl.BoolVar(&o.Pairs, "pairs", false, "also use series and parallel pairs of two stocked resistors")
 	fl.StringArrayVar(&o.RequireTags, "require-tag", nil, "use only parts carrying this tag (repeatable; a tag matches in any letter case)")
 	fl.StringVar(&o.Transistor, "transistor", "", "use only the transistor line(s) with this label (letter case aside), e.g. for a repair")
+	fl.StringArrayVar(&o.Keep, "keep", nil, "keep resistors already on the board, POSITION=VALUE,... e.g. r1=47K,r2=10K/5%/0.25W (see above)")
 	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
 	fl.BoolVar(&o.Exhaustive, "exhaustive", false, "evaluate every combination instead of the pruned search")
 	fl.BoolVar(&o.ShowFailing, "show-failing", false, "also show builds that break a hard limit, with the reason")
@@ -142,6 +155,10 @@ can take their parts out of stock later.
 	fl.StringVar(&o.PlotSize, "plot-size", "", fmt.Sprintf("size of the --plot picture in pixels, WIDTHxHEIGHT (default %dx%d)", picture.DefaultSize.Width_px, picture.DefaultSize.Height_px))
 	return cmd
 }
+
+// keptDefaults is the tolerance and rating a kept part is taken with when
+// it states none (picker.KeptPart.Spec), for --help.
+var keptDefaults = strings.TrimSuffix(percent(picker.KeptDefaultTol), " %") + " % and " + quantity(picker.KeptDefaultRated_W, "W")
 
 // Run executes a pick with o; tests call it with buffer streams.
 func Run(ctx context.Context, o *Options) error {

@@ -1,6 +1,7 @@
 package pickcmd
 
 import (
+	"encoding/json"
 	"regexp"
 	"strings"
 	"testing"
@@ -86,6 +87,63 @@ func TestRealPick(t *testing.T) {
 			golden(t, tt.name+".stdout", searchEffort.ReplaceAllString(inv.stdout, "${1}N"))
 			golden(t, tt.name+".stderr", inv.stderr)
 		})
+	}
+	if snapshot(t, path) != before {
+		t.Error("pick changed the stock")
+	}
+}
+
+// TestRealPickKeep: a repair keeping R1 and R2 (8K2 is not stocked) gets
+// builds that show them as kept on the board, with the figures assumed,
+// and never pulls them from stock, in text and in JSON.
+func TestRealPickKeep(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the real search")
+	}
+	path := newTestDB(t, tinyWall())
+	before := snapshot(t, path)
+	args := []string{"--vcc", "12V", "--ic", "1mA", "--top", "1", "--keep", "r1=47K,r2=8K2/5%"}
+	inv := runPick(t, path, nil, args...)
+	if inv.err != nil {
+		t.Fatalf("%v\n%s", inv.err, inv.stderr)
+	}
+	for _, w := range []string{"keeps on the board, not from stock: R1 47K (±10 %, 125 mW assumed), R2 8K2 (±5 %, 125 mW assumed)",
+		"every kept part is taken with TCR 1000 ppm/K", "R1    47K ", "kept 10 % 125 mW", "on the board"} {
+		if !strings.Contains(inv.stdout, w) {
+			t.Errorf("stdout lacks %q:\n%s", w, inv.stdout)
+		}
+	}
+	// the pull list names RC, RE and the transistor only
+	pull := inv.stdout[strings.Index(inv.stdout, "Pull list"):]
+	if strings.Contains(pull, "47K") || strings.Count(pull, "\n") != 5 {
+		t.Errorf("the pull list takes a kept part or not three lines:\n%s", pull)
+	}
+	inv = runPick(t, path, nil, append(args, "--json")...)
+	if inv.err != nil {
+		t.Fatal(inv.err)
+	}
+	var doc struct {
+		Request struct {
+			Keep []jsonKept `json:"keep"`
+		} `json:"request"`
+		Candidates []struct {
+			Resistors map[string]jsonPosition `json:"resistors"`
+			Pull      []jsonPull              `json:"pull"`
+		} `json:"candidates"`
+	}
+	if err := json.Unmarshal([]byte(inv.stdout), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if len(doc.Request.Keep) != 2 || doc.Request.Keep[0].Tol != 0.1 || doc.Request.Keep[1].Tol != 0.05 ||
+		strings.Join(doc.Request.Keep[0].Assumed, ",") != "tol,rated_w,tcr_ppm_per_k" {
+		t.Errorf("request keep %+v", doc.Request.Keep)
+	}
+	c := doc.Candidates[0]
+	if r1 := c.Resistors["r1"]; r1.Arrangement != "kept" || len(r1.Parts) != 0 || r1.Ohms != 47e3 || r1.TCR_PPMPerK != 1000 {
+		t.Errorf("r1 %+v", r1)
+	}
+	if len(c.Pull) != 3 {
+		t.Errorf("pull %+v, want RC, RE and the transistor", c.Pull)
 	}
 	if snapshot(t, path) != before {
 		t.Error("pick changed the stock")

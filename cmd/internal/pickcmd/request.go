@@ -141,10 +141,42 @@ func (o *Options) request() (picker.Request, error) {
 		}
 	}
 	req.Transistor = strings.TrimSpace(o.Transistor)
+	if req.Keep, err = parseKeep(o.Keep); err != nil {
+		return req, err
+	}
 	if err := req.Validate(); err != nil {
 		return req, requestError(err)
 	}
 	return req, nil
+}
+
+// parseKeep reads --keep POSITION=VALUE[,...]: the resistors on the board
+// the build keeps, each value with its tolerance and rating if known
+// (47K, 47K/5%/0.25W, as check takes a resistor). Which positions the
+// topology has, and the accepted values, are the picker's rules.
+func parseKeep(flags []string) ([]picker.KeptPart, error) {
+	var out []picker.KeptPart
+	for _, f := range flags {
+		for item := range strings.SplitSeq(f, ",") {
+			name, val, ok := strings.Cut(strings.TrimSpace(item), "=")
+			if !ok || strings.TrimSpace(name) == "" || strings.TrimSpace(val) == "" {
+				return nil, cmdutil.Usagef("--keep %q: want POSITION=VALUE, e.g. --keep r1=47K,r2=10K/5%%/0.25W", item)
+			}
+			rt, err := notation.ParseResistorText(strings.TrimSpace(val))
+			if err != nil {
+				return nil, cmdutil.Usagef("--keep %s: %v", strings.TrimSpace(name), err)
+			}
+			k := picker.KeptPart{Position: strings.ToLower(strings.TrimSpace(name)), Ohm: rt.Ohm}
+			if rt.HasTol {
+				k.Tol = rt.Tol
+			}
+			if rt.HasPower {
+				k.Rated_W = rt.Rated_W
+			}
+			out = append(out, k)
+		}
+	}
+	return out, nil
 }
 
 // requestError turns a request the picker or the solver refuses into a

@@ -48,6 +48,17 @@ func TestFlags(t *testing.T) {
 				t.Errorf("vcc %g ±%g spans %g..%g, want 7..9.6", r.VCC_V, r.VCCTol, r.VCC_V*(1-r.VCCTol), r.VCC_V*(1+r.VCCTol))
 			}
 		}},
+		{"keep", append(base, "--keep", "R1=47K,r2=10K/5%/0.25W", "--keep", "re=1K0F"), func(t *testing.T, r picker.Request) {
+			want := []picker.KeptPart{{Position: "r1", Ohm: 47e3}, {Position: "r2", Ohm: 10e3, Tol: 0.05, Rated_W: 0.25}, {Position: "re", Ohm: 1e3, Tol: 0.01}}
+			if len(r.Keep) != len(want) {
+				t.Fatalf("keep %+v, want %+v", r.Keep, want)
+			}
+			for i, k := range r.Keep {
+				if k.Position != want[i].Position || !near(k.Ohm, want[i].Ohm) || !near(k.Tol, want[i].Tol) || !near(k.Rated_W, want[i].Rated_W) {
+					t.Errorf("keep %d = %+v, want %+v", i, k, want[i])
+				}
+			}
+		}},
 		{"defaults", base, func(t *testing.T, r picker.Request) {
 			if r.Topology != solver.Divider || r.Polarity != solver.NPN {
 				t.Errorf("topology/polarity = %v/%v, want divider/npn", r.Topology, r.Polarity)
@@ -164,6 +175,12 @@ func TestFlagErrors(t *testing.T) {
 		{"zero load", append(base, "--load", "0R"), []string{"--load", "positive"}},
 		{"huge supply tolerance", append(base, "--vcc-tol", "60%"), []string{"--vcc-tol"}},
 		{"empty tag", append(base, "--require-tag", " "), []string{"--require-tag", "empty"}},
+		{"keep without a value", append(base, "--keep", "r1"), []string{"--keep", "POSITION=VALUE"}},
+		{"keep a bad value", append(base, "--keep", "r1=4X7"), []string{"--keep r1"}},
+		{"keep a position the divider lacks", append(base, "--keep", "rf=100K"), []string{"--keep", "divider stage has no rf", "r1, r2, rc, re"}},
+		{"keep a position twice", append(base, "--keep", "r1=47K", "--keep", "R1=39K"), []string{"--keep", "twice"}},
+		{"keep a value out of range", append(base, "--keep", "re=0"), []string{"--keep", "re's value", "1 mΩ"}},
+		{"keep positions of two topologies", append(base, "--topology", "any", "--keep", "r1=47K,rf=1M"), []string{"--keep", "no topology searched"}},
 		{"unknown flag", append(base, "--frobnicate"), []string{"frobnicate"}},
 		{"stray argument", append(base, "extra"), []string{"extra"}},
 	}

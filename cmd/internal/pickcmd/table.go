@@ -3,6 +3,7 @@ package pickcmd
 import (
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 	"text/tabwriter"
 
@@ -50,6 +51,23 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	if len(r.RequireTags) > 0 {
 		fmt.Fprintf(w, "only parts tagged %s\n", strings.Join(r.RequireTags, ", "))
 	}
+	if len(r.Keep) > 0 {
+		var kept []string
+		given := true
+		for _, k := range r.Keep {
+			spec, assumed := k.Spec()
+			kept = append(kept, fmt.Sprintf("%s %s (%s)", strings.ToUpper(k.Position), notation.FormatResistance(k.Ohm), keptNote(spec, assumed)))
+			given = given && k.Tol != 0 && k.Rated_W != 0
+		}
+		fmt.Fprintf(w, "keeps on the board, not from stock: %s\n", strings.Join(kept, ", "))
+		tcr := fmt.Sprintf("every kept part is taken with TCR %g ppm/K", float64(picker.KeptTCR_PPMPerK))
+		if given {
+			fmt.Fprintf(w, "    (%s)\n", tcr)
+		} else {
+			fmt.Fprintf(w, "    (a figure not given is assumed, conservative for a part of unknown make and age: give what you know, e.g. --keep %s=%s/5%%/0.25W; %s)\n",
+				r.Keep[0].Position, notation.FormatResistance(r.Keep[0].Ohm), tcr)
+		}
+	}
 	mode := "pruned search"
 	if r.Exhaustive {
 		mode = "exhaustive search"
@@ -81,7 +99,11 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 		for _, part := range p.Parts {
 			from = append(from, fmt.Sprintf("bin %s #%d %s", binName(part.Bin), part.ID, notation.FormatResistanceExact(part.Ohm)))
 		}
-		fmt.Fprintf(tw, "    %s\t%s\t%s %s\t%s\n", strings.ToUpper(slot), positionCode(p), p.Arrangement, specNote(p.Spec), strings.Join(from, " + "))
+		note := specNote(p.Spec)
+		if p.Arrangement == picker.Kept {
+			from = []string{"on the board"}
+		}
+		fmt.Fprintf(tw, "    %s\t%s\t%s %s\t%s\n", strings.ToUpper(slot), positionCode(p), p.Arrangement, note, strings.Join(from, " + "))
 	}
 	fmt.Fprintf(tw, "    Q\t%s\t%s hFE %s..%s\tbin %s #%d\n", c.Transistor.Sheet.Label, c.Transistor.Sheet.Polarity,
 		trimNum(c.Transistor.Sheet.HFEMin), trimNum(c.Transistor.Sheet.HFEMax), binName(c.Transistor.Bin), c.Transistor.ID)
@@ -204,6 +226,22 @@ func specNote(s solver.ResistorSpec) string {
 		return ""
 	}
 	return fmt.Sprintf("%s %s", percent(s.Tol), quantity(s.Rated_W, "W"))
+}
+
+// keptNote writes a kept part's tolerance and rating, saying which were
+// assumed: "±10 %, 125 mW assumed", "±5 % assumed, 250 mW".
+func keptNote(s solver.ResistorSpec, assumed []string) string {
+	tol, rating := slices.Contains(assumed, picker.AssumedTol), slices.Contains(assumed, picker.AssumedRating)
+	t, p := "±"+percent(s.Tol), quantity(s.Rated_W, "W")
+	switch {
+	case tol && rating:
+		return t + ", " + p + " assumed"
+	case tol:
+		return t + " assumed, " + p
+	case rating:
+		return t + ", " + p + " assumed"
+	}
+	return t + ", " + p
 }
 
 // binName shows an empty bin as "-".
