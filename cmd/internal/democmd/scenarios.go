@@ -74,5 +74,17 @@ the split supply, ranks them on one scale and says why the first wins.`,
 			req: picker.Request{Topology: picker.AnyTopology, Polarity: solver.NPN, VCC_V: 12, VEE_V: -12, VCCTol: 0.05, IC_A: 1e-3,
 				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 1, Top: 2, Seed: 1},
 		},
+		{
+			title: "A repair: keep the divider on the board, fill the rest from the wall",
+			story: `A 12 V stage (about 1 mA) came in with its emitter resistor burnt open and
+the collector resistor scorched; the transistor is suspect too. R1 measures
+46.8K on a 1 % meter and stays; R2 (10K) is buried under a bracket and
+stays unmeasured, so pick takes it with conservative figures and says so.
+The kept parts are never pulled from stock.`,
+			args: []string{"--vcc", "12V", "--ic", "1mA", "--keep", "r1=46K8/1%,r2=10K", "--top", "1"},
+			req: picker.Request{Topology: solver.Divider, Polarity: solver.NPN, VCC_V: 12, VCCTol: 0.05, IC_A: 1e-3,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 1, Top: 1, Seed: 1,
+				Keep: []picker.KeptPart{{Position: "r1", Ohm: 46.8e3, Tol: 0.01}, {Position: "r2", Ohm: 10e3}}},
+		},
 	}
 }

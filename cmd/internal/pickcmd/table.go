@@ -54,10 +54,13 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	if len(r.Keep) > 0 {
 		var kept []string
 		given := true
+		var hint picker.KeptPart // the first part with a figure assumed
 		for _, k := range r.Keep {
 			spec, assumed := k.Spec()
 			kept = append(kept, fmt.Sprintf("%s %s (%s)", strings.ToUpper(k.Position), notation.FormatResistance(k.Ohm), keptNote(spec, assumed)))
-			given = given && k.Tol != 0 && k.Rated_W != 0
+			if given && (k.Tol == 0 || k.Rated_W == 0) {
+				given, hint = false, k
+			}
 		}
 		fmt.Fprintf(w, "keeps on the board, not from stock: %s\n", strings.Join(kept, ", "))
 		tcr := fmt.Sprintf("every kept part is taken with TCR %g ppm/K", float64(picker.KeptTCR_PPMPerK))
@@ -65,7 +68,7 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 			fmt.Fprintf(w, "    (%s)\n", tcr)
 		} else {
 			fmt.Fprintf(w, "    (a figure not given is assumed, conservative for a part of unknown make and age: give what you know, e.g. --keep %s=%s/5%%/0.25W; %s)\n",
-				r.Keep[0].Position, notation.FormatResistance(r.Keep[0].Ohm), tcr)
+				hint.Position, notation.FormatResistance(hint.Ohm), tcr)
 		}
 	}
 	mode := "pruned search"
