@@ -77,11 +77,11 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 				t.Errorf("VBE %.6g outside [%.6g, %.6g] (vcc %g, %v)", op.VBE_V, vbeLo, vbeHi, vcc, r)
 			}
 			rth := r[iR1] * r[iR2] / (r[iR1] + r[iR2])
-			if f := e.rthFloor(r[iR2], math.Abs(op.VB_V), op.IB_A); f > rth*(1+1e-12) {
+			if f := e.rthFloor(r[iR2], op.V_V[solver.R2], op.IB_A); f > rth*(1+1e-12) {
 				t.Errorf("R_TH floor %.6g above R_TH %.6g (%v)", f, rth, r)
 			}
 			u := math.Max(op.P_W[solver.R1]/e.vs.levels[lv[iR1]].allowHot_W, op.P_W[solver.R2]/e.vs.levels[lv[iR2]].allowHot_W)
-			if f := e.dividerPowerBound(lv[iR2], math.Abs(op.VB_V), math.Abs(op.VB_V)); f > u*(1+1e-9) {
+			if f := e.dividerPowerBound(lv[iR2], op.V_V[solver.R2], op.V_V[solver.R2]); f > u*(1+1e-9) {
 				t.Errorf("divider bound %.6g above the divider's utilization %.6g (%v)", f, u, r)
 			}
 			// The floor for a window around IC and an R_TH below the build's

@@ -94,6 +94,7 @@ func (e *evaluator) build(c combo) solver.Build {
 		Topology:         e.lay.topo,
 		VCC_V:            e.s.sign * e.s.vcc,
 		VEE_V:            e.veeSigned(),
+		Ground:           e.ground(),
 		VCCTol:           e.s.vccTol,
 		RL_Ohm:           e.s.rl,
 		Device:           d.line.Sheet,

@@ -56,7 +56,7 @@ func (e *evaluator) ohms(lv [maxPos]int) [maxPos]float64 {
 // stage is the nominal circuit of a level tuple (values at their marked
 // resistance; at 25 °C TCR moves nothing).
 func (e *evaluator) stage(r [maxPos]float64) solver.Stage {
-	st := solver.Stage{Topology: e.lay.topo, VCC_V: e.s.sign * e.s.vcc, VEE_V: e.veeSigned(), RL_Ohm: e.s.rl}
+	st := solver.Stage{Topology: e.lay.topo, VCC_V: e.s.sign * e.s.vcc, VEE_V: e.veeSigned(), Ground: e.ground(), RL_Ohm: e.s.rl}
 	for i := range e.lay.n {
 		st.R_Ohm[e.lay.slots[i]] = r[i]
 	}
@@ -85,6 +85,9 @@ func (e *evaluator) vceTarget(d *device, r [maxPos]float64) float64 {
 	}
 	return swingVCE(e.span, d.vceSat, r[e.lay.rc], r[e.lay.re], e.s.rl, e.s.bypass)
 }
+
+// ground is the 0 V of this topology's builds (solver.GroundOf).
+func (e *evaluator) ground() solver.Ground { return solver.GroundOf(e.s.pol, e.lay.topo, e.s.rail) }
 
 // veeSigned is the emitter rail as the solver takes it (opposite in sign
 // to VCC), 0 for a stage without one.
@@ -123,7 +126,7 @@ func (e *evaluator) emitter(op solver.OperatingPoint) float64 {
 	if !e.lay.emitterBand {
 		return 0
 	}
-	ve := math.Abs(op.VE_V)
+	ve := op.V_V[solver.RE] // across RE: VE's magnitude against the emitter-side rail
 	return (math.Max(0, ve-e.s.veHi) + math.Max(0, e.s.veLo-ve)) / e.s.vcc
 }
 

@@ -112,8 +112,9 @@ type settings struct {
 	spanMax     float64           // the largest supply span of the topologies searched
 	keep        []KeptPart        // the kept parts, positions in lower case
 	pol         solver.Polarity
-	vcc         float64 // magnitude
-	sign        float64 // +1 NPN, -1 PNP
+	vcc         float64         // magnitude
+	sign        float64         // +1 NPN, -1 PNP
+	rail        solver.RailSign // settled (solver.SettleRail)
 	vccTol      float64
 	icT         float64
 	vceT        float64 // 0 = maximum-symmetrical-swing rule per build
@@ -161,6 +162,10 @@ func normalize(req Request) (settings, error) {
 	}
 	s.vcc = math.Abs(req.VCC_V)
 	if err := solver.SupplyRange.Check(s.vcc); err != nil {
+		return s, err
+	}
+	var err error // AnyTopology: its single-supply builds settle the rail
+	if s.rail, err = solver.SettleRail(s.vcc, s.pol, s.topo, req.Rail); err != nil {
 		return s, err
 	}
 	if !finite(req.VEE_V) || req.VEE_V*s.sign > 0 {

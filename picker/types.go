@@ -57,7 +57,14 @@ type Request struct {
 	// to VCC_V (negative for NPN, positive for PNP); VCCTol applies to it
 	// too. Required for split supply; with AnyTopology, split-supply builds
 	// are searched only when it is given.
-	VEE_V  float64
+	VEE_V float64
+	// Rail is how a single-supply stage is built against its 0 V: the
+	// zero value and solver.PositiveRail are the usual build (a PNP stage
+	// with its emitter side to +V and its collector side to 0 V),
+	// solver.NegativeRail puts a PNP stage's emitter side on 0 V. Each
+	// build's Ground follows from it (solver.GroundOf); a split-supply
+	// build is measured from the common of its two supplies.
+	Rail   solver.RailSign
 	VCCTol float64
 	IC_A   float64 // target collector current
 	VCE_V  float64 // target VCE magnitude; 0 = the maximum-symmetrical-swing rule

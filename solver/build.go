@@ -45,6 +45,7 @@ type Build struct {
 	Topology         Topology
 	VCC_V            float64 // signed collector rail
 	VEE_V            float64 // signed emitter rail (split supply)
+	Ground           Ground  // the rail that is 0 V; node voltages are given against it
 	VCCTol           float64 // supply tolerance as a fraction, applied to both rails
 	Resistors        [NumSlots]ResistorSpec
 	RBypass_Ohm      float64 // part of RE bypassed for AC (0..RE nominal); scales with RE
@@ -189,6 +190,7 @@ func (b *Build) resolveTCR(dev, tcr *[NumSlots]float64, vccFactor, temp_C float6
 	s := Stage{
 		Topology: b.Topology,
 		VCC_V:    b.VCC_V * vccFactor,
+		Ground:   b.Ground,
 		RL_Ohm:   b.RL_Ohm,
 	}
 	if b.Topology == SplitSupply {

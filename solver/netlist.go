@@ -11,8 +11,9 @@ import (
 // so the simulator evaluates the model exactly as Solve does (with
 // Newton tolerances tight enough to be a reference), and a
 // .control block that runs `op` and prints the node voltages and the
-// transistor's currents. Node names: vcc, vee, b, c, e; the transistor is
-// q1. A zero-ohm position becomes a 0 V source (a wire SPICE can measure).
+// transistor's currents. Node names: vcc, vee, b, c, e; node 0 is the
+// stage's ground (Stage.Ground), so v(b) v(c) v(e) are what Solve reports
+// and a meter reads; vcc is the other rail. The transistor is q1. A zero-ohm position becomes a 0 V source (a wire SPICE can measure).
 // The optional ICBO leakage becomes a current source ileak between
 // collector and base holding ICBO(tj_C) (SPICE does not scale it with
 // temperature). title must be one line; it is written as a comment.
@@ -24,32 +25,25 @@ func Netlist(s Stage, m Model, tj_C float64, title string) string {
 	}
 	fmt.Fprintf(&b, "* %s\n", title)
 	fmt.Fprintf(&b, "* %v %v stage, transistor at Tj = %s C; resistors at effective values\n", m.Polarity, s.Topology, num(tj_C))
-	fmt.Fprintf(&b, "vcc vcc 0 dc %s\n", num(s.VCC_V))
+	// Node 0 is the stage's ground and node vcc the other rail: with 0 V
+	// on the collector-side rail the collector side joins node 0 and the
+	// emitter side node vcc, which sits at the supply as a meter reads it.
+	fmt.Fprintf(&b, "vcc vcc 0 dc %s\n", num(s.Ground.Supply_V(s.VCC_V)))
 	if s.Topology == SplitSupply {
 		fmt.Fprintf(&b, "vee vee 0 dc %s\n", num(s.VEE_V))
 	}
 	r := &s.R_Ohm
-	res := func(sl Slot, n1, n2 string) {
+	if s.Ground == CollectorRailGround {
+		fmt.Fprintf(&b, "* 0 V on the collector-side rail: the emitter side is the supply node vcc\n")
+	}
+	for _, sl := range s.Topology.Slots() {
+		t1, t2, _ := s.Topology.Joins(sl)
+		n1, n2 := s.netNode(t1), s.netNode(t2)
 		if r[sl] == 0 {
 			fmt.Fprintf(&b, "v%s %s %s dc 0\n", sl, n1, n2)
-			return
+			continue
 		}
 		fmt.Fprintf(&b, "%s %s %s %s\n", sl, n1, n2, num(r[sl]))
-	}
-	switch s.Topology {
-	case Divider:
-		res(R1, "vcc", "b")
-		res(R2, "b", "0")
-		res(RC, "vcc", "c")
-		res(RE, "e", "0")
-	case CollectorFeedback:
-		res(RF, "c", "b")
-		res(RC, "vcc", "c")
-		res(RE, "e", "0")
-	case SplitSupply:
-		res(RB, "b", "0")
-		res(RC, "vcc", "c")
-		res(RE, "e", "vee")
 	}
 	typ := "npn"
 	if m.Polarity == PNP {
@@ -76,6 +70,32 @@ func Netlist(s Stage, m Model, tj_C float64, title string) string {
 	fmt.Fprintf(&b, ".options tnom=%s temp=%s reltol=1e-9 vntol=1e-12 abstol=1e-18\n", num(m.TNOM_C), num(tj_C))
 	b.WriteString(".control\nop\nprint v(b) v(c) v(e) @q1[ic] @q1[ib] @q1[p]\n.endc\n.end\n")
 	return b.String()
+}
+
+// netNode is the deck's node of terminal t: node 0 is the stage's ground
+// and node vcc the other rail of a single supply.
+func (s Stage) netNode(t Terminal) string {
+	switch t {
+	case BaseLead:
+		return "b"
+	case CollectorLead:
+		return "c"
+	case EmitterLead:
+		return "e"
+	case CollectorRail:
+		if s.Ground == CollectorRailGround {
+			return "0"
+		}
+		return "vcc"
+	case EmitterRail:
+		switch {
+		case s.Topology == SplitSupply:
+			return "vee"
+		case s.Ground == CollectorRailGround:
+			return "vcc"
+		}
+	}
+	return "0"
 }
 
 // num writes a float with full precision in SPICE syntax.

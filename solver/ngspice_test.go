@@ -97,7 +97,9 @@ func randomCircuits(n int) []refCircuit {
 	return out
 }
 
-// TestSolveAgainstNgspice solves every generated circuit, NPN and PNP, at
+// TestSolveAgainstNgspice solves every generated circuit, NPN and PNP (a
+// single-supply PNP stage also on a positive supply, 0 V on its
+// collector-side rail), at
 // −20, 25 and 85 °C and holds each against an ngspice op run of the deck
 // Netlist writes. Tolerances (from the task): node voltages within 1 mV or
 // 0.1 %, IC within 0.1 %.
@@ -116,16 +118,28 @@ func TestSolveAgainstNgspice(t *testing.T) {
 	vectors := []string{"v(b)", "v(c)", "v(e)", "@q1[ic]", "@q1[ib]"}
 	for _, c := range append(refCircuits(), randomCircuits(30)...) {
 		ps, pm := mirror(c.s, c.m)
-		for _, v := range []struct {
+		variants := []struct {
 			s solver.Stage
 			m solver.Model
-		}{{c.s, c.m}, {ps, pm}} {
+		}{{c.s, c.m}, {ps, pm}}
+		if c.s.Topology != solver.SplitSupply {
+			// The PNP stage on a positive supply: the same circuit with
+			// 0 V on the collector-side rail, so every node reads |VCC|
+			// higher; ngspice solves the deck grounded there.
+			pos := ps
+			pos.Ground = solver.CollectorRailGround
+			variants = append(variants, struct {
+				s solver.Stage
+				m solver.Model
+			}{pos, pm})
+		}
+		for _, v := range variants {
 			for _, tj := range temps {
 				op, err := solver.Solve(v.s, v.m, tj)
 				if err != nil {
 					t.Fatalf("%s %v %g °C: %v", c.name, v.m.Polarity, tj, err)
 				}
-				name := fmt.Sprintf("%s, %v, %g °C", c.name, v.m.Polarity, tj)
+				name := fmt.Sprintf("%s, %v %v, %g °C", c.name, v.m.Polarity, v.s.Ground, tj)
 				runs = append(runs, run{name, v.s, v.m, tj, op})
 				jobs = append(jobs, spicecheck.Job{Deck: solver.Netlist(v.s, v.m, tj, name), Vectors: vectors})
 			}
@@ -173,6 +187,7 @@ func TestSolveAgainstNgspice(t *testing.T) {
 		}
 		regions[r.op.Region]++
 		covered[fmt.Sprintf("%v %v %g", r.s.Topology, r.m.Polarity, r.tj)]++
+		covered[fmt.Sprintf("%v %v %v %g", r.s.Topology, r.m.Polarity, r.s.Ground, r.tj)]++
 		compared++
 	}
 	t.Logf("ngspice: %d circuits compared in %v (regions: %d active, %d saturation, %d cutoff); largest differences: node %.2g V, IC %.2g relative (outside cutoff)",
@@ -186,6 +201,13 @@ func TestSolveAgainstNgspice(t *testing.T) {
 				if covered[fmt.Sprintf("%v %v %g", top, pol, tj)] == 0 {
 					t.Errorf("no %v %v circuit compared at %g °C", top, pol, tj)
 				}
+			}
+		}
+	}
+	for _, top := range []solver.Topology{solver.Divider, solver.CollectorFeedback} {
+		for _, tj := range temps {
+			if covered[fmt.Sprintf("%v %v %v %g", top, solver.PNP, solver.CollectorRailGround, tj)] == 0 {
+				t.Errorf("no %v PNP stage on a positive supply compared at %g °C", top, tj)
 			}
 		}
 	}

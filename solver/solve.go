@@ -361,15 +361,16 @@ func transistorPower(ib, ic, vb, vc, ve float64) float64 {
 }
 
 // assemble fills an OperatingPoint from the terminal currents and node
-// voltages of the mirrored-NPN frame.
+// voltages of the mirrored-NPN frame; the node voltages leave it against
+// the stage's ground.
 func (ck *circuit) assemble(s Stage, ib, ic, vb, vc, ve, sg float64) OperatingPoint {
 	op := OperatingPoint{
 		IB_A:  ib,
 		IC_A:  ic,
 		IE_A:  ib + ic,
-		VB_V:  vb * sg,
-		VC_V:  vc * sg,
-		VE_V:  ve * sg,
+		VB_V:  s.Ground.Meter(vb*sg, s.VCC_V),
+		VC_V:  s.Ground.Meter(vc*sg, s.VCC_V),
+		VE_V:  s.Ground.Meter(ve*sg, s.VCC_V),
 		VCE_V: vc - ve,
 		VBE_V: vb - ve,
 	}

@@ -7,18 +7,21 @@ import (
 
 // Stage is one bias circuit with effective resistor values (after any
 // tolerance and TCR). Rails are signed: VCC_V > 0 for NPN and < 0 for PNP;
-// VEE_V (split supply only) < 0 for NPN and > 0 for PNP.
+// VEE_V (split supply only) < 0 for NPN and > 0 for PNP. Ground says
+// which rail is the circuit's 0 V; node voltages in results are given
+// against it (ground.go).
 type Stage struct {
 	Topology    Topology
 	VCC_V       float64
 	VEE_V       float64
+	Ground      Ground
 	R_Ohm       [NumSlots]float64 // unused slots are ignored
 	RBypass_Ohm float64           // part of RE bypassed for AC (0..RE)
 	RL_Ohm      float64           // AC load on the collector; 0 = none
 }
 
 // OperatingPoint is a solved DC operating point. Node voltages are signed,
-// relative to ground. Currents, VCE_V and VBE_V are forward-referenced: for
+// relative to the stage's ground (Stage.Ground): what a meter shows. Currents, VCE_V and VBE_V are forward-referenced: for
 // an NPN IC flows into the collector and VCE = VC-VE; for a PNP IC flows out
 // of the collector and VCE = VE-VC. So both are positive in the active
 // region for either polarity.
@@ -53,6 +56,12 @@ func (s Stage) Validate(p Polarity) error {
 			want = "< 0"
 		}
 		return &InputError{Field: "vcc", Problem: fmt.Sprintf("%g V: a %s stage needs vcc %s", s.VCC_V, p, want)}
+	}
+	switch {
+	case s.Ground != EmitterRailGround && s.Ground != CollectorRailGround:
+		return &InputError{Field: "ground", Problem: fmt.Sprintf("%v: want emitter-rail or collector-rail", s.Ground)}
+	case s.Ground == CollectorRailGround && s.Topology == SplitSupply:
+		return &InputError{Field: "ground", Problem: "a split-supply stage is measured from the common of its two supplies, not from its collector rail"}
 	}
 	nonNeg := func(sl Slot) error {
 		v := s.R_Ohm[sl]

@@ -64,7 +64,10 @@ func InferQPoint(b solver.Build, pol solver.Polarity, r fault.Readings, mt fault
 		sg = -1
 	}
 	acc := func(v float64) float64 { return mt.Accuracy_V(v) }
-	vb, ve, vc := sg*r.VB_V, sg*r.VE_V, sg*r.VC_V
+	// The readings are against the stage's ground; the network below is
+	// written in the mirrored frame with 0 V on the emitter-side rail.
+	node := func(v float64) float64 { return sg * s.Ground.Node(v, s.VCC_V) }
+	vb, ve, vc := node(r.VB_V), node(r.VE_V), node(r.VC_V)
 	vcc, vee := sg*b.VCC_V, 0.0
 	if b.Topology == solver.SplitSupply {
 		vee = sg * b.VEE_V
@@ -82,6 +85,13 @@ func InferQPoint(b solver.Build, pol solver.Polarity, r fault.Readings, mt fault
 	}
 	dvcc := math.Abs(b.VCC_V) * b.VCCTol
 	dvee := math.Abs(b.VEE_V) * b.VCCTol
+	// The supply tolerance sits on the rail that is not 0 V: dcr on the
+	// collector-side rail, der on the emitter-side rail (a PNP stage on
+	// a positive supply, whose readings are taken from the collector side).
+	dcr, der := dvcc, 0.0
+	if s.Ground == solver.CollectorRailGround {
+		dcr, der = 0, dvcc
+	}
 	spec := func(sl solver.Slot) (float64, float64) {
 		return b.Resistors[sl].Nominal_Ohm, b.Resistors[sl].Tol
 	}
@@ -107,7 +117,7 @@ func InferQPoint(b solver.Build, pol solver.Polarity, r fault.Readings, mt fault
 	ibKnown := true
 	switch b.Topology {
 	case solver.Divider:
-		ib = sub(current(vcc-vb, dvcc+dvb, solver.R1), current(vb, dvb, solver.R2))
+		ib = sub(current(vcc-vb, dcr+dvb, solver.R1), current(vb, dvb+der, solver.R2))
 	case solver.CollectorFeedback:
 		ib = current(vc-vb, dvc+dvb, solver.RF)
 	case solver.SplitSupply:
@@ -118,14 +128,14 @@ func InferQPoint(b solver.Build, pol solver.Polarity, r fault.Readings, mt fault
 		}
 	}
 	if rc, _ := spec(solver.RC); rc > 0 {
-		in.FromRC, in.HasFromRC = current(vcc-vc, dvcc+dvc, solver.RC), true
+		in.FromRC, in.HasFromRC = current(vcc-vc, dcr+dvc, solver.RC), true
 		if b.Topology == solver.CollectorFeedback {
 			in.FromRC = sub(in.FromRC, ib)
 		}
 	}
 	var ie Estimate
 	if re, _ := spec(solver.RE); re > 0 {
-		ie = current(ve-vee, dve+dvee, solver.RE)
+		ie = current(ve-vee, dve+dvee+der, solver.RE)
 		in.HasFromRE = true
 	}
 	// The base current lies within 0..IE/(1 + hFE min) whatever the

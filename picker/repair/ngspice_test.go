@@ -40,6 +40,8 @@ func TestSubstituteAgainstNgspice(t *testing.T) {
 	orig := npnSheet("ORIG-1", 100, 160, 0.65)
 	origP := pnpSheet("ORIG-P", 80, 250, 0.7)
 	pnpDiv := dividerBuild(-9)
+	pnpPos := pnpDiv
+	pnpPos.Ground = solver.CollectorRailGround
 	type run struct {
 		name string
 		req  repair.SubstituteRequest
@@ -50,6 +52,7 @@ func TestSubstituteAgainstNgspice(t *testing.T) {
 		{"feedback", repair.SubstituteRequest{Build: feedbackBuild(), Polarity: solver.NPN, Original: &orig, Stock: bench(), Pairs: true}},
 		{"divider", repair.SubstituteRequest{Build: dividerBuild(12), Polarity: solver.NPN, Original: &orig, Stock: bench()}},
 		{"pnp divider", repair.SubstituteRequest{Build: pnpDiv, Polarity: solver.PNP, Original: &origP, Stock: bench()}},
+		{"pnp divider on a positive supply", repair.SubstituteRequest{Build: pnpPos, Polarity: solver.PNP, Original: &origP, Stock: bench()}},
 	} {
 		out, err := repair.Substitute(r.req)
 		if err != nil {
@@ -107,6 +110,8 @@ func TestInferAgainstNgspice(t *testing.T) {
 	split.Resistors[solver.RE] = solver.ResistorSpec{Nominal_Ohm: 10e3, Tol: 0.05}
 	splitP := split
 	splitP.VCC_V, splitP.VEE_V = -15, 15
+	pnpPos := dividerBuild(-9) // on a positive supply: 0 V on its collector side, readings positive
+	pnpPos.Ground = solver.CollectorRailGround
 	fbRE := feedbackBuild()
 	fbRE.Resistors[solver.RE] = solver.ResistorSpec{Nominal_Ohm: 470, Tol: 0.05}
 	cases := []struct {
@@ -117,6 +122,7 @@ func TestInferAgainstNgspice(t *testing.T) {
 	}{
 		{"npn divider", dividerBuild(12), npnSheet("A", 100, 300, 0.65), 150},
 		{"pnp divider", dividerBuild(-9), pnpSheet("B", 100, 300, 0.7), 250},
+		{"pnp divider on a positive supply", pnpPos, pnpSheet("B", 100, 300, 0.7), 250},
 		{"npn feedback, no RE", feedbackBuild(), npnSheet("C", 100, 300, 0.65), 120},
 		{"npn feedback with RE", fbRE, npnSheet("D", 100, 300, 0.62), 280},
 		{"npn split supply", split, npnSheet("E", 50, 300, 0.65), 60},

@@ -200,7 +200,7 @@ func fitOne(s solver.Stage, base solver.Model, d solver.Datasheet, r Readings, s
 	c.Predicted = Readings{VB_V: pred[0], VE_V: pred[1], VC_V: pred[2]}
 	nw := newNetwork(s, m, benchTemp_C, flt, 0, 0)
 	if st, err := nw.solve(nil); err == nil {
-		c.Point = nw.point(&st, m.Polarity)
+		c.Point = nw.point(&st)
 	}
 	return c
 }

@@ -89,10 +89,6 @@ func (f *fitter) params(u []float64) (Fault, solver.Model, float64, float64) {
 func (f *fitter) predict(u []float64) ([3]float64, bool) {
 	flt, m, _, _ := f.params(u)
 	var out [3]float64
-	sg := 1.0
-	if m.Polarity == solver.PNP {
-		sg = -1
-	}
 	for i, p := range probes {
 		nw := newNetwork(f.s, m, benchTemp_C, flt, p, f.mt.Input_Ohm)
 		st, err := nw.solve(f.warm[i])
@@ -103,7 +99,7 @@ func (f *fitter) predict(u []float64) ([3]float64, bool) {
 			}
 		}
 		f.warm[i] = &st
-		out[i] = sg * st.v[p]
+		out[i] = nw.reading(&st, p)
 	}
 	return out, true
 }

@@ -61,7 +61,8 @@ func (m Meter) Validate() error {
 // Accuracy_V is the meter's accuracy at reading v: Fraction·|v| + Offset_V.
 func (m Meter) Accuracy_V(v float64) float64 { return m.Fraction*math.Abs(v) + m.Offset_V }
 
-// Readings are the three node voltages measured to ground, signed.
+// Readings are the three node voltages measured to the stage's ground
+// (solver.Stage.Ground), signed as the meter shows them.
 type Readings struct {
 	VB_V, VE_V, VC_V float64
 }
@@ -85,7 +86,9 @@ func (e *ReadingError) Error() string { return e.Reading + ": " + e.Problem }
 // than the meter's accuracy: no fault of a passive network can put a node
 // beyond its supplies. mt must have its defaults applied.
 func CheckRails(s solver.Stage, r Readings, mt Meter) error {
-	lo, hi := min(0, s.VCC_V), max(0, s.VCC_V)
+	// The two rails as a meter reads them against the stage's ground.
+	top, bottom := s.Ground.Meter(s.VCC_V, s.VCC_V), s.Ground.Meter(0, s.VCC_V)
+	lo, hi := min(top, bottom), max(top, bottom)
 	if s.Topology == solver.SplitSupply {
 		lo, hi = min(lo, s.VEE_V), max(hi, s.VEE_V)
 	}

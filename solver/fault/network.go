@@ -60,43 +60,41 @@ type junctions struct {
 // meter's input resistance on one node (or none).
 type network struct {
 	rail       [firstUnknown]float64
+	sg         float64       // +1 NPN, −1 PNP: back from the mirrored frame
+	ground     solver.Ground // the stage's 0 V, where the meter's black lead goes
+	vcc        float64       // the stage's signed collector rail
 	elems      []element
 	tc, tb, te node
 	unknowns   int // 3, or 4 when nX is used
 	q          junctions
 }
 
-// slotNodes returns where resistor slot sl sits in topology t.
+// slotNodes returns where resistor slot sl sits in topology t
+// (solver.Topology.Joins), in the mirrored frame's nodes: nGnd is the
+// emitter-side rail of a single supply and the common of a split one.
 func slotNodes(t solver.Topology, sl solver.Slot) (a, b node, ok bool) {
-	switch t {
-	case solver.Divider:
-		switch sl {
-		case solver.R1:
-			return nVCC, nB, true
-		case solver.R2:
-			return nB, nGnd, true
-		}
-	case solver.CollectorFeedback:
-		if sl == solver.RF {
-			return nC, nB, true
-		}
-	case solver.SplitSupply:
-		switch sl {
-		case solver.RB:
-			return nB, nGnd, true
-		case solver.RE:
-			return nE, nVEE, true
-		}
+	t1, t2, ok := t.Joins(sl)
+	if !ok {
+		return 0, 0, false
 	}
-	switch sl {
-	case solver.RC:
-		return nVCC, nC, true
-	case solver.RE:
-		if t != solver.SplitSupply {
-			return nE, nGnd, true
+	at := func(p solver.Terminal) node {
+		switch p {
+		case solver.BaseLead:
+			return nB
+		case solver.CollectorLead:
+			return nC
+		case solver.EmitterLead:
+			return nE
+		case solver.CollectorRail:
+			return nVCC
+		case solver.EmitterRail:
+			if t == solver.SplitSupply {
+				return nVEE
+			}
 		}
+		return nGnd
 	}
-	return 0, 0, false
+	return at(t1), at(t2), true
 }
 
 // newNetwork builds the network of stage s (marked values) with fault f
@@ -107,7 +105,7 @@ func newNetwork(s solver.Stage, m solver.Model, temp_C float64, f Fault, meter n
 	if m.Polarity == solver.PNP {
 		sg = -1
 	}
-	nw := network{tc: nC, tb: nB, te: nE, unknowns: 3}
+	nw := network{tc: nC, tb: nB, te: nE, unknowns: 3, sg: sg, ground: s.Ground, vcc: s.VCC_V}
 	nw.rail[nVCC] = sg * s.VCC_V
 	nw.rail[nVEE] = sg * s.VEE_V
 	for _, sl := range s.Topology.Slots() {
@@ -148,7 +146,11 @@ func newNetwork(s solver.Stage, m solver.Model, temp_C float64, f Fault, meter n
 		}
 	}
 	if meter >= firstUnknown {
-		nw.elems = append(nw.elems, element{meter, nGnd, 1 / meterOhm})
+		black := nGnd
+		if s.Ground == solver.CollectorRailGround {
+			black = nVCC
+		}
+		nw.elems = append(nw.elems, element{meter, black, 1 / meterOhm})
 	}
 	is, bf, br, leak := m.At(temp_C)
 	vt := solver.ThermalVoltage_V(temp_C)
@@ -309,7 +311,8 @@ func gauss(a *[4][5]float64, n int) ([4]float64, bool) {
 	return x, true
 }
 
-// Point is a solved faulty stage: signed node voltages and the
+// Point is a solved faulty stage: node voltages against the stage's
+// ground (as a meter shows them) and the
 // forward-referenced collector and base currents (package solver's
 // conventions).
 type Point struct {
@@ -317,14 +320,17 @@ type Point struct {
 	IC_A, IB_A       float64
 }
 
-// point reads a state back into the stage's own polarity.
-func (nw *network) point(st *state, pol solver.Polarity) Point {
-	sg := 1.0
-	if pol == solver.PNP {
-		sg = -1
-	}
+// point reads a state back into the stage's own polarity, the node
+// voltages against the stage's ground.
+func (nw *network) point(st *state) Point {
 	ic, ib, _, _, _, _ := nw.q.currents(st.v[nw.tb]-st.v[nw.te], st.v[nw.tb]-st.v[nw.tc])
-	return Point{VB_V: sg * st.v[nB], VE_V: sg * st.v[nE], VC_V: sg * st.v[nC], IC_A: ic, IB_A: ib}
+	return Point{VB_V: nw.reading(st, nB), VE_V: nw.reading(st, nE), VC_V: nw.reading(st, nC), IC_A: ic, IB_A: ib}
+}
+
+// reading is node n of a state as a meter shows it against the stage's
+// ground (solver.Ground.Meter).
+func (nw *network) reading(st *state, n node) float64 {
+	return nw.ground.Meter(nw.sg*st.v[n], nw.vcc)
 }
 
 // Solve returns the operating point of stage s (marked values) with fault f
@@ -338,7 +344,7 @@ func Solve(s solver.Stage, m solver.Model, temp_C float64, f Fault) (Point, erro
 	if err != nil {
 		return Point{}, fmt.Errorf("%v %v: %w", f.Position, f.Kind, err)
 	}
-	return nw.point(&st, m.Polarity), nil
+	return nw.point(&st), nil
 }
 
 // checkInput validates the stage, the model and the fault's values.

@@ -45,13 +45,22 @@ func faultDeck(c injected) string {
 	s, w := c.s, c.want
 	var b strings.Builder
 	fmt.Fprintf(&b, "* injected fault: %s\n", c.name)
-	fmt.Fprintf(&b, "vcc vcc 0 dc %.12g\n", s.VCC_V)
-	vee := "0"
+	// cr and er are the collector-side and emitter-side rails: node 0 is
+	// the emitter side, or the collector side for a stage grounded there
+	// (a PNP stage on a positive supply: the emitter side sits at |VCC|).
+	cr, er := "vcc", "0"
+	if s.Ground == solver.CollectorRailGround {
+		cr, er = "0", "vs"
+		fmt.Fprintf(&b, "vs vs 0 dc %.12g\n", -s.VCC_V)
+	} else {
+		fmt.Fprintf(&b, "vcc vcc 0 dc %.12g\n", s.VCC_V)
+	}
+	vee := er
 	if s.Topology == solver.SplitSupply {
 		fmt.Fprintf(&b, "vee vee 0 dc %.12g\n", s.VEE_V)
 		vee = "vee"
 	}
-	b.WriteString(".subckt stage vcc vee b c e\n")
+	b.WriteString(".subckt stage vcc er vee b c e\n")
 	res := func(sl solver.Slot, n1, n2 string) {
 		r := s.R_Ohm[sl]
 		if p, ok := w.Position.Slot(); ok && p == sl {
@@ -73,11 +82,11 @@ func faultDeck(c injected) string {
 	switch s.Topology {
 	case solver.Divider:
 		res(solver.R1, "vcc", "b")
-		res(solver.R2, "b", "0")
-		res(solver.RE, "e", "0")
+		res(solver.R2, "b", "er")
+		res(solver.RE, "e", "er")
 	case solver.CollectorFeedback:
 		res(solver.RF, "c", "b")
-		res(solver.RE, "e", "0")
+		res(solver.RE, "e", "er")
 	case solver.SplitSupply:
 		res(solver.RB, "b", "0")
 		res(solver.RE, "e", "vee")
@@ -112,7 +121,7 @@ func faultDeck(c injected) string {
 		for k := range nodes {
 			nodes[k] = fmt.Sprintf("%s%d", k, i)
 		}
-		fmt.Fprintf(&b, "x%d vcc %s %s %s %s stage\n", i, vee, nodes["b"], nodes["c"], nodes["e"])
+		fmt.Fprintf(&b, "x%d %s %s %s %s %s %s stage\n", i, cr, er, vee, nodes["b"], nodes["c"], nodes["e"])
 		fmt.Fprintf(&b, "rmeter%d %s 0 10meg\n", i, nodes[probe])
 	}
 	hfe := c.hfe
@@ -151,6 +160,10 @@ func injectedFaults() []injected {
 	divP := stageOf(solver.Divider, -9, 0, R{solver.R1: 33e3, solver.R2: 10e3, solver.RC: 2.2e3, solver.RE: 820})
 	fb := stageOf(solver.CollectorFeedback, 15, 0, R{solver.RF: 330e3, solver.RC: 4.7e3, solver.RE: 470})
 	split := stageOf(solver.SplitSupply, 12, -12, R{solver.RB: 22e3, solver.RC: 5.6e3, solver.RE: 10e3})
+	divPos := divP // the same PNP stage on a positive supply: 0 V on its collector side
+	divPos.Ground = solver.CollectorRailGround
+	fbPos := stageOf(solver.CollectorFeedback, -12, 0, R{solver.RF: 220e3, solver.RC: 3.3e3, solver.RE: 680})
+	fbPos.Ground = solver.CollectorRailGround
 	splitP := stageOf(solver.SplitSupply, -15, 15, R{solver.RB: 47e3, solver.RC: 6.8e3, solver.RE: 12e3})
 	at := fault.ResistorAt
 	q := fault.Transistor
@@ -166,6 +179,9 @@ func injectedFaults() []injected {
 		{"divider, base-emitter short", div, npn, 400, 0, fault.Fault{Position: q, Kind: fault.BEShort}},
 		{"pnp divider, R1 shorted", divP, pnp, 160, 0.01, fault.Fault{Position: at(solver.R1), Kind: fault.Short}},
 		{"pnp divider, collector junction open", divP, pnp, 200, 0, fault.Fault{Position: q, Kind: fault.BCOpen}},
+		{"pnp divider on a positive supply, R2 open", divPos, pnp, 180, 0, fault.Fault{Position: at(solver.R2), Kind: fault.Open}},
+		{"pnp divider on a positive supply, RE drifted 820 to 2.2k", divPos, pnp, 220, 0.01, fault.Fault{Position: at(solver.RE), Kind: fault.Drift, Ohm: 2.2e3}},
+		{"pnp collector feedback on a positive supply, RC open", fbPos, pnp, 150, 0, fault.Fault{Position: at(solver.RC), Kind: fault.Open}},
 		{"collector feedback, RF open", fb, npn, 300, 0, fault.Fault{Position: at(solver.RF), Kind: fault.Open}},
 		{"collector feedback, 40 µA collector-base leakage", fb, npn, 200, 0, fault.Fault{Position: q, Kind: fault.Leak, Leak_A: 40e-6}},
 		{"split supply, hFE fallen to 8", split, npn, 200, 0, fault.Fault{Position: q, Kind: fault.LowHFE, HFE: 8}},
