@@ -131,6 +131,14 @@ type settings struct {
 	rl          float64
 }
 
+// SettledRail is the rail req's single-supply builds are built on
+// (solver.SettleRail: the zero value becomes the positive rail): what a
+// front end shows beside the builds.
+func (req Request) SettledRail() (solver.RailSign, error) {
+	s, err := normalize(req)
+	return s.rail, err
+}
+
 // normalize validates req and fills its defaults.
 func normalize(req Request) (settings, error) {
 	s := settings{req: req}

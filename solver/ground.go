@@ -134,7 +134,8 @@ func ParseRailSign(s string) (RailSign, error) {
 // whose supply is given as vcc (a magnitude, or signed as a meter shows it
 // against 0 V) and built on r. RailFromSupply becomes NegativeRail for a
 // negative vcc and PositiveRail otherwise; a stated rail must agree with a
-// signed vcc. The NPN stage is built on a positive supply only. A
+// signed vcc. The NPN stage is built on a positive supply only (Rail
+// refuses its supply given negative). A
 // split-supply stage is measured from the common of its two supplies, so
 // it takes no stated rail (its rails carry their own signs) and settles
 // on SplitRails; any other t (a search over every topology) settles as a
@@ -155,10 +156,7 @@ func SettleRail(vcc float64, p Polarity, t Topology, r RailSign) (RailSign, erro
 			"the negative rail is for a PNP stage"}
 	case r == PositiveRail && vcc < 0:
 		return 0, &InputError{Field: "vcc", Problem: fmt.Sprintf("%g V on a positive rail: give the supply as %g V, or build on a negative rail", vcc, math.Abs(vcc))}
-	case r == RailFromSupply && vcc < 0:
-		if p == NPN {
-			return 0, &InputError{Field: "vcc", Problem: fmt.Sprintf("%g V: an NPN stage is built on a positive supply; give the magnitude %g V", vcc, math.Abs(vcc))}
-		}
+	case r == RailFromSupply && vcc < 0 && p == PNP:
 		return NegativeRail, nil
 	case r == RailFromSupply:
 		return PositiveRail, nil

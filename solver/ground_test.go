@@ -24,7 +24,7 @@ func TestSettleRail(t *testing.T) {
 		{"npn magnitude", 12, NPN, Divider, RailFromSupply, PositiveRail, EmitterRailGround, ""},
 		{"npn stated positive", 12, NPN, Divider, PositiveRail, PositiveRail, EmitterRailGround, ""},
 		{"npn negative refused", 12, NPN, Divider, NegativeRail, 0, 0, "rail"},
-		{"npn negative supply refused", -12, NPN, Divider, RailFromSupply, 0, 0, "vcc"},
+		{"npn negative supply: positive, Rail refuses the sign", -12, NPN, Divider, RailFromSupply, PositiveRail, EmitterRailGround, ""},
 		{"pnp magnitude: positive, the usual build", 5, PNP, Divider, RailFromSupply, PositiveRail, CollectorRailGround, ""},
 		{"pnp feedback on a positive supply", 5, PNP, CollectorFeedback, RailFromSupply, PositiveRail, CollectorRailGround, ""},
 		{"pnp given negative: negative rail", -5, PNP, Divider, RailFromSupply, NegativeRail, EmitterRailGround, ""},

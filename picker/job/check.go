@@ -64,6 +64,8 @@ type Analysis struct {
 	Sensitivity *solver.Sensitivity
 	// TestPoints are VB, VE and VC with their worst-case bands.
 	TestPoints []TestPoint
+	// Joins are the fitted resistors with what each joins.
+	Joins []Join
 	// Safety lists the build's hard limits and cautions in the order of
 	// severity (solver/safety): what the front ends show. Verdict reads
 	// them: the build fails when any is a hard limit.
@@ -130,6 +132,7 @@ func Check(req CheckRequest) (*Analysis, error) {
 		a.Sensitivity = &s
 	}
 	a.TestPoints = TestPoints(a.Nominal, a.Worst)
+	a.Joins = Joins(b)
 	a.Safety = safety.Assess(safety.Input{Build: b, Nominal: a.Nominal, Worst: a.Worst, Limits: a.Limits})
 	a.Verdict = safety.VerdictOf(a.Safety)
 	a.Cautions = a.cautions()

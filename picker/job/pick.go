@@ -32,6 +32,8 @@ func (b Build) FitsTarget() bool { return b.Fits() && b.OnTarget }
 
 // PickOutcome is one pick: the builds to show and what explains them.
 type PickOutcome struct {
+	// Request is the request as asked, its Rail settled
+	// (picker.Request.SettledRail).
 	Request picker.Request
 	// Boards is the number of boards the request builds (at least one).
 	Boards int
@@ -81,6 +83,9 @@ func Pick(stock picker.Stock, req picker.Request, search Search) (*PickOutcome, 
 	}
 	res, err := search(stock, req)
 	if err != nil {
+		return nil, err
+	}
+	if req.Rail, err = req.SettledRail(); err != nil {
 		return nil, err
 	}
 	o := &PickOutcome{Request: req, Boards: max(1, req.Boards), Result: res, Fits: fits(res)}

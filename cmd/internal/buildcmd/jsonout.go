@@ -4,6 +4,7 @@ import (
 	"time"
 
 	"biasbin/cmd/internal/buildjob"
+	"biasbin/cmd/internal/report"
 	"biasbin/picker/job"
 	"biasbin/store"
 )
@@ -76,8 +77,9 @@ func cautionsJSON(cs []job.Caution) []jsonCaution {
 
 // jsonRequest is what the build was picked for, SI.
 type jsonRequest struct {
-	Polarity     string   `json:"polarity"`
-	VCC_V        float64  `json:"vcc_v"`
+	Polarity string  `json:"polarity"`
+	VCC_V    float64 `json:"vcc_v"` // the supply as a meter reads it against 0 V
+	report.Reference
 	VCCTol       float64  `json:"vcc_tol"`
 	IC_A         float64  `json:"ic_a"`
 	VCE_V        float64  `json:"vce_v,omitempty"`
@@ -123,7 +125,8 @@ func showJSON(v buildjob.View) jsonShow {
 	r := p.Request
 	out := jsonShow{ID: v.ID, Candidate: v.Candidate, State: string(v.State), Created: jsonTime(v.Created),
 		Ended: jsonTime(v.Ended), Note: v.Note, BoardCount: v.Boards,
-		Request: jsonRequest{Polarity: p.Build.Device.Polarity.String(), VCC_V: r.VCC_V, VCCTol: p.Build.VCCTol, IC_A: r.IC_A,
+		Request: jsonRequest{Polarity: p.Build.Device.Polarity.String(), VCC_V: p.Build.Ground.Supply_V(p.Build.VCC_V),
+			Reference: report.ReferenceOf(p.Build.Device.Polarity, p.Build.Topology, p.Build.Ground), VCCTol: p.Build.VCCTol, IC_A: r.IC_A,
 			VCE_V: r.VCE_V, AmbientMin_C: p.Build.AmbientMin_C, AmbientMax_C: p.Build.AmbientMax_C, Boards: max(1, r.Boards),
 			Pairs: r.Pairs, RequireTags: r.RequireTags, Load_Ohm: r.RL_Ohm, Bypass: r.Bypass},
 		Figures: p.Figures,

@@ -34,7 +34,8 @@ func newMeasureCmd(f *cmdutil.Factory, runF func(*MeasureOptions) error) *cobra.
 		Short: "Record a board's bring-up readings and judge them against the bands",
 		Long: `Record the DC voltages of board K of build ID, measured to ground with the
 board powered: VB at the base, VE at the emitter, VC at the collector
-(signed: negative on a PNP stage). Each is checked against its band (the
+(signed as the meter shows them against the 0 V the build sheet names:
+positive on a stage built on a positive supply, PNP too). Each is checked against its band (the
 worst case the build was picked with). When one lies outside, the stage is
 solved again with each single part faulty (open, shorted or off its value;
 the transistor's junctions open or shorted, leaking or low in hFE) and the

@@ -12,6 +12,7 @@ import (
 
 	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/report"
 	"biasbin/solver/notation"
 )
 
@@ -30,7 +31,7 @@ func newSheetCmd(f *cmdutil.Factory, runF func(*SheetOptions) error) *cobra.Comm
 		Short: "Print a build's pull list by bin and the test points of every board",
 		Long: `Print the pull sheet of build ID: the parts to pull, ordered by bin, with
 values and quantities for the whole run, and one row per board with the
-VB, VE and VC bands to expect (to ground) and, once measured, the readings
+VB, VE and VC bands to expect (to 0 V, the rail the sheet names) and, once measured, the readings
 and verdict.
 
 --format md (the default) prints Markdown tables ready to print; --format
@@ -84,6 +85,7 @@ func writeSheetMD(w io.Writer, v buildjob.View) {
 	p := v.Plan
 	fmt.Fprintf(w, "# Build %d: %d board%s of %s (%s)\n\n", v.ID, v.Boards, plural(v.Boards), v.Candidate, v.State)
 	fmt.Fprintf(w, "Picked for: %s.\n", mdCell(requestWords(p)))
+	fmt.Fprintf(w, "Stage: %s.\n", mdCell(stageWords(p)))
 	if v.Note != "" {
 		fmt.Fprintf(w, "Note: %s\n", mdCell(v.Note))
 	}
@@ -96,7 +98,8 @@ func writeSheetMD(w io.Writer, v buildjob.View) {
 		fmt.Fprintf(w, "| %s | %d | %s | %d | %d |\n", mdCell(binName(part.Bin)), part.Line, mdCell(partName(part)),
 			part.PerBoard, part.Taken)
 	}
-	fmt.Fprint(w, "\n## Test points, every board, to ground\n\nBands: worst case over hFE spread, tolerances, supply and ambient.\n\n")
+	fmt.Fprintf(w, "\n## Test points, every board, to 0 V at %s\n\nBands: worst case over hFE spread, tolerances, supply and ambient.\n\n",
+		report.ZeroV(p.Build.Topology, p.Build.Ground))
 	fmt.Fprintf(w, "| Board | VB %s | VE %s | VC %s | Verdict |\n|---:|---:|---:|---:|---|\n",
 		bandWords(p.Bands.VB), bandWords(p.Bands.VE), bandWords(p.Bands.VC))
 	for _, rd := range boardsOf(v) {

@@ -12,6 +12,9 @@ import (
 	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/picker"
+	"biasbin/cmd/internal/report"
+	"biasbin/picker/job"
+	"biasbin/solver"
 	"biasbin/solver/notation"
 )
 
@@ -85,23 +88,12 @@ func writeShow(w io.Writer, v buildjob.View) {
 	fmt.Fprintf(w, "as picked: IC %s (%s .. %s worst case), VCE %s (%s .. %s), yield %.1f %%\n",
 		notation.FormatCurrent(f.IC_A), notation.FormatCurrent(f.ICMin_A), notation.FormatCurrent(f.ICMax_A),
 		notation.FormatVoltage(f.VCE_V), notation.FormatVoltage(f.VCEMin_V), notation.FormatVoltage(f.VCEMax_V), 100*f.Yield)
-	var stage []string
-	for _, s := range p.Slots {
-		arr := ""
-		switch s.Arrangement {
-		case picker.Single:
-		case picker.Kept:
-			arr = " (kept on the board)"
-		default:
-			arr = " (" + s.Arrangement + " pair)"
-		}
-		stage = append(stage, fmt.Sprintf("%s %s%s", strings.ToUpper(s.Slot), notation.FormatResistance(s.Ohm), arr))
-	}
-	fmt.Fprintf(w, "stage: %s, transistor %s\n", strings.Join(stage, ", "), p.Build.Device.Label)
+	fmt.Fprintf(w, "stage: %s, transistor %s\n", stageWords(p), p.Build.Device.Label)
 	writeCautions(w, "", p.Cautions)
 	fmt.Fprintln(w, "\nparts by bin:")
 	writeParts(w, v)
-	fmt.Fprintln(w, "\ntest points per board, to ground (band: worst case over hFE spread, tolerances, supply, ambient):")
+	fmt.Fprintf(w, "\ntest points per board, to 0 V at %s (band: worst case over hFE spread, tolerances, supply, ambient):\n",
+		report.ZeroV(p.Build.Topology, p.Build.Ground))
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	for _, tp := range []struct {
 		name string
@@ -121,14 +113,37 @@ func writeShow(w io.Writer, v buildjob.View) {
 }
 
 // requestWords says what a build was picked for.
+// stageWords writes each resistor position with its value and what it
+// joins: "R1 51K (+V to base), RE 6K8‖6K8 parallel pair (emitter to 0 V)".
+func stageWords(p buildjob.Plan) string {
+	joins := map[string]string{}
+	for _, j := range job.Joins(p.Build) {
+		joins[j.Slot.String()] = report.Join(j)
+	}
+	var stage []string
+	for _, s := range p.Slots {
+		arr := ""
+		switch s.Arrangement {
+		case picker.Single:
+		case picker.Kept:
+			arr = " kept on the board"
+		default:
+			arr = " " + s.Arrangement + " pair"
+		}
+		stage = append(stage, fmt.Sprintf("%s %s%s (%s)", strings.ToUpper(s.Slot), notation.FormatResistance(s.Ohm), arr, joins[s.Slot]))
+	}
+	return strings.Join(stage, ", ")
+}
+
 func requestWords(p buildjob.Plan) string {
 	r, b := p.Request, p.Build
 	vce := "VCE for the largest swing"
 	if r.VCE_V != 0 {
 		vce = "VCE " + notation.FormatVoltage(r.VCE_V)
 	}
-	s := fmt.Sprintf("%s, VCC %s %s, IC %s, %s, ambient %s .. %s", strings.ToUpper(b.Device.Polarity.String()),
-		notation.FormatVoltage(b.VCC_V), notation.FormatTolerance(b.VCCTol), notation.FormatCurrent(r.IC_A), vce,
+	s := fmt.Sprintf("%s, VCC %s %s (%s), IC %s, %s, ambient %s .. %s", strings.ToUpper(b.Device.Polarity.String()),
+		notation.FormatVoltage(b.Ground.Supply_V(b.VCC_V)), notation.FormatTolerance(b.VCCTol),
+		report.Rail(b.Device.Polarity, solver.RailOf(b.Device.Polarity, b.Topology, b.Ground)), notation.FormatCurrent(r.IC_A), vce,
 		notation.FormatTemperature(b.AmbientMin_C), notation.FormatTemperature(b.AmbientMax_C))
 	if r.Pairs {
 		s += ", pairs allowed"

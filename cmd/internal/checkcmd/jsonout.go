@@ -14,11 +14,12 @@ import (
 // The JSON document of `check --json`. Units are SI base units, named in
 // every key; temperatures in °C.
 type jsonDoc struct {
-	Topology    string                  `json:"topology"`
-	Polarity    string                  `json:"polarity"`
-	Transistor  string                  `json:"transistor"`
-	VCC_V       float64                 `json:"vcc_v"`
-	VEE_V       float64                 `json:"vee_v,omitempty"`
+	Topology   string  `json:"topology"`
+	Polarity   string  `json:"polarity"`
+	Transistor string  `json:"transistor"`
+	VCC_V      float64 `json:"vcc_v"` // the supply as a meter reads it against 0 V
+	VEE_V      float64 `json:"vee_v,omitempty"`
+	report.Reference
 	VCCTol      float64                 `json:"vcc_tol"`
 	Ambient     jsonRange               `json:"ambient_c"`
 	Region      string                  `json:"region"`
@@ -75,16 +76,18 @@ type jsonNominal struct {
 }
 
 type jsonResistor struct {
-	Ohms          float64 `json:"ohms"`
-	Tol           float64 `json:"tol"`
-	TCR_PPMPerK   float64 `json:"tcr_ppm_per_k"`
-	Rated_W       float64 `json:"rated_w"`
-	EffectiveOhms float64 `json:"effective_ohms"` // at the nominal point, after TCR
-	Power_W       float64 `json:"power_w"`
-	Allowed_W     float64 `json:"allowed_w"`
-	Utilization   float64 `json:"utilization"`
-	WorstPower_W  float64 `json:"worst_power_w"`
-	WorstUtil     float64 `json:"worst_utilization"`
+	// Joins are the two points the resistor joins ("+v", "base").
+	Joins         [2]job.Point `json:"joins"`
+	Ohms          float64      `json:"ohms"`
+	Tol           float64      `json:"tol"`
+	TCR_PPMPerK   float64      `json:"tcr_ppm_per_k"`
+	Rated_W       float64      `json:"rated_w"`
+	EffectiveOhms float64      `json:"effective_ohms"` // at the nominal point, after TCR
+	Power_W       float64      `json:"power_w"`
+	Allowed_W     float64      `json:"allowed_w"`
+	Utilization   float64      `json:"utilization"`
+	WorstPower_W  float64      `json:"worst_power_w"`
+	WorstUtil     float64      `json:"worst_utilization"`
 }
 
 type jsonBand struct {
@@ -214,8 +217,9 @@ func jsonDocOf(r *job.Analysis) jsonDoc {
 		Topology:   b.Topology.String(),
 		Polarity:   b.Device.Polarity.String(),
 		Transistor: r.Request.Label,
-		VCC_V:      b.VCC_V,
+		VCC_V:      b.Ground.Supply_V(b.VCC_V),
 		VEE_V:      b.VEE_V,
+		Reference:  report.ReferenceOf(b.Device.Polarity, b.Topology, b.Ground),
 		VCCTol:     b.VCCTol,
 		Ambient:    jsonRange{b.AmbientMin_C, b.AmbientMax_C},
 		Region:     op.Region.String(),
@@ -242,13 +246,18 @@ func jsonDocOf(r *job.Analysis) jsonDoc {
 		Problems:    problems(r),
 	}
 	worst := r.WorstDissipation()
+	joins := map[solver.Slot][2]job.Point{}
+	for _, j := range r.Joins {
+		joins[j.Slot] = [2]job.Point{j.From, j.To}
+	}
 	for _, p := range r.Loads(r.NominalDissipation) {
 		if p.Part == job.PartQ1 {
 			continue
 		}
 		spec := b.Resistors[p.Slot]
 		doc.Resistors[p.Part] = jsonResistor{
-			Ohms: spec.Nominal_Ohm, Tol: spec.Tol, TCR_PPMPerK: spec.TCR_PPMPerK, Rated_W: spec.Rated_W,
+			Joins: joins[p.Slot],
+			Ohms:  spec.Nominal_Ohm, Tol: spec.Tol, TCR_PPMPerK: spec.TCR_PPMPerK, Rated_W: spec.Rated_W,
 			EffectiveOhms: r.Stage.R_Ohm[p.Slot], Power_W: p.Load.Power_W, Allowed_W: p.Load.Allowed_W,
 			Utilization: p.Load.Utilization, WorstPower_W: worst.Resistor[p.Slot].Power_W, WorstUtil: worst.Resistor[p.Slot].Utilization,
 		}
@@ -259,7 +268,7 @@ func jsonDocOf(r *job.Analysis) jsonDoc {
 	if wc := r.Worst; wc != nil {
 		for _, c := range wc.Corners {
 			jc := jsonCorner{
-				BF: c.BF, VBEOn_V: c.VBEOn_V, IS_A: c.IS_A, VAF_V: c.VAF_V, Temp_C: c.Temp_C, Tj_C: c.Tj_C, VCC_V: c.VCC_V, VEE_V: c.VEE_V, Ohms: map[string]float64{},
+				BF: c.BF, VBEOn_V: c.VBEOn_V, IS_A: c.IS_A, VAF_V: c.VAF_V, Temp_C: c.Temp_C, Tj_C: c.Tj_C, VCC_V: b.Ground.Supply_V(c.VCC_V), VEE_V: c.VEE_V, Ohms: map[string]float64{},
 				IC_A: c.OP.IC_A, IB_A: c.OP.IB_A, VCE_V: c.OP.VCE_V, VB_V: c.OP.VB_V, VC_V: c.OP.VC_V, VE_V: c.OP.VE_V,
 				Region: c.OP.Region.String(), PTrans_W: c.OP.PTransistor_W,
 			}

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"biasbin/cmd/internal/report"
 	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/solver/notation"
@@ -27,18 +28,17 @@ func writeText(w io.Writer, r *job.Analysis) {
 	op := r.Nominal
 
 	// Build.
-	fmt.Fprintf(w, "%s %s stage, VCC %s", d.Polarity, b.Topology, fV(b.VCC_V))
+	supply := b.Ground.Supply_V(b.VCC_V)
+	fmt.Fprintf(w, "%s %s stage, VCC %s", d.Polarity, b.Topology, fV(supply))
 	if b.Topology == solver.SplitSupply {
 		fmt.Fprintf(w, ", VEE %s", fV(b.VEE_V))
 	}
-	fmt.Fprintf(w, " ±%s (%s), ambient %s..%s\n", pct(b.VCCTol), supplyBand(b.VCC_V, b.VCCTol), fT(b.AmbientMin_C), fT(b.AmbientMax_C))
+	fmt.Fprintf(w, " ±%s (%s), ambient %s..%s\n", pct(b.VCCTol), supplyBand(supply, b.VCCTol), fT(b.AmbientMin_C), fT(b.AmbientMax_C))
+	fmt.Fprintf(w, "%s; every voltage against 0 V\n", report.Rail(d.Polarity, solver.RailOf(d.Polarity, b.Topology, b.Ground)))
 	var rs []string
-	for _, s := range b.Topology.Slots() {
-		spec := b.Resistors[s]
-		if spec.Nominal_Ohm == 0 {
-			continue
-		}
-		rs = append(rs, fmt.Sprintf("%s %s ±%s", strings.ToUpper(s.String()), fR(spec.Nominal_Ohm), pct(spec.Tol)))
+	for _, j := range r.Joins {
+		spec := b.Resistors[j.Slot]
+		rs = append(rs, fmt.Sprintf("%s %s ±%s (%s)", strings.ToUpper(j.Slot.String()), fR(spec.Nominal_Ohm), pct(spec.Tol), report.Join(j)))
 	}
 	fmt.Fprintf(w, "resistors: %s\n", strings.Join(rs, ", "))
 	name := "inline"
@@ -64,7 +64,7 @@ func writeText(w io.Writer, r *job.Analysis) {
 	}
 
 	// Test points.
-	fmt.Fprintln(w, "\nTest points (measure to ground)")
+	fmt.Fprintf(w, "\nTest points (measure to 0 V, %s)\n", report.ZeroV(b.Topology, b.Ground))
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "  node\tnominal\tworst-case band")
 	for _, tp := range r.TestPoints {

@@ -12,6 +12,7 @@ import (
 	"biasbin/cmd/internal/ledgercmd"
 	"biasbin/picker"
 	"biasbin/picker/job"
+	"biasbin/solver"
 	"biasbin/solver/fault"
 	"biasbin/store"
 )
@@ -41,9 +42,11 @@ board's VB, VE and VC (to ground) are recorded and judged against the bands.`)
 	buildcmd.WriteReserved(w, res)
 	b := res.Build.Plan.Bands
 	mid := func(bd buildjob.Band) float64 { return math.Round((bd.Min_V+bd.Max_V)/2*100) / 100 }
+	// The second board's collector sits at its rail, as the meter reads it.
+	rail, _ := res.Build.Plan.Build.NominalStage().RailVoltage_V(solver.CollectorRail)
 	boardReadings := []fault.Readings{
 		{VB_V: mid(b.VB), VE_V: mid(b.VE), VC_V: mid(b.VC)},
-		{VB_V: mid(b.VB), VE_V: mid(b.VE), VC_V: res.Build.Plan.Build.VCC_V},
+		{VB_V: mid(b.VB), VE_V: mid(b.VE), VC_V: rail},
 	}
 	for i, r := range boardReadings {
 		fmt.Fprintf(w, "\n$ biasbin build measure %d --board %d --vb %s --ve %s --vc %s\n", res.Build.ID, i+1,

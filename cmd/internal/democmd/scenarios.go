@@ -42,10 +42,14 @@ stocked parts in series or parallel to land closer.`,
 		},
 		{
 			title: "A 15 V PNP stage at 1 mA for a run of 30 boards",
-			story: `The PNP drawers hold 12 and 8 parts: not enough for 30 boards. pick says
-why nothing fits, shows the nearest builds and names what to buy.`,
+			story: `The PNP stage runs from the same positive supply as the rest of the board:
+emitter side to +15 V, collector side to 0 V, so every voltage reads
+positive on the meter and each resistor says what it joins (--rail negative
+builds it with the emitter side on 0 V instead). The PNP drawers hold 12
+and 8 parts: not enough for 30 boards. pick says why nothing fits, shows
+the nearest builds and names what to buy.`,
 			args: []string{"--vcc", "15V", "--ic", "1mA", "--polarity", "pnp", "--boards", "30", "--top", "1"},
-			req: picker.Request{Topology: solver.Divider, Polarity: solver.PNP, VCC_V: -15, VCCTol: 0.05, IC_A: 1e-3,
+			req: picker.Request{Topology: solver.Divider, Polarity: solver.PNP, VCC_V: -15, Rail: solver.PositiveRail, VCCTol: 0.05, IC_A: 1e-3,
 				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 30, Top: 1, Seed: 1},
 			nothingFits: true,
 		},

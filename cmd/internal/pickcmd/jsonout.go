@@ -31,10 +31,11 @@ type jsonResult struct {
 }
 
 type jsonRequest struct {
-	Topology     string   `json:"topology"`
-	Polarity     string   `json:"polarity"`
-	VCC_V        float64  `json:"vcc_v"`
-	VEE_V        float64  `json:"vee_v,omitempty"` // split supply: the emitter rail, signed
+	Topology string  `json:"topology"`
+	Polarity string  `json:"polarity"`
+	VCC_V    float64 `json:"vcc_v"`           // the supply as a meter reads it against 0 V
+	VEE_V    float64 `json:"vee_v,omitempty"` // split supply: the emitter rail, signed
+	report.Reference
 	VCCTol       float64  `json:"vcc_tol"`
 	IC_A         float64  `json:"ic_a"`
 	VCE_V        float64  `json:"vce_v"`    // 0 = the maximum-symmetrical-swing rule
@@ -76,24 +77,27 @@ type jsonRival struct {
 }
 
 type jsonCandidate struct {
-	ID              string                  `json:"id"`
-	Topology        string                  `json:"topology"`
-	Rank            int                     `json:"rank"`
-	Score           float64                 `json:"score"`
-	Terms           jsonTerms               `json:"terms"`
-	Transistor      jsonTransistor          `json:"transistor"`
-	Resistors       map[string]jsonPosition `json:"resistors"`
-	Nominal         jsonNominal             `json:"nominal"`
-	Worst           jsonWorst               `json:"worst"`
-	TestPoints      map[string]jsonBand     `json:"test_points"`
-	Yield           float64                 `json:"yield"`
-	YieldStdErr     float64                 `json:"yield_stderr"`
-	YieldBoards     int                     `json:"yield_boards"`
-	BetaSensitivity float64                 `json:"beta_sensitivity"`
-	MaxUtilization  float64                 `json:"max_utilization"`
-	Model           report.Model            `json:"model"`
-	Pull            []jsonPull              `json:"pull"`
-	Failing         []string                `json:"failing"`
+	ID         string                  `json:"id"`
+	Topology   string                  `json:"topology"`
+	Rank       int                     `json:"rank"`
+	Score      float64                 `json:"score"`
+	Terms      jsonTerms               `json:"terms"`
+	Transistor jsonTransistor          `json:"transistor"`
+	Resistors  map[string]jsonPosition `json:"resistors"`
+	// Joins names the two points each resistor joins ("+v", "base").
+	Joins map[string][2]job.Point `json:"joins"`
+	report.Reference
+	Nominal         jsonNominal         `json:"nominal"`
+	Worst           jsonWorst           `json:"worst"`
+	TestPoints      map[string]jsonBand `json:"test_points"`
+	Yield           float64             `json:"yield"`
+	YieldStdErr     float64             `json:"yield_stderr"`
+	YieldBoards     int                 `json:"yield_boards"`
+	BetaSensitivity float64             `json:"beta_sensitivity"`
+	MaxUtilization  float64             `json:"max_utilization"`
+	Model           report.Model        `json:"model"`
+	Pull            []jsonPull          `json:"pull"`
+	Failing         []string            `json:"failing"`
 	// UnknownRatings names the transistor ratings that matter but are not
 	// stated ("vceo", "dissipation", "ic_max"): the build is not known safe.
 	UnknownRatings []solver.Rating `json:"unknown_ratings"`
@@ -259,12 +263,14 @@ func jsonRequestOf(r picker.Request) jsonRequest {
 		keep = append(keep, jsonKept{Position: k.Position, Ohms: k.Ohm, Tol: spec.Tol, Rated_W: spec.Rated_W,
 			TCR_PPMPerK: spec.TCR_PPMPerK, Assumed: assumed})
 	}
+	g := solver.GroundOf(r.Polarity, r.Topology, r.Rail)
 	return jsonRequest{
 		Keep:         keep,
 		Topology:     topologyName(r.Topology),
 		Polarity:     r.Polarity.String(),
-		VCC_V:        r.VCC_V,
+		VCC_V:        g.Supply_V(r.VCC_V),
 		VEE_V:        r.VEE_V,
+		Reference:    report.ReferenceOf(r.Polarity, r.Topology, g),
 		VCCTol:       r.VCCTol,
 		IC_A:         r.IC_A,
 		VCE_V:        r.VCE_V,
@@ -300,6 +306,8 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 		},
 		Transistor: jsonTransistor{Label: c.Transistor.Sheet.Label, ID: c.Transistor.ID, Bin: c.Transistor.Bin},
 		Resistors:  map[string]jsonPosition{},
+		Joins:      report.JoinsJSON(job.Joins(c.Build)),
+		Reference:  report.ReferenceOf(c.Build.Device.Polarity, c.Build.Topology, c.Build.Ground),
 		Nominal: jsonNominal{
 			IC_A:  c.Nominal.IC_A,
 			IB_A:  c.Nominal.IB_A,

@@ -32,6 +32,7 @@ type Options struct {
 	Polarity    string
 	Topology    string
 	VEE         string
+	Rail        string // --rail: positive (default) or negative; "" = from the sign of --vcc
 	Ambient     string
 	Boards      int
 	Load        string

@@ -18,6 +18,7 @@ import (
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/picture"
 	"biasbin/cmd/internal/report"
+	"biasbin/cmd/internal/stageflags"
 	"biasbin/cmd/internal/stockparts"
 	"biasbin/picker"
 	"biasbin/picker/job"
@@ -125,7 +126,8 @@ can take their parts out of stock later.
 	}
 	fl := cmd.Flags()
 	o.Changed = fl.Changed
-	fl.StringVar(&o.VCC, "vcc", "", "supply voltage, e.g. 12V (a magnitude; the rail is negative for --polarity pnp), or the range it moves over, e.g. 7V..9.6V for a 9 V battery (then no --vcc-tol)")
+	fl.StringVar(&o.VCC, "vcc", "", "supply voltage, e.g. 12V (a magnitude; -12V builds a PNP stage on a negative rail, see --rail), or the range it moves over, e.g. 7V..9.6V for a 9 V battery (then no --vcc-tol)")
+	fl.StringVar(&o.Rail, "rail", "", stageflags.RailHelp)
 	fl.StringVar(&o.VCCTol, "vcc-tol", defaultVCCTol, "supply tolerance")
 	fl.StringVar(&o.IC, "ic", "", "target collector current, e.g. 2mA")
 	fl.StringVar(&o.VCE, "vce", "", "target VCE (default: the maximum-symmetrical-swing rule, see above)")

@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/cmd/internal/stageflags"
 	"biasbin/picker"
 	"biasbin/solver"
 	"biasbin/solver/notation"
@@ -35,6 +36,9 @@ func (o *Options) request() (picker.Request, error) {
 	vcc, vccTol, vccRange, err := notation.ParseSupply(o.VCC)
 	if err != nil {
 		return req, cmdutil.Usagef("--vcc: %v", err)
+	}
+	if req.Rail, err = stageflags.SettleRail(o.Rail, vcc, pol, top); err != nil {
+		return req, err
 	}
 	if req.VCC_V, err = solver.Rail(vcc, pol, solver.Collector); err != nil {
 		return req, requestError(err)

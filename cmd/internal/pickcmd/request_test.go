@@ -83,8 +83,23 @@ func TestFlags(t *testing.T) {
 			}
 		}},
 		{"pnp accepts a signed rail", []string{"--vcc", "-9V", "--ic", "1mA", "--polarity", "PNP"}, func(t *testing.T, r picker.Request) {
-			if !near(r.VCC_V, -9) {
-				t.Errorf("vcc %g, want -9", r.VCC_V)
+			if !near(r.VCC_V, -9) || r.Rail != solver.NegativeRail {
+				t.Errorf("vcc %g rail %v, want -9 on the negative rail (the sign as typed)", r.VCC_V, r.Rail)
+			}
+		}},
+		{"pnp on a positive supply by default", []string{"--vcc", "5V", "--ic", "1mA", "--polarity", "pnp"}, func(t *testing.T, r picker.Request) {
+			if r.Rail != solver.PositiveRail {
+				t.Errorf("rail %v, want positive (emitter side to +V, collector side to 0 V)", r.Rail)
+			}
+		}},
+		{"pnp on a stated negative rail", []string{"--vcc", "5V", "--ic", "1mA", "--polarity", "pnp", "--rail", "negative"}, func(t *testing.T, r picker.Request) {
+			if r.Rail != solver.NegativeRail || !near(r.VCC_V, -5) {
+				t.Errorf("rail %v vcc %g, want negative, -5", r.Rail, r.VCC_V)
+			}
+		}},
+		{"split supply from its common", []string{"--vcc", "9V", "--vee", "9V", "--topology", "split-supply", "--ic", "1mA", "--polarity", "pnp"}, func(t *testing.T, r picker.Request) {
+			if r.Rail != solver.SplitRails {
+				t.Errorf("rail %v, want split", r.Rail)
 			}
 		}},
 		{"vce and windows around it", append(base, "--vce", "5V", "--ic-window", "5%", "--vce-window", "10%"), func(t *testing.T, r picker.Request) {
@@ -155,6 +170,11 @@ func TestFlagErrors(t *testing.T) {
 		{"vcc range too wide", []string{"--vcc", "3V..12V", "--ic", "2mA"}, []string{"below 3 times"}},
 		{"zero vcc", []string{"--vcc", "0", "--ic", "2mA"}, []string{"--vcc", "needs a supply"}},
 		{"negative rail for npn", []string{"--vcc", "-12V", "--ic", "2mA"}, []string{"--vcc", "positive", "12 V"}},
+		{"negative supply on a stated positive rail", []string{"--vcc", "-5V", "--rail", "positive", "--polarity", "pnp", "--ic", "1mA"}, []string{"--vcc", "positive rail", "5 V"}},
+		{"npn on a negative rail", []string{"--vcc", "12V", "--rail", "negative", "--ic", "1mA"}, []string{"--rail", "NPN", "positive supply"}},
+		{"rail for a split supply", []string{"--vcc", "9V", "--vee", "9V", "--topology", "split-supply", "--rail", "positive", "--polarity", "pnp", "--ic", "1mA"},
+			[]string{"--rail", "common of its two supplies", "collector rail negative"}},
+		{"unknown rail", []string{"--vcc", "9V", "--rail", "sideways", "--ic", "1mA"}, []string{"--rail", "positive or negative"}},
 		{"negative ic", []string{"--vcc", "12V", "--ic", "-2mA"}, []string{"--ic", "negative"}},
 		{"vce above the supply", append(base, "--vce", "15V"), []string{"--vce: 15 V cannot exist", "12 V supply", "choose a VCE below 11.4 V or raise --vcc"}},
 		{"vce at the supply's low end", append(base, "--vce", "11.5V"), []string{"cannot exist", "11.4 V"}},

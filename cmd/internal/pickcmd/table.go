@@ -26,7 +26,7 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	if r.Pairs {
 		pairs = "pairs allowed"
 	}
-	rails := quantity(r.VCC_V, "V")
+	rails := quantity(solver.GroundOf(r.Polarity, r.Topology, r.Rail).Supply_V(r.VCC_V), "V")
 	if r.VEE_V != 0 {
 		rails += " and VEE " + quantity(r.VEE_V, "V")
 	}
@@ -37,6 +37,11 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	fmt.Fprintf(w, "%s %s on %s ±%s: IC %s, %s, ambient %s..%s °C, %d board%s, %s\n",
 		strings.ToUpper(r.Polarity.String()), stage, rails, strings.TrimSuffix(percent(r.VCCTol), " %")+" %",
 		quantity(r.IC_A, "A"), vce, trimNum(r.AmbientMin_C), trimNum(r.AmbientMax_C), v.Boards, plural(v.Boards), pairs)
+	rail := report.Rail(r.Polarity, r.Rail)
+	if r.Topology == picker.AnyTopology && r.VEE_V != 0 {
+		rail += " (split-supply builds: " + report.Rail(r.Polarity, solver.SplitRails) + ")"
+	}
+	fmt.Fprintf(w, "%s; every voltage against 0 V\n", rail)
 	if r.RL_Ohm > 0 || r.Bypass {
 		load := "no AC load"
 		if r.RL_Ohm > 0 {
@@ -95,7 +100,11 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 		fmt.Fprintf(w, "    NOT KNOWN SAFE: the transistor's %s not stated; nothing here says it survives\n", report.RatingList(c.UnknownRatings))
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintf(tw, "    part\tvalue\tarrangement\tpull from (bin, stock line)\n")
+	fmt.Fprintf(tw, "    part\tvalue\tjoins\tarrangement\tpull from (bin, stock line)\n")
+	joins := map[string]string{}
+	for _, j := range job.Joins(c.Build) {
+		joins[j.Slot.String()] = report.Join(j)
+	}
 	for _, slot := range job.Slots(c.Candidate) {
 		p := c.Positions[slot]
 		var from []string
@@ -106,9 +115,9 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 		if p.Arrangement == picker.Kept {
 			from = []string{"on the board"}
 		}
-		fmt.Fprintf(tw, "    %s\t%s\t%s %s\t%s\n", strings.ToUpper(slot), positionCode(p), p.Arrangement, note, strings.Join(from, " + "))
+		fmt.Fprintf(tw, "    %s\t%s\t%s\t%s %s\t%s\n", strings.ToUpper(slot), positionCode(p), joins[slot], p.Arrangement, note, strings.Join(from, " + "))
 	}
-	fmt.Fprintf(tw, "    Q\t%s\t%s hFE %s..%s\tbin %s #%d\n", c.Transistor.Sheet.Label, c.Transistor.Sheet.Polarity,
+	fmt.Fprintf(tw, "    Q\t%s\t\t%s hFE %s..%s\tbin %s #%d\n", c.Transistor.Sheet.Label, c.Transistor.Sheet.Polarity,
 		trimNum(c.Transistor.Sheet.HFEMin), trimNum(c.Transistor.Sheet.HFEMax), binName(c.Transistor.Bin), c.Transistor.ID)
 	tw.Flush()
 

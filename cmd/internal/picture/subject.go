@@ -50,7 +50,7 @@ func BuildName(b solver.Build, transistor string) string {
 			parts = append(parts, strings.ToUpper(s.String())+" "+notation.FormatResistance(r))
 		}
 	}
-	rails := volts(b.VCC_V)
+	rails := volts(b.Ground.Supply_V(b.VCC_V)) // as a meter reads it against 0 V
 	if b.Topology == solver.SplitSupply {
 		rails += "/" + volts(b.VEE_V)
 	}

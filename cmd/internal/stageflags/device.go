@@ -230,7 +230,7 @@ func FlagName(field string) string {
 		return "--tj-max"
 	case "vcc_tol":
 		return "--vcc-tol"
-	case "pd", "vaf", "vceo", "icbo", "hfe", "vcc", "vee", "ambient", "temp", "beta", "bypass", "load", "polarity":
+	case "pd", "vaf", "vceo", "icbo", "hfe", "vcc", "vee", "rail", "ambient", "temp", "beta", "bypass", "load", "polarity":
 		return "--" + f[0]
 	case "window":
 		return "--window"

@@ -45,6 +45,7 @@ type Stage struct {
 	Topology string
 	VCC      string
 	VEE      string
+	Rail     string
 	R        [solver.NumSlots]string // --r1 --r2 --rc --re --rf --rb
 	VCCTol   string
 	Tol      string
@@ -62,16 +63,17 @@ func (s *Stage) AddFlags(fl *pflag.FlagSet) {
 	fl.StringVar(&s.Topology, "topology", DefaultTopology, "bias circuit: divider, collector-feedback or split-supply")
 	fl.StringVar(&s.VCC, "vcc", "", "collector supply, e.g. 12V, or the range it moves over, e.g. 7V..9.6V for a 9 V battery (then no --vcc-tol)")
 	fl.StringVar(&s.VEE, "vee", "", "emitter supply of the split-supply stage, e.g. 12V (taken as the rail opposite --vcc)")
+	fl.StringVar(&s.Rail, "rail", "", RailHelp)
 	for _, r := range []struct {
 		slot solver.Slot
 		help string
 	}{
-		{solver.R1, "divider: rail to base"},
-		{solver.R2, "divider: base to ground"},
-		{solver.RC, "rail to collector"},
-		{solver.RE, "emitter to ground (or to --vee); 0 or absent = emitter tied to it"},
+		{solver.R1, "divider: collector-side rail to base"},
+		{solver.R2, "divider: base to emitter-side rail"},
+		{solver.RC, "collector-side rail to collector"},
+		{solver.RE, "emitter to emitter-side rail (or to --vee); 0 or absent = emitter tied to it"},
 		{solver.RF, "collector-feedback: collector to base"},
-		{solver.RB, "split-supply: base to ground"},
+		{solver.RB, "split-supply: base to the common (0 V)"},
 	} {
 		fl.StringVar(&s.R[r.slot], r.slot.String(), "", r.help+", e.g. 4K7 or 4.7k; with tolerance and rating 6K8/10%/1W; or a stock line '#26'")
 	}
@@ -112,6 +114,11 @@ func (s *Stage) Build(ctx context.Context, pol solver.Polarity, open Opener) (so
 	if err != nil {
 		return b, Usage("vcc", err)
 	}
+	rail, err := SettleRail(s.Rail, vcc, pol, top)
+	if err != nil {
+		return b, err
+	}
+	b.Ground = solver.GroundOf(pol, top, rail)
 	if b.VCC_V, err = solver.Rail(vcc, pol, solver.Collector); err != nil {
 		return b, InputError(err)
 	}
