@@ -156,7 +156,7 @@ func InferQPoint(b solver.Build, pol solver.Polarity, r fault.Readings, mt fault
 		a, c := in.FromRC, in.FromRE
 		if a.Max_A < c.Min_A || c.Max_A < a.Min_A {
 			return Inference{}, &fault.ReadingError{Reading: "ve/vc", Problem: fmt.Sprintf(
-				"IC from VE/RE is %.4g A (%.4g..%.4g) but from (VCC−VC)/RC %.4g A (%.4g..%.4g): they disagree by more than the meter accuracy and the resistor and supply tolerances allow; check the resistor values, the supply and the readings",
+				"IC from the drop on RE is %.4g A (%.4g..%.4g) but from the drop on RC %.4g A (%.4g..%.4g): they disagree by more than the meter accuracy and the resistor and supply tolerances allow; check the resistor values, the supply and the readings",
 				c.Value_A, c.Min_A, c.Max_A, a.Value_A, a.Min_A, a.Max_A)}
 		}
 		wa := 1 / sq((a.Max_A-a.Min_A)/2)

@@ -55,9 +55,9 @@ func newCmd(f *cmdutil.Factory, runF func(*Options) error) *cobra.Command {
 board (topology, supply, resistor values, as for check) and what is known
 of its original operating point: the original transistor's ranges
 (--original LABEL from the stock, or inline --hfe, --vbe ...), the
-voltages measured on a working twin channel (--vb --ve --vc, to ground),
-or both. With a twin, the original IC is read from VE/RE and from
-(VCC−VC)/RC and the two must agree within the meter accuracy (--meter) and
+voltages measured on a working twin channel (--vb --ve --vc, to 0 V as the
+meter shows them; see --rail), or both. With a twin, the original IC is
+read from the drop on RE and from the drop on RC and the two must agree within the meter accuracy (--meter) and
 the resistor and supply tolerances; the twin's figure is then the target.
 
 Every stocked transistor of the stage's polarity with parts on hand is

@@ -70,7 +70,7 @@ func TestFlagErrors(t *testing.T) {
 		{"tolerance of zero", append(append([]string{}, stage...), "--hfe", "100..300", "--ic-tol", "0%"), 2, "--ic-tol"},
 		{"VE above VB", append(append([]string{}, stage...), "--vb", "1.5V", "--ve", "1.9V", "--vc", "7V"), 1, "--ve: 1.9 V is above vb"},
 		{"VC beyond the supply", append(append([]string{}, stage...), "--vb", "2.1V", "--ve", "1.45V", "--vc", "13.5V"), 1, "--vc: 13.5 V lies outside the supply rails"},
-		{"IC from RE and RC disagree", append(append([]string{}, stage...), "--vb", "2.1V", "--ve", "1.45V", "--vc", "10V"), 1, "--ve and --vc: IC from VE/RE"},
+		{"IC from RE and RC disagree", append(append([]string{}, stage...), "--vb", "2.1V", "--ve", "1.45V", "--vc", "10V"), 1, "--ve and --vc: IC from the drop on RE"},
 		{"unknown original label", append(append([]string{}, stage...), "--original", "NOPE"), 2, `--original: "NOPE" is not in stock`},
 	} {
 		out, _, err := run(t, db, c.args...)

@@ -22,10 +22,10 @@ func WriteText(w io.Writer, s *repair.Substitution, top int) {
 	fmt.Fprintf(w, "Original Q-point (%s): IC %s, VCE %s\n", sourceWords(o), notation.FormatCurrent(o.IC_A), notation.FormatVoltage(o.VCE_V))
 	if in := o.Inference; in != nil {
 		if in.HasFromRE {
-			fmt.Fprintf(w, "  IC from VE/RE          %s (%s .. %s)\n", notation.FormatCurrent(in.FromRE.Value_A), notation.FormatCurrent(in.FromRE.Min_A), notation.FormatCurrent(in.FromRE.Max_A))
+			fmt.Fprintf(w, "  IC from the drop on RE  %s (%s .. %s)\n", notation.FormatCurrent(in.FromRE.Value_A), notation.FormatCurrent(in.FromRE.Min_A), notation.FormatCurrent(in.FromRE.Max_A))
 		}
 		if in.HasFromRC {
-			fmt.Fprintf(w, "  IC from (VCC−VC)/RC    %s (%s .. %s)\n", notation.FormatCurrent(in.FromRC.Value_A), notation.FormatCurrent(in.FromRC.Min_A), notation.FormatCurrent(in.FromRC.Max_A))
+			fmt.Fprintf(w, "  IC from the drop on RC  %s (%s .. %s)\n", notation.FormatCurrent(in.FromRC.Value_A), notation.FormatCurrent(in.FromRC.Min_A), notation.FormatCurrent(in.FromRC.Max_A))
 		}
 		if in.HasFromRE && in.HasFromRC {
 			fmt.Fprintln(w, "  the two agree within the meter accuracy and the resistor and supply tolerances")
