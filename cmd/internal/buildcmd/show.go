@@ -11,8 +11,8 @@ import (
 
 	"biasbin/cmd/internal/buildjob"
 	"biasbin/cmd/internal/cmdutil"
-	"biasbin/picker"
 	"biasbin/cmd/internal/report"
+	"biasbin/picker"
 	"biasbin/picker/job"
 	"biasbin/solver"
 	"biasbin/solver/notation"
