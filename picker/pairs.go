@@ -21,13 +21,14 @@ const minPairShare = 0.01
 // partSpec is the solver view of one stocked line, its derating defaults
 // filled in.
 func partSpec(r Resistor) solver.ResistorSpec {
+	knee, top := derating(r)
 	return solver.ResistorSpec{
 		Nominal_Ohm: r.Ohm,
 		Tol:         r.Tol,
 		TCR_PPMPerK: r.TCR_PPMPerK,
 		Rated_W:     r.Rated_W,
-		Knee_C:      kneeOf(r),
-		Max_C:       maxOf(r),
+		Knee_C:      knee,
+		Max_C:       top,
 		LEV_V:       levOf(r),
 	}
 }
@@ -38,18 +39,10 @@ func levOf(r Resistor) float64 {
 	return solver.ResistorSpec{Rated_W: r.Rated_W, LEV_V: r.LEV_V}.LimitingVoltage_V()
 }
 
-func kneeOf(r Resistor) float64 {
-	if r.Knee_C == 0 {
-		return solver.DefaultResistorKnee_C
-	}
-	return r.Knee_C
-}
-
-func maxOf(r Resistor) float64 {
-	if r.Max_C == 0 {
-		return solver.DefaultResistorMax_C
-	}
-	return r.Max_C
+// derating is the line's derating knee and zero-power temperature, the
+// solver's defaults in place of zeros.
+func derating(r Resistor) (knee_C, max_C float64) {
+	return solver.ResistorSpec{Knee_C: r.Knee_C, Max_C: r.Max_C}.Derating()
 }
 
 // seriesSpec is the pair a+b in series treated as one part.
@@ -76,9 +69,10 @@ func seriesSpec(a, b Resistor) solver.ResistorSpec {
 		Nominal_Ohm: r,
 		Tol:         (a.Ohm*a.Tol + b.Ohm*b.Tol) / r,
 		TCR_PPMPerK: (a.Ohm*a.TCR_PPMPerK + b.Ohm*b.TCR_PPMPerK) / r,
-		Knee_C:      math.Min(kneeOf(a), kneeOf(b)),
-		Max_C:       math.Min(maxOf(a), maxOf(b)),
 	}
+	ka, ma := derating(a)
+	kb, mb := derating(b)
+	s.Knee_C, s.Max_C = math.Min(ka, kb), math.Min(ma, mb)
 	if a.Rated_W > 0 && b.Rated_W > 0 {
 		s.Rated_W = math.Min(a.Rated_W/a.Ohm, b.Rated_W/b.Ohm) * r
 	}
@@ -112,9 +106,10 @@ func parallelSpec(a, b Resistor) solver.ResistorSpec {
 		Nominal_Ohm: r,
 		Tol:         math.Max(hi, lo),
 		TCR_PPMPerK: (ga*a.TCR_PPMPerK + gb*b.TCR_PPMPerK) / (ga + gb),
-		Knee_C:      math.Min(kneeOf(a), kneeOf(b)),
-		Max_C:       math.Min(maxOf(a), maxOf(b)),
 	}
+	ka, ma := derating(a)
+	kb, mb := derating(b)
+	s.Knee_C, s.Max_C = math.Min(ka, kb), math.Min(ma, mb)
 	if a.Rated_W > 0 && b.Rated_W > 0 {
 		s.Rated_W = math.Min(a.Rated_W*a.Ohm, b.Rated_W*b.Ohm) / r
 	}

@@ -307,10 +307,10 @@ func normalize(req Request) (settings, error) {
 		return s, inputErr("load", "give the AC load in ohms, or 0 for none", "%g ohm is not a load", req.RL_Ohm)
 	}
 	s.rl, s.bypass = req.RL_Ohm, req.Bypass
-	s.lim = limitsWithDefaults(req.Limits)
-	if s.lim.ResistorMaxFraction < 0 || s.lim.TransistorMaxFraction < 0 || s.lim.VCEMargin_V < 0 {
+	if l := req.Limits; l.ResistorMaxFraction < 0 || l.TransistorMaxFraction < 0 || l.VCEMargin_V < 0 {
 		return s, inputErr("limits", "use 0 for the defaults or positive values", "negative design margin %+v", req.Limits)
 	}
+	s.lim = req.Limits.WithDefaults()
 	w := req.Window
 	if w != (solver.Window{}) && (w.ICMin_A > w.ICMax_A || w.VCEMin_V > w.VCEMax_V) {
 		return s, inputErr("window", "give each band as MIN..MAX", "IC %g..%g A, VCE %g..%g V is not a window", w.ICMin_A, w.ICMax_A, w.VCEMin_V, w.VCEMax_V)
@@ -323,20 +323,6 @@ func normalize(req Request) (settings, error) {
 // five, or twice the shown builds plus five when more are shown. It does
 // not change for Top up to DefaultTop, so neither does the ranking.
 func defaultPool(top int) int { return 2*max(top, DefaultTop) + 5 }
-
-// limitsWithDefaults fills the zero fields of l with the solver defaults.
-func limitsWithDefaults(l solver.Limits) solver.Limits {
-	if l.ResistorMaxFraction == 0 {
-		l.ResistorMaxFraction = solver.DefaultResistorMaxFraction
-	}
-	if l.TransistorMaxFraction == 0 {
-		l.TransistorMaxFraction = solver.DefaultTransistorMaxFraction
-	}
-	if l.VCEMargin_V == 0 {
-		l.VCEMargin_V = solver.DefaultVCEMargin_V
-	}
-	return l
-}
 
 // checkStock refuses a stock missing a kind of part (CheckStock) and a
 // target current no stocked RC and RE can carry.

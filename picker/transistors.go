@@ -29,22 +29,6 @@ type nominalDevice struct {
 	factor float64 // BF's temperature factor (T/TNOM)^XTB
 }
 
-// vceSatOf returns the datasheet VCE(sat) or the solver's default.
-func vceSatOf(d solver.Datasheet) float64 {
-	if d.VCESat_V > 0 {
-		return d.VCESat_V
-	}
-	return solver.DefaultVCESat_V
-}
-
-// tjMaxOf returns the datasheet Tj max or the solver's default.
-func tjMaxOf(d solver.Datasheet) float64 {
-	if d.TjMax_C != 0 {
-		return d.TjMax_C
-	}
-	return solver.DefaultTjMax_C
-}
-
 // transistorCandidates returns the lines of the requested polarity that
 // carry the required tags, hold at least `boards` parts and whose ratings
 // hold with margin, and a reason for each line of that polarity left out.
@@ -107,8 +91,8 @@ func (s settings) transistorCandidates(ts []Transistor, span float64) (devs []de
 		}
 		dv := device{
 			line: t, typ: mt, lo: ml, hi: mh,
-			thetaJA: solver.ThermalResistance(d), tjMax_C: tjMaxOf(d),
-			vceSat: vceSatOf(d), hfeMin: d.HFEMin, allowHot: allowHot,
+			thetaJA: solver.ThermalResistance(d), tjMax_C: d.TjMaxOrDefault_C(),
+			vceSat: d.VCESatOrDefault_V(), hfeMin: d.HFEMin, allowHot: allowHot,
 		}
 		dv.at25 = newNominalDevice(mt)
 		devs = append(devs, dv)

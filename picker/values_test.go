@@ -76,7 +76,7 @@ func TestValueOrder(t *testing.T) {
 		{ID: 3, Ohm: 2000, Qty: 10, Tol: 0.01, Rated_W: 0.25},
 		{ID: 4, Ohm: 4000, Qty: 10, Tol: 0.01, Rated_W: 0.25},
 	}
-	vs := buildValues(lines, 1, true, 50, limitsWithDefaults(solver.Limits{}))
+	vs := buildValues(lines, 1, true, 50, solver.Limits{}.WithDefaults())
 	for i := 1; i < len(vs.levels); i++ {
 		if vs.levels[i].ohm <= vs.levels[i-1].ohm {
 			t.Fatalf("levels not ascending at %d", i)

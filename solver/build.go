@@ -19,20 +19,9 @@ type ResistorSpec struct {
 	LEV_V float64
 }
 
-// Resistor temperature defaults, IEC 60115-1 style (REFERENCE.md §3; from
-// memory for the clause): full rating up to the rated ambient, linear
-// derating to zero at the upper category temperature.
-const (
-	// DefaultResistorKnee_C is the rated ambient temperature where
-	// derating starts.
-	DefaultResistorKnee_C = 70.0
-	// DefaultResistorMax_C is the upper category temperature where the
-	// allowed dissipation reaches zero.
-	DefaultResistorMax_C = 155.0
-	// TCRReference_C is the temperature resistor values are marked at and
-	// TCR is referred to.
-	TCRReference_C = 25.0
-)
+// TCRReference_C is the temperature resistor values are marked at and TCR
+// is referred to.
+const TCRReference_C = 25.0
 
 // Build is a complete stage to analyse: nominal circuit, parts with their
 // tolerances and ratings, the supply tolerance and the ambient range.
@@ -66,22 +55,6 @@ type Limits struct {
 	VoltageMaxFraction    float64 // of a resistor's limiting element voltage; 0 = 0.8 (common practice)
 }
 
-// Limit defaults.
-const (
-	// DefaultResistorMaxFraction keeps a resistor at or below 50 % of its
-	// derated rating (common practice; REFERENCE.md §3).
-	DefaultResistorMaxFraction = 0.5
-	// DefaultTransistorMaxFraction keeps the transistor at or below 75 %
-	// of its derated dissipation (common practice; REFERENCE.md §8).
-	DefaultTransistorMaxFraction = 0.75
-	// DefaultVCEMargin_V is the headroom above VCE(sat) every corner must
-	// keep (common practice).
-	DefaultVCEMargin_V = 0.5
-	// DefaultVoltageMaxFraction keeps a resistor's voltage at or below 80 %
-	// of its limiting element voltage (common practice; REFERENCE.md §3).
-	DefaultVoltageMaxFraction = 0.8
-)
-
 // WithDefaults returns l with the documented default in place of every
 // field that is zero, negative or NaN.
 func (l Limits) WithDefaults() Limits {
@@ -98,22 +71,6 @@ func (l Limits) WithDefaults() Limits {
 		l.VoltageMaxFraction = DefaultVoltageMaxFraction
 	}
 	return l
-}
-
-// vceSatOf returns the datasheet VCE(sat) or its default.
-func vceSatOf(d Datasheet) float64 {
-	if d.VCESat_V > 0 {
-		return d.VCESat_V
-	}
-	return DefaultVCESat_V
-}
-
-// tjMaxOf returns the datasheet TjMax or its default.
-func tjMaxOf(d Datasheet) float64 {
-	if d.TjMax_C != 0 {
-		return d.TjMax_C
-	}
-	return DefaultTjMax_C
 }
 
 // ThermalResistance returns the junction-to-ambient thermal resistance the
@@ -361,15 +318,4 @@ func (r ResistorSpec) validateRatings() *InputError {
 		return bad("derating", "knee %g °C must be below the zero-power temperature %g °C", knee, top)
 	}
 	return nil
-}
-
-func (r ResistorSpec) derating() (knee_C, max_C float64) {
-	knee_C, max_C = r.Knee_C, r.Max_C
-	if knee_C == 0 {
-		knee_C = DefaultResistorKnee_C
-	}
-	if max_C == 0 {
-		max_C = DefaultResistorMax_C
-	}
-	return knee_C, max_C
 }

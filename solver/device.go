@@ -29,23 +29,6 @@ const (
 	DefaultXTB = 1.5
 	// DefaultBR is SPICE's reverse beta default (ngspice manual §8.2).
 	DefaultBR = 1.0
-	// DefaultVBEOn_V is the VBE(on) assumed when a datasheet gives none
-	// (common practice).
-	DefaultVBEOn_V = 0.65
-	// DefaultVBEAt_A is the test current assumed for VBE(on).
-	DefaultVBEAt_A = 1e-3
-	// DefaultVBESpread_V is the part-to-part VBE(on) half-range assumed
-	// when the stock states none: the top of the usual ±10..30 mV spread
-	// across makers and lots of one type at a fixed current and
-	// temperature (common practice, from memory; REFERENCE.md §21), so
-	// conservative for a bin of mixed lots.
-	DefaultVBESpread_V = 0.03
-	// DefaultVCESat_V is the VCE(sat) assumed when a datasheet gives none
-	// (common practice).
-	DefaultVCESat_V = 0.2
-	// DefaultTjMax_C is the junction limit of small-signal plastic parts
-	// when a datasheet gives none (common practice).
-	DefaultTjMax_C = 150.0
 )
 
 // minVAF_V is the smallest Early voltage accepted: below a few volts the

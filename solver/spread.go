@@ -10,26 +10,6 @@ import (
 // the bounds and distribution the Monte Carlo yield draws it from. The
 // worst-case corners and the RSS spread take the same bounds from here.
 
-// vbeOnOf returns the nominal VBE(on) magnitude of d: the stated one, else
-// the middle of a stated range, else DefaultVBEOn_V.
-func vbeOnOf(d Datasheet) float64 {
-	switch {
-	case d.VBEOn_V > 0:
-		return d.VBEOn_V
-	case d.VBEMin_V > 0 && d.VBEMax_V > 0:
-		return 0.5 * (d.VBEMin_V + d.VBEMax_V)
-	}
-	return DefaultVBEOn_V
-}
-
-// vbeAtOf returns the VBE(on) test current of d or its default.
-func vbeAtOf(d Datasheet) float64 {
-	if d.VBEAt_A > 0 {
-		return d.VBEAt_A
-	}
-	return DefaultVBEAt_A
-}
-
 // isFor returns the transport saturation current at TNOM that gives
 // VBE(on) = vbe_V at d's VBE(on) test current (see ModelFor).
 func isFor(d Datasheet, vbe_V float64) float64 {

@@ -104,10 +104,7 @@ func Check(req CheckRequest) (*Analysis, error) {
 		return nil, err
 	}
 	b := req.Build
-	a := &Analysis{Request: req, Limits: req.Limits.WithDefaults(), VCESat_V: b.Device.VCESat_V}
-	if a.VCESat_V == 0 {
-		a.VCESat_V = solver.DefaultVCESat_V
-	}
+	a := &Analysis{Request: req, Limits: req.Limits.WithDefaults(), VCESat_V: b.Device.VCESatOrDefault_V()}
 	var err error
 	if a.Nominal, a.Model, err = solver.Nominal(b); err != nil {
 		return nil, err

@@ -318,10 +318,7 @@ func limits(p Point, lim solver.Limits) (Margins, []Failure) {
 	d := p.Build.Device
 	var m Margins
 	var fails []Failure
-	vceSat := d.VCESat_V
-	if vceSat == 0 {
-		vceSat = solver.DefaultVCESat_V
-	}
+	vceSat := d.VCESatOrDefault_V()
 	m.Saturation_V = p.Worst.VCEMin_V - vceSat
 	span := math.Abs(p.Build.VCC_V)
 	if p.Build.Topology == solver.SplitSupply {

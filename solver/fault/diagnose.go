@@ -16,9 +16,6 @@ const benchTemp_C = 25.0
 
 // Fit defaults (doc.go, "The fit").
 const (
-	// DefaultVBESpread_V is the part-to-part VBE(on) spread of one type
-	// (common practice; REFERENCE.md §21).
-	DefaultVBESpread_V = 0.03
 	// DefaultMaxDrift bounds a drifted value to marked/10..marked·10.
 	DefaultMaxDrift = 10.0
 	// DefaultExplainLimit is the fit up to which a fault explains the
@@ -30,7 +27,7 @@ const (
 // default.
 type Settings struct {
 	Meter        Meter
-	VBESpread_V  float64 // 0 = 30 mV
+	VBESpread_V  float64 // 0 = solver.DefaultVBESpread_V
 	MaxDrift     float64 // 0 = 10 (values fitted within marked/10..marked·10)
 	ExplainLimit float64 // 0 = 1
 }
@@ -39,7 +36,7 @@ type Settings struct {
 func (s Settings) WithDefaults() Settings {
 	s.Meter = s.Meter.WithDefaults()
 	if s.VBESpread_V == 0 {
-		s.VBESpread_V = DefaultVBESpread_V
+		s.VBESpread_V = solver.DefaultVBESpread_V
 	}
 	if s.MaxDrift == 0 {
 		s.MaxDrift = DefaultMaxDrift

@@ -46,7 +46,7 @@ func writeText(w io.Writer, r *job.Analysis) {
 		name = r.Request.Label
 	}
 	fmt.Fprintf(w, "transistor: %s, hFE %s..%s, VBE(on) %s at %s, VCE(sat) %s",
-		name, num(d.HFEMin), num(d.HFEMax), fV(orDefault(d.VBEOn_V, solver.DefaultVBEOn_V)), fA(orDefault(d.VBEAt_A, solver.DefaultVBEAt_A)), fV(r.VCESat_V))
+		name, num(d.HFEMin), num(d.HFEMax), fV(d.VBEOnOrDefault_V()), fA(d.VBEAtOrDefault_A()), fV(r.VCESat_V))
 	if th := solver.ThermalResistance(d); th > 0 {
 		fmt.Fprintf(w, ", θJA %s", notation.FormatThermalResistance(th))
 	}
@@ -140,14 +140,6 @@ func pct(f float64) string { return num(100*f) + " %" }
 
 // num writes a plain number with up to four significant digits.
 func num(v float64) string { return fmt.Sprintf("%.4g", v) }
-
-// orDefault returns v, or def when v is 0.
-func orDefault(v, def float64) float64 {
-	if v == 0 {
-		return def
-	}
-	return v
-}
 
 // limit writes a part's allowance, or "-" for an unrated part.
 func limit(l solver.PartLoad) string {

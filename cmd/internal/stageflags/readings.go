@@ -12,14 +12,15 @@ import (
 	"biasbin/solver/notation"
 )
 
-// DefaultMeter is the meter accuracy assumed unless --meter says
-// otherwise: ±(1 % of the reading + 10 mV), a hand-held 3½-digit meter on
-// its DC-volts ranges (common practice).
-const DefaultMeter = "1%+10mV"
+// DefaultMeter is --meter's default, fault's meter defaults written as
+// the flag takes them ("1%+10mV").
+func DefaultMeter() string {
+	return fmt.Sprintf("%g%%+%gmV", 100*fault.DefaultFraction, 1e3*fault.DefaultOffset_V)
+}
 
-// DefaultMeterInput is a digital multimeter's DC-volts input resistance
-// (common practice).
-const DefaultMeterInput = "10M"
+// DefaultMeterInput is --meter-input's default, fault.DefaultInput_Ohm
+// written as the flag takes it ("10M").
+func DefaultMeterInput() string { return notation.FormatResistance(fault.DefaultInput_Ohm) }
 
 // Readings holds the measured-voltage flags as typed.
 type Readings struct {
@@ -34,8 +35,8 @@ func (r *Readings) AddFlags(fl *pflag.FlagSet, what string) {
 	fl.StringVar(&r.VB, "vb", "", "base voltage to ground measured on "+what+", signed as the meter shows it (e.g. 2.08V)")
 	fl.StringVar(&r.VE, "ve", "", "emitter voltage to ground measured on "+what)
 	fl.StringVar(&r.VC, "vc", "", "collector voltage to ground measured on "+what)
-	fl.StringVar(&r.Meter, "meter", DefaultMeter, "meter accuracy: PERCENT of the reading + VOLTS")
-	fl.StringVar(&r.MeterInput, "meter-input", DefaultMeterInput, "meter input resistance on DC volts")
+	fl.StringVar(&r.Meter, "meter", DefaultMeter(), "meter accuracy: PERCENT of the reading + VOLTS")
+	fl.StringVar(&r.MeterInput, "meter-input", DefaultMeterInput(), "meter input resistance on DC volts")
 }
 
 // Given reports whether any reading was given.
@@ -67,7 +68,7 @@ func (r *Readings) meter() (fault.Meter, error) {
 	var m fault.Meter
 	pct, volts, ok := strings.Cut(strings.ReplaceAll(r.Meter, " ", ""), "+")
 	if !ok || !strings.HasSuffix(pct, "%") {
-		return m, Usagef("meter", "%q: want PERCENT+VOLTS, e.g. %s", r.Meter, DefaultMeter)
+		return m, Usagef("meter", "%q: want PERCENT+VOLTS, e.g. %s", r.Meter, DefaultMeter())
 	}
 	var err error
 	if m.Fraction, err = notation.ParseTolerance(pct); err != nil {
@@ -80,7 +81,7 @@ func (r *Readings) meter() (fault.Meter, error) {
 		return m, Usage("meter-input", err)
 	}
 	if !(m.Fraction > 0 && m.Offset_V > 0) {
-		return m, Usagef("meter", "%q: both parts must be above 0 (every meter has a share of the reading and a floor), e.g. %s", r.Meter, DefaultMeter)
+		return m, Usagef("meter", "%q: both parts must be above 0 (every meter has a share of the reading and a floor), e.g. %s", r.Meter, DefaultMeter())
 	}
 	if err := m.Validate(); err != nil {
 		return m, Usage("meter", err)

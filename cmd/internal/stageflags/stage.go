@@ -32,13 +32,18 @@ const (
 	// DefaultTol is the resistor tolerance when a value carries none: E24
 	// parts are usually ±5 % (common practice, REFERENCE.md §1).
 	DefaultTol = "5%"
-	// DefaultTCR is thick-film's ±100 ppm/K (common practice, REFERENCE.md §3).
-	DefaultTCR = "100ppm"
 	// DefaultPower is the usual 1/4 W through-hole rating (common practice).
 	DefaultPower   = "0.25W"
 	DefaultAmbient = "0..50"
 	DefaultTemp    = "25"
 )
+
+// DefaultTCR is --tcr's default: the TCR the stock assumes for a thick-film
+// line (store.DefaultTCR_PPMPerK), written as the flag takes it ("100ppm").
+func DefaultTCR() string {
+	tcr, _ := store.DefaultTCR_PPMPerK(store.TechThickFilm)
+	return fmt.Sprintf("%gppm", tcr)
+}
 
 // Stage holds the stage flags as typed.
 type Stage struct {
@@ -79,7 +84,7 @@ func (s *Stage) AddFlags(fl *pflag.FlagSet) {
 	}
 	fl.StringVar(&s.VCCTol, "vcc-tol", DefaultVCCTol, "supply tolerance (both rails)")
 	fl.StringVar(&s.Tol, "tol", DefaultTol, "resistor tolerance where the value carries none")
-	fl.StringVar(&s.TCR, "tcr", DefaultTCR, "resistor temperature coefficient")
+	fl.StringVar(&s.TCR, "tcr", DefaultTCR(), "resistor temperature coefficient")
 	fl.StringVar(&s.Power, "power", DefaultPower, "resistor power rating at 70 °C (derated to 0 at 155 °C)")
 	fl.StringVar(&s.Ambient, "ambient", DefaultAmbient, "ambient temperature range in °C, MIN..MAX")
 	fl.StringVar(&s.Temp, "temp", DefaultTemp, "ambient temperature of the nominal point, °C")
