@@ -28,6 +28,7 @@ type evaluated struct {
 	worst   solver.WorstCase
 	beta    float64 // beta sensitivity, signed as IC(hFE max) − IC(hFE min) over IC
 	util    float64
+	grp     foldGroup // set by a folding pool
 }
 
 // less is the ranking order: passing before failing, then lower score,

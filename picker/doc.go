@@ -76,7 +76,11 @@
 // 25 °C, so there they only restate the corners; the search's bounds rest
 // on them either way. A failing build never ranks above a
 // passing one; failing builds are listed only with Request.ShowFailing or,
-// as the nearest builds, when nothing passes.
+// as the nearest builds, when nothing passes. Near-duplicates (the same
+// topology, transistor type and values, differing only in tolerance
+// grade, rating, TCR or stock line; fold.go) take one place: the search
+// keeps the best of each group and counts the rest in Candidate.Folded,
+// unless Request.ShowAll.
 //
 // Order: passing before failing, then the score, then a fixed key: the
 // transistor line ID, then per position R1, R2, RC, RE the value's

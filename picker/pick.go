@@ -40,7 +40,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 			}
 		}
 		var cnt counters
-		p := newPool(s.pool)
+		p := newPool(s.pool, !s.req.ShowAll)
 		if len(e.devs) > 0 && len(e.vs.levels) > 0 {
 			if s.req.Exhaustive {
 				e.exhaustive(p, &cnt)
@@ -120,6 +120,7 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
 	e := &evaluator{s: s, lay: lay, vs: &vs, devs: devs, span: span}
 	e.pinKept(at)
+	e.setLabelGroups()
 	for i := range e.devs {
 		e.devs[i].betaNomMin = e.nominalBetaMin(&e.devs[i])
 	}
@@ -257,6 +258,9 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 		UnknownRatings:  solver.UnknownRatings(d.line.Sheet, e.s.icT),
 	}
 	c.OnTarget = e.window(c.VCETarget_V).Contains(&c.Nominal)
+	if !e.s.req.ShowAll {
+		c.Folded = e.folded(ev.c)
+	}
 	for i, vi := range ev.c.val[:e.lay.n] {
 		pos := e.vs.position(vi)
 		if e.kept[i] {

@@ -10,16 +10,20 @@ import (
 // pool keeps the best `size` builds by the ranking order (see less). It
 // is safe for concurrent use: add locks, threshold reads an atomic copy.
 type pool struct {
-	size  int
+	size int
+	// fold keeps one build per group of near-duplicates (fold.go): the
+	// best one.
+	fold  bool
 	mu    sync.Mutex
 	items []*evaluated
 	thr   atomic.Uint64 // math.Float64bits of the threshold
 	last  atomic.Uint64 // math.Float64bits of lastScore
 }
 
-// newPool returns an empty pool of the given size.
-func newPool(size int) *pool {
-	p := &pool{size: size}
+// newPool returns an empty pool of the given size; with fold it keeps
+// only the best build of each group of near-duplicates.
+func newPool(size int, fold bool) *pool {
+	p := &pool{size: size, fold: fold}
 	p.thr.Store(math.Float64bits(math.Inf(1)))
 	p.last.Store(math.Float64bits(math.Inf(1)))
 	return p
@@ -34,6 +38,16 @@ func (p *pool) add(ev *evaluated) {
 	}
 	if slices.ContainsFunc(p.items, func(x *evaluated) bool { return x.key == ev.key }) {
 		return
+	}
+	if p.fold {
+		// a near-duplicate replaces its group's member only when better
+		ev.grp = ev.group()
+		if i := slices.IndexFunc(p.items, func(x *evaluated) bool { return x.grp == ev.grp }); i >= 0 {
+			if !less(ev, p.items[i]) {
+				return
+			}
+			p.items = slices.Delete(p.items, i, i+1)
+		}
 	}
 	i, _ := slices.BinarySearchFunc(p.items, ev, func(x, y *evaluated) int {
 		if less(x, y) {

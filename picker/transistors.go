@@ -20,6 +20,9 @@ type device struct {
 	// betaNomMin bounds IC/IB from below at every nominal point of a
 	// passing build (evaluator.nominalBetaMin).
 	betaNomMin float64
+	// labelGroup is the index of the first device with this label
+	// (near-duplicates, fold.go).
+	labelGroup int
 }
 
 // nominalDevice holds the model's figures just below the nominal ambient

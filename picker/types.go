@@ -91,6 +91,10 @@ type Request struct {
 	Top         int // 0 = 5
 	Exhaustive  bool
 	ShowFailing bool // also list builds that fail a hard limit, with the reason
+	// ShowAll lists near-duplicate builds each in its own place; without
+	// it only the best of each group of near-duplicates is listed, with
+	// the others counted in Candidate.Folded (see fold.go).
+	ShowAll bool
 	// AllowUnrated lets transistor lines whose ratings that matter for the
 	// request are not stated (solver.UnknownRatings) into the search;
 	// without it they are left out with the reason. Each build on such a
@@ -168,6 +172,12 @@ type Candidate struct {
 	// around the target: a build that passes every hard limit and is on
 	// target fits the request.
 	OnTarget bool
+	// Folded counts the near-duplicates of this build left out of the
+	// list: the other builds of the stock with the same topology,
+	// transistor type and values, differing only in tolerance grade,
+	// rating, TCR or stock line (fold.go), whether they pass or not.
+	// Always 0 with Request.ShowAll.
+	Folded int
 }
 
 // Shortfall explains why nothing (or too little) fits, with a suggestion.

@@ -22,6 +22,9 @@ type value struct {
 	rank int
 	// kept is a part already on the board (Request.Keep): no stock line.
 	kept bool
+	// shape is the value's group of near-duplicates within its level
+	// (fold.go: setShapes).
+	shape int
 }
 
 // parts returns the line indexes the value draws one part from each.
@@ -161,6 +164,7 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 			l.stock = slices.DeleteFunc(slices.Clone(l.values), func(vi int) bool { return vs.values[vi].kept })
 		}
 	}
+	vs.setShapes()
 	return vs
 }
 

@@ -77,10 +77,13 @@ type jsonRival struct {
 }
 
 type jsonCandidate struct {
-	ID         string                  `json:"id"`
-	Topology   string                  `json:"topology"`
-	Rank       int                     `json:"rank"`
-	Score      float64                 `json:"score"`
+	ID       string  `json:"id"`
+	Topology string  `json:"topology"`
+	Rank     int     `json:"rank"`
+	Score    float64 `json:"score"`
+	// Folded counts the near-duplicates of this build left out of the
+	// list (same topology, transistor type and values); 0 with --all.
+	Folded     int                     `json:"folded"`
 	Terms      jsonTerms               `json:"terms"`
 	Transistor jsonTransistor          `json:"transistor"`
 	Resistors  map[string]jsonPosition `json:"resistors"`
@@ -295,6 +298,7 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 		Topology: c.Build.Topology.String(),
 		Rank:     c.Rank,
 		Score:    c.Score,
+		Folded:   c.Folded,
 		Terms: jsonTerms{
 			QPoint:      c.Terms.QPoint,
 			Emitter:     c.Terms.Emitter,

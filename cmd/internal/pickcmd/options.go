@@ -49,6 +49,7 @@ type Options struct {
 	Top         int
 	Exhaustive  bool
 	ShowFailing bool
+	All         bool
 	// AllowUnrated lets transistor lines that state no VCEO or power
 	// rating into the search (each such build says so).
 	AllowUnrated bool

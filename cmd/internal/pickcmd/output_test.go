@@ -41,13 +41,16 @@ func TestOutputGolden(t *testing.T) {
 	hotCand.MaxUtilization = 0.9
 	hotCand.Build.VCC_V = 60
 	hotCand.Worst.Dissipation.Resistor[solver.RC] = solver.PartLoad{Power_W: 0.1125, Allowed_W: 0.125, Utilization: 0.9, Rated: true}
+	// the second build stands for two near-duplicates folded into it
+	folded := fakeCandidate(2)
+	folded.Folded = 2
 	tests := []struct {
 		name string
 		v    *job.PickOutcome
 		json bool
 	}{
 		{"table", outcome(fakeRequest(), picker.Result{
-			Candidates: []picker.Candidate{fakeCandidate(1), fakeCandidate(2)}, Evaluated: 321, Considered: 12345}, 0, picker.Result{}), false},
+			Candidates: []picker.Candidate{fakeCandidate(1), folded}, Evaluated: 321, Considered: 12345}, 0, picker.Result{}), false},
 		{"json", outcome(fakeRequest(), picker.Result{
 			Candidates: []picker.Candidate{fakeCandidate(1)}, Evaluated: 321, Considered: 12345}, 0, picker.Result{}), true},
 		{"nothing_fits", outcome(fakeRequest(), picker.Result{

@@ -149,6 +149,7 @@ can take their parts out of stock later.
 	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
 	fl.BoolVar(&o.Exhaustive, "exhaustive", false, "evaluate every combination instead of the pruned search")
 	fl.BoolVar(&o.ShowFailing, "show-failing", false, "also show builds that break a hard limit, with the reason")
+	fl.BoolVar(&o.All, "all", false, "list near-duplicate builds (the same values with another tolerance grade, rating or drawer) each in its own place instead of folding them into the best one")
 	fl.BoolVar(&o.AllowUnrated, "allow-unrated", false, "also use transistors that state no VCEO or power rating (each such build says what is unknown)")
 	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "seed of the Monte Carlo yield runs")
 	fl.BoolVar(&o.JSON, "json", false, "write the result as JSON")

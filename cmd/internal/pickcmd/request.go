@@ -133,6 +133,7 @@ func (o *Options) request() (picker.Request, error) {
 	req.Pairs = o.Pairs
 	req.Exhaustive = o.Exhaustive
 	req.ShowFailing = o.ShowFailing
+	req.ShowAll = o.All
 	req.AllowUnrated = o.AllowUnrated
 	req.Seed = o.Seed
 	for _, t := range o.RequireTags {

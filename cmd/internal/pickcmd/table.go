@@ -93,6 +93,10 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 		topo = "  " + c.Build.Topology.String()
 	}
 	fmt.Fprintf(w, "\n#%d  %s%s  score %.3f  (id %s)\n", c.Rank, c.Transistor.Sheet.Label, topo, c.Score, c.ID)
+	if c.Folded > 0 {
+		fmt.Fprintf(w, "    + %s folded in (the same values with another tolerance grade, rating or drawer; --all lists them)\n",
+			nearDuplicates(c.Folded))
+	}
 	for _, why := range c.Failing {
 		fmt.Fprintf(w, "    %s %s\n", st.mark("FAILS:"), report.Failure(why))
 	}
@@ -289,4 +293,12 @@ func (s Style) mark(text string) string {
 		return text
 	}
 	return "\x1b[1m" + text + "\x1b[0m"
+}
+
+// nearDuplicates counts folded builds: "1 near-duplicate", "3 near-duplicates".
+func nearDuplicates(n int) string {
+	if n == 1 {
+		return "1 near-duplicate"
+	}
+	return fmt.Sprintf("%d near-duplicates", n)
 }
