@@ -32,7 +32,7 @@ func newMeasureCmd(f *cmdutil.Factory, runF func(*MeasureOptions) error) *cobra.
 	cmd := &cobra.Command{
 		Use:   "measure ID --board K --vb V --ve V --vc V",
 		Short: "Record a board's bring-up readings and judge them against the bands",
-		Long: `Record the DC voltages of board K of build ID, measured to ground with the
+		Long: `Record the DC voltages of board K of build ID, measured to 0 V with the
 board powered: VB at the base, VE at the emitter, VC at the collector
 (signed as the meter shows them against the 0 V the build sheet names:
 positive on a stage built on a positive supply, PNP too). Each is checked against its band (the
@@ -60,9 +60,9 @@ replaces its record.`,
 		},
 	}
 	cmd.Flags().IntVar(&o.Board, "board", 0, "board number, 1 to the build's boards (required)")
-	cmd.Flags().StringVar(&o.VB, "vb", "", "base voltage to ground, e.g. 1.95 or 1.95V (required)")
-	cmd.Flags().StringVar(&o.VE, "ve", "", "emitter voltage to ground (required)")
-	cmd.Flags().StringVar(&o.VC, "vc", "", "collector voltage to ground (required)")
+	cmd.Flags().StringVar(&o.VB, "vb", "", "base voltage to 0 V as the meter shows it, e.g. 1.95 or 1.95V (required)")
+	cmd.Flags().StringVar(&o.VE, "ve", "", "emitter voltage to 0 V (required)")
+	cmd.Flags().StringVar(&o.VC, "vc", "", "collector voltage to 0 V (required)")
 	cmd.Flags().BoolVar(&o.JSON, "json", false, "print the board's record as JSON (as in build show --json)")
 	return cmd
 }

@@ -196,3 +196,43 @@ func TestSpiceWithJSON(t *testing.T) {
 		}
 	}
 }
+
+// TestPNPPositiveJSON: a PNP stage on a positive supply (the default)
+// says so in the JSON, gives the supply and every node voltage as a meter
+// shows them against 0 V (the collector-side rail: all positive, the
+// emitter above the base above the collector) and names what each
+// resistor joins (common practice: RE and R2 from +V, RC and R1 to 0 V).
+func TestPNPPositiveJSON(t *testing.T) {
+	out, errOut, code := run(t, []string{"--polarity", "pnp", "--vcc", "5V", "--r1", "1K", "--r2", "470R", "--rc", "1K5", "--re", "1K",
+		"--hfe", "100..300", "--boards", "100", "--json"})
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		VCC_V      float64 `json:"vcc_v"`
+		Rail       string  `json:"rail"`
+		Ground     string  `json:"ground"`
+		TestPoints map[string]struct {
+			Nominal_V, Min_V, Max_V float64
+		} `json:"test_points"`
+		Resistors map[string]struct {
+			Joins [2]string `json:"joins"`
+		} `json:"resistors"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if doc.VCC_V != 5 || doc.Rail != "positive" || doc.Ground != "collector-rail" {
+		t.Errorf("vcc_v %g rail %q ground %q; want 5, positive, collector-rail", doc.VCC_V, doc.Rail, doc.Ground)
+	}
+	vb, ve, vc := doc.TestPoints["vb"], doc.TestPoints["ve"], doc.TestPoints["vc"]
+	if !(ve.Nominal_V > vb.Nominal_V && vb.Nominal_V > vc.Nominal_V && vc.Min_V > 0 && ve.Max_V < 5.25) {
+		t.Errorf("test points VE %+v VB %+v VC %+v: want 0 < VC < VB < VE below the supply", ve, vb, vc)
+	}
+	want := map[string][2]string{"r1": {"base", "0v"}, "r2": {"+v", "base"}, "rc": {"collector", "0v"}, "re": {"+v", "emitter"}}
+	for slot, w := range want {
+		if got := doc.Resistors[slot].Joins; got != w {
+			t.Errorf("%s joins %v, want %v", slot, got, w)
+		}
+	}
+}

@@ -89,7 +89,8 @@ and supply tolerance and ambient range (each resistor's TCR applied at the
 corner's ambient, resistors taken to sit at the ambient, the transistor
 self-heated through its θJA), a Monte Carlo yield, each part's dissipation
 against its derated rating, the load lines and swing, and the test-point
-voltages (VB, VE, VC to ground) to measure at bring-up with their bands.
+voltages (VB, VE, VC to 0 V, as a meter shows them) to measure at
+bring-up with their bands.
 
 Values take the letter-and-digit code or SI: 12V, 4K7, 470R, 10k, 2mA.
 A supply that moves over a range (a battery from fresh to flat) is given as
@@ -101,8 +102,16 @@ check b3b39a272f57c; --window, --boards and --seed still apply.
 A resistor may carry its own tolerance and power rating after slashes
 (6K8/10%/1W, 4K7F/0.5W) or name a resistor stock line ('#26': its stocked
 tolerance, rating, TCR and element voltage); otherwise
---tol applies. For PNP give --vcc as a magnitude or as the negative rail;
---vee is the emitter rail of the split-supply stage (magnitude or signed).
+--tol applies.
+
+A PNP stage runs from a positive supply by default: emitter side to +V,
+collector side to 0 V, so its voltages read positive. --rail negative (or
+a negative --vcc) builds it with the emitter side on 0 V and the collector
+side on -V. A split-supply stage is measured from the common of its two
+supplies: --vee is the emitter rail (magnitude or signed); for a PNP stage
+the collector rail is the negative one and the emitter rail the positive
+one, for an NPN stage the other way round. The report names what each
+resistor joins (R1 +V to base, RE emitter to 0 V, ...).
 
 The transistor comes from the stock (--transistor LABEL, in any letter
 case) or inline (--polarity, --hfe ...). Inline flags given with --transistor override the

@@ -105,3 +105,40 @@ func TestJSONShape(t *testing.T) {
 		t.Errorf("cautions missing: json %v, stderr %q", doc.Cautions, errOut)
 	}
 }
+
+// TestPNPOnAPositiveSupply: the same stage built with a PNP on a positive
+// supply (the default), read as the meter shows it from 0 V on the
+// collector side. REFERENCE.md §22's open-emitter-junction pattern,
+// mirrored: no current in RE, so the emitter sits at +V (12 V); no
+// collector current, so the collector sits at 0 V; the base at the
+// unloaded divider, 12·47/57 V (R2 from +V to the base, R1 from the base
+// to 0 V). The JSON says what the readings are measured against.
+func TestPNPOnAPositiveSupply(t *testing.T) {
+	out, errOut, err := run(t, with("--polarity", "pnp", "--vb", "9.89V", "--ve", "12.0V", "--vc", "0V", "--json")...)
+	if err != nil {
+		t.Fatalf("%v\n%s", err, errOut)
+	}
+	var doc struct {
+		Rail   string `json:"rail"`
+		Ground string `json:"ground"`
+		Faults []struct {
+			Position string `json:"position"`
+			Kind     string `json:"kind"`
+		} `json:"faults"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatalf("not JSON: %v\n%s", err, out)
+	}
+	if doc.Rail != "positive" || doc.Ground != "collector-rail" {
+		t.Errorf("rail %q ground %q, want positive, collector-rail", doc.Rail, doc.Ground)
+	}
+	if len(doc.Faults) == 0 || doc.Faults[0].Position != "q" || doc.Faults[0].Kind != "be-open" {
+		t.Errorf("faults %+v, want q be-open first", doc.Faults)
+	}
+	// The same readings on a stage with its emitter side on 0 V lie
+	// outside its rails (-12..0 V): exit 1 naming the reading.
+	_, _, err = run(t, with("--polarity", "pnp", "--rail", "negative", "--vb", "9.89V", "--ve", "12.0V", "--vc", "0V")...)
+	if cmdutil.ExitCode(err) != 1 || err == nil || !strings.Contains(err.Error(), "--vb: 9.89 V lies outside the supply rails -12..0 V") {
+		t.Errorf("readings of a positive-supply stage on --rail negative: %v, want exit 1 naming --vb outside -12..0 V", err)
+	}
+}

@@ -12,6 +12,9 @@ import (
 
 // jsonDoc is the --json document; SI base units, the unit in the key.
 type jsonDoc struct {
+	// Reference says what the readings are measured against (rail,
+	// ground).
+	report.Reference
 	Readings  jsonReadings `json:"readings"`
 	Meter     jsonMeter    `json:"meter"`
 	Working   jsonWorking  `json:"working"`
@@ -94,6 +97,7 @@ func expectOf(c fault.Check, e fault.Expect) jsonExpect {
 func WriteJSON(w io.Writer, req repair.DiagnoseRequest, d *repair.Diagnosis) error {
 	m := d.Settings.Meter
 	doc := jsonDoc{
+		Reference: report.ReferenceOf(req.Device.Polarity, req.Stage.Topology, req.Stage.Ground),
 		Readings:  readingsOf(req.Readings),
 		Meter:     jsonMeter{Fraction: m.Fraction, Offset_V: m.Offset_V, Input_Ohm: m.Input_Ohm, VBESpread_V: d.Settings.VBESpread_V},
 		Working:   jsonWorking{Fit: finite(d.Working.Fit), Predicted: readingsOf(d.Working.Predicted)},

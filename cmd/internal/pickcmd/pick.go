@@ -46,12 +46,19 @@ band, the voltages to measure at bring-up and the Monte Carlo yield.
 Values take the letter-and-digit code or SI: 12V, 2mA, 4K7, 470R, 10k.
 
 Topologies (--topology): divider (R1, R2, RC, RE), collector-feedback (RF
-from collector to base, RC, RE) and split-supply (RB from base to ground,
+from collector to base, RC, RE) and split-supply (RB from base to 0 V,
 RC, RE to the emitter rail --vee). "any" searches every one (split supply
 only with --vee), ranks their builds on one scale, names each build's
 topology and says in one line why the first beats the best of each other
 topology. For split supply the supply span is VCC + VEE and the emitter
 term does not apply (VEE sets the emitter resistor's drop).
+
+A PNP stage runs from a positive supply by default (emitter side to +V,
+collector side to 0 V); --rail negative, or a negative --vcc, puts its
+emitter side on 0 V and its collector side on -V. A split-supply stage is
+measured from the common of its two supplies (PNP: collector rail -V,
+emitter rail +V). Every voltage shown is what a meter reads against 0 V,
+and each resistor says what it joins.
 
 A repair keeps the resistors still good on the board and fills the rest
 from stock: --keep r1=47K,r2=10K names positions of the topology (r1, r2,
@@ -131,7 +138,7 @@ can take their parts out of stock later.
 	fl.StringVar(&o.VCCTol, "vcc-tol", defaultVCCTol, "supply tolerance")
 	fl.StringVar(&o.IC, "ic", "", "target collector current, e.g. 2mA")
 	fl.StringVar(&o.VCE, "vce", "", "target VCE (default: the maximum-symmetrical-swing rule, see above)")
-	fl.StringVar(&o.VE, "ve", "", "emitter voltage band MIN..MAX or a single value (default 5 % to 20 % of the supply)")
+	fl.StringVar(&o.VE, "ve", "", "the voltage across RE, MIN..MAX or a single value (default 5 % to 20 % of the supply); VE itself for a stage with its emitter side on 0 V, +V minus VE for a PNP stage on a positive supply")
 	fl.StringVar(&o.Polarity, "polarity", "npn", "transistor polarity: npn or pnp")
 	fl.StringVar(&o.Topology, "topology", "divider", "bias circuit: divider, collector-feedback, split-supply, or any (every one, ranked on one scale)")
 	fl.StringVar(&o.VEE, "vee", "", "emitter rail of the split-supply stage, e.g. 12V (a magnitude, taken opposite to --vcc; --vcc-tol applies to it too)")

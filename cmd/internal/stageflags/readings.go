@@ -32,9 +32,9 @@ type Readings struct {
 // AddFlags registers --vb --ve --vc (what says where they were measured),
 // --meter and --meter-input on fl.
 func (r *Readings) AddFlags(fl *pflag.FlagSet, what string) {
-	fl.StringVar(&r.VB, "vb", "", "base voltage to ground measured on "+what+", signed as the meter shows it (e.g. 2.08V)")
-	fl.StringVar(&r.VE, "ve", "", "emitter voltage to ground measured on "+what)
-	fl.StringVar(&r.VC, "vc", "", "collector voltage to ground measured on "+what)
+	fl.StringVar(&r.VB, "vb", "", "base voltage to 0 V measured on "+what+", signed as the meter shows it (e.g. 2.08V; see --rail for where 0 V is)")
+	fl.StringVar(&r.VE, "ve", "", "emitter voltage to 0 V measured on "+what)
+	fl.StringVar(&r.VC, "vc", "", "collector voltage to 0 V measured on "+what)
 	fl.StringVar(&r.Meter, "meter", DefaultMeter(), "meter accuracy: PERCENT of the reading + VOLTS")
 	fl.StringVar(&r.MeterInput, "meter-input", DefaultMeterInput(), "meter input resistance on DC volts")
 }

@@ -83,3 +83,38 @@ func TestStageStockResistor(t *testing.T) {
 		t.Fatalf("err = %v, want a stock line error", err)
 	}
 }
+
+// TestStageGround: --rail and the sign of --vcc say where 0 V is (common
+// practice: a PNP stage usually runs from a positive supply, emitter side
+// to +V and collector side to 0 V; the negative-rail form puts its emitter
+// side on 0 V; a split supply is read from its common).
+func TestStageGround(t *testing.T) {
+	div := []string{"--r1", "47K", "--r2", "10K", "--rc", "2K2"}
+	tests := []struct {
+		args []string
+		pol  solver.Polarity
+		want solver.Ground
+		bad  string
+	}{
+		{append([]string{"--vcc", "12V"}, div...), solver.NPN, solver.EmitterRailGround, ""},
+		{append([]string{"--vcc", "5V"}, div...), solver.PNP, solver.CollectorRailGround, ""},
+		{append([]string{"--vcc", "5V", "--rail", "positive"}, div...), solver.PNP, solver.CollectorRailGround, ""},
+		{append([]string{"--vcc", "5V", "--rail", "negative"}, div...), solver.PNP, solver.EmitterRailGround, ""},
+		{append([]string{"--vcc", "-5V"}, div...), solver.PNP, solver.EmitterRailGround, ""},
+		{append([]string{"--vcc", "-5V", "--rail", "positive"}, div...), solver.PNP, 0, "--vcc"},
+		{append([]string{"--vcc", "12V", "--rail", "negative"}, div...), solver.NPN, 0, "--rail"},
+		{append([]string{"--vcc", "12V", "--rail", "up"}, div...), solver.PNP, 0, "--rail"},
+		{[]string{"--topology", "split-supply", "--vcc", "15V", "--vee", "15V", "--rb", "10K", "--rc", "10K", "--re", "20K"}, solver.PNP, solver.EmitterRailGround, ""},
+		{[]string{"--topology", "split-supply", "--vcc", "15V", "--vee", "15V", "--rb", "10K", "--rc", "10K", "--re", "20K", "--rail", "positive"}, solver.PNP, 0, "--rail"},
+	}
+	for _, tt := range tests {
+		b, err := parseStage(t, tt.args...).Build(context.Background(), tt.pol, nil)
+		var ue *cmdutil.UsageError
+		switch {
+		case tt.bad == "" && (err != nil || b.Ground != tt.want):
+			t.Errorf("%v (%v): ground %v, %v; want %v", tt.args, tt.pol, b.Ground, err, tt.want)
+		case tt.bad != "" && (!errors.As(err, &ue) || !strings.HasPrefix(err.Error(), tt.bad+":")):
+			t.Errorf("%v (%v): %v; want a usage error naming %s", tt.args, tt.pol, err, tt.bad)
+		}
+	}
+}

@@ -13,6 +13,9 @@ import (
 
 // jsonDoc is the --json document; SI base units, the unit in the key.
 type jsonDoc struct {
+	// Reference says what the readings and node voltages are measured
+	// against (rail, ground).
+	report.Reference
 	Original   jsonOriginal    `json:"original"`
 	Tolerance  float64         `json:"ic_tolerance"`
 	NoneWithin bool            `json:"none_within"`
@@ -117,8 +120,9 @@ type jsonSkipped struct {
 }
 
 // WriteJSON writes a substitution as one indented JSON document.
-func WriteJSON(w io.Writer, s *repair.Substitution) error {
+func WriteJSON(w io.Writer, req repair.SubstituteRequest, s *repair.Substitution) error {
 	doc := jsonDoc{
+		Reference:  report.ReferenceOf(req.Polarity, req.Build.Topology, req.Build.Ground),
 		Original:   originalOf(s.Original),
 		Tolerance:  s.Tolerance,
 		NoneWithin: s.NoneWithin,

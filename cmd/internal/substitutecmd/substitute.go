@@ -171,7 +171,7 @@ func Run(ctx context.Context, o *Options) error {
 		return stageflags.JobError("substitute", err)
 	}
 	if o.JSON {
-		if err := WriteJSON(o.IO.Out, res); err != nil {
+		if err := WriteJSON(o.IO.Out, req, res); err != nil {
 			return fmt.Errorf("substitute: write JSON: %w", err)
 		}
 	} else {
