@@ -180,3 +180,74 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 		}
 	}
 }
+
+// TestPartsFloorAndSingleIndex checks bound P's pieces on an E24 wall
+// with pairs (IEC 60063:2015, Table 1) against a direct reading of the
+// values: a level's parts floor is at most the extra parts of every value
+// in it (and 1 exactly when all are pairs), nextSingle and prevSingle
+// name the nearest levels holding a single, and firstIn over the singles
+// finds, for monotone predicates, the first single level a linear scan
+// finds.
+func TestPartsFloorAndSingleIndex(t *testing.T) {
+	lines := seriesStock(eseries.E24, 100, 100e3, 0.01, 0.25, 4, 1)
+	vs := buildValues(lines, 1, true, 50, solver.Limits{}.WithDefaults())
+	n := len(vs.levels)
+	holdsSingle := func(i int) bool {
+		for _, vi := range vs.levels[i].values {
+			if vs.values[vi].lines[1] < 0 {
+				return true
+			}
+		}
+		return false
+	}
+	pairOnly := 0
+	for i := range n {
+		want := 0.0
+		if !holdsSingle(i) {
+			want = 1
+			pairOnly++
+		}
+		if got := vs.partsFloor(i); got != want {
+			t.Fatalf("level %d (%g Ω): parts floor %g, want %g", i, vs.levels[i].ohm, got, want)
+		}
+		next, prev := n, -1
+		for j := i; j < n; j++ {
+			if holdsSingle(j) {
+				next = j
+				break
+			}
+		}
+		for j := i; j >= 0; j-- {
+			if holdsSingle(j) {
+				prev = j
+				break
+			}
+		}
+		if vs.up(i, true) != next || vs.down(i, true) != prev {
+			t.Fatalf("level %d: up %d down %d, want %d and %d", i, vs.up(i, true), vs.down(i, true), next, prev)
+		}
+	}
+	if pairOnly == 0 || pairOnly == n {
+		t.Fatalf("%d of %d levels pair-only: the wall does not test the index", pairOnly, n)
+	}
+	rng := rand.New(rand.NewPCG(3, 5))
+	for range 2000 {
+		lo := rng.IntN(n)
+		hi := lo + rng.IntN(n-lo)
+		cut := rng.IntN(n + 1)
+		f := func(i int) bool { return i >= cut }
+		want := hi + 1
+		for j := lo; j <= hi; j++ {
+			if f(j) && holdsSingle(j) {
+				want = j
+				break
+			}
+		}
+		if got := vs.firstIn(lo, hi, lo+rng.IntN(hi-lo+1), true, f); got != want {
+			t.Fatalf("firstIn(%d, %d) singles, cut %d: %d, want %d", lo, hi, cut, got, want)
+		}
+		if got, all := vs.firstIn(lo, hi, lo, false, f), max(lo, min(cut, hi+1)); got != all {
+			t.Fatalf("firstIn(%d, %d), cut %d: %d, want %d", lo, hi, cut, got, all)
+		}
+	}
+}

@@ -189,8 +189,10 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 // ≥ icLo·RE: the emitter term is at least (icLo·RE − VE max)/VCC). These
 // rise with RE: stop is true when one is over the threshold, and no larger
 // RE can enter either. skip is true when this RE cannot enter: those, or
-// U-RE with this level's own allowance, or E-RE's low side (VE = IE·RE ≤
-// kE·icHi·RE, so the emitter term is at least (VE min − kE·icHi·RE)/VCC).
+// the sum of the floors of different terms — U-RE with this level's own
+// allowance, Q-RE, E-RE with its low side (VE = IE·RE ≤ kE·icHi·RE, so the
+// emitter term is at least (VE min − kE·icHi·RE)/VCC) and the level's
+// parts floor (bound P) — is over it.
 func (e *evaluator) reCuts(bd bounds, re int, kE, vceLo float64) (stop, skip bool) {
 	if !bd.finite {
 		return false, false
@@ -198,15 +200,22 @@ func (e *evaluator) reCuts(bd bounds, re int, kE, vceLo float64) (stop, skip boo
 	s, w := &e.s, e.s.w
 	reOhm := e.vs.levels[re].ohm
 	band := e.lay.emitterBand
-	if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr ||
-		w.QPoint*(vceLo-(e.span-bd.icLo*(e.vs.levels[0].ohm+reOhm)))/e.span > bd.thr ||
-		band && w.Emitter*(bd.icLo*reOhm-s.veHi)/s.vcc > bd.thr {
+	q := w.QPoint * (vceLo - (e.span - bd.icLo*(e.vs.levels[0].ohm+reOhm))) / e.span
+	eHi := 0.0
+	if band {
+		eHi = w.Emitter * (bd.icLo*reOhm - s.veHi) / s.vcc
+	}
+	if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.allowHotMax_W > bd.thr || q > bd.thr || eHi > bd.thr {
 		return true, true
 	}
-	if w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W > bd.thr {
-		return false, true
+	// The floors of different terms add up, with this level's parts
+	// floor (bound P); none of these need rise with RE, so they only skip.
+	uOwn := w.Utilization * bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+	eLo := 0.0
+	if band {
+		eLo = w.Emitter * (s.veLo - kE*bd.icHi*reOhm) / s.vcc
 	}
-	if band && w.Emitter*(s.veLo-kE*bd.icHi*reOhm)/s.vcc > bd.thr {
+	if e.partsFloor(re)+uOwn+math.Max(0, q)+math.Max(0, math.Max(eHi, eLo)) > bd.thr {
 		return false, true
 	}
 	return false, false

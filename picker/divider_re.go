@@ -10,6 +10,8 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	w := e.s.w
 	dv := &e.devs[di]
 	reOhm := e.vs.levels[re].ohm
+	// pfRE is RE's parts floor (bound P): every build here carries it.
+	pfRE := e.partsFloor(re)
 	d.cache.reset()
 	guessLo, guessHi := n/2, n/2
 	var vbeLo, vbeHi, lastThr float64
@@ -30,7 +32,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 		lo, hi := e.vbeBounds(dv, bd.icLo, bd.icHi)
 		vbLo, vbHi := lo+bd.icLo*reOhm, hi+bd.icHi*kE*reOhm
 		start = firstLevel(n, func(i int) bool {
-			return w.Utilization*e.dividerPowerBoundWeak(i, vbLo, vbHi) <= bd.thr
+			return pfRE+w.Utilization*e.dividerPowerBoundWeak(i, vbLo, vbHi) <= bd.thr
 		})
 	}
 	// r2Floors bounds, for every build with R2 in levels [first, last],
@@ -58,18 +60,32 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	r2Lo, r2Hi := e.clampRange(iR2, start, n-1)
 	for r2 := r2Lo; r2 <= r2Hi; r2++ {
 		bd := e.boundsNow(p)
+		if e.vs.levels[r2].pairOnly && e.singlesOnly(pfRE, bd.thr) {
+			r2 = e.vs.nextSingle[r2] - 1 // bound P: no room for a pair in R2
+			continue
+		}
 		rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
 		if rcLo > rcHi {
 			break // the band only narrows as the threshold falls
 		}
+		// pf2 is the parts floor of RE and R2 (bound P).
+		pf2 := pfRE + e.partsFloor(r2)
 		if skip > 1 && bd.finite && w.Beta > 0 {
 			last := min(r2+skip-1, n-1)
-			if bLo, uRE, eLo := r2Floors(bd, r2, last, rcLo, rcHi); w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
+			if bLo, uRE, eLo := r2Floors(bd, r2, last, rcLo, rcHi); pfRE+w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				r2 = last
 				skip *= 2
 				continue
 			}
 			skip = 1
+		}
+		rcSingles := e.singlesOnly(pf2, bd.thr)
+		if rcSingles {
+			// bound P: no room for a pair in RC either
+			rcLo, rcHi = e.vs.up(rcLo, true), e.vs.down(rcHi, true)
+			if rcLo > rcHi {
+				continue
+			}
 		}
 		if rcLo != lastRcLo {
 			// upSeen holds IC at the band's bottom RC: only valid for it
@@ -94,12 +110,12 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
 			var uRE float64
 			bLo, uRE, eLo = r2Floors(bd, r2, r2, rcLo, rcHi)
-			if w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
+			if pfRE+w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				skip = 2 // try the next levels in blocks
 				continue
 			}
 			uBase = math.Max(uRE, uDiv)
-			base = w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
+			base = pf2 + w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
 			if base > bd.thr {
 				continue
 			}
@@ -115,7 +131,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// which falls with R1 (lemmas L1, L2).
 			// IC rises with R2 (L1), so an IC seen at a smaller R2
 			// bounds this R2's from below and can settle a probe.
-			r1Hi = firstFrom(n, guessHi, func(i int) bool {
+			// Bound P: with no room for a pair in R1 only the levels
+			// holding a single are probed (the loop below steps over
+			// the others).
+			singles := e.singlesOnly(base, bd.thr)
+			r1Hi = e.vs.firstIn(0, n-1, guessHi, singles, func(i int) bool {
 				if v, ok := upSeen[i]; ok && v >= icLo {
 					return false
 				}
@@ -132,18 +152,18 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			if r1Hi >= 0 && vbHi < e.s.vcc {
 				r1Ohm := e.vs.levels[r1Hi].ohm
 				uR1 := (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.allowHotMax_W
-				if w.Beta*bLo+w.Utilization*math.Max(uBase, uR1)+w.Emitter*eLo > bd.thr {
+				if pf2+w.Beta*bLo+w.Utilization*math.Max(uBase, uR1)+w.Emitter*eLo > bd.thr {
 					continue
 				}
 			}
 			// Bound IC-R1 low side: the lowest IC any build at R1
 			// that is active at its nominal point can have (a build
 			// whose nominal point is not active fails its bench limit).
-			r1Lo = firstFrom(n, guessLo, func(i int) bool {
+			r1Lo = e.vs.firstIn(0, n-1, guessLo, singles, func(i int) bool {
 				if v, ok := floorSeen[i]; ok && v > icHi {
 					return false
 				}
-				ic, any := icFloor(func(rc int) *tuple { return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt) }, rcLo, rcHi, icHi)
+				ic, any := e.vs.icFloor(func(rc int) *tuple { return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt) }, rcLo, rcHi, icHi, rcSingles)
 				if !any {
 					ic = math.Inf(1)
 				}
@@ -163,6 +183,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			return r1Ohm * r2Ohm / (r1Ohm + r2Ohm)
 		}
 		for r1 := r1Lo; r1 <= r1Hi; r1++ {
+			if bd.finite && e.vs.levels[r1].pairOnly && e.singlesOnly(base, p.threshold()) {
+				r1 = e.vs.nextSingle[r1] - 1 // bound P: no room for a pair in R1
+				continue
+			}
 			b1 := base
 			if bd.finite {
 				// R1 dissipates (VCC − VB)²/R1 ≥ (VCC − vbHi)²/R1.
@@ -177,7 +201,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				if vbHi < e.s.vcc {
 					uR1 = (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.levels[r1].allowHot_W
 				}
-				b1 = w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1) + w.Emitter*eLo
+				b1 = pf2 + e.partsFloor(r1) + w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1) + w.Emitter*eLo
 			}
 			lv := [maxPos]int{r1, r2, 0, re}
 			e.scanRC(p, &d.cache, cnt, di, lv, iRC, &d.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, b1)

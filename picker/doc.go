@@ -57,10 +57,10 @@
 //	            more part to place and solder
 //
 // Default weights: QPoint 2, Emitter 2, Beta 1, Headroom 1,
-// Utilization 0.25, Yield 1, Parts 0 (DefaultPartsWeight: off by default,
-// because the search's bounds do not yet count it and a positive weight
-// makes a search with pairs prune far less; --weights parts=0.05 prices a
-// pair's extra placement at what a 2.5 % IC error costs). The VCE target is the request's, or the VCE that maximises the
+// Utilization 0.25, Yield 1, Parts 0.05 (DefaultPartsWeight: a pair's
+// extra placement costs what a 2.5 % IC error costs, so a pair must buy a
+// real improvement over stocked singles to rank above them). The VCE
+// target is the request's, or the VCE that maximises the
 // symmetrical swing of this build at the target current: with
 // r_ac = RC‖RL + RE(unbypassed) and R_dc = RC + RE it is
 // VCE(sat) + (|VCC| − VCE(sat))·r_ac/(R_dc + r_ac), which is the mid-point
@@ -130,8 +130,41 @@
 //     ±T/w_QPoint of the target, boundsNow) and the per-build cuts of
 //     scoreVariants hold for every topology.
 //
+// Bound P, the parts term, holds for every plan: a level whose values are
+// all pairs (level.pairOnly) puts at least one extra part in its position,
+// so every build with it scores at least the floor of its other terms
+// plus w_Parts. Each loop adds the parts floors of the positions it has
+// fixed to the floors it compares with T, and where floor + w_Parts
+// exceeds T it visits only the levels holding a single (see "Pairs").
+//
 // TestSearchMatchesExhaustive compares every plan with the exhaustive
-// evaluation on random stocks.
+// evaluation on random stocks, TestPairsMatchExhaustive on E96 sub-walls
+// with pairs and parts weights from 0 up.
+//
+// # Pairs
+//
+// A pair's value is a sum (series) or a harmonic sum (parallel) of two
+// stocked values. Every worthwhile pair is formed once (n lines give up
+// to n(n+1) values: the E96 wall of 481 lines about 232 000, in about
+// 110 000 levels) and sorted with the singles into one ascending list of
+// levels, so a pair is searched exactly as a single is: every bound of a
+// plan is an interval of a position's resistance (the IC window gives R1's,
+// RF's or RB's range by bisection over the sorted levels, the VCE band
+// RC's, the RE cuts RE's) and only the levels inside it are visited, at a
+// cost of the logarithm of the level count per bisection, not of the pair
+// count. Within the interval, bound P does the rest: the levels holding a
+// single are indexed (valueSet.nextSingle, prevSingle, singleLevels), and
+// a loop whose floor leaves no room for w_Parts steps from one such level
+// to the next, its bisections probe only them (a predicate monotone over
+// every level is monotone over a subsequence: valueSet.firstIn), and a
+// solved tuple scores only its singles when its Q-point and emitter terms
+// leave no room either (scoreVariants). Every build so passed over puts a
+// pair in a position where its floor plus w_Parts exceeds T, so the search
+// stays exact. On a dense wall the best builds are singles unless a pair
+// buys more than w_Parts, so the search visits about what the singles
+// alone would; with w_Parts = 0 a pair costs nothing, the pair levels form
+// a near-continuum of values, and the number of near-ties the bounds must
+// separate grows with it (the benchmarks say how far).
 //
 // # The divider's plan
 //
@@ -257,6 +290,16 @@
 //     and narrows the IC window.
 //   - RF window: by F1 the RF levels with IC in the window are found by two
 //     searches; bound B over the window narrows it again.
+//   - F-RF: RF is at most the largest level, so by F1 every build at (RC,
+//     RE) has IC at least IC at the largest RF, which falls as RC + RE
+//     rises (L1 in the divider picture, RE' = RC + RE). Over a block of RC
+//     levels every build has IC ≥ x0, the IC at the largest RF and the
+//     block's largest RC, and RC + RE between the block's ends: F-Q over
+//     x ≥ x0 with VCE in [VCC − kE·x·r_hi, VCC − x·r_lo] bounds its QPoint
+//     term (feedbackQFloorBlock). With RE's floors it skips the block;
+//     blocks double while they fall. This is the bound that matters when
+//     the stock's largest value cannot bring IC down to a small target
+//     (the best builds then sit at the largest RF, off target).
 //
 // # The split-supply plan
 //

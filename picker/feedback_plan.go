@@ -28,11 +28,13 @@ func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
 // rfWindow returns the RF levels whose builds at (RC, RE) can have a
 // nominal IC in [icLo, icHi]: IC falls as RF rises (lemma F1), so the
 // window is found by two searches, from the guesses given. A tuple that
-// cannot be solved never narrows the window.
-func (f *feedbackPlan) rfWindow(di, rc, re int, icLo, icHi float64, gLo, gHi int, cnt *counters) (lo, hi int) {
-	n := len(f.e.vs.levels)
-	lo = firstFrom(n, gLo, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(icHi) })
-	hi = firstFrom(n, gHi, func(i int) bool {
+// cannot be solved never narrows the window. With singles (no room for a
+// pair in RF, bound P) only the levels holding a single are probed.
+func (f *feedbackPlan) rfWindow(di, rc, re int, icLo, icHi float64, gLo, gHi int, singles bool, cnt *counters) (lo, hi int) {
+	vs := f.e.vs
+	n := len(vs.levels)
+	lo = vs.firstIn(0, n-1, gLo, singles, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(icHi) })
+	hi = vs.firstIn(0, n-1, gHi, singles, func(i int) bool {
 		t := f.tuple(di, i, rc, re, cnt)
 		return t.ok && t.op.IC_A < icLo
 	}) - 1
@@ -92,12 +94,45 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 		e.eachRE(p, f.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
 			f.cache.reset()
 			reOhm := e.vs.levels[re].ohm
+			pfRE := e.partsFloor(re) // bound P
 			// Bound RC (kRC = kE: RC carries IE = IC + IB).
 			rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
 			gLo, gHi := n/2, n/2
+			// skip is how many RC levels the next block floor (bound
+			// F-RF) tries to settle at once: it doubles while blocks
+			// fall and drops to 1 when one does not.
+			skip := 1
 			for rc := rcLo; rc <= rcHi; rc++ {
 				bd := e.boundsNow(p)
+				if e.vs.levels[rc].pairOnly && e.singlesOnly(pfRE, bd.thr) {
+					rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
+					continue
+				}
+				if bd.finite && w.QPoint > 0 {
+					// Bound F-RF over RC levels rc..last, with RE's
+					// utilization, emitter and parts floors.
+					last := min(rc+skip-1, rcHi)
+					uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+					eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+					_, rfTop := e.levelRange(fRF)
+					top := f.tuple(di, rfTop, last, re, cnt)
+					xLo := 0.0
+					if top.ok {
+						xLo = top.op.IC_A
+					}
+					q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
+					if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
+						rc = last
+						skip *= 2
+						continue
+					}
+					skip = 1
+				}
 				icLo, icHi := bd.icLo, bd.icHi
+				// pf is the parts floor of RE and RC (bound P); fl bounds
+				// every other term of every build at (RC, RE) from below.
+				pf := pfRE + e.partsFloor(rc)
+				fl := pf
 				if bd.finite {
 					// RE's utilization and the emitter term bound every
 					// build at this RE from below (bounds U-RE and
@@ -107,10 +142,11 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 					// QPoint term itself is at least qFloor (F-Q).
 					uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
 					eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-					base := w.Utilization*uRE + w.Emitter*eLo
+					base := pfRE + w.Utilization*uRE + w.Emitter*eLo
 					if base > bd.thr {
-						break
+						break // none of these floors depends on RC
 					}
+					base += pf - pfRE
 					r := e.vs.levels[rc].ohm + reOhm
 					if w.Beta > 0 {
 						base += w.Beta * f.betaFloorRC(dv, bd, r)
@@ -122,8 +158,9 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 						d2 := (bd.thr - base) / w.QPoint
 						icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 					}
+					fl = base
 				}
-				lo, hi := f.rfWindow(di, rc, re, icLo, icHi, gLo, gHi, cnt)
+				lo, hi := f.rfWindow(di, rc, re, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
 				gLo, gHi = lo, hi+1
 				if lo > hi {
 					continue
@@ -134,16 +171,21 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 					// left of the threshold narrows the window again.
 					bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
 						RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
-					base := w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W + w.Beta*bLo
+					base := pf + w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W + w.Beta*bLo
 					if base > bd.thr {
 						continue
 					}
+					fl = math.Max(fl, base)
 					if w.QPoint > 0 {
 						d2 := (bd.thr - base) / w.QPoint
-						lo, hi = f.rfWindow(di, rc, re, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2), lo, hi+1, cnt)
+						lo, hi = f.rfWindow(di, rc, re, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2), lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
 					}
 				}
 				for rf := lo; rf <= hi; rf++ {
+					if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
+						rf = e.vs.nextSingle[rf] - 1 // bound P: no room for a pair in RF
+						continue
+					}
 					e.scoreVariants(f.tuple(di, rf, rc, re, cnt), p.threshold, p.lastScore, p.add, cnt)
 				}
 			}
@@ -178,14 +220,27 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 // functions), so its least value is at a breakpoint: x = IC_t, or where an
 // end of the interval meets an end of the band.
 func (e *evaluator) feedbackQFloor(r, kE, vceLo, vceHi float64) float64 {
+	return e.feedbackQFloorBlock(r, r, 0, kE, vceLo, vceHi)
+}
+
+// feedbackQFloorBlock is bound F-Q over every build with RC + RE in
+// [rLo, rHi] and nominal IC at least xLo (bound F-RF): at a current x
+// such a build's VCE lies in [VCC − kE·x·rHi, VCC − x·rLo], and the term
+// is at least |x − IC_t|/IC_t plus that interval's distance from the
+// target band over the span, convex in x, so its least value over
+// x ≥ xLo is at xLo or at a breakpoint above it: IC_t, where an end of
+// the interval meets an end of the band, or where the two ends are
+// equally far outside it.
+func (e *evaluator) feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi float64) float64 {
 	vcc, it := e.s.vcc, e.s.icT
 	at := func(x float64) float64 {
-		x = math.Max(0, x)
-		d := math.Max(0, math.Max(vcc-kE*x*r-vceHi, vceLo-(vcc-x*r)))
+		x = math.Max(math.Max(0, xLo), x)
+		d := math.Max(0, math.Max(vcc-kE*x*rHi-vceHi, vceLo-(vcc-x*rLo)))
 		return math.Abs(x-it)/it + d/e.span
 	}
 	q := at(it)
-	for _, x := range []float64{(vcc - vceLo) / r, (vcc - vceHi) / (kE * r), (vcc - vceHi) / r, (vcc - vceLo) / (kE * r)} {
+	for _, x := range []float64{xLo, (vcc - vceLo) / rLo, (vcc - vceHi) / (kE * rHi), (vcc - vceHi) / rLo, (vcc - vceLo) / (kE * rHi),
+		(2*vcc - vceHi - vceLo) / (kE*rHi + rLo)} {
 		q = math.Min(q, at(x))
 	}
 	return q * (1 - 1e-12)

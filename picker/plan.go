@@ -137,8 +137,8 @@ func (tc *tupleCache) alloc() *tuple {
 }
 
 // polish hill-climbs from the best passing builds in the pool: each
-// round moves one position one level up or down to the neighbour with the
-// best score, until no neighbour improves (at most maxPolishSteps rounds
+// round moves one position one level, or to the nearest level holding a
+// single, up or down to the neighbour with the best score, until no neighbour improves (at most maxPolishSteps rounds
 // per start). Every build it scores goes to the pool, so the threshold
 // falls early; it changes nothing but the order of the search.
 func (e *evaluator) polish(p *pool, cnt *counters) {
@@ -165,10 +165,14 @@ func (e *evaluator) polish(p *pool, cnt *counters) {
 				if e.kept[pos] {
 					continue
 				}
-				for _, step := range []int{-1, 1} {
+				// one level either way, and the nearest level holding a
+				// single either way (with pairs, the level next door is
+				// mostly a pair's)
+				i := cur[pos]
+				for k, to := range [4]int{i - 1, i + 1, e.vs.down(i-1, true), e.vs.up(i+1, true)} {
 					lv := cur
-					lv[pos] += step
-					if lv[pos] < 0 || lv[pos] >= n {
+					lv[pos] = to
+					if to < 0 || to >= n || k >= 2 && (to == i-1 || to == i+1) {
 						continue
 					}
 					t := tc.get(e, c.dev, lv, cnt)

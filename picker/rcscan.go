@@ -48,8 +48,9 @@ func (e *evaluator) rcBandAll(b bounds, reOhm, kRC, kE, vceLo, vceHi float64) (l
 // point: IC falls with RC (lemma L2) and saturation only deepens with RC,
 // so it is IC at the largest band RC whose nominal point is active. any
 // is false when no band RC is active (every such build fails a hard
-// limit).
-func icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi float64) (ic float64, any bool) {
+// limit). With singles (no room for a pair in RC, bound P; rcLo and rcHi
+// then hold singles) only the levels holding a single count.
+func (vs *valueSet) icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi float64, singles bool) (ic float64, any bool) {
 	top := probe(rcHi)
 	if top.ok && top.op.Region != solver.Saturation {
 		return top.op.IC_A, true
@@ -67,14 +68,14 @@ func icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi float64) (ic float6
 		}
 	}
 	// first band RC that saturates; the one below it is the last active
-	k := rcLo + firstLevel(rcHi-rcLo+1, func(i int) bool {
-		t := probe(rcLo + i)
+	k := vs.firstIn(rcLo, rcHi, rcLo, singles, func(rc int) bool {
+		t := probe(rc)
 		return t.ok && t.op.Region == solver.Saturation
 	})
 	if k == rcLo {
 		return 0, false
 	}
-	t := probe(k - 1)
+	t := probe(vs.down(k-1, singles))
 	if !t.ok {
 		return 0, true
 	}
@@ -89,6 +90,9 @@ func icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi float64) (ic float6
 // VCE is under the bottom of the band. IC falls with RC too, so going
 // down an IC already over the target only moves further off, and going up
 // one already under it likewise. guess is where the last scan split.
+// base bounds the other terms of every build of lv from below, the parts
+// floors of its fixed positions included; a pair-only RC level is stepped
+// over when base + w_Parts is over the threshold (bound P).
 func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [maxPos]int, rcPos int, guess *int, rcLo, rcHi int, vceLo, vceHi, kE, base float64) {
 	w, vcc, ict := e.s.w, e.span, e.s.icT
 	at := func(rc int) [maxPos]int { lv[rcPos] = rc; return lv }
@@ -112,12 +116,17 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 	if base+w.QPoint*math.Max(0, math.Max(icDn-ict, ict-icUp))/ict > p.threshold() {
 		return
 	}
-	split := rcLo + firstFrom(rcHi-rcLo+1, *guess-rcLo, func(i int) bool { return tup(rcLo + i).vceAtMost(vceHi) })
+	singles := e.singlesOnly(base, p.threshold()) // bound P: probe singles only
+	split := e.vs.firstIn(rcLo, rcHi, *guess, singles, func(rc int) bool { return tup(rc).vceAtMost(vceHi) })
 	*guess = split
 	for rc := split - 1; rc >= rcLo; rc-- {
 		rcOhm := e.vs.levels[rc].ohm
 		if vceMin := vcc - icUp*(rcOhm+kE*reOhm); base+w.QPoint*(vceMin-vceHi)/vcc > p.threshold() {
 			break
+		}
+		if e.vs.levels[rc].pairOnly && e.singlesOnly(base, p.threshold()) {
+			rc = e.vs.prevSingle[rc] + 1 // bound P: no room for a pair in RC
+			continue
 		}
 		t := tup(rc)
 		if t.ok {
@@ -132,6 +141,10 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		rcOhm := e.vs.levels[rc].ohm
 		if vceMax := vcc - icDn*(rcOhm+reOhm); base+w.QPoint*(vceLo-vceMax)/vcc > p.threshold() {
 			break
+		}
+		if e.vs.levels[rc].pairOnly && e.singlesOnly(base, p.threshold()) {
+			rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
+			continue
 		}
 		t := tup(rc)
 		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {

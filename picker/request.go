@@ -45,15 +45,14 @@ const (
 	CurrentDerating = 0.5
 )
 
-// DefaultPartsWeight is the default weight of the parts term: 0, the term
-// is off unless the request sets Weights.Parts (pick --weights parts=W).
-// A weight of 0.05 would price a pair's extra placement at what a 2.5 % IC
-// error costs at the default Q-point weight, so 22K‖22K would not displace
-// a stocked 11K on a hair's difference; but the search's bounds do not yet
-// count the term, so with it on a search with pairs prunes far less (the
-// E12 pairs benchmark went from under 1 s to over 100 s). It stays off by
-// default until the bounds carry it.
-const DefaultPartsWeight = 0
+// DefaultPartsWeight is the default weight of the parts term, per pair:
+// 0.05 prices a pair's extra placement at what a 2.5 % IC error costs at
+// the default Q-point weight (a quarter of the default ±10 % IC window),
+// so a pair ranks first only where it buys a real improvement, and
+// 22K‖22K does not displace a stocked 11K on a hair's difference (its
+// higher rating). Every bound of the search counts the term (bound P,
+// doc.go). pick --weights parts=W changes it; 0 makes pairs free.
+const DefaultPartsWeight = 0.05
 
 // DefaultWeights returns the ranking weights used when Request.Weights is
 // the zero value (see doc.go for what each term measures).

@@ -23,9 +23,18 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 	}
 	n := e.lay.n
 	var L [maxPos][]int
+	// bound P: when one pair's extra part is over the threshold with the
+	// terms already known, only the singles of each level are scored
+	// (they come first in a level's stock)
+	singles := e.singlesOnly(e.s.w.QPoint*t.q+e.s.w.Emitter*t.em, thr())
 	for i := range n {
-		// a kept position takes its kept part, a free one stock
-		if L[i] = e.admitted(i, t.c.lv[i]); len(L[i]) == 0 {
+		// a kept position takes its kept part, a free one stock (only
+		// its singles when there is no room for a pair)
+		L[i] = e.admitted(i, t.c.lv[i])
+		if singles && !e.kept[i] {
+			L[i] = L[i][:e.vs.levels[t.c.lv[i]].singles]
+		}
+		if len(L[i]) == 0 {
 			return
 		}
 	}
@@ -54,12 +63,13 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 // scoreVariants).
 func (e *evaluator) scoreOne(t *tuple, c combo, thr, lastScore func() float64, keep func(*evaluated), cnt *counters) {
 	w := e.s.w
-	if !e.fitsQuantity(c) {
+	partial := w.QPoint*t.q + w.Emitter*t.em + w.Parts*e.extraParts(c)
+	if partial > thr() || !e.fitsQuantity(c) {
 		return
 	}
 	b := e.build(c)
 	dis := solver.EvalDissipation(b, t.op, e.s.ambMax, e.s.lim)
-	partial := w.QPoint*t.q + w.Emitter*t.em + w.Utilization*dis.MaxUtilization + w.Parts*e.extraParts(c)
+	partial += w.Utilization * dis.MaxUtilization
 	if partial > thr() {
 		return
 	}

@@ -48,7 +48,8 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 			req.RL_Ohm = 10e3
 			req.Bypass = true
 		case 3:
-			req.Weights = Weights{QPoint: 4 * rng.Float64(), Emitter: 4 * rng.Float64(), Beta: 2 * rng.Float64(), Headroom: rng.Float64(), Utilization: rng.Float64(), Yield: rng.Float64()}
+			req.Weights = Weights{QPoint: 4 * rng.Float64(), Emitter: 4 * rng.Float64(), Beta: 2 * rng.Float64(), Headroom: rng.Float64(), Utilization: rng.Float64(), Yield: rng.Float64(),
+				Parts: []float64{0, 0.01, 0.05, 0.3}[rng.IntN(4)] * rng.Float64()}
 		case 4:
 			// a narrow emitter band of the user's own
 			req.VEMin_V = req.VCC_V * (0.05 + 0.1*rng.Float64())
@@ -75,33 +76,39 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 		if k%4 == 2 || k%6 == 5 {
 			req.Keep = randomKeep(rng, st, req, 1+k%2)
 		}
-		t.Run(fmt.Sprintf("case%02d_%v", k, req.Topology), func(t *testing.T) {
-			fast, errFast := Pick(st, req)
-			req.Exhaustive = true
-			full, err := Pick(st, req)
-			if err != nil || errFast != nil {
-				// a random stock may be bad input (e.g. every value too
-				// large for the current): both modes must say so alike.
-				if fmt.Sprint(err) != fmt.Sprint(errFast) {
-					t.Fatalf("default error %v, exhaustive error %v", errFast, err)
-				}
-				return
+		t.Run(fmt.Sprintf("case%02d_%v", k, req.Topology), func(t *testing.T) { matchExhaustive(t, st, req) })
+	}
+}
+
+// matchExhaustive fails unless the default search returns exactly the
+// exhaustive evaluation's top K for req (same builds, order and scores,
+// every kept part in its position), or both fail with the same error.
+func matchExhaustive(t *testing.T, st Stock, req Request) {
+	t.Helper()
+	fast, errFast := Pick(st, req)
+	req.Exhaustive = true
+	full, err := Pick(st, req)
+	if err != nil || errFast != nil {
+		// a random stock may be bad input (e.g. every value too
+		// large for the current): both modes must say so alike.
+		if fmt.Sprint(err) != fmt.Sprint(errFast) {
+			t.Fatalf("default error %v, exhaustive error %v", errFast, err)
+		}
+		return
+	}
+	if len(fast.Candidates) != len(full.Candidates) {
+		t.Fatalf("default found %d builds, exhaustive %d (request %+v)", len(fast.Candidates), len(full.Candidates), req)
+	}
+	for i := range full.Candidates {
+		a, b := fast.Candidates[i], full.Candidates[i]
+		if a.ID != b.ID || a.Score != b.Score {
+			t.Errorf("rank %d: default %s (%.6g), exhaustive %s (%.6g)", i+1, a.ID, a.Score, b.ID, b.Score)
+		}
+		for _, kp := range req.Keep {
+			if p := a.Positions[kp.Position]; p.Arrangement != Kept || p.Ohm != kp.Ohm || len(p.Parts) != 0 {
+				t.Errorf("rank %d: %s is %+v, want the kept %g ohm", i+1, kp.Position, p, kp.Ohm)
 			}
-			if len(fast.Candidates) != len(full.Candidates) {
-				t.Fatalf("default found %d builds, exhaustive %d (request %+v)", len(fast.Candidates), len(full.Candidates), req)
-			}
-			for i := range full.Candidates {
-				a, b := fast.Candidates[i], full.Candidates[i]
-				if a.ID != b.ID || a.Score != b.Score {
-					t.Errorf("rank %d: default %s (%.6g), exhaustive %s (%.6g)", i+1, a.ID, a.Score, b.ID, b.Score)
-				}
-				for _, kp := range req.Keep {
-					if p := a.Positions[kp.Position]; p.Arrangement != Kept || p.Ohm != kp.Ohm || len(p.Parts) != 0 {
-						t.Errorf("rank %d: %s is %+v, want the kept %g ohm", i+1, kp.Position, p, kp.Ohm)
-					}
-				}
-			}
-		})
+		}
 	}
 }
 
@@ -152,5 +159,63 @@ func TestE12DefaultEqualsExhaustive(t *testing.T) {
 	}
 	if fast.Solved*10 > full.Solved {
 		t.Errorf("default solved %d tuples, exhaustive %d: the bounds cut less than 90 %%", fast.Solved, full.Solved)
+	}
+}
+
+// TestPairsMatchExhaustive is the property test of the search with pairs
+// on sub-walls of the E96 wall (IEC 60063:2015, Table 2, the values of a
+// real parts wall): random E96 lines from 100 Ω to 100 kΩ at 1 %, with
+// every series and parallel pair formed, every topology and polarity, and
+// parts weights from 0 (pairs free) to well above the default, so that
+// bound P prunes pair levels at some depth of every plan. As in
+// TestSearchMatchesExhaustive the reference is the exhaustive evaluation,
+// which scores every build with no bound at all; the default search must
+// return exactly its top K. The sub-walls are as large as the exhaustive
+// run finishes on quickly in a unit test (a divider with 5 lines would
+// have 35 levels per position, 1.5 million level tuples).
+func TestPairsMatchExhaustive(t *testing.T) {
+	cases := 9
+	if testing.Short() {
+		cases = 3
+	}
+	wall := eseries.Range(eseries.E96, 100, 100e3)
+	for k := range cases {
+		rng := rand.New(rand.NewPCG(uint64(k), 96))
+		topo := []solver.Topology{solver.Divider, solver.CollectorFeedback, solver.SplitSupply}[k%3]
+		nVals := 6 // up to 48 levels per position on three positions
+		if topo == solver.Divider {
+			nVals = 4 // up to 24 levels on four
+		}
+		var st Stock
+		for _, i := range rng.Perm(len(wall))[:nVals] {
+			st.Resistors = append(st.Resistors, Resistor{ID: int64(100 + i), Ohm: wall[i], Tol: 0.01, TCR_PPMPerK: 100,
+				Rated_W: []float64{0.25, 0.6}[rng.IntN(2)], Qty: 1 + rng.IntN(4), Bin: "R"})
+		}
+		for i := range 2 {
+			hmin := 50 + float64(rng.IntN(150))
+			st.Transistors = append(st.Transistors, smallNPN(int64(1+i), hmin, hmin*(2+2*rng.Float64())))
+		}
+		req := Request{
+			Topology: topo,
+			VCC_V:    []float64{9, 12, 15}[rng.IntN(3)],
+			IC_A:     []float64{0.1e-3, 0.5e-3, 1e-3, 2e-3, 10e-3}[rng.IntN(5)],
+			Top:      1 + rng.IntN(10),
+			Seed:     rng.Uint64(),
+			Pairs:    true,
+		}
+		if parts := []float64{-1, 0, 0.01, 0.2}[k%4]; parts >= 0 {
+			req.Weights = DefaultWeights()
+			req.Weights.Parts = parts
+		}
+		if topo == solver.SplitSupply {
+			req.VEE_V = -[]float64{5, 12}[rng.IntN(2)]
+		}
+		if k%5 == 2 {
+			req.VCC_V, req.VEE_V = -req.VCC_V, -req.VEE_V
+			for i := range st.Transistors {
+				st.Transistors[i].Sheet.Polarity = solver.PNP
+			}
+		}
+		t.Run(fmt.Sprintf("case%02d_%v_%d_lines", k, topo, nVals), func(t *testing.T) { matchExhaustive(t, st, req) })
 	}
 }

@@ -82,12 +82,12 @@ func (sp *splitPlan) search(p *pool, cnt *counters) {
 				return
 			}
 			icLo, icHi := bd.icLo, bd.icHi
-			base := 0.0
+			base := e.partsFloor(re) // bound P
 			if bd.finite {
 				// RE's utilization bounds every build at this RE from
 				// below (U-RE); what is left of the threshold bounds
 				// the QPoint term, so the IC window narrows.
-				base = w.Utilization * bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+				base += w.Utilization * bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
 					icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
@@ -103,19 +103,32 @@ func (sp *splitPlan) search(p *pool, cnt *counters) {
 			// (Only once the pool is full of passing builds: before, a
 			// failing build may still enter.)
 			rbLo, rbHi := 0, n-1
+			// bound P: with no room for a pair's extra part, RB and RC
+			// hold singles, and only those levels are probed
+			singles := bd.finite && e.singlesOnly(base, bd.thr)
+			if singles {
+				rcLo, rcHi = e.vs.up(rcLo, true), e.vs.down(rcHi, true)
+				if rcLo > rcHi {
+					return
+				}
+			}
 			if bd.finite {
-				rbHi = firstFrom(n, n/2, func(i int) bool {
+				rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
 					t := sp.tuple(di, i, rcLo, re, cnt)
 					return t.ok && t.op.IC_A < icLo
 				}) - 1
-				rbLo = firstFrom(n, 0, func(i int) bool {
-					ic, any := icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi)
+				rbLo = e.vs.firstIn(0, n-1, 0, singles, func(i int) bool {
+					ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
 					return any && ic <= icHi
 				})
 			}
 			rbLo, rbHi = e.clampRange(sRB, rbLo, rbHi)
 			for rb := rbLo; rb <= rbHi; rb++ {
-				e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base)
+				if bd.finite && e.vs.levels[rb].pairOnly && e.singlesOnly(base, p.threshold()) {
+					rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
+					continue
+				}
+				e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb))
 			}
 		})
 	}

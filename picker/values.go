@@ -50,6 +50,12 @@ type level struct {
 	// allowHot_W is the largest derated, margined allowance at the hottest
 	// ambient among the level's values (for utilization bounds).
 	allowHot_W float64
+	// singles is how many of stock are singles (they come first).
+	// pairOnly is true when every value of the level is a pair (no
+	// stocked single, no kept part): any build with this level in a
+	// position carries at least one extra part there (bound P, doc.go).
+	singles  int
+	pairOnly bool
 }
 
 // valueSet is every value the search may put in a position, grouped into
@@ -63,6 +69,14 @@ type valueSet struct {
 	// kept are the value indexes of the kept parts, in the order given
 	// to buildValues.
 	kept []int
+	// nextSingle[i] is the first level at or above i holding a single
+	// (len(levels) when none); prevSingle[i] the last at or below i (−1
+	// when none). With them a loop whose budget leaves no room for a
+	// pair's extra part steps over the pair-only levels at no cost.
+	nextSingle, prevSingle []int
+	// singleLevels lists the levels holding a single, ascending;
+	// singleRank[i] is how many of them lie below level i (i ≤ len(levels)).
+	singleLevels, singleRank []int
 }
 
 // sameOhm reports whether two resistances are one level (relative 1e-9,
@@ -93,6 +107,9 @@ func arrRank(a string) int {
 // stocked ones of its level; only its own position takes it.
 func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64, lim solver.Limits, kept ...solver.ResistorSpec) valueSet {
 	vs := valueSet{lines: lines}
+	if pairs {
+		vs.values = make([]value, 0, len(lines)*(len(lines)+2))
+	}
 	for i, r := range lines {
 		if r.Qty < boards || !(r.Ohm > 0) {
 			continue
@@ -144,28 +161,106 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 			cmp.Compare(idOf(a, 1), idOf(b, 1)),
 		)
 	})
-	for _, vi := range order {
+	// a level's values are a run of order (it is sorted by resistance)
+	for k, vi := range order {
 		v := vs.values[vi]
 		allow := allowance(v.spec, hotAmbient_C, lim)
 		if n := len(vs.levels); n > 0 && sameOhm(vs.levels[n-1].ohm, v.ohm) {
 			l := &vs.levels[n-1]
 			vs.values[vi].rank = len(l.values)
-			l.values = append(l.values, vi)
+			l.values = l.values[:len(l.values)+1]
 			l.allowHot_W = math.Max(l.allowHot_W, allow)
 		} else {
-			vs.levels = append(vs.levels, level{ohm: v.ohm, values: []int{vi}, allowHot_W: allow})
+			vs.levels = append(vs.levels, level{ohm: v.ohm, values: order[k : k+1 : len(order)], allowHot_W: allow})
 		}
 		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
 	}
 	for i := range vs.levels {
 		l := &vs.levels[i]
+		l.values = l.values[:len(l.values):len(l.values)]
 		l.stock = l.values
 		if len(kept) > 0 {
 			l.stock = slices.DeleteFunc(slices.Clone(l.values), func(vi int) bool { return vs.values[vi].kept })
 		}
 	}
 	vs.setShapes()
+	n := len(vs.levels)
+	vs.nextSingle, vs.prevSingle = make([]int, n), make([]int, n)
+	next := n
+	for i := n - 1; i >= 0; i-- {
+		l := &vs.levels[i]
+		for _, vi := range l.stock {
+			if vs.values[vi].lines[1] < 0 {
+				l.singles++
+			}
+		}
+		l.pairOnly = l.singles == 0 && len(l.stock) == len(l.values) // a kept part is no pair
+		if !l.pairOnly {
+			next = i
+		}
+		vs.nextSingle[i] = next
+	}
+	prev := -1
+	vs.singleRank = make([]int, n+1)
+	for i := range n {
+		vs.singleRank[i] = len(vs.singleLevels)
+		if !vs.levels[i].pairOnly {
+			prev = i
+			vs.singleLevels = append(vs.singleLevels, i)
+		}
+		vs.prevSingle[i] = prev
+	}
+	vs.singleRank[n] = len(vs.singleLevels)
 	return vs
+}
+
+// firstIn is firstFrom over the levels lo..hi: the first level where the
+// monotone predicate f turns true (hi + 1 when it never does), searching
+// outward from the level guess. With singles it probes only the levels
+// holding a single and returns the first of them where f is true: the
+// pair-only levels it passes over are the caller's to step over (bound
+// P), and f, monotone over every level, is monotone over these.
+func (vs *valueSet) firstIn(lo, hi, guess int, singles bool, f func(int) bool) int {
+	if lo > hi {
+		return hi + 1
+	}
+	guess = max(lo, min(guess, hi))
+	if !singles {
+		return lo + firstFrom(hi-lo+1, guess-lo, func(i int) bool { return f(lo + i) })
+	}
+	a, b := vs.singleRank[lo], vs.singleRank[hi+1]
+	k := firstFrom(b-a, vs.singleRank[guess]-a, func(k int) bool { return f(vs.singleLevels[a+k]) })
+	if k == b-a {
+		return hi + 1
+	}
+	return vs.singleLevels[a+k]
+}
+
+// partsFloor is the least parts term (extra parts) of any value of level i.
+func (vs *valueSet) partsFloor(i int) float64 {
+	if vs.levels[i].pairOnly {
+		return 1
+	}
+	return 0
+}
+
+// up returns the first level at or above i a loop must visit: i itself,
+// or, with singles (no room for a pair's extra part), the first level at
+// or above i holding a single (len(levels) when none).
+func (vs *valueSet) up(i int, singles bool) int {
+	if !singles || i < 0 || i >= len(vs.levels) {
+		return i
+	}
+	return vs.nextSingle[i]
+}
+
+// down is up going downward: i, or with singles the last level at or
+// below i holding a single (−1 when none).
+func (vs *valueSet) down(i int, singles bool) int {
+	if !singles || i < 0 || i >= len(vs.levels) {
+		return i
+	}
+	return vs.prevSingle[i]
 }
 
 // allowance is the power a value may dissipate at ambient_C within the
