@@ -78,6 +78,11 @@ func (r Readings) values() [3]float64 { return [3]float64{r.VB_V, r.VE_V, r.VC_V
 type ReadingError struct {
 	Reading string
 	Problem string
+	// OtherGround, when not nil, is the ground of a single-supply PNP
+	// stage between whose rails every reading does lie: the readings were
+	// most likely taken on the stage built the other way round (on a
+	// positive supply when stated negative, or the reverse).
+	OtherGround *solver.Ground
 }
 
 func (e *ReadingError) Error() string { return e.Reading + ": " + e.Problem }
@@ -86,7 +91,32 @@ func (e *ReadingError) Error() string { return e.Reading + ": " + e.Problem }
 // than the meter's accuracy: no fault of a passive network can put a node
 // beyond its supplies. mt must have its defaults applied.
 func CheckRails(s solver.Stage, r Readings, mt Meter) error {
-	// The two rails as a meter reads them against the stage's ground.
+	i, v, lo, hi, acc := outsideRails(s, r, mt)
+	switch {
+	case i < 0:
+		return nil
+	case math.IsNaN(v) || math.IsInf(v, 0):
+		return &ReadingError{Reading: readingNames[i], Problem: "not a finite number"}
+	}
+	e := &ReadingError{Reading: readingNames[i], Problem: fmt.Sprintf("%g V lies outside the supply rails %g..%g V by more than the meter accuracy (±%.3g V); check the supply, the ground reference and the meter leads", v, lo, hi, acc)}
+	if s.Topology != solver.SplitSupply && s.VCC_V < 0 { // a PNP stage: built either way round
+		other := s
+		other.Ground = solver.CollectorRailGround
+		if s.Ground == solver.CollectorRailGround {
+			other.Ground = solver.EmitterRailGround
+		}
+		if j, _, _, _, _ := outsideRails(other, r, mt); j < 0 {
+			e.OtherGround = &other.Ground
+		}
+	}
+	return e
+}
+
+// outsideRails returns the index of the first reading that is not finite
+// or lies outside the rails of s (read against its ground) by more than
+// the meter's accuracy, with the reading, the rails and the accuracy; -1
+// when none does.
+func outsideRails(s solver.Stage, r Readings, mt Meter) (int, float64, float64, float64, float64) {
 	top, bottom := s.Ground.Meter(s.VCC_V, s.VCC_V), s.Ground.Meter(0, s.VCC_V)
 	lo, hi := min(top, bottom), max(top, bottom)
 	if s.Topology == solver.SplitSupply {
@@ -94,12 +124,11 @@ func CheckRails(s solver.Stage, r Readings, mt Meter) error {
 	}
 	for i, v := range r.values() {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return &ReadingError{Reading: readingNames[i], Problem: "not a finite number"}
+			return i, v, lo, hi, 0
 		}
-		acc := mt.Accuracy_V(v)
-		if v > hi+acc || v < lo-acc {
-			return &ReadingError{Reading: readingNames[i], Problem: fmt.Sprintf("%g V lies outside the supply rails %g..%g V by more than the meter accuracy (±%.3g V); check the supply, the ground reference and the meter leads", v, lo, hi, acc)}
+		if acc := mt.Accuracy_V(v); v > hi+acc || v < lo-acc {
+			return i, v, lo, hi, acc
 		}
 	}
-	return nil
+	return -1, 0, lo, hi, 0
 }

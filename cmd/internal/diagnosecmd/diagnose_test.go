@@ -138,7 +138,19 @@ func TestPNPOnAPositiveSupply(t *testing.T) {
 	// The same readings on a stage with its emitter side on 0 V lie
 	// outside its rails (-12..0 V): exit 1 naming the reading.
 	_, _, err = run(t, with("--polarity", "pnp", "--rail", "negative", "--vb", "9.89V", "--ve", "12.0V", "--vc", "0V")...)
-	if cmdutil.ExitCode(err) != 1 || err == nil || !strings.Contains(err.Error(), "--vb: 9.89 V lies outside the supply rails -12..0 V") {
-		t.Errorf("readings of a positive-supply stage on --rail negative: %v, want exit 1 naming --vb outside -12..0 V", err)
+	if cmdutil.ExitCode(err) != 1 || err == nil || !strings.Contains(err.Error(), "--vb: 9.89 V lies outside the supply rails -12..0 V") ||
+		!strings.Contains(err.Error(), "--rail positive") {
+		t.Errorf("readings of a positive-supply stage on --rail negative: %v, want exit 1 naming --vb outside -12..0 V and --rail positive", err)
+	}
+	// Readings from a stage with its emitter side on 0 V (all negative),
+	// given without --rail: they fit the negative rail.
+	_, _, err = run(t, with("--polarity", "pnp", "--vb", "-2.11V", "--ve", "0V", "--vc", "-12V")...)
+	if cmdutil.ExitCode(err) != 1 || err == nil || !strings.Contains(err.Error(), "--rail negative") {
+		t.Errorf("negative readings on the default positive supply: %v, want exit 1 suggesting --rail negative", err)
+	}
+	// An NPN stage read upside down gets no rail advice.
+	_, _, err = run(t, with("--vb", "-2.11V", "--ve", "0V", "--vc", "-12V")...)
+	if err == nil || strings.Contains(err.Error(), "--rail") {
+		t.Errorf("npn with negative readings: %v, want an error without rail advice", err)
 	}
 }

@@ -39,7 +39,7 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 		quantity(r.IC_A, "A"), vce, trimNum(r.AmbientMin_C), trimNum(r.AmbientMax_C), v.Boards, plural(v.Boards), pairs)
 	rail := report.Rail(r.Polarity, r.Rail)
 	if r.Topology == picker.AnyTopology && r.VEE_V != 0 {
-		rail += " (split-supply builds: " + report.Rail(r.Polarity, solver.SplitRails) + ")"
+		rail += "; split-supply builds read from the common of the two supplies"
 	}
 	fmt.Fprintf(w, "%s; every voltage against 0 V\n", rail)
 	if r.RL_Ohm > 0 || r.Bypass {

@@ -108,6 +108,12 @@ func JobError(cmd string, err error) error {
 	switch {
 	case err == nil:
 		return nil
+	case errors.As(err, &re) && re.OtherGround != nil:
+		rail := "--rail negative (emitter side on 0 V)"
+		if *re.OtherGround == solver.CollectorRailGround {
+			rail = "--rail positive (emitter side on +V, collector side on 0 V)"
+		}
+		return fmt.Errorf("%s: %s: %s; every reading fits the stage built the other way round: %s", cmd, ReadingFlags(re.Reading), re.Problem, rail)
 	case errors.As(err, &re):
 		return fmt.Errorf("%s: %s: %s", cmd, ReadingFlags(re.Reading), re.Problem)
 	case errors.As(err, &ie):
