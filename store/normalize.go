@@ -49,6 +49,14 @@ func NormalizeTags(tags []string) []string {
 // approval list, a supplier and a few properties, few enough to read.
 const MaxTags = 16
 
+// TagProblem says what is wrong with a tag as given (normalized first:
+// trimmed, lower-cased), or "" for a good one: the one tag rule, which
+// commands call to refuse a bad tag as a usage error before opening the
+// stock.
+func TagProblem(tag string) string {
+	return checkTag(strings.ToLower(strings.TrimSpace(tag)))
+}
+
 // checkTag reports what is wrong with a normalized tag, or "".
 func checkTag(t string) string {
 	if len(t) > 64 {

@@ -13,7 +13,10 @@ import (
 // PickKeep is how long a pick's results stay in the stock file so that
 // their build IDs can be built later; a pick older than this is deleted
 // when the next pick is kept.
-const PickKeep = 30 * 24 * time.Hour
+const PickKeep = PickKeepDays * 24 * time.Hour
+
+// PickKeepDays is PickKeep in days, for the words that state it.
+const PickKeepDays = 30
 
 // KeptPick is one build a pick listed, kept under its build ID.
 type KeptPick struct {

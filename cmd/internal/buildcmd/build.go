@@ -8,6 +8,7 @@ package buildcmd
 import (
 	"context"
 	"io"
+	"strconv"
 
 	"github.com/spf13/cobra"
 
@@ -30,7 +31,7 @@ func New(f *cmdutil.Factory) *cobra.Command {
 N boards out of stock in one step (all or none) and records the build.
 Every change of a quantity is a row of the ledger ("biasbin ledger").
 
-A pick keeps the builds it lists in the stock file for 30 days so that their
+A pick keeps the builds it lists in the stock file for ` + strconv.Itoa(store.PickKeepDays) + ` days so that their
 IDs can be built later. When a stock line the build draws on has changed
 since the pick (other values, tags or bin), the build is solved again on
 the stock as it is now and refused, with the reason, unless it still passes

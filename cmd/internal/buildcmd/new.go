@@ -133,7 +133,7 @@ func newError(candidate string, boards int, err error) error {
 		b.WriteString("\n  pick again to get a build from the stock as it is now")
 		return errors.New(b.String())
 	case errors.Is(err, store.ErrNoPick):
-		return fmt.Errorf("build ID %s: no pick kept in this stock file lists it (picks are kept for 30 days; a mistyped ID?): run biasbin pick again and use an id it lists", candidate)
+		return fmt.Errorf("build ID %s: no pick kept in this stock file lists it (picks are kept for %d days; a mistyped ID?): run biasbin pick again and use an id it lists", candidate, store.PickKeepDays)
 	}
 	return err
 }

@@ -9,6 +9,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"strconv"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
@@ -96,7 +97,7 @@ Values take the letter-and-digit code or SI: 12V, 4K7, 470R, 10k, 2mA.
 A supply that moves over a range (a battery from fresh to flat) is given as
 the range, --vcc 7V..9.6V: the nominal point sits at its middle and the
 worst case reaches both ends.
-A build a pick listed (its ID, like b3b39a272f57c, kept 30 days) or a
+A build a pick listed (its ID, like b3b39a272f57c, kept ` + strconv.Itoa(store.PickKeepDays) + ` days) or a
 reserved build (its number from build list) is checked by naming it:
 check b3b39a272f57c; --window, --boards and --seed still apply.
 A resistor may carry its own tolerance and power rating after slashes

@@ -1,9 +1,11 @@
 package checkcmd
 
 import (
+	"biasbin/store"
 	"context"
 	"errors"
 	"fmt"
+	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -46,7 +48,7 @@ reads the same. --size is in pixels (a PNG has exactly that many; SVG and
 PDF are that size at 96 pixels per inch).
 
 Instead of the build flags, name up to four builds: a pick's build ID (as
-pick shows it, kept for 30 days) or a reserved build's number (build list).
+pick shows it, kept for ` + strconv.Itoa(store.PickKeepDays) + ` days) or a reserved build's number (build list).
 Each is analysed as check analyses a build (--window, --boards and --seed
 apply) and several are overlaid, each in its own colour, marker and dash,
 with the axes closed in on their spread. pick --plot FILE draws the first

@@ -4,11 +4,13 @@
 package pickcmd
 
 import (
+	"biasbin/store"
 	"context"
 	"errors"
 	"fmt"
 	"io"
 	"slices"
+	"strconv"
 	"strings"
 	"time"
 
@@ -108,7 +110,7 @@ break a limit (each with the reason), or, when the stock is short for the
 number of boards, the best builds for the most boards it does supply, with
 the extra parts all boards would take.
 Bad flags exit 2. pick never changes the stock; it keeps the builds it lists
-in the stock file for 30 days, so that "biasbin build new ID --boards N"
+in the stock file for ` + strconv.Itoa(store.PickKeepDays) + ` days, so that "biasbin build new ID --boards N"
 can take their parts out of stock later.
 
 ` + report.Ranges(append([]solver.Range{solver.SupplyRange}, picker.RequestRanges()...)),

@@ -141,6 +141,11 @@ func TestOtherFlags(t *testing.T) {
 		{"tag with --tag and a word", tagCmd, []string{"--tag", "approved", "5", "reel"}, nil, 2},
 		{"tag without tags", tagCmd, []string{"7"}, nil, 2},
 		{"tag bad ID", tagCmd, []string{"x", "rohs"}, nil, 2},
+		// a tag of only digits reads as a line ID: a usage error (exit 2)
+		// in either form, before the stock is opened
+		{"tag digits after ID", tagCmd, []string{"5", "approved", "6", "7"}, nil, 2},
+		{"tag digits with --tag", tagCmd, []string{"--tag", "6", "5"}, nil, 2},
+		{"untag digits", untagCmd, []string{"--tag", "55", "1"}, nil, 2},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			var got any
@@ -181,4 +186,8 @@ func importCmd(f *cmdutil.Factory, got *any) *cobra.Command {
 
 func tagCmd(f *cmdutil.Factory, got *any) *cobra.Command {
 	return newTagCmd(f, true, func(o *TagOptions) error { c := *o; c.IO, c.Store = nil, nil; *got = c; return nil })
+}
+
+func untagCmd(f *cmdutil.Factory, got *any) *cobra.Command {
+	return newTagCmd(f, false, func(o *TagOptions) error { c := *o; c.IO, c.Store = nil, nil; *got = c; return nil })
 }

@@ -1,6 +1,7 @@
 package stockcmd
 
 import (
+	"biasbin/store"
 	"context"
 	"fmt"
 	"strings"
@@ -56,6 +57,16 @@ that it never reads as a line ID.`,
 					return cmdutil.Usagef("%q is not a line ID: with --tag every argument is a line ID", a)
 				}
 				o.IDs = append(o.IDs, id)
+			}
+			for _, t := range tags {
+				// a bad tag is a mistake in the command line (exit 2),
+				// refused before the stock is opened
+				if m := store.TagProblem(t); m != "" {
+					if _, err := parseID(t); err == nil && len(flagTags) == 0 {
+						m += fmt.Sprintf("; for several lines give the tags with --tag: stock %s --tag TAG ID...", verb)
+					}
+					return cmdutil.Usagef("%s", m)
+				}
 			}
 			o.Tags = tags
 			if runF != nil {
