@@ -97,6 +97,7 @@ func (e *evaluator) build(c combo) solver.Build {
 		VEE_V:            e.veeSigned(),
 		Ground:           e.ground(),
 		VCCTol:           e.s.vccTol,
+		VEETol:           e.veeTolOfBuild(),
 		RL_Ohm:           e.s.rl,
 		Device:           d.line.Sheet,
 		AmbientMin_C:     e.s.ambMin,
@@ -110,4 +111,14 @@ func (e *evaluator) build(c combo) solver.Build {
 		b.RBypass_Ohm = b.Resistors[solver.RE].Nominal_Ohm
 	}
 	return b
+}
+
+// veeTolOfBuild is the emitter rail's tolerance a build carries: the
+// request's (VEETol, else VCCTol) for the split-supply stage, 0 (no rail)
+// for the others.
+func (e *evaluator) veeTolOfBuild() float64 {
+	if !e.lay.split {
+		return 0
+	}
+	return e.s.veeTol
 }

@@ -304,7 +304,8 @@
 // # The split-supply plan
 //
 // RB from the base to ground, RC, RE to the emitter rail VEE (signed
-// opposite to VCC, the supply tolerance applies to it too); it covers
+// opposite to VCC, with its own tolerance, Request.VEETol, else the
+// supply's; the worst case and the yield vary the rails apart); it covers
 // (device, RE, RB, RC). Its base loop is |VEE| − VBE = IB·RB + IE·RE and
 // VCE = |VCC| + |VEE| − IC·RC − IE·RE: a divider with V_TH = |VEE|,
 // R_TH = RB on the span |VCC| + |VEE|, so L1 (IC falls as RB or RE rises),

@@ -116,7 +116,7 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 	if lay.split {
 		span += s.vee
 	}
-	devs, rejected := s.transistorCandidates(stock.Transistors, span)
+	devs, rejected := s.transistorCandidates(stock.Transistors, lay.split)
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
 	e := &evaluator{s: s, lay: lay, vs: &vs, devs: devs, span: span}
 	e.pinKept(at)

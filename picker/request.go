@@ -115,6 +115,7 @@ type settings struct {
 	sign        float64         // +1 NPN, -1 PNP
 	rail        solver.RailSign // settled (solver.SettleRail)
 	vccTol      float64
+	veeTol      float64 // the emitter rail's tolerance (VEETol, else vccTol)
 	icT         float64
 	vceT        float64 // 0 = maximum-symmetrical-swing rule per build
 	veLo, veHi  float64 // emitter band (magnitudes)
@@ -213,6 +214,13 @@ func normalize(req Request) (settings, error) {
 		return s, withFix(err, "a supply is typically ±5 %")
 	}
 	s.vccTol = req.VCCTol
+	if err := solver.CheckTolerance("vee_tol", req.VEETol); err != nil {
+		return s, withFix(err, "a supply is typically ±5 %")
+	}
+	if req.VEETol > 0 && s.vee == 0 {
+		return s, inputErr("vee_tol", "give the emitter rail with --vee, or leave its tolerance out", "a tolerance for an emitter rail not given")
+	}
+	s.veeTol = req.EmitterRailTol()
 	if !finite(req.IC_A) || req.IC_A <= 0 {
 		return s, inputErr("ic", "give the target collector current, e.g. --ic 1mA", "%g A is not a collector current", req.IC_A)
 	}
@@ -220,13 +228,13 @@ func normalize(req Request) (settings, error) {
 		return s, err
 	}
 	s.icT = req.IC_A
-	vceLow := s.spanMax * (1 - s.vccTol)
+	vceLow := s.spanAt(slices.Contains(s.topos, solver.SplitSupply), -1)
 	if !finite(req.VCE_V) || req.VCE_V < 0 {
 		return s, inputErr("vce", "give a VCE magnitude, or leave it out for the maximum-swing rule", "%g V is not a VCE target", req.VCE_V)
 	}
 	if req.VCE_V >= vceLow {
 		return s, inputErr("vce", fmt.Sprintf("choose a VCE below %.3g V or raise --vcc", vceLow),
-			"%g V cannot exist with a %g V supply at -%g %%", req.VCE_V, s.spanMax, 100*s.vccTol)
+			"%g V cannot exist with a %g V supply at its low end (%.3g V)", req.VCE_V, s.spanMax, vceLow)
 	}
 	s.vceT = req.VCE_V
 	if !finite(req.VEMin_V) || !finite(req.VEMax_V) || req.VEMin_V < 0 || req.VEMax_V < req.VEMin_V {
@@ -317,6 +325,29 @@ func normalize(req Request) (settings, error) {
 	return s, nil
 }
 
+// EmitterRailTol is the tolerance the emitter rail is taken with: VEETol,
+// else VCCTol (0 without an emitter rail).
+func (r Request) EmitterRailTol() float64 {
+	switch {
+	case r.VEE_V == 0:
+		return 0
+	case r.VEETol > 0:
+		return r.VEETol
+	}
+	return r.VCCTol
+}
+
+// spanAt is the supply span at one end of the rails' tolerances (end +1
+// the highest, −1 the lowest): |VCC|, plus |VEE| with split (each rail at
+// the same end of its own tolerance).
+func (s *settings) spanAt(split bool, end float64) float64 {
+	v := s.vcc * (1 + end*s.vccTol)
+	if split {
+		v += s.vee * (1 + end*s.veeTol)
+	}
+	return v
+}
+
 // defaultPool is the number of finalists that may get a Monte Carlo
 // yield before the final ranking: twice the default shown builds plus
 // five, or twice the shown builds plus five when more are shown. It does
@@ -340,7 +371,7 @@ func (s settings) checkStock(st Stock) error {
 	}
 	// RC and RE are at least the smallest stocked value each, so no build
 	// can carry more than this collector current.
-	if icMax := s.spanMax * (1 + s.vccTol) / (2 * rmin); s.icT > icMax {
+	if icMax := s.spanAt(slices.Contains(s.topos, solver.SplitSupply), 1) / (2 * rmin); s.icT > icMax {
 		return inputErr("ic", fmt.Sprintf("lower --ic below %.3g A or raise --vcc", icMax),
 			"%g A cannot flow from a %g V supply through the smallest stocked RC and RE (%g ohm each)", s.icT, s.vcc, rmin)
 	}

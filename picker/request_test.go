@@ -35,6 +35,7 @@ func TestBadInput(t *testing.T) {
 		{"unknown topology", good, func(r *Request) { r.Topology = solver.Topology(9) }, "topology"},
 		{"split supply without its rail", good, func(r *Request) { r.Topology = solver.SplitSupply }, "vee"},
 		{"emitter rail on a divider", good, func(r *Request) { r.VEE_V = -12 }, "vee"},
+		{"emitter rail tolerance without the rail", good, func(r *Request) { r.VEETol = 0.1 }, "vee_tol"},
 		{"emitter rail of the collector's sign", good, func(r *Request) { r.Topology = solver.SplitSupply; r.VEE_V = 12 }, "vee"},
 	}
 	for _, c := range cases {
@@ -102,5 +103,36 @@ func TestDefaults(t *testing.T) {
 		s.w != DefaultWeights() || s.pool != 2*DefaultTop+5 || s.yieldBoards != DefaultYieldBoards ||
 		s.lim.ResistorMaxFraction != 0.5 || s.lim.VCEMargin_V != 0.5 {
 		t.Errorf("defaults: %+v", s)
+	}
+}
+
+// TestEmitterRailTolerance: a split-supply build carries the request's
+// emitter rail tolerance, or the supply's when none is given; the other
+// topologies carry none.
+func TestEmitterRailTolerance(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E12, 100, 100e3, 0.05, 0.25, 10, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	for _, c := range []struct {
+		topo   solver.Topology
+		veeTol float64
+		want   float64
+	}{
+		{solver.SplitSupply, 0.1, 0.1},
+		{solver.SplitSupply, 0, 0.05},
+		{solver.Divider, 0, 0},
+	} {
+		req := Request{Topology: c.topo, VCC_V: 12, VCCTol: 0.05, VEETol: c.veeTol, IC_A: 1e-3, Top: 1}
+		if c.topo == solver.SplitSupply {
+			req.VEE_V = -12
+		}
+		res, err := Pick(st, req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(res.Candidates) == 0 {
+			t.Fatalf("%v: no build", c.topo)
+		}
+		if got := res.Candidates[0].Build.VEETol; got != c.want {
+			t.Errorf("%v with VEETol %g: the build carries %g, want %g", c.topo, c.veeTol, got, c.want)
+		}
 	}
 }

@@ -63,6 +63,7 @@ func TestSearchMatchesExhaustive(t *testing.T) {
 		req.Topology = []solver.Topology{solver.Divider, solver.CollectorFeedback, solver.SplitSupply}[k%3]
 		if req.Topology == solver.SplitSupply {
 			req.VEE_V = -[]float64{5, 9, 12}[rng.IntN(3)]
+			req.VEETol = []float64{0, 0.02, 0.1}[(k/3)%3] // 0: the supply's
 		}
 		if k%4 == 1 {
 			req.VCC_V, req.VEE_V = -req.VCC_V, -req.VEE_V

@@ -41,8 +41,8 @@ type nominalDevice struct {
 // least the target over CurrentDerating; the dissipation at the target
 // current and the mid-supply VCE within the derated, margined allowance at
 // the hottest ambient. The worst-case corners check each build again.
-func (s settings) transistorCandidates(ts []Transistor, span float64) (devs []device, rejected []Rejection) {
-	vccHi := span * (1 + s.vccTol)
+func (s settings) transistorCandidates(ts []Transistor, split bool) (devs []device, rejected []Rejection) {
+	vccHi := s.spanAt(split, 1)
 	for _, t := range ts {
 		d := t.Sheet
 		if d.Polarity != s.pol || !HasTags(t.Tags, s.req.RequireTags) || !LabelMatches(d.Label, s.req.Transistor) {

@@ -54,8 +54,8 @@ type Request struct {
 	Polarity solver.Polarity
 	VCC_V    float64 // signed (negative for PNP)
 	// VEE_V is the emitter rail of the split-supply stage, signed opposite
-	// to VCC_V (negative for NPN, positive for PNP); VCCTol applies to it
-	// too. Required for split supply; with AnyTopology, split-supply builds
+	// to VCC_V (negative for NPN, positive for PNP), with the tolerance
+	// VEETol. Required for split supply; with AnyTopology, split-supply builds
 	// are searched only when it is given.
 	VEE_V float64
 	// Rail is how a single-supply stage is built against its 0 V: the
@@ -66,6 +66,10 @@ type Request struct {
 	// build is measured from the common of its two supplies.
 	Rail   solver.RailSign
 	VCCTol float64
+	// VEETol is the emitter rail's own tolerance (split supply), a
+	// fraction; 0 = VCCTol. The rails are two supplies: the worst case and
+	// the yield vary each on its own.
+	VEETol float64
 	IC_A   float64 // target collector current
 	VCE_V  float64 // target VCE magnitude; 0 = the maximum-symmetrical-swing rule
 	// VEMin_V and VEMax_V bound the emitter voltage magnitude the emitter

@@ -12,6 +12,7 @@ type board struct {
 	dev       [NumSlots]float64 // resistor deviations (fractions of nominal)
 	tcr       [NumSlots]float64 // resistor TCRs, ppm/K
 	vccFactor float64           // supply factor
+	veeFactor float64           // emitter rail factor (split supply), else 1
 	m         Model             // the board's transistor: BF, IS (from VBE(on)) and VAF drawn
 	vbe_V     float64           // the drawn VBE(on) behind m.IS_A
 }
@@ -96,6 +97,12 @@ func (s *boardSampler) draw(bd *board) {
 	if s.vafHi > s.vafLo {
 		bd.m.VAF_V = s.vafLo + s.u01()*(s.vafHi-s.vafLo)
 	}
+	bd.veeFactor = bd.vccFactor
+	if b.Topology == SplitSupply {
+		// the emitter rail is a supply of its own, drawn last (and only
+		// here) so every other input is drawn as before
+		bd.veeFactor = 1 + b.EmitterRailTol()*s.unit.Rand()
+	}
 }
 
 // boardJudge decides whether a board stays in the window over the whole
@@ -127,7 +134,7 @@ func newBoardJudge(b *Build, w Window) *boardJudge {
 
 // at solves bd at ambient ta.
 func (j *boardJudge) at(bd *board, ta float64) (OperatingPoint, error) {
-	return SolveSelfHeated(j.b.resolveTCR(&bd.dev, &bd.tcr, bd.vccFactor, ta), bd.m, ta, j.theta, j.tjMax)
+	return SolveSelfHeated(j.b.resolveTCR(&bd.dev, &bd.tcr, bd.vccFactor, bd.veeFactor, ta), bd.m, ta, j.theta, j.tjMax)
 }
 
 // end solves bd at one end of the ambient range and keeps the point when

@@ -35,7 +35,8 @@ type Build struct {
 	VCC_V            float64 // signed collector rail
 	VEE_V            float64 // signed emitter rail (split supply)
 	Ground           Ground  // the rail that is 0 V; node voltages are given against it
-	VCCTol           float64 // supply tolerance as a fraction, applied to both rails
+	VCCTol           float64 // supply tolerance as a fraction (the emitter rail's too unless VEETol)
+	VEETol           float64 // the emitter rail's own tolerance (split supply); 0 = VCCTol; each rail varies on its own
 	Resistors        [NumSlots]ResistorSpec
 	RBypass_Ohm      float64 // part of RE bypassed for AC (0..RE nominal); scales with RE
 	RL_Ohm           float64
@@ -136,14 +137,35 @@ func (b Build) Resolve(dev [NumSlots]float64, vccFactor, temp_C float64) Stage {
 	return b.resolve(&dev, vccFactor, temp_C)
 }
 
+// ResolveRails is Resolve with the emitter rail (split supply) multiplied
+// by veeFactor of its own.
+func (b Build) ResolveRails(dev [NumSlots]float64, vccFactor, veeFactor, temp_C float64) Stage {
+	return b.resolveTCR(&dev, nil, vccFactor, veeFactor, temp_C)
+}
+
 // resolve is Resolve without copying the build.
 func (b *Build) resolve(dev *[NumSlots]float64, vccFactor, temp_C float64) Stage {
-	return b.resolveTCR(dev, nil, vccFactor, temp_C)
+	return b.resolveTCR(dev, nil, vccFactor, vccFactor, temp_C)
+}
+
+// EmitterRailTol is the emitter rail's tolerance: VEETol, else VCCTol.
+func (b *Build) EmitterRailTol() float64 {
+	if b.VEETol > 0 {
+		return b.VEETol
+	}
+	return b.VCCTol
+}
+
+// railsApart reports whether the build has an emitter rail that varies on
+// its own (split supply with a tolerance).
+func (b *Build) railsApart() bool {
+	return b.Topology == SplitSupply && b.EmitterRailTol() > 0
 }
 
 // resolveTCR is resolve with each resistor's TCR taken from tcr (ppm/K)
-// instead of its stated value; tcr nil means the stated values.
-func (b *Build) resolveTCR(dev, tcr *[NumSlots]float64, vccFactor, temp_C float64) Stage {
+// instead of its stated value (tcr nil means the stated values) and the
+// emitter rail multiplied by veeFactor.
+func (b *Build) resolveTCR(dev, tcr *[NumSlots]float64, vccFactor, veeFactor, temp_C float64) Stage {
 	s := Stage{
 		Topology: b.Topology,
 		VCC_V:    b.VCC_V * vccFactor,
@@ -151,7 +173,7 @@ func (b *Build) resolveTCR(dev, tcr *[NumSlots]float64, vccFactor, temp_C float6
 		RL_Ohm:   b.RL_Ohm,
 	}
 	if b.Topology == SplitSupply {
-		s.VEE_V = b.VEE_V * vccFactor
+		s.VEE_V = b.VEE_V * veeFactor
 	}
 	dt := temp_C - TCRReference_C
 	for i := range NumSlots {
@@ -211,6 +233,9 @@ func (b Build) Validate() error {
 		}
 	}
 	if err := CheckTolerance("vcc_tol", b.VCCTol); err != nil {
+		return err
+	}
+	if err := CheckTolerance("vee_tol", b.VEETol); err != nil {
 		return err
 	}
 	for _, i := range b.Topology.Slots() {

@@ -60,6 +60,7 @@ type rssPoint struct {
 	dev       [NumSlots]float64
 	tcr       [NumSlots]float64
 	vccFactor float64
+	veeFactor float64
 	beta      float64
 	vbe, vaf  float64
 	ambient   float64
@@ -73,13 +74,13 @@ func evalRSS(b Build, theta, tjMax float64) (RSS, error) {
 	}
 	vbeLo, vbeHi, _ := VBEOnRange(d)
 	vafLo, vafHi := VAFRange(d)
-	mid := rssPoint{vccFactor: 1, beta: m.BF, vbe: 0.5 * (vbeLo + vbeHi), vaf: 0.5 * (vafLo + vafHi), ambient: 0.5 * (b.AmbientMin_C + b.AmbientMax_C)}
+	mid := rssPoint{vccFactor: 1, veeFactor: 1, beta: m.BF, vbe: 0.5 * (vbeLo + vbeHi), vaf: 0.5 * (vafLo + vafHi), ambient: 0.5 * (b.AmbientMin_C + b.AmbientMax_C)}
 	eval := func(p rssPoint) (ic, vce float64, err error) {
 		mm := m
 		mm.BF = p.beta // ModelFor depends on bf only through BF
 		mm.IS_A = isFor(d, p.vbe)
 		mm.VAF_V = p.vaf
-		op, err := SolveSelfHeated(b.resolveTCR(&p.dev, &p.tcr, p.vccFactor, p.ambient), mm, p.ambient, theta, tjMax)
+		op, err := SolveSelfHeated(b.resolveTCR(&p.dev, &p.tcr, p.vccFactor, p.veeFactor, p.ambient), mm, p.ambient, theta, tjMax)
 		if err != nil {
 			return 0, 0, fmt.Errorf("rss: hFE %.4g, ambient %.4g °C: %w", p.beta, p.ambient, err)
 		}
@@ -134,8 +135,20 @@ func evalRSS(b Build, theta, tjMax float64) (RSS, error) {
 			return r, err
 		}
 	}
-	if err := term("vcc", math.Abs(b.VCC_V)*b.VCCTol, func(p *rssPoint, s float64) { p.vccFactor = 1 + s*b.VCCTol }); err != nil {
+	apart := b.railsApart()
+	if err := term("vcc", math.Abs(b.VCC_V)*b.VCCTol, func(p *rssPoint, s float64) {
+		p.vccFactor = 1 + s*b.VCCTol
+		if !apart {
+			p.veeFactor = p.vccFactor
+		}
+	}); err != nil {
 		return r, err
+	}
+	if apart {
+		tol := b.EmitterRailTol()
+		if err := term("vee", math.Abs(b.VEE_V)*tol, func(p *rssPoint, s float64) { p.veeFactor = 1 + s*tol }); err != nil {
+			return r, err
+		}
 	}
 	halfBeta := 0.5 * (d.HFEMax - d.HFEMin)
 	if err := term("hfe", halfBeta, func(p *rssPoint, s float64) { p.beta = mid.beta + s*halfBeta }); err != nil {

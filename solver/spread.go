@@ -169,6 +169,11 @@ func Uncertainties(b Build, opt YieldOptions) []Uncertainty {
 		out = append(out, Uncertainty{Input: "vaf", Unit: "V", Low: lo, High: hi,
 			Distribution: DistRectangular, Basis: "stocked vaf_min..vaf_max; " + whyRectangular})
 	}
+	if b.railsApart() {
+		v, tol := math.Abs(b.VEE_V), b.EmitterRailTol()
+		out = append(out, Uncertainty{Input: "vee", Unit: "V", Low: v * (1 - tol), High: v * (1 + tol),
+			Distribution: DistRectangular, Basis: "nominal ± the emitter rail's tolerance, a supply of its own; " + whyRectangular})
+	}
 	if b.AmbientMax_C > b.AmbientMin_C {
 		out = append(out, Uncertainty{Input: "ambient", Unit: "°C", Low: b.AmbientMin_C, High: b.AmbientMax_C,
 			Distribution: DistSwept, Basis: "every board must work over the whole range, so it is solved at both ends (and at a turning point between), not sampled (common practice, REFERENCE.md §9)"})

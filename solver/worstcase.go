@@ -79,7 +79,8 @@ type WorstCaseOptions struct {
 // the Monte Carlo yield (Uncertainties): each combination of {hFE min,
 // max} × {VBE(on) low, high} × {VAF low, high, when a range is stocked} ×
 // {each used resistor low, high} × {supply −tol, +tol} × {ambient min,
-// max} (an input without spread contributes one level, so a divider with
+// max} × {the emitter rail −tol, +tol, a supply of its own, split supply
+// only} (an input without spread contributes one level, so a divider with
 // four toleranced resistors has 2⁸ = 256 corners). A resistor's low level
 // at an ambient Ta is R·(1 − tol)·(1 − |TCR|·|Ta − 25 °C|) and its high
 // level R·(1 + tol)·(1 + |TCR|·|Ta − 25 °C|): the ends of what its
@@ -118,6 +119,7 @@ const (
 	axisResistor
 	axisVBE
 	axisVAF
+	axisEmitterRail
 )
 
 // cornerAxis is one input with two levels.
@@ -130,7 +132,7 @@ type cornerAxis struct {
 // device models.
 type cornerPlan struct {
 	b     Build
-	axes  [NumSlots + 5]cornerAxis
+	axes  [NumSlots + 6]cornerAxis
 	n     int
 	theta float64
 	tjMax float64
@@ -161,6 +163,9 @@ func newCornerPlan(b Build, lim Limits) (cornerPlan, error) {
 	}
 	if b.VCCTol > 0 {
 		add(axisSupply, 0)
+	}
+	if b.railsApart() {
+		add(axisEmitterRail, 0)
 	}
 	if b.Device.HFEMax > b.Device.HFEMin {
 		add(axisBeta, 0)
@@ -207,7 +212,7 @@ func CornerCount(b Build) int {
 	}
 	vbeLo, vbeHi, _ := VBEOnRange(b.Device)
 	vafLo, vafHi := VAFRange(b.Device)
-	for _, spread := range []bool{b.VCCTol > 0, b.Device.HFEMax > b.Device.HFEMin, vbeHi > vbeLo, vafHi > vafLo, b.AmbientMax_C > b.AmbientMin_C} {
+	for _, spread := range []bool{b.VCCTol > 0, b.railsApart(), b.Device.HFEMax > b.Device.HFEMin, vbeHi > vbeLo, vafHi > vafLo, b.AmbientMax_C > b.AmbientMin_C} {
 		if spread {
 			n++
 		}
@@ -220,7 +225,7 @@ func CornerCount(b Build) int {
 // devices at the two ambients and the input checks shared by all corners.
 func (p *cornerPlan) solve(k int) (Corner, error) {
 	var dev, tcr [NumSlots]float64
-	vccFactor, ambient := 1.0, p.b.AmbientMin_C
+	vccFactor, veeFactor, ambient := 1.0, 0.0, p.b.AmbientMin_C
 	mi, ai := 0, 0
 	for j := 0; j < p.n; j++ {
 		if p.axes[j].kind == axisAmbient && k>>j&1 == 1 {
@@ -256,6 +261,12 @@ func (p *cornerPlan) solve(k int) (Corner, error) {
 			} else {
 				vccFactor = 1 - p.b.VCCTol
 			}
+		case axisEmitterRail:
+			if hi {
+				veeFactor = 1 + p.b.EmitterRailTol()
+			} else {
+				veeFactor = 1 - p.b.EmitterRailTol()
+			}
 		case axisBeta:
 			if hi {
 				mi |= 1
@@ -271,7 +282,10 @@ func (p *cornerPlan) solve(k int) (Corner, error) {
 		}
 	}
 	m := &p.models[mi]
-	s := p.b.resolveTCR(&dev, &tcr, vccFactor, ambient)
+	if veeFactor == 0 { // no rail of its own: it moves with VCC
+		veeFactor = vccFactor
+	}
+	s := p.b.resolveTCR(&dev, &tcr, vccFactor, veeFactor, ambient)
 	c := Corner{BF: m.BF, VBEOn_V: p.vbe[mi>>1&1], VAF_V: m.VAF_V, IS_A: m.IS_A, Temp_C: ambient, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm}
 	err := p.check[mi][ai]
 	var op OperatingPoint

@@ -24,6 +24,9 @@ func randomBuild(rng *rand.Rand) Build {
 	}
 	if b.Topology == SplitSupply {
 		b.VEE_V = -logU(1, 15)
+		// 0 (VCCTol's) or a tolerance of its own, taken from the rail's
+		// digits so the draws that follow stay as they were
+		b.VEETol = []float64{0, 0, 0.01, 0.1}[int(-b.VEE_V*1e3)%4]
 		if b.Resistors[RE].Nominal_Ohm == 0 {
 			b.Resistors[RE] = ResistorSpec{Nominal_Ohm: logU(100, 1e5), Tol: 0.05}
 		}
@@ -59,7 +62,8 @@ func randomBuild(rng *rand.Rand) Build {
 // referenceCorner solves corner k of b the plain way: the corner's inputs
 // taken from its number as EvalWorstCase documents it (bit j high = axis j
 // at its high level; axes are the toleranced resistors in slot order, then
-// the supply, hFE, VBE(on), VAF and the ambient, each only when it has a
+// the supply, the emitter rail of a split supply, hFE, VBE(on), VAF and
+// the ambient, each only when it has a
 // spread; a resistor's level at ambient Ta is R·(1 ± tol)·(1 ± |TCR|·|Ta −
 // 25 °C|), one without tolerance at its upper end) and one SolveSelfHeated
 // call from scratch.
@@ -72,7 +76,12 @@ func referenceCorner(b Build, k int) (Corner, error) {
 	}
 	vbeLo, vbeHi, _ := VBEOnRange(b.Device)
 	vafLo, vafHi := VAFRange(b.Device)
-	for _, spread := range []bool{b.VCCTol > 0, b.Device.HFEMax > b.Device.HFEMin, vbeHi > vbeLo, vafHi > vafLo} {
+	split := b.Topology == SplitSupply && (b.VEETol > 0 || b.VCCTol > 0)
+	veeTol := b.VEETol
+	if veeTol == 0 {
+		veeTol = b.VCCTol
+	}
+	for _, spread := range []bool{b.VCCTol > 0, split, b.Device.HFEMax > b.Device.HFEMin, vbeHi > vbeLo, vafHi > vafLo} {
 		if spread {
 			n++
 		}
@@ -104,6 +113,13 @@ func referenceCorner(b Build, k int) (Corner, error) {
 			vccFactor = 1 + b.VCCTol
 		}
 	}
+	veeFactor := vccFactor
+	if split {
+		veeFactor = 1 - veeTol
+		if bit() {
+			veeFactor = 1 + veeTol
+		}
+	}
 	if b.Device.HFEMax > b.Device.HFEMin && bit() {
 		bf = b.Device.HFEMax
 	}
@@ -121,6 +137,7 @@ func referenceCorner(b Build, k int) (Corner, error) {
 		return Corner{}, err
 	}
 	s := b.Resolve([NumSlots]float64{}, vccFactor, 25)
+	s.VEE_V = b.VEE_V * veeFactor
 	for i := range NumSlots {
 		if r[i] > 0 {
 			s.R_Ohm[i] = r[i]

@@ -240,7 +240,7 @@ func TestRSSMatchesSampledSpread(t *testing.T) {
 			t.Fatal(err)
 		}
 		ta := u(15, 35)
-		st := b.resolveTCR(&dev, &tcr, vccF, ta)
+		st := b.resolveTCR(&dev, &tcr, vccF, vccF, ta)
 		op, err := SolveSelfHeated(st, m, ta, ThermalResistance(d), 150)
 		if err != nil {
 			t.Fatal(err)

@@ -120,8 +120,9 @@ type YieldOptions struct {
 // YieldOptions (YieldDefinition). Each board draws, independently and in
 // the order of Uncertainties: every used resistor's value on its ±tol and
 // its TCR on ± its stated bound, the supply factor on ±VCCTol, hFE on
-// [hFE min, hFE max], VBE(on) on VBEOnRange (through IS) and the Early
-// voltage on VAFRange, each rectangular (only limits are known, JCGM
+// [hFE min, hFE max], VBE(on) on VBEOnRange (through IS), the Early
+// voltage on VAFRange and, for a split supply, the emitter rail's factor
+// on ± its own tolerance (Build.EmitterRailTol), each rectangular (only limits are known, JCGM
 // 101:2008 §6.4.2.1). The ambient is not drawn: the board is solved,
 // self-heated, with its resistors at the ambient, at both ends of the
 // range and counts as good only if IC and VCE are inside w at both.

@@ -32,7 +32,7 @@ func icWith(t *testing.T, b Build, vccF, tcrRE, ta float64) float64 {
 	}
 	var dev, tcr [NumSlots]float64
 	tcr[RE] = tcrRE
-	op, err := Solve(b.resolveTCR(&dev, &tcr, vccF, ta), m, ta)
+	op, err := Solve(b.resolveTCR(&dev, &tcr, vccF, vccF, ta), m, ta)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -139,7 +139,7 @@ func TestYieldWholeAmbientRange(t *testing.T) {
 func TestYieldSweepAgrees(t *testing.T) {
 	rng := rand.New(rand.NewPCG(17, 19))
 	var boards, passed, turned int
-	for range 80 {
+	for range 120 {
 		b := randomBuild(rng)
 		if b.AmbientMax_C-b.AmbientMin_C < 20 {
 			continue

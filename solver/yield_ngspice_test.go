@@ -240,7 +240,7 @@ func TestNgspiceInstanceTemperature(t *testing.T) {
 		t.Fatal(err)
 	}
 	for k, bd := range boards {
-		s := b.resolveTCR(&bd.dev, &bd.tcr, bd.vccFactor, ta)
+		s := b.resolveTCR(&bd.dev, &bd.tcr, bd.vccFactor, bd.veeFactor, ta)
 		got, err := spicecheck.Run(context.Background(), []spicecheck.Job{{Deck: Netlist(s, bd.m, tj, "global temperature"), Vectors: []string{"@q1[ic]"}}})
 		if err != nil {
 			t.Fatal(err)

@@ -36,7 +36,9 @@ type jsonRequest struct {
 	VCC_V    float64 `json:"vcc_v"`           // the supply as a meter reads it against 0 V
 	VEE_V    float64 `json:"vee_v,omitempty"` // split supply: the emitter rail, signed
 	report.Reference
-	VCCTol       float64  `json:"vcc_tol"`
+	VCCTol float64 `json:"vcc_tol"`
+	// VEETol is the emitter rail's tolerance (its own, else vcc_tol's).
+	VEETol       float64  `json:"vee_tol,omitempty"`
 	IC_A         float64  `json:"ic_a"`
 	VCE_V        float64  `json:"vce_v"`    // 0 = the maximum-symmetrical-swing rule
 	VEMin_V      float64  `json:"ve_min_v"` // 0..0 = the default emitter band
@@ -275,6 +277,7 @@ func jsonRequestOf(r picker.Request) jsonRequest {
 		VEE_V:        r.VEE_V,
 		Reference:    report.ReferenceOf(r.Polarity, r.Topology, g),
 		VCCTol:       r.VCCTol,
+		VEETol:       r.EmitterRailTol(),
 		IC_A:         r.IC_A,
 		VCE_V:        r.VCE_V,
 		VEMin_V:      r.VEMin_V,

@@ -33,6 +33,7 @@ type Options struct {
 	Topology    string
 	VEE         string
 	Rail        string // --rail: positive (default) or negative; "" = from the sign of --vcc
+	VEETol      string
 	Ambient     string
 	Boards      int
 	Load        string

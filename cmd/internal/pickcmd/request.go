@@ -43,14 +43,8 @@ func (o *Options) request() (picker.Request, error) {
 	if req.VCC_V, err = solver.Rail(vcc, pol, solver.Collector); err != nil {
 		return req, requestError(err)
 	}
-	if o.VEE != "" {
-		vee, err := notation.ParseVoltage(o.VEE)
-		if err != nil {
-			return req, cmdutil.Usagef("--vee: %v", err)
-		}
-		if req.VEE_V, err = solver.Rail(vee, pol, solver.Emitter); err != nil {
-			return req, requestError(err)
-		}
+	if err := o.emitterRail(&req, pol); err != nil {
+		return req, err
 	}
 
 	switch {
@@ -155,6 +149,43 @@ func (o *Options) request() (picker.Request, error) {
 	return req, nil
 }
 
+// emitterRail reads --vee (a voltage, or the range a battery moves over)
+// and --vee-tol into the request; without either tolerance the picker
+// takes --vcc-tol's.
+func (o *Options) emitterRail(req *picker.Request, pol solver.Polarity) error {
+	if o.VEE == "" {
+		if o.VEETol != "" {
+			return cmdutil.Usagef("--vee-tol %s: there is no --vee; give the emitter rail too, e.g. --vee 12V --vee-tol %s", o.VEETol, o.VEETol)
+		}
+		return nil
+	}
+	vee, tol, isRange, err := notation.ParseSupply(o.VEE)
+	if err != nil {
+		return cmdutil.Usagef("--vee: %v", err)
+	}
+	if req.VEE_V, err = solver.Rail(vee, pol, solver.Emitter); err != nil {
+		return requestError(err)
+	}
+	switch {
+	case isRange && o.VEETol != "":
+		return cmdutil.Usagef("--vee %s is already a range; give either the range or --vee-tol, not both", o.VEE)
+	case isRange:
+		req.VEETol = tol
+		// the picker checks it; asked here only to name --vee
+		if err := solver.CheckTolerance("vee_tol", tol); err != nil {
+			return cmdutil.Usagef("--vee %s: %s", o.VEE, err.(*solver.InputError).Problem)
+		}
+	case o.VEETol != "":
+		if req.VEETol, err = notation.ParseTolerance(o.VEETol); err != nil {
+			return cmdutil.Usagef("--vee-tol: %v", err)
+		}
+		if req.VEETol == 0 {
+			return cmdutil.Usagef("--vee-tol %s: no supply is exact; give its regulation, e.g. --vee-tol 1%%", o.VEETol)
+		}
+	}
+	return nil
+}
+
 // parseKeep reads --keep POSITION=VALUE[,...]: the resistors on the board
 // the build keeps, each value with its tolerance and rating if known
 // (47K, 47K/5%/0.25W, as check takes a resistor). Which positions the
@@ -208,6 +239,8 @@ func flagOf(field string) string {
 	switch {
 	case field == "vcc_tol":
 		return "--vcc-tol"
+	case field == "vee_tol":
+		return "--vee-tol"
 	case strings.HasPrefix(field, "weights"):
 		return "--weights"
 	case field == "window":

@@ -59,6 +59,17 @@ func TestFlags(t *testing.T) {
 				}
 			}
 		}},
+		{"emitter rail tolerance", append(base, "--topology", "split-supply", "--vee", "12V", "--vee-tol", "10%"), func(t *testing.T, r picker.Request) {
+			if !near(r.VEE_V, -12) || !near(r.VEETol, 0.1) || !near(r.VCCTol, 0.05) {
+				t.Errorf("vee %g ±%g (vcc ±%g), want -12 ±0.1 (vcc ±0.05)", r.VEE_V, r.VEETol, r.VCCTol)
+			}
+		}},
+		// A 9 V battery on the emitter rail, 9.6 V fresh to 7 V flat (common practice).
+		{"emitter rail range", append(base, "--topology", "split-supply", "--vee", "-9.6V..-7V"), func(t *testing.T, r picker.Request) {
+			if lo, hi := -r.VEE_V*(1-r.VEETol), -r.VEE_V*(1+r.VEETol); !near(lo, 7) || !near(hi, 9.6) {
+				t.Errorf("vee %g ±%g spans %g..%g, want 7..9.6", r.VEE_V, r.VEETol, lo, hi)
+			}
+		}},
 		{"defaults", base, func(t *testing.T, r picker.Request) {
 			if r.Topology != solver.Divider || r.Polarity != solver.NPN {
 				t.Errorf("topology/polarity = %v/%v, want divider/npn", r.Topology, r.Polarity)
@@ -195,6 +206,10 @@ func TestFlagErrors(t *testing.T) {
 		{"zero load", append(base, "--load", "0R"), []string{"--load", "positive"}},
 		{"huge supply tolerance", append(base, "--vcc-tol", "60%"), []string{"--vcc-tol"}},
 		{"empty tag", append(base, "--require-tag", " "), []string{"--require-tag", "empty"}},
+		{"emitter rail range and tolerance", append(base, "--topology", "split-supply", "--vee", "7V..9.6V", "--vee-tol", "5%"), []string{"--vee 7V..9.6V is already a range", "not both"}},
+		{"emitter rail tolerance without the rail", append(base, "--vee-tol", "5%"), []string{"--vee-tol 5%", "no --vee"}},
+		{"emitter rail tolerance zero", append(base, "--topology", "split-supply", "--vee", "12V", "--vee-tol", "0"), []string{"--vee-tol 0", "no supply is exact"}},
+		{"emitter rail tolerance too wide", append(base, "--topology", "split-supply", "--vee", "12V", "--vee-tol", "60%"), []string{"--vee-tol", "50 %"}},
 		{"keep without a value", append(base, "--keep", "r1"), []string{"--keep", "POSITION=VALUE"}},
 		{"keep a bad value", append(base, "--keep", "r1=4X7"), []string{"--keep r1"}},
 		{"keep a position the divider lacks", append(base, "--keep", "rf=100K"), []string{"--keep", "divider stage has no rf", "r1, r2, rc, re"}},

@@ -26,16 +26,22 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	if r.Pairs {
 		pairs = "pairs allowed"
 	}
-	rails := quantity(solver.GroundOf(r.Polarity, r.Topology, r.Rail).Supply_V(r.VCC_V), "V")
+	supply := quantity(solver.GroundOf(r.Polarity, r.Topology, r.Rail).Supply_V(r.VCC_V), "V")
+	// the rails with their tolerance, or each with its own
+	tol := func(t float64) string { return " ±" + strings.TrimSuffix(percent(t), " %") + " %" }
+	rails := supply + tol(r.VCCTol)
 	if r.VEE_V != 0 {
-		rails += " and VEE " + quantity(r.VEE_V, "V")
+		rails = supply + " and VEE " + quantity(r.VEE_V, "V") + tol(r.VCCTol)
+		if t := r.EmitterRailTol(); t != r.VCCTol {
+			rails = supply + tol(r.VCCTol) + " and VEE " + quantity(r.VEE_V, "V") + tol(t)
+		}
 	}
 	stage := r.Topology.String() + " stage"
 	if r.Topology == picker.AnyTopology {
 		stage = "stage of any topology"
 	}
-	fmt.Fprintf(w, "%s %s on %s ±%s: IC %s, %s, ambient %s..%s °C, %d board%s, %s\n",
-		strings.ToUpper(r.Polarity.String()), stage, rails, strings.TrimSuffix(percent(r.VCCTol), " %")+" %",
+	fmt.Fprintf(w, "%s %s on %s: IC %s, %s, ambient %s..%s °C, %d board%s, %s\n",
+		strings.ToUpper(r.Polarity.String()), stage, rails,
 		quantity(r.IC_A, "A"), vce, trimNum(r.AmbientMin_C), trimNum(r.AmbientMax_C), v.Boards, plural(v.Boards), pairs)
 	rail := report.Rail(r.Polarity, r.Rail)
 	if r.Topology == picker.AnyTopology && r.VEE_V != 0 {
