@@ -82,7 +82,7 @@ func (s *Stage) AddFlags(fl *pflag.FlagSet) {
 	} {
 		fl.StringVar(&s.R[r.slot], r.slot.String(), "", r.help+", e.g. 4K7 or 4.7k; with tolerance and rating 6K8/10%/1W; or a stock line '#26'")
 	}
-	fl.StringVar(&s.VCCTol, "vcc-tol", DefaultVCCTol, "supply tolerance (both rails)")
+	fl.StringVar(&s.VCCTol, "vcc-tol", DefaultVCCTol, "supply tolerance (both rails, each varied on its own)")
 	fl.StringVar(&s.Tol, "tol", DefaultTol, "resistor tolerance where the value carries none")
 	fl.StringVar(&s.TCR, "tcr", DefaultTCR(), "resistor temperature coefficient")
 	fl.StringVar(&s.Power, "power", DefaultPower, "resistor power rating at 70 °C (derated to 0 at 155 °C)")
