@@ -161,3 +161,30 @@ func bothModes(st Stock, req Request) (fast, full Result, err error) {
 	full, err = Pick(st, req)
 	return fast, full, err
 }
+
+// TestKeptShortfall: when nothing fits a repair, the shortfall says the
+// kept parts stay and never buys a part for a kept position.
+func TestKeptShortfall(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E12, 100, 100e3, 0.05, 0.25, 10, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
+	// 470K over 10K puts the base at 0.25 V: the stage is cut off
+	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 1, Keep: []KeptPart{{Position: "r1", Ohm: 470e3}, {Position: "r2", Ohm: 10e3}}}
+	res, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Shortfall == nil {
+		t.Fatal("no shortfall for a stage the kept parts cut off")
+	}
+	var said bool
+	for _, r := range res.Shortfall.Reasons {
+		said = said || r.Kind == KeptStay && len(r.Kept) == 2
+	}
+	if !said {
+		t.Errorf("reasons %+v lack the kept parts", res.Shortfall.Reasons)
+	}
+	for _, p := range res.Shortfall.Purchases {
+		if p.Slot == "r1" || p.Slot == "r2" {
+			t.Errorf("buys %+v for a kept position", p)
+		}
+	}
+}

@@ -105,6 +105,9 @@ const (
 	// NoApprovedPurchase: with RequireTags (Tags), no line on the approved
 	// list, topped up to the Boards the run needs, gives a build that fits.
 	NoApprovedPurchase
+	// KeptStay: the kept parts (Kept) stay as they are; a build that fits
+	// may need one of them replaced (nothing is bought for them).
+	KeptStay
 )
 
 // Reason is one cause of a shortfall, as figures; which fields are set
@@ -128,6 +131,8 @@ type Reason struct {
 	BetaSpread float64
 
 	Tags []string
+
+	Kept []KeptPart
 }
 
 // RejectKind says why a stocked transistor line was left out of a search.

@@ -74,6 +74,9 @@ func (e *evaluator) shortfall(rejected []Rejection, nearest []Candidate) *Shortf
 	if len(sf.Purchases) == 0 && len(e.devs) > 0 {
 		sf.Reasons = append(sf.Reasons, Reason{Kind: NoPurchase})
 	}
+	if len(s.keep) > 0 {
+		sf.Reasons = append(sf.Reasons, Reason{Kind: KeptStay, Kept: s.keep})
+	}
 	return sf
 }
 

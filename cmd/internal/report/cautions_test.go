@@ -37,6 +37,9 @@ func TestWords(t *testing.T) {
 	if got := Reason(picker.Reason{Kind: picker.NoApprovedPurchase, Tags: []string{"approved"}, Boards: 10}); !strings.HasPrefix(got, "nothing on the approved list (parts tagged approved) would do") {
 		t.Errorf("reason %q", got)
 	}
+	if got := Reason(picker.Reason{Kind: picker.KeptStay, Kept: []picker.KeptPart{{Position: "r1", Ohm: 47e3}, {Position: "re", Ohm: 1e3}}}); !strings.HasPrefix(got, "the kept parts (R1 47K, RE 1K0) stay as they are") {
+		t.Errorf("reason %q", got)
+	}
 	if got := Pieces(4); got != "4 pieces" {
 		t.Errorf("%q", got)
 	}

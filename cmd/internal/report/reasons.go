@@ -78,6 +78,13 @@ func Reason(r picker.Reason) string {
 		return fmt.Sprintf("no divider stiff enough: the nearest builds move IC by at least %.0f %% over the hFE range", 100*r.BetaSpread)
 	case picker.NoPurchase:
 		return "no purchase of one or two resistor values gives a passing build"
+	case picker.KeptStay:
+		var kept []string
+		for _, k := range r.Kept {
+			kept = append(kept, strings.ToUpper(k.Position)+" "+notation.FormatResistance(k.Ohm))
+		}
+		return fmt.Sprintf("the kept parts (%s) stay as they are and nothing is bought for them: a build that fits may need one replaced (pick again without keeping it)",
+			strings.Join(kept, ", "))
 	case picker.NoApprovedPurchase:
 		return fmt.Sprintf("nothing on the approved list (parts tagged %s) would do: no line of it, topped up to the %d parts the run needs, gives a good build",
 			strings.Join(r.Tags, " and "), r.Boards)
