@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"biasbin/cmd/internal/buildjob"
+	"biasbin/cmd/internal/report"
 	"biasbin/picker/job"
 	"biasbin/solver/notation"
 )
@@ -107,29 +108,13 @@ func checkFirst(cs []buildjob.Cause) string {
 	return strings.Join(parts, " and ")
 }
 
-// cautionWords says a hazard of a build; every caution is followed by
-// the usual practice (practiceWords).
-func cautionWords(c job.Caution) string {
-	switch c.Kind {
-	case job.CautionSupply:
-		return fmt.Sprintf("the supply reaches %s, above %s: touching the circuit can hurt",
-			notation.FormatVoltage(c.Value), notation.FormatVoltage(c.Limit))
-	case job.CautionHotPart:
-		return fmt.Sprintf("a part runs at %.0f %% of its design limit: it will be hot and can burn", 100*c.Utilization)
-	}
-	return fmt.Sprintf("caution %d", c.Kind)
-}
-
-// practiceWords close the cautions.
-const practiceWords = "hot parts can burn; keep them clear of other parts, and follow your local codes and licensed practice"
-
 // writeCautions writes a build's cautions, one a line, with prefix.
 func writeCautions(w io.Writer, prefix string, cs []job.Caution) {
 	for _, c := range cs {
-		fmt.Fprintf(w, "%scaution: %s\n", prefix, cautionWords(c))
+		fmt.Fprintf(w, "%scaution: %s\n", prefix, report.JobCaution(c))
 	}
 	if len(cs) > 0 {
-		fmt.Fprintf(w, "%scaution: %s\n", prefix, practiceWords)
+		fmt.Fprintf(w, "%scaution: %s\n", prefix, report.Practice)
 	}
 }
 

@@ -226,7 +226,7 @@ func writeJSON(w io.Writer, v *job.PickOutcome) error {
 		Fits:            v.Fits,
 		BuildableBoards: v.Buildable,
 		Candidates:      []jsonCandidate{},
-		Cautions:        report.Words(v.Cautions, cautionText),
+		Cautions:        report.Words(v.Cautions, report.JobCaution),
 	}
 	for _, b := range v.Builds {
 		doc.Candidates = append(doc.Candidates, jsonCandidateOf(b))

@@ -381,7 +381,7 @@ func WriteNotes(w io.Writer, v *job.PickOutcome) {
 		}
 	}
 	for _, c := range v.Cautions {
-		fmt.Fprintf(w, "caution: %s\n", cautionText(c))
+		fmt.Fprintf(w, "caution: %s\n", report.JobCaution(c))
 	}
 }
 

@@ -1,7 +1,6 @@
 package pickcmd
 
 import (
-	"fmt"
 	"strings"
 
 	"biasbin/picker"
@@ -42,20 +41,6 @@ func pullKind(p job.PullLine) string {
 		return "resistor"
 	}
 	return "transistor"
-}
-
-// cautionText words a pick's caution for the summary: a supply caution
-// once, each build's others under its rank.
-func cautionText(c job.Caution) string {
-	switch c.Kind {
-	case job.CautionSupply:
-		return fmt.Sprintf("the supply reaches %s, above the %s d.c. generally safe to touch: touching the circuit can give a shock; switch off before working on it, and follow your local codes and licensed practice",
-			trimV(c.Value), trimV(c.Limit))
-	case job.CautionHotPart:
-		return fmt.Sprintf("build #%d runs a part at %.0f %% of its design limit: it will be hot and can burn; keep it clear of other parts",
-			c.Build, c.Utilization*100)
-	}
-	return fmt.Sprintf("caution %d", c.Kind)
 }
 
 // hottest is the part nearest its design limit over the worst-case

@@ -65,7 +65,7 @@ func Caution(c safety.Caution) string {
 	case safety.UnknownRatings:
 		return fmt.Sprintf("the transistor's %s not stated: nothing here says it survives this build", RatingList(c.Ratings))
 	case safety.AboveTouchVoltage:
-		return fmt.Sprintf("the supply reaches %s, above the %s d.c. generally safe to touch (IEC 62368-1 ES1, from memory): touching the circuit can give a shock; switch off before working on it",
+		return fmt.Sprintf("the supply reaches %s, above the %s d.c. generally safe to touch (IEC 62368-1 ES1, from memory): touching the circuit can give a shock; switch off before working on it, and follow your local codes and licensed practice",
 			fV(c.Supply_V), fV(c.Limit_V))
 	case safety.AboveELV:
 		return fmt.Sprintf("the supply reaches %s, beyond extra-low voltage (%s d.c., IEC 61140): a shock can kill; enclose it, switch off and discharge before touching, and work to local codes and licensed practice",
