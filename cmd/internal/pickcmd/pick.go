@@ -4,12 +4,8 @@
 package pickcmd
 
 import (
-	"biasbin/store"
 	"context"
-	"errors"
 	"fmt"
-	"io"
-	"slices"
 	"strconv"
 	"strings"
 	"time"
@@ -25,7 +21,7 @@ import (
 	"biasbin/picker"
 	"biasbin/picker/job"
 	"biasbin/solver"
-	"biasbin/solver/notation"
+	"biasbin/store"
 )
 
 // New returns the pick command.
@@ -230,171 +226,4 @@ func Run(ctx context.Context, o *Options) error {
 		return cmdutil.ErrSilent
 	}
 	return nil
-}
-
-// pickError wraps a search error by its cause: a request the picker
-// refuses is a usage error (exit 2); anything else — a kind of part
-// missing from the stock, stock data the solver refuses — means the job
-// could not be done (exit 1).
-func pickError(err error) error {
-	var pin *picker.InputError
-	var gap *picker.StockGapError
-	switch {
-	case errors.As(err, &gap):
-		return stockGap(gap)
-	case errors.As(err, &pin):
-		return requestError(pin)
-	}
-	return fmt.Errorf("pick: %w", err)
-}
-
-// stockGap words a missing kind of part with what to add.
-func stockGap(g *picker.StockGapError) error {
-	tagNote := ""
-	if len(g.Tags) > 0 {
-		tagNote = " tagged " + strings.Join(g.Tags, " and ")
-	}
-	if g.Resistors {
-		if tagNote != "" {
-			return fmt.Errorf("no resistor in stock is%s: tag the approved lines with `biasbin stock tag ID TAG`, or drop --require-tag", tagNote)
-		}
-		return errors.New("the stock holds no resistors: add them with `biasbin stock import FILE.csv` or `biasbin stock add resistor VALUE ...` (`biasbin demo` shows a stocked run)")
-	}
-	pol := strings.ToUpper(g.Polarity.String())
-	msg := fmt.Sprintf("no %s transistor in stock%s: add one with `biasbin stock add transistor LABEL --polarity %s --hfe MIN..MAX ...`",
-		pol, tagNote, g.Polarity)
-	if g.OtherPolarity > 0 {
-		flip := solver.NPN
-		if g.Polarity == solver.NPN {
-			flip = solver.PNP
-		}
-		msg += fmt.Sprintf(", or design for --polarity %s (%d line%s in stock)", flip, g.OtherPolarity, plural(g.OtherPolarity))
-	}
-	return errors.New(msg)
-}
-
-// WriteText writes the readable result: the request, each build, and the
-// pull list of the best build that fits. When nothing fits the builds shown
-// are the nearest ones: each with the limit it breaks, or, when the stock
-// runs short for the run, the best builds for the boards it does supply.
-func WriteText(w io.Writer, v *job.PickOutcome, st Style) {
-	switch {
-	case v.Short():
-		fmt.Fprintf(w, "%s the stock on hand builds at most %d.\n", st.mark(fmt.Sprintf("NOTHING FITS %d BOARDS:", v.Boards)), v.Buildable)
-	case !v.Fits && v.Passing():
-		fmt.Fprintf(w, "%s the nearest are listed below, off target, with no pull list.\n",
-			st.mark(fmt.Sprintf("NO BUILD REACHES THE TARGET (IC %s):", notation.FormatCurrent(v.Request.IC_A))))
-	case !v.Fits && len(v.Builds) > 0:
-		fmt.Fprintf(w, "%s the nearest builds are listed below, each with the limit it breaks.\n", st.mark("NOTHING FITS:"))
-	case !v.Fits:
-		fmt.Fprintln(w, st.mark("NOTHING FITS."))
-	}
-	writeHeader(w, v)
-	if len(v.Builds) == 0 {
-		fmt.Fprintln(w, "\nno build to show")
-		return
-	}
-	if v.Short() {
-		fmt.Fprintf(w, "\nThe best builds for %d boards (the pull list counts what all %d take):\n", v.Buildable, v.Boards)
-	}
-	several := v.Request.Topology == picker.AnyTopology
-	for _, b := range v.Builds {
-		writeCandidate(w, b, several, st)
-	}
-	if len(v.Result.Rivals) > 0 {
-		writeRivals(w, v.Builds[0], v.Result.Rivals)
-	}
-	for _, b := range v.Builds {
-		if b.FitsTarget() || (v.Short() && b.Fits()) {
-			writePullList(w, v, b, st)
-			break
-		}
-	}
-}
-
-// WriteNotes writes the shortfall explanation, the parts to buy and the
-// hot-part cautions on stderr.
-func WriteNotes(w io.Writer, v *job.PickOutcome) {
-	var reasons, buy, rejected []string
-	if s := v.Result.Shortfall; s != nil {
-		reasons = report.Words(s.Reasons, report.Reason)
-		if !sameTopUp(s.Purchases, v.TopUp) {
-			buy = report.Words(s.Purchases, report.Purchase)
-		}
-		rejected = report.Words(s.Rejected, report.Rejection)
-	}
-	switch {
-	case !v.Fits:
-		fmt.Fprintln(w, "nothing fits this request:")
-		if len(reasons)+len(rejected) == 0 {
-			fmt.Fprintln(w, "  - no build passes every limit")
-		}
-	case len(reasons)+len(buy) > 0:
-		fmt.Fprintln(w, "note: the stock limits this search:")
-	}
-	for _, r := range reasons {
-		fmt.Fprintf(w, "  - %s\n", r)
-	}
-	if !v.Fits || len(reasons)+len(buy) > 0 {
-		for _, r := range rejected {
-			fmt.Fprintf(w, "  - left out: %s\n", r)
-		}
-	}
-	topUp := v.TopUp
-	if len(buy)+len(topUp) > 0 {
-		// The purchase and the top-up are two ways to a good build: buy
-		// the one or the other, not both.
-		either := len(buy) > 0 && len(topUp) > 0
-		if either {
-			fmt.Fprintln(w, "parts to buy for a good build, either these (all of them):")
-		} else {
-			fmt.Fprintln(w, "parts to buy for a good build (all of them):")
-		}
-		for _, b := range buy {
-			fmt.Fprintf(w, "  - %s\n", b)
-		}
-		if either {
-			fmt.Fprintln(w, "or these, to make build #1 on all the boards:")
-		}
-		for _, p := range topUp {
-			fmt.Fprintf(w, "  - %d × %s for build #1 on all %d boards (bin %s #%d holds %d of the %d it takes)\n",
-				p.Missing(), pullValue(p), v.Boards, binName(p.Bin), p.ID, p.OnHand, p.Qty)
-		}
-	}
-	if s := v.Result.Shortfall; s != nil && len(s.Unapproved) > 0 {
-		fmt.Fprintf(w, "not on the approved list (parts tagged %s), so not to buy for this run; these would give a good build once added to it (all of them):\n",
-			strings.Join(v.Request.RequireTags, " and "))
-		for _, b := range report.Words(s.Unapproved, report.Purchase) {
-			fmt.Fprintf(w, "  - %s\n", b)
-		}
-	}
-	if !v.Fits {
-		if v.Short() {
-			fmt.Fprintf(w, "the stock on hand builds %d of the %d boards; the best builds for %d are listed on stdout\n",
-				v.Buildable, v.Boards, v.Buildable)
-		} else if v.Passing() {
-			fmt.Fprintln(w, "the nearest builds are listed on stdout: they keep every limit but miss the target")
-		} else if len(v.Result.Candidates) > 0 {
-			fmt.Fprintln(w, "the nearest builds are listed on stdout, each with the limit it breaks")
-		} else {
-			fmt.Fprintln(w, "no build came near enough to show")
-		}
-	}
-	for _, c := range v.Cautions {
-		fmt.Fprintf(w, "caution: %s\n", report.JobCaution(c))
-	}
-}
-
-// sameTopUp reports whether the purchases are top-ups of exactly the lines
-// and counts the first build's top-up lists, so that the notes say it once.
-func sameTopUp(buy []picker.Purchase, topUp []job.PullLine) bool {
-	if len(buy) == 0 || len(buy) != len(topUp) {
-		return false
-	}
-	for _, b := range buy {
-		if b.Line == 0 || !slices.ContainsFunc(topUp, func(p job.PullLine) bool { return p.ID == b.Line && p.Missing() == b.Qty }) {
-			return false
-		}
-	}
-	return true
 }
