@@ -96,9 +96,6 @@ func (db *DB) checkSchemaReadOnly(ctx context.Context) error {
 	return nil
 }
 
-// ReadOnly reports whether the stock was opened for reading only.
-func (db *DB) ReadOnly() bool { return db.readOnly }
-
 // refuseWrite returns ErrReadOnly, saying which file is in the way, when
 // db was opened for reading only.
 func (db *DB) refuseWrite() error {

@@ -1,8 +1,6 @@
 package job
 
 import (
-	"math"
-
 	"biasbin/solver"
 	"biasbin/solver/safety"
 )
@@ -134,13 +132,6 @@ func Check(req CheckRequest) (*Analysis, error) {
 	a.Verdict = safety.VerdictOf(a.Safety)
 	a.Cautions = a.cautions()
 	return a, nil
-}
-
-// SupplySpan_V is the largest voltage across the stage: |VCC| (+|VEE|) at
-// the top of the supply tolerance.
-func (a *Analysis) SupplySpan_V() float64 {
-	b := a.Request.Build
-	return (math.Abs(b.VCC_V) + math.Abs(b.VEE_V)) * (1 + b.VCCTol)
 }
 
 // WorstDissipation is the dissipation to judge by: the worst over the

@@ -1,8 +1,6 @@
 package report
 
 import (
-	"strings"
-
 	"biasbin/picker/job"
 	"biasbin/solver"
 )
@@ -22,16 +20,6 @@ func Point(p job.Point) string {
 
 // Join words what a resistor joins: "+V to base".
 func Join(j job.Join) string { return Point(j.From) + " to " + Point(j.To) }
-
-// Joins words every fitted resistor with what it joins:
-// "R1 +V to base, R2 base to 0 V, RC +V to collector, RE emitter to 0 V".
-func Joins(js []job.Join) string {
-	var out []string
-	for _, j := range js {
-		out = append(out, strings.ToUpper(j.Slot.String())+" "+Join(j))
-	}
-	return strings.Join(out, ", ")
-}
 
 // Rail words how a stage of polarity p sits on its supply (rail settled by
 // solver.SettleRail): "positive supply: emitter side to +V, collector side
