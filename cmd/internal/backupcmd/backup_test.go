@@ -31,7 +31,7 @@ func TestBackupWritesAVerifiedCopyAndNeverOverwrites(t *testing.T) {
 	out := filepath.Join(dir, "copy.db")
 	run := func() (string, error) {
 		var o, e bytes.Buffer
-		f := &cmdutil.Factory{IO: cmdutil.Test(strings.NewReader(""), &o, &e), DBPath: path,
+		f := &cmdutil.Factory{IO: cmdtest.Streams(strings.NewReader(""), &o, &e), DBPath: path,
 			Getenv: func(string) string { return "" }}
 		defer f.Close()
 		err := cmdtest.Execute(New(f), []string{out}, &o, &e)

@@ -32,7 +32,7 @@ func TestFlagMistakesAreUsageErrors(t *testing.T) {
 		{[]string{"list", "extra"}, "no arguments"},
 	} {
 		var out, errOut bytes.Buffer
-		f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut), DBPath: "/nonexistent/never/opened.db"}
+		f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut), DBPath: "/nonexistent/never/opened.db"}
 		err := cmdtest.Execute(New(f), tc.args, &out, &errOut)
 		var ue *cmdutil.UsageError
 		if !errors.As(err, &ue) || !strings.Contains(err.Error(), tc.want) {
@@ -54,7 +54,7 @@ func TestLedgerFlagMistakes(t *testing.T) {
 		{[]string{"12"}, "no arguments"},
 	} {
 		var out, errOut bytes.Buffer
-		f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut), DBPath: "/nonexistent/never/opened.db"}
+		f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut), DBPath: "/nonexistent/never/opened.db"}
 		err := cmdtest.Execute(ledgercmd.New(f), tc.args, &out, &errOut)
 		var ue *cmdutil.UsageError
 		if !errors.As(err, &ue) || !strings.Contains(err.Error(), tc.want) {

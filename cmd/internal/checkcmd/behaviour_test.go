@@ -18,7 +18,7 @@ import (
 func run(t *testing.T, args []string) (string, string, int) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut)}
 	err := cmdtest.Execute(New(f), args, &out, &errOut)
 	if err != nil && err != cmdutil.ErrSilent {
 		errOut.WriteString("biasbin: " + err.Error() + "\n")

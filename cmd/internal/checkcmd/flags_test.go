@@ -24,7 +24,7 @@ import (
 func parseFlags(t *testing.T, args []string, open func(context.Context) (*store.DB, error)) (job.CheckRequest, error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut)}
 	var in job.CheckRequest
 	cmd := newCmd(f, func(o *Options) error {
 		if open != nil {

@@ -20,7 +20,7 @@ import (
 func plotData(t *testing.T, args []string) picture.Chart {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut)}
 	var got picture.Chart
 	err := cmdtest.Execute(newPlotCmd(f, func(o *Options) error {
 		pic, a, err := o.analysePlot(context.Background())
@@ -166,7 +166,7 @@ func inside(p picture.Point, h []picture.Point) bool {
 func runPlot(t *testing.T, args []string) (string, string, int) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut)}
 	err := cmdtest.Execute(NewPlot(f), args, &out, &errOut)
 	if err != nil && err != cmdutil.ErrSilent {
 		errOut.WriteString("biasbin: " + err.Error() + "\n")

@@ -65,7 +65,7 @@ func TestPlotBuildIDs(t *testing.T) {
 	ids := []string{out.Builds[0].ID, out.Builds[1].ID}
 	exec := func(args []string, runF func(*Options) error) (string, error) {
 		var so, se bytes.Buffer
-		f := &cmdutil.Factory{IO: cmdutil.Test(nil, &so, &se), DBPath: path, Getenv: func(string) string { return "" }}
+		f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &so, &se), DBPath: path, Getenv: func(string) string { return "" }}
 		defer f.Close()
 		err := cmdtest.Execute(newPlotCmd(f, runF), args, &so, &se)
 		return se.String(), err

@@ -6,6 +6,7 @@ package cmdtest
 import (
 	"bytes"
 	"flag"
+	"io"
 	"os"
 	"path/filepath"
 	"testing"
@@ -51,4 +52,10 @@ func Execute(cmd *cobra.Command, args []string, out, errOut *bytes.Buffer) error
 	cmd.SilenceUsage, cmd.SilenceErrors = true, true
 	cmd.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return &cmdutil.UsageError{Err: err} })
 	return cmd.Execute()
+}
+
+// Streams returns command streams over the given buffers, none of them a
+// terminal (as when output is piped).
+func Streams(in io.Reader, out, errOut io.Writer) *cmdutil.IOStreams {
+	return &cmdutil.IOStreams{In: in, Out: out, ErrOut: errOut}
 }

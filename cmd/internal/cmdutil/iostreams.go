@@ -35,11 +35,6 @@ func Files(in, out, errOut *os.File) *IOStreams {
 	}
 }
 
-// Test returns streams over the given buffers, none of them a terminal.
-func Test(in io.Reader, out, errOut io.Writer) *IOStreams {
-	return &IOStreams{In: in, Out: out, ErrOut: errOut}
-}
-
 // IsStdoutTTY reports whether Out is a terminal (text output may then
 // mark what must not be missed in bold).
 func (s *IOStreams) IsStdoutTTY() bool { return s.outTTY }

@@ -22,7 +22,7 @@ var tour = filepath.Join("..", "..", "..", "testdata", "tour")
 func run(t *testing.T, envDB string, args ...string) (stdout, stderr string, err error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut), Getenv: func(k string) string {
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut), Getenv: func(k string) string {
 		if k == "BIASBIN_DB" {
 			return envDB
 		}

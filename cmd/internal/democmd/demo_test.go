@@ -15,7 +15,7 @@ import (
 func runDemo(t *testing.T, args ...string) (stdout, stderr string, err error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut)}
 	err = cmdtest.Execute(New(f), args, &out, &errOut)
 	return out.String(), errOut.String(), err
 }

@@ -27,7 +27,7 @@ func TestRepairExamplesAskWhatTheyShow(t *testing.T) {
 	for i, args := range [][]string{substituteArgs(), diagnoseArgs()} {
 		t.Run(names[i], func(t *testing.T) {
 			var out, notes bytes.Buffer
-			f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &notes), DBPath: keep, Getenv: func(string) string { return "" }}
+			f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &notes), DBPath: keep, Getenv: func(string) string { return "" }}
 			defer f.Close()
 			cmd := substitutecmd.New(f)
 			if i == 1 {

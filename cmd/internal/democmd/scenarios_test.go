@@ -39,7 +39,7 @@ func TestScenariosAskWhatTheyShow(t *testing.T) {
 	for i, sc := range scenarios() {
 		t.Run(fmt.Sprint(i+1), func(t *testing.T) {
 			var out, notes bytes.Buffer
-			f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &notes), DBPath: keep, Getenv: func(string) string { return "" }}
+			f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &notes), DBPath: keep, Getenv: func(string) string { return "" }}
 			defer f.Close()
 			err := cmdtest.Execute(pickcmd.New(f), sc.args, &out, &notes)
 			if (err != nil) != sc.nothingFits {

@@ -13,7 +13,7 @@ import (
 func run(t *testing.T, args ...string) (string, string, error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut), DBPath: "/nonexistent/stock.db", Getenv: func(string) string { return "" }}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut), DBPath: "/nonexistent/stock.db", Getenv: func(string) string { return "" }}
 	defer f.Close()
 	err := cmdtest.Execute(New(f), args, &out, &errOut)
 	return out.String(), errOut.String(), err

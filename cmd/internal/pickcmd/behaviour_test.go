@@ -8,6 +8,7 @@ import (
 	"testing"
 	"time"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 	"biasbin/cmd/internal/stockcsv"
 	"biasbin/picker"
@@ -27,7 +28,7 @@ type invocation struct {
 func runPick(t *testing.T, dbPath string, pick func(picker.Stock, picker.Request) (picker.Result, error), args ...string) invocation {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut), DBPath: dbPath, Getenv: func(string) string { return "" }}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut), DBPath: dbPath, Getenv: func(string) string { return "" }}
 	defer f.Close()
 	var inv invocation
 	cmd := newCmd(f, func(o *Options) error {

@@ -19,7 +19,7 @@ import (
 func parseFlags(t *testing.T, args []string) (picker.Request, error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut)}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut)}
 	var req picker.Request
 	cmd := newCmd(f, func(o *Options) error {
 		var err error

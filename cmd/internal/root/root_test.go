@@ -9,6 +9,7 @@ import (
 	"strings"
 	"testing"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 )
 
@@ -17,7 +18,7 @@ import (
 func run(t *testing.T, env map[string]string, args ...string) (stdout, stderr string, code int) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut), Getenv: func(k string) string { return env[k] }}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut), Getenv: func(k string) string { return env[k] }}
 	cmd := New(f)
 	cmd.SetArgs(args)
 	err := cmd.Execute()

@@ -9,6 +9,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"biasbin/cmd/internal/cmdtest"
 	"biasbin/cmd/internal/cmdutil"
 )
 
@@ -25,7 +26,7 @@ func parse(t *testing.T, cmd *cobra.Command, args ...string) error {
 }
 
 func testFactory() *cmdutil.Factory {
-	return &cmdutil.Factory{IO: cmdutil.Test(strings.NewReader(""), &bytes.Buffer{}, &bytes.Buffer{})}
+	return &cmdutil.Factory{IO: cmdtest.Streams(strings.NewReader(""), &bytes.Buffer{}, &bytes.Buffer{})}
 }
 
 func TestAddFlags(t *testing.T) {

@@ -47,7 +47,7 @@ type result struct {
 func run(t testing.TB, db, in string, args ...string) result {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(strings.NewReader(in), &out, &errOut),
+	f := &cmdutil.Factory{IO: cmdtest.Streams(strings.NewReader(in), &out, &errOut),
 		Getenv: func(string) string { return "" }}
 	cmd := testRoot(f)
 	cmd.SetArgs(append([]string{"--db", db}, args...))

@@ -45,7 +45,7 @@ func testStock(t *testing.T) string {
 func run(t *testing.T, db string, args ...string) (string, string, error) {
 	t.Helper()
 	var out, errOut bytes.Buffer
-	f := &cmdutil.Factory{IO: cmdutil.Test(nil, &out, &errOut), DBPath: db, Getenv: func(string) string { return "" }}
+	f := &cmdutil.Factory{IO: cmdtest.Streams(nil, &out, &errOut), DBPath: db, Getenv: func(string) string { return "" }}
 	defer f.Close()
 	err := cmdtest.Execute(New(f), args, &out, &errOut)
 	return out.String(), errOut.String(), err
