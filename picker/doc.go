@@ -9,8 +9,9 @@
 // A zero field means its default: Topology divider (AnyTopology: every
 // topology, see "Several topologies"); Polarity from the sign
 // of VCC_V; VCE_V the maximum-symmetrical-swing rule below; ambient
-// 0..50 °C; Boards 1; Top 5 (DefaultTop); Window ±10 % IC around the
-// target and ±20 % VCE around the build's VCE target; Weights
+// 0..50 °C; Boards 1; Top 5 (DefaultTop); Window DefaultWindowRule,
+// ±10 % IC around the target and ±20 % VCE around the build's VCE target
+// (WindowRule: the one window rule, which check follows too); Weights
 // DefaultWeights(); Limits the solver's defaults (resistors at most 50 %
 // of the derated rating, the transistor at most 75 %, 0.5 V above
 // VCE(sat) at every corner); Finalists 2·max(Top, 5) + 5; YieldBoards 400.

@@ -223,17 +223,12 @@ func (e *evaluator) fits(c Candidate) bool {
 	return len(c.Failing) == 0 && e.window(c.VCETarget_V).Contains(&c.Nominal)
 }
 
-// window is the yield window of a build: the request's, or ±DefaultICWindow
-// around the target current and ±DefaultVCEWindow around the build's VCE
-// target.
-func (e *evaluator) window(vceT float64) solver.Window {
-	if e.s.req.Window != (solver.Window{}) {
-		return e.s.req.Window
-	}
-	return solver.Window{
-		ICMin_A: e.s.icT * (1 - DefaultICWindow), ICMax_A: e.s.icT * (1 + DefaultICWindow),
-		VCEMin_V: vceT * (1 - DefaultVCEWindow), VCEMax_V: vceT * (1 + DefaultVCEWindow),
-	}
+// window is the yield window of a build: the request's rule (WindowRule)
+// around the design point, the target current and the build's VCE target.
+func (e *evaluator) window(vceT float64) YieldWindow {
+	c := CentreOf(e.s.icT, vceT, solver.OperatingPoint{})
+	r := e.s.req.Window.WithDefault()
+	return YieldWindow{Window: r.At(c), Rule: r, Centre: c}
 }
 
 // candidate completes one pooled build: the full worst case with its
@@ -275,7 +270,7 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 	}
 	seed := e.s.req.Seed ^ keySeed(ev.key)
 	c.Window = e.window(c.VCETarget_V)
-	y, err := solver.EvalYieldSeeded(b, c.Window, e.s.yieldBoards, seed, solver.YieldOptions{})
+	y, err := solver.EvalYieldSeeded(b, c.Window.Window, e.s.yieldBoards, seed, solver.YieldOptions{})
 	if err != nil {
 		return c, fmt.Errorf("yield of build %s: %w", c.ID, err)
 	}

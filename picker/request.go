@@ -287,9 +287,8 @@ func normalize(req Request) (settings, error) {
 		return s, inputErr("limits", "use 0 for the defaults or positive values", "negative design margin %+v", req.Limits)
 	}
 	s.lim = req.Limits.WithDefaults()
-	w := req.Window
-	if w != (solver.Window{}) && (w.ICMin_A > w.ICMax_A || w.VCEMin_V > w.VCEMax_V) {
-		return s, inputErr("window", "give each band as MIN..MAX", "IC %g..%g A, VCE %g..%g V is not a window", w.ICMin_A, w.ICMax_A, w.VCEMin_V, w.VCEMax_V)
+	if err := req.Window.WithDefault().Check(); err != nil {
+		return s, err
 	}
 	return s, nil
 }

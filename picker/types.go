@@ -80,8 +80,8 @@ type Request struct {
 	AmbientMax_C float64 // both 0 = 0..50 °C
 	Boards       int     // 0 = 1
 	RL_Ohm       float64
-	Bypass       bool          // RE fully bypassed for AC
-	Window       solver.Window // yield window; zero = ±10 % IC, VCE within 20 % (documented)
+	Bypass       bool       // RE fully bypassed for AC
+	Window       WindowRule // yield window rule; zero = DefaultWindowRule (±10 % IC, ±20 % VCE around the target)
 	Weights      Weights
 	Pairs        bool
 	RequireTags  []string
@@ -159,8 +159,10 @@ type Candidate struct {
 	Nominal    solver.OperatingPoint
 	Worst      solver.WorstCase
 	Yield      solver.YieldResult
-	// Window is the yield window the build's Monte Carlo ran against.
-	Window          solver.Window
+	// Window is the yield window the build's Monte Carlo ran against,
+	// with its rule and design point (the target IC and the build's VCE
+	// target).
+	Window          YieldWindow
 	BetaSensitivity float64
 	MaxUtilization  float64
 	Failing         []Failure // the hard limits the build breaks; empty for a good build

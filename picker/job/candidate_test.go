@@ -20,7 +20,7 @@ func TestCandidateRequest(t *testing.T) {
 	st.Transistors = []picker.Transistor{{ID: 100, Qty: 20, Bin: "T", Sheet: solver.Datasheet{Label: "QX-1", Polarity: solver.NPN,
 		HFEMin: 100, HFEMax: 300, VBEOn_V: 0.65, VBEAt_A: 1e-3, VCESat_V: 0.2, VCEO_V: 40, ThetaJA_KPerW: 200, TjMax_C: 150}}}
 	res, err := picker.Pick(st, picker.Request{Polarity: solver.NPN, VCC_V: 12, VCCTol: 0.05, IC_A: 2e-3, Top: 2, Seed: 3,
-		Window: solver.Window{ICMin_A: 1.9e-3, ICMax_A: 2.1e-3, VCEMin_V: 1, VCEMax_V: 11}}) // a narrow IC band: some boards fail
+		Window: picker.WindowRule{IC: picker.Band{Min: 1.9e-3, Max: 2.1e-3}, VCE: picker.Band{Min: 1, Max: 11}}}) // a narrow IC band: some boards fail
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -40,7 +40,7 @@ func TestCandidateRequest(t *testing.T) {
 		if a.Yield == nil || a.Yield.Boards != c.Yield.Boards || a.Yield.Pass != c.Yield.Pass || len(a.Yield.Samples) != c.Yield.Boards {
 			t.Errorf("build %s: analysis yield %+v, the pick had %d of %d", c.ID, a.Yield, c.Yield.Pass, c.Yield.Boards)
 		}
-		if a.Window != c.Window || c.Window == (solver.Window{}) {
+		if a.Window != c.Window || c.Window.Window != (solver.Window{ICMin_A: 1.9e-3, ICMax_A: 2.1e-3, VCEMin_V: 1, VCEMax_V: 11}) {
 			t.Errorf("build %s: window %+v, the pick's %+v", c.ID, a.Window, c.Window)
 		}
 		if a.Nominal.IC_A != c.Nominal.IC_A || a.Nominal.VCE_V != c.Nominal.VCE_V || req.Label != "QX-1" {

@@ -1,6 +1,7 @@
 package job
 
 import (
+	"biasbin/picker"
 	"biasbin/solver"
 	"biasbin/solver/safety"
 )
@@ -10,8 +11,14 @@ type CheckRequest struct {
 	Build solver.Build
 	// Label is the stock label of the transistor, or "" for one given
 	// inline.
-	Label  string
-	Window WindowSpec
+	Label string
+	// Window is the yield window's rule (zero = picker.DefaultWindowRule)
+	// and TargetIC_A, TargetVCE_V the design point its relative bands sit
+	// around; a target of 0 means the build's nominal point
+	// (picker.CentreOf), so check and pick follow one rule.
+	Window      picker.WindowRule
+	TargetIC_A  float64
+	TargetVCE_V float64
 	// Boards and Seed size and seed the Monte Carlo yield.
 	Boards int
 	Seed   uint64
@@ -53,9 +60,9 @@ type Analysis struct {
 	// Worst is the worst case over every corner; nil when a corner could
 	// not be solved (see Problems).
 	Worst *solver.WorstCase
-	// Window is the yield window around the nominal point, and Yield the
-	// Monte Carlo run (nil when it failed).
-	Window solver.Window
+	// Window is the yield window with its rule and design point, and Yield
+	// the Monte Carlo run (nil when it failed).
+	Window picker.YieldWindow
 	Yield  *solver.YieldResult
 	Swing  solver.Swing
 	// Sensitivity is nil when it could not be computed.
@@ -114,8 +121,8 @@ func Check(req CheckRequest) (*Analysis, error) {
 	} else {
 		a.Worst = &wc
 	}
-	a.Window = req.Window.At(a.Nominal)
-	if y, err := solver.EvalYieldSeeded(b, a.Window, req.Boards, req.Seed, solver.YieldOptions{KeepBoards: req.KeepBoards}); err != nil {
+	a.Window = YieldWindowOf(req, a.Nominal)
+	if y, err := solver.EvalYieldSeeded(b, a.Window.Window, req.Boards, req.Seed, solver.YieldOptions{KeepBoards: req.KeepBoards}); err != nil {
 		a.Problems = append(a.Problems, Problem{AnalysisYield, err})
 	} else {
 		a.Yield = &y
@@ -179,3 +186,11 @@ func (a *Analysis) DCBeta() float64 {
 
 // VCEFloor_V is the VCE every corner must keep: VCE(sat) plus the margin.
 func (a *Analysis) VCEFloor_V() float64 { return a.VCESat_V + a.Limits.VCEMargin_V }
+
+// YieldWindowOf is the yield window of a check request whose build has the
+// nominal point op: the request's rule around its design point.
+func YieldWindowOf(req CheckRequest, op solver.OperatingPoint) picker.YieldWindow {
+	c := picker.CentreOf(req.TargetIC_A, req.TargetVCE_V, op)
+	r := req.Window.WithDefault()
+	return picker.YieldWindow{Window: r.At(c), Rule: r, Centre: c}
+}

@@ -4,6 +4,7 @@ import (
 	"math"
 	"testing"
 
+	"biasbin/picker"
 	"biasbin/solver"
 )
 
@@ -27,7 +28,7 @@ func divider60() solver.Build {
 // generally safe to touch (IEC 62368-1 ES1, REFERENCE.md §17), and above the
 // transistor's 45 V VCEO, so the analysis cautions both, as figures.
 func TestCheckCautions(t *testing.T) {
-	a, err := Check(CheckRequest{Build: divider60(), Window: WindowSpec{IC: Band{Relative: true, Frac: 0.1}, VCE: Band{Relative: true, Frac: 0.2}}, Boards: 200, Seed: 1})
+	a, err := Check(CheckRequest{Build: divider60(), Boards: 200, Seed: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -48,14 +49,26 @@ func TestCheckCautions(t *testing.T) {
 	}
 }
 
-// TestWindowAt: a relative band is ±Frac of the nominal value, never below
-// 0; an absolute band ignores the nominal value.
-func TestWindowAt(t *testing.T) {
-	w := WindowSpec{IC: Band{Relative: true, Frac: 0.1}, VCE: Band{Min: 4, Max: 8}}.At(solver.OperatingPoint{IC_A: 2e-3, VCE_V: 6})
-	if math.Abs(w.ICMin_A-1.8e-3) > 1e-15 || math.Abs(w.ICMax_A-2.2e-3) > 1e-15 || w.VCEMin_V != 4 || w.VCEMax_V != 8 {
-		t.Errorf("window %+v", w)
+// TestCheckWindow: check's window follows the one rule (picker.WindowRule):
+// without a target it sits around the nominal point, with --ic/--vce
+// targets around them, ±10 % IC and ±20 % VCE by default.
+func TestCheckWindow(t *testing.T) {
+	a, err := Check(CheckRequest{Build: divider60(), Boards: 50, Seed: 1})
+	if err != nil {
+		t.Fatal(err)
 	}
-	if lo, _ := (Band{Relative: true, Frac: 1.5}).Around(1); lo != 0 {
-		t.Errorf("a 150 %% band starts at %g, want 0", lo)
+	w, n := a.Window, a.Nominal
+	if math.Abs(w.ICMin_A-0.9*n.IC_A) > 1e-15 || math.Abs(w.ICMax_A-1.1*n.IC_A) > 1e-15 ||
+		math.Abs(w.VCEMin_V-0.8*n.VCE_V) > 1e-12 || math.Abs(w.VCEMax_V-1.2*n.VCE_V) > 1e-12 ||
+		w.Centre.ICOf != picker.CentreNominal || w.Centre.VCEOf != picker.CentreNominal {
+		t.Errorf("window %+v around nominal IC %g A, VCE %g V", w, n.IC_A, n.VCE_V)
+	}
+	a, err = Check(CheckRequest{Build: divider60(), Boards: 50, Seed: 1, TargetIC_A: 2e-3})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if w := a.Window; math.Abs(w.ICMin_A-1.8e-3) > 1e-15 || math.Abs(w.ICMax_A-2.2e-3) > 1e-15 ||
+		w.Centre.ICOf != picker.CentreTarget || w.Centre.VCEOf != picker.CentreNominal {
+		t.Errorf("window %+v, want IC 1.8..2.2 mA around the 2 mA target", w)
 	}
 }

@@ -85,9 +85,17 @@ func writeShow(w io.Writer, v buildjob.View) {
 	}
 	fmt.Fprintf(w, "picked for: %s\n", requestWords(p))
 	f := p.Figures
-	fmt.Fprintf(w, "as picked: IC %s (%s .. %s worst case), VCE %s (%s .. %s), yield %.1f %%\n",
+	yield := fmt.Sprintf("%.1f %%", 100*f.Yield) // a plan kept before the interval was
+	if f.YieldBoards > 0 {
+		y := solver.YieldResult{Boards: f.YieldBoards, Pass: f.YieldPassed, Yield: f.Yield, Low95: f.YieldLow95, High95: f.YieldHigh95}
+		yield = report.Yield(y) + " of " + report.Count(f.YieldBoards) + " simulated boards"
+	}
+	fmt.Fprintf(w, "as picked: IC %s (%s .. %s worst case), VCE %s (%s .. %s), yield %s\n",
 		notation.FormatCurrent(f.IC_A), notation.FormatCurrent(f.ICMin_A), notation.FormatCurrent(f.ICMax_A),
-		notation.FormatVoltage(f.VCE_V), notation.FormatVoltage(f.VCEMin_V), notation.FormatVoltage(f.VCEMax_V), 100*f.Yield)
+		notation.FormatVoltage(f.VCE_V), notation.FormatVoltage(f.VCEMin_V), notation.FormatVoltage(f.VCEMax_V), yield)
+	if f.Window != nil {
+		fmt.Fprintf(w, "yield window: %s\n", report.Window(*f.Window))
+	}
 	fmt.Fprintf(w, "stage: %s, transistor %s\n", stageWords(p), p.Build.Device.Label)
 	writeCautions(w, "", p.Cautions)
 	fmt.Fprintln(w, "\nparts by bin:")

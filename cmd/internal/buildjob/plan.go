@@ -71,6 +71,15 @@ type Figures struct {
 	VCEMin_V float64 `json:"vce_min_v"`
 	VCEMax_V float64 `json:"vce_max_v"`
 	Yield    float64 `json:"yield"`
+	// YieldLow95 and YieldHigh95 are the yield's 95 % Clopper–Pearson
+	// interval, YieldBoards and YieldPassed its count, and Window the
+	// window (rule and design point) it ran against; absent in plans kept
+	// before they were recorded.
+	YieldLow95  float64             `json:"yield_low95,omitempty"`
+	YieldHigh95 float64             `json:"yield_high95,omitempty"`
+	YieldBoards int                 `json:"yield_boards,omitempty"`
+	YieldPassed int                 `json:"yield_passed,omitempty"`
+	Window      *picker.YieldWindow `json:"window,omitempty"`
 	// Failing are the hard limits the build broke at the pick (empty for
 	// a good build).
 	Failing []picker.Failure `json:"failing,omitempty"`
@@ -119,7 +128,12 @@ func PlanFor(c picker.Candidate, req picker.Request, stock picker.Stock) Plan {
 	p.Lines = snapshot(stock, used)
 	p.Figures = Figures{Rank: c.Rank, Score: c.Score, IC_A: c.Nominal.IC_A, VCE_V: c.Nominal.VCE_V,
 		ICMin_A: c.Worst.ICMin_A, ICMax_A: c.Worst.ICMax_A, VCEMin_V: c.Worst.VCEMin_V, VCEMax_V: c.Worst.VCEMax_V,
-		Yield: c.Yield.Yield, Failing: c.Failing}
+		Yield: c.Yield.Yield, YieldLow95: c.Yield.Low95, YieldHigh95: c.Yield.High95, YieldBoards: c.Yield.Boards,
+		YieldPassed: c.Yield.Pass, Failing: c.Failing}
+	if c.Yield.Boards > 0 {
+		w := c.Window
+		p.Figures.Window = &w
+	}
 	p.Bands = bandsOf(c.Nominal, c.Worst)
 	return p
 }

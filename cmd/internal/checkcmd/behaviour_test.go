@@ -72,25 +72,25 @@ func TestBehaviour(t *testing.T) {
 		json     bool
 		stderrIn string // a substring stderr must hold ("" = stderr empty)
 	}{
-		{"divider_text", args("--theta-ja", "200", "--boards", "2000"), 0, false, ""},
+		{"divider_text", args("--theta-ja", "200", "--sim-boards", "2000"), 0, false, ""},
 		{"saturated_json", []string{"--vcc", "15V", "--r1", "10K", "--r2", "5K", "--rc", "3K3", "--re", "1K", "--hfe", "100..300",
-			"--theta-ja", "200", "--boards", "500", "--json"}, 1, true, "the build fails: 256 of 256 worst-case corners"},
+			"--theta-ja", "200", "--sim-boards", "500", "--json"}, 1, true, "the build fails: 256 of 256 worst-case corners"},
 		{"pnp_split_spice", []string{"--topology", "split-supply", "--polarity", "pnp", "--vcc", "15V", "--vee", "15V",
-			"--rb", "10K", "--rc", "10K", "--re", "20K", "--hfe", "100..300", "--spice", "--boards", "100"}, 0, false, "caution: the transistor's VCEO and power rating"},
+			"--rb", "10K", "--rc", "10K", "--re", "20K", "--hfe", "100..300", "--spice", "--sim-boards", "100"}, 0, false, "caution: the transistor's VCEO and power rating"},
 		{"pnp_positive_spice", []string{"--polarity", "pnp", "--vcc", "5V", "--r1", "1K", "--r2", "470R", "--rc", "1K5", "--re", "1K",
-			"--hfe", "100..300", "--spice", "--boards", "100"}, 0, false, "caution: the transistor's VCEO and power rating"},
+			"--hfe", "100..300", "--spice", "--sim-boards", "100"}, 0, false, "caution: the transistor's VCEO and power rating"},
 		{"pnp_negative_json", []string{"--polarity", "pnp", "--vcc", "5V", "--rail", "negative", "--r1", "1K", "--r2", "470R", "--rc", "1K5", "--re", "1K",
-			"--hfe", "100..300", "--boards", "100", "--json"}, 0, true, "caution: the transistor's VCEO and power rating"},
+			"--hfe", "100..300", "--sim-boards", "100", "--json"}, 0, true, "caution: the transistor's VCEO and power rating"},
 		{"feedback_text", []string{"--topology", "collector-feedback", "--vcc", "10V", "--rf", "250K", "--rc", "4K7", "--re", "1K2",
-			"--hfe", "90..135", "--bypass", "--load", "10K", "--ambient", "-10..60", "--boards", "1000"}, 0, false, ""},
+			"--hfe", "90..135", "--bypass", "--load", "10K", "--ambient", "-10..60", "--sim-boards", "1000"}, 0, false, ""},
 		{"hot_text", []string{"--vcc", "60V", "--r1", "470K", "--r2", "47K", "--rc", "22K", "--re", "4K7", "--hfe", "100..300",
-			"--pd", "625mW", "--boards", "500"}, 0, false, ""},
+			"--pd", "625mW", "--sim-boards", "500"}, 0, false, ""},
 		{"runaway_text", []string{"--vcc", "60V", "--r1", "47K", "--r2", "5K6", "--rc", "1K", "--re", "470R", "--hfe", "100..300",
-			"--pd", "625mW", "--boards", "500"}, 1, false, "thermal runaway"},
+			"--pd", "625mW", "--sim-boards", "500"}, 1, false, "thermal runaway"},
 		{"vceo_text", []string{"--vcc", "40V", "--r1", "470K", "--r2", "47K", "--rc", "22K", "--re", "4K7", "--hfe", "100..300",
-			"--vceo", "30V", "--ic-max", "1mA", "--boards", "200"}, 0, false, ""},
+			"--vceo", "30V", "--ic-max", "1mA", "--sim-boards", "200"}, 0, false, ""},
 		{"vceo_fails_text", []string{"--vcc", "250V", "--r1", "2M2", "--r2", "100K", "--rc", "100K", "--re", "10K", "--hfe", "100..300",
-			"--vceo", "80V", "--pd", "625mW", "--ic-max", "100mA", "--boards", "200"}, 1, false, "the build fails: VCE reaches"},
+			"--vceo", "80V", "--pd", "625mW", "--ic-max", "100mA", "--sim-boards", "200"}, 1, false, "the build fails: VCE reaches"},
 		{"bad_flag", args("--r1", "4K7X9"), 2, false, "--r1"},
 	}
 	for _, tt := range tests {
@@ -116,7 +116,7 @@ func TestBehaviour(t *testing.T) {
 func TestJSONFields(t *testing.T) {
 	// The fields issue 3 names, in SI base units.
 	out, errOut, code := run(t, []string{"--vcc", "12V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--hfe", "100..300",
-		"--load", "10K", "--bypass", "--boards", "200", "--json"})
+		"--load", "10K", "--bypass", "--sim-boards", "200", "--json"})
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -129,7 +129,7 @@ func TestJSONFields(t *testing.T) {
 		"model":       {"is_a", "bf", "br", "nf", "vaf_v", "xti", "xtb", "eg_ev", "tnom_c"},
 		"worst":       {"ic_min_a", "ic_max_a", "vce_min_v", "vce_max_v", "all_active"},
 		"swing":       {"rac_ohms", "v_peak_v", "clips_first", "optimum_ic_a"},
-		"yield":       {"boards", "yield", "std_err", "seed"},
+		"yield":       {"value", "low95", "high95", "boards", "passed", "method", "definition", "seed", "window", "inputs", "ambient_min_c", "ambient_max_c"},
 		"dissipation": {"nominal", "worst"},
 	}
 	for obj, keys := range need {
@@ -180,7 +180,7 @@ func TestJSONFields(t *testing.T) {
 }
 
 func TestSpiceWithJSON(t *testing.T) {
-	out, errOut, code := run(t, args("--json", "--spice", "--boards", "50"))
+	out, errOut, code := run(t, args("--json", "--spice", "--sim-boards", "50"))
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}

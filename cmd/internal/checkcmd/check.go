@@ -42,10 +42,17 @@ type Options struct {
 	Load   string
 	Bypass string
 	Window string
-	Boards int
-	Seed   uint64
-	JSON   bool
-	Spice  bool
+	// ICTarget and VCETarget are the design point the window sits
+	// around (--ic, --vce); "" = the nominal point.
+	ICTarget  string
+	VCETarget string
+	// SimBoards is the Monte Carlo size (--sim-boards); OldBoards catches
+	// the old --boards, refused with a pointer to --sim-boards.
+	SimBoards int
+	OldBoards int
+	Seed      uint64
+	JSON      bool
+	Spice     bool
 	// Ref is a build ID given as the argument (a pick's build, or a
 	// reserved build's number): the build to check instead of the flags.
 	Ref string
@@ -67,9 +74,9 @@ type Options struct {
 
 // Flag defaults, shown in --help (the stage's are stageflags').
 const (
-	defaultWindow = "10%,20%"
-	defaultBoards = 10000
-	defaultSeed   = 1
+	defaultWindow    = "10%,20%"
+	defaultSimBoards = 10000
+	defaultSeed      = 1
 	// bypassAll is what a bare --bypass means: all of RE bypassed.
 	bypassAll = "all"
 )
@@ -99,7 +106,8 @@ the range, --vcc 7V..9.6V: the nominal point sits at its middle and the
 worst case reaches both ends.
 A build a pick listed (its ID, like b3b39a272f57c, kept ` + strconv.Itoa(store.PickKeepDays) + ` days) or a
 reserved build (its number from build list) is checked by naming it:
-check b3b39a272f57c; --window, --boards and --seed still apply.
+check b3b39a272f57c; its yield runs against the pick's own window unless
+--window, --ic or --vce say otherwise; --sim-boards and --seed apply.
 A resistor may carry its own tolerance and power rating after slashes
 (6K8/10%/1W, 4K7F/0.5W) or name a resistor stock line ('#26': its stocked
 tolerance, rating, TCR and element voltage); otherwise
@@ -120,8 +128,12 @@ stock line's values (a heatsink's --theta-ja, a measured --hfe).
 
 By default the nominal point is at 25 °C ambient (--temp) and the typical
 hFE (the datasheet typical, else the geometric mean of min and max; --beta
-pins it). Yield: --window IC,VCE where each part is ±percent around the
-nominal point (10%) or an absolute range (1.8mA..2.2mA, 4V..8V).
+pins it).
+
+` + report.YieldHelp + `
+Here the window is --window IC,VCE, each a percentage (10%,20%) or a range
+(1.8mA..2.2mA,4V..8V). --boards is not check's: the simulated boards are
+--sim-boards (pick's --boards is the boards to build).
 
 The report leads with a verdict. A build fails when it breaks a hard
 limit: a worst-case corner leaves the active region or the VCE margin, a
@@ -242,8 +254,12 @@ func (o *Options) bindBuild(fl *pflag.FlagSet) {
 	fl.StringVar(&o.Load, "load", "", "AC load on the collector, e.g. 10K (for the AC load line)")
 	fl.StringVar(&o.Bypass, "bypass", "", "part of RE bypassed for AC, written --bypass=470R; a bare --bypass means all of RE")
 	fl.Lookup("bypass").NoOptDefVal = bypassAll
-	fl.StringVar(&o.Window, "window", defaultWindow, "yield window IC,VCE: each ±percent of nominal or MIN..MAX")
-	fl.IntVar(&o.Boards, "boards", defaultBoards, "Monte Carlo boards for the yield")
+	fl.StringVar(&o.Window, "window", defaultWindow, "yield window IC,VCE: each ±percent of the design point (--ic/--vce, else the nominal point) or MIN..MAX")
+	fl.StringVar(&o.ICTarget, "ic", "", "design IC the yield window sits around, e.g. 1mA (default the nominal IC)")
+	fl.StringVar(&o.VCETarget, "vce", "", "design VCE the yield window sits around, e.g. 6V (default the nominal VCE)")
+	fl.IntVar(&o.SimBoards, "sim-boards", defaultSimBoards, "simulated boards of the Monte Carlo yield (the same flag in pick)")
+	fl.IntVar(&o.OldBoards, "boards", 0, "")
+	_ = fl.MarkHidden("boards")
 	fl.Uint64Var(&o.Seed, "seed", defaultSeed, "Monte Carlo seed")
 }
 

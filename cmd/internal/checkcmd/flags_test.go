@@ -150,8 +150,8 @@ func TestFlags(t *testing.T) {
 				t.Errorf("bypass %g, want 470", in.Build.RBypass_Ohm)
 			}
 		}},
-		{"absolute window, nominal point pinned", args("--window", "1.8mA..2.2mA,4V..8V", "--beta", "200", "--temp", "40", "--ambient", "-10..60", "--boards", "500", "--seed", "9"), func(t *testing.T, in job.CheckRequest) {
-			w := in.Window.At(solver.OperatingPoint{IC_A: 1, VCE_V: 1})
+		{"absolute window, nominal point pinned", args("--window", "1.8mA..2.2mA,4V..8V", "--beta", "200", "--temp", "40", "--ambient", "-10..60", "--sim-boards", "500", "--seed", "9"), func(t *testing.T, in job.CheckRequest) {
+			w := in.Window.At(picker.WindowCentre{IC_A: 1, VCE_V: 1})
 			if !near(w.ICMin_A, 1.8e-3) || !near(w.ICMax_A, 2.2e-3) || !near(w.VCEMin_V, 4) || !near(w.VCEMax_V, 8) {
 				t.Errorf("window %+v", w)
 			}
@@ -198,7 +198,7 @@ func TestFlagErrors(t *testing.T) {
 		{"nominal ambient above 150 °C", args("--temp", "200"), "--temp"},
 		{"bad ambient range", args("--ambient", "60..-10"), "--ambient"},
 		{"negative beta", args("--beta", "-5"), "--beta"},
-		{"no boards", args("--boards", "0"), "--boards"},
+		{"no boards", args("--sim-boards", "0"), "--sim-boards"},
 		{"window without VCE part", args("--window", "10%"), "--window"},
 		{"bypass more than RE", args("--bypass=2K"), "--bypass"},
 		{"bypass value without =", args("--bypass", "470R"), "--bypass=470R"},
@@ -210,7 +210,10 @@ func TestFlagErrors(t *testing.T) {
 		{"tj max 0 (refused, not read as the default)", args("--tj-max", "0"), "--tj-max"},
 		{"beta 1e12", args("--beta", "1e12"), "--beta"},
 		{"icbo 1 A", args("--icbo", "1A"), "--icbo"},
-		{"boards 0", args("--boards", "0"), "--boards"},
+		{"sim boards above a million", args("--sim-boards", "2000000"), "--sim-boards"},
+		{"--boards is not the simulated boards", args("--boards", "150"), "--sim-boards"},
+		{"window share of 100 %", args("--window", "100%,20%"), "--window"},
+		{"design IC not a current", args("--ic", "-1mA"), "--ic"},
 		{"stray argument", args("extra"), "argument"},
 		{"unknown flag", args("--r7", "1K"), "r7"},
 	}

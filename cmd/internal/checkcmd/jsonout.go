@@ -29,7 +29,7 @@ type jsonDoc struct {
 	TestPoints  map[string]jsonBand     `json:"test_points"`
 	Corners     []jsonCorner            `json:"corners"`
 	Worst       *jsonWorst              `json:"worst"`
-	Yield       *jsonYield              `json:"yield"`
+	Yield       *report.YieldJSON       `json:"yield"`
 	Swing       jsonSwing               `json:"swing"`
 	Dissipation jsonDissipation         `json:"dissipation"`
 	Sensitivity *jsonSensitivity        `json:"sensitivity"`
@@ -132,22 +132,6 @@ type jsonWorst struct {
 	RSSIC_A      float64 `json:"rss_ic_a"`
 	RSSVCE_V     float64 `json:"rss_vce_v"`
 	TjMax_C      float64 `json:"tj_max_c"`
-}
-
-type jsonYield struct {
-	Boards     int     `json:"boards"`
-	Pass       int     `json:"pass"`
-	Failed     int     `json:"failed"`
-	Yield      float64 `json:"yield"`
-	StdErr     float64 `json:"std_err"`
-	Seed       uint64  `json:"seed"`
-	ICMin_A    float64 `json:"window_ic_min_a"`
-	ICMax_A    float64 `json:"window_ic_max_a"`
-	VCEMin_V   float64 `json:"window_vce_min_v"`
-	VCEMax_V   float64 `json:"window_vce_max_v"`
-	Resistors  string  `json:"resistor_distribution"`
-	HFE        string  `json:"hfe_distribution"`
-	AmbientDst string  `json:"ambient_distribution"`
 }
 
 type jsonSwing struct {
@@ -285,11 +269,8 @@ func jsonDocOf(r *job.Analysis) jsonDoc {
 		}
 	}
 	if y := r.Yield; y != nil {
-		doc.Yield = &jsonYield{
-			Boards: y.Boards, Pass: y.Pass, Failed: y.Failed, Yield: y.Yield, StdErr: y.StdErr, Seed: y.Seed,
-			ICMin_A: r.Window.ICMin_A, ICMax_A: r.Window.ICMax_A, VCEMin_V: r.Window.VCEMin_V, VCEMax_V: r.Window.VCEMax_V,
-			Resistors: "uniform ±tol", HFE: "uniform min..max", AmbientDst: "uniform min..max",
-		}
+		yj := report.YieldJSONOf(*y, r.Request.Build, r.Window)
+		doc.Yield = &yj
 	}
 	if s := r.Sensitivity; s != nil {
 		doc.Sensitivity = &jsonSensitivity{s.SI, s.SV_S, s.SBeta_A, s.BetaSpread, s.ICAtHFEMin_A, s.ICAtHFEMax_A, s.Tj_C}

@@ -84,7 +84,7 @@ func TestCheckSaturationAgainstNgspice(t *testing.T) {
 	var jobs []spicecheck.Job
 	vectors := []string{"@q1[ic]", "v(b)", "v(c)", "v(e)"}
 	for _, bd := range builds {
-		out, errOut, code := run(t, append(bd.args, "--json", "--boards", "100"))
+		out, errOut, code := run(t, append(bd.args, "--json", "--sim-boards", "100"))
 		// A saturating build fails the verdict (exit 1) and is still reported in full.
 		if code != 1 || !strings.Contains(errOut, "the build fails") {
 			t.Fatalf("%s: exit %d, want 1 with the verdict: %s", bd.name, code, errOut)

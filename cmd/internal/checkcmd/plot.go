@@ -49,7 +49,7 @@ PDF are that size at 96 pixels per inch).
 
 Instead of the build flags, name up to four builds: a pick's build ID (as
 pick shows it, kept for ` + strconv.Itoa(store.PickKeepDays) + ` days) or a reserved build's number (build list).
-Each is analysed as check analyses a build (--window, --boards and --seed
+Each is analysed as check analyses a build (--window, --sim-boards and --seed
 apply) and several are overlaid, each in its own colour, marker and dash,
 with the axes closed in on their spread. pick --plot FILE draws the first
 build of a pick as it runs (--compare N overlays the first N).`,
@@ -74,7 +74,9 @@ build of a pick as it runs (--compare N overlays the first N).`,
 	fl := cmd.Flags()
 	o.bindBuild(fl)
 	fl.VisitAll(func(f *pflag.Flag) {
-		if f.Name != "window" && f.Name != "boards" && f.Name != "seed" {
+		switch f.Name {
+		case "window", "ic", "vce", "sim-boards", "boards", "seed":
+		default:
 			o.buildFlags = append(o.buildFlags, f.Name)
 		}
 	})

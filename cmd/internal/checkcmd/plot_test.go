@@ -47,12 +47,14 @@ type checkJSON struct {
 		VCE_V float64 `json:"vce_v"`
 	} `json:"corners"`
 	Yield struct {
-		Boards   int     `json:"boards"`
-		Pass     int     `json:"pass"`
-		ICMin_A  float64 `json:"window_ic_min_a"`
-		ICMax_A  float64 `json:"window_ic_max_a"`
-		VCEMin_V float64 `json:"window_vce_min_v"`
-		VCEMax_V float64 `json:"window_vce_max_v"`
+		Boards int `json:"boards"`
+		Pass   int `json:"passed"`
+		Window struct {
+			ICMin_A  float64 `json:"ic_min_a"`
+			ICMax_A  float64 `json:"ic_max_a"`
+			VCEMin_V float64 `json:"vce_min_v"`
+			VCEMax_V float64 `json:"vce_max_v"`
+		} `json:"window"`
 	} `json:"yield"`
 	Swing struct {
 		ICSatDC_A  float64 `json:"ic_sat_dc_a"`
@@ -82,7 +84,7 @@ func TestPlotAgreesWithCheckJSON(t *testing.T) {
 		{"collector feedback", []string{"--topology", "collector-feedback", "--vcc", "12V", "--rf", "220K", "--rc", "2K2", "--re", "470R", "--hfe", "100..400", "--theta-ja", "250"}, 12, 2670, 0},
 		{"split supply", []string{"--topology", "split-supply", "--vcc", "9V", "--vee", "9V", "--rb", "10K", "--rc", "3K3", "--re", "4K7", "--hfe", "100..300"}, 18, 8000, 0},
 	} {
-		args := append(tc.args, "--boards", "300", "--seed", "5")
+		args := append(tc.args, "--sim-boards", "300", "--seed", "5")
 		stdout, stderr, code := run(t, append(args, "--json"))
 		if code != 0 {
 			t.Fatalf("%s: check exit %d: %s", tc.name, code, stderr)
@@ -108,7 +110,7 @@ func TestPlotAgreesWithCheckJSON(t *testing.T) {
 			}
 		}
 		w := tr.Window
-		if w.ICMin_A != doc.Yield.ICMin_A || w.ICMax_A != doc.Yield.ICMax_A || w.VCEMin_V != doc.Yield.VCEMin_V || w.VCEMax_V != doc.Yield.VCEMax_V {
+		if dw := doc.Yield.Window; w.ICMin_A != dw.ICMin_A || w.ICMax_A != dw.ICMax_A || w.VCEMin_V != dw.VCEMin_V || w.VCEMax_V != dw.VCEMax_V {
 			t.Errorf("%s: window drawn %+v, JSON %+v", tc.name, w, doc.Yield)
 		}
 		inWindow := 0
@@ -180,7 +182,7 @@ func runPlot(t *testing.T, args []string) (string, string, int) {
 // with exit 2 before anything is written.
 func TestPlotFiles(t *testing.T) {
 	dir := t.TempDir()
-	build := []string{"--vcc", "12V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--hfe", "100..300", "--boards", "200"}
+	build := []string{"--vcc", "12V", "--r1", "47K", "--r2", "10K", "--rc", "2K2", "--re", "470R", "--hfe", "100..300", "--sim-boards", "200"}
 	pngPath := filepath.Join(dir, "q.png")
 	if _, stderr, code := runPlot(t, append([]string{"--out", pngPath, "--size", "700x450"}, build...)); code != 0 {
 		t.Fatalf("plot png: exit %d: %s", code, stderr)

@@ -71,7 +71,7 @@ func TestPlotBuildIDs(t *testing.T) {
 		return se.String(), err
 	}
 	var chart picture.LoadLineChart
-	_, err := exec(append([]string{"--out", filepath.Join(t.TempDir(), "two.svg"), "--boards", "200"}, ids...), func(o *Options) error {
+	_, err := exec(append([]string{"--out", filepath.Join(t.TempDir(), "two.svg"), "--sim-boards", "200"}, ids...), func(o *Options) error {
 		_, c, _, err := o.refChart(context.Background())
 		if err != nil {
 			return err
@@ -95,7 +95,7 @@ func TestPlotBuildIDs(t *testing.T) {
 		}
 	}
 	pngPath := filepath.Join(t.TempDir(), "one.png")
-	if stderr, err := exec([]string{"--out", pngPath, "--kind", "ic-histogram", "--boards", "200", ids[1]}, nil); err != nil || !strings.Contains(stderr, "ic-histogram of "+ids[1]+" written to "+pngPath) {
+	if stderr, err := exec([]string{"--out", pngPath, "--kind", "ic-histogram", "--sim-boards", "200", ids[1]}, nil); err != nil || !strings.Contains(stderr, "ic-histogram of "+ids[1]+" written to "+pngPath) {
 		t.Errorf("plot --kind ic-histogram %s: %v (%s)", ids[1], err, stderr)
 	}
 	if data, err := os.ReadFile(pngPath); err != nil || !bytes.HasPrefix(data, []byte("\x89PNG")) {

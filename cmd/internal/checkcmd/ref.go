@@ -19,12 +19,13 @@ var buildFlags = []string{"topology", "vcc", "vee", "r1", "r2", "rc", "re", "rf"
 
 // refInput is the request for `check ID`: the build a pick listed (kept
 // with the pick) or a reserved build, as it was picked, with the yield run
-// from --window, --boards and --seed.
+// against the pick's own window (or --window, --ic, --vce) with
+// --sim-boards and --seed.
 func (o *Options) refInput(ctx context.Context) (job.CheckRequest, error) {
 	var in job.CheckRequest
 	for _, f := range buildFlags {
 		if o.Changed != nil && o.Changed(f) {
-			return in, stageflags.Usagef(f, "check %s names the whole build; leave out --%s (only --window, --boards, --seed, --json and --spice go with a build ID)", o.Ref, f)
+			return in, stageflags.Usagef(f, "check %s names the whole build; leave out --%s (only --window, --ic, --vce, --sim-boards, --seed, --json and --spice go with a build ID)", o.Ref, f)
 		}
 	}
 	ref, err := buildjob.ParseRef(o.Ref)
@@ -51,6 +52,18 @@ func (o *Options) refInput(ctx context.Context) (job.CheckRequest, error) {
 	in.Label = plan.Build.Device.Label
 	if err := o.yieldRequest(&in); err != nil {
 		return in, err
+	}
+	// The pick's window (its rule around its design point) unless the
+	// flags give another: the same build reads the same yield in both.
+	if w := plan.Figures.Window; w != nil {
+		if !o.changed("window") {
+			in.Window = w.Rule
+		}
+		if !o.changed("ic") && !o.changed("vce") {
+			in.TargetIC_A, in.TargetVCE_V = w.Centre.IC_A, w.Centre.VCE_V
+		}
+	} else if !o.changed("ic") {
+		in.TargetIC_A = plan.Request.IC_A // a plan kept before windows were
 	}
 	return in, nil
 }

@@ -94,12 +94,9 @@ func writeText(w io.Writer, r *job.Analysis) {
 
 	// Yield.
 	if y := r.Yield; y != nil {
-		win := r.Window
-		fmt.Fprintf(w, "\nYield: %.1f %% ± %.1f %% of %d boards (seed %d) with IC %s..%s and VCE %s..%s\n",
-			100*y.Yield, 100*y.StdErr, y.Boards, y.Seed, fA(win.ICMin_A), fA(win.ICMax_A), fV(win.VCEMin_V), fV(win.VCEMax_V))
-		if y.Failed > 0 {
-			fmt.Fprintf(w, "  %d boards could not be solved (counted as failures)\n", y.Failed)
-		}
+		fmt.Fprintf(w, "\nYield: %s — %s\n", report.Yield(*y), report.YieldBoards(*y, b.AmbientMin_C, b.AmbientMax_C))
+		fmt.Fprintf(w, "  window  %s\n", report.Window(r.Window))
+		fmt.Fprintf(w, "  drawn   %s, each rectangular within its stated limits (seed %d; --json lists them with the reason)\n", report.DrawnInputs(b), y.Seed)
 	}
 
 	// Dissipation.

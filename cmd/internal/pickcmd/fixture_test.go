@@ -71,7 +71,9 @@ func fakeCandidate(rank int, failing ...picker.Failure) picker.Candidate {
 			Dissipation: solver.Dissipation{Ok: true, MaxUtilization: 0.31,
 				Resistor: [solver.NumSlots]solver.PartLoad{solver.RC: {Power_W: 0.03875, Allowed_W: 0.125, Utilization: 0.31, Rated: true}}},
 		},
-		Yield:           solver.YieldResult{Boards: 1000, Pass: 987, Yield: 0.987, StdErr: 0.0036, Seed: 1},
+		Yield: solver.YieldResult{Boards: 1000, Pass: 987, Yield: 0.987, Low95: 0.9778, High95: 0.9931, StdErr: 0.0036, Seed: 1}, // invented figures
+		Window: picker.YieldWindow{Window: solver.Window{ICMin_A: 1.8e-3, ICMax_A: 2.2e-3, VCEMin_V: 5.3, VCEMax_V: 7.95},
+			Rule: picker.DefaultWindowRule(), Centre: picker.WindowCentre{IC_A: 2e-3, ICOf: picker.CentreTarget, VCE_V: 6.63, VCEOf: picker.CentreTarget}},
 		BetaSensitivity: 0.064,
 		MaxUtilization:  0.31,
 		Failing:         failing,

@@ -95,9 +95,7 @@ type jsonCandidate struct {
 	Nominal         jsonNominal         `json:"nominal"`
 	Worst           jsonWorst           `json:"worst"`
 	TestPoints      map[string]jsonBand `json:"test_points"`
-	Yield           float64             `json:"yield"`
-	YieldStdErr     float64             `json:"yield_stderr"`
-	YieldBoards     int                 `json:"yield_boards"`
+	Yield           *report.YieldJSON   `json:"yield"`
 	BetaSensitivity float64             `json:"beta_sensitivity"`
 	MaxUtilization  float64             `json:"max_utilization"`
 	Model           report.Model        `json:"model"`
@@ -333,15 +331,16 @@ func jsonCandidateOf(c job.Build) jsonCandidate {
 			AllActive: c.Worst.AllActive,
 		},
 		TestPoints:      map[string]jsonBand{},
-		Yield:           c.Yield.Yield,
-		YieldStdErr:     c.Yield.StdErr,
-		YieldBoards:     c.Yield.Boards,
 		BetaSensitivity: c.BetaSensitivity,
 		MaxUtilization:  c.MaxUtilization,
 		Model:           report.ModelOf(c.Model),
 		Failing:         report.Words(c.Failing, report.Failure),
 		UnknownRatings:  append([]solver.Rating{}, c.UnknownRatings...),
 		Cautions:        []jsonCaution{},
+	}
+	if c.Yield.Boards > 0 {
+		y := report.YieldJSONOf(c.Yield, c.Build, c.Window)
+		jc.Yield = &y
 	}
 	for _, slot := range job.Slots(c.Candidate) {
 		p := c.Positions[slot]

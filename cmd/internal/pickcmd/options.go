@@ -55,7 +55,10 @@ type Options struct {
 	// rating into the search (each such build says so).
 	AllowUnrated bool
 	Seed         uint64
-	JSON         bool
+	// SimBoards is the Monte Carlo size per build (--sim-boards, the same
+	// flag as check's).
+	SimBoards int
+	JSON      bool
 	// Plot is the picture file of the first build (or of the first Compare
 	// builds overlaid); PlotSize its size as typed (WIDTHxHEIGHT).
 	Plot     string

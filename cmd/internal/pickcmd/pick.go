@@ -80,10 +80,10 @@ voltage falls outside --ve (default 5 % to 20 % of the supply, about a tenth
 being the usual choice) pay the emitter term, the distance outside the band
 as a share of the supply.
 
-Yield windows: a percentage is a band around the target (--ic-window 10%),
-a range is absolute (--vce-window 4V..8V). Without --vce, the VCE band is
-the picker's per-build default (±20 % of that build's target) unless given
-as a range.
+` + report.YieldHelp + `
+Here --ic-window 10% is a band around --ic, --vce-window 4V..8V a range;
+without --vce a VCE percentage is of each build's VCE target. --boards is
+the boards to build, --sim-boards the boards simulated per build.
 
 Ranking weights (--weights NAME=VALUE,...; NAME one of q, emitter, beta,
 headroom, util, yield, parts): every term is at least 0 and lower is better; the score is
@@ -146,7 +146,8 @@ can take their parts out of stock later.
 	fl.StringVar(&o.Load, "load", "", "AC load on the collector, e.g. 10K (for the AC load line)")
 	fl.BoolVar(&o.Bypass, "bypass", false, "RE is bypassed by a capacitor for AC")
 	fl.StringVar(&o.ICWindow, "ic-window", defaultICWindow, "yield window for IC: ±percent of --ic, or MIN..MAX")
-	fl.StringVar(&o.VCEWindow, "vce-window", defaultVCEWindow, "yield window for VCE: ±percent of --vce, or MIN..MAX")
+	fl.StringVar(&o.VCEWindow, "vce-window", defaultVCEWindow, "yield window for VCE: ±percent of --vce (or of each build's VCE target), or MIN..MAX")
+	fl.IntVar(&o.SimBoards, "sim-boards", picker.DefaultYieldBoards, "simulated boards of each build's Monte Carlo yield (the same flag in check)")
 	fl.StringVar(&o.Weights, "weights", "", "ranking weights NAME=VALUE,... (default "+weightsHelp()+")")
 	fl.BoolVar(&o.Pairs, "pairs", false, "also use series and parallel pairs of two stocked resistors")
 	fl.StringArrayVar(&o.RequireTags, "require-tag", nil, "use only parts carrying this tag (repeatable; a tag matches in any letter case)")

@@ -114,7 +114,7 @@ func (o *Options) request() (picker.Request, error) {
 	}
 	req.Bypass = o.Bypass
 
-	if req.Window, err = o.window(req); err != nil {
+	if req.Window, err = o.window(); err != nil {
 		return req, err
 	}
 	if req.Weights, err = parseWeights(o.Weights); err != nil {
@@ -130,6 +130,10 @@ func (o *Options) request() (picker.Request, error) {
 	req.ShowAll = o.All
 	req.AllowUnrated = o.AllowUnrated
 	req.Seed = o.Seed
+	if err := solver.YieldBoardsRange.Check(float64(o.SimBoards)); err != nil {
+		return req, requestError(err)
+	}
+	req.YieldBoards = o.SimBoards
 	for _, t := range o.RequireTags {
 		t = strings.ToLower(strings.TrimSpace(t))
 		if t == "" {
@@ -245,6 +249,8 @@ func flagOf(field string) string {
 		return "--weights"
 	case field == "window":
 		return "--ic-window/--vce-window"
+	case field == "yield_boards":
+		return "--sim-boards"
 	case field == "stock":
 		return "the stock"
 	}
@@ -276,60 +282,24 @@ func parseAmbient(s string) (lo, hi float64, err error) {
 	return lo, hi, nil
 }
 
-// window builds the yield window. A percentage is a band around the target;
-// a range "A..B" is absolute. Without --vce the VCE target is chosen per
-// build, so a VCE percentage is left to the picker's documented default and
-// only an absolute range can replace it.
-func (o *Options) window(req picker.Request) (solver.Window, error) {
-	var w solver.Window
-	icDefault := strings.TrimSpace(o.ICWindow) == defaultICWindow
-	vceDefault := strings.TrimSpace(o.VCEWindow) == defaultVCEWindow
-	if icDefault && vceDefault {
-		return w, nil // the picker's own default window around each build's target
+// window reads the yield window's rule from --ic-window and --vce-window:
+// a percentage is a band around the design point (the target IC, and
+// --vce or each build's VCE target), a range "A..B" is absolute
+// (picker.WindowRule, the rule check follows too). The defaults leave the
+// rule zero, the picker's DefaultWindowRule.
+func (o *Options) window() (picker.WindowRule, error) {
+	var r picker.WindowRule
+	if strings.TrimSpace(o.ICWindow) == defaultICWindow && strings.TrimSpace(o.VCEWindow) == defaultVCEWindow {
+		return r, nil
 	}
 	var err error
-	if w.ICMin_A, w.ICMax_A, err = band("--ic-window", o.ICWindow, req.IC_A, "A", notation.ParseCurrent); err != nil {
-		return w, err
+	if r.IC, err = stageflags.WindowBand("ic-window", o.ICWindow, notation.ParseCurrent); err != nil {
+		return r, err
 	}
-	if req.VCE_V == 0 && isPercent(o.VCEWindow) {
-		if !vceDefault {
-			return w, cmdutil.Usagef("--vce-window %s: a percentage needs a target --vce; without it give a range such as 4V..8V", o.VCEWindow)
-		}
-		// Only the IC band was changed: any VCE inside the supply passes.
-		w.VCEMin_V, w.VCEMax_V = 0, math.Abs(req.VCC_V)*(1+req.VCCTol)
-		return w, nil
+	if r.VCE, err = stageflags.WindowBand("vce-window", o.VCEWindow, notation.ParseVoltage); err != nil {
+		return r, err
 	}
-	if w.VCEMin_V, w.VCEMax_V, err = band("--vce-window", o.VCEWindow, req.VCE_V, "V", notation.ParseVoltage); err != nil {
-		return w, err
-	}
-	return w, nil
-}
-
-// isPercent reports whether a window flag is written as a percentage.
-func isPercent(s string) bool { return strings.HasSuffix(strings.TrimSpace(s), "%") }
-
-// band reads "±P%" around target or an absolute "A..B".
-func band(flag, s string, target float64, unit string, parse func(string) (float64, error)) (lo, hi float64, err error) {
-	if strings.Contains(s, "..") {
-		if lo, hi, err = notation.ParseRange(s, parse); err != nil {
-			return 0, 0, cmdutil.Usagef("%s: %v", flag, err)
-		}
-		if lo == hi || lo < 0 {
-			return 0, 0, cmdutil.Usagef("%s %s: the band is empty or negative; give MIN..MAX magnitudes, e.g. 1.8m%s..2.2m%s", flag, s, unit, unit)
-		}
-		return lo, hi, nil
-	}
-	if !isPercent(s) {
-		return 0, 0, cmdutil.Usagef("%s %q: want a percentage like 10%% or a range like A..B", flag, s)
-	}
-	f, err := notation.ParseTolerance(s)
-	if err != nil {
-		return 0, 0, cmdutil.Usagef("%s: %v", flag, err)
-	}
-	if f <= 0 || f >= 1 {
-		return 0, 0, cmdutil.Usagef("%s %s: want a band between 0 and 100 %%, e.g. 10%%", flag, s)
-	}
-	return target * (1 - f), target * (1 + f), nil
+	return r, nil
 }
 
 // weightNames maps the names --weights accepts to the field they set.

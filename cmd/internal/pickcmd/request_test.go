@@ -84,7 +84,7 @@ func TestFlags(t *testing.T) {
 				t.Errorf("boards %d top %d pairs %v exhaustive %v show-failing %v bypass %v seed %d",
 					r.Boards, r.Top, r.Pairs, r.Exhaustive, r.ShowFailing, r.Bypass, r.Seed)
 			}
-			if r.Window != (solver.Window{}) || r.Weights != (picker.Weights{}) {
+			if r.Window != (picker.WindowRule{}) || r.Weights != (picker.Weights{}) || r.YieldBoards != picker.DefaultYieldBoards {
 				t.Errorf("window %+v weights %+v; want zero (the picker's defaults)", r.Window, r.Weights)
 			}
 		}},
@@ -114,20 +114,24 @@ func TestFlags(t *testing.T) {
 			}
 		}},
 		{"vce and windows around it", append(base, "--vce", "5V", "--ic-window", "5%", "--vce-window", "10%"), func(t *testing.T, r picker.Request) {
-			w := solver.Window{ICMin_A: 1.9e-3, ICMax_A: 2.1e-3, VCEMin_V: 4.5, VCEMax_V: 5.5}
-			if !near(r.Window.ICMin_A, w.ICMin_A) || !near(r.Window.ICMax_A, w.ICMax_A) ||
-				!near(r.Window.VCEMin_V, w.VCEMin_V) || !near(r.Window.VCEMax_V, w.VCEMax_V) || !near(r.VCE_V, 5) {
+			w := picker.WindowRule{IC: picker.Band{Relative: true, Frac: 0.05}, VCE: picker.Band{Relative: true, Frac: 0.1}}
+			if !near(r.Window.IC.Frac, 0.05) || !near(r.Window.VCE.Frac, 0.1) || !r.Window.IC.Relative || !r.Window.VCE.Relative || !near(r.VCE_V, 5) {
 				t.Errorf("window %+v, want %+v", r.Window, w)
 			}
 		}},
 		{"absolute windows", append(base, "--ic-window", "1.5mA..2.5mA", "--vce-window", "4V..8V"), func(t *testing.T, r picker.Request) {
-			if !near(r.Window.ICMin_A, 1.5e-3) || !near(r.Window.ICMax_A, 2.5e-3) || r.Window.VCEMin_V != 4 || r.Window.VCEMax_V != 8 {
+			if r.Window.IC.Relative || !near(r.Window.IC.Min, 1.5e-3) || !near(r.Window.IC.Max, 2.5e-3) || r.Window.VCE.Min != 4 || r.Window.VCE.Max != 8 {
 				t.Errorf("window %+v", r.Window)
 			}
 		}},
-		{"ic window alone without vce", append(base, "--ic-window", "20%"), func(t *testing.T, r picker.Request) {
-			if !near(r.Window.ICMin_A, 1.6e-3) || !near(r.Window.ICMax_A, 2.4e-3) || r.Window.VCEMin_V != 0 || !near(r.Window.VCEMax_V, 12.6) {
-				t.Errorf("window %+v; want IC 1.6..2.4 mA, VCE 0..12.6 V (any VCE on the supply)", r.Window)
+		{"ic window alone without vce: the VCE band stays ±20 % of each build's target", append(base, "--ic-window", "20%"), func(t *testing.T, r picker.Request) {
+			if !near(r.Window.IC.Frac, 0.2) || !r.Window.VCE.Relative || !near(r.Window.VCE.Frac, picker.DefaultVCEWindow) {
+				t.Errorf("window %+v; want IC ±20 %%, VCE ±20 %%", r.Window)
+			}
+		}},
+		{"simulated boards", append(base, "--sim-boards", "2500"), func(t *testing.T, r picker.Request) {
+			if r.YieldBoards != 2500 || r.Boards != 1 {
+				t.Errorf("yield boards %d, boards %d; want 2500 and 1", r.YieldBoards, r.Boards)
 			}
 		}},
 		{"everything else", append(base, "--vcc-tol", "±2 %", "--ambient", "-10..60", "--boards", "25", "--load", "10K",
@@ -201,7 +205,8 @@ func TestFlagErrors(t *testing.T) {
 		{"unknown weight", append(base, "--weights", "speed=1"), []string{"speed=1", "q, emitter, beta, headroom, util, yield, parts"}},
 		{"all weights zero", append(base, "--weights", "q=0,emitter=0,beta=0,headroom=0,util=0,yield=0,parts=0"), []string{"every weight is 0", "positive"}},
 		{"weight not a number", append(base, "--weights", "q=lots"), []string{"not a number"}},
-		{"vce window percent without vce", append(base, "--vce-window", "5%"), []string{"needs a target --vce", "4V..8V"}},
+		{"vce window of 100 %", append(base, "--vce-window", "100%"), []string{"--vce-window", "below 100 %"}},
+		{"sim boards 0", append(base, "--sim-boards", "0"), []string{"--sim-boards"}},
 		{"window not a band", append(base, "--ic-window", "wide"), []string{"--ic-window", "10%"}},
 		{"zero load", append(base, "--load", "0R"), []string{"--load", "positive"}},
 		{"huge supply tolerance", append(base, "--vcc-tol", "60%"), []string{"--vcc-tol"}},

@@ -151,8 +151,8 @@ func writeCandidate(w io.Writer, c job.Build, several bool, st Style) {
 	}
 	fmt.Fprintf(w, "    measure   %s\n", strings.Join(tps, "   "))
 	if c.Yield.Boards > 0 {
-		fmt.Fprintf(w, "    yield     %s ± %s of %d simulated boards inside the window\n",
-			percent(c.Yield.Yield), percent(c.Yield.StdErr), c.Yield.Boards)
+		fmt.Fprintf(w, "    yield     %s — %s\n", report.Yield(c.Yield), report.YieldBoards(c.Yield, c.Build.AmbientMin_C, c.Build.AmbientMax_C))
+		fmt.Fprintf(w, "    window    %s\n", report.Window(c.Window))
 	}
 	if name, pl := hottest(c); name != "" {
 		fmt.Fprintf(w, "    load      hottest %s at %s of its design limit at the worst corner (%s of %s); IC moves %s across the hFE spread\n",

@@ -12,7 +12,7 @@ func FromAnalysis(a *job.Analysis) Subject {
 		Nominal:  a.Nominal,
 		VCESat_V: a.VCESat_V,
 		Swing:    a.Swing,
-		Window:   a.Window,
+		Window:   a.Window.Window,
 		Yield:    a.Yield,
 	}
 	if a.Worst != nil {

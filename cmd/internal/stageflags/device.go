@@ -235,7 +235,7 @@ func FlagName(field string) string {
 	case "window":
 		return "--window"
 	case "yield_boards":
-		return "--boards"
+		return "--sim-boards"
 	}
 	if _, err := solver.ParseSlot(f[0]); err == nil {
 		if len(f) > 1 {
