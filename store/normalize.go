@@ -237,6 +237,9 @@ func (t Transistor) WithDefaults() Transistor {
 	t.Polarity = strings.ToLower(strings.TrimSpace(t.Polarity))
 	if t.VBEOn_V == 0 {
 		t.VBEOn_V = DefaultVBEOn_V
+		if t.VBEMin_V > 0 && t.VBEMax_V > 0 {
+			t.VBEOn_V = 0.5 * (t.VBEMin_V + t.VBEMax_V) // the middle of the stocked range
+		}
 	}
 	if t.VBEAt_A == 0 {
 		t.VBEAt_A = DefaultVBEAt_A
@@ -245,7 +248,8 @@ func (t Transistor) WithDefaults() Transistor {
 		t.TjMax_C = DefaultTjMax_C
 	}
 	for _, p := range []*float64{&t.HFEMin, &t.HFEMax, &t.HFETyp, &t.HFEAt_A, &t.VBEOn_V, &t.VBEAt_A,
-		&t.VCESat_V, &t.VCEO_V, &t.ICMax_A, &t.PD25_W, &t.ThetaJA_KPerW, &t.TjMax_C, &t.VAF_V, &t.ICBO_A} {
+		&t.VCESat_V, &t.VCEO_V, &t.ICMax_A, &t.PD25_W, &t.ThetaJA_KPerW, &t.TjMax_C, &t.VAF_V, &t.ICBO_A,
+		&t.VBEMin_V, &t.VBEMax_V, &t.VAFMin_V, &t.VAFMax_V} {
 		*p = canon(*p)
 	}
 	t.PartNumber = strings.TrimSpace(t.PartNumber)
@@ -297,10 +301,25 @@ func (t Transistor) Validate() []Problem {
 		{"theta_ja", "θJA", "K/W", t.ThetaJA_KPerW, 1e5},
 		{"vaf", "Early voltage", "V", t.VAF_V, 1e6},
 		{"icbo", "ICBO", "A", t.ICBO_A, 1},
+		{"vbe_min", "VBE(on) min", "V", t.VBEMin_V, 10},
+		{"vbe_max", "VBE(on) max", "V", t.VBEMax_V, 10},
+		{"vaf_min", "Early voltage min", "V", t.VAFMin_V, 1e6},
+		{"vaf_max", "Early voltage max", "V", t.VAFMax_V, 1e6},
 	}
 	for _, o := range optional {
 		if math.IsNaN(o.v) || o.v < 0 || o.v >= o.hi {
 			add(o.field, "%s %g %s is negative or out of range", o.what, o.v, o.unit)
+		}
+	}
+	for _, pr := range []struct {
+		lo, hi   string
+		loV, hiV float64
+	}{{"vbe_min", "vbe_max", t.VBEMin_V, t.VBEMax_V}, {"vaf_min", "vaf_max", t.VAFMin_V, t.VAFMax_V}} {
+		switch {
+		case (pr.loV > 0) != (pr.hiV > 0):
+			add(pr.hi, "%s and %s go together: give both or neither", pr.lo, pr.hi)
+		case pr.hiV < pr.loV:
+			add(pr.hi, "%s %g V is below %s %g V", pr.hi, pr.hiV, pr.lo, pr.loV)
 		}
 	}
 	if !finiteIn(t.VBEOn_V, 0, 10) {

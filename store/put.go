@@ -41,15 +41,17 @@ func newPutter(ctx context.Context, tx *sqlx.Tx) (*putter, error) {
 		{&p.insR, `INSERT INTO resistors (part_id, ohm, tol, rated_w, knee_c, max_c, tcr_ppm_per_k, tech, lev_v)
 			VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)`},
 		{&p.insT, `INSERT INTO transistors (part_id, label, polarity, hfe_min, hfe_max, hfe_typ, hfe_at_a,
-			vbe_on_v, vbe_at_a, vce_sat_v, vceo_v, ic_max_a, pd25_w, theta_ja_k_per_w, tj_max_c, vaf_v, icbo_a)
-			VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`},
+			vbe_on_v, vbe_at_a, vce_sat_v, vceo_v, ic_max_a, pd25_w, theta_ja_k_per_w, tj_max_c, vaf_v, icbo_a,
+			vbe_min_v, vbe_max_v, vaf_min_v, vaf_max_v)
+			VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`},
 		{&p.addQty, `UPDATE parts SET qty = qty + ?, note = CASE WHEN note = '' THEN ? ELSE note END,
 			part_number = CASE WHEN part_number = '' THEN ? ELSE part_number END WHERE id = ?`},
 		{&p.setQty, `UPDATE parts SET qty = ?, note = ?, part_number = ? WHERE id = ?`},
 		{&p.updR, `UPDATE resistors SET knee_c = ?, max_c = ?, tcr_ppm_per_k = ?, lev_v = ? WHERE part_id = ?`},
 		{&p.updT, `UPDATE transistors SET polarity = ?, hfe_min = ?, hfe_max = ?, hfe_typ = ?, hfe_at_a = ?,
 			vbe_on_v = ?, vbe_at_a = ?, vce_sat_v = ?, vceo_v = ?, ic_max_a = ?, pd25_w = ?,
-			theta_ja_k_per_w = ?, tj_max_c = ?, vaf_v = ?, icbo_a = ? WHERE part_id = ?`},
+			theta_ja_k_per_w = ?, tj_max_c = ?, vaf_v = ?, icbo_a = ?,
+			vbe_min_v = ?, vbe_max_v = ?, vaf_min_v = ?, vaf_max_v = ? WHERE part_id = ?`},
 		{&p.insTag, `INSERT OR IGNORE INTO part_tags (part_id, tag) VALUES (?, ?)`},
 		{&p.delTags, `DELETE FROM part_tags WHERE part_id = ?`},
 	}
@@ -234,7 +236,8 @@ func (p *putter) putTransistor(ctx context.Context, raw, t Transistor, replace b
 	}
 	res.id, res.merged = id, found
 	vals := []any{t.Polarity, t.HFEMin, t.HFEMax, t.HFETyp, t.HFEAt_A, t.VBEOn_V, t.VBEAt_A, t.VCESat_V,
-		t.VCEO_V, t.ICMax_A, t.PD25_W, t.ThetaJA_KPerW, t.TjMax_C, t.VAF_V, t.ICBO_A}
+		t.VCEO_V, t.ICMax_A, t.PD25_W, t.ThetaJA_KPerW, t.TjMax_C, t.VAF_V, t.ICBO_A,
+		t.VBEMin_V, t.VBEMax_V, t.VAFMin_V, t.VAFMax_V}
 	if !found {
 		if res.id, err = p.insert(ctx, l); err != nil {
 			return res, err

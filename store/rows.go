@@ -60,6 +60,10 @@ type transistorRow struct {
 	TjMax    float64 `db:"tj_max_c"`
 	VAF      float64 `db:"vaf_v"`
 	ICBO     float64 `db:"icbo_a"`
+	VBEMin   float64 `db:"vbe_min_v"`
+	VBEMax   float64 `db:"vbe_max_v"`
+	VAFMin   float64 `db:"vaf_min_v"`
+	VAFMax   float64 `db:"vaf_max_v"`
 	PN       string  `db:"part_number"`
 }
 
@@ -69,12 +73,12 @@ func (r transistorRow) part() Transistor {
 	return Transistor{ID: r.ID, Label: r.Label, Polarity: r.Polarity, HFEMin: r.HFEMin, HFEMax: r.HFEMax,
 		HFETyp: r.HFETyp, HFEAt_A: r.HFEAt, VBEOn_V: r.VBEOn, VBEAt_A: r.VBEAt, VCESat_V: r.VCESat,
 		VCEO_V: r.VCEO, ICMax_A: r.ICMax, PD25_W: r.PD25, ThetaJA_KPerW: r.ThetaJA, TjMax_C: r.TjMax,
-		VAF_V: r.VAF, ICBO_A: r.ICBO, PartNumber: r.PN, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: []string{}}
+		VAF_V: r.VAF, ICBO_A: r.ICBO, VBEMin_V: r.VBEMin, VBEMax_V: r.VBEMax, VAFMin_V: r.VAFMin, VAFMax_V: r.VAFMax, PartNumber: r.PN, Qty: r.Qty, Bin: r.Bin, Note: r.Note, Tags: []string{}}
 }
 
 const transistorSelect = `SELECT p.id, p.qty, p.bin, p.note, p.ident, p.part_number, t.label, t.polarity, t.hfe_min,
 	t.hfe_max, t.hfe_typ, t.hfe_at_a, t.vbe_on_v, t.vbe_at_a, t.vce_sat_v, t.vceo_v, t.ic_max_a,
-	t.pd25_w, t.theta_ja_k_per_w, t.tj_max_c, t.vaf_v, t.icbo_a
+	t.pd25_w, t.theta_ja_k_per_w, t.tj_max_c, t.vaf_v, t.icbo_a, t.vbe_min_v, t.vbe_max_v, t.vaf_min_v, t.vaf_max_v
 	FROM parts p JOIN transistors t ON t.part_id = p.id`
 
 // filterSQL returns the WHERE clause (starting with " WHERE") and its

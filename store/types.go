@@ -84,6 +84,11 @@ type Transistor struct {
 	TjMax_C       float64 // 0 when adding = DefaultTjMax_C
 	VAF_V         float64 // Early voltage; 0 = not given (infinite)
 	ICBO_A        float64 // collector-base leakage at 25 °C; 0 = not given
+	// VBEMin_V and VBEMax_V are the part-to-part VBE(on) range at VBEAt_A
+	// and 25 °C, VAFMin_V and VAFMax_V the Early-voltage range; each pair
+	// both 0 = not stocked (the solver's default spread applies).
+	VBEMin_V, VBEMax_V float64
+	VAFMin_V, VAFMax_V float64
 	// PartNumber is the maker's part number; "" = not given.
 	PartNumber string
 	Qty        int

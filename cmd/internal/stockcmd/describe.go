@@ -61,29 +61,35 @@ func toJSONResistor(r store.Resistor) jsonResistor {
 // jsonTransistor is a transistor line in --json output (SI keys; 0 means
 // not given).
 type jsonTransistor struct {
-	ID            int64    `json:"id"`
-	Kind          string   `json:"kind"`
-	Label         string   `json:"label"`
-	Polarity      string   `json:"polarity"`
-	HFEMin        float64  `json:"hfe_min"`
-	HFEMax        float64  `json:"hfe_max"`
-	HFETyp        float64  `json:"hfe_typ"`
-	HFEAt_A       float64  `json:"hfe_at_a"`
-	VBEOn_V       float64  `json:"vbe_on_v"`
-	VBEAt_A       float64  `json:"vbe_at_a"`
-	VCESat_V      float64  `json:"vce_sat_v"`
-	VCEO_V        float64  `json:"vceo_v"`
-	ICMax_A       float64  `json:"ic_max_a"`
-	PD25_W        float64  `json:"pd25_w"`
-	ThetaJA_KPerW float64  `json:"theta_ja_k_per_w"`
-	TjMax_C       float64  `json:"tj_max_c"`
-	VAF_V         float64  `json:"vaf_v"`
-	ICBO_A        float64  `json:"icbo_a"`
-	PartNumber    string   `json:"part_number"`
-	Qty           int      `json:"qty"`
-	Bin           string   `json:"bin"`
-	Note          string   `json:"note"`
-	Tags          []string `json:"tags"`
+	ID            int64   `json:"id"`
+	Kind          string  `json:"kind"`
+	Label         string  `json:"label"`
+	Polarity      string  `json:"polarity"`
+	HFEMin        float64 `json:"hfe_min"`
+	HFEMax        float64 `json:"hfe_max"`
+	HFETyp        float64 `json:"hfe_typ"`
+	HFEAt_A       float64 `json:"hfe_at_a"`
+	VBEOn_V       float64 `json:"vbe_on_v"`
+	VBEAt_A       float64 `json:"vbe_at_a"`
+	VCESat_V      float64 `json:"vce_sat_v"`
+	VCEO_V        float64 `json:"vceo_v"`
+	ICMax_A       float64 `json:"ic_max_a"`
+	PD25_W        float64 `json:"pd25_w"`
+	ThetaJA_KPerW float64 `json:"theta_ja_k_per_w"`
+	TjMax_C       float64 `json:"tj_max_c"`
+	VAF_V         float64 `json:"vaf_v"`
+	ICBO_A        float64 `json:"icbo_a"`
+	// VBEMin_V..VBEMax_V and VAFMin_V..VAFMax_V are the stocked
+	// part-to-part ranges; 0 = not stocked (the default spread applies).
+	VBEMin_V   float64  `json:"vbe_min_v"`
+	VBEMax_V   float64  `json:"vbe_max_v"`
+	VAFMin_V   float64  `json:"vaf_min_v"`
+	VAFMax_V   float64  `json:"vaf_max_v"`
+	PartNumber string   `json:"part_number"`
+	Qty        int      `json:"qty"`
+	Bin        string   `json:"bin"`
+	Note       string   `json:"note"`
+	Tags       []string `json:"tags"`
 }
 
 func toJSONTransistor(t store.Transistor) jsonTransistor {
@@ -91,6 +97,7 @@ func toJSONTransistor(t store.Transistor) jsonTransistor {
 		HFEMin: t.HFEMin, HFEMax: t.HFEMax, HFETyp: t.HFETyp, HFEAt_A: t.HFEAt_A, VBEOn_V: t.VBEOn_V,
 		VBEAt_A: t.VBEAt_A, VCESat_V: t.VCESat_V, VCEO_V: t.VCEO_V, ICMax_A: t.ICMax_A, PD25_W: t.PD25_W,
 		ThetaJA_KPerW: t.ThetaJA_KPerW, TjMax_C: t.TjMax_C, VAF_V: t.VAF_V, ICBO_A: t.ICBO_A,
+		VBEMin_V: t.VBEMin_V, VBEMax_V: t.VBEMax_V, VAFMin_V: t.VAFMin_V, VAFMax_V: t.VAFMax_V,
 		PartNumber: t.PartNumber, Qty: t.Qty, Bin: t.Bin, Note: t.Note, Tags: nonNil(t.Tags)}
 }
 

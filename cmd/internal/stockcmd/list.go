@@ -11,6 +11,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"biasbin/cmd/internal/cmdutil"
+	"biasbin/solver"
 	"biasbin/solver/notation"
 	"biasbin/store"
 )
@@ -187,7 +188,7 @@ func runList(ctx context.Context, o *ListOptions) error {
 	if len(ts) > 0 {
 		head := "ID\tTRANSISTOR\tPOL\tHFE\tVBE(ON)\tVCEO\tPD\tQTY\tBIN\tPART NO\tTAGS"
 		if o.Long {
-			head += "\tNOTE"
+			head += "\tVBE(ON) PART TO PART\tEARLY VOLTAGE\tNOTE"
 		}
 		fmt.Fprintln(w, head)
 		for _, t := range ts {
@@ -196,7 +197,7 @@ func runList(ctx context.Context, o *ListOptions) error {
 				unknownOr(t.VCEO_V, notation.FormatVoltage), unknownOr(t.PD25_W, notation.FormatPower),
 				t.Qty, orDash(t.Bin), orDash(t.PartNumber), orDash(strings.Join(t.Tags, ",")))
 			if o.Long {
-				fmt.Fprintf(w, "\t%s", orDash(oneLine(t.Note)))
+				fmt.Fprintf(w, "\t%s\t%s\t%s", vbeSpreadText(t), vafText(t), orDash(oneLine(t.Note)))
 			}
 			fmt.Fprintln(w)
 		}
@@ -234,3 +235,21 @@ var matchWord = map[store.ValueMatch]string{store.MatchIn: "yes", store.MatchBel
 
 // oneLine writes a note on one line of a table.
 func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
+
+// vbeSpreadText writes the stocked VBE(on) range, or the default spread
+// the solver assumes when none is stocked.
+func vbeSpreadText(t store.Transistor) string {
+	if t.VBEMin_V > 0 && t.VBEMax_V > 0 {
+		return notation.FormatBand(t.VBEMin_V, t.VBEMax_V, "V")
+	}
+	return "±" + notation.FormatVoltage(solver.DefaultVBESpread_V) + " (default)"
+}
+
+// vafText writes the stocked Early-voltage range, the single value, or "-"
+// (infinite).
+func vafText(t store.Transistor) string {
+	if t.VAFMin_V > 0 && t.VAFMax_V > 0 {
+		return notation.FormatBand(t.VAFMin_V, t.VAFMax_V, "V")
+	}
+	return unknownOr(t.VAF_V, notation.FormatVoltage)
+}

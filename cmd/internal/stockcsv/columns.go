@@ -9,7 +9,7 @@ var (
 	resistorOptional   = []string{"tcr", "tech", "knee_c", "max_c", "tags", "note", "lev", "part_number"}
 	transistorRequired = []string{"label", "polarity", "hfe_min", "hfe_max", "qty"}
 	transistorOptional = []string{"hfe_typ", "hfe_at", "vbe", "vbe_at", "vce_sat", "vceo", "ic_max", "pd",
-		"theta_ja", "tj_max", "vaf", "icbo", "bin", "tags", "note", "part_number"}
+		"theta_ja", "tj_max", "vaf", "icbo", "bin", "tags", "note", "part_number", "vbe_min", "vbe_max", "vaf_min", "vaf_max"}
 )
 
 // Columns returns the required and optional columns of kind k.

@@ -7,6 +7,7 @@ import (
 	"strconv"
 	"strings"
 
+	"biasbin/cmd/internal/stockparts"
 	"biasbin/solver"
 	"biasbin/solver/notation"
 	"biasbin/store"
@@ -214,6 +215,10 @@ func (p *parser) transistor() store.Transistor {
 	t.TjMax_C = p.value("tj_max", false, notation.ParseTemperature)
 	t.VAF_V = p.value("vaf", false, volt)
 	t.ICBO_A = p.value("icbo", false, notation.ParseCurrent)
+	t.VBEMin_V = p.value("vbe_min", false, volt)
+	t.VBEMax_V = p.value("vbe_max", false, volt)
+	t.VAFMin_V = p.value("vaf_min", false, volt)
+	t.VAFMax_V = p.value("vaf_max", false, volt)
 	t.Bin = p.row["bin"]
 	t.Tags = p.tags()
 	t.Note = p.row["note"]
@@ -221,7 +226,9 @@ func (p *parser) transistor() store.Transistor {
 	p.inRange([]rangeCheck{{"hfe_min", t.HFEMin, solver.HFERange}, {"hfe_max", t.HFEMax, solver.HFERange},
 		{"hfe_typ", t.HFETyp, solver.HFERange}, {"icbo", t.ICBO_A, solver.ICBORange},
 		{"vce_sat", t.VCESat_V, solver.VCESatRange}, {"tj_max", t.TjMax_C, solver.TjMaxRange},
-		{"vbe", t.VBEOn_V, solver.JunctionVoltageRange}})
+		{"vbe", t.VBEOn_V, solver.JunctionVoltageRange},
+		{"vbe_min", t.VBEMin_V, solver.JunctionVoltageRange}, {"vbe_max", t.VBEMax_V, solver.JunctionVoltageRange}})
+	p.datasheet(t)
 	return t
 }
 
@@ -251,4 +258,28 @@ func trimmed(fields map[string]string) map[string]string {
 		out[k] = strings.TrimSpace(v)
 	}
 	return out
+}
+
+// spreadColumns maps the solver's fields for a transistor's part-to-part
+// ranges to the CSV columns they come from.
+var spreadColumns = map[string]string{"vbe_min": "vbe_min", "vbe_max": "vbe_max", "vaf_min": "vaf_min",
+	"vaf_max": "vaf_max", "vbe_on": "vbe", "vaf": "vaf"}
+
+// datasheet checks a row that stocks a part-to-part range against the
+// solver's rules for it (both ends or neither, the nominal inside the
+// range, accepted ranges) through the one stock-to-solver conversion, so
+// a line the picker would refuse is refused at the row.
+func (p *parser) datasheet(t store.Transistor) {
+	if len(p.problems) > 0 || t.VBEMin_V == 0 && t.VBEMax_V == 0 && t.VAFMin_V == 0 && t.VAFMax_V == 0 ||
+		len(t.WithDefaults().Validate()) > 0 { // the store's own problems come first
+		return
+	}
+	_, err := stockparts.Sheet(t)
+	var le *stockparts.LineError
+	if !errors.As(err, &le) {
+		return
+	}
+	if col, ok := spreadColumns[le.Field]; ok {
+		p.fail(col, le.Problem)
+	}
 }

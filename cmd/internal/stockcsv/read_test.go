@@ -92,6 +92,9 @@ func TestReadTransistors(t *testing.T) {
 // names the file, the line and the column.
 func TestReadBadFiles(t *testing.T) {
 	tHeader := "label,polarity,hfe_min,hfe_max,qty\n"
+	// sHeader adds the part-to-part ranges; the checks are the solver's
+	// (solver.Datasheet.Validate, JunctionVoltageRange) through stockparts.
+	sHeader := "label,polarity,hfe_min,hfe_max,qty,vbe,vbe_min,vbe_max,vaf_min,vaf_max\n"
 	for _, tc := range []struct {
 		name string
 		in   string
@@ -121,6 +124,11 @@ func TestReadBadFiles(t *testing.T) {
 		{"truncated inside quotes", rHeader + "1K,5%,0.25W,1,A\n2K2,5%,0.25W,1,\"A", []string{"bad.csv:3: bad CSV"}},
 		{"non-UTF-8 bytes", rHeader + "1K,5%,0.25W,1,B\xe4ck\n", []string{"bad.csv:2: bin: not UTF-8 text"}},
 		{"non-UTF-8 header", "value,tol\xe9rance\n", []string{"bad.csv:1: header: not UTF-8"}},
+		{"vbe_min without vbe_max", sHeader + "Q1,npn,100,300,5,,0.6V,,,\n", []string{"bad.csv:2: vbe_max: vbe_min and vbe_max go together"}},
+		{"vbe_max below vbe_min", sHeader + "Q1,npn,100,300,5,,0.7V,0.6V,,\n", []string{"bad.csv:2: vbe_max: vbe_max 0.6 V is below vbe_min 0.7 V"}},
+		{"vbe outside its spread", sHeader + "Q1,npn,100,300,5,0.75V,0.6V,0.7V,,\n", []string{"bad.csv:2: vbe: 0.75 V is outside vbe_min..vbe_max"}},
+		{"vbe_min not a junction voltage", sHeader + "Q1,npn,100,300,5,,3V,4V,,\n", []string{"bad.csv:2: vbe_min: ", "bad.csv:2: vbe_max: "}},
+		{"vaf_min not an Early voltage", sHeader + "Q1,npn,100,300,5,,,,1V,100V\n", []string{"bad.csv:2: vaf_min: 1 V is not an Early voltage"}},
 		{"every bad row reported", rHeader + "4x7,5%,0.25W,1,A\n1K,5%,0.25W,1,A\n1K,5%,0.25W,-1,A\n", []string{"bad.csv:2: value: ", "bad.csv:4: qty: "}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {

@@ -60,6 +60,8 @@ func WriteTransistors(w io.Writer, ts []store.Transistor) error {
 			optional(t.TjMax_C, notation.ParseTemperature, ""),
 			optional(t.VAF_V, volt, "V"), optional(t.ICBO_A, amp, "A"),
 			EscapeFormula(t.Bin), EscapeFormula(strings.Join(t.Tags, ";")), EscapeFormula(t.Note), EscapeFormula(t.PartNumber),
+			optional(t.VBEMin_V, volt, "V"), optional(t.VBEMax_V, volt, "V"),
+			optional(t.VAFMin_V, volt, "V"), optional(t.VAFMax_V, volt, "V"),
 		}
 	})
 }

@@ -72,6 +72,16 @@ func randomTransistors(rng *rand.Rand, n int) []store.Transistor {
 			Note:          []string{"", "gain group B"}[rng.IntN(2)],
 		}
 		q.HFETyp = pick(0, q.HFEMin, math.Sqrt(q.HFEMin*q.HFEMax))
+		if rng.IntN(2) == 0 { // a stocked VBE(on) spread around the nominal
+			v, d := q.VBEOn_V, pick(0.02, 0.045)
+			if v == 0 {
+				v = store.DefaultVBEOn_V
+			}
+			q.VBEMin_V, q.VBEMax_V = v-d, v+d
+		}
+		if rng.IntN(2) == 0 && q.VAF_V > 0 { // a stocked Early-voltage range
+			q.VAFMin_V, q.VAFMax_V = 0.5*q.VAF_V, 1.5*q.VAF_V
+		}
 		out[i] = q.WithDefaults()
 	}
 	return out

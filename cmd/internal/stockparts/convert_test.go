@@ -3,6 +3,7 @@ package stockparts
 import (
 	"errors"
 	"fmt"
+	"math"
 	"strings"
 	"testing"
 
@@ -94,5 +95,37 @@ func TestBadStockLines(t *testing.T) {
 				t.Errorf("message %q does not name the line", err)
 			}
 		})
+	}
+}
+
+// TestSheetCarriesSpreads: a line's stocked VBE(on) and Early-voltage
+// ranges reach the solver's datasheet (the Monte Carlo draws within them,
+// solver.VBEOnRange); a line without them leaves the solver's default
+// spread, ±solver.DefaultVBESpread_V around VBE(on) (common practice).
+func TestSheetCarriesSpreads(t *testing.T) {
+	line := store.Transistor{ID: 4, Label: "QX-9", Polarity: "npn", HFEMin: 100, HFEMax: 300, VBEOn_V: 0.66, VAF_V: 80,
+		VBEMin_V: 0.62, VBEMax_V: 0.7, VAFMin_V: 60, VAFMax_V: 110} // invented line
+	d, err := Sheet(line)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if lo, hi, stated := solver.VBEOnRange(d); lo != 0.62 || hi != 0.7 || !stated {
+		t.Errorf("VBE(on) range %g..%g (stated %v), want the stocked 0.62..0.7", lo, hi, stated)
+	}
+	if lo, hi := solver.VAFRange(d); lo != 60 || hi != 110 {
+		t.Errorf("VAF range %g..%g, want the stocked 60..110", lo, hi)
+	}
+	line.VBEMin_V, line.VBEMax_V = 0, 0
+	if d, err = Sheet(line); err != nil {
+		t.Fatal(err)
+	}
+	if lo, hi, stated := solver.VBEOnRange(d); stated || math.Abs(lo-(0.66-solver.DefaultVBESpread_V)) > 1e-12 || math.Abs(hi-(0.66+solver.DefaultVBESpread_V)) > 1e-12 {
+		t.Errorf("unstocked VBE(on) range %g..%g (stated %v), want 0.66 V ± the default spread", lo, hi, stated)
+	}
+	line.VBEOn_V = 0.75
+	line.VBEMin_V, line.VBEMax_V = 0.62, 0.7
+	var le *LineError
+	if _, err := Sheet(line); !errors.As(err, &le) || le.Field != "vbe_on" {
+		t.Errorf("VBE(on) outside the stocked range: err %v, want a LineError on vbe_on", err)
 	}
 }

@@ -32,6 +32,12 @@ func Sheet(t store.Transistor) (solver.Datasheet, error) {
 		TjMax_C:       t.TjMax_C,
 		VAF_V:         t.VAF_V,
 		ICBO_A:        t.ICBO_A,
+		// The part-to-part ranges; 0 = not stocked, the solver's default
+		// spread (solver.DefaultVBESpread_V, common practice) applies.
+		VBEMin_V: t.VBEMin_V,
+		VBEMax_V: t.VBEMax_V,
+		VAFMin_V: t.VAFMin_V,
+		VAFMax_V: t.VAFMax_V,
 	}
 	if err := d.Validate(); err != nil {
 		return solver.Datasheet{}, lineError(store.KindTransistor, t.ID, t.Label, t.Bin, err)
