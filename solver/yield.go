@@ -176,17 +176,23 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 	}
 	j := newBoardJudge(&b, w)
 	res := YieldResult{Boards: n}
+	if opt.KeepBoards {
+		res.Samples = make([]BoardSample, 0, n)
+	}
 	var bd board
 	for range n {
 		smp.draw(&bd)
-		var sample BoardSample
+		// A board's sample is made only when kept: taking the address of
+		// one per board would move it to the heap for every board.
+		var sample *BoardSample
 		if opt.KeepBoards {
-			j.keep = &sample
+			sample = &BoardSample{}
+			j.keep = sample
 		}
 		pass, turned, err := j.judge(&bd)
-		if opt.KeepBoards {
+		if sample != nil {
 			sample.Pass, sample.Failed = pass && err == nil, err != nil
-			res.Samples = append(res.Samples, sample)
+			res.Samples = append(res.Samples, *sample)
 		}
 		switch {
 		case err != nil:
