@@ -204,7 +204,7 @@ func TestSpiceWithJSON(t *testing.T) {
 // resistor joins (common practice: RE and R2 from +V, RC and R1 to 0 V).
 func TestPNPPositiveJSON(t *testing.T) {
 	out, errOut, code := run(t, []string{"--polarity", "pnp", "--vcc", "5V", "--r1", "1K", "--r2", "470R", "--rc", "1K5", "--re", "1K",
-		"--hfe", "100..300", "--boards", "100", "--json"})
+		"--hfe", "100..300", "--sim-boards", "100", "--json"})
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
