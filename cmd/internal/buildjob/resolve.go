@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 
 	"biasbin/picker"
+	"biasbin/solver"
 	"biasbin/store"
 )
 
@@ -76,6 +77,11 @@ func resolve(p Plan, now picker.Stock) (picker.Candidate, bool, error) {
 		}
 	}
 	req := p.Request
+	if b := p.Build; b.Topology != solver.SplitSupply {
+		// The build keeps the rail it was picked on: a plan stored before
+		// the ground was kept has 0 V on its emitter-side rail.
+		req.Rail = solver.RailOf(b.Device.Polarity, b.Topology, b.Ground)
+	}
 	req.Boards, req.Top, req.Finalists, req.YieldBoards = 1, resolveLimit, resolveLimit, resolveYieldBoards
 	req.ShowFailing, req.Exhaustive, req.Progress = true, !req.Pairs, nil
 	res, err := picker.Pick(st, req)
