@@ -25,7 +25,7 @@ func TestDemoEndToEnd(t *testing.T) {
 	}
 	for _, want := range []string{
 		"Stocked 80 resistor lines and 6 transistor lines",
-		"=== Pick 1:", "=== Pick 2:", "=== Pick 3:", "=== Pick 4:", "=== Pick 5:", "=== Pick 6:",
+		"=== Pick 1:", "=== Pick 2:", "=== Pick 3:", "=== Pick 4:", "=== Pick 5:", "=== Pick 6:", "=== Pick 8:", "hot enough to burn a finger",
 		"--topology collector-feedback", "NPN collector-feedback stage", "    RF  ",
 		"--topology split-supply", "NPN split-supply stage on 12 V and VEE -12 V", "    RB  ",
 		"NPN stage of any topology", "why #1 (",

@@ -90,5 +90,14 @@ The kept parts are never pulled from stock.`,
 				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 1, Top: 1, Seed: 1,
 				Keep: []picker.KeptPart{{Position: "r1", Ohm: 46.8e3, Tol: 0.01}, {Position: "r2", Ohm: 10e3}}},
 		},
+		{
+			title: "A 24 V driver stage at 10 mA: parts that get hot",
+			story: `At 10 mA from 24 V the resistors and the transistor warm well above the
+room. Each build says in plain words which part can burn a finger and
+what to do about it.`,
+			args: []string{"--vcc", "24V", "--ic", "10mA", "--top", "1"},
+			req: picker.Request{Topology: solver.Divider, Polarity: solver.NPN, VCC_V: 24, VCCTol: 0.05, IC_A: 10e-3,
+				AmbientMin_C: 0, AmbientMax_C: 50, Boards: 1, Top: 1, Seed: 1},
+		},
 	}
 }
