@@ -2,6 +2,7 @@ package picker
 
 import (
 	"fmt"
+	"os"
 	"testing"
 	"time"
 
@@ -61,38 +62,51 @@ func BenchmarkE12SinglesDefault(b *testing.B) {
 }
 
 // BenchmarkE12DefaultVsExhaustive runs the default and the exhaustive
-// search once each on e12Full, fails unless both give the identical top
-// 10 (IDs and scores), and reports both times and their ratio (goal: the
+// search once each on E12 10 Ω–1 MΩ singles (61 values) for each topology
+// — the divider on e12Full (one transistor: 61⁴ ≈ 13.8 million nominal
+// solves), collector feedback and split supply with six transistor types
+// (6·61³ ≈ 1.4 million) — fails unless both give the identical top 10
+// (IDs and scores), and reports both times and their ratio (goal: the
 // default at least 50× faster).
 func BenchmarkE12DefaultVsExhaustive(b *testing.B) {
-	st := e12Full()
-	req := Request{VCC_V: 12, IC_A: 1e-3, Top: 10}
-	for b.Loop() {
-		t0 := time.Now()
-		fast, err := Pick(st, req)
-		if err != nil {
-			b.Fatal(err)
-		}
-		tFast := time.Since(t0)
-		req.Exhaustive = true
-		t0 = time.Now()
-		full, err := Pick(st, req)
-		if err != nil {
-			b.Fatal(err)
-		}
-		tFull := time.Since(t0)
-		req.Exhaustive = false
-		if len(fast.Candidates) != 10 || len(full.Candidates) != 10 {
-			b.Fatalf("top 10: default %d builds, exhaustive %d", len(fast.Candidates), len(full.Candidates))
-		}
-		for i := range full.Candidates {
-			if fast.Candidates[i].ID != full.Candidates[i].ID || fast.Candidates[i].Score != full.Candidates[i].Score {
-				b.Fatalf("rank %d: default %s %.6g, exhaustive %s %.6g", i+1, fast.Candidates[i].ID, fast.Candidates[i].Score, full.Candidates[i].ID, full.Candidates[i].Score)
+	six := Stock{Resistors: e12Full().Resistors, Transistors: benchTransistors(6)}
+	for _, c := range []struct {
+		topo solver.Topology
+		st   Stock
+	}{{solver.Divider, e12Full()}, {solver.CollectorFeedback, six}, {solver.SplitSupply, six}} {
+		b.Run(c.topo.String(), func(b *testing.B) {
+			req := Request{Topology: c.topo, VCC_V: 12, IC_A: 1e-3, Top: 10}
+			if c.topo == solver.SplitSupply {
+				req.VEE_V = -12
 			}
-		}
-		b.ReportMetric(float64(tFast.Milliseconds()), "default-ms")
-		b.ReportMetric(float64(tFull.Milliseconds()), "exhaustive-ms")
-		b.ReportMetric(tFull.Seconds()/tFast.Seconds(), "speedup")
+			for b.Loop() {
+				t0 := time.Now()
+				fast, err := Pick(c.st, req)
+				if err != nil {
+					b.Fatal(err)
+				}
+				tFast := time.Since(t0)
+				req.Exhaustive = true
+				t0 = time.Now()
+				full, err := Pick(c.st, req)
+				if err != nil {
+					b.Fatal(err)
+				}
+				tFull := time.Since(t0)
+				req.Exhaustive = false
+				if len(fast.Candidates) != 10 || len(full.Candidates) != 10 {
+					b.Fatalf("top 10: default %d builds, exhaustive %d", len(fast.Candidates), len(full.Candidates))
+				}
+				for i := range full.Candidates {
+					if fast.Candidates[i].ID != full.Candidates[i].ID || fast.Candidates[i].Score != full.Candidates[i].Score {
+						b.Fatalf("rank %d: default %s %.6g, exhaustive %s %.6g", i+1, fast.Candidates[i].ID, fast.Candidates[i].Score, full.Candidates[i].ID, full.Candidates[i].Score)
+					}
+				}
+				b.ReportMetric(float64(tFast.Milliseconds()), "default-ms")
+				b.ReportMetric(float64(tFull.Milliseconds()), "exhaustive-ms")
+				b.ReportMetric(tFull.Seconds()/tFast.Seconds(), "speedup")
+			}
+		})
 	}
 }
 
@@ -114,19 +128,71 @@ func BenchmarkBetaFloor(b *testing.B) {
 	}
 }
 
+// benchSlow names the BenchmarkTopologies cases that miss their goal by
+// far (over a minute on a shared machine when measured, issue 12): they
+// run only with BIASBIN_BENCH_SLOW=1, so that .ci/bench finishes in a
+// bounded time; each says why it is slow.
+var benchSlow = map[string]string{
+	"E96/collector-feedback/0.1mA":      rfCap,
+	"E96/any/0.1mA":                     rfCap,
+	"E96/split-supply/10mA":             noPass,
+	"E96/any/10mA":                      noPass,
+	"E12pairs/divider/10mA":             pairsNeeded,
+	"E12pairs/collector-feedback/0.1mA": rfCap,
+	"E12pairs/collector-feedback/1mA":   feedbackTies,
+	"E12pairs/collector-feedback/10mA":  feedbackTies,
+	"E12pairs/any/1mA":                  feedbackTies,
+	"E12pairs/any/0.1mA":                rfCap,
+	"E12pairs/any/10mA":                 pairsNeeded,
+	"E96pairs/divider/0.1mA":            pairsNeeded + ", and the tuple cache of one RE grows to about 900 MB",
+	"E96pairs/divider/10mA":             pairsNeeded,
+	"E96pairs/collector-feedback/0.1mA": rfCap,
+	"E96pairs/collector-feedback/1mA":   feedbackTies,
+	"E96pairs/collector-feedback/10mA":  feedbackTies,
+	"E96pairs/any/0.1mA":                rfCap,
+	"E96pairs/any/1mA":                  feedbackTies,
+	"E96pairs/any/10mA":                 pairsNeeded,
+}
+
+// Why the benchSlow cases are slow (measured, issue 12).
+const (
+	// rfCap: the largest RF cannot bring IC down to the target at a
+	// useful VCE, so the best builds are far off target (score about 1
+	// before the yield term); the threshold then admits IC within about
+	// ±70 % and the floors prune little.
+	rfCap = "the largest RF cannot reach the target: the best builds score about 1, the window is wide"
+	// noPass: no build passes (RE's dissipation at 10 mA is over the
+	// quarter-watt part's margined allowance at some corner), so the
+	// threshold stays +Inf and nothing can be pruned by score.
+	noPass = "no build passes: the threshold stays +Inf"
+	// pairsNeeded: the best builds need pairs (for rating or range), so
+	// the threshold leaves room for a pair's extra part in every position
+	// and bound P prunes no pair level; the other floors are too loose to
+	// separate the near-ties among thousands of pair levels.
+	pairsNeeded = "the best builds need pairs: bound P leaves every pair level in"
+	// feedbackTies: collector feedback's nominal point depends on RF and
+	// RC + RE only, so every split of RC + RE ties on the Q-point and
+	// beta terms; with pairs the plan visits the (RE, RC) pairs one by one.
+	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
+)
+
 // BenchmarkTopologies: stocks as users have them — six transistor types,
-// E96 10 Ω–1 MΩ singles and E12 10 Ω–1 MΩ with pairs — for every
-// topology and --topology any, at IC 0.1, 1 and 10 mA on 12 V (split
-// supply −12 V), top 10 (goals: E96 singles under 300 ms, E12 with pairs
-// under 1 s per topology; any within the sum of the three).
+// every E96 value 10 Ω–1 MΩ at 1 % (481 lines) with and without pairs,
+// and E12 10 Ω–1 MΩ with pairs — for every topology and --topology any,
+// at IC 0.1, 1 and 10 mA on 12 V (split supply −12 V), top 10, default
+// weights (goals: E96 singles under 300 ms, E12 with pairs under 1 s, E96
+// with pairs under 2 s per topology; any within the sum of the three).
+// The cases in benchSlow are skipped unless BIASBIN_BENCH_SLOW=1.
 func BenchmarkTopologies(b *testing.B) {
+	e96 := seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000)
 	stocks := []struct {
 		name  string
 		st    Stock
 		pairs bool
 	}{
-		{"E96", Stock{Resistors: seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}, false},
+		{"E96", Stock{Resistors: e96, Transistors: benchTransistors(6)}, false},
 		{"E12pairs", Stock{Resistors: seriesStock(eseries.E12, 10, 1e6, 0.05, 0.25, 100, 1000), Transistors: benchTransistors(6)}, true},
+		{"E96pairs", Stock{Resistors: e96, Transistors: benchTransistors(6)}, true},
 	}
 	for _, sk := range stocks {
 		for _, topo := range []solver.Topology{solver.Divider, solver.CollectorFeedback, solver.SplitSupply, AnyTopology} {
@@ -136,6 +202,9 @@ func BenchmarkTopologies(b *testing.B) {
 					name = fmt.Sprintf("%s/any/%gmA", sk.name, ic*1e3)
 				}
 				b.Run(name, func(b *testing.B) {
+					if why, slow := benchSlow[name]; slow && os.Getenv("BIASBIN_BENCH_SLOW") != "1" {
+						b.Skipf("misses its goal by far (%s); BIASBIN_BENCH_SLOW=1 runs it", why)
+					}
 					req := Request{Topology: topo, VCC_V: 12, IC_A: ic, Top: 10, Pairs: sk.pairs}
 					if topo == solver.SplitSupply || topo == AnyTopology {
 						req.VEE_V = -12

@@ -44,7 +44,8 @@ func (f *feedbackPlan) rfWindow(di, rc, re int, icLo, icHi float64, gLo, gHi int
 // seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2
 // and 0.05 of VCC, RE = VE/IC, RC for the target VCE, RF by a search for
 // the target current (then RC and RF once more), and the 3×3 RF, RC
-// levels around them. It changes only the order of the search.
+// levels around them; when even the largest RF leaves IC over the target,
+// also the 3×3 around it and the RC that brings IC to the target. It changes only the order of the search.
 func (f *feedbackPlan) seed(p *pool, cnt *counters) {
 	e := f.e
 	n := len(e.vs.levels)
@@ -64,12 +65,21 @@ func (f *feedbackPlan) seed(p *pool, cnt *counters) {
 				rf = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(e.s.icT) }), n)
 				rc = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceAtMost(vceHi) }), n)
 			}
-			for a := max(rf-1, 0); a <= min(rf+1, n-1); a++ {
-				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
-					e.scoreVariants(f.tuple(di, a, c, re, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
-						f.seeds.note(di, re, ev)
-						p.add(ev)
-					}, cnt)
+			starts := [][2]int{{rf, rc}}
+			if rf == n-1 {
+				// the largest RF cannot bring IC down to the target:
+				// RC then sets the current instead (at the cost of VCE)
+				rcIC := clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).icAtMost(e.s.icT) }), n)
+				starts = append(starts, [2]int{rf, rcIC})
+			}
+			for _, s := range starts {
+				for a := max(s[0]-1, 0); a <= min(s[0]+1, n-1); a++ {
+					for c := max(s[1]-1, 0); c <= min(s[1]+1, n-1); c++ {
+						e.scoreVariants(f.tuple(di, a, c, re, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
+							f.seeds.note(di, re, ev)
+							p.add(ev)
+						}, cnt)
+					}
 				}
 			}
 		}
