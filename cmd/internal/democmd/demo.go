@@ -45,11 +45,11 @@ func New(f *cmdutil.Factory) *cobra.Command {
 		Long: `Stock a throwaway database with an invented parts wall (carbon and metal
 film resistors in E6/E12/E24 values, 5 % and 1 %, 1/4 W and 1/2 W, a few NPN
 and PNP types; some drawers nearly empty) through the normal CSV import,
-then run seven picks: a plain build, one from a sparse approved list where
+then run eight picks: a plain build, one from a sparse approved list where
 pairs fill the gaps, a run larger than the stock can supply, a
 collector-feedback stage, a split-supply stage on ±12 V, --topology any
-choosing between them, and a repair that keeps the board's divider
-(--keep). Then it
+choosing between them, a repair that keeps the board's divider (--keep),
+and a 24 V driver whose hot parts each get a caution in plain words. Then it
 commits the first pick's best build (the parts leave the demo stock) and
 records two boards' bring-up readings, one of them out of its band with
 the likely cause named, and shows the build's ledger rows. Last, a repair
