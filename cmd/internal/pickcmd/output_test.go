@@ -62,11 +62,11 @@ func TestOutputGolden(t *testing.T) {
 			}}, 0, picker.Result{}), false},
 		{"short_run", outcome(fakeRequest(),
 			picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
-				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 8, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 8, Boards: 4}}}},
+				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 3, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 3, Boards: 4}}}},
 			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}), false},
 		{"short_run_json", outcome(fakeRequest(),
 			picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
-				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 8, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 8, Boards: 4}}}},
+				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 3, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 3, Boards: 4}}}},
 			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}), true},
 		{"hot", outcome(hot, picker.Result{Candidates: []picker.Candidate{hotCand}}, 0, picker.Result{}), false},
 	}

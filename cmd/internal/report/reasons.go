@@ -98,7 +98,10 @@ func Rejection(r picker.Rejection) string {
 	var why string
 	switch r.Kind {
 	case picker.RejectQty:
-		why = fmt.Sprintf("only %d in stock, %d boards need %d", r.Qty, r.Boards, r.Boards)
+		why = fmt.Sprintf("only %d in stock; %d boards need one each", r.Qty, r.Boards)
+		if r.Boards == 1 {
+			why = "none in stock; the board needs one"
+		}
 	case picker.RejectVCEO:
 		why = fmt.Sprintf("VCEO %g V is below the %.3g V supply / %.0f %% derating", r.VCEO_V, r.VCC_V, 100*picker.VoltageDerating)
 	case picker.RejectICMax:
