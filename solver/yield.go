@@ -64,6 +64,10 @@ type YieldResult struct {
 	// Samples holds every board's operating points, in drawing order, when
 	// YieldOptions.KeepBoards is set (nil otherwise).
 	Samples []BoardSample
+	// Stopped reports a run cut short by YieldOptions.FailLimit: more
+	// than FailLimit of the boards failed, and Yield and the interval are
+	// those of the boards run (Boards counts them), not a yield estimate.
+	Stopped bool
 }
 
 // BoardSample is one Monte Carlo board as solved: its Q-point at the
@@ -114,6 +118,13 @@ type YieldOptions struct {
 	// KeepBoards fills YieldResult.Samples with every board's Q-points
 	// (for pictures of the spread); it changes no figure.
 	KeepBoards bool
+	// FailLimit, when positive, stops the run as soon as more than
+	// FailLimit boards have failed: the caller only needs to know that the
+	// yield is below (Boards − FailLimit)/Boards. The result then has
+	// Stopped set and its counts cover the boards run. The boards run are
+	// drawn exactly as in a full run, so a run that does not stop gives the
+	// same result as one without the limit.
+	FailLimit int
 }
 
 // EvalYield runs a seeded Monte Carlo over n boards with the default
@@ -180,7 +191,7 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 		res.Samples = make([]BoardSample, 0, n)
 	}
 	var bd board
-	for range n {
+	for i := range n {
 		smp.draw(&bd)
 		// A board's sample is made only when kept: taking the address of
 		// one per board would move it to the heap for every board.
@@ -203,7 +214,12 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 		if turned {
 			res.Turned++
 		}
+		if opt.FailLimit > 0 && i+1-res.Pass > opt.FailLimit {
+			res.Boards, res.Stopped = i+1, true
+			break
+		}
 	}
+	n = res.Boards
 	res.Yield = float64(res.Pass) / float64(n)
 	res.StdErr = math.Sqrt(res.Yield * (1 - res.Yield) / float64(n))
 	res.Low95, res.High95 = ClopperPearson95(res.Pass, n)

@@ -254,3 +254,55 @@ func TestYieldKeepBoards(t *testing.T) {
 		t.Errorf("%d kept boards pass, result says %d (want strictly between 0 and 500)", pass, kept.Pass)
 	}
 }
+
+// TestYieldFailLimit checks the early stop against the full run of the
+// same seed, board by board (YieldOptions.KeepBoards): source: the
+// definition of a sequential test that stops at the first board where the
+// failures exceed the limit — the boards before it are the same draws, a
+// run whose failures never exceed the limit is the full run.
+func TestYieldFailLimit(t *testing.T) {
+	b := oneInputBuild(-1, true)
+	gm := math.Sqrt(100 * 300)
+	w := Window{ICMin_A: icAt(t, b, 0, gm)} // about 37 % pass (hFE uniform)
+	const n = 400
+	full, err := EvalYieldSeeded(b, w, n, 11, YieldOptions{KeepBoards: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if full.Pass < 50 || full.Pass > n-50 {
+		t.Fatalf("fixture too weak: %d of %d boards pass", full.Pass, n)
+	}
+	for _, limit := range []int{1, 40, n - full.Pass - 1, n - full.Pass, n} {
+		y, err := EvalYieldSeeded(b, w, n, 11, YieldOptions{FailLimit: limit})
+		if err != nil {
+			t.Fatal(err)
+		}
+		// the board at which the failures first exceed the limit
+		stopAt, fails := 0, 0
+		for i, s := range full.Samples {
+			if !s.Pass {
+				fails++
+			}
+			if fails > limit {
+				stopAt = i + 1
+				break
+			}
+		}
+		if stopAt == 0 {
+			if y.Stopped || y.Boards != n || y.Pass != full.Pass || y.Yield != full.Yield || y.Low95 != full.Low95 {
+				t.Errorf("limit %d never reached: got %+v, want the full run %d/%d", limit, y, full.Pass, n)
+			}
+			continue
+		}
+		pass := 0
+		for _, s := range full.Samples[:stopAt] {
+			if s.Pass {
+				pass++
+			}
+		}
+		if !y.Stopped || y.Boards != stopAt || y.Pass != pass || y.Boards-y.Pass != limit+1 {
+			t.Errorf("limit %d: got stopped %v after %d boards, %d passed; want a stop after %d boards, %d passed",
+				limit, y.Stopped, y.Boards, y.Pass, stopAt, pass)
+		}
+	}
+}
