@@ -29,6 +29,19 @@ type evaluated struct {
 	beta    float64 // beta sensitivity, signed as IC(hFE max) − IC(hFE min) over IC
 	util    float64
 	grp     foldGroup // set by a folding pool
+	// noYield: the worst-case band misses the yield window, so the yield
+	// is 0 for certain and the final score is score + the yield weight.
+	noYield bool
+}
+
+// finalFloor is the least final score the build can have: its score
+// without the yield term, plus the whole yield term when its yield is 0
+// for certain.
+func (ev *evaluated) finalFloor() float64 {
+	if ev.noYield {
+		return ev.score + ev.e.s.w.Yield
+	}
+	return ev.score
 }
 
 // less is the ranking order: passing before failing, then lower score,

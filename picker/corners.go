@@ -66,6 +66,7 @@ func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *eva
 		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: 2, Utilization: util, Parts: e.extraParts(c)}
 	} else {
 		ev.worst = wc
+		ev.noYield = e.missesWindow(d, t, wc)
 		ev.terms = Terms{QPoint: t.q, Emitter: t.em, Beta: math.Abs(t.beta), Headroom: e.headroom(d, wc), Utilization: util, Parts: e.extraParts(c)}
 		ev.failing = e.hardLimits(d, wc)
 	}
@@ -75,6 +76,17 @@ func (e *evaluator) finish(c combo, b solver.Build, t *tuple, util float64) *eva
 	w := e.s.w
 	ev.score = w.QPoint*ev.terms.QPoint + w.Emitter*ev.terms.Emitter + w.Beta*ev.terms.Beta + w.Headroom*ev.terms.Headroom + w.Utilization*ev.terms.Utilization + w.Parts*ev.terms.Parts
 	return ev
+}
+
+// missesWindow reports whether the worst-case band of a build lies wholly
+// outside its yield window in IC or in VCE: every Monte Carlo board draws
+// its inputs inside the corners' bounds and so lies inside the band
+// (solver.EvalYield), so no board can pass: the yield is 0 for certain.
+func (e *evaluator) missesWindow(d *device, t *tuple, wc solver.WorstCase) bool {
+	w := e.window(e.vceTarget(d, t.r)).Window
+	const slack = 1e-9 // relative, against rounding at the band's edges
+	return wc.ICMax_A < w.ICMin_A*(1-slack) || w.ICMax_A > 0 && wc.ICMin_A > w.ICMax_A*(1+slack) ||
+		wc.VCEMax_V < w.VCEMin_V*(1-slack) || w.VCEMax_V > 0 && wc.VCEMin_V > w.VCEMax_V*(1+slack)
 }
 
 // headroom is the worst-case headroom term (see doc.go): a saturation

@@ -76,7 +76,7 @@ func (d *dividerPlan) seed(p *pool, cnt *counters) {
 				})
 				for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
 					for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
-						e.scoreVariants(d.tuple(di, [maxPos]int{a, r2, c, re}, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
+						e.scoreVariants(d.tuple(di, [maxPos]int{a, r2, c, re}, cnt), p, func(ev *evaluated) {
 							if len(ev.failing) == 0 && ev.score < d.seedBest[di] {
 								d.seedBest[di], d.seedRE[di] = ev.score, re
 							}

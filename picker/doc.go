@@ -90,11 +90,20 @@
 // search keeps the best Finalists builds by the score without the yield
 // term (the pool) and runs their yield lazily, in that order, until the
 // Top-th best final score is no worse than the next build's score without
-// the term; as the term is never negative, no later build of the pool can
-// overtake it. The pool does not depend on Top up to 5, so the first Top
-// builds are the pool's true first Top whatever Top is (a build outside
-// the pool is not yielded: its score without the yield term is worse than
-// every pooled build's). Candidate.ID is a hash of the topology, the transistor
+// the term; as the term is never negative, no later build can overtake
+// it. Once Top builds are ranked, a build's Monte Carlo stops as soon as
+// its failed boards show it cannot come before the Top-th
+// (solver.YieldOptions.FailLimit), and a build whose worst-case band
+// misses the window has yield 0 for certain. When the pool runs out first
+// (the yield term reorders builds beyond it), a further round searches
+// again with a pool roundGrowth times larger, admitting only builds not
+// ranked yet whose final score can be at most the Top-th's (with several
+// topologies, the Top-th of all), and so on. Without Request.Settle at
+// most settleRounds further rounds run; Result.Ranking says whether the
+// order is proven: no build left out can rank above a listed one, so the
+// first Top builds are the true first Top whatever Top is. Low yields
+// that differ much between builds can leave it unproven, and the text and
+// JSON say so. Candidate.ID is a hash of the topology, the transistor
 // line and each position's arrangement and line IDs, so the same stock
 // lines give the same ID.
 //

@@ -75,7 +75,7 @@ func (f *feedbackPlan) seed(p *pool, cnt *counters) {
 			for _, s := range starts {
 				for a := max(s[0]-1, 0); a <= min(s[0]+1, n-1); a++ {
 					for c := max(s[1]-1, 0); c <= min(s[1]+1, n-1); c++ {
-						e.scoreVariants(f.tuple(di, a, c, re, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
+						e.scoreVariants(f.tuple(di, a, c, re, cnt), p, func(ev *evaluated) {
 							f.seeds.note(di, re, ev)
 							p.add(ev)
 						}, cnt)
@@ -196,7 +196,7 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 						rf = e.vs.nextSingle[rf] - 1 // bound P: no room for a pair in RF
 						continue
 					}
-					e.scoreVariants(f.tuple(di, rf, rc, re, cnt), p.threshold, p.lastScore, p.add, cnt)
+					e.scoreVariants(f.tuple(di, rf, rc, re, cnt), p, p.add, cnt)
 				}
 			}
 		})

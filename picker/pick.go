@@ -27,41 +27,70 @@ func Pick(stock Stock, req Request) (Result, error) {
 		return Result{}, err
 	}
 	var res Result
-	var all []fin
 	var rejected []Rejection
-	var evs []*evaluator
-	best := map[solver.Topology]fin{}
+	var runs []*topoRun
 	for _, topo := range s.topos {
 		e, rej := newEvaluator(s, stock, topo)
-		evs = append(evs, e)
 		for _, r := range rej {
 			if !slices.ContainsFunc(rejected, func(x Rejection) bool { return x.Line.ID == r.Line.ID }) {
 				rejected = append(rejected, r)
 			}
 		}
-		var cnt counters
+		r := &topoRun{e: e, fl: finalists{e: e, k: s.top}, size: s.pool, rounds: 1}
 		p := newPool(s.pool, !s.req.ShowAll)
 		if len(e.devs) > 0 && len(e.vs.levels) > 0 {
 			if s.req.Exhaustive {
-				e.exhaustive(p, &cnt)
+				e.exhaustive(p, &r.cnt)
 			} else {
-				pl := planFor(e)
-				pl.seed(p, &cnt)
-				e.polish(p, &cnt)
-				pl.search(p, &cnt)
+				r.pl = planFor(e)
+				r.pl.seed(p, &r.cnt)
+				e.polish(p, &r.cnt)
+				r.pl.search(p, &r.cnt)
 			}
 		}
-		fs, err := e.finalists(p.items, s.top)
-		if err != nil {
+		if err := r.rank(p); err != nil {
 			return Result{}, err
 		}
-		res.Evaluated += cnt.evaluated
-		res.Solved += cnt.solves
-		res.Considered += e.combinations()
-		if len(fs) > 0 {
-			best[topo] = fs[0]
+		runs = append(runs, r)
+	}
+	// Further rounds, each topology's against the k-th of all.
+	res.Ranking.Proven = true
+	for _, r := range runs {
+		for !r.settled(runs) {
+			if r.rounds > settleRounds && !s.req.Settle {
+				res.Ranking.Proven = false
+				break
+			}
+			// Builds outside the pools may still overtake the k-th: a
+			// further round finds the next best builds (a pool
+			// roundGrowth times larger) among those whose final score
+			// can be at most the k-th's.
+			kth, _ := kthOf(runs, s.top)
+			r.size *= roundGrowth
+			p := newRoundPool(r.size, !s.req.ShowAll, kth.c.Score, len(kth.ev.failing) > 0, r.known)
+			if r.pl == nil {
+				r.e.exhaustive(p, &r.cnt)
+			} else {
+				r.pl.search(p, &r.cnt)
+			}
+			r.rounds++
+			if err := r.rank(p); err != nil {
+				return Result{}, err
+			}
 		}
-		all = append(all, fs...)
+	}
+	var all []fin
+	best := map[solver.Topology]fin{}
+	for _, r := range runs {
+		res.Evaluated += r.cnt.evaluated
+		res.Solved += r.cnt.solves
+		res.Considered += r.e.combinations()
+		res.Ranking.Ranked += r.fl.ranked
+		res.Ranking.Rounds = max(res.Ranking.Rounds, r.rounds)
+		if len(r.fl.fs) > 0 {
+			best[r.e.lay.topo] = r.fl.fs[0]
+		}
+		all = append(all, r.fl.fs...)
 	}
 	slices.SortStableFunc(all, finOrder)
 	passing := 0
@@ -85,7 +114,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 		res.Rivals = rivals(s, res.Candidates[0], best)
 	}
 	// the shortfall speaks for the topology of the nearest build
-	e := evs[0]
+	e := runs[0].e
 	if len(all) > 0 {
 		e = all[0].ev.e
 	}
@@ -98,6 +127,66 @@ func Pick(stock Stock, req Request) (Result, error) {
 		}
 	}
 	return res, nil
+}
+
+// topoRun is the search of one topology in Pick, round by round.
+type topoRun struct {
+	e      *evaluator
+	pl     plan // nil for the exhaustive search
+	cnt    counters
+	fl     finalists
+	known  []*evaluated // every build of the rounds so far
+	last   *evaluated   // the last build of the last round's pool
+	full   bool         // the last round's pool was full
+	done   bool         // fl.rank settled the topology's own first k
+	size   int          // the last round's pool size
+	rounds int
+}
+
+// rank ranks the builds of a round's pool.
+func (r *topoRun) rank(p *pool) error {
+	r.known = append(r.known, p.items...)
+	r.full = len(p.items) == r.size
+	if len(p.items) > 0 {
+		r.last = p.items[len(p.items)-1]
+	}
+	done, err := r.fl.rank(p.items)
+	r.done = r.done || done
+	return err
+}
+
+// settled reports whether no build of the topology left out of its
+// rounds can rank above the k-th of all topologies (runs).
+func (r *topoRun) settled(runs []*topoRun) bool {
+	s := r.e.s
+	if r.done || !r.full || s.w.Yield <= 0 {
+		return true // its first k are settled, or its pools held every build
+	}
+	kth, ok := kthOf(runs, s.top)
+	if !ok {
+		return true // cannot be: a full pool ranks at least k builds
+	}
+	if len(kth.ev.failing) > 0 && !s.req.ShowFailing && slices.ContainsFunc(runs, func(x *topoRun) bool {
+		return len(x.fl.fs) > 0 && len(x.fl.fs[0].ev.failing) == 0
+	}) {
+		return true // failing builds are not listed beside passing ones
+	}
+	// every build left out comes after the last round's last
+	return finBefore(kth, r.last)
+}
+
+// kthOf is the k-th build of all topologies' ranked builds, in the final
+// order; ok is false when fewer are ranked.
+func kthOf(runs []*topoRun, k int) (fin, bool) {
+	var all []fin
+	for _, r := range runs {
+		all = append(all, r.fl.fs...)
+	}
+	if len(all) < k {
+		return fin{}, false
+	}
+	slices.SortFunc(all, finOrder)
+	return all[k-1], true
 }
 
 // newEvaluator prepares the value sets and devices of a request for one
@@ -179,42 +268,102 @@ func finOrder(a, b fin) int {
 	return strings.Compare(a.ev.key, b.ev.key)
 }
 
-// finalists returns the pooled builds in final order (finOrder), running
-// the Monte Carlo yield lazily: in the pool's order (the same order by the
-// score without the yield term) until the k-th best final order is no
-// later than the next build's order without the yield term. The yield
-// term is never negative, so no later build of the pool can move ahead of
-// the k-th: the first k are the pool's true first k whatever k is. The
-// list holds every build whose yield was run (at least the first k, when
-// the pool has k).
-func (e *evaluator) finalists(items []*evaluated, k int) (fs []fin, err error) {
-	// before reports whether a (final) comes before the order of ev
-	// without its yield term, or is the same build.
-	before := func(a fin, ev *evaluated) bool {
-		af, bf := len(a.ev.failing) > 0, len(ev.failing) > 0
-		if af != bf {
-			return !af
-		}
-		if a.c.Score != ev.score {
-			return a.c.Score < ev.score
-		}
-		return a.ev.key <= ev.key
-	}
+// Rounds of the search (Pick): each further round's pool is roundGrowth
+// times the last's; without Request.Settle at most settleRounds further
+// rounds run.
+const (
+	roundGrowth  = 4
+	settleRounds = 1
+)
+
+// finalists ranks builds by their final score (finOrder), running the
+// Monte Carlo yield lazily. rank takes builds in the order of the score
+// without the yield term (the pool's), each batch after the last, and
+// stops once the k-th best final order is no later than the next build's
+// order without the yield term: the term is never negative, so no later
+// build can move ahead of the k-th. Once k builds are ranked, a build's
+// yield run stops as soon as its failures show that it cannot come before
+// the k-th (solver.YieldOptions.FailLimit), and the build is dropped.
+// fs holds every build ranked: at least the true first k of all builds
+// offered, when k were offered.
+type finalists struct {
+	e      *evaluator
+	k      int
+	fs     []fin
+	ranked int // builds whose yield was run or bounded
+}
+
+// rank ranks a batch of builds, in order, after those already ranked
+// (every build not offered yet comes after the batch's last); it reports
+// whether the first k are settled: no build after the batch can move
+// ahead of the k-th.
+func (f *finalists) rank(items []*evaluated) (done bool, err error) {
+	e, k := f.e, f.k
 	for i, ev := range items {
-		c, err := ev.e.candidate(ev)
+		f.ranked++
+		limit := 0
+		if len(f.fs) >= k {
+			var skip bool
+			if limit, skip = e.failLimit(f.fs[k-1], ev); skip {
+				continue
+			}
+		}
+		c, stopped, err := e.candidate(ev, limit)
 		if err != nil {
-			return nil, err
+			return false, err
+		}
+		if stopped {
+			continue
 		}
 		c.Terms.Yield = 1 - c.Yield.Yield
 		c.Score = ev.score + e.s.w.Yield*c.Terms.Yield
-		f := fin{ev: ev, c: c}
-		at, _ := slices.BinarySearchFunc(fs, f, finOrder)
-		fs = slices.Insert(fs, at, f)
-		if len(fs) >= k && i+1 < len(items) && before(fs[k-1], items[i+1]) {
-			break
+		fn := fin{ev: ev, c: c}
+		at, _ := slices.BinarySearchFunc(f.fs, fn, finOrder)
+		f.fs = slices.Insert(f.fs, at, fn)
+		if len(f.fs) >= k && i+1 < len(items) && finBefore(f.fs[k-1], items[i+1]) {
+			return true, nil
 		}
 	}
-	return fs, nil
+	// every build not offered yet comes after the batch's last
+	return len(items) > 0 && len(f.fs) >= k && finBefore(f.fs[k-1], items[len(items)-1]), nil
+}
+
+// finBefore reports whether a (final) comes before the order of ev
+// without its yield term, or is the same build.
+func finBefore(a fin, ev *evaluated) bool {
+	af, bf := len(a.ev.failing) > 0, len(ev.failing) > 0
+	if af != bf {
+		return !af
+	}
+	if a.c.Score != ev.score {
+		return a.c.Score < ev.score
+	}
+	return a.ev.key <= ev.key
+}
+
+// failLimit is the yield run's failure limit for build ev against the
+// k-th ranked build kth: ev can come before kth only if its final score
+// ev.score + w·failures/N is at most kth's, so more than
+// (kth − ev.score)·N/w failures settle that it cannot (one more board is
+// allowed against rounding). skip: ev cannot come before kth whatever its
+// yield; 0: no limit.
+func (e *evaluator) failLimit(kth fin, ev *evaluated) (limit int, skip bool) {
+	kf, ef := len(kth.ev.failing) > 0, len(ev.failing) > 0
+	switch {
+	case kf != ef:
+		return 0, ef // a passing build comes before a failing one
+	case e.s.w.Yield <= 0:
+		return 0, false
+	}
+	room := kth.c.Score - ev.score
+	if room < 0 || ev.noYield && ev.finalFloor() > kth.c.Score {
+		return 0, true
+	}
+	n := float64(e.s.yieldBoards)
+	if m := math.Floor(room*n/e.s.w.Yield) + 1; m < n {
+		return int(m), false
+	}
+	return 0, false
 }
 
 // fits reports whether a build is good: it passes every hard limit and
@@ -232,11 +381,23 @@ func (e *evaluator) window(vceT float64) YieldWindow {
 }
 
 // candidate completes one pooled build: the full worst case with its
-// corners, the yield and the shown fields.
-func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
+// corners, the yield and the shown fields. With failLimit > 0 the yield
+// run stops once more than failLimit boards fail, and then candidate
+// reports stopped and no candidate.
+func (e *evaluator) candidate(ev *evaluated, failLimit int) (c Candidate, stopped bool, err error) {
 	b := e.build(ev.c)
 	d := &e.devs[ev.c.dev]
-	c := Candidate{
+	vceT := e.vceTarget(d, e.ohms(ev.c.lv))
+	win := e.window(vceT)
+	seed := e.s.req.Seed ^ keySeed(ev.key)
+	y, err := solver.EvalYieldSeeded(b, win.Window, e.s.yieldBoards, seed, solver.YieldOptions{FailLimit: failLimit})
+	if err != nil {
+		return c, false, fmt.Errorf("yield of build %s: %w", e.id(ev.c), err)
+	}
+	if y.Stopped {
+		return c, true, nil
+	}
+	c = Candidate{
 		ID:              e.id(ev.c),
 		Topology:        e.lay.topo,
 		Score:           ev.score,
@@ -249,10 +410,12 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 		BetaSensitivity: math.Abs(ev.beta),
 		MaxUtilization:  ev.util,
 		Failing:         ev.failing,
-		VCETarget_V:     e.vceTarget(d, e.ohms(ev.c.lv)),
+		VCETarget_V:     vceT,
 		UnknownRatings:  solver.UnknownRatings(d.line.Sheet, e.s.icT),
+		Window:          win,
+		Yield:           y,
 	}
-	c.OnTarget = e.window(c.VCETarget_V).Contains(&c.Nominal)
+	c.OnTarget = win.Contains(&c.Nominal)
 	if !e.s.req.ShowAll {
 		c.Folded = e.folded(ev.c)
 	}
@@ -268,14 +431,7 @@ func (e *evaluator) candidate(ev *evaluated) (Candidate, error) {
 	} else {
 		c.Worst = ev.worst
 	}
-	seed := e.s.req.Seed ^ keySeed(ev.key)
-	c.Window = e.window(c.VCETarget_V)
-	y, err := solver.EvalYieldSeeded(b, c.Window.Window, e.s.yieldBoards, seed, solver.YieldOptions{})
-	if err != nil {
-		return c, fmt.Errorf("yield of build %s: %w", c.ID, err)
-	}
-	c.Yield = y
-	return c, nil
+	return c, false, nil
 }
 
 // keySeed derives a per-build seed from its key, so a build's yield does

@@ -170,7 +170,7 @@ func scoreOf(t *testing.T, st Stock, req Request, tr int64, ohms [maxPos]float64
 	util := solver.EvalDissipation(b, tp.op, s.ambMax, s.lim).MaxUtilization
 	e.betaSpread(tp, &counters{})
 	ev := e.finish(c, b, tp, util)
-	cand, err := e.candidate(ev)
+	cand, _, err := e.candidate(ev, 0)
 	if err != nil {
 		t.Fatal(err)
 	}

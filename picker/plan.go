@@ -62,7 +62,7 @@ func (e *evaluator) exhaustive(p *pool, cnt *counters) {
 			for {
 				t := e.newTuple(di, lv)
 				cnt.solves++
-				e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
+				e.scoreVariants(t, p, p.add, cnt)
 				i := np - 1
 				for ; i >= 1; i-- {
 					if lv[i]++; lv[i] <= hi[i] {
@@ -176,7 +176,7 @@ func (e *evaluator) polish(p *pool, cnt *counters) {
 						continue
 					}
 					t := tc.get(e, c.dev, lv, cnt)
-					e.scoreVariants(t, p.threshold, p.lastScore, func(ev *evaluated) {
+					e.scoreVariants(t, p, func(ev *evaluated) {
 						p.add(ev)
 						if len(ev.failing) == 0 && ev.score < nextScore {
 							next, nextScore = lv, ev.score

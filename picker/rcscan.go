@@ -135,7 +135,7 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 				break
 			}
 		}
-		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
+		e.scoreVariants(t, p, p.add, cnt)
 	}
 	for rc := split; rc <= rcHi; rc++ {
 		rcOhm := e.vs.levels[rc].ohm
@@ -150,6 +150,6 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
 			break
 		}
-		e.scoreVariants(t, p.threshold, p.lastScore, p.add, cnt)
+		e.scoreVariants(t, p, p.add, cnt)
 	}
 }

@@ -14,10 +14,10 @@ type counters struct {
 
 // scoreVariants scores every value combination of the tuple whose
 // quantities fit, computing the cheap terms first and stopping as soon as
-// a build's partial score exceeds the threshold thr() (the score of the
-// pool's last passing member; +Inf while the pool is not full of passing
-// builds). Each build that is fully scored goes to keep.
-func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep func(*evaluated), cnt *counters) {
+// a build's partial score exceeds the pool's threshold (the score of its
+// last passing member; +Inf while it is not full of passing builds). Each
+// build that is fully scored goes to keep.
+func (e *evaluator) scoreVariants(t *tuple, p *pool, keep func(*evaluated), cnt *counters) {
 	if !t.ok {
 		return
 	}
@@ -26,7 +26,7 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 	// bound P: when one pair's extra part is over the threshold with the
 	// terms already known, only the singles of each level are scored
 	// (they come first in a level's stock)
-	singles := e.singlesOnly(e.s.w.QPoint*t.q+e.s.w.Emitter*t.em, thr())
+	singles := e.singlesOnly(e.s.w.QPoint*t.q+e.s.w.Emitter*t.em, p.threshold())
 	for i := range n {
 		// a kept position takes its kept part, a free one stock (only
 		// its singles when there is no room for a pair)
@@ -45,7 +45,7 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 		for i := range n {
 			c.val[i] = L[i][k[i]]
 		}
-		e.scoreOne(t, c, thr, lastScore, keep, cnt)
+		e.scoreOne(t, c, p, keep, cnt)
 		i := n - 1
 		for ; i >= 0; i-- {
 			if k[i]++; k[i] < len(L[i]) {
@@ -61,8 +61,9 @@ func (e *evaluator) scoreVariants(t *tuple, thr, lastScore func() float64, keep 
 
 // scoreOne scores one value combination of a solved tuple (see
 // scoreVariants).
-func (e *evaluator) scoreOne(t *tuple, c combo, thr, lastScore func() float64, keep func(*evaluated), cnt *counters) {
+func (e *evaluator) scoreOne(t *tuple, c combo, p *pool, keep func(*evaluated), cnt *counters) {
 	w := e.s.w
+	thr, lastScore := p.threshold, p.lastScore
 	partial := w.QPoint*t.q + w.Emitter*t.em + w.Parts*e.extraParts(c)
 	if partial > thr() || !e.fitsQuantity(c) {
 		return
@@ -87,7 +88,7 @@ func (e *evaluator) scoreOne(t *tuple, c combo, thr, lastScore func() float64, k
 	}
 	hlb, fails := e.headroomFloor(c.dev, b, cnt)
 	fails = fails || t.bench != nil
-	if th := thr(); fails && !math.IsInf(th, 1) || partial+w.Headroom*hlb > th {
+	if th := thr(); fails && !math.IsInf(th, 1) && !p.failOK || partial+w.Headroom*hlb > th {
 		return
 	}
 	if fails && partial+w.Headroom*hlb > lastScore() {

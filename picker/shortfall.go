@@ -188,7 +188,7 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 	ev := &evaluator{s: e.s, lay: e.lay, vs: &vs, devs: []device{*d}, span: e.span}
 	ev.pinKept(at)
 	ev.devs[0].betaNomMin = ev.nominalBetaMin(&ev.devs[0]) // over these values
-	inf := func() float64 { return math.Inf(1) }
+	open := newPool(math.MaxInt, false)                    // never fills: its threshold stays +Inf
 	var choices [maxPos][]int
 	np := e.lay.n
 	for i := range np {
@@ -214,7 +214,7 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 		}
 		t := ev.newTuple(0, lv)
 		found := false
-		ev.scoreVariants(t, inf, inf, func(x *evaluated) {
+		ev.scoreVariants(t, open, func(x *evaluated) {
 			if found || len(x.failing) > 0 {
 				return
 			}

@@ -49,7 +49,7 @@ func (sp *splitPlan) seed(p *pool, cnt *counters) {
 			rc := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, i, re, cnt).vceAtMost(vceHi) }), n)
 			for a := max(re-1, 0); a <= min(re+1, n-1); a++ {
 				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
-					e.scoreVariants(sp.tuple(di, rb, c, a, cnt), p.threshold, p.lastScore, func(ev *evaluated) {
+					e.scoreVariants(sp.tuple(di, rb, c, a, cnt), p, func(ev *evaluated) {
 						sp.seeds.note(di, a, ev)
 						p.add(ev)
 					}, cnt)

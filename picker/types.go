@@ -91,9 +91,13 @@ type Request struct {
 	// Keep are the resistors on the board the builds keep (a repair), at
 	// most one per position; with AnyTopology only the topologies having
 	// every kept position are searched.
-	Keep        []KeptPart
-	Top         int // 0 = 5
-	Exhaustive  bool
+	Keep       []KeptPart
+	Top        int // 0 = 5
+	Exhaustive bool
+	// Settle searches on until the order of the first Top builds is
+	// proven, however many rounds it takes (Result.Ranking); without it
+	// the search stops after settleRounds further rounds.
+	Settle      bool
 	ShowFailing bool // also list builds that fail a hard limit, with the reason
 	// ShowAll lists near-duplicate builds each in its own place; without
 	// it only the best of each group of near-duplicates is listed, with
@@ -214,6 +218,23 @@ type Result struct {
 	// Rivals, when several topologies were searched, hold the best build
 	// of each topology other than the first candidate's.
 	Rivals []Rival
+	// Ranking says whether the order of the candidates is proven.
+	Ranking Ranking
+}
+
+// Ranking says how far the order of a pick's candidates is proven. The
+// yield term is worked out only for the builds best by the score without
+// it, in rounds (doc.go, "Order"); the order is proven once no build left
+// out can overtake the last candidate.
+type Ranking struct {
+	// Proven: no build of the stock can rank above any listed build
+	// that it is listed below or not listed at all: the list is the true
+	// head of the ranking, whatever Top is.
+	Proven bool
+	// Ranked counts the builds whose yield was run or bounded.
+	Ranked int
+	// Rounds counts the searches run (1 when the first settled it).
+	Rounds int
 }
 
 // Rival is the best build of one topology set against the first

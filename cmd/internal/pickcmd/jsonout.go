@@ -20,6 +20,8 @@ type jsonResult struct {
 	Solved     int64       `json:"solved"`
 	Considered int64       `json:"considered"`
 	Fits       bool        `json:"fits"`
+	// Ranking says whether the order of the candidates is proven.
+	Ranking jsonRanking `json:"ranking"`
 	// BuildableBoards is set when the stock runs short for the run: the
 	// most boards it builds; candidates are then the builds for that many.
 	BuildableBoards int             `json:"buildable_boards,omitempty"`
@@ -52,6 +54,7 @@ type jsonRequest struct {
 	RequireTags  []string `json:"require_tags"`
 	Top          int      `json:"top"`
 	Exhaustive   bool     `json:"exhaustive"`
+	Settle       bool     `json:"settle"`
 	Seed         uint64   `json:"seed"`
 	// Keep are the resistors kept on the board, with the figures used
 	// (defaults filled in) and which of them were assumed.
@@ -222,6 +225,7 @@ func writeJSON(w io.Writer, v *job.PickOutcome) error {
 		Solved:          v.Result.Solved,
 		Considered:      v.Result.Considered,
 		Fits:            v.Fits,
+		Ranking:         jsonRankingOf(v.Shown().Ranking),
 		BuildableBoards: v.Buildable,
 		Candidates:      []jsonCandidate{},
 		Cautions:        report.Words(v.Cautions, report.JobCaution),
@@ -289,6 +293,7 @@ func jsonRequestOf(r picker.Request) jsonRequest {
 		RequireTags:  nonNil(r.RequireTags),
 		Top:          r.Top,
 		Exhaustive:   r.Exhaustive,
+		Settle:       r.Settle,
 		Seed:         r.Seed,
 	}
 }
@@ -391,4 +396,18 @@ func nonNil[T any](s []T) []T {
 		return []T{}
 	}
 	return s
+}
+
+// jsonRanking is picker.Ranking: whether the order of the candidates is
+// proven (no build of the stock left out or listed lower can rank above
+// a listed one), with what the proof took.
+type jsonRanking struct {
+	Proven bool   `json:"proven"`
+	Ranked int    `json:"ranked"`
+	Rounds int    `json:"rounds"`
+	Note   string `json:"note"`
+}
+
+func jsonRankingOf(r picker.Ranking) jsonRanking {
+	return jsonRanking{Proven: r.Proven, Ranked: r.Ranked, Rounds: r.Rounds, Note: report.RankingNote(r)}
 }

@@ -46,9 +46,11 @@ type Options struct {
 	Transistor  string
 	// Keep are the --keep flags as typed: POSITION=VALUE items, comma
 	// separated, the flag repeatable.
-	Keep        []string
-	Top         int
-	Exhaustive  bool
+	Keep       []string
+	Top        int
+	Exhaustive bool
+	// Settle searches on until the order of the listed builds is proven.
+	Settle      bool
 	ShowFailing bool
 	All         bool
 	// AllowUnrated lets transistor lines that state no VCEO or power

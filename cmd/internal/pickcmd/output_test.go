@@ -50,12 +50,14 @@ func TestOutputGolden(t *testing.T) {
 		json bool
 	}{
 		{"table", outcome(fakeRequest(), picker.Result{
-			Candidates: []picker.Candidate{fakeCandidate(1), folded}, Evaluated: 321, Considered: 12345}, 0, picker.Result{}), false},
+			Candidates: []picker.Candidate{fakeCandidate(1), folded}, Evaluated: 321, Considered: 12345,
+			Ranking: picker.Ranking{Ranked: 75, Rounds: 2}}, 0, picker.Result{}), false},
 		{"json", outcome(fakeRequest(), picker.Result{
-			Candidates: []picker.Candidate{fakeCandidate(1)}, Evaluated: 321, Considered: 12345}, 0, picker.Result{}), true},
+			Candidates: []picker.Candidate{fakeCandidate(1)}, Evaluated: 321, Considered: 12345,
+			Ranking: picker.Ranking{Proven: true, Ranked: 4, Rounds: 1}}, 0, picker.Result{}), true},
 		{"nothing_fits", outcome(fakeRequest(), picker.Result{
 			Candidates: []picker.Candidate{fakeCandidate(1, picker.Failure{Kind: picker.FailAllowance, Part: "r2", Utilization: 1.12})},
-			Evaluated:  12, Considered: 400,
+			Evaluated:  12, Considered: 400, Ranking: picker.Ranking{Proven: true, Ranked: 1, Rounds: 1},
 			Shortfall: &picker.Shortfall{
 				Reasons:   []picker.Reason{{Kind: picker.NearestFail, Limit: picker.FailAllowance, Count: 1, Of: 1}},
 				Purchases: []picker.Purchase{{Slot: "r2", Ohm: 4.7e3, Series: "E24", Tol: 0.05, Rated_W: 0.5, Qty: 4}},
@@ -63,12 +65,12 @@ func TestOutputGolden(t *testing.T) {
 		{"short_run", outcome(fakeRequest(),
 			picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
 				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 3, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 3, Boards: 4}}}},
-			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}), false},
+			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}, Ranking: picker.Ranking{Proven: true, Ranked: 1, Rounds: 1}}), false},
 		{"short_run_json", outcome(fakeRequest(),
 			picker.Result{Shortfall: &picker.Shortfall{Rejected: []picker.Rejection{{Kind: picker.RejectQty,
 				Line: picker.Transistor{ID: 10, Bin: "D1", Qty: 3, Sheet: solver.Datasheet{Label: "QN-104A"}}, Qty: 3, Boards: 4}}}},
-			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}}), true},
-		{"hot", outcome(hot, picker.Result{Candidates: []picker.Candidate{hotCand}}, 0, picker.Result{}), false},
+			3, picker.Result{Candidates: []picker.Candidate{fakeCandidate(1)}, Ranking: picker.Ranking{Proven: true, Ranked: 1, Rounds: 1}}), true},
+		{"hot", outcome(hot, picker.Result{Candidates: []picker.Candidate{hotCand}, Ranking: picker.Ranking{Proven: true, Ranked: 1, Rounds: 1}}, 0, picker.Result{}), false},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

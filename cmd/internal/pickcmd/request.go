@@ -126,6 +126,7 @@ func (o *Options) request() (picker.Request, error) {
 	req.Top = o.Top
 	req.Pairs = o.Pairs
 	req.Exhaustive = o.Exhaustive
+	req.Settle = o.Settle
 	req.ShowFailing = o.ShowFailing
 	req.ShowAll = o.All
 	req.AllowUnrated = o.AllowUnrated

@@ -88,6 +88,9 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	}
 	st := v.Shown() // the search whose builds are shown
 	fmt.Fprintf(w, "%s: %d builds solved in full\n", mode, st.Evaluated)
+	if len(st.Candidates) > 0 && !st.Ranking.Proven {
+		fmt.Fprintf(w, "order: %s\n", report.RankingNote(st.Ranking))
+	}
 }
 
 // writeCandidate writes one build as a block: what to pull, the Q-point,

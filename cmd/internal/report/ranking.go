@@ -1,0 +1,24 @@
+package report
+
+import (
+	"fmt"
+
+	"biasbin/picker"
+)
+
+// RankingNote says in words how far the order of a pick's builds is
+// proven (picker.Ranking).
+func RankingNote(r picker.Ranking) string {
+	if r.Proven {
+		return fmt.Sprintf("proven: no build of the stock ranks above a listed one (%s ranked by their yield)", plural(r.Ranked, "build"))
+	}
+	return fmt.Sprintf("not proven: a build outside the %s ranked by their yield could still rank above a listed one, as yields differ much between builds (--settle searches on until the order is proven)", plural(r.Ranked, "build"))
+}
+
+// plural is n with the noun, in the plural unless n is 1.
+func plural(n int, noun string) string {
+	if n == 1 {
+		return "1 " + noun
+	}
+	return fmt.Sprintf("%d %ss", n, noun)
+}
