@@ -99,7 +99,8 @@
 // again with a pool roundGrowth times larger, admitting only builds not
 // ranked yet whose final score can be at most the Top-th's (with several
 // topologies, the Top-th of all), and so on. Without Request.Settle at
-// most settleRounds further rounds run; Result.Ranking says whether the
+// most settleRounds further rounds run (none: the search stays as fast
+// as one pool); Result.Ranking says whether the
 // order is proven: no build left out can rank above a listed one, so the
 // first Top builds are the true first Top whatever Top is. Low yields
 // that differ much between builds can leave it unproven, and the text and

@@ -125,7 +125,7 @@ func TestKeptPartsNotFromStock(t *testing.T) {
 // TestKeepE12MatchesExhaustive: on a full E12 wall (10 Ω..1 MΩ, two
 // transistors) a repair keeping the divider's R1 and R2, or a
 // collector-feedback stage's RC, gets the exhaustive top 10, with far
-// fewer solves (at most a quarter).
+// fewer solves.
 func TestKeepE12MatchesExhaustive(t *testing.T) {
 	st := Stock{Resistors: seriesStock(eseries.E12, 10, 1e6, 0.05, 0.25, 10, 100), Transistors: []Transistor{smallNPN(1, 100, 300), smallNPN(2, 200, 450)}}
 	for _, req := range []Request{
@@ -146,11 +146,8 @@ func TestKeepE12MatchesExhaustive(t *testing.T) {
 			}
 		}
 		t.Logf("%v: default solved %d tuples, exhaustive %d", req.Topology, fast.Solved, full.Solved)
-		// both take the same further round when the yield term reorders
-		// builds beyond the first pool (Ranking), whose cut the bounds
-		// prune less than the first round's shrinking threshold
-		if fast.Solved*4 > full.Solved {
-			t.Errorf("%v: default solved %d tuples, exhaustive %d: the bounds cut less than 75 %%", req.Topology, fast.Solved, full.Solved)
+		if fast.Solved*5 > full.Solved {
+			t.Errorf("%v: default solved %d tuples, exhaustive %d: the bounds cut less than 80 %%", req.Topology, fast.Solved, full.Solved)
 		}
 	}
 }

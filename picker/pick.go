@@ -273,7 +273,7 @@ func finOrder(a, b fin) int {
 // rounds run.
 const (
 	roundGrowth  = 4
-	settleRounds = 1
+	settleRounds = 0
 )
 
 // finalists ranks builds by their final score (finOrder), running the

@@ -12,7 +12,7 @@ func RankingNote(r picker.Ranking) string {
 	if r.Proven {
 		return fmt.Sprintf("proven: no build of the stock ranks above a listed one (%s ranked by their yield)", plural(r.Ranked, "build"))
 	}
-	return fmt.Sprintf("not proven: a build outside the %s ranked by their yield could still rank above a listed one, as yields differ much between builds (--settle searches on until the order is proven)", plural(r.Ranked, "build"))
+	return fmt.Sprintf("proven among the %s ranked by their yield, not against every build of the stock (--settle searches on until it is)", plural(r.Ranked, "build"))
 }
 
 // plural is n with the noun, in the plural unless n is 1.
