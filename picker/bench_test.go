@@ -138,6 +138,7 @@ var benchSlow = map[string]string{
 	"E96/split-supply/10mA":             noPass,
 	"E96/any/10mA":                      noPass,
 	"E12pairs/divider/10mA":             pairsNeeded,
+	"E12pairs/split-supply/10mA":        rbTies,
 	"E12pairs/collector-feedback/0.1mA": rfCap,
 	"E12pairs/collector-feedback/1mA":   feedbackTies,
 	"E12pairs/collector-feedback/10mA":  feedbackTies,
@@ -146,6 +147,9 @@ var benchSlow = map[string]string{
 	"E12pairs/any/10mA":                 pairsNeeded,
 	"E96pairs/divider/0.1mA":            pairsNeeded + ", and the tuple cache of one RE grows to about 900 MB",
 	"E96pairs/divider/10mA":             pairsNeeded,
+	"E96pairs/split-supply/0.1mA":       rbTies + ", and its tuples take about 670 MB",
+	"E96pairs/split-supply/1mA":         rbTies + ", and its tuples take about 2 GB",
+	"E96pairs/split-supply/10mA":        rbTies,
 	"E96pairs/collector-feedback/0.1mA": rfCap,
 	"E96pairs/collector-feedback/1mA":   feedbackTies,
 	"E96pairs/collector-feedback/10mA":  feedbackTies,
@@ -174,6 +178,11 @@ const (
 	// RC + RE only, so every split of RC + RE ties on the Q-point and
 	// beta terms; with pairs the plan visits the (RE, RC) pairs one by one.
 	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
+	// rbTies: a split-supply stage's RB enters IC only through IB·RB, so
+	// every stiff RB level ties on the Q-point and only the beta term
+	// (bound B over RB) separates them; with pairs thousands of RB levels
+	// each take an RC scan.
+	rbTies = "split supply ties the stiff RB levels; with pairs each of thousands takes an RC scan"
 )
 
 // BenchmarkTopologies: stocks as users have them — six transistor types,

@@ -128,6 +128,21 @@ func (sp *splitPlan) search(p *pool, cnt *counters) {
 					rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
 					continue
 				}
+				if bd := e.boundsNow(p); bd.finite && w.Beta > 0 {
+					// Bound B over RB (R_TH = RB, baseLoop): the beta
+					// term of every build at this RB level is at least
+					// the floor over it; when that settles the level,
+					// the floor over the level and every one above it
+					// may settle them all.
+					bw := betaWindow{RTH: e.vs.levels[rb].ohm, RTHMax: e.vs.levels[rb].ohm, RE: reOhm,
+						RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
+					if base+e.partsFloor(rb)+w.Beta*e.betaFloor(dv, bw) > bd.thr {
+						if bw.RTHMax = e.vs.levels[rbHi].ohm; base+w.Beta*e.betaFloor(dv, bw) > bd.thr {
+							break
+						}
+						continue
+					}
+				}
 				e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb))
 			}
 		})
