@@ -59,6 +59,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	skip := 1
 	r2Lo, r2Hi := e.clampRange(iR2, start, n-1)
 	for r2 := r2Lo; r2 <= r2Hi; r2++ {
+		// every tuple below has this R2: the cache holds one R2
+		// level's at a time (upSeen and floorSeen keep what carries
+		// over)
+		d.cache.reset()
 		bd := e.boundsNow(p)
 		if e.vs.levels[r2].pairOnly && e.singlesOnly(pfRE, bd.thr) {
 			r2 = e.vs.nextSingle[r2] - 1 // bound P: no room for a pair in R2

@@ -143,6 +143,9 @@ func (sp *splitPlan) search(p *pool, cnt *counters) {
 						continue
 					}
 				}
+				// tuples of one RB level serve only its RC scan: the
+				// cache starts again, so it holds one level's at a time
+				sp.cache.reset()
 				e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb))
 			}
 		})
