@@ -27,7 +27,7 @@ func TestDemoEndToEnd(t *testing.T) {
 		"Stocked 80 resistor lines and 6 transistor lines",
 		"=== Pick 1:", "=== Pick 2:", "=== Pick 3:", "=== Pick 4:", "=== Pick 5:", "=== Pick 6:", "=== Pick 8:", "hot enough to burn a finger",
 		"--topology collector-feedback", "NPN collector-feedback stage", "    RF  ",
-		"--topology split-supply", "NPN split-supply stage on 12 V and VEE -12 V", "    RB  ",
+		"--topology split-supply", "NPN split-supply stage on 12 V ±5 % (11.4 V..12.6 V) and VEE -12 V ±5 % (-12.6 V..-11.4 V)", "    RB  ",
 		"NPN stage of any topology", "why #1 (",
 		"$ biasbin pick --vcc 12V --ic 2mA",
 		"Pull list for #1",

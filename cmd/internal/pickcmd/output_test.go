@@ -93,8 +93,8 @@ func TestOutputContent(t *testing.T) {
 		"bin B1 #2 4K7", "bin C2 #3 330R", // where each part of a pair comes from
 		"VB 1.62 V (1.55 V..1.7 V)", "VE 950 mV", "VC 7.58 V", // test points with bands
 		"IC 1.82 mA..2.21 mA", // worst-case band
-		"98.7 % (95 % Clopper–Pearson 97.78..99.31 %) — 987 of 1,000 simulated boards pass", // yield with its interval
-		"IC 1.8 mA..2.2 mA (±10 % of the target 2 mA)",                                      // the window and its rule
+		"98.70 % (95 % Clopper–Pearson 97.78..99.31 %) — 987 of 1,000 simulated boards pass", // yield with its interval
+		"IC 1.8 mA..2.2 mA (±10 % of the target 2 mA)",                                       // the window and its rule
 		"Q-point 0.010", "beta 0.052", // score terms
 		"SHORT by 1", // 4 boards need 4 of line 2, which holds 3
 	} {

@@ -62,7 +62,7 @@ func TestRealPick(t *testing.T) {
 		{"real_feedback", []string{"--vcc", "12V", "--ic", "1mA", "--topology", "collector-feedback", "--top", "1", "--show-failing"}, -1,
 			[]string{"NPN collector-feedback stage", "    RF  ", "    RC  ", "    RE  "}, nil},
 		{"real_split_pnp", []string{"--vcc", "9V", "--vee", "9V", "--ic", "1mA", "--topology", "split-supply", "--polarity", "pnp", "--top", "1"}, -1,
-			[]string{"PNP split-supply stage on -9 V and VEE 9 V", "    RB  ", "#1  QP-104B"}, nil},
+			[]string{"PNP split-supply stage on -9 V ±5 % (-9.45 V..-8.55 V) and VEE 9 V ±5 % (8.55 V..9.45 V)", "    RB  ", "#1  QP-104B"}, nil},
 		{"real_pnp_positive", []string{"--vcc", "5V", "--ic", "1mA", "--polarity", "pnp", "--top", "1"}, -1,
 			[]string{"PNP divider stage on 5 V", "positive supply: emitter side to +V, collector side to 0 V", "+V to emitter", "collector to 0 V"}, nil},
 		{"real_pnp_negative", []string{"--vcc", "5V", "--ic", "1mA", "--polarity", "pnp", "--rail", "negative", "--top", "1"}, -1,

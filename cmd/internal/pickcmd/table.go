@@ -26,15 +26,18 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	if r.Pairs {
 		pairs = "pairs allowed"
 	}
-	supply := quantity(solver.GroundOf(r.Polarity, r.Topology, r.Rail).Supply_V(r.VCC_V), "V")
-	// the rails with their tolerance, or each with its own
-	tol := func(t float64) string { return " ±" + strings.TrimSuffix(percent(t), " %") + " %" }
-	rails := supply + tol(r.VCCTol)
-	if r.VEE_V != 0 {
-		rails = supply + " and VEE " + quantity(r.VEE_V, "V") + tol(r.VCCTol)
-		if t := r.EmitterRailTol(); t != r.VCCTol {
-			rails = supply + tol(r.VCCTol) + " and VEE " + quantity(r.VEE_V, "V") + tol(t)
+	// each rail with its tolerance and the span it moves over (a supply
+	// given as a range reads as that range)
+	railOf := func(v, t float64) string {
+		lo, hi := v*(1-t), v*(1+t)
+		if v < 0 {
+			lo, hi = hi, lo
 		}
+		return quantity(v, "V") + " ±" + strings.TrimSuffix(percent(t), " %") + " % (" + notation.FormatBand(lo, hi, "V") + ")"
+	}
+	rails := railOf(solver.GroundOf(r.Polarity, r.Topology, r.Rail).Supply_V(r.VCC_V), r.VCCTol)
+	if r.VEE_V != 0 {
+		rails += " and VEE " + railOf(r.VEE_V, r.EmitterRailTol())
 	}
 	stage := r.Topology.String() + " stage"
 	if r.Topology == picker.AnyTopology {

@@ -40,7 +40,10 @@ func Yield(y solver.YieldResult) string {
 	case y.Pass == 0:
 		return "≤ " + pctUp(y.High95) + " (95 % Clopper–Pearson)"
 	}
-	return fmt.Sprintf("%s (95 %% Clopper–Pearson %s..%s)", pct(y.Yield), strings.TrimSuffix(pctDown(y.Low95), " %"), pctUp(y.High95))
+	// the estimate and both ends with the same two decimals
+	fixed := func(p float64) string { return strconv.FormatFloat(p+0, 'f', 2, 64) }
+	return fmt.Sprintf("%s %% (95 %% Clopper–Pearson %s..%s %%)", fixed(math.Round(y.Yield*1e4)/100),
+		fixed(math.Floor(y.Low95*1e4+1e-9)/100), fixed(math.Ceil(y.High95*1e4-1e-9)/100))
 }
 
 // YieldBoards is the count behind a yield: "10,000 of 10,000 simulated
