@@ -118,7 +118,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				skip = 2 // try the next levels in blocks
 				continue
 			}
-			uBase = math.Max(uRE, uDiv)
+			// Bound U-RC: RC carries IC ≥ icLo and is at least the
+			// band's bottom level, so it dissipates at least
+			// icLo²·RC_lo (with the best allowance of any value).
+			uRC := bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm / e.vs.allowHotMax_W
+			uBase = math.Max(math.Max(uRE, uDiv), uRC)
 			base = pf2 + w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
 			if base > bd.thr {
 				continue

@@ -226,6 +226,13 @@
 //     collector junction's share, as in bound B), VCE lies in
 //     [|VCC| − IC_hi(RC + k·RE), |VCC| − IC_lo(RC + RE)]; RC outside the band
 //     where this can come within δ|VCC| of the target band is out.
+//   - U-RC: RC carries IC ≥ IC_lo (collector feedback: IE ≥ IC) and is
+//     at least the RC band's bottom level, so the utilization term is at
+//     least IC_lo²·RC_lo over the best allowance of any value; with U-RE's
+//     floor the larger of the two counts (the term is the hottest part's).
+//     Where the hottest part is RC (a stage at several milliamperes), it
+//     narrows the IC window of every build at that R2 (collector feedback:
+//     at that RC, and as it rises with RC the RC run stops).
 //   - U-R2: R2 dissipates VB²/R2 and, since base current flows into the
 //     base (VB ≤ V_TH), R1 dissipates at least (|VCC| − VB)·VB/R2; VB lies
 //     between VBE_lo + IC_lo·RE and VBE_hi + IC_hi·k·RE, with VBE bounded
@@ -287,7 +294,8 @@
 //
 //   - F1: IC falls as RF rises (the base drive falls; as L1, the Early
 //     effect and self-heating scale the change but cannot reverse it).
-//   - U-RE, Q-RE, E-RE as for the divider (reCuts; VCE ≤ VCC − IC(RC + RE)).
+//   - U-RE, Q-RE, E-RE as for the divider (reCuts; VCE ≤ VCC − IC(RC + RE));
+//     U-RC per RC level.
 //   - RC band: RC carries IE, so VCE lies in [VCC − kE·icHi(RC + RE),
 //     VCC − icLo(RC + RE)] (rcBand with kRC = kE).
 //   - F-Q: at a current x, VCE lies in [VCC − kE·x·r, VCC − x·r] with
@@ -320,7 +328,7 @@
 // (device, RE, RB, RC). Its base loop is |VEE| − VBE = IB·RB + IE·RE and
 // VCE = |VCC| + |VEE| − IC·RC − IE·RE: a divider with V_TH = |VEE|,
 // R_TH = RB on the span |VCC| + |VEE|, so L1 (IC falls as RB or RE rises),
-// L2, U-RE, Q-RE, the RC band, the RC scan and bound B carry over with the
+// L2, U-RE, U-RC, Q-RE, the RC band, the RC scan and bound B carry over with the
 // span in place of VCC. The emitter term is 0 (the emitter resistor's share
 // of the supply is set by VEE, not by the parts). RB's range comes from
 // the envelopes as R1's does for the divider: IC at the band's bottom RC

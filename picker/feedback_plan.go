@@ -122,7 +122,7 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 					// Bound F-RF over RC levels rc..last, with RE's
 					// utilization, emitter and parts floors.
 					last := min(rc+skip-1, rcHi)
-					uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+					uRE := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc))
 					eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
 					_, rfTop := e.levelRange(fRF)
 					top := f.tuple(di, rfTop, last, re, cnt)
@@ -152,9 +152,9 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 					// QPoint term itself is at least qFloor (F-Q).
 					uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
 					eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-					base := pfRE + w.Utilization*uRE + w.Emitter*eLo
+					base := pfRE + w.Utilization*math.Max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
 					if base > bd.thr {
-						break // none of these floors depends on RC
+						break // none of these floors falls as RC rises
 					}
 					base += pf - pfRE
 					r := e.vs.levels[rc].ohm + reOhm
@@ -181,7 +181,7 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 					// left of the threshold narrows the window again.
 					bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
 						RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
-					base := pf + w.Utilization*bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W + w.Beta*bLo
+					base := pf + w.Utilization*math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)) + w.Beta*bLo
 					if base > bd.thr {
 						continue
 					}
@@ -202,6 +202,13 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 		})
 	}
 	e.progress(int64(len(e.devs)), int64(len(e.devs)))
+}
+
+// uRC is bound U-RC at RC level rc and above: RC carries IE ≥ IC ≥
+// icLo, so it dissipates at least icLo²·RC, over the best allowance of any
+// value (so the floor rises with the level).
+func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
+	return bd.icLo * bd.icLo * f.e.vs.levels[rc].ohm / f.e.vs.allowHotMax_W
 }
 
 // betaFloorRC is bound B (betaFloor) over every build of dv with

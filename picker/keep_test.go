@@ -188,3 +188,43 @@ func TestKeptShortfall(t *testing.T) {
 		}
 	}
 }
+
+// TestHotRCMatchesExhaustive: at 10 mA the collector resistor is the
+// hottest part of the best builds, where bound U-RC cuts; on an E12 wall
+// (10 Ω..100 kΩ, six transistor types) the default search of each
+// three-position topology must give the exhaustive top 40 (so many that
+// the seeds and the hill-climb alone do not find them: a collector-feedback
+// U-RC ten times too high fails here). source: the ranking's definition
+// (doc.go): the exhaustive search scores every build, so a bound that cut
+// a build of the true top 40 shows here.
+func TestHotRCMatchesExhaustive(t *testing.T) {
+	if testing.Short() {
+		t.Skip("exhaustive search of a 49-value wall")
+	}
+	st := Stock{Resistors: seriesStock(eseries.E12, 10, 100e3, 0.05, 0.25, 10, 100), Transistors: benchTransistors(6)}
+	for _, req := range []Request{
+		{VCC_V: 12, IC_A: 10e-3, Top: 40, Topology: solver.CollectorFeedback},
+		{VCC_V: 12, VEE_V: -12, IC_A: 10e-3, Top: 40, Topology: solver.SplitSupply},
+	} {
+		fast, full, err := bothModes(st, req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(full.Candidates) != req.Top || len(fast.Candidates) != req.Top {
+			t.Fatalf("%v: default %d builds, exhaustive %d", req.Topology, len(fast.Candidates), len(full.Candidates))
+		}
+		hot := 0
+		for i := range full.Candidates {
+			if a, b := fast.Candidates[i], full.Candidates[i]; a.ID != b.ID || a.Score != b.Score {
+				t.Errorf("%v rank %d: default %s (%.6g), exhaustive %s (%.6g)", req.Topology, i+1, a.ID, a.Score, b.ID, b.Score)
+			}
+			if c := full.Candidates[i]; c.Terms.Utilization > 0.1 {
+				hot++
+			}
+		}
+		if hot == 0 {
+			t.Errorf("%v: fixture too weak: no build of the top 10 runs a part above 10 %% of its allowance", req.Topology)
+		}
+		t.Logf("%v: default solved %d tuples, exhaustive %d", req.Topology, fast.Solved, full.Solved)
+	}
+}

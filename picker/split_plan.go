@@ -87,7 +87,9 @@ func (sp *splitPlan) search(p *pool, cnt *counters) {
 				// RE's utilization bounds every build at this RE from
 				// below (U-RE); what is left of the threshold bounds
 				// the QPoint term, so the IC window narrows.
-				base += w.Utilization * bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+				// and U-RC: RC carries IC and is at least the band's
+				// bottom level (with the best allowance of any value)
+				base += w.Utilization * bd.icLo * bd.icLo * math.Max(reOhm/e.vs.levels[re].allowHot_W, e.vs.levels[rcLo].ohm/e.vs.allowHotMax_W)
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
 					icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
