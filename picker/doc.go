@@ -376,8 +376,9 @@
 // each topology other than the first's, with the term it trails the first
 // in most. Every term's share of the supply is of the build's own span.
 //
-// The default search runs on two goroutines, each taking (device, RE)
-// items in order and sharing the pool; the pool keeps the exact best
+// The default search runs on two goroutines sharing the pool: the
+// divider's take (device, RE) items in order, the other plans' whole
+// devices (eachDevice), each worker with its own tuple cache; the pool keeps the exact best
 // builds whatever order they arrive in, so the result does not depend on
 // the scheduling (only Result.Evaluated and Solved, the work done, vary).
 package picker

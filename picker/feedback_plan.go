@@ -93,115 +93,121 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 	if n == 0 {
 		return
 	}
+	workers := make([]feedbackPlan, searchWorkers)
+	for k := range workers {
+		workers[k] = feedbackPlan{e: e, seeds: f.seeds}
+	}
+	e.eachDevice(f.seeds.order(len(e.devs)), cnt, func(k, di int, wc *counters) { workers[k].searchDevice(p, wc, di) })
+}
+
+// searchDevice is search over the builds of device di (each worker of
+// search has its own plan, so its own tuple cache).
+func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
+	e := f.e
+	n := len(e.vs.levels)
 	w := e.s.w
-	done := 0
-	for _, di := range f.seeds.order(len(e.devs)) {
-		e.progress(int64(done), int64(len(e.devs)))
-		done++
-		dv := &e.devs[di]
-		vceLo, vceHi := e.targetBand(dv)
-		kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
-		e.eachRE(p, f.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
-			f.cache.reset()
-			reOhm := e.vs.levels[re].ohm
-			pfRE := e.partsFloor(re) // bound P
-			// Bound RC (kRC = kE: RC carries IE = IC + IB).
-			rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
-			gLo, gHi := n/2, n/2
-			// skip is how many RC levels the next block floor (bound
-			// F-RF) tries to settle at once: it doubles while blocks
-			// fall and drops to 1 when one does not.
-			skip := 1
-			for rc := rcLo; rc <= rcHi; rc++ {
-				bd := e.boundsNow(p)
-				if e.vs.levels[rc].pairOnly && e.singlesOnly(pfRE, bd.thr) {
-					rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
+	dv := &e.devs[di]
+	vceLo, vceHi := e.targetBand(dv)
+	kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
+	e.eachRE(p, f.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
+		f.cache.reset()
+		reOhm := e.vs.levels[re].ohm
+		pfRE := e.partsFloor(re) // bound P
+		// Bound RC (kRC = kE: RC carries IE = IC + IB).
+		rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
+		gLo, gHi := n/2, n/2
+		// skip is how many RC levels the next block floor (bound
+		// F-RF) tries to settle at once: it doubles while blocks
+		// fall and drops to 1 when one does not.
+		skip := 1
+		for rc := rcLo; rc <= rcHi; rc++ {
+			bd := e.boundsNow(p)
+			if e.vs.levels[rc].pairOnly && e.singlesOnly(pfRE, bd.thr) {
+				rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
+				continue
+			}
+			if bd.finite && w.QPoint > 0 {
+				// Bound F-RF over RC levels rc..last, with RE's
+				// utilization, emitter and parts floors.
+				last := min(rc+skip-1, rcHi)
+				uRE := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc))
+				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+				_, rfTop := e.levelRange(fRF)
+				top := f.tuple(di, rfTop, last, re, cnt)
+				xLo := 0.0
+				if top.ok {
+					xLo = top.op.IC_A
+				}
+				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
+				if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
+					rc = last
+					skip *= 2
 					continue
 				}
-				if bd.finite && w.QPoint > 0 {
-					// Bound F-RF over RC levels rc..last, with RE's
-					// utilization, emitter and parts floors.
-					last := min(rc+skip-1, rcHi)
-					uRE := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc))
-					eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-					_, rfTop := e.levelRange(fRF)
-					top := f.tuple(di, rfTop, last, re, cnt)
-					xLo := 0.0
-					if top.ok {
-						xLo = top.op.IC_A
-					}
-					q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
-					if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
-						rc = last
-						skip *= 2
-						continue
-					}
-					skip = 1
+				skip = 1
+			}
+			icLo, icHi := bd.icLo, bd.icHi
+			// pf is the parts floor of RE and RC (bound P); fl bounds
+			// every other term of every build at (RC, RE) from below.
+			pf := pfRE + e.partsFloor(rc)
+			fl := pf
+			if bd.finite {
+				// RE's utilization and the emitter term bound every
+				// build at this RE from below (bounds U-RE and
+				// E-RE), and bound B every build at this RC and RE
+				// (F-B); what is left of the threshold bounds the
+				// QPoint term, so the IC window narrows. The
+				// QPoint term itself is at least qFloor (F-Q).
+				uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
+				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+				base := pfRE + w.Utilization*math.Max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
+				if base > bd.thr {
+					break // none of these floors falls as RC rises
 				}
-				icLo, icHi := bd.icLo, bd.icHi
-				// pf is the parts floor of RE and RC (bound P); fl bounds
-				// every other term of every build at (RC, RE) from below.
-				pf := pfRE + e.partsFloor(rc)
-				fl := pf
-				if bd.finite {
-					// RE's utilization and the emitter term bound every
-					// build at this RE from below (bounds U-RE and
-					// E-RE), and bound B every build at this RC and RE
-					// (F-B); what is left of the threshold bounds the
-					// QPoint term, so the IC window narrows. The
-					// QPoint term itself is at least qFloor (F-Q).
-					uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-					eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-					base := pfRE + w.Utilization*math.Max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
-					if base > bd.thr {
-						break // none of these floors falls as RC rises
-					}
-					base += pf - pfRE
-					r := e.vs.levels[rc].ohm + reOhm
-					if w.Beta > 0 {
-						base += w.Beta * f.betaFloorRC(dv, bd, r)
-					}
-					if base+w.QPoint*e.feedbackQFloor(r, kE, vceLo, vceHi) > bd.thr {
-						continue
-					}
-					if w.QPoint > 0 {
-						d2 := (bd.thr - base) / w.QPoint
-						icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
-					}
-					fl = base
+				base += pf - pfRE
+				r := e.vs.levels[rc].ohm + reOhm
+				if w.Beta > 0 {
+					base += w.Beta * f.betaFloorRC(dv, bd, r)
 				}
-				lo, hi := f.rfWindow(di, rc, re, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
-				gLo, gHi = lo, hi+1
-				if lo > hi {
+				if base+w.QPoint*e.feedbackQFloor(r, kE, vceLo, vceHi) > bd.thr {
 					continue
 				}
-				if bd.finite && w.Beta > 0 {
-					// Bound B over the window, with R_TH = RF between
-					// its ends and RE' = RC + RE (baseLoop): what is
-					// left of the threshold narrows the window again.
-					bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
-						RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
-					base := pf + w.Utilization*math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)) + w.Beta*bLo
-					if base > bd.thr {
-						continue
-					}
-					fl = math.Max(fl, base)
-					if w.QPoint > 0 {
-						d2 := (bd.thr - base) / w.QPoint
-						lo, hi = f.rfWindow(di, rc, re, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2), lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
-					}
+				if w.QPoint > 0 {
+					d2 := (bd.thr - base) / w.QPoint
+					icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 				}
-				for rf := lo; rf <= hi; rf++ {
-					if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
-						rf = e.vs.nextSingle[rf] - 1 // bound P: no room for a pair in RF
-						continue
-					}
-					e.scoreVariants(f.tuple(di, rf, rc, re, cnt), p, p.add, cnt)
+				fl = base
+			}
+			lo, hi := f.rfWindow(di, rc, re, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
+			gLo, gHi = lo, hi+1
+			if lo > hi {
+				continue
+			}
+			if bd.finite && w.Beta > 0 {
+				// Bound B over the window, with R_TH = RF between
+				// its ends and RE' = RC + RE (baseLoop): what is
+				// left of the threshold narrows the window again.
+				bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
+					RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
+				base := pf + w.Utilization*math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)) + w.Beta*bLo
+				if base > bd.thr {
+					continue
+				}
+				fl = math.Max(fl, base)
+				if w.QPoint > 0 {
+					d2 := (bd.thr - base) / w.QPoint
+					lo, hi = f.rfWindow(di, rc, re, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2), lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
 				}
 			}
-		})
-	}
-	e.progress(int64(len(e.devs)), int64(len(e.devs)))
+			for rf := lo; rf <= hi; rf++ {
+				if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
+					rf = e.vs.nextSingle[rf] - 1 // bound P: no room for a pair in RF
+					continue
+				}
+				e.scoreVariants(f.tuple(di, rf, rc, re, cnt), p, p.add, cnt)
+			}
+		}
+	})
 }
 
 // uRC is bound U-RC at RC level rc and above: RC carries IE ≥ IC ≥

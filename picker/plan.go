@@ -3,7 +3,10 @@ package picker
 import (
 	"cmp"
 	"math"
+	"runtime"
 	"slices"
+	"sync"
+	"sync/atomic"
 
 	"biasbin/solver"
 )
@@ -29,6 +32,40 @@ func planFor(e *evaluator) plan {
 		return &splitPlan{e: e}
 	}
 	return &dividerPlan{e: e}
+}
+
+// eachDevice runs search for every device of order, each device going to
+// the next free worker (at most searchWorkers goroutines, numbered from
+// 0), with counters of its own that are added to cnt at the end. The
+// result does not depend on the order the devices finish in: the pool
+// keeps the exact best builds whatever order they arrive in.
+func (e *evaluator) eachDevice(order []int, cnt *counters, search func(worker, di int, wc *counters)) {
+	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0), len(order)))
+	total := int64(len(order))
+	var next atomic.Int64
+	var progressMu sync.Mutex
+	wcnt := make([]counters, workers)
+	var wg sync.WaitGroup
+	for k := range workers {
+		wg.Go(func() {
+			for {
+				i := next.Add(1) - 1
+				if i >= total {
+					return
+				}
+				progressMu.Lock()
+				e.progress(i, total)
+				progressMu.Unlock()
+				search(k, order[i], &wcnt[k])
+			}
+		})
+	}
+	wg.Wait()
+	for _, c := range wcnt {
+		cnt.evaluated += c.evaluated
+		cnt.solves += c.solves
+	}
+	e.progress(total, total)
 }
 
 // progress reports the search's progress when the request asks for it.

@@ -66,91 +66,97 @@ func (sp *splitPlan) search(p *pool, cnt *counters) {
 	if n == 0 {
 		return
 	}
+	workers := make([]splitPlan, searchWorkers)
+	for k := range workers {
+		workers[k] = splitPlan{e: e, seeds: sp.seeds, splitGuess: sp.splitGuess}
+	}
+	e.eachDevice(sp.seeds.order(len(e.devs)), cnt, func(k, di int, wc *counters) { workers[k].searchDevice(p, wc, di) })
+}
+
+// searchDevice is search over the builds of device di (each worker of
+// search has its own plan, so its own tuple cache).
+func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
+	e := sp.e
+	n := len(e.vs.levels)
 	w := e.s.w
-	done := 0
-	for _, di := range sp.seeds.order(len(e.devs)) {
-		e.progress(int64(done), int64(len(e.devs)))
-		done++
-		dv := &e.devs[di]
-		vceLo, vceHi := e.targetBand(dv)
-		kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
-		e.eachRE(p, sp.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
-			sp.cache.reset()
-			reOhm := e.vs.levels[re].ohm
-			rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
+	dv := &e.devs[di]
+	vceLo, vceHi := e.targetBand(dv)
+	kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
+	e.eachRE(p, sp.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
+		sp.cache.reset()
+		reOhm := e.vs.levels[re].ohm
+		rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
+		if rcLo > rcHi {
+			return
+		}
+		icLo, icHi := bd.icLo, bd.icHi
+		base := e.partsFloor(re) // bound P
+		if bd.finite {
+			// RE's utilization bounds every build at this RE from
+			// below (U-RE); what is left of the threshold bounds
+			// the QPoint term, so the IC window narrows.
+			// and U-RC: RC carries IC and is at least the band's
+			// bottom level (with the best allowance of any value)
+			base += w.Utilization * bd.icLo * bd.icLo * math.Max(reOhm/e.vs.levels[re].allowHot_W, e.vs.levels[rcLo].ohm/e.vs.allowHotMax_W)
+			if w.QPoint > 0 {
+				d2 := (bd.thr - base) / w.QPoint
+				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
+			}
+		}
+		// Bound IC-RB: IC falls with RB (lemma L1 with R_TH = RB)
+		// and with RC (L2). IC at the band's bottom RC bounds every
+		// band build from above, so RB past the first where it is
+		// under the window is out; the IC of the band's largest
+		// active RC bounds the active builds from below, so RB
+		// before the first where that floor is within the window is
+		// out.
+		// (Only once the pool is full of passing builds: before, a
+		// failing build may still enter.)
+		rbLo, rbHi := 0, n-1
+		// bound P: with no room for a pair's extra part, RB and RC
+		// hold singles, and only those levels are probed
+		singles := bd.finite && e.singlesOnly(base, bd.thr)
+		if singles {
+			rcLo, rcHi = e.vs.up(rcLo, true), e.vs.down(rcHi, true)
 			if rcLo > rcHi {
 				return
 			}
-			icLo, icHi := bd.icLo, bd.icHi
-			base := e.partsFloor(re) // bound P
-			if bd.finite {
-				// RE's utilization bounds every build at this RE from
-				// below (U-RE); what is left of the threshold bounds
-				// the QPoint term, so the IC window narrows.
-				// and U-RC: RC carries IC and is at least the band's
-				// bottom level (with the best allowance of any value)
-				base += w.Utilization * bd.icLo * bd.icLo * math.Max(reOhm/e.vs.levels[re].allowHot_W, e.vs.levels[rcLo].ohm/e.vs.allowHotMax_W)
-				if w.QPoint > 0 {
-					d2 := (bd.thr - base) / w.QPoint
-					icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
-				}
+		}
+		if bd.finite {
+			rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
+				t := sp.tuple(di, i, rcLo, re, cnt)
+				return t.ok && t.op.IC_A < icLo
+			}) - 1
+			rbLo = e.vs.firstIn(0, n-1, 0, singles, func(i int) bool {
+				ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
+				return any && ic <= icHi
+			})
+		}
+		rbLo, rbHi = e.clampRange(sRB, rbLo, rbHi)
+		for rb := rbLo; rb <= rbHi; rb++ {
+			if bd.finite && e.vs.levels[rb].pairOnly && e.singlesOnly(base, p.threshold()) {
+				rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
+				continue
 			}
-			// Bound IC-RB: IC falls with RB (lemma L1 with R_TH = RB)
-			// and with RC (L2). IC at the band's bottom RC bounds every
-			// band build from above, so RB past the first where it is
-			// under the window is out; the IC of the band's largest
-			// active RC bounds the active builds from below, so RB
-			// before the first where that floor is within the window is
-			// out.
-			// (Only once the pool is full of passing builds: before, a
-			// failing build may still enter.)
-			rbLo, rbHi := 0, n-1
-			// bound P: with no room for a pair's extra part, RB and RC
-			// hold singles, and only those levels are probed
-			singles := bd.finite && e.singlesOnly(base, bd.thr)
-			if singles {
-				rcLo, rcHi = e.vs.up(rcLo, true), e.vs.down(rcHi, true)
-				if rcLo > rcHi {
-					return
-				}
-			}
-			if bd.finite {
-				rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
-					t := sp.tuple(di, i, rcLo, re, cnt)
-					return t.ok && t.op.IC_A < icLo
-				}) - 1
-				rbLo = e.vs.firstIn(0, n-1, 0, singles, func(i int) bool {
-					ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
-					return any && ic <= icHi
-				})
-			}
-			rbLo, rbHi = e.clampRange(sRB, rbLo, rbHi)
-			for rb := rbLo; rb <= rbHi; rb++ {
-				if bd.finite && e.vs.levels[rb].pairOnly && e.singlesOnly(base, p.threshold()) {
-					rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
+			if bd := e.boundsNow(p); bd.finite && w.Beta > 0 {
+				// Bound B over RB (R_TH = RB, baseLoop): the beta
+				// term of every build at this RB level is at least
+				// the floor over it; when that settles the level,
+				// the floor over the level and every one above it
+				// may settle them all.
+				bw := betaWindow{RTH: e.vs.levels[rb].ohm, RTHMax: e.vs.levels[rb].ohm, RE: reOhm,
+					RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
+				if base+e.partsFloor(rb)+w.Beta*e.betaFloor(dv, bw) > bd.thr {
+					if bw.RTHMax = e.vs.levels[rbHi].ohm; base+w.Beta*e.betaFloor(dv, bw) > bd.thr {
+						break
+					}
 					continue
 				}
-				if bd := e.boundsNow(p); bd.finite && w.Beta > 0 {
-					// Bound B over RB (R_TH = RB, baseLoop): the beta
-					// term of every build at this RB level is at least
-					// the floor over it; when that settles the level,
-					// the floor over the level and every one above it
-					// may settle them all.
-					bw := betaWindow{RTH: e.vs.levels[rb].ohm, RTHMax: e.vs.levels[rb].ohm, RE: reOhm,
-						RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
-					if base+e.partsFloor(rb)+w.Beta*e.betaFloor(dv, bw) > bd.thr {
-						if bw.RTHMax = e.vs.levels[rbHi].ohm; base+w.Beta*e.betaFloor(dv, bw) > bd.thr {
-							break
-						}
-						continue
-					}
-				}
-				// tuples of one RB level serve only its RC scan: the
-				// cache starts again, so it holds one level's at a time
-				sp.cache.reset()
-				e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb))
 			}
-		})
-	}
-	e.progress(int64(len(e.devs)), int64(len(e.devs)))
+			// tuples of one RB level serve only its RC scan: the
+			// cache starts again, so it holds one level's at a time
+			sp.cache.reset()
+			e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb))
+		}
+	})
 }
