@@ -88,16 +88,8 @@ func (f *feedbackPlan) seed(p *pool, cnt *counters) {
 
 // search is the branch and bound over (device, RE, RC, RF).
 func (f *feedbackPlan) search(p *pool, cnt *counters) {
-	e := f.e
-	n := len(e.vs.levels)
-	if n == 0 {
-		return
-	}
-	workers := make([]feedbackPlan, searchWorkers)
-	for k := range workers {
-		workers[k] = feedbackPlan{e: e, seeds: f.seeds}
-	}
-	e.eachDevice(f.seeds.order(len(e.devs)), cnt, func(k, di int, wc *counters) { workers[k].searchDevice(p, wc, di) })
+	searchByDevice(f.e, &f.seeds, cnt, func() *feedbackPlan { return &feedbackPlan{e: f.e, seeds: f.seeds} },
+		func(w *feedbackPlan, wc *counters, di int) { w.searchDevice(p, wc, di) })
 }
 
 // searchDevice is search over the builds of device di (each worker of
@@ -106,10 +98,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 	e := f.e
 	n := len(e.vs.levels)
 	w := e.s.w
-	dv := &e.devs[di]
-	vceLo, vceHi := e.targetBand(dv)
-	kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
-	e.eachRE(p, f.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
+	e.walkRE(p, &f.seeds, di, func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds) {
 		f.cache.reset()
 		reOhm := e.vs.levels[re].ohm
 		pfRE := e.partsFloor(re) // bound P

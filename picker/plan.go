@@ -34,6 +34,30 @@ func planFor(e *evaluator) plan {
 	return &dividerPlan{e: e}
 }
 
+// searchByDevice runs a plan's search of one device (search) for every
+// device, from the best seed, on eachDevice's workers, each with a plan of
+// its own that newWorker makes (so a tuple cache of its own).
+func searchByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, search func(w P, cnt *counters, di int)) {
+	if len(e.vs.levels) == 0 {
+		return
+	}
+	workers := make([]P, searchWorkers)
+	for k := range workers {
+		workers[k] = newWorker()
+	}
+	e.eachDevice(so.order(len(e.devs)), cnt, func(k, di int, wc *counters) { search(workers[k], wc, di) })
+}
+
+// walkRE runs visit over the RE levels of device di (eachRE, from the
+// device's best seed), with the device's VCE target band and kE =
+// 1 + 1/β_min (IE ≤ kE·IC at the nominal point).
+func (e *evaluator) walkRE(p *pool, so *seedOrder, di int, visit func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds)) {
+	dv := &e.devs[di]
+	vceLo, vceHi := e.targetBand(dv)
+	kE := 1 + 1/dv.betaNomMin
+	e.eachRE(p, so.start(di), kE, vceLo, func(re int, bd bounds) { visit(dv, vceLo, vceHi, kE, re, bd) })
+}
+
 // eachDevice runs search for every device of order, each device going to
 // the next free worker (at most searchWorkers goroutines, numbered from
 // 0), with counters of its own that are added to cnt at the end. The

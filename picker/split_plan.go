@@ -61,16 +61,8 @@ func (sp *splitPlan) seed(p *pool, cnt *counters) {
 
 // search is the branch and bound over (device, RE, RB, RC).
 func (sp *splitPlan) search(p *pool, cnt *counters) {
-	e := sp.e
-	n := len(e.vs.levels)
-	if n == 0 {
-		return
-	}
-	workers := make([]splitPlan, searchWorkers)
-	for k := range workers {
-		workers[k] = splitPlan{e: e, seeds: sp.seeds, splitGuess: sp.splitGuess}
-	}
-	e.eachDevice(sp.seeds.order(len(e.devs)), cnt, func(k, di int, wc *counters) { workers[k].searchDevice(p, wc, di) })
+	searchByDevice(sp.e, &sp.seeds, cnt, func() *splitPlan { return &splitPlan{e: sp.e, seeds: sp.seeds, splitGuess: sp.splitGuess} },
+		func(w *splitPlan, wc *counters, di int) { w.searchDevice(p, wc, di) })
 }
 
 // searchDevice is search over the builds of device di (each worker of
@@ -79,10 +71,7 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 	e := sp.e
 	n := len(e.vs.levels)
 	w := e.s.w
-	dv := &e.devs[di]
-	vceLo, vceHi := e.targetBand(dv)
-	kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
-	e.eachRE(p, sp.seeds.start(di), kE, vceLo, func(re int, bd bounds) {
+	e.walkRE(p, &sp.seeds, di, func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds) {
 		sp.cache.reset()
 		reOhm := e.vs.levels[re].ohm
 		rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
