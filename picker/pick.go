@@ -293,10 +293,10 @@ type finalists struct {
 	ranked int // builds whose yield was run or bounded
 }
 
-// rank ranks a batch of builds, in order, after those already ranked
-// (every build not offered yet comes after the batch's last); it reports
-// whether the first k are settled: no build after the batch can move
-// ahead of the k-th.
+// rank ranks a batch of builds, in order, after those already ranked; it
+// reports whether it stopped before the batch's end because no later
+// build can move ahead of the k-th (whether a build after the batch can
+// is topoRun.settled's question).
 func (f *finalists) rank(items []*evaluated) (done bool, err error) {
 	e, k := f.e, f.k
 	for i, ev := range items {
@@ -324,8 +324,7 @@ func (f *finalists) rank(items []*evaluated) (done bool, err error) {
 			return true, nil
 		}
 	}
-	// every build not offered yet comes after the batch's last
-	return len(items) > 0 && len(f.fs) >= k && finBefore(f.fs[k-1], items[len(items)-1]), nil
+	return false, nil
 }
 
 // finBefore reports whether a (final) comes before the order of ev

@@ -33,7 +33,7 @@ func writeText(w io.Writer, r *job.Analysis) {
 	if b.Topology == solver.SplitSupply {
 		fmt.Fprintf(w, ", VEE %s", fV(b.VEE_V))
 	}
-	fmt.Fprintf(w, " ±%s (%s), ambient %s..%s\n", pct(b.VCCTol), supplyBand(supply, b.VCCTol), fT(b.AmbientMin_C), fT(b.AmbientMax_C))
+	fmt.Fprintf(w, " ±%s (%s), ambient %s..%s\n", pct(b.VCCTol), report.SupplyBand(supply, b.VCCTol), fT(b.AmbientMin_C), fT(b.AmbientMax_C))
 	fmt.Fprintf(w, "%s; every voltage against 0 V\n", report.Rail(d.Polarity, solver.RailOf(d.Polarity, b.Topology, b.Ground)))
 	var rs []string
 	for _, j := range r.Joins {
@@ -155,14 +155,4 @@ func use(l solver.PartLoad) string {
 		return ">999 %"
 	}
 	return fmt.Sprintf("%.0f %%", 100*l.Utilization)
-}
-
-// supplyBand writes the span a supply moves over, low end first in the
-// rail's own sign: "7 V..9.6 V", "-9.6 V..-7 V".
-func supplyBand(v, tol float64) string {
-	lo, hi := v*(1-tol), v*(1+tol)
-	if lo > hi {
-		lo, hi = hi, lo
-	}
-	return fV(lo) + ".." + fV(hi)
 }

@@ -29,11 +29,7 @@ func writeHeader(w io.Writer, v *job.PickOutcome) {
 	// each rail with its tolerance and the span it moves over (a supply
 	// given as a range reads as that range)
 	railOf := func(v, t float64) string {
-		lo, hi := v*(1-t), v*(1+t)
-		if v < 0 {
-			lo, hi = hi, lo
-		}
-		return quantity(v, "V") + " ±" + strings.TrimSuffix(percent(t), " %") + " % (" + notation.FormatBand(lo, hi, "V") + ")"
+		return quantity(v, "V") + " ±" + strings.TrimSuffix(percent(t), " %") + " % (" + report.SupplyBand(v, t) + ")"
 	}
 	rails := railOf(solver.GroundOf(r.Polarity, r.Topology, r.Rail).Supply_V(r.VCC_V), r.VCCTol)
 	if r.VEE_V != 0 {

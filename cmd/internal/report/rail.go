@@ -3,6 +3,7 @@ package report
 import (
 	"biasbin/picker/job"
 	"biasbin/solver"
+	"biasbin/solver/notation"
 )
 
 // Point words a point a resistor joins: "base", "+V", "0 V".
@@ -78,4 +79,15 @@ func JoinsJSON(js []job.Join) map[string][2]job.Point {
 		out[j.Slot.String()] = [2]job.Point{j.From, j.To}
 	}
 	return out
+}
+
+// SupplyBand writes the span a supply moves over with its tolerance, low
+// end first in the rail's own sign, in one unit: "7 V..9.6 V",
+// "-9.6 V..-7 V".
+func SupplyBand(v, tol float64) string {
+	lo, hi := v*(1-tol), v*(1+tol)
+	if lo > hi {
+		lo, hi = hi, lo
+	}
+	return notation.FormatBand(lo, hi, "V")
 }

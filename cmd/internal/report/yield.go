@@ -42,8 +42,7 @@ func Yield(y solver.YieldResult) string {
 	}
 	// the estimate and both ends with the same two decimals
 	fixed := func(p float64) string { return strconv.FormatFloat(p+0, 'f', 2, 64) }
-	return fmt.Sprintf("%s %% (95 %% Clopper–Pearson %s..%s %%)", fixed(math.Round(y.Yield*1e4)/100),
-		fixed(math.Floor(y.Low95*1e4+1e-9)/100), fixed(math.Ceil(y.High95*1e4-1e-9)/100))
+	return fmt.Sprintf("%s %% (95 %% Clopper–Pearson %s..%s %%)", fixed(pctNear(y.Yield)), fixed(pctFloor(y.Low95)), fixed(pctCeil(y.High95)))
 }
 
 // YieldBoards is the count behind a yield: "10,000 of 10,000 simulated
@@ -99,11 +98,17 @@ func Count(n int) string {
 }
 
 // pct writes a share as a percentage to two decimals, trailing zeros cut.
-func pct(frac float64) string { return trimPct(math.Round(frac*1e4) / 100) }
+func pct(frac float64) string { return trimPct(pctNear(frac)) }
 
 // pctDown and pctUp round a share down and up to two decimals of a percent.
-func pctDown(frac float64) string { return trimPct(math.Floor(frac*1e4+1e-9) / 100) }
-func pctUp(frac float64) string   { return trimPct(math.Ceil(frac*1e4-1e-9) / 100) }
+func pctDown(frac float64) string { return trimPct(pctFloor(frac)) }
+func pctUp(frac float64) string   { return trimPct(pctCeil(frac)) }
+
+// pctNear, pctFloor and pctCeil are a share in percent rounded to two
+// decimals: to the nearest, down and up (the bounds never claim more).
+func pctNear(frac float64) float64  { return math.Round(frac*1e4) / 100 }
+func pctFloor(frac float64) float64 { return math.Floor(frac*1e4+1e-9) / 100 }
+func pctCeil(frac float64) float64  { return math.Ceil(frac*1e4-1e-9) / 100 }
 
 func trimPct(p float64) string { return strconv.FormatFloat(p+0, 'f', -1, 64) + " %" }
 
