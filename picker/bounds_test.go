@@ -166,6 +166,12 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			if f := e.feedbackQFloor(r, kE, vceLo, vceHi); f > a.q*(1+1e-9) {
 				t.Errorf("%v: QPoint floor %g over the term %g", a.r, f, a.q)
 			}
+			// F-QW: the IC window of the builds whose QPoint term is at
+			// most this one's holds this build's IC
+			it := e.s.icT
+			if lo, hi, ok := e.feedbackICWindow(r, kE, vceLo, vceHi, a.q, it*math.Max(0, 1-a.q), it*(1+a.q)); !ok || a.op.IC_A < lo || a.op.IC_A > hi {
+				t.Errorf("%v: IC %g outside the F-QW window [%g, %g] (ok %v) at QPoint term %g", a.r, a.op.IC_A, lo, hi, ok, a.q)
+			}
 			ic := a.op.IC_A
 			bd := bounds{icLo: ic * 0.9, icHi: ic * 1.1, finite: true}
 			f := &feedbackPlan{e: e}

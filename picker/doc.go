@@ -303,6 +303,12 @@
 //     |x − IC_t|/IC_t plus that interval's distance from the target band,
 //     a convex function whose least value is at a breakpoint
 //     (feedbackQFloor).
+//   - F-QW: F-Q's floor at a current x is convex in x, so the currents
+//     where it is at most what the threshold leaves for the QPoint term
+//     form an interval (feedbackICWindow, by bisection from its least
+//     point); it replaces the plain ±(T − floors)/w_QPoint IC window of
+//     every build at (RC, RE), so a sum RC + RE whose VCE is off target
+//     admits fewer currents, and fewer RF levels.
 //   - F-B: IB ≤ IC/β_min gives RF ≥ β_min(VCC − VBE_hi − kE·icHi·r)/icHi;
 //     bound B over R_TH from there up bounds the beta term of every build
 //     at (RC, RE). With RE's utilization and emitter floors it skips an RC

@@ -163,7 +163,11 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				}
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
-					icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
+					var ok bool
+					icLo, icHi, ok = e.feedbackICWindow(r, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
+					if !ok {
+						continue
+					}
 				}
 				fl = base
 			}
@@ -185,7 +189,11 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				fl = math.Max(fl, base)
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
-					lo, hi = f.rfWindow(di, rc, re, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2), lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
+					wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
+					if !ok {
+						continue
+					}
+					lo, hi = f.rfWindow(di, rc, re, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
 				}
 			}
 			for rf := lo; rf <= hi; rf++ {
@@ -244,16 +252,70 @@ func (e *evaluator) feedbackQFloor(r, kE, vceLo, vceHi float64) float64 {
 // the interval meets an end of the band, or where the two ends are
 // equally far outside it.
 func (e *evaluator) feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi float64) float64 {
+	q, _ := e.feedbackQLeast(rLo, rHi, xLo, kE, vceLo, vceHi)
+	return q * (1 - 1e-12)
+}
+
+// feedbackQAt is F-Q's convex floor at a current x ≥ xLo (a smaller x
+// counts as xLo): |x − IC_t|/IC_t plus the distance of
+// [VCC − kE·x·rHi, VCC − x·rLo] from the band [vceLo, vceHi] over the span.
+func (e *evaluator) feedbackQAt(x, rLo, rHi, xLo, kE, vceLo, vceHi float64) float64 {
 	vcc, it := e.s.vcc, e.s.icT
-	at := func(x float64) float64 {
-		x = math.Max(math.Max(0, xLo), x)
-		d := math.Max(0, math.Max(vcc-kE*x*rHi-vceHi, vceLo-(vcc-x*rLo)))
-		return math.Abs(x-it)/it + d/e.span
-	}
-	q := at(it)
+	x = math.Max(math.Max(0, xLo), x)
+	d := math.Max(0, math.Max(vcc-kE*x*rHi-vceHi, vceLo-(vcc-x*rLo)))
+	return math.Abs(x-it)/it + d/e.span
+}
+
+// feedbackQLeast returns the least value of feedbackQAt over x ≥ xLo and
+// a current where it is taken: a convex piecewise-linear function takes
+// its least value at a breakpoint (feedbackQFloorBlock says which).
+func (e *evaluator) feedbackQLeast(rLo, rHi, xLo, kE, vceLo, vceHi float64) (q, at float64) {
+	vcc, it := e.s.vcc, e.s.icT
+	at = math.Max(math.Max(0, xLo), it)
+	q = e.feedbackQAt(at, rLo, rHi, xLo, kE, vceLo, vceHi)
 	for _, x := range []float64{xLo, (vcc - vceLo) / rLo, (vcc - vceHi) / (kE * rHi), (vcc - vceHi) / rLo, (vcc - vceLo) / (kE * rHi),
 		(2*vcc - vceHi - vceLo) / (kE*rHi + rLo)} {
-		q = math.Min(q, at(x))
+		x = math.Max(math.Max(0, xLo), x)
+		if v := e.feedbackQAt(x, rLo, rHi, xLo, kE, vceLo, vceHi); v < q {
+			q, at = v, x
+		}
 	}
-	return q * (1 - 1e-12)
+	return q, at
+}
+
+// feedbackICWindow narrows the IC window of the builds with RC + RE = r
+// whose QPoint term can be at most d (bound F-QW): F-Q's floor at a
+// current x is convex in x, so the currents where it is at most d form an
+// interval around its least point, found by bisection on each side. It
+// returns [icLo, icHi] ∩ that interval, widened by the bisection's last
+// step (every current outside has a floor over d), and ok false when the
+// interval is empty.
+func (e *evaluator) feedbackICWindow(r, kE, vceLo, vceHi, d, icLo, icHi float64) (lo, hi float64, ok bool) {
+	q, x0 := e.feedbackQLeast(r, r, 0, kE, vceLo, vceHi)
+	if q*(1-1e-12) > d {
+		return 0, 0, false
+	}
+	over := func(x float64) bool { return e.feedbackQAt(x, r, r, 0, kE, vceLo, vceHi)*(1-1e-12) > d }
+	lo = edgeOver(icLo, x0, over)
+	hi = edgeOver(icHi, x0, over)
+	return math.Max(lo, icLo), math.Min(hi, icHi), lo <= hi
+}
+
+// edgeOver returns, for a predicate over that holds at out and not at in
+// and changes once between them, a point where it still holds within 2⁻⁵⁰
+// of the change (out itself when over(out) is false): bisection that
+// keeps the side where over holds.
+func edgeOver(out, in float64, over func(float64) bool) float64 {
+	if !over(out) {
+		return out
+	}
+	for range 50 {
+		m := (out + in) / 2
+		if over(m) {
+			out = m
+		} else {
+			in = m
+		}
+	}
+	return out
 }
