@@ -35,22 +35,26 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			return pfRE+w.Utilization*e.dividerPowerBoundWeak(i, vbLo, vbHi) <= bd.thr
 		})
 	}
-	// r2Floors bounds, for every build with R2 in levels [first, last],
-	// the beta term (bound B with R_TH between rthFloor of the first R2,
-	// which rises with R2, and the last R2), RE's utilization (every build
-	// carries RE: icLo²·RE over RE's best allowance) and the emitter term
-	// (bound E-RE: VE = IE·RE lies in [icLo·RE, kE·icHi·RE] whatever R1, R2
-	// and RC are).
-	r2Floors := func(bd bounds, first, last, rcLo, rcHi int) (bLo, uRE, eLo float64) {
-		if w.Beta > 0 {
-			vbHi := vbeHi + bd.icHi*kE*reOhm
-			bLo = e.betaFloor(dv, betaWindow{RTH: e.rthFloor(e.vs.levels[first].ohm, vbHi, bd.icHi/dv.betaNomMin),
-				RTHMax: e.vs.levels[last].ohm, RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm,
-				ICLo: bd.icLo, ICHi: bd.icHi})
-		}
+	// reFloors bounds RE's utilization (every build carries RE:
+	// icLo²·RE over RE's best allowance) and the emitter term (bound E-RE:
+	// VE = IE·RE lies in [icLo·RE, kE·icHi·RE] whatever R1, R2 and RC are)
+	// of every build at this RE.
+	reFloors := func(bd bounds) (uRE, eLo float64) {
 		uRE = bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
 		eLo = math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-		return bLo, uRE, eLo
+		return uRE, eLo
+	}
+	// r2Beta bounds the beta term of every build with R2 in levels
+	// [first, last] (bound B with R_TH between rthFloor of the first R2,
+	// which rises with R2, and the last R2).
+	r2Beta := func(bd bounds, first, last, rcLo, rcHi int) float64 {
+		if w.Beta == 0 {
+			return 0
+		}
+		vbHi := vbeHi + bd.icHi*kE*reOhm
+		return e.betaFloor(dv, betaWindow{RTH: e.rthFloor(e.vs.levels[first].ohm, vbHi, bd.icHi/dv.betaNomMin),
+			RTHMax: e.vs.levels[last].ohm, RE: reOhm, RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm,
+			ICLo: bd.icLo, ICHi: bd.icHi})
 	}
 	// skip is how many R2 levels the next block floor tries to settle at
 	// once: it doubles while blocks fall and drops to 1 when one does not.
@@ -58,6 +62,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	// value from an earlier, wider IC window is still an upper bound.)
 	skip := 1
 	r2Lo, r2Hi := e.clampRange(iR2, start, n-1)
+	r2BlockEnd, r2BlockB := -1, 0.0
 	for r2 := r2Lo; r2 <= r2Hi; r2++ {
 		// every tuple below has this R2: the cache holds one R2
 		// level's at a time (upSeen and floorSeen keep what carries
@@ -76,7 +81,8 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 		pf2 := pfRE + e.partsFloor(r2)
 		if skip > 1 && bd.finite && w.Beta > 0 {
 			last := min(r2+skip-1, n-1)
-			if bLo, uRE, eLo := r2Floors(bd, r2, last, rcLo, rcHi); pfRE+w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
+			uRE, eLo := reFloors(bd)
+			if pfRE+w.Beta*r2Beta(bd, r2, last, rcLo, rcHi)+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				r2 = last
 				skip *= 2
 				continue
@@ -106,14 +112,23 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			lastThr = bd.thr
 		}
 		if bd.finite {
-			// Bounds B, U-RE and E-RE at this R2 (r2Floors), and bound
+			// Bounds B (r2Beta), U-RE and E-RE (reFloors) at this R2, and bound
 			// U-R2 (divider power, see dividerPowerBound). Once the first
 			// three are over the threshold the next R2 levels are tried
 			// in growing blocks.
 			vbHi := vbeHi + bd.icHi*kE*reOhm
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
 			var uRE float64
-			bLo, uRE, eLo = r2Floors(bd, r2, r2, rcLo, rcHi)
+			// Bound B is taken per block of r2Block R2 levels: a floor
+			// over a wider IC window and RC band (an earlier, higher
+			// threshold's) is a floor over this one's builds too, and a
+			// floor per level would cost more than the solves it saves.
+			if r2 > r2BlockEnd {
+				r2BlockEnd = min(r2+r2Block-1, r2Hi)
+				r2BlockB = r2Beta(bd, r2, r2BlockEnd, rcLo, rcHi)
+			}
+			bLo = r2BlockB
+			uRE, eLo = reFloors(bd)
 			if pfRE+w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				skip = 2 // try the next levels in blocks
 				continue
@@ -219,3 +234,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 
 // r1Block is how many R1 levels share one beta floor in searchRE.
 const r1Block = 8
+
+// r2Block is how many R2 levels share one beta floor in searchRE (the
+// floor over the block's R_TH range is a floor at each of its levels).
+const r2Block = 8

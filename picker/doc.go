@@ -252,7 +252,10 @@
 //     corner argument gives when the ambient range holds 25 °C (otherwise
 //     the bound is not used). TestBoundsHoldOnRandomBuilds checks it
 //     against the exact beta term of random builds. It is taken over a
-//     window of R_TH: at one R2, R_TH between rthFloor(R2) and R2; with
+//     window of R_TH: per block of eight R2 levels, R_TH between rthFloor
+//     of the block's first R2 and its last R2 (taken once, at the
+//     threshold of the block's first level: a wider IC window and RC band
+//     only lower it, so it stays a floor at every level of the block); with
 //     the utilization floor of RE (every build carries RE) and the emitter
 //     floor it skips that R2, and once one R2 is skipped the next levels
 //     are tried in blocks that double while they fall (R_TH between
