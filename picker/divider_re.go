@@ -2,6 +2,8 @@ package picker
 
 import (
 	"math"
+
+	"biasbin/solver"
 )
 
 // searchRE covers every build of device di with RE level re.
@@ -164,9 +166,14 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				}
 				t := d.tuple(di, [maxPos]int{i, r2, rcLo, re}, cnt)
 				if t.ok {
-					upSeen[i] = t.op.IC_A
+					// saturated at a smaller R2, saturated here too
+					// (more base drive): never under any current
+					upSeen[i] = math.Inf(1)
+					if t.op.Region != solver.Saturation {
+						upSeen[i] = t.op.IC_A
+					}
 				}
-				return t.ok && t.op.IC_A < icLo
+				return t.icUnder(icLo)
 			}) - 1
 			_, r1Hi = e.clampRange(iR1, 0, r1Hi)
 			// R1 dissipates at least (VCC − vbHi)²/R1, which falls with

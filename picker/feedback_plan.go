@@ -35,8 +35,7 @@ func (f *feedbackPlan) rfWindow(di, rc, re int, icLo, icHi float64, gLo, gHi int
 	n := len(vs.levels)
 	lo = vs.firstIn(0, n-1, gLo, singles, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(icHi) })
 	hi = vs.firstIn(0, n-1, gHi, singles, func(i int) bool {
-		t := f.tuple(di, i, rc, re, cnt)
-		return t.ok && t.op.IC_A < icLo
+		return f.tuple(di, i, rc, re, cnt).icUnder(icLo)
 	}) - 1
 	return f.e.clampRange(fRF, lo, hi)
 }

@@ -184,8 +184,23 @@ func (e *evaluator) betaSpread(t *tuple, cnt *counters) {
 }
 
 // icAtMost reports whether the tuple's nominal IC is at most ic; a tuple
-// that could not be solved counts as "at most" (it never bounds).
-func (t *tuple) icAtMost(ic float64) bool { return !t.ok || t.op.IC_A <= ic }
+// that could not be solved counts as "at most" (it never bounds). A
+// saturated tuple does not: deep in saturation a stiff base drive pulls
+// the emitter, and so the collector, up towards the supply and IC falls
+// as the drive grows, so its IC is not the active-region current that
+// lemmas L1 and F1 order, and a search for the first level at or under a
+// current must pass over it (its nominal point fails the bench limit).
+func (t *tuple) icAtMost(ic float64) bool {
+	return !t.ok || t.op.Region != solver.Saturation && t.op.IC_A <= ic
+}
+
+// icUnder reports whether the tuple was solved, is not saturated and its
+// nominal IC is under ic: the envelope probes' test (L1 orders only
+// active-region currents; a saturated tuple tells nothing of the levels
+// past it, icAtMost says why).
+func (t *tuple) icUnder(ic float64) bool {
+	return t.ok && t.op.Region != solver.Saturation && t.op.IC_A < ic
+}
 
 // vceAtMost reports whether the tuple's nominal VCE is at most v.
 func (t *tuple) vceAtMost(v float64) bool { return !t.ok || t.op.VCE_V <= v }

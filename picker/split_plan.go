@@ -113,8 +113,7 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 		}
 		if bd.finite {
 			rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
-				t := sp.tuple(di, i, rcLo, re, cnt)
-				return t.ok && t.op.IC_A < icLo
+				return sp.tuple(di, i, rcLo, re, cnt).icUnder(icLo)
 			}) - 1
 			rbLo = e.vs.firstIn(0, n-1, 0, singles, func(i int) bool {
 				ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
