@@ -175,6 +175,15 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			ic := a.op.IC_A
 			bd := bounds{icLo: ic * 0.9, icHi: ic * 1.1, finite: true}
 			f := &feedbackPlan{e: e}
+			// F-G: the RF window bracketed on the grid of sums holds the
+			// build's RF level, for windows that just hold its IC
+			f.setGrid()
+			var cnt2 counters
+			for _, w := range [][2]float64{{ic, ic}, {ic * 0.999, ic * 1.001}, {ic * 0.9, ic * 1.1}} {
+				if lo, hi := f.rfWindow(di, r, w[0], w[1], rng.IntN(n), rng.IntN(n), false, &cnt2); lv[fRF] < lo || lv[fRF] > hi {
+					t.Errorf("%v: RF level %d outside the F-G window [%d, %d] for IC %g in [%g, %g]", a.r, lv[fRF], lo, hi, ic, w[0], w[1])
+				}
+			}
 			if fl := f.betaFloorRC(dv, bd, r); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-B floor %g over the beta term %g", a.r, fl, math.Abs(a.beta))
 			}

@@ -316,8 +316,16 @@
 //     bound B over R_TH from there up bounds the beta term of every build
 //     at (RC, RE). With RE's utilization and emitter floors it skips an RC
 //     and narrows the IC window.
-//   - RF window: by F1 the RF levels with IC in the window are found by two
-//     searches; bound B over the window narrows it again.
+//   - F-G, the RF window: by F1 the RF levels with IC in the window are
+//     found by two searches, run not at the build's own sum r = RC + RE
+//     but at its two neighbours on a grid of sums (gridPoints points per
+//     mean level spacing, at most 0.5 % apart): IC falls as r rises (L1
+//     with RE' = r) and depends on RC and RE only through r, so with
+//     R(g) ≤ r < R(g+1) an RF level whose IC at R(g+1) is over the window,
+//     or whose IC at R(g) is under it, is out. Every (RC, RE) pair whose
+//     sum falls in one grid cell shares that cell's solves, and the
+//     window so found holds the exact one and is about a level wider at
+//     most. Bound B over the window narrows it again.
 //   - F-RF: RF is at most the largest level, so by F1 every build at (RC,
 //     RE) has IC at least IC at the largest RF, which falls as RC + RE
 //     rises (L1 in the divider picture, RE' = RC + RE). Over a block of RC

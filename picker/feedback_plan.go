@@ -18,6 +18,10 @@ type feedbackPlan struct {
 	e     *evaluator
 	cache tupleCache
 	seeds seedOrder
+	// grid holds the solved IC of the device being searched at (grid
+	// point of RC + RE, RF level) (rfWindow); lnStep is the grid's step
+	grid   map[[2]int]float64
+	lnStep float64
 }
 
 // tuple returns the (cached) solved level tuple of device di.
@@ -25,19 +29,94 @@ func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
 	return f.cache.get(f.e, di, [maxPos]int{rf, rc, re}, cnt)
 }
 
-// rfWindow returns the RF levels whose builds at (RC, RE) can have a
-// nominal IC in [icLo, icHi]: IC falls as RF rises (lemma F1), so the
-// window is found by two searches, from the guesses given. A tuple that
-// cannot be solved never narrows the window. With singles (no room for a
-// pair in RF, bound P) only the levels holding a single are probed.
-func (f *feedbackPlan) rfWindow(di, rc, re int, icLo, icHi float64, gLo, gHi int, singles bool, cnt *counters) (lo, hi int) {
+// rfWindow returns the RF levels whose builds with RC + RE = r can have a
+// nominal IC in [icLo, icHi] (bound F-G): IC falls as RF rises (lemma F1)
+// and as RC + RE rises (L1 in the divider picture, RE' = RC + RE), and
+// depends on RC and RE only through their sum (both carry IE). So with
+// R(g) ≤ r < R(g+1) two neighbouring points of a grid of sums, IC lies
+// between its values at R(g+1) and R(g): the RF levels whose IC at R(g+1)
+// is over icHi, and those whose IC at R(g) is under icLo, are out. The
+// two searches run on the grid (gridIC), so the (RC, RE) pairs whose sums
+// share a grid cell share its solves. A grid point that cannot be solved
+// never narrows the window, and a relative slack of gridSlack covers the
+// solver's tolerance. With singles (no room for a pair in RF, bound P)
+// only the levels holding a single are probed.
+func (f *feedbackPlan) rfWindow(di int, r, icLo, icHi float64, gLo, gHi int, singles bool, cnt *counters) (lo, hi int) {
 	vs := f.e.vs
 	n := len(vs.levels)
-	lo = vs.firstIn(0, n-1, gLo, singles, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(icHi) })
+	g := f.gridIndex(r)
+	lo = vs.firstIn(0, n-1, gLo, singles, func(i int) bool {
+		v := f.gridIC(di, g+1, i, cnt)
+		return math.IsNaN(v) || v <= icHi*(1+gridSlack)
+	})
 	hi = vs.firstIn(0, n-1, gHi, singles, func(i int) bool {
-		return f.tuple(di, i, rc, re, cnt).icUnder(icLo)
+		v := f.gridIC(di, g, i, cnt)
+		return !math.IsNaN(v) && v < icLo*(1-gridSlack)
 	}) - 1
 	return f.e.clampRange(fRF, lo, hi)
+}
+
+// gridSlack is the relative margin of rfWindow's comparisons: the
+// self-heated solve balances the junction to 1e-6 K, which moves IC by
+// far less.
+const gridSlack = 1e-7
+
+// gridPoints is how many grid points of RC + RE sums rfWindow puts
+// between two neighbouring resistance levels (on average over the
+// stock's range), at most one per 0.5 %: the window it brackets is then
+// at most about one level wider than the exact one on each side.
+const gridPoints = 4
+
+// setGrid sets the grid's step from the stock's levels (gridPoints per
+// mean level spacing, at most 0.5 %) and empties the grid's solves.
+func (f *feedbackPlan) setGrid() {
+	lv := f.e.vs.levels
+	step := 0.005
+	if n := len(lv); n > 1 {
+		step = math.Min(step, math.Log(lv[n-1].ohm/lv[0].ohm)/float64(n-1)/gridPoints)
+	}
+	f.lnStep = math.Log1p(step)
+	if f.grid == nil {
+		f.grid = map[[2]int]float64{}
+	}
+	clear(f.grid)
+}
+
+// gridOhm is the grid's point g: e^(g·lnStep) Ω.
+func (f *feedbackPlan) gridOhm(g int) float64 { return math.Exp(float64(g) * f.lnStep) }
+
+// gridIndex is the grid point g with R(g) ≤ r < R(g+1).
+func (f *feedbackPlan) gridIndex(r float64) int {
+	g := int(math.Floor(math.Log(r) / f.lnStep))
+	for f.gridOhm(g) > r {
+		g--
+	}
+	for f.gridOhm(g+1) <= r {
+		g++
+	}
+	return g
+}
+
+// gridIC is the nominal IC of device di with RF at level rf and RC + RE
+// at the grid's point g (split evenly: only the sum counts), NaN when it
+// cannot be solved; solved once per device.
+func (f *feedbackPlan) gridIC(di, g, rf int, cnt *counters) float64 {
+	key := [2]int{g, rf}
+	if v, ok := f.grid[key]; ok {
+		return v
+	}
+	e := f.e
+	sum := f.gridOhm(g)
+	var r [maxPos]float64
+	r[fRF], r[fRC], r[fRE] = e.vs.levels[rf].ohm, sum/2, sum/2
+	d := &e.devs[di]
+	cnt.solves++
+	v := math.NaN()
+	if op, err := e.solveAt(d, d.typ, r); err == nil {
+		v = op.IC_A
+	}
+	f.grid[key] = v
+	return v
 }
 
 // seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2
@@ -95,6 +174,7 @@ func (f *feedbackPlan) search(p *pool, cnt *counters) {
 // search has its own plan, so its own tuple cache).
 func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 	e := f.e
+	f.setGrid()
 	n := len(e.vs.levels)
 	w := e.s.w
 	e.walkRE(p, &f.seeds, di, func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds) {
@@ -170,7 +250,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				}
 				fl = base
 			}
-			lo, hi := f.rfWindow(di, rc, re, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
+			lo, hi := f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
 			gLo, gHi = lo, hi+1
 			if lo > hi {
 				continue
@@ -192,7 +272,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 					if !ok {
 						continue
 					}
-					lo, hi = f.rfWindow(di, rc, re, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
+					lo, hi = f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
 				}
 			}
 			for rf := lo; rf <= hi; rf++ {
