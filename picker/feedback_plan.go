@@ -201,10 +201,12 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				uRE := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc))
 				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
 				_, rfTop := e.levelRange(fRF)
-				top := f.tuple(di, rfTop, last, re, cnt)
+				// IC at the largest RF and the grid point above the
+				// block's largest sum is at most IC at the largest RF
+				// and that sum (F-G): a floor shared by every RE
 				xLo := 0.0
-				if top.ok {
-					xLo = top.op.IC_A
+				if v := f.gridIC(di, f.gridIndex(e.vs.levels[last].ohm+reOhm)+1, rfTop, cnt); !math.IsNaN(v) {
+					xLo = v
 				}
 				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
 				if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
@@ -234,10 +236,15 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				}
 				base += pf - pfRE
 				r := e.vs.levels[rc].ohm + reOhm
+				// F-Q first (cheap), then with F-B
+				qFloor := w.QPoint * e.feedbackQFloor(r, kE, vceLo, vceHi)
+				if base+qFloor > bd.thr {
+					continue
+				}
 				if w.Beta > 0 {
 					base += w.Beta * f.betaFloorRC(dv, bd, r)
 				}
-				if base+w.QPoint*e.feedbackQFloor(r, kE, vceLo, vceHi) > bd.thr {
+				if base+qFloor > bd.thr {
 					continue
 				}
 				if w.QPoint > 0 {
@@ -381,14 +388,15 @@ func (e *evaluator) feedbackICWindow(r, kE, vceLo, vceHi, d, icLo, icHi float64)
 }
 
 // edgeOver returns, for a predicate over that holds at out and not at in
-// and changes once between them, a point where it still holds within 2⁻⁵⁰
-// of the change (out itself when over(out) is false): bisection that
-// keeps the side where over holds.
+// and changes once between them, a point where it still holds within
+// 2⁻²⁴ of |out − in| of the change (out itself when over(out) is false):
+// bisection that keeps the side where over holds. (The window it bounds
+// is then wider than the exact one by far less than a level's step.)
 func edgeOver(out, in float64, over func(float64) bool) float64 {
 	if !over(out) {
 		return out
 	}
-	for range 50 {
+	for range 24 {
 		m := (out + in) / 2
 		if over(m) {
 			out = m
