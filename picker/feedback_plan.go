@@ -234,7 +234,10 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				if base > bd.thr {
 					break // none of these floors falls as RC rises
 				}
-				base += pf - pfRE
+				// U-RC with this level's own best allowance (not
+				// monotone in RC, so it only skips this RC)
+				uOwn := math.Max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
+				base = pf + w.Utilization*uOwn + w.Emitter*eLo
 				r := e.vs.levels[rc].ohm + reOhm
 				// F-Q first (cheap), then with F-B
 				qFloor := w.QPoint * e.feedbackQFloor(r, kE, vceLo, vceHi)
@@ -268,7 +271,8 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				// left of the threshold narrows the window again.
 				bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
 					RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
-				base := pf + w.Utilization*math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)) + w.Beta*bLo
+				base := pf + w.Utilization*math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
+					bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W) + w.Beta*bLo
 				if base > bd.thr {
 					continue
 				}
