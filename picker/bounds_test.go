@@ -169,7 +169,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			// F-QW: the IC window of the builds whose QPoint term is at
 			// most this one's holds this build's IC
 			it := e.s.icT
-			if lo, hi, ok := e.feedbackICWindow(r, kE, vceLo, vceHi, a.q, it*math.Max(0, 1-a.q), it*(1+a.q)); !ok || a.op.IC_A < lo || a.op.IC_A > hi {
+			if lo, hi, ok := e.feedbackICWindow(r, 0, kE, vceLo, vceHi, a.q, it*math.Max(0, 1-a.q), it*(1+a.q)); !ok || a.op.IC_A < lo || a.op.IC_A > hi {
 				t.Errorf("%v: IC %g outside the F-QW window [%g, %g] (ok %v) at QPoint term %g", a.r, a.op.IC_A, lo, hi, ok, a.q)
 			}
 			ic := a.op.IC_A

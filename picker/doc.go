@@ -326,6 +326,9 @@
 //     sum falls in one grid cell shares that cell's solves, and the
 //     window so found holds the exact one and is about a level wider at
 //     most. Bound B over the window narrows it again.
+//   - F-RF per pair: every build at (RC, RE) has IC at least IC at the
+//     largest RF and the grid point above RC + RE (F1, F-G), so F-Q and
+//     F-QW are taken over currents from there up.
 //   - F-RF: RF is at most the largest level, so by F1 every build at (RC,
 //     RE) has IC at least IC at the largest RF, which falls as RC + RE
 //     rises (L1 in the divider picture, RE' = RC + RE). Over a block of RC

@@ -239,8 +239,15 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				uOwn := math.Max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
 				base = pf + w.Utilization*uOwn + w.Emitter*eLo
 				r := e.vs.levels[rc].ohm + reOhm
-				// F-Q first (cheap), then with F-B
-				qFloor := w.QPoint * e.feedbackQFloor(r, kE, vceLo, vceHi)
+				// Every build here has IC at least xLo, IC at the
+				// largest RF and the grid point above r (F1, F-G):
+				// F-Q over x ≥ xLo first (cheap), then with F-B.
+				xLo := 0.0
+				_, rfTop := e.levelRange(fRF)
+				if v := f.gridIC(di, f.gridIndex(r)+1, rfTop, cnt); !math.IsNaN(v) {
+					xLo = v * (1 - gridSlack)
+				}
+				qFloor := w.QPoint * e.feedbackQFloorBlock(r, r, xLo, kE, vceLo, vceHi)
 				if base+qFloor > bd.thr {
 					continue
 				}
@@ -253,7 +260,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
 					var ok bool
-					icLo, icHi, ok = e.feedbackICWindow(r, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
+					icLo, icHi, ok = e.feedbackICWindow(r, xLo, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
 					if !ok {
 						continue
 					}
@@ -279,7 +286,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				fl = math.Max(fl, base)
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
-					wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
+					wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, 0, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
 					if !ok {
 						continue
 					}
@@ -374,21 +381,21 @@ func (e *evaluator) feedbackQLeast(rLo, rHi, xLo, kE, vceLo, vceHi float64) (q, 
 }
 
 // feedbackICWindow narrows the IC window of the builds with RC + RE = r
-// whose QPoint term can be at most d (bound F-QW): F-Q's floor at a
-// current x is convex in x, so the currents where it is at most d form an
-// interval around its least point, found by bisection on each side. It
-// returns [icLo, icHi] ∩ that interval, widened by the bisection's last
-// step (every current outside has a floor over d), and ok false when the
-// interval is empty.
-func (e *evaluator) feedbackICWindow(r, kE, vceLo, vceHi, d, icLo, icHi float64) (lo, hi float64, ok bool) {
-	q, x0 := e.feedbackQLeast(r, r, 0, kE, vceLo, vceHi)
+// and IC at least xLo (0: no such bound) whose QPoint term can be at most
+// d (bound F-QW): F-Q's floor at a current x ≥ xLo is convex in x, so the
+// currents where it is at most d form an interval around its least
+// point, found by bisection on each side. It returns [icLo, icHi] ∩ that
+// interval, widened by the bisection's last step (every current outside
+// has a floor over d), and ok false when the interval is empty.
+func (e *evaluator) feedbackICWindow(r, xLo, kE, vceLo, vceHi, d, icLo, icHi float64) (lo, hi float64, ok bool) {
+	q, x0 := e.feedbackQLeast(r, r, xLo, kE, vceLo, vceHi)
 	if q*(1-1e-12) > d {
 		return 0, 0, false
 	}
-	over := func(x float64) bool { return e.feedbackQAt(x, r, r, 0, kE, vceLo, vceHi)*(1-1e-12) > d }
-	lo = edgeOver(icLo, x0, over)
+	over := func(x float64) bool { return e.feedbackQAt(x, r, r, xLo, kE, vceLo, vceHi)*(1-1e-12) > d }
+	lo = math.Max(edgeOver(icLo, x0, over), xLo)
 	hi = edgeOver(icHi, x0, over)
-	return math.Max(lo, icLo), math.Min(hi, icHi), lo <= hi
+	return math.Max(lo, icLo), math.Min(hi, icHi), math.Max(lo, icLo) <= math.Min(hi, icHi)
 }
 
 // edgeOver returns, for a predicate over that holds at out and not at in
