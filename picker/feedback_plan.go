@@ -67,6 +67,9 @@ const gridSlack = 1e-7
 // at most about one level wider than the exact one on each side.
 const gridPoints = 4
 
+// gridMax bounds the grid's solves kept at once (about 40 bytes each).
+const gridMax = 1 << 18
+
 // setGrid sets the grid's step from the stock's levels (gridPoints per
 // mean level spacing, at most 0.5 %) and empties the grid's solves.
 func (f *feedbackPlan) setGrid() {
@@ -104,6 +107,9 @@ func (f *feedbackPlan) gridIC(di, g, rf int, cnt *counters) float64 {
 	key := [2]int{g, rf}
 	if v, ok := f.grid[key]; ok {
 		return v
+	}
+	if len(f.grid) >= gridMax {
+		clear(f.grid) // a memo of a deterministic solve: only the work changes
 	}
 	e := f.e
 	sum := f.gridOhm(g)
@@ -178,7 +184,6 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 	n := len(e.vs.levels)
 	w := e.s.w
 	e.walkRE(p, &f.seeds, di, func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds) {
-		f.cache.reset()
 		reOhm := e.vs.levels[re].ohm
 		pfRE := e.partsFloor(re) // bound P
 		// Bound RC (kRC = kE: RC carries IE = IC + IB).
@@ -189,6 +194,9 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 		// fall and drops to 1 when one does not.
 		skip := 1
 		for rc := rcLo; rc <= rcHi; rc++ {
+			// every tuple below has this RC and RE: the cache holds one
+			// RC level's at a time (the RF window reads the grid)
+			f.cache.reset()
 			bd := e.boundsNow(p)
 			if e.vs.levels[rc].pairOnly && e.singlesOnly(pfRE, bd.thr) {
 				rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
