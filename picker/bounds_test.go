@@ -163,7 +163,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			vceLo, vceHi := e.targetBand(dv)
 			kE := 1 + 1/dv.betaNomMin
 			r := a.r[fRC] + a.r[fRE]
-			if f := e.feedbackQFloor(r, kE, vceLo, vceHi); f > a.q*(1+1e-9) {
+			if f := e.feedbackQFloorBlock(r, r, 0, kE, vceLo, vceHi); f > a.q*(1+1e-9) {
 				t.Errorf("%v: QPoint floor %g over the term %g", a.r, f, a.q)
 			}
 			// F-QW: the IC window of the builds whose QPoint term is at

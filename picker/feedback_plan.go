@@ -214,7 +214,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				// and that sum (F-G): a floor shared by every RE
 				xLo := 0.0
 				if v := f.gridIC(di, f.gridIndex(e.vs.levels[last].ohm+reOhm)+1, rfTop, cnt); !math.IsNaN(v) {
-					xLo = v
+					xLo = v * (1 - gridSlack)
 				}
 				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
 				if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
@@ -336,25 +336,15 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 		ICLo: bd.icLo, ICHi: bd.icHi})
 }
 
-// feedbackQFloor is a lower bound on the QPoint term of every
-// collector-feedback build with RC + RE = r (bound F-Q): its VCE is
-// VCC − IE·r with IE between IC and kE·IC, so at a current x its VCE lies
-// in [VCC − kE·x·r, VCC − x·r], and the term is at least |x − IC_t|/IC_t
-// plus that interval's distance from the target band [vceLo, vceHi] over
-// the span. That sum is convex in x (a sum of maxima of linear
-// functions), so its least value is at a breakpoint: x = IC_t, or where an
-// end of the interval meets an end of the band.
-func (e *evaluator) feedbackQFloor(r, kE, vceLo, vceHi float64) float64 {
-	return e.feedbackQFloorBlock(r, r, 0, kE, vceLo, vceHi)
-}
-
-// feedbackQFloorBlock is bound F-Q over every build with RC + RE in
-// [rLo, rHi] and nominal IC at least xLo (bound F-RF): at a current x
-// such a build's VCE lies in [VCC − kE·x·rHi, VCC − x·rLo], and the term
-// is at least |x − IC_t|/IC_t plus that interval's distance from the
-// target band over the span, convex in x, so its least value over
-// x ≥ xLo is at xLo or at a breakpoint above it: IC_t, where an end of
-// the interval meets an end of the band, or where the two ends are
+// feedbackQFloorBlock is bound F-Q: a lower bound on the QPoint term of
+// every collector-feedback build with RC + RE in [rLo, rHi] and nominal IC
+// at least xLo (0: no such bound; bound F-RF). VCE is VCC − IE·(RC + RE)
+// with IE between IC and kE·IC, so at a current x such a build's VCE lies
+// in [VCC − kE·x·rHi, VCC − x·rLo], and the term is at least
+// |x − IC_t|/IC_t plus that interval's distance from the target band over
+// the span: a sum of maxima of linear functions, convex in x, so its least
+// value over x ≥ xLo is at xLo or at a breakpoint above it: IC_t, where an
+// end of the interval meets an end of the band, or where the two ends are
 // equally far outside it.
 func (e *evaluator) feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi float64) float64 {
 	q, _ := e.feedbackQLeast(rLo, rHi, xLo, kE, vceLo, vceHi)
