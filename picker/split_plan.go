@@ -59,6 +59,9 @@ func (sp *splitPlan) seed(p *pool, cnt *counters) {
 	}
 }
 
+// rbBlock is how many RB levels share one beta floor in searchDevice.
+const rbBlock = 8
+
 // search is the branch and bound over (device, RE, RB, RC).
 func (sp *splitPlan) search(p *pool, cnt *counters) {
 	searchByDevice(sp.e, &sp.seeds, cnt, func() *splitPlan { return &splitPlan{e: sp.e, seeds: sp.seeds, splitGuess: sp.splitGuess} },
@@ -121,30 +124,35 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 			})
 		}
 		rbLo, rbHi = e.clampRange(sRB, rbLo, rbHi)
+		// bRB is bound B over the block of RB levels up to blockEnd
+		blockEnd, bRB := -1, 0.0
 		for rb := rbLo; rb <= rbHi; rb++ {
 			if bd.finite && e.vs.levels[rb].pairOnly && e.singlesOnly(base, p.threshold()) {
 				rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
 				continue
 			}
-			if bd := e.boundsNow(p); bd.finite && w.Beta > 0 {
-				// Bound B over RB (R_TH = RB, baseLoop): the beta
-				// term of every build at this RB level is at least
-				// the floor over it; when that settles the level,
-				// the floor over the level and every one above it
-				// may settle them all.
-				bw := betaWindow{RTH: e.vs.levels[rb].ohm, RTHMax: e.vs.levels[rb].ohm, RE: reOhm,
+			if bd := e.boundsNow(p); bd.finite && w.Beta > 0 && rb > blockEnd {
+				// Bound B over RB (R_TH = RB, baseLoop), per block of
+				// rbBlock levels: the beta term of every build in the
+				// block is at least the floor over it (taken at the
+				// block's first threshold: a wider window only lowers
+				// it); when that settles the block, the floor over the
+				// block and every level above it may settle them all.
+				blockEnd = min(rb+rbBlock-1, rbHi)
+				bw := betaWindow{RTH: e.vs.levels[rb].ohm, RTHMax: e.vs.levels[blockEnd].ohm, RE: reOhm,
 					RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
-				if base+e.partsFloor(rb)+w.Beta*e.betaFloor(dv, bw) > bd.thr {
+				if bRB = e.betaFloor(dv, bw); base+w.Beta*bRB > bd.thr {
 					if bw.RTHMax = e.vs.levels[rbHi].ohm; base+w.Beta*e.betaFloor(dv, bw) > bd.thr {
 						break
 					}
+					rb = blockEnd
 					continue
 				}
 			}
 			// tuples of one RB level serve only its RC scan: the
 			// cache starts again, so it holds one level's at a time
 			sp.cache.reset()
-			e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb))
+			e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb)+w.Beta*bRB)
 		}
 	})
 }
