@@ -353,10 +353,12 @@
 // of the supply is set by VEE, not by the parts). RB's range comes from
 // the envelopes as R1's does for the divider: IC at the band's bottom RC
 // falls with RB, and IC at the band's largest active RC bounds the active
-// builds from below. Bound B over RB: bound B with R_TH over one RB level
-// bounds the beta term of every build at it, so with the parts floor it
-// settles the level; when it does, bound B with R_TH from that level to
-// the largest may settle every level above it too. (RB enters IC only
+// builds from below. Bound B over RB: bound B with R_TH over a block of
+// eight RB levels bounds the beta term of every build in it (taken at the
+// block's first threshold), so it settles the block or joins the floor
+// each level's RC scan starts from; when it settles the block, bound B
+// with R_TH from there to the largest level may settle every level above
+// it too. (RB enters IC only
 // through IB·RB, so stiff RB levels tie on the Q-point; the beta term is
 // what separates them.)
 //
