@@ -140,6 +140,9 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 			if i >= total {
 				return
 			}
+			if e.stopped() {
+				return
+			}
 			it := items[i]
 			if i%64 == 0 {
 				progressMu.Lock()

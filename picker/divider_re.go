@@ -66,6 +66,9 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	r2Lo, r2Hi := e.clampRange(iR2, start, n-1)
 	r2BlockEnd, r2BlockB := -1, 0.0
 	for r2 := r2Lo; r2 <= r2Hi; r2++ {
+		if e.stopped() {
+			return
+		}
 		// every tuple below has this R2: the cache holds one R2
 		// level's at a time (upSeen and floorSeen keep what carries
 		// over)

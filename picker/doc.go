@@ -110,6 +110,12 @@
 //
 // # Search
 //
+// Request.TimeLimit bounds the search's time: the plans' loops stop once
+// it has run out (evaluator.stopped), the builds found by then are ranked
+// as usual (each still evaluated exactly, yield and all), and
+// Result.Ranking.Stopped says that they are the best found, not proven
+// the best of the stock.
+//
 // The search works on resistance levels (distinct values, ascending; the
 // values of one level share one nominal point) and level tuples, one
 // level per position. Request.Exhaustive solves the nominal point of

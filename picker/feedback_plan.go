@@ -194,6 +194,9 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 		// fall and drops to 1 when one does not.
 		skip := 1
 		for rc := rcLo; rc <= rcHi; rc++ {
+			if e.stopped() {
+				return
+			}
 			// every tuple below has this RC and RE: the cache holds one
 			// RC level's at a time (the RF window reads the grid)
 			f.cache.reset()

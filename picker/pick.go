@@ -8,6 +8,8 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"sync/atomic"
+	"time"
 
 	"biasbin/solver"
 )
@@ -25,6 +27,11 @@ func Pick(stock Stock, req Request) (Result, error) {
 	}
 	if err := s.checkStock(stock); err != nil {
 		return Result{}, err
+	}
+	s.stop, s.hit = &atomic.Bool{}, &atomic.Bool{}
+	if req.TimeLimit > 0 {
+		t := time.AfterFunc(req.TimeLimit, func() { s.stop.Store(true) })
+		defer t.Stop()
 	}
 	var res Result
 	var rejected []Rejection
@@ -57,7 +64,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 	res.Ranking.Proven = true
 	for _, r := range runs {
 		for !r.settled(runs) {
-			if r.rounds > settleRounds && !s.req.Settle {
+			if r.rounds > settleRounds && !s.req.Settle || r.e.stopped() {
 				res.Ranking.Proven = false
 				break
 			}
@@ -121,10 +128,17 @@ func Pick(stock Stock, req Request) (Result, error) {
 	if !slices.ContainsFunc(res.Candidates, e.fits) {
 		res.Shortfall = e.shortfall(rejected, res.Candidates)
 		if len(req.RequireTags) > 0 {
-			if err := approvedOnly(res.Shortfall, stock, req, s.boards); err != nil {
+			stopped, err := approvedOnly(res.Shortfall, stock, req, s.boards)
+			if err != nil {
 				return Result{}, err
 			}
+			if stopped {
+				s.hit.Store(true)
+			}
 		}
+	}
+	if s.hit.Load() {
+		res.Ranking.Stopped, res.Ranking.Proven, res.Ranking.TimeLimit = true, false, req.TimeLimit
 	}
 	return res, nil
 }

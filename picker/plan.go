@@ -23,6 +23,16 @@ type plan interface {
 	search(p *pool, cnt *counters)
 }
 
+// stopped reports whether Request.TimeLimit has run out; a search that
+// sees it leaves its work and notes that it did (Result.Ranking.Stopped).
+func (e *evaluator) stopped() bool {
+	if e.s.stop == nil || !e.s.stop.Load() {
+		return false
+	}
+	e.s.hit.Store(true)
+	return true
+}
+
 // planFor returns the search plan of the evaluator's topology.
 func planFor(e *evaluator) plan {
 	switch e.lay.topo {
@@ -116,6 +126,9 @@ func (e *evaluator) exhaustive(p *pool, cnt *counters) {
 	total := int64(len(e.devs) * n)
 	for di := range e.devs {
 		for first := lo[0]; first <= hi[0]; first++ {
+			if e.stopped() {
+				return
+			}
 			e.progress(int64(di*n+first), total)
 			// the first position is fixed; the others run an odometer
 			lv := lo
@@ -362,6 +375,9 @@ func (e *evaluator) eachRE(p *pool, start int, kE, vceLo float64, visit func(re 
 	lo, hi := e.levelRange(e.lay.re)
 	start = max(lo, min(start, hi))
 	for re := start; re <= hi; re++ {
+		if e.stopped() {
+			return
+		}
 		bd := e.boundsNow(p)
 		stop, skip := e.reCuts(bd, re, kE, vceLo)
 		if stop {
@@ -372,6 +388,9 @@ func (e *evaluator) eachRE(p *pool, start int, kE, vceLo float64, visit func(re 
 		}
 	}
 	for re := start - 1; re >= lo; re-- {
+		if e.stopped() {
+			return
+		}
 		bd := e.boundsNow(p)
 		if _, skip := e.reCuts(bd, re, kE, vceLo); !skip {
 			visit(re, bd)

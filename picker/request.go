@@ -1,6 +1,9 @@
 package picker
 
 import (
+	"sync/atomic"
+	"time"
+
 	"fmt"
 	"math"
 	"slices"
@@ -26,6 +29,11 @@ const (
 	// DefaultVCEWindow is the yield window's VCE band around the build's
 	// VCE target (±20 %) when Request.Window is zero.
 	DefaultVCEWindow = 0.20
+	// DefaultTimeLimit is the search time limit a front end offers by
+	// default (Request.TimeLimit; the zero Request has none): long enough
+	// for every stock the benchmarks hold but the slowest cases, short
+	// enough that a technician is never left waiting for minutes.
+	DefaultTimeLimit = 30 * time.Second
 	// DefaultYieldBoards is the Monte Carlo size per finalist when
 	// Request.YieldBoards is 0.
 	DefaultYieldBoards = 400
@@ -98,6 +106,9 @@ type settings struct {
 	lim         solver.Limits // with defaults filled
 	bypass      bool
 	rl          float64
+	// stop is set when Request.TimeLimit has run out; hit once a search
+	// has seen it and left work undone (evaluator.stopped)
+	stop, hit *atomic.Bool
 }
 
 // SettledRail is the rail req's single-supply builds are built on
@@ -244,6 +255,9 @@ func normalize(req Request) (settings, error) {
 	}
 	if err := TopRange.Check(float64(s.top)); err != nil {
 		return s, err
+	}
+	if req.TimeLimit < 0 {
+		return s, inputErr("time-limit", "give a positive duration, or 0 to search to the end", "%v", req.TimeLimit)
 	}
 	s.pool = req.Finalists
 	if s.pool < 0 {

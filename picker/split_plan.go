@@ -127,6 +127,9 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 		// bRB is bound B over the block of RB levels up to blockEnd
 		blockEnd, bRB := -1, 0.0
 		for rb := rbLo; rb <= rbHi; rb++ {
+			if e.stopped() {
+				return
+			}
 			if bd.finite && e.vs.levels[rb].pairOnly && e.singlesOnly(base, p.threshold()) {
 				rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
 				continue

@@ -13,8 +13,9 @@ import "slices"
 // filled up (a resistor line to two parts per board, so that one value may
 // fill two positions; a transistor line to one per board) and, when a
 // build then fits, offers the parts that build lacks as top-ups of those
-// lines. When none does it says that nothing on the approved list would do.
-func approvedOnly(sf *Shortfall, stock Stock, req Request, boards int) error {
+// lines. When none does it says that nothing on the approved list would do,
+// unless that search stopped at the request's time limit (stopped).
+func approvedOnly(sf *Shortfall, stock Stock, req Request, boards int) (stopped bool, err error) {
 	sf.Unapproved, sf.Purchases = sf.Purchases, nil
 	filled, short := fillApproved(stock, req.RequireTags, boards)
 	if len(short) > 0 {
@@ -22,16 +23,18 @@ func approvedOnly(sf *Shortfall, stock Stock, req Request, boards int) error {
 		r.Top, r.Finalists, r.Progress, r.ShowFailing = 1, 0, nil, false
 		res, err := Pick(filled, r)
 		if err != nil {
-			return err
+			return false, err
 		}
 		if len(res.Candidates) > 0 && res.Shortfall == nil {
 			sf.Purchases = topUps(res.Candidates[0], short, boards)
 		}
+		stopped = res.Ranking.Stopped
 	}
-	if len(sf.Purchases) == 0 {
+	if len(sf.Purchases) == 0 && !stopped {
+		// (a search stopped at its time limit proves nothing missing)
 		sf.Reasons = append(sf.Reasons, Reason{Kind: NoApprovedPurchase, Tags: req.RequireTags, Boards: boards})
 	}
-	return nil
+	return stopped, nil
 }
 
 // fillApproved returns a copy of stock whose approved lines short for a

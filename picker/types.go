@@ -1,6 +1,10 @@
 package picker
 
-import "biasbin/solver"
+import (
+	"time"
+
+	"biasbin/solver"
+)
 
 // Resistor is one stocked resistor line as the picker sees it.
 type Resistor struct {
@@ -97,7 +101,11 @@ type Request struct {
 	// Settle searches on until the order of the first Top builds is
 	// proven, however many rounds it takes (Result.Ranking); without it
 	// the search stops after settleRounds further rounds.
-	Settle      bool
+	Settle bool
+	// TimeLimit stops the search once it has run this long (0: none): the
+	// builds found by then are ranked as usual, and Result.Ranking says
+	// the search stopped, so they are not proven the best of the stock.
+	TimeLimit   time.Duration
 	ShowFailing bool // also list builds that fail a hard limit, with the reason
 	// ShowAll lists near-duplicate builds each in its own place; without
 	// it only the best of each group of near-duplicates is listed, with
@@ -235,6 +243,12 @@ type Ranking struct {
 	Ranked int
 	// Rounds counts the searches run (1 when the first settled it).
 	Rounds int
+	// Stopped: the search stopped at Request.TimeLimit (kept here as
+	// TimeLimit) before it had covered the stock, so the listed builds are
+	// the best it found, not proven the best of the stock (Proven is
+	// false).
+	Stopped   bool
+	TimeLimit time.Duration
 }
 
 // Rival is the best build of one topology set against the first

@@ -55,6 +55,7 @@ type jsonRequest struct {
 	Top          int      `json:"top"`
 	Exhaustive   bool     `json:"exhaustive"`
 	Settle       bool     `json:"settle"`
+	TimeLimit_S  float64  `json:"time_limit_s"` // 0 = none
 	Seed         uint64   `json:"seed"`
 	// Keep are the resistors kept on the board, with the figures used
 	// (defaults filled in) and which of them were assumed.
@@ -294,6 +295,7 @@ func jsonRequestOf(r picker.Request) jsonRequest {
 		Top:          r.Top,
 		Exhaustive:   r.Exhaustive,
 		Settle:       r.Settle,
+		TimeLimit_S:  r.TimeLimit.Seconds(),
 		Seed:         r.Seed,
 	}
 }
@@ -402,12 +404,15 @@ func nonNil[T any](s []T) []T {
 // proven (no build of the stock left out or listed lower can rank above
 // a listed one), with what the proof took.
 type jsonRanking struct {
-	Proven bool   `json:"proven"`
-	Ranked int    `json:"ranked"`
-	Rounds int    `json:"rounds"`
-	Note   string `json:"note"`
+	Proven bool `json:"proven"`
+	Ranked int  `json:"ranked"`
+	Rounds int  `json:"rounds"`
+	// Stopped: the search stopped at the request's time limit, so the
+	// builds are the best it found, not proven the best of the stock.
+	Stopped bool   `json:"stopped"`
+	Note    string `json:"note"`
 }
 
 func jsonRankingOf(r picker.Ranking) jsonRanking {
-	return jsonRanking{Proven: r.Proven, Ranked: r.Ranked, Rounds: r.Rounds, Note: report.RankingNote(r)}
+	return jsonRanking{Proven: r.Proven, Ranked: r.Ranked, Rounds: r.Rounds, Stopped: r.Stopped, Note: report.RankingNote(r)}
 }

@@ -50,7 +50,9 @@ type Options struct {
 	Top        int
 	Exhaustive bool
 	// Settle searches on until the order of the listed builds is proven.
-	Settle      bool
+	Settle bool
+	// TimeLimit stops the search after this long (0: none).
+	TimeLimit   time.Duration
 	ShowFailing bool
 	All         bool
 	// AllowUnrated lets transistor lines that state no VCEO or power

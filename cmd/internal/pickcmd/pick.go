@@ -156,6 +156,7 @@ can take their parts out of stock later.
 	fl.IntVar(&o.Top, "top", defaultTop, "how many builds to show")
 	fl.BoolVar(&o.Exhaustive, "exhaustive", false, "evaluate every combination instead of the pruned search")
 	fl.BoolVar(&o.Settle, "settle", false, "search on until the order of the listed builds is proven (see 'order' in the output; slow when yields are low)")
+	fl.DurationVar(&o.TimeLimit, "time-limit", picker.DefaultTimeLimit, "stop searching after this long and list the best builds found, saying so (0: search to the end)")
 	fl.BoolVar(&o.ShowFailing, "show-failing", false, "also show builds that break a hard limit, with the reason")
 	fl.BoolVar(&o.All, "all", false, "list near-duplicate builds (the same values with another tolerance grade, rating or drawer) each in its own place instead of folding them into the best one")
 	fl.BoolVar(&o.AllowUnrated, "allow-unrated", false, "also use transistors that state no VCEO or power rating (each such build says what is unknown)")

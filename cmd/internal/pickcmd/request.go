@@ -127,6 +127,10 @@ func (o *Options) request() (picker.Request, error) {
 	req.Pairs = o.Pairs
 	req.Exhaustive = o.Exhaustive
 	req.Settle = o.Settle
+	if o.TimeLimit < 0 {
+		return req, cmdutil.Usagef("--time-limit %v: give a positive duration, or 0 to search to the end", o.TimeLimit)
+	}
+	req.TimeLimit = o.TimeLimit
 	req.ShowFailing = o.ShowFailing
 	req.ShowAll = o.All
 	req.AllowUnrated = o.AllowUnrated

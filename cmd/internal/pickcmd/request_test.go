@@ -59,6 +59,16 @@ func TestFlags(t *testing.T) {
 				}
 			}
 		}},
+		{"time limit by default", base, func(t *testing.T, r picker.Request) {
+			if r.TimeLimit != picker.DefaultTimeLimit {
+				t.Errorf("time limit %v, want the default %v", r.TimeLimit, picker.DefaultTimeLimit)
+			}
+		}},
+		{"no time limit", append(base, "--time-limit", "0"), func(t *testing.T, r picker.Request) {
+			if r.TimeLimit != 0 {
+				t.Errorf("time limit %v, want none", r.TimeLimit)
+			}
+		}},
 		{"emitter rail tolerance", append(base, "--topology", "split-supply", "--vee", "12V", "--vee-tol", "10%"), func(t *testing.T, r picker.Request) {
 			if !near(r.VEE_V, -12) || !near(r.VEETol, 0.1) || !near(r.VCCTol, 0.05) {
 				t.Errorf("vee %g ±%g (vcc ±%g), want -12 ±0.1 (vcc ±0.05)", r.VEE_V, r.VEETol, r.VCCTol)
@@ -201,6 +211,7 @@ func TestFlagErrors(t *testing.T) {
 		{"ambient too hot", append(base, "--ambient", "0..200"), []string{"-55 °C..150 °C"}},
 		{"zero boards", append(base, "--boards", "0"), []string{"--boards 0"}},
 		{"zero top", append(base, "--top", "0"), []string{"--top 0"}},
+		{"negative time limit", append(base, "--time-limit", "-5s"), []string{"--time-limit -5s", "0 to search to the end"}},
 		{"negative weight", append(base, "--weights", "beta=-1"), []string{"beta=-1", "cannot be negative", "use 0"}},
 		{"unknown weight", append(base, "--weights", "speed=1"), []string{"speed=1", "q, emitter, beta, headroom, util, yield, parts"}},
 		{"all weights zero", append(base, "--weights", "q=0,emitter=0,beta=0,headroom=0,util=0,yield=0,parts=0"), []string{"every weight is 0", "positive"}},

@@ -9,6 +9,9 @@ import (
 // RankingNote says in words how far the order of a pick's builds is
 // proven (picker.Ranking).
 func RankingNote(r picker.Ranking) string {
+	if r.Stopped {
+		return fmt.Sprintf("the search stopped at its %g s time limit: these are the best builds it found, not proven the best of the stock (--time-limit 0 searches to the end)", r.TimeLimit.Seconds())
+	}
 	if r.Proven {
 		return fmt.Sprintf("proven: no build of the stock ranks above a listed one (%s ranked by their yield)", plural(r.Ranked, "build"))
 	}

@@ -1,0 +1,54 @@
+package picker
+
+import (
+	"errors"
+	"testing"
+	"time"
+
+	"biasbin/solver"
+	"biasbin/solver/eseries"
+)
+
+// TestTimeLimitStopsTheSearch: a search that would run for minutes (every
+// E24 value 10 Ω–1 MΩ, IEC 60063:2015 Table 1, with pairs, collector
+// feedback at 10 mA: the best builds need pairs, so bound P leaves the
+// pair levels in) stops at its time limit, ranks what it found, and says
+// so; a search that ends in time does not; a negative limit is refused.
+func TestTimeLimitStopsTheSearch(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 50, 1000), Transistors: benchTransistors(4)}
+	req := Request{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 10e-3, Top: 3, Pairs: true, TimeLimit: 300 * time.Millisecond}
+	res, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := res.Ranking
+	if !r.Stopped || r.Proven || r.TimeLimit != req.TimeLimit {
+		t.Fatalf("ranking %+v: want stopped at %v and not proven", r, req.TimeLimit)
+	}
+	if len(res.Candidates) == 0 {
+		t.Fatal("a stopped search lists no build; the seeds alone find some")
+	}
+	for i, c := range res.Candidates {
+		if len(c.Failing) > 0 {
+			t.Errorf("build %d fails %v", i+1, c.Failing)
+		}
+		if i > 0 && c.Score < res.Candidates[i-1].Score {
+			t.Errorf("build %d scores %g, under build %d's %g", i+1, c.Score, i, res.Candidates[i-1].Score)
+		}
+	}
+
+	fast := Request{VCC_V: 12, IC_A: 1e-3, Top: 3, TimeLimit: time.Hour}
+	res, err = Pick(Stock{Resistors: seriesStock(eseries.E12, 100, 100e3, 0.05, 0.25, 10, 1), Transistors: benchTransistors(2)}, fast)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Ranking.Stopped {
+		t.Errorf("a search that ended within its hour says it stopped: %+v", res.Ranking)
+	}
+
+	_, err = Pick(st, Request{VCC_V: 12, IC_A: 1e-3, TimeLimit: -time.Second})
+	var ie *InputError
+	if !errors.As(err, &ie) || ie.Field != "time-limit" {
+		t.Errorf("a negative time limit gives %v, want an InputError on time-limit", err)
+	}
+}
