@@ -185,6 +185,30 @@ func TestNothingFits(t *testing.T) {
 	}
 }
 
+// TestStoppedSearchClaimsNothingMissing: when the search stopped at its
+// time limit without a build that fits, the output says that none was
+// found in the time, never that nothing fits.
+func TestStoppedSearchClaimsNothingMissing(t *testing.T) {
+	path := newTestDB(t, smallBatch())
+	pick := func(s picker.Stock, r picker.Request) (picker.Result, error) {
+		c := fakeCandidate(1, picker.Failure{Kind: picker.FailAllowance, Part: "rc", Utilization: 1.3})
+		return picker.Result{Candidates: []picker.Candidate{c}, Shortfall: &picker.Shortfall{},
+			Ranking: picker.Ranking{Stopped: true, TimeLimit: r.TimeLimit, Ranked: 1}}, nil
+	}
+	inv := runPick(t, path, pick, "--vcc", "12V", "--ic", "1mA", "--time-limit", "2s")
+	for _, w := range []string{"NO FITTING BUILD FOUND: the search stopped at its 2 s time limit", "order: the search stopped at its 2 s time limit"} {
+		if !strings.Contains(inv.stdout, w) {
+			t.Errorf("stdout lacks %q:\n%s", w, inv.stdout)
+		}
+	}
+	if !strings.Contains(inv.stderr, "no fitting build found before the 2 s time limit") {
+		t.Errorf("stderr lacks the stopped search's words:\n%s", inv.stderr)
+	}
+	if out := inv.stdout + inv.stderr; strings.Contains(out, "NOTHING FITS") || strings.Contains(out, "nothing fits") {
+		t.Errorf("a stopped search claims that nothing fits:\n%s", out)
+	}
+}
+
 func TestStockRunsShort(t *testing.T) {
 	path := newTestDB(t, smallBatch()) // QN-104A: 10 in stock
 	pick := func(_ picker.Stock, r picker.Request) (picker.Result, error) {

@@ -19,7 +19,9 @@ type jsonResult struct {
 	Evaluated  int64       `json:"evaluated"`
 	Solved     int64       `json:"solved"`
 	Considered int64       `json:"considered"`
-	Fits       bool        `json:"fits"`
+	// Fits: a listed build fits the request. False with ranking.stopped
+	// means none was found before the time limit, not that none exists.
+	Fits bool `json:"fits"`
 	// Ranking says whether the order of the candidates is proven.
 	Ranking jsonRanking `json:"ranking"`
 	// BuildableBoards is set when the stock runs short for the run: the
