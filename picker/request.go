@@ -1,12 +1,11 @@
 package picker
 
 import (
-	"sync/atomic"
-	"time"
-
 	"fmt"
 	"math"
 	"slices"
+	"sync/atomic"
+	"time"
 
 	"biasbin/solver"
 )
@@ -31,8 +30,9 @@ const (
 	DefaultVCEWindow = 0.20
 	// DefaultTimeLimit is the search time limit a front end offers by
 	// default (Request.TimeLimit; the zero Request has none): long enough
-	// for every stock the benchmarks hold but the slowest cases, short
-	// enough that a technician is never left waiting for minutes.
+	// for every benchmark case but those in benchSlow (over half a
+	// minute), short enough that a technician is never left waiting for
+	// minutes.
 	DefaultTimeLimit = 30 * time.Second
 	// DefaultYieldBoards is the Monte Carlo size per finalist when
 	// Request.YieldBoards is 0.
