@@ -14,7 +14,8 @@
 // (WindowRule: the one window rule, which check follows too); Weights
 // DefaultWeights(); Limits the solver's defaults (resistors at most 50 %
 // of the derated rating, the transistor at most 75 %, 0.5 V above
-// VCE(sat) at every corner); Finalists 2·max(Top, 5) + 5; YieldBoards 400.
+// VCE(sat) at every corner); Finalists 2·max(Top, 5) + 5; YieldBoards 400;
+// TimeLimit none (DefaultTimeLimit is the limit a front end offers).
 // A bad request or stock is an *InputError naming the field, the problem
 // and the fix.
 //
