@@ -100,6 +100,18 @@ func (f *feedbackPlan) gridIndex(r float64) int {
 	return g
 }
 
+// icFloorAbove bounds from below the nominal IC of every build of device
+// di with RC + RE at most r (0 when it gives nothing): IC at the largest
+// RF level and the grid point above r (F1, F-G), read on the grid so that
+// every RE shares it, less the grid's slack.
+func (f *feedbackPlan) icFloorAbove(di int, r float64, cnt *counters) float64 {
+	_, rfTop := f.e.levelRange(fRF)
+	if v := f.gridIC(di, f.gridIndex(r)+1, rfTop, cnt); !math.IsNaN(v) {
+		return v * (1 - gridSlack)
+	}
+	return 0
+}
+
 // gridIC is the nominal IC of device di with RF at level rf and RC + RE
 // at the grid's point g (split evenly: only the sum counts), NaN when it
 // cannot be solved; solved once per device.
@@ -211,14 +223,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				last := min(rc+skip-1, rcHi)
 				uRE := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc))
 				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-				_, rfTop := e.levelRange(fRF)
-				// IC at the largest RF and the grid point above the
-				// block's largest sum is at most IC at the largest RF
-				// and that sum (F-G): a floor shared by every RE
-				xLo := 0.0
-				if v := f.gridIC(di, f.gridIndex(e.vs.levels[last].ohm+reOhm)+1, rfTop, cnt); !math.IsNaN(v) {
-					xLo = v * (1 - gridSlack)
-				}
+				xLo := f.icFloorAbove(di, e.vs.levels[last].ohm+reOhm, cnt)
 				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
 				if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
 					rc = last
@@ -250,14 +255,9 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				uOwn := math.Max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
 				base = pf + w.Utilization*uOwn + w.Emitter*eLo
 				r := e.vs.levels[rc].ohm + reOhm
-				// Every build here has IC at least xLo, IC at the
-				// largest RF and the grid point above r (F1, F-G):
-				// F-Q over x ≥ xLo first (cheap), then with F-B.
-				xLo := 0.0
-				_, rfTop := e.levelRange(fRF)
-				if v := f.gridIC(di, f.gridIndex(r)+1, rfTop, cnt); !math.IsNaN(v) {
-					xLo = v * (1 - gridSlack)
-				}
+				// Every build here has IC at least xLo (F-RF per
+				// pair): F-Q over x ≥ xLo first (cheap), then with F-B.
+				xLo := f.icFloorAbove(di, r, cnt)
 				qFloor := w.QPoint * e.feedbackQFloorBlock(r, r, xLo, kE, vceLo, vceHi)
 				if base+qFloor > bd.thr {
 					continue

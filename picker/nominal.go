@@ -36,9 +36,6 @@ type tuple struct {
 	betaDone bool
 	betaOK   bool
 	beta     float64 // signed relative spread
-	// floor is betaFloorAt of the tuple once floorDone
-	floorDone bool
-	floor     float64
 	// bench is why the 25 °C points at hFE min, typical or max break the
 	// VCE margin or leave the active region (nil when none does; set
 	// with the beta spread).

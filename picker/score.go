@@ -75,7 +75,7 @@ func (e *evaluator) scoreOne(t *tuple, c combo, p *pool, keep func(*evaluated), 
 		return
 	}
 	if th := thr(); !t.betaDone && !math.IsInf(th, 1) && w.Beta > 0 &&
-		partial+w.Beta*t.betaFloorOnce(e) > th {
+		partial+w.Beta*e.betaFloorAt(t) > th {
 		return // the beta term's floor settles it without two solves
 	}
 	e.betaSpread(t, cnt)
@@ -111,16 +111,6 @@ func (e *evaluator) extraParts(c combo) float64 {
 		}
 	}
 	return float64(n)
-}
-
-// betaFloorOnce is betaFloorAt of the tuple, computed once for all the
-// value combinations of its levels (it depends on the resistances and the
-// nominal point alone).
-func (t *tuple) betaFloorOnce(e *evaluator) float64 {
-	if !t.floorDone {
-		t.floor, t.floorDone = e.betaFloorAt(t), true
-	}
-	return t.floor
 }
 
 // betaFloorAt is betaFloor at a solved tuple: its exact base-loop

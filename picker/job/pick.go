@@ -62,6 +62,11 @@ type PickOutcome struct {
 // smaller one.
 func (o *PickOutcome) Short() bool { return !o.Fits && o.Buildable > 0 }
 
+// StoppedUnfit reports that no listed build fits and the search stopped
+// at its time limit: none was found in the time, which does not show that
+// none exists.
+func (o *PickOutcome) StoppedUnfit() bool { return !o.Fits && o.Result.Ranking.Stopped }
+
 // Shown is the search whose builds are shown: Fewer when the stock runs
 // short, else Result.
 func (o *PickOutcome) Shown() picker.Result {

@@ -18,8 +18,7 @@ import (
 // runs short for the run, the best builds for the boards it does supply.
 func WriteText(w io.Writer, v *job.PickOutcome, st Style) {
 	switch {
-	case !v.Fits && v.Result.Ranking.Stopped:
-		// a search stopped at its time limit proves nothing missing
+	case v.StoppedUnfit():
 		fmt.Fprintf(w, "%s the search stopped at its %g s time limit before it found one; the nearest builds it found are listed below (--time-limit 0 searches to the end).\n",
 			st.mark("NO FITTING BUILD FOUND:"), v.Result.Ranking.TimeLimit.Seconds())
 	case v.Short():
@@ -67,7 +66,7 @@ func WriteNotes(w io.Writer, v *job.PickOutcome) {
 		rejected = report.Words(s.Rejected, report.Rejection)
 	}
 	switch {
-	case !v.Fits && v.Result.Ranking.Stopped:
+	case v.StoppedUnfit():
 		fmt.Fprintf(w, "no fitting build found before the %g s time limit (not proven that none exists):\n", v.Result.Ranking.TimeLimit.Seconds())
 		if len(reasons)+len(rejected) == 0 {
 			fmt.Fprintln(w, "  - no build found passes every limit")
