@@ -120,3 +120,24 @@ func (e *evaluator) rthFloor(r2Ohm, vbHi, ibHi float64) float64 {
 	vcc := e.s.vcc
 	return math.Max(0, r2Ohm*(1-vbHi/vcc)/(1+r2Ohm*ibHi/vcc))
 }
+
+// transistorUseFloor is bound U-Q (doc.go): a lower bound on the
+// transistor's utilization at the nominal point of every build of dv that
+// can enter under bd when the terms other than QPoint and Utilization add
+// at least other. The transistor dissipates VCE·IC + VBE·IB ≥ VCE·IC
+// (VBE and IB have the same sign), IC ≥ bd.icLo, and the QPoint term's
+// VCE part |VCE − VCE target|/span is at most (thr − other)/w_QPoint, so
+// VCE ≥ vceLo − span·(thr − other)/w_QPoint with vceLo the lowest VCE
+// target (targetBand). 0 for an unrated transistor or an unbounded
+// threshold.
+func (e *evaluator) transistorUseFloor(dv *device, bd bounds, vceLo, other float64) float64 {
+	w := e.s.w
+	if !bd.finite || w.QPoint <= 0 || math.IsInf(dv.allowHot, 1) {
+		return 0
+	}
+	vceMin := vceLo - e.span*(bd.thr-other)/w.QPoint
+	if vceMin <= 0 {
+		return 0
+	}
+	return bd.icLo * vceMin / dv.allowHot
+}

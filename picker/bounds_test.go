@@ -76,6 +76,7 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 			if op.VBE_V < vbeLo || op.VBE_V > vbeHi {
 				t.Errorf("VBE %.6g outside [%.6g, %.6g] (vcc %g, %v)", op.VBE_V, vbeLo, vbeHi, vcc, r)
 			}
+			checkTransistorUse(t, e, dv, a)
 			rth := r[iR1] * r[iR2] / (r[iR1] + r[iR2])
 			if f := e.rthFloor(r[iR2], op.V_V[solver.R2], op.IB_A); f > rth*(1+1e-12) {
 				t.Errorf("R_TH floor %.6g above R_TH %.6g (%v)", f, rth, r)
@@ -157,6 +158,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			if f := e.betaFloorAt(a); f > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v %v: beta floor %g over the beta term %g", req.Topology, a.r, f, math.Abs(a.beta))
 			}
+			checkTransistorUse(t, e, dv, a)
 			if req.Topology != solver.CollectorFeedback {
 				continue
 			}
@@ -192,6 +194,26 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	for _, topo := range []solver.Topology{solver.CollectorFeedback, solver.SplitSupply} {
 		if checked[topo] < 200 {
 			t.Errorf("%v: only %d builds checked", topo, checked[topo])
+		}
+	}
+}
+
+// checkTransistorUse checks bound U-Q on the build of tuple a: at the
+// threshold where a just enters (its QPoint term on top of other floors of
+// 0 and 0.02) and with its own IC as the window's low end, the floor is at
+// most the transistor's utilization at the exact point (solver.EvalDissipation
+// counts VCE·IC + VBE·IB against the same allowance).
+func checkTransistorUse(t *testing.T, e *evaluator, dv *device, a *tuple) {
+	t.Helper()
+	if math.IsInf(dv.allowHot, 1) {
+		return
+	}
+	use := a.op.PTransistor_W / dv.allowHot
+	vceLo, _ := e.targetBand(dv)
+	for _, other := range []float64{0, 0.02} {
+		bd := bounds{thr: e.s.w.QPoint*a.q + other, icLo: a.op.IC_A, finite: true}
+		if f := e.transistorUseFloor(dv, bd, vceLo, other); f > use*(1+1e-9) {
+			t.Errorf("%v: U-Q floor %g over the transistor's utilization %g (VCE %g, IC %g)", a.r, f, use, a.op.VCE_V, a.op.IC_A)
 		}
 	}
 }

@@ -142,7 +142,9 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// band's bottom level, so it dissipates at least
 			// icLo²·RC_lo (with the best allowance of any value).
 			uRC := bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm / e.vs.allowHotMax_W
-			uBase = math.Max(math.Max(uRE, uDiv), uRC)
+			// Bound U-Q: the transistor's own dissipation.
+			uQ := e.transistorUseFloor(dv, bd, vceLo, pf2+w.Beta*bLo+w.Emitter*eLo)
+			uBase = math.Max(math.Max(uRE, uDiv), math.Max(uRC, uQ))
 			base = pf2 + w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
 			if base > bd.thr {
 				continue

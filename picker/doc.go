@@ -240,6 +240,19 @@
 //     Where the hottest part is RC (a stage at several milliamperes), it
 //     narrows the IC window of every build at that R2 (collector feedback:
 //     at that RC, and as it rises with RC the RC run stops).
+//   - U-Q: the transistor dissipates VCE·IC + VBE·IB ≥ VCE·IC at its
+//     nominal point (VBE and IB share their sign). With IC ≥ IC_lo, and
+//     VCE at least the lowest VCE target less (T − F)·|VCC|/w_QPoint, F
+//     the floors of the terms other than QPoint and Utilization (a build
+//     with less VCE has a QPoint term alone over what is left), its
+//     utilization is at least IC_lo times that VCE over its own derated
+//     allowance (transistorUseFloor); it joins the utilization floors
+//     (the larger counts) of every plan: per R2 in the divider, per RE and
+//     per (RC, RE) in collector feedback, per RE in split supply. Where
+//     the transistor is the hottest part (a stage at several
+//     milliamperes) it is the utilization floor that prunes;
+//     TestBoundsHoldOnRandomBuilds and TestOtherTopologyBoundsHold check
+//     it against the exact point of random builds.
 //   - U-R2: R2 dissipates VB²/R2 and, since base current flows into the
 //     base (VB ≤ V_TH), R1 dissipates at least (|VCC| − VB)·VB/R2; VB lies
 //     between VBE_lo + IC_lo·RE and VBE_hi + IC_hi·k·RE, with VBE bounded
@@ -279,10 +292,14 @@
 //     fall with R1, so the range is found by search, from the previous
 //     R2's range; an envelope value seen at a smaller R2 is a lower bound
 //     at a larger one and settles a probe without a solve).
-//   - RC scan: from the RC where VCE crosses the top of the target band,
-//     VCE (L2) and IC move monotonically, so going down (up) the QPoint
-//     term only grows once VCE is over (under) the band; with the floors
-//     above the scan stops at the first RC whose bound exceeds T.
+//   - RC scan: what is left of T over the floors of the tuple bounds its
+//     QPoint term by d = (T − floors)/w_QPoint, so the scan covers only the
+//     RC band for IC within ±d of the target and VCE within d·|VCC| of the
+//     target band (the RC band above with δ = d). From the RC where VCE
+//     crosses the top of the target band, VCE (L2) and IC move
+//     monotonically, so going down (up) the QPoint term only grows once
+//     VCE is over (under) the band; with the floors above the scan stops
+//     at the first RC whose bound exceeds T.
 //   - Per build: QPoint and Utilization (one solve, shared by the values
 //     of a level tuple), then the beta floor at the exact point, then Beta
 //     (two solves), then a headroom floor from the two corners expected to

@@ -221,8 +221,9 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				// Bound F-RF over RC levels rc..last, with RE's
 				// utilization, emitter and parts floors.
 				last := min(rc+skip-1, rcHi)
-				uRE := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc))
 				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+				uRE := math.Max(math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)),
+					e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
 				xLo := f.icFloorAbove(di, e.vs.levels[last].ohm+reOhm, cnt)
 				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
 				if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
@@ -246,9 +247,12 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				// QPoint term itself is at least qFloor (F-Q).
 				uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
 				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+				// and the transistor's (U-Q): none of these floors falls
+				// as RC rises
+				uRE = math.Max(uRE, e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
 				base := pfRE + w.Utilization*math.Max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
 				if base > bd.thr {
-					break // none of these floors falls as RC rises
+					break
 				}
 				// U-RC with this level's own best allowance (not
 				// monotone in RC, so it only skips this RC)
@@ -289,8 +293,9 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				// left of the threshold narrows the window again.
 				bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
 					RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
-				base := pf + w.Utilization*math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
-					bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W) + w.Beta*bLo
+				uQ := e.transistorUseFloor(dv, bd, vceLo, pf+w.Beta*bLo)
+				base := pf + w.Utilization*math.Max(math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
+					bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W), uQ) + w.Beta*bLo
 				if base > bd.thr {
 					continue
 				}

@@ -89,7 +89,9 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 			// the QPoint term, so the IC window narrows.
 			// and U-RC: RC carries IC and is at least the band's
 			// bottom level (with the best allowance of any value)
-			base += w.Utilization * bd.icLo * bd.icLo * math.Max(reOhm/e.vs.levels[re].allowHot_W, e.vs.levels[rcLo].ohm/e.vs.allowHotMax_W)
+			// and U-Q: the transistor's own dissipation
+			uQ := e.transistorUseFloor(dv, bd, vceLo, base)
+			base += w.Utilization * math.Max(bd.icLo*bd.icLo*math.Max(reOhm/e.vs.levels[re].allowHot_W, e.vs.levels[rcLo].ohm/e.vs.allowHotMax_W), uQ)
 			if w.QPoint > 0 {
 				d2 := (bd.thr - base) / w.QPoint
 				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
