@@ -349,7 +349,12 @@
 //     or whose IC at R(g) is under it, is out. Every (RC, RE) pair whose
 //     sum falls in one grid cell shares that cell's solves, and the
 //     window so found holds the exact one and is about a level wider at
-//     most. Bound B over the window narrows it again.
+//     most. Bound B over the window narrows it again, and bound B over
+//     RF in [k, top of the window] with the other terms' floors (F-Q
+//     included) settles the top of the window from the k a bisection
+//     finds (the beta term grows as the base loses stiffness; the
+//     bisection assumes nothing of the floor's shape, and the k it uses
+//     is one whose floor was computed and settles).
 //   - F-RF per pair: every build at (RC, RE) has IC at least IC at the
 //     largest RF and the grid point above RC + RE (F1, F-G), so F-Q and
 //     F-QW are taken over currents from there up.

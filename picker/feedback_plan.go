@@ -238,6 +238,8 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 			// every other term of every build at (RC, RE) from below.
 			pf := pfRE + e.partsFloor(rc)
 			fl := pf
+			// nonBeta bounds every term but Beta of every build here
+			nonBeta := pf
 			if bd.finite {
 				// RE's utilization and the emitter term bound every
 				// build at this RE from below (bounds U-RE and
@@ -266,6 +268,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				if base+qFloor > bd.thr {
 					continue
 				}
+				nonBeta = base + qFloor
 				if w.Beta > 0 {
 					base += w.Beta * f.betaFloorRC(dv, bd, r)
 				}
@@ -308,6 +311,20 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 					}
 					lo, hi = f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
 				}
+			}
+			if bd.finite && w.Beta > 0 && lo < hi {
+				// Bound B over the top of the window: the levels from
+				// k to hi are settled by the floor over RF in [k, hi]
+				// (with the IC window and the other terms' floors).
+				// The bisection assumes nothing of the floor's shape:
+				// the k it returns below the end is one whose floor
+				// was computed and settles.
+				r := e.vs.levels[rc].ohm + reOhm
+				k := firstLevel(hi-lo+1, func(i int) bool {
+					return nonBeta+w.Beta*e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo+i].ohm, RTHMax: e.vs.levels[hi].ohm,
+						RE: r, ICLo: icLo, ICHi: icHi}) > p.threshold()
+				})
+				hi = lo + k - 1
 			}
 			for rf := lo; rf <= hi; rf++ {
 				if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
