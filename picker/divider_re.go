@@ -102,11 +102,6 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				continue
 			}
 		}
-		if rcLo != lastRcLo {
-			// upSeen holds IC at the band's bottom RC: only valid for it
-			clear(upSeen)
-			lastRcLo = rcLo
-		}
 		r1Lo, r1Hi := e.levelRange(iR1)
 		// base is a lower bound on the beta, utilization and emitter
 		// terms of every build at this R2:
@@ -156,6 +151,21 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			if w.QPoint > 0 {
 				d2 := (bd.thr - base) / w.QPoint
 				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
+				// and the RC band narrows to it (bound RC with δ = d2)
+				nb := bounds{thr: bd.thr, delta: d2, icLo: icLo, icHi: icHi, finite: true}
+				lo, hi := e.rcBandAll(nb, reOhm, 1, kE, vceLo, vceHi)
+				if rcSingles {
+					lo, hi = e.vs.up(lo, true), e.vs.down(hi, true)
+				}
+				rcLo, rcHi = max(rcLo, lo), min(rcHi, hi)
+				if rcLo > rcHi {
+					continue
+				}
+			}
+			if rcLo != lastRcLo {
+				// upSeen holds IC at the band's bottom RC: only valid for it
+				clear(upSeen)
+				lastRcLo = rcLo
 			}
 			// Bound IC-R1 high side: IC(R1, RC) ≤ IC(R1, band bottom) in the band,
 			// which falls with R1 (lemmas L1, L2).

@@ -282,7 +282,8 @@
 //     rthFloor of the block's first R2 and its last R2). With the divider
 //     floor it skips one R2. What is left of the threshold after these
 //     floors bounds the QPoint term, so the IC window of that R2 narrows
-//     to ±(T − floors)/w_QPoint; at the R1 level the beta floor is taken
+//     to ±(T − floors)/w_QPoint, and the RC band with it (δ = (T −
+//     floors)/w_QPoint; so in split supply per RE); at the R1 level the beta floor is taken
 //     again per block of eight R1 values (R_TH between the block's ends)
 //     with R1's own dissipation.
 //   - R1 range: by L1 and L2 the IC of any build at (R1, R2, RE) is at most
