@@ -152,8 +152,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				d2 := (bd.thr - base) / w.QPoint
 				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 				// and the RC band narrows to it (bound RC with δ = d2)
-				nb := bounds{thr: bd.thr, delta: d2, icLo: icLo, icHi: icHi, finite: true}
-				lo, hi := e.rcBandAll(nb, reOhm, 1, kE, vceLo, vceHi)
+				lo, hi := e.rcBandAll(e.boundsWithin(bd.thr, d2), reOhm, 1, kE, vceLo, vceHi)
 				if rcSingles {
 					lo, hi = e.vs.up(lo, true), e.vs.down(hi, true)
 				}

@@ -300,14 +300,18 @@ type bounds struct {
 
 // boundsNow derives the limits from the pool's current threshold.
 func (e *evaluator) boundsNow(p *pool) bounds {
-	b := bounds{thr: p.threshold(), delta: math.Inf(1)}
-	if e.s.w.QPoint > 0 && !math.IsInf(b.thr, 1) {
-		b.delta = b.thr / e.s.w.QPoint
-		b.finite = true
+	thr := p.threshold()
+	if e.s.w.QPoint > 0 && !math.IsInf(thr, 1) {
+		return e.boundsWithin(thr, thr/e.s.w.QPoint)
 	}
-	b.icLo = e.s.icT * math.Max(0, 1-b.delta)
-	b.icHi = e.s.icT * (1 + b.delta)
-	return b
+	return bounds{thr: thr, delta: math.Inf(1), icHi: math.Inf(1)}
+}
+
+// boundsWithin returns the limits of the builds whose QPoint term is at
+// most d under threshold thr: IC within ±d of the target and VCE within
+// d·span of its target band.
+func (e *evaluator) boundsWithin(thr, d float64) bounds {
+	return bounds{thr: thr, delta: d, icLo: e.s.icT * math.Max(0, 1-d), icHi: e.s.icT * (1 + d), finite: true}
 }
 
 // targetBand returns bounds on the VCE target over all builds of device

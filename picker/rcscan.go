@@ -120,9 +120,7 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 	// every build of lv, so IC and VCE lie within d of the target and
 	// only the RC levels of that narrower band (bound RC) can enter.
 	if thr := p.threshold(); w.QPoint > 0 && !math.IsInf(thr, 1) {
-		d := (thr - base) / w.QPoint
-		nb := bounds{thr: thr, delta: d, icLo: ict * math.Max(0, 1-d), icHi: ict * (1 + d), finite: true}
-		lo, hi := e.rcBandAll(nb, reOhm, 1, kE, vceLo, vceHi)
+		lo, hi := e.rcBandAll(e.boundsWithin(thr, (thr-base)/w.QPoint), reOhm, 1, kE, vceLo, vceHi)
 		rcLo, rcHi = max(rcLo, lo), min(rcHi, hi)
 		if rcLo > rcHi {
 			return

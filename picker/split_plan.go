@@ -96,7 +96,7 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 				d2 := (bd.thr - base) / w.QPoint
 				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 				// and the RC band narrows to it (bound RC with δ = d2)
-				lo, hi := e.rcBandAll(bounds{thr: bd.thr, delta: d2, icLo: icLo, icHi: icHi, finite: true}, reOhm, 1, kE, vceLo, vceHi)
+				lo, hi := e.rcBandAll(e.boundsWithin(bd.thr, d2), reOhm, 1, kE, vceLo, vceHi)
 				if rcLo, rcHi = max(rcLo, lo), min(rcHi, hi); rcLo > rcHi {
 					return
 				}
