@@ -203,7 +203,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// Bound IC-R1 low side: the lowest IC any build at R1
 			// that is active at its nominal point can have (a build
 			// whose nominal point is not active fails its bench limit).
-			r1Lo = e.vs.firstIn(0, n-1, guessLo, singles, func(i int) bool {
+			// Only levels up to r1Hi are searched: above it nothing is
+			// left to cover, and where none qualifies the range is empty
+			// (most visits near the threshold, whose IC window is narrower
+			// than one R1 step) at the cost of one probe.
+			r1Lo = e.vs.firstIn(0, r1Hi, guessLo, singles, func(i int) bool {
 				if v, ok := floorSeen[i]; ok && v > icHi {
 					return false
 				}

@@ -125,7 +125,7 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 			rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
 				return sp.tuple(di, i, rcLo, re, cnt).icUnder(icLo)
 			}) - 1
-			rbLo = e.vs.firstIn(0, n-1, 0, singles, func(i int) bool {
+			rbLo = e.vs.firstIn(0, rbHi, 0, singles, func(i int) bool {
 				ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
 				return any && ic <= icHi
 			})
