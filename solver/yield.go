@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"runtime"
+	"sync"
 )
 
 // Window is the acceptance band for yield. A zero maximum means no upper
@@ -167,7 +169,10 @@ func EvalYieldSeeded(b Build, w Window, n int, seed uint64, opt YieldOptions) (Y
 // yieldStream is the second PCG word of EvalYieldSeeded's source.
 const yieldStream = 0x62696173 // "bias"
 
-// EvalYieldWith is EvalYield with selectable distributions.
+// EvalYieldWith is EvalYield with selectable distributions. Without
+// KeepBoards the boards are judged on every CPU (GOMAXPROCS), with the
+// same result as one at a time; a run stopped by FailLimit may then leave
+// rng up to yieldChunk boards' draws further on.
 func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (YieldResult, error) {
 	if err := b.Validate(); err != nil {
 		return YieldResult{}, fmt.Errorf("yield: %w", err)
@@ -187,36 +192,49 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 	}
 	j := newBoardJudge(&b, w)
 	res := YieldResult{Boards: n}
-	if opt.KeepBoards {
-		res.Samples = make([]BoardSample, 0, n)
-	}
-	var bd board
-	for i := range n {
-		smp.draw(&bd)
-		// A board's sample is made only when kept: taking the address of
-		// one per board would move it to the heap for every board.
-		var sample *BoardSample
-		if opt.KeepBoards {
-			sample = &BoardSample{}
-			j.keep = sample
-		}
-		pass, turned, err := j.judge(&bd)
-		if sample != nil {
-			sample.Pass, sample.Failed = pass && err == nil, err != nil
-			res.Samples = append(res.Samples, *sample)
-		}
+	// tally counts one board's outcome and reports whether the run stops
+	// there (more than FailLimit failures after board i).
+	tally := func(i int, o boardOutcome) bool {
 		switch {
-		case err != nil:
+		case o.err != nil:
 			res.Failed++
-		case pass:
+		case o.pass:
 			res.Pass++
 		}
-		if turned {
+		if o.turned {
 			res.Turned++
 		}
 		if opt.FailLimit > 0 && i+1-res.Pass > opt.FailLimit {
 			res.Boards, res.Stopped = i+1, true
-			break
+			return true
+		}
+		return false
+	}
+	if workers := runtime.GOMAXPROCS(0); workers > 1 && !opt.KeepBoards && n > 1 {
+		judgeInChunks(j, smp, n, workers, opt.FailLimit, tally)
+	} else {
+		if opt.KeepBoards {
+			res.Samples = make([]BoardSample, 0, n)
+		}
+		var bd board
+		for i := range n {
+			smp.draw(&bd)
+			// A board's sample is made only when kept: taking the address of
+			// one per board would move it to the heap for every board.
+			var sample *BoardSample
+			if opt.KeepBoards {
+				sample = &BoardSample{}
+				j.keep = sample
+			}
+			var o boardOutcome
+			o.pass, o.turned, o.err = j.judge(&bd)
+			if sample != nil {
+				sample.Pass, sample.Failed = o.pass && o.err == nil, o.err != nil
+				res.Samples = append(res.Samples, *sample)
+			}
+			if tally(i, o) {
+				break
+			}
 		}
 	}
 	n = res.Boards
@@ -224,4 +242,58 @@ func EvalYieldWith(b Build, w Window, n int, rng *rand.Rand, opt YieldOptions) (
 	res.StdErr = math.Sqrt(res.Yield * (1 - res.Yield) / float64(n))
 	res.Low95, res.High95 = ClopperPearson95(res.Pass, n)
 	return res, nil
+}
+
+// boardOutcome is what judging one board gave.
+type boardOutcome struct {
+	pass, turned bool
+	err          error
+}
+
+// yieldChunk is the most boards judgeInChunks draws at a time: enough
+// work per worker to outweigh starting it.
+const yieldChunk = 64
+
+// judgeInChunks judges boards 0..n−1 on up to workers goroutines: it draws
+// a chunk of boards in order from smp (so each board is the one a
+// sequential run draws), judges them concurrently (a board's judgement
+// depends on the board alone: j keeps nothing between boards when no
+// samples are kept) and passes the outcomes to tally in board order,
+// stopping at the first for which tally reports a stop. So the result is
+// the sequential run's; only the random source may have advanced by up to
+// one chunk past the board the run stopped at. With a failure limit the
+// chunks start at limit + 1 boards (the fewest a stopped run judges, and
+// at least one per worker) and double up to yieldChunk, so a run that
+// stops early judges few boards past the stop.
+func judgeInChunks(j *boardJudge, smp *boardSampler, n, workers, failLimit int, tally func(int, boardOutcome) bool) {
+	size := yieldChunk
+	if failLimit > 0 {
+		size = min(yieldChunk, max(workers, failLimit+1))
+	}
+	boards := make([]board, min(n, yieldChunk))
+	outs := make([]boardOutcome, len(boards))
+	for start := 0; start < n; {
+		m := min(size, n-start)
+		for i := range m {
+			smp.draw(&boards[i])
+		}
+		var wg sync.WaitGroup
+		per := (m + workers - 1) / workers
+		for lo := 0; lo < m; lo += per {
+			hi := min(lo+per, m)
+			wg.Go(func() {
+				for i := lo; i < hi; i++ {
+					outs[i].pass, outs[i].turned, outs[i].err = j.judge(&boards[i])
+				}
+			})
+		}
+		wg.Wait()
+		for i := range m {
+			if tally(start+i, outs[i]) {
+				return
+			}
+		}
+		start += m
+		size = min(2*size, yieldChunk)
+	}
 }

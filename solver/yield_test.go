@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"reflect"
+	"runtime"
 	"testing"
 )
 
@@ -303,6 +304,35 @@ func TestYieldFailLimit(t *testing.T) {
 		if !y.Stopped || y.Boards != stopAt || y.Pass != pass || y.Boards-y.Pass != limit+1 {
 			t.Errorf("limit %d: got stopped %v after %d boards, %d passed; want a stop after %d boards, %d passed",
 				limit, y.Stopped, y.Boards, y.Pass, stopAt, pass)
+		}
+	}
+}
+
+// TestYieldSameOnAnyCPUCount checks that judging boards concurrently
+// changes no figure: the run on one CPU (boards one at a time) and on four
+// give identical results, with and without a failure limit (source: the
+// definition of the run — each board's outcome depends on its own draws).
+func TestYieldSameOnAnyCPUCount(t *testing.T) {
+	b := oneInputBuild(-1, true)
+	w := Window{ICMin_A: icAt(t, b, 0, math.Sqrt(100*300))}
+	prev := runtime.GOMAXPROCS(1)
+	defer runtime.GOMAXPROCS(prev)
+	for _, limit := range []int{0, 40, 1000} {
+		runtime.GOMAXPROCS(1)
+		one, err := EvalYieldSeeded(b, w, 700, 5, YieldOptions{FailLimit: limit})
+		if err != nil {
+			t.Fatal(err)
+		}
+		runtime.GOMAXPROCS(4)
+		four, err := EvalYieldSeeded(b, w, 700, 5, YieldOptions{FailLimit: limit})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if one.Pass == 0 || one.Pass == one.Boards {
+			t.Fatalf("fixture too weak: %d of %d boards pass", one.Pass, one.Boards)
+		}
+		if !reflect.DeepEqual(one, four) {
+			t.Errorf("limit %d: one CPU %+v, four %+v", limit, one, four)
 		}
 	}
 }
