@@ -1,10 +1,8 @@
 package picker
 
 import (
-	"cmp"
 	"math"
 	"runtime"
-	"slices"
 	"sync"
 	"sync/atomic"
 )
@@ -27,12 +25,9 @@ type dividerPlan struct {
 	splitGuess int
 	// per-RE memos of searchRE, kept to reuse their storage
 	upSeen, floorSeen map[int]float64
-	// best passing seed score and its RE level per device: the search
-	// visits devices from the best seed and each device's RE levels
-	// outward from its best seed (any order is sound; this one tightens
-	// the threshold early).
-	seedBest []float64
-	seedRE   []int
+	// seeds orders the devices and each device's RE levels from its
+	// best seed
+	seeds seedOrder
 }
 
 // tuple returns the (cached) solved level tuple of device dev.
@@ -47,42 +42,39 @@ func (d *dividerPlan) tuple(dev int, lv [maxPos]int, cnt *counters) *tuple {
 // scored. Like polish it changes only the order of the search.
 func (d *dividerPlan) seed(p *pool, cnt *counters) {
 	e := d.e
+	seedByDevice(e, &d.seeds, cnt, func() *dividerPlan { return &dividerPlan{e: e, seeds: d.seeds} },
+		func(w *dividerPlan, wc *counters, di int) { w.seedDevice(p, wc, di) })
+}
+
+// seedDevice is seed for device di.
+func (d *dividerPlan) seedDevice(p *pool, cnt *counters, di int) {
+	e := d.e
 	n := len(e.vs.levels)
-	if n == 0 {
-		return
-	}
-	d.seedBest = make([]float64, len(e.devs))
-	d.seedRE = make([]int, len(e.devs))
-	for di := range e.devs {
-		d.cache.reset()
-		dv := &e.devs[di]
-		_, vceHi := e.targetBand(dv)
-		d.seedBest[di] = math.Inf(1)
-		for _, veShare := range []float64{0.1, 0.2, 0.3, 0.4, 0.05} {
-			for _, stiff := range []float64{0.1, 0.03, 0.3} {
-				ve := e.s.vcc * veShare
-				re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
-				rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
-				rth := stiff * (dv.hfeMin + 1) * e.vs.levels[re].ohm
-				vb := ve + 0.65
-				r2 := clampLevel(e.vs.levelAtOrAbove(rth*e.s.vcc/(e.s.vcc-vb)), n)
-				// R1: first level whose IC is at or below the target.
-				r1 := firstLevel(n, func(i int) bool {
-					return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt).icAtMost(e.s.icT)
-				})
-				r1 = clampLevel(r1, n)
-				rc = firstLevel(n, func(i int) bool {
-					return d.tuple(di, [maxPos]int{r1, r2, i, re}, cnt).vceAtMost(vceHi)
-				})
-				for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
-					for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
-						e.scoreVariants(d.tuple(di, [maxPos]int{a, r2, c, re}, cnt), p, func(ev *evaluated) {
-							if len(ev.failing) == 0 && ev.score < d.seedBest[di] {
-								d.seedBest[di], d.seedRE[di] = ev.score, re
-							}
-							p.add(ev)
-						}, cnt)
-					}
+	d.cache.reset()
+	dv := &e.devs[di]
+	_, vceHi := e.targetBand(dv)
+	for _, veShare := range []float64{0.1, 0.2, 0.3, 0.4, 0.05} {
+		for _, stiff := range []float64{0.1, 0.03, 0.3} {
+			ve := e.s.vcc * veShare
+			re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
+			rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
+			rth := stiff * (dv.hfeMin + 1) * e.vs.levels[re].ohm
+			vb := ve + 0.65
+			r2 := clampLevel(e.vs.levelAtOrAbove(rth*e.s.vcc/(e.s.vcc-vb)), n)
+			// R1: first level whose IC is at or below the target.
+			r1 := firstLevel(n, func(i int) bool {
+				return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt).icAtMost(e.s.icT)
+			})
+			r1 = clampLevel(r1, n)
+			rc = firstLevel(n, func(i int) bool {
+				return d.tuple(di, [maxPos]int{r1, r2, i, re}, cnt).vceAtMost(vceHi)
+			})
+			for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
+				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
+					e.scoreVariants(d.tuple(di, [maxPos]int{a, r2, c, re}, cnt), p, func(ev *evaluated) {
+						d.seeds.note(di, re, ev)
+						p.add(ev)
+					}, cnt)
 				}
 			}
 		}
@@ -97,13 +89,7 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 	if n == 0 {
 		return
 	}
-	order := make([]int, len(e.devs))
-	for i := range order {
-		order[i] = i
-	}
-	if len(d.seedBest) == len(e.devs) {
-		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(d.seedBest[a], d.seedBest[b]) })
-	}
+	order := d.seeds.order(len(e.devs))
 	// The work: per device, RE levels from the best seed upward, then
 	// downward below it. Workers take items in this order; an upward run
 	// ends for everyone once one RE in it fails a bound that rises with
@@ -115,11 +101,7 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 	var items []item
 	reLo, reHi := e.levelRange(iRE)
 	for _, di := range order {
-		start := 0
-		if len(d.seedRE) == len(e.devs) {
-			start = d.seedRE[di]
-		}
-		start = max(reLo, min(start, reHi))
+		start := max(reLo, min(d.seeds.start(di), reHi))
 		for re := start; re <= reHi; re++ {
 			items = append(items, item{di, re, true})
 		}

@@ -144,38 +144,39 @@ func (f *feedbackPlan) gridIC(di, g, rf int, cnt *counters) float64 {
 // also the 3×3 around it and the RC that brings IC to the target. It changes only the order of the search.
 func (f *feedbackPlan) seed(p *pool, cnt *counters) {
 	e := f.e
+	seedByDevice(e, &f.seeds, cnt, func() *feedbackPlan { return &feedbackPlan{e: e, seeds: f.seeds} },
+		func(w *feedbackPlan, wc *counters, di int) { w.seedDevice(p, wc, di) })
+}
+
+// seedDevice is seed for device di.
+func (f *feedbackPlan) seedDevice(p *pool, cnt *counters, di int) {
+	e := f.e
 	n := len(e.vs.levels)
-	if n == 0 {
-		return
-	}
-	f.seeds.reset(len(e.devs))
-	for di := range e.devs {
-		f.cache.reset()
-		_, vceHi := e.targetBand(&e.devs[di])
-		for _, veShare := range []float64{0.1, 0.2, 0.05} {
-			ve := e.s.vcc * veShare
-			re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
-			rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
-			var rf int
-			for range 2 {
-				rf = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(e.s.icT) }), n)
-				rc = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceAtMost(vceHi) }), n)
-			}
-			starts := [][2]int{{rf, rc}}
-			if rf == n-1 {
-				// the largest RF cannot bring IC down to the target:
-				// RC then sets the current instead (at the cost of VCE)
-				rcIC := clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).icAtMost(e.s.icT) }), n)
-				starts = append(starts, [2]int{rf, rcIC})
-			}
-			for _, s := range starts {
-				for a := max(s[0]-1, 0); a <= min(s[0]+1, n-1); a++ {
-					for c := max(s[1]-1, 0); c <= min(s[1]+1, n-1); c++ {
-						e.scoreVariants(f.tuple(di, a, c, re, cnt), p, func(ev *evaluated) {
-							f.seeds.note(di, re, ev)
-							p.add(ev)
-						}, cnt)
-					}
+	f.cache.reset()
+	_, vceHi := e.targetBand(&e.devs[di])
+	for _, veShare := range []float64{0.1, 0.2, 0.05} {
+		ve := e.s.vcc * veShare
+		re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
+		rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
+		var rf int
+		for range 2 {
+			rf = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(e.s.icT) }), n)
+			rc = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceAtMost(vceHi) }), n)
+		}
+		starts := [][2]int{{rf, rc}}
+		if rf == n-1 {
+			// the largest RF cannot bring IC down to the target:
+			// RC then sets the current instead (at the cost of VCE)
+			rcIC := clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).icAtMost(e.s.icT) }), n)
+			starts = append(starts, [2]int{rf, rcIC})
+		}
+		for _, s := range starts {
+			for a := max(s[0]-1, 0); a <= min(s[0]+1, n-1); a++ {
+				for c := max(s[1]-1, 0); c <= min(s[1]+1, n-1); c++ {
+					e.scoreVariants(f.tuple(di, a, c, re, cnt), p, func(ev *evaluated) {
+						f.seeds.note(di, re, ev)
+						p.add(ev)
+					}, cnt)
 				}
 			}
 		}

@@ -48,6 +48,25 @@ func planFor(e *evaluator) plan {
 // device, from the best seed, on eachDevice's workers, each with a plan of
 // its own that newWorker makes (so a tuple cache of its own).
 func searchByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, search func(w P, cnt *counters, di int)) {
+	byDevice(e, so.order(len(e.devs)), true, cnt, newWorker, search)
+}
+
+// seedByDevice resets so and runs a plan's seeding of one device (seed)
+// for every device on eachDevice's workers, each with a plan of its own
+// that newWorker makes (sharing so, of which a seed notes only its own
+// device's entries), without reporting progress (that is the search's).
+func seedByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, seed func(w P, cnt *counters, di int)) {
+	so.reset(len(e.devs))
+	order := make([]int, len(e.devs))
+	for i := range order {
+		order[i] = i
+	}
+	byDevice(e, order, false, cnt, newWorker, seed)
+}
+
+// byDevice runs fn for the devices of order on eachDevice's workers, each
+// with a plan of its own that newWorker makes.
+func byDevice[P any](e *evaluator, order []int, report bool, cnt *counters, newWorker func() P, fn func(w P, cnt *counters, di int)) {
 	if len(e.vs.levels) == 0 {
 		return
 	}
@@ -55,7 +74,7 @@ func searchByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker
 	for k := range workers {
 		workers[k] = newWorker()
 	}
-	e.eachDevice(so.order(len(e.devs)), cnt, func(k, di int, wc *counters) { search(workers[k], wc, di) })
+	e.eachDevice(order, report, cnt, func(k, di int, wc *counters) { fn(workers[k], wc, di) })
 }
 
 // walkRE runs visit over the RE levels of device di (eachRE, from the
@@ -73,7 +92,7 @@ func (e *evaluator) walkRE(p *pool, so *seedOrder, di int, visit func(dv *device
 // 0), with counters of its own that are added to cnt at the end. The
 // result does not depend on the order the devices finish in: the pool
 // keeps the exact best builds whatever order they arrive in.
-func (e *evaluator) eachDevice(order []int, cnt *counters, search func(worker, di int, wc *counters)) {
+func (e *evaluator) eachDevice(order []int, report bool, cnt *counters, search func(worker, di int, wc *counters)) {
 	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0), len(order)))
 	total := int64(len(order))
 	var next atomic.Int64
@@ -87,9 +106,11 @@ func (e *evaluator) eachDevice(order []int, cnt *counters, search func(worker, d
 				if i >= total {
 					return
 				}
-				progressMu.Lock()
-				e.progress(i, total)
-				progressMu.Unlock()
+				if report {
+					progressMu.Lock()
+					e.progress(i, total)
+					progressMu.Unlock()
+				}
 				search(k, order[i], &wcnt[k])
 			}
 		})
@@ -99,7 +120,9 @@ func (e *evaluator) eachDevice(order []int, cnt *counters, search func(worker, d
 		cnt.evaluated += c.evaluated
 		cnt.solves += c.solves
 	}
-	e.progress(total, total)
+	if report {
+		e.progress(total, total)
+	}
 }
 
 // progress reports the search's progress when the request asks for it.
@@ -212,11 +235,10 @@ func (tc *tupleCache) alloc() *tuple {
 
 // polish hill-climbs from the best passing builds in the pool: each
 // round moves one position one level, or to the nearest level holding a
-// single, up or down to the neighbour with the best score, until no neighbour improves (at most maxPolishSteps rounds
-// per start). Every build it scores goes to the pool, so the threshold
+// single, up or down to the neighbour with the best score, until no
+// neighbour improves (at most maxPolishSteps rounds per start). Every build it scores goes to the pool, so the threshold
 // falls early; it changes nothing but the order of the search.
 func (e *evaluator) polish(p *pool, cnt *counters) {
-	n := len(e.vs.levels)
 	type start struct {
 		c     combo
 		score float64
@@ -227,42 +249,66 @@ func (e *evaluator) polish(p *pool, cnt *counters) {
 			starts = append(starts, start{it.c, it.score})
 		}
 	}
-	var tc tupleCache
-	for _, st := range starts {
-		c := st.c
-		tc.reset()
-		best := st.score
-		cur := c.lv
-		for range maxPolishSteps {
-			next, nextScore := cur, best
-			for pos := range e.lay.n {
-				if e.kept[pos] {
+	// the climbs are independent: they run on the search's workers, each
+	// with a tuple cache of its own (the pool keeps the exact best builds
+	// whatever order they arrive in)
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	wcnt := make([]counters, max(1, min(searchWorkers, runtime.GOMAXPROCS(0), len(starts))))
+	for k := range wcnt {
+		wg.Go(func() {
+			var tc tupleCache
+			for {
+				i := int(next.Add(1) - 1)
+				if i >= len(starts) {
+					return
+				}
+				e.climb(p, &tc, starts[i].c, starts[i].score, &wcnt[k])
+			}
+		})
+	}
+	wg.Wait()
+	for _, c := range wcnt {
+		cnt.evaluated += c.evaluated
+		cnt.solves += c.solves
+	}
+}
+
+// climb is polish's hill climb from build c, whose score is score.
+func (e *evaluator) climb(p *pool, tc *tupleCache, c combo, score float64, cnt *counters) {
+	n := len(e.vs.levels)
+	tc.reset()
+	best := score
+	cur := c.lv
+	for range maxPolishSteps {
+		next, nextScore := cur, best
+		for pos := range e.lay.n {
+			if e.kept[pos] {
+				continue
+			}
+			// one level either way, and the nearest level holding a
+			// single either way (with pairs, the level next door is
+			// mostly a pair's)
+			i := cur[pos]
+			for k, to := range [4]int{i - 1, i + 1, e.vs.down(i-1, true), e.vs.up(i+1, true)} {
+				lv := cur
+				lv[pos] = to
+				if to < 0 || to >= n || k >= 2 && (to == i-1 || to == i+1) {
 					continue
 				}
-				// one level either way, and the nearest level holding a
-				// single either way (with pairs, the level next door is
-				// mostly a pair's)
-				i := cur[pos]
-				for k, to := range [4]int{i - 1, i + 1, e.vs.down(i-1, true), e.vs.up(i+1, true)} {
-					lv := cur
-					lv[pos] = to
-					if to < 0 || to >= n || k >= 2 && (to == i-1 || to == i+1) {
-						continue
+				t := tc.get(e, c.dev, lv, cnt)
+				e.scoreVariants(t, p, func(ev *evaluated) {
+					p.add(ev)
+					if len(ev.failing) == 0 && ev.score < nextScore {
+						next, nextScore = lv, ev.score
 					}
-					t := tc.get(e, c.dev, lv, cnt)
-					e.scoreVariants(t, p, func(ev *evaluated) {
-						p.add(ev)
-						if len(ev.failing) == 0 && ev.score < nextScore {
-							next, nextScore = lv, ev.score
-						}
-					}, cnt)
-				}
+				}, cnt)
 			}
-			if nextScore >= best {
-				break
-			}
-			cur, best = next, nextScore
 		}
+		if nextScore >= best {
+			break
+		}
+		cur, best = next, nextScore
 	}
 }
 

@@ -32,28 +32,29 @@ func (sp *splitPlan) tuple(di, rb, rc, re int, cnt *counters) *tuple {
 // the order of the search.
 func (sp *splitPlan) seed(p *pool, cnt *counters) {
 	e := sp.e
+	seedByDevice(e, &sp.seeds, cnt, func() *splitPlan { return &splitPlan{e: e, seeds: sp.seeds} },
+		func(w *splitPlan, wc *counters, di int) { w.seedDevice(p, wc, di) })
+}
+
+// seedDevice is seed for device di.
+func (sp *splitPlan) seedDevice(p *pool, cnt *counters, di int) {
+	e := sp.e
 	n := len(e.vs.levels)
-	if n == 0 {
-		return
-	}
-	sp.seeds.reset(len(e.devs))
-	for di := range e.devs {
-		sp.cache.reset()
-		dv := &e.devs[di]
-		_, vceHi := e.targetBand(dv)
-		re0 := clampLevel(e.vs.levelAtOrAbove((e.s.vee-handVBE_V)/e.s.icT), n)
-		rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc+handVBE_V-vceHi)/e.s.icT), n)
-		for _, stiff := range []float64{0.1, 0.03, 0.3} {
-			rb := clampLevel(e.vs.levelAtOrAbove(stiff*dv.hfeMin*e.vs.levels[re0].ohm), n)
-			re := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, rc, i, cnt).icAtMost(e.s.icT) }), n)
-			rc := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, i, re, cnt).vceAtMost(vceHi) }), n)
-			for a := max(re-1, 0); a <= min(re+1, n-1); a++ {
-				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
-					e.scoreVariants(sp.tuple(di, rb, c, a, cnt), p, func(ev *evaluated) {
-						sp.seeds.note(di, a, ev)
-						p.add(ev)
-					}, cnt)
-				}
+	sp.cache.reset()
+	dv := &e.devs[di]
+	_, vceHi := e.targetBand(dv)
+	re0 := clampLevel(e.vs.levelAtOrAbove((e.s.vee-handVBE_V)/e.s.icT), n)
+	rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc+handVBE_V-vceHi)/e.s.icT), n)
+	for _, stiff := range []float64{0.1, 0.03, 0.3} {
+		rb := clampLevel(e.vs.levelAtOrAbove(stiff*dv.hfeMin*e.vs.levels[re0].ohm), n)
+		re := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, rc, i, cnt).icAtMost(e.s.icT) }), n)
+		rc := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, i, re, cnt).vceAtMost(vceHi) }), n)
+		for a := max(re-1, 0); a <= min(re+1, n-1); a++ {
+			for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
+				e.scoreVariants(sp.tuple(di, rb, c, a, cnt), p, func(ev *evaluated) {
+					sp.seeds.note(di, a, ev)
+					p.add(ev)
+				}, cnt)
 			}
 		}
 	}
