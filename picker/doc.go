@@ -356,6 +356,11 @@
 //     finds (the beta term grows as the base loses stiffness; the
 //     bisection assumes nothing of the floor's shape, and the k it uses
 //     is one whose floor was computed and settles).
+//   - F-BB: the window's tuples are solved in blocks of rfBlock levels,
+//     and bound B over a block (R_TH = RF and the nominal IC between the
+//     least and largest of its active tuples) with each tuple's exact
+//     QPoint and emitter terms and the parts floor settles most tuples
+//     before the floor at each one alone is taken (scoreBlock).
 //   - F-RF per pair: every build at (RC, RE) has IC at least IC at the
 //     largest RF and the grid point above RC + RE (F1, F-G), so F-Q and
 //     F-QW are taken over currents from there up.

@@ -327,16 +327,28 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				})
 				hi = lo + k - 1
 			}
-			for rf := lo; rf <= hi; rf++ {
-				if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
-					rf = e.vs.nextSingle[rf] - 1 // bound P: no room for a pair in RF
-					continue
+			// The window's tuples go to scoring a block of rfBlock
+			// visited levels at a time, with bound B over the block.
+			var blk [rfBlock]*tuple
+			for rf := lo; rf <= hi; {
+				n := 0
+				for ; rf <= hi && n < rfBlock; rf++ {
+					if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
+						rf = e.vs.nextSingle[rf] - 1 // bound P: no room for a pair in RF
+						continue
+					}
+					blk[n] = f.tuple(di, rf, rc, re, cnt)
+					n++
 				}
-				e.scoreVariants(f.tuple(di, rf, rc, re, cnt), p, p.add, cnt)
+				e.scoreBlock(blk[:n], fRF, pf, p, cnt)
 			}
 		}
 	})
 }
+
+// rfBlock is how many RF levels of a window share one beta floor
+// (scoreBlock).
+const rfBlock = 8
 
 // uRC is bound U-RC at RC level rc and above: RC carries IE ≥ IC ≥
 // icLo, so it dissipates at least icLo²·RC, over the best allowance of any

@@ -101,6 +101,41 @@ func (e *evaluator) scoreOne(t *tuple, c combo, p *pool, keep func(*evaluated), 
 	}
 }
 
+// scoreBlock scores the solved tuples ts of one device, which differ only
+// in position pos, one that sets the base loop's R_TH alone (baseLoop),
+// after bound B over all of them: the floor over R_TH and the nominal IC
+// between the least and largest of the active ones is a floor on each
+// one's beta term; with its exact QPoint and emitter terms and the parts
+// floor pf of the fixed positions plus its own level's at pos, it may
+// settle a tuple before scoreVariants takes the floor at the tuple alone
+// (betaFloorAt): one floor where there were len(ts).
+func (e *evaluator) scoreBlock(ts []*tuple, pos int, pf float64, p *pool, cnt *counters) {
+	w := e.s.w
+	bF := 0.0
+	if th := p.threshold(); len(ts) > 1 && w.Beta > 0 && !math.IsInf(th, 1) {
+		win := betaWindow{RTH: math.Inf(1), ICLo: math.Inf(1)}
+		for _, t := range ts {
+			if !t.ok || t.op.Region != solver.Active {
+				continue
+			}
+			rth, re, rc := e.baseLoop(t.r)
+			win.RTH, win.RTHMax = math.Min(win.RTH, rth), math.Max(win.RTHMax, rth)
+			win.ICLo, win.ICHi = math.Min(win.ICLo, t.op.IC_A), math.Max(win.ICHi, t.op.IC_A)
+			win.RE, win.RCMin, win.RCMax = re, rc, rc
+		}
+		if win.ICHi > 0 {
+			bF = e.betaFloor(&e.devs[ts[0].c.dev], win)
+		}
+	}
+	for _, t := range ts {
+		if bF > 0 && t.ok && t.op.Region == solver.Active && !t.betaDone &&
+			pf+e.partsFloor(t.c.lv[pos])+w.QPoint*t.q+w.Emitter*t.em+w.Beta*bF > p.threshold() {
+			continue
+		}
+		e.scoreVariants(t, p, p.add, cnt)
+	}
+}
+
 // extraParts is the parts term of a combo: one per position filled by a
 // pair.
 func (e *evaluator) extraParts(c combo) float64 {
