@@ -106,7 +106,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 		// base is a lower bound on the beta, utilization and emitter
 		// terms of every build at this R2:
 		// bLo·w_Beta + uBase·w_Utilization + eLo·w_Emitter.
-		var base, bLo, uBase, eLo float64
+		var base, bLo, uBase, uNoRC, pRC, eLo float64
 		if bd.finite && bd.thr != lastThr {
 			vbeLo, vbeHi = e.vbeBounds(dv, bd.icLo, bd.icHi)
 			lastThr = bd.thr
@@ -134,14 +134,18 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				continue
 			}
 			// Bound U-RC: RC carries IC ≥ icLo and is at least the
-			// band's bottom level, so it dissipates at least
+			// band's bottom level, so it dissipates at least pRC =
 			// icLo²·RC_lo (with the best allowance of any value).
-			uRC := bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm / e.vs.allowHotMax_W
+			pRC = bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
 			// Bound U-Q: the transistor's own dissipation.
 			uQ := e.transistorUseFloor(dv, bd, vceLo, pf2+w.Beta*bLo+w.Emitter*eLo)
-			uBase = math.Max(math.Max(uRE, uDiv), math.Max(uRC, uQ))
+			uNoRC = math.Max(math.Max(uRE, uDiv), uQ)
+			uBase = math.Max(uNoRC, pRC/e.vs.allowHotMax_W)
+			// base (the floor scanRC takes, RC open) and baseUP, with
+			// RC as one part or a pair (bound U-P), which only cuts.
 			base = pf2 + w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
-			if base > bd.thr {
+			baseUP := pf2 + w.Beta*bLo + e.useAndPartsFloor(uNoRC, pRC) + w.Emitter*eLo
+			if baseUP > bd.thr {
 				continue
 			}
 			// What is left of the threshold bounds the QPoint term of
@@ -149,7 +153,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// ±(T − base)/w_QPoint.
 			icLo, icHi := bd.icLo, bd.icHi
 			if w.QPoint > 0 {
-				d2 := (bd.thr - base) / w.QPoint
+				d2 := (bd.thr - baseUP) / w.QPoint
 				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 				// and the RC band narrows to it (bound RC with δ = d2)
 				lo, hi := e.rcBandAll(e.boundsWithin(bd.thr, d2), reOhm, 1, kE, vceLo, vceHi)
@@ -173,7 +177,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// Bound P: with no room for a pair in R1 only the levels
 			// holding a single are probed (the loop below steps over
 			// the others).
-			singles := e.singlesOnly(base, bd.thr)
+			singles := e.singlesOnly(baseUP, bd.thr)
 			r1Hi = e.vs.firstIn(0, n-1, guessHi, singles, func(i int) bool {
 				if v, ok := upSeen[i]; ok && v >= icLo {
 					return false
@@ -190,13 +194,15 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				return t.icUnder(icLo)
 			}) - 1
 			_, r1Hi = e.clampRange(iR1, 0, r1Hi)
+			guessHi = r1Hi + 1
 			// R1 dissipates at least (VCC − vbHi)²/R1, which falls with
 			// R1: at R1 ≤ r1Hi it is at least its value at r1Hi (with the
 			// best allowance of any value).
 			if r1Hi >= 0 && vbHi < e.s.vcc {
 				r1Ohm := e.vs.levels[r1Hi].ohm
-				uR1 := (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.allowHotMax_W
-				if pf2+w.Beta*bLo+w.Utilization*math.Max(uBase, uR1)+w.Emitter*eLo > bd.thr {
+				pR1 := (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm
+				// with R1 and RC each one part or a pair (bound U-P)
+				if pf2+w.Beta*bLo+e.useAndPartsFloor(uNoRC, pRC, pR1)+w.Emitter*eLo > bd.thr {
 					continue
 				}
 			}
@@ -250,6 +256,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 					uR1 = (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.levels[r1].allowHot_W
 				}
 				b1 = pf2 + e.partsFloor(r1) + w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1) + w.Emitter*eLo
+				// bound U-P with RC as one part or a pair
+				if b1-w.Utilization*math.Max(uBase, uR1)+e.useAndPartsFloor(math.Max(uNoRC, uR1), pRC) > p.threshold() {
+					continue
+				}
 			}
 			lv := [maxPos]int{r1, r2, 0, re}
 			e.scanRC(p, &d.cache, cnt, di, lv, iRC, &d.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, b1)

@@ -240,6 +240,19 @@
 //     Where the hottest part is RC (a stage at several milliamperes), it
 //     narrows the IC window of every build at that R2 (collector feedback:
 //     at that RC, and as it rises with RC the RC run stops).
+//   - U-P: a position still open (RC at an R2 level of the divider, and
+//     R1 once its highest level is known; RC at an RE level of split
+//     supply) is one part or a pair. As one part (a single or a kept part)
+//     its utilization is at least its power floor over the best allowance
+//     of such a value; as a pair at least that power over the best of any
+//     value, and the pair adds its extra part to the parts term. The
+//     least over the choices (useAndPartsFloor), with the other parts'
+//     utilization floors, bounds the utilization and parts terms together
+//     where U-RC alone takes the pair's allowance without its part: on a
+//     wall with pairs at several milliamperes a build whose RC must be a
+//     pair to run cool pays the pair's part. It only cuts and narrows the
+//     IC window; the RC scan takes the floor with RC open.
+//     TestUseAndPartsFloorHolds checks it on random builds.
 //   - U-Q: the transistor dissipates VCE·IC + VBE·IB ≥ VCE·IC at its
 //     nominal point (VBE and IB share their sign). With IC ≥ IC_lo, and
 //     VCE at least the lowest VCE target less (T − F)·|VCC|/w_QPoint, F

@@ -92,9 +92,17 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 			// bottom level (with the best allowance of any value)
 			// and U-Q: the transistor's own dissipation
 			uQ := e.transistorUseFloor(dv, bd, vceLo, base)
-			base += w.Utilization * math.Max(bd.icLo*bd.icLo*math.Max(reOhm/e.vs.levels[re].allowHot_W, e.vs.levels[rcLo].ohm/e.vs.allowHotMax_W), uQ)
+			uOwn := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, uQ)
+			pRC := bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
+			// baseUP: with RC as one part or a pair (bound U-P); base,
+			// RC open, is the floor the RC scan takes
+			baseUP := base + e.useAndPartsFloor(uOwn, pRC)
+			base += w.Utilization * math.Max(uOwn, pRC/e.vs.allowHotMax_W)
+			if baseUP > bd.thr {
+				return
+			}
 			if w.QPoint > 0 {
-				d2 := (bd.thr - base) / w.QPoint
+				d2 := (bd.thr - baseUP) / w.QPoint
 				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
 				// and the RC band narrows to it (bound RC with δ = d2)
 				lo, hi := e.rcBandAll(e.boundsWithin(bd.thr, d2), reOhm, 1, kE, vceLo, vceHi)

@@ -64,8 +64,10 @@ type valueSet struct {
 	lines  []Resistor
 	values []value
 	levels []level
-	// allowHotMax_W is the largest allowHot_W of any level.
-	allowHotMax_W float64
+	// allowHotMax_W is the largest allowHot_W of any level;
+	// allowHotOneMax_W the largest allowance of a value that is one part
+	// (a single or a kept part: no extra part), 0 when there is none.
+	allowHotMax_W, allowHotOneMax_W float64
 	// kept are the value indexes of the kept parts, in the order given
 	// to buildValues.
 	kept []int
@@ -174,6 +176,9 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 			vs.levels = append(vs.levels, level{ohm: v.ohm, values: order[k : k+1 : len(order)], allowHot_W: allow})
 		}
 		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
+		if v.lines[1] < 0 {
+			vs.allowHotOneMax_W = math.Max(vs.allowHotOneMax_W, allow)
+		}
 	}
 	for i := range vs.levels {
 		l := &vs.levels[i]
