@@ -154,9 +154,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			icLo, icHi := bd.icLo, bd.icHi
 			if w.QPoint > 0 {
 				d2 := (bd.thr - baseUP) / w.QPoint
-				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
+				within := e.boundsWithin(bd.thr, d2)
+				icLo, icHi = within.icLo, within.icHi
 				// and the RC band narrows to it (bound RC with δ = d2)
-				lo, hi := e.rcBandAll(e.boundsWithin(bd.thr, d2), reOhm, 1, kE, vceLo, vceHi)
+				lo, hi := e.rcBandAll(within, reOhm, 1, kE, vceLo, vceHi)
 				if rcSingles {
 					lo, hi = e.vs.up(lo, true), e.vs.down(hi, true)
 				}
@@ -241,7 +242,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				r1 = e.vs.nextSingle[r1] - 1 // bound P: no room for a pair in R1
 				continue
 			}
-			b1 := base
+			b1, use1 := base, 0.0
 			if bd.finite {
 				// R1 dissipates (VCC − VB)²/R1 ≥ (VCC − vbHi)²/R1.
 				r1Ohm := e.vs.levels[r1].ohm
@@ -255,14 +256,15 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				if vbHi < e.s.vcc {
 					uR1 = (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.levels[r1].allowHot_W
 				}
-				b1 = pf2 + e.partsFloor(r1) + w.Beta*math.Max(bLo, bR1) + w.Utilization*math.Max(uBase, uR1) + w.Emitter*eLo
+				use1 = math.Max(uBase, uR1)
+				b1 = pf2 + e.partsFloor(r1) + w.Beta*math.Max(bLo, bR1) + w.Utilization*use1 + w.Emitter*eLo
 				// bound U-P with RC as one part or a pair
-				if b1-w.Utilization*math.Max(uBase, uR1)+e.useAndPartsFloor(math.Max(uNoRC, uR1), pRC) > p.threshold() {
+				if b1-w.Utilization*use1+e.useAndPartsFloor(math.Max(uNoRC, uR1), pRC) > p.threshold() {
 					continue
 				}
 			}
 			lv := [maxPos]int{r1, r2, 0, re}
-			e.scanRC(p, &d.cache, cnt, di, lv, iRC, &d.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, b1)
+			e.scanRC(p, &d.cache, cnt, di, lv, iRC, &d.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, b1, use1)
 		}
 	}
 }

@@ -313,7 +313,10 @@
 //     crosses the top of the target band, VCE (L2) and IC move
 //     monotonically, so going down (up) the QPoint term only grows once
 //     VCE is over (under) the band; with the floors above the scan stops
-//     at the first RC whose bound exceeds T.
+//     at the first RC whose bound exceeds T. An RC level not yet solved
+//     is skipped when its own parts floor and its utilization at the
+//     least IC of that window, over its own best allowance (levelUseFloor),
+//     put the tuple over T.
 //   - Per build: QPoint and Utilization (one solve, shared by the values
 //     of a level tuple), then the beta floor at the exact point, then Beta
 //     (two solves), then a headroom floor from the two corners expected to

@@ -279,7 +279,8 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
 					var ok bool
-					icLo, icHi, ok = e.feedbackICWindow(r, xLo, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
+					within := e.boundsWithin(bd.thr, d2)
+					icLo, icHi, ok = e.feedbackICWindow(r, xLo, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
 					if !ok {
 						continue
 					}
@@ -306,7 +307,8 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				fl = math.Max(fl, base)
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
-					wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, 0, kE, vceLo, vceHi, d2, e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2))
+					within := e.boundsWithin(bd.thr, d2)
+					wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, 0, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
 					if !ok {
 						continue
 					}

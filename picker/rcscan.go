@@ -93,7 +93,7 @@ func (vs *valueSet) icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi floa
 // base bounds the other terms of every build of lv from below, the parts
 // floors of its fixed positions included; a pair-only RC level is stepped
 // over when base + w_Parts is over the threshold (bound P).
-func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [maxPos]int, rcPos int, guess *int, rcLo, rcHi int, vceLo, vceHi, kE, base float64) {
+func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [maxPos]int, rcPos int, guess *int, rcLo, rcHi int, vceLo, vceHi, kE, base, use float64) {
 	w, vcc, ict := e.s.w, e.span, e.s.icT
 	at := func(rc int) [maxPos]int { lv[rcPos] = rc; return lv }
 	tup := func(rc int) *tuple { return tc.get(e, di, at(rc), cnt) }
@@ -126,6 +126,20 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 			return
 		}
 	}
+	// own is base with an RC level's own floors before it is solved:
+	// its parts floor (bound P) and, as it carries IC ≥ icDn (active
+	// builds) and IC ≥ IC_t(1 − d) (a build with less has a QPoint term
+	// over d = (T − base)/w_QPoint), its utilization over its own best
+	// allowance where that is over use, the utilization floor in base
+	// (bound U-RC per level; not monotone in RC, so it only skips the
+	// level).
+	own := func(rc int) float64 {
+		ic := icDn
+		if thr := p.threshold(); w.QPoint > 0 && !math.IsInf(thr, 1) {
+			ic = math.Max(ic, e.boundsWithin(thr, (thr-base)/w.QPoint).icLo)
+		}
+		return base + e.partsFloor(rc) + w.Utilization*math.Max(0, e.levelUseFloor(rc, ic)-use)
+	}
 	singles := e.singlesOnly(base, p.threshold()) // bound P: probe singles only
 	split := e.vs.firstIn(rcLo, rcHi, *guess, singles, func(rc int) bool { return tup(rc).vceAtMost(vceHi) })
 	*guess = split
@@ -136,6 +150,9 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		}
 		if e.vs.levels[rc].pairOnly && e.singlesOnly(base, p.threshold()) {
 			rc = e.vs.prevSingle[rc] + 1 // bound P: no room for a pair in RC
+			continue
+		}
+		if _, ok := tc.peek(at(rc)); !ok && own(rc) > p.threshold() {
 			continue
 		}
 		t := tup(rc)
@@ -156,10 +173,19 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 			rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
 			continue
 		}
+		if _, ok := tc.peek(at(rc)); !ok && own(rc) > p.threshold() {
+			continue
+		}
 		t := tup(rc)
 		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
 			break
 		}
 		e.scoreVariants(t, p, p.add, cnt)
 	}
+}
+
+// levelUseFloor is the least utilization of a part at level i carrying a
+// current of at least ic: ic²·R over the level's best allowance.
+func (e *evaluator) levelUseFloor(i int, ic float64) float64 {
+	return ic * ic * e.vs.levels[i].ohm / e.vs.levels[i].allowHot_W
 }

@@ -84,6 +84,7 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 		}
 		icLo, icHi := bd.icLo, bd.icHi
 		base := e.partsFloor(re) // bound P
+		use := 0.0               // the utilization floor in base
 		if bd.finite {
 			// RE's utilization bounds every build at this RE from
 			// below (U-RE); what is left of the threshold bounds
@@ -97,15 +98,17 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 			// baseUP: with RC as one part or a pair (bound U-P); base,
 			// RC open, is the floor the RC scan takes
 			baseUP := base + e.useAndPartsFloor(uOwn, pRC)
-			base += w.Utilization * math.Max(uOwn, pRC/e.vs.allowHotMax_W)
+			use = math.Max(uOwn, pRC/e.vs.allowHotMax_W)
+			base += w.Utilization * use
 			if baseUP > bd.thr {
 				return
 			}
 			if w.QPoint > 0 {
 				d2 := (bd.thr - baseUP) / w.QPoint
-				icLo, icHi = e.s.icT*math.Max(0, 1-d2), e.s.icT*(1+d2)
+				within := e.boundsWithin(bd.thr, d2)
+				icLo, icHi = within.icLo, within.icHi
 				// and the RC band narrows to it (bound RC with δ = d2)
-				lo, hi := e.rcBandAll(e.boundsWithin(bd.thr, d2), reOhm, 1, kE, vceLo, vceHi)
+				lo, hi := e.rcBandAll(within, reOhm, 1, kE, vceLo, vceHi)
 				if rcLo, rcHi = max(rcLo, lo), min(rcHi, hi); rcLo > rcHi {
 					return
 				}
@@ -171,7 +174,7 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 			// tuples of one RB level serve only its RC scan: the
 			// cache starts again, so it holds one level's at a time
 			sp.cache.reset()
-			e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb)+w.Beta*bRB)
+			e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb)+w.Beta*bRB, use)
 		}
 	})
 }

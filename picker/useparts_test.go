@@ -61,14 +61,17 @@ func topoName(req Request) string {
 	return req.Topology.String()
 }
 
-// TestUseAndPartsFloorHolds checks bound U-P against the score's own
-// utilization and parts terms (solver.EvalDissipation, extraParts) of
-// random divider builds on a wall with pairs: with every part's
-// dissipation exact, w_Utilization·U + w_Parts·(extra parts of RC and R1)
-// is at least useAndPartsFloor of the other parts' utilization and RC's
-// and R1's powers, whichever of them are pairs. source: the terms'
-// definitions (doc.go): a pair's allowance is at most the best of any
-// value, a single's at most the best single's.
+// TestUseAndPartsFloorHolds checks bound U-P and the RC scan's floor per
+// RC level against the score's own utilization and parts terms
+// (solver.EvalDissipation, extraParts) of random divider builds on a wall
+// with pairs. With every part's dissipation exact, w_Utilization·U +
+// w_Parts·(extra parts of RC and R1) is at least useAndPartsFloor of the
+// other parts' utilization and RC's and R1's powers, whichever of them
+// are pairs; and RC's utilization is at least levelUseFloor at the least
+// IC of a build whose QPoint term is at most the build's own
+// (boundsWithin). source: the terms' definitions (doc.go): a pair's
+// allowance is at most the best of any value, a single's at most the best
+// single's, and the QPoint term is at least |IC − IC_t|/IC_t.
 func TestUseAndPartsFloorHolds(t *testing.T) {
 	var lines []Resistor
 	for i, v := range []float64{100, 220, 470, 1e3, 2.2e3, 4.7e3, 10e3} {
@@ -110,6 +113,11 @@ func TestUseAndPartsFloorHolds(t *testing.T) {
 		floor := e.useAndPartsFloor(others, tp.op.P_W[solver.RC], tp.op.P_W[solver.R1])
 		if floor > got*(1+1e-12) {
 			t.Errorf("U-P floor %.6g above the terms %.6g (levels %v, values %v)", floor, got, lv, c.val)
+		}
+		// the RC scan's per-level floor: RC's utilization with the least
+		// IC of a build whose QPoint term is at most its own
+		if f := e.levelUseFloor(lv[iRC], e.boundsWithin(1, tp.q).icLo); f > d.Resistor[solver.RC].Utilization*(1+1e-12) {
+			t.Errorf("RC level floor %.6g above RC's utilization %.6g (levels %v, QPoint term %.4g)", f, d.Resistor[solver.RC].Utilization, lv, tp.q)
 		}
 		if floor > w.Utilization*math.Max(others, math.Max(tp.op.P_W[solver.RC], tp.op.P_W[solver.R1])/e.vs.allowHotMax_W)*(1+1e-9) {
 			tight++ // the choice raised the floor over the one without it
