@@ -118,7 +118,17 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// in growing blocks.
 			vbHi := vbeHi + bd.icHi*kE*reOhm
 			uDiv := e.dividerPowerBound(r2, vbeLo+bd.icLo*reOhm, vbHi)
+			// Bound U-RC: RC carries IC ≥ icLo and is at least the
+			// band's bottom level, so it dissipates at least pRC =
+			// icLo²·RC_lo (with the best allowance of any value); with
+			// U-RE, U-R2, E-RE and bound U-P it may settle the level
+			// before bound B is taken.
 			var uRE float64
+			uRE, eLo = reFloors(bd)
+			pRC = bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
+			if pf2+e.useAndPartsFloor(math.Max(uRE, uDiv), pRC)+w.Emitter*eLo > bd.thr {
+				continue // settled without bound B
+			}
 			// Bound B is taken per block of r2Block R2 levels: a floor
 			// over a wider IC window and RC band (an earlier, higher
 			// threshold's) is a floor over this one's builds too, and a
@@ -128,15 +138,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				r2BlockB = r2Beta(bd, r2, r2BlockEnd, rcLo, rcHi)
 			}
 			bLo = r2BlockB
-			uRE, eLo = reFloors(bd)
 			if pfRE+w.Beta*bLo+w.Utilization*uRE+w.Emitter*eLo > bd.thr {
 				skip = 2 // try the next levels in blocks
 				continue
 			}
-			// Bound U-RC: RC carries IC ≥ icLo and is at least the
-			// band's bottom level, so it dissipates at least pRC =
-			// icLo²·RC_lo (with the best allowance of any value).
-			pRC = bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
 			// Bound U-Q: the transistor's own dissipation.
 			uQ := e.transistorUseFloor(dv, bd, vceLo, pf2+w.Beta*bLo+w.Emitter*eLo)
 			uNoRC = math.Max(math.Max(uRE, uDiv), uQ)
