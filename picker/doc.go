@@ -451,7 +451,7 @@
 //
 // The default search runs on two goroutines sharing the pool: the
 // divider's take (device, RE) items in order, the other plans' whole
-// devices (eachDevice), each worker with its own tuple cache; so do every
+// devices (onWorkers), each worker with its own tuple cache; so do every
 // plan's seeds (seedByDevice, a device each) and the hill climbs of polish
 // (a start each). The pool keeps the exact best builds whatever order
 // they arrive in, so the result does not depend on the scheduling (only

@@ -29,6 +29,7 @@ func (e *evaluator) partsFloor(i int) float64 {
 func (e *evaluator) useAndPartsFloor(u float64, ps ...float64) float64 {
 	w := e.s.w
 	best := math.Inf(1)
+choices:
 	for pairs := 0; pairs < 1<<len(ps); pairs++ {
 		f, v := 0.0, u
 		for i, p := range ps {
@@ -38,8 +39,7 @@ func (e *evaluator) useAndPartsFloor(u float64, ps ...float64) float64 {
 				allow = e.vs.allowHotMax_W
 			}
 			if allow <= 0 {
-				v = math.Inf(1) // no such value
-				break
+				continue choices // no such value
 			}
 			v = math.Max(v, p/allow)
 		}

@@ -45,16 +45,18 @@ func planFor(e *evaluator) plan {
 }
 
 // searchByDevice runs a plan's search of one device (search) for every
-// device, from the best seed, on eachDevice's workers, each with a plan of
-// its own that newWorker makes (so a tuple cache of its own).
+// device, from the best seed, on the search's workers (onWorkers), each
+// with a plan of its own that newWorker makes (so a tuple cache of its
+// own).
 func searchByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, search func(w P, cnt *counters, di int)) {
 	byDevice(e, so.order(len(e.devs)), true, cnt, newWorker, search)
 }
 
 // seedByDevice resets so and runs a plan's seeding of one device (seed)
-// for every device on eachDevice's workers, each with a plan of its own
-// that newWorker makes (sharing so, of which a seed notes only its own
-// device's entries), without reporting progress (that is the search's).
+// for every device on the search's workers (onWorkers), each with a plan
+// of its own that newWorker makes (sharing so, of which a seed notes only
+// its own device's entries), without reporting progress (that is the
+// search's).
 func seedByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, seed func(w P, cnt *counters, di int)) {
 	so.reset(len(e.devs))
 	order := make([]int, len(e.devs))
@@ -64,8 +66,8 @@ func seedByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker f
 	byDevice(e, order, false, cnt, newWorker, seed)
 }
 
-// byDevice runs fn for the devices of order on eachDevice's workers, each
-// with a plan of its own that newWorker makes.
+// byDevice runs fn for the devices of order on the search's workers
+// (onWorkers), each with a plan of its own that newWorker makes.
 func byDevice[P any](e *evaluator, order []int, report bool, cnt *counters, newWorker func() P, fn func(w P, cnt *counters, di int)) {
 	if len(e.vs.levels) == 0 {
 		return
@@ -74,7 +76,7 @@ func byDevice[P any](e *evaluator, order []int, report bool, cnt *counters, newW
 	for k := range workers {
 		workers[k] = newWorker()
 	}
-	e.eachDevice(order, report, cnt, func(k, di int, wc *counters) { fn(workers[k], wc, di) })
+	e.onWorkers(order, report, cnt, func(k, di int, wc *counters) { fn(workers[k], wc, di) })
 }
 
 // walkRE runs visit over the RE levels of device di (eachRE, from the
@@ -87,12 +89,13 @@ func (e *evaluator) walkRE(p *pool, so *seedOrder, di int, visit func(dv *device
 	e.eachRE(p, so.start(di), kE, vceLo, func(re int, bd bounds) { visit(dv, vceLo, vceHi, kE, re, bd) })
 }
 
-// eachDevice runs search for every device of order, each device going to
-// the next free worker (at most searchWorkers goroutines, numbered from
-// 0), with counters of its own that are added to cnt at the end. The
-// result does not depend on the order the devices finish in: the pool
+// onWorkers runs fn for every item of order (device indexes, or the
+// starts of polish), each going to the next free worker (at most
+// searchWorkers goroutines, numbered from 0), with counters of its own
+// that are added to cnt at the end; with report it reports progress. The
+// result does not depend on the order the items finish in: the pool
 // keeps the exact best builds whatever order they arrive in.
-func (e *evaluator) eachDevice(order []int, report bool, cnt *counters, search func(worker, di int, wc *counters)) {
+func (e *evaluator) onWorkers(order []int, report bool, cnt *counters, fn func(worker, item int, wc *counters)) {
 	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0), len(order)))
 	total := int64(len(order))
 	var next atomic.Int64
@@ -111,7 +114,7 @@ func (e *evaluator) eachDevice(order []int, report bool, cnt *counters, search f
 					e.progress(i, total)
 					progressMu.Unlock()
 				}
-				search(k, order[i], &wcnt[k])
+				fn(k, order[i], &wcnt[k])
 			}
 		})
 	}
@@ -236,8 +239,9 @@ func (tc *tupleCache) alloc() *tuple {
 // polish hill-climbs from the best passing builds in the pool: each
 // round moves one position one level, or to the nearest level holding a
 // single, up or down to the neighbour with the best score, until no
-// neighbour improves (at most maxPolishSteps rounds per start). Every build it scores goes to the pool, so the threshold
-// falls early; it changes nothing but the order of the search.
+// neighbour improves (at most maxPolishSteps rounds per start). Every
+// build it scores goes to the pool, so the threshold falls early; it
+// changes nothing but the order of the search.
 func (e *evaluator) polish(p *pool, cnt *counters) {
 	type start struct {
 		c     combo
@@ -250,28 +254,13 @@ func (e *evaluator) polish(p *pool, cnt *counters) {
 		}
 	}
 	// the climbs are independent: they run on the search's workers, each
-	// with a tuple cache of its own (the pool keeps the exact best builds
-	// whatever order they arrive in)
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	wcnt := make([]counters, max(1, min(searchWorkers, runtime.GOMAXPROCS(0), len(starts))))
-	for k := range wcnt {
-		wg.Go(func() {
-			var tc tupleCache
-			for {
-				i := int(next.Add(1) - 1)
-				if i >= len(starts) {
-					return
-				}
-				e.climb(p, &tc, starts[i].c, starts[i].score, &wcnt[k])
-			}
-		})
+	// with a tuple cache of its own
+	tcs := make([]tupleCache, searchWorkers)
+	items := make([]int, len(starts))
+	for i := range items {
+		items[i] = i
 	}
-	wg.Wait()
-	for _, c := range wcnt {
-		cnt.evaluated += c.evaluated
-		cnt.solves += c.solves
-	}
+	e.onWorkers(items, false, cnt, func(k, i int, wc *counters) { e.climb(p, &tcs[k], starts[i].c, starts[i].score, wc) })
 }
 
 // climb is polish's hill climb from build c, whose score is score.
