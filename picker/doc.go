@@ -356,7 +356,8 @@
 //   - F-B: IB ≤ IC/β_min gives RF ≥ β_min(VCC − VBE_hi − kE·icHi·r)/icHi;
 //     bound B over R_TH from there up bounds the beta term of every build
 //     at (RC, RE). With RE's utilization and emitter floors it skips an RC
-//     and narrows the IC window.
+//     and narrows the IC window. It depends on RC + RE and the IC window
+//     only, so it is kept per sum (series pairs repeat sums).
 //   - F-G, the RF window: by F1 the RF levels with IC in the window are
 //     found by two searches, run not at the build's own sum r = RC + RE
 //     but at its two neighbours on a grid of sums (gridPoints points per

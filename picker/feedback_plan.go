@@ -22,7 +22,17 @@ type feedbackPlan struct {
 	// point of RC + RE, RF level) (rfWindow); lnStep is the grid's step
 	grid   map[[2]int]float64
 	lnStep float64
+	// fb memoizes betaFloorRC of the device being searched by sum RC + RE
+	// and IC window: series pairs give many (RC, RE) pairs the same sum
+	// (a third of them on an E12 wall with pairs)
+	fb map[fbKey]float64
 }
+
+// fbMemo caps feedbackPlan.fb (about 16 MB per worker).
+const fbMemo = 1 << 18
+
+// fbKey is what betaFloorRC depends on besides the device.
+type fbKey struct{ r, icLo, icHi float64 }
 
 // tuple returns the (cached) solved level tuple of device di.
 func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
@@ -80,9 +90,10 @@ func (f *feedbackPlan) setGrid() {
 	}
 	f.lnStep = math.Log1p(step)
 	if f.grid == nil {
-		f.grid = map[[2]int]float64{}
+		f.grid, f.fb = map[[2]int]float64{}, map[fbKey]float64{}
 	}
 	clear(f.grid)
+	clear(f.fb)
 }
 
 // gridOhm is the grid's point g: e^(g·lnStep) Ω.
@@ -271,7 +282,16 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				}
 				nonBeta = base + qFloor
 				if w.Beta > 0 {
-					base += w.Beta * f.betaFloorRC(dv, bd, r)
+					k := fbKey{r, bd.icLo, bd.icHi}
+					fb, ok := f.fb[k]
+					if !ok {
+						fb = f.betaFloorRC(dv, bd, r)
+						if len(f.fb) == fbMemo {
+							clear(f.fb) // a memo: only the work changes
+						}
+						f.fb[k] = fb
+					}
+					base += w.Beta * fb
 				}
 				if base+qFloor > bd.thr {
 					continue
