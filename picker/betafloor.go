@@ -241,8 +241,32 @@ func newNominalDevice(m solver.Model) nominalDevice {
 }
 
 // hotVBECap is newBetaModel's VBE bound for junctions up to Tj max with
-// this RE (at most VCC), without the rest of the model.
+// this RE (at most VCC), without the rest of the model; what does not
+// depend on RE is dv.hotCap (newHotCap).
 func (e *evaluator) hotVBECap(dv *device, reOhm float64) float64 {
+	vcc := e.span
+	hc := &dv.hotCap
+	if !hc.ok {
+		return vcc
+	}
+	ibeMax := vcc / reOhm / hc.den
+	vCapLo := hc.nvtLo * math.Log(ibeMax/hc.is+1)
+	return math.Min(vcc, vCapLo*hc.heat)
+}
+
+// hotCap is what hotVBECap takes of a device whatever RE is.
+type hotCap struct {
+	ok    bool    // false: the bound is VCC
+	den   float64 // (1 − c)·q0: Ibe ≤ VCC/RE/den
+	is    float64 // IS just below the nominal ambient
+	nvtLo float64 // NF·VT there
+	heat  float64 // (Tj max + slack)/(that temperature), in kelvin
+}
+
+// newHotCap computes dv's hotCap for this evaluator's span: c bounds
+// Ibc/Ibe with VCE at least VCE(sat) + margin at Tj max, q0 the Early
+// factor's floor (1 − span/VAF).
+func (e *evaluator) newHotCap(dv *device) hotCap {
 	vcc := e.span
 	m := dv.typ
 	at := dv.nominal()
@@ -254,12 +278,10 @@ func (e *evaluator) hotVBECap(dv *device, reOhm float64) float64 {
 		q0 = 1 - vcc/m.VAF_V
 	}
 	if cp >= 1 || q0 <= 0 {
-		return vcc
+		return hotCap{}
 	}
-	ibeMax := vcc / reOhm / ((1 - cp) * q0)
 	tLo := NominalAmbient_C - thermalSlack_K
-	vCapLo := m.NF * solver.ThermalVoltage_V(tLo) * math.Log(ibeMax/at.is+1)
-	return math.Min(vcc, vCapLo*(th+273.15)/(tLo+273.15))
+	return hotCap{ok: true, den: (1 - cp) * q0, is: at.is, nvtLo: m.NF * solver.ThermalVoltage_V(tLo), heat: (th + 273.15) / (tLo + 273.15)}
 }
 
 // nominal returns d.at25, computed here for a device built without it.

@@ -20,6 +20,9 @@ type device struct {
 	// betaNomMin bounds IC/IB from below at every nominal point of a
 	// passing build (evaluator.nominalBetaMin).
 	betaNomMin float64
+	// hotCap is what hotVBECap takes of the device whatever RE is
+	// (evaluator.newHotCap).
+	hotCap hotCap
 	// labelGroup is the index of the first device with this label
 	// (near-duplicates, fold.go).
 	labelGroup int
