@@ -172,6 +172,7 @@ type betaModel struct {
 	a, aMax    float64 // R_TH + RE at the least and the largest R_TH
 	icLo       float64 // the typical point's IC is at least this
 	theta      float64 // K/W
+	xtb        *xtbTable
 }
 
 // newBetaModel computes the bounds for junctions in [25 °C, th] (see
@@ -179,7 +180,7 @@ type betaModel struct {
 func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMax, icLo float64) (betaModel, bool) {
 	m := dv.typ
 	bm := betaModel{m: m, b1: dv.lo.BF, bt: m.BF, b2: dv.hi.BF, br: m.BR, th: th,
-		vcc: e.span, re: reOhm, rcMin: rcMin, rcMax: rcMax, a: rth + reOhm, aMax: rthMax + reOhm, icLo: icLo, theta: dv.thetaJA}
+		vcc: e.span, re: reOhm, rcMin: rcMin, rcMax: rcMax, a: rth + reOhm, aMax: rthMax + reOhm, icLo: icLo, theta: dv.thetaJA, xtb: &dv.xtb}
 	bm.tLo_C = NominalAmbient_C - thermalSlack_K
 	bm.tLoK = bm.tLo_C + 273.15
 	bm.dT = th - bm.tLo_C
@@ -295,6 +296,45 @@ func (d *device) nominal() nominalDevice {
 // factor is BF's (and BR's) temperature factor (T/TNOM)^XTB.
 func (bm *betaModel) factor(t_C float64) float64 {
 	return math.Pow((t_C+273.15)/(bm.m.TNOM_C+273.15), bm.m.XTB)
+}
+
+// factorUp is at least factor(t_C): the factor at the next point of the
+// device's table (xtbTable) on the side where the factor is larger (it is
+// monotonic in T), or factor itself off the table.
+func (bm *betaModel) factorUp(t_C float64) float64 {
+	tab := bm.xtb
+	x := (t_C - tab.t0) / xtbStep_K
+	if !(x >= 0) || x >= float64(len(tab.f)-1) {
+		return bm.factor(t_C)
+	}
+	if bm.m.XTB >= 0 {
+		return tab.f[int(math.Ceil(x))]
+	}
+	return tab.f[int(x)]
+}
+
+// xtbTable holds a device's temperature factor every xtbStep_K from t0
+// (betaModel's lowest junction temperature) past Tj max.
+type xtbTable struct {
+	t0 float64
+	f  []float64
+}
+
+// xtbStep_K is xtbTable's step: the factor it gives for a temperature is
+// at most that of one step hotter, a few parts in 10⁵ for the XTB of a
+// silicon transistor.
+const xtbStep_K = 0.05
+
+// newXTBTable tabulates dv's temperature factor.
+func newXTBTable(dv *device) xtbTable {
+	bm := betaModel{m: dv.typ}
+	t0 := NominalAmbient_C - thermalSlack_K
+	n := int(math.Ceil((dv.tjMax_C+2*thermalSlack_K-t0)/xtbStep_K)) + 2
+	tab := xtbTable{t0: t0, f: make([]float64, n)}
+	for i := range tab.f {
+		tab.f[i] = bm.factor(t0 + float64(i)*xtbStep_K)
+	}
+	return tab
 }
 
 // cnAt bounds IS/Ibe (−c when the collector junction is reverse biased:
@@ -481,7 +521,7 @@ func (bm *betaModel) point(b, cn, icLo, icUp float64) betaPoint {
 	p.ibUp = math.Min(icUp/bm.betaMin(b), bm.vcc/bm.a)
 	p.pUp = math.Min(bm.vcc*icUp, bm.vcc*bm.vcc/(4*(bm.rcMin+bm.re))) + bm.vbeCap*p.ibUp
 	tHi := math.Min(bm.th, NominalAmbient_C+bm.theta*p.pUp+thermalSlack_K)
-	p.fHi = math.Max(bm.f25, bm.factor(tHi))
+	p.fHi = math.Max(bm.f25, bm.factorUp(tHi))
 	return bm.withLow(p, icLo)
 }
 

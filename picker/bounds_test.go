@@ -288,3 +288,33 @@ func TestPartsFloorAndSingleIndex(t *testing.T) {
 		}
 	}
 }
+
+// TestFactorUpBoundsFactor: betaFloor takes the temperature factor of a
+// point's hottest junction from a table (factorUp), which must never be
+// under the factor itself, for a rising and a falling factor, and not over
+// it by more than one table step's worth. source: the SPICE BJT model's
+// temperature law of BF, BF·(T/TNOM)^XTB (ngspice manual, BJT temperature
+// effects), monotonic in T.
+func TestFactorUpBoundsFactor(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 1))
+	for _, xtb := range []float64{1.5, 0, -0.7} {
+		tr := smallNPN(1, 100, 300)
+		st := Stock{Transistors: []Transistor{tr}}
+		s, err := normalize(Request{VCC_V: 12, IC_A: 1e-3})
+		if err != nil {
+			t.Fatal(err)
+		}
+		e, _ := newEvaluator(s, st, s.topo)
+		dv := &e.devs[0]
+		dv.typ.XTB = xtb
+		dv.xtb = newXTBTable(dv)
+		bm := betaModel{m: dv.typ, xtb: &dv.xtb}
+		for range 5000 {
+			tc := NominalAmbient_C - 1 + rng.Float64()*(dv.tjMax_C-NominalAmbient_C+2)
+			got, want := bm.factorUp(tc), bm.factor(tc)
+			if got < want || got > want*(1+math.Abs(xtb)*xtbStep_K/250) {
+				t.Fatalf("XTB %g at %.4f °C: table %.12g, factor %.12g", xtb, tc, got, want)
+			}
+		}
+	}
+}

@@ -227,6 +227,7 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 	for i := range e.devs {
 		e.devs[i].betaNomMin = e.nominalBetaMin(&e.devs[i])
 		e.devs[i].hotCap = e.newHotCap(&e.devs[i])
+		e.devs[i].xtb = newXTBTable(&e.devs[i])
 	}
 	return e, rejected
 }

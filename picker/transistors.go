@@ -23,6 +23,8 @@ type device struct {
 	// hotCap is what hotVBECap takes of the device whatever RE is
 	// (evaluator.newHotCap).
 	hotCap hotCap
+	// xtb tabulates the temperature factor for betaFloor (newXTBTable).
+	xtb xtbTable
 	// labelGroup is the index of the first device with this label
 	// (near-duplicates, fold.go).
 	labelGroup int
