@@ -546,7 +546,8 @@ func (bm *betaModel) withLow(p betaPoint, icLo float64) betaPoint {
 //   - |P_A − P_B| ≤ VCC·|ΔIC| + (IB_A + IB_B)·max(VBEcap, VCC): P =
 //     IC·VCC − IC²(RC + RE) − IC·IB·RE + VBE·IB and the first part has a
 //     slope within ±VCC while VCE ≥ 0; so |T_A − T_B| ≤ θ|ΔP| + 2·slack,
-//     and the XTB factors differ by at most (1 − ΔT/T)^|XTB|;
+//     and the ratio of the XTB factors is at least (1 − ΔT/T)^|XTB|, at
+//     least 1 − max(1, |XTB|)·ΔT/T (Bernoulli's inequality);
 //   - q_A/q_B = 1 − (VCE_B − VCE_A + VBE_A − VBE_B)/(VAF + VCE_B − VBE_B),
 //     with VCE_B − VCE_A = (IC_A − IC_B)(RC + RE) + (IB_A − IB_B)·RE and
 //     VBE_A − VBE_B ≤ vbeRise(Ibe_A/Ibe_B) + κ·ΔT;
@@ -554,7 +555,10 @@ func (bm *betaModel) withLow(p betaPoint, icLo float64) betaPoint {
 func (bm *betaModel) ratio(pa, pb betaPoint) (rho, qk, dT float64) {
 	dIC := math.Max(0, math.Max(pa.icUp-pb.icLo, pb.icUp-pa.icLo))
 	dT = math.Min(bm.dT, bm.theta*(bm.vcc*dIC+(pa.ibUp+pb.ibUp)*math.Max(bm.vbeCap, bm.vcc))+2*thermalSlack_K)
-	fRatio := math.Pow(math.Max(0, 1-dT/bm.tLoK), math.Abs(bm.m.XTB))
+	// (1 − y)^a with y = ΔT/T ≤ 1 is at least 1 − a·y for a ≥ 1
+	// (Bernoulli) and at least 1 − y for a < 1: within a(a − 1)y²/2 of
+	// it, without a power
+	fRatio := math.Max(0, 1-math.Max(1, math.Abs(bm.m.XTB))*math.Min(1, dT/bm.tLoK))
 	qRatio := 1.0
 	if vaf := bm.m.VAF_V; vaf > 0 {
 		n := pa.ibUp * bm.re
