@@ -71,7 +71,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	if dv.thetaJA > 0 {
 		th = dv.tjMax_C + thermalSlack_K
 		p0 := vcc*vcc/(4*(rcMin+reOhm)) + e.hotVBECap(dv, reOhm)*vcc/(rth+reOhm)
-		th = math.Min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*p0) + thermalSlack_K
+		th = min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*p0) + thermalSlack_K
 	}
 	var bm betaModel
 	var p1, pt, p2 betaPoint
@@ -90,7 +90,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 		cn1, cn2 := bm.cnAt(y*icLo), bm.cnAt(z*icLo)
 		p1 = bm.point(bm.b1, cn1, y*icLo, bm.upRatio(bm.b1, cn1, pt)*icHi)
 		p2 = bm.point(bm.b2, cn2, z*icLo, bm.upRatio(bm.b2, cn2, pt)*icHi)
-		next := math.Min(th, NominalAmbient_C+dv.thetaJA*math.Max(math.Max(p1.pUp, p2.pUp), pt.pUp)+thermalSlack_K)
+		next := min(th, NominalAmbient_C+dv.thetaJA*max(max(p1.pUp, p2.pUp), pt.pUp)+thermalSlack_K)
 		if next >= th-0.5 {
 			break // less than half a kelvin to gain
 		}
@@ -102,9 +102,9 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	// Sharpen the lower ends of IC1 and IC2 with what each point shares
 	// with the typical one.
 	rho, qk, dT := bm.ratio(p1, pt)
-	y := math.Max(p1.icLo/icLo, bm.lowRatio(bm.b1, p1.cn, qk, dT, rho, pt))
+	y := max(p1.icLo/icLo, bm.lowRatio(bm.b1, p1.cn, qk, dT, rho, pt))
 	rho, qk, dT = bm.ratio(p2, pt)
-	z := math.Max(p2.icLo/icLo, bm.lowRatio(bm.b2, p2.cn, qk, dT, rho, pt))
+	z := max(p2.icLo/icLo, bm.lowRatio(bm.b2, p2.cn, qk, dT, rho, pt))
 	p1, p2 = bm.withLow(p1, y*icLo), bm.withLow(p2, z*icLo)
 	rho, qk, dT = bm.ratio(p2, p1)
 	gr := bm.gRatio(bm.b2, bm.b1, bm.betaMin(bm.b1)/bm.b1, p1.phiMax, rho)
@@ -118,7 +118,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	if !(x > 0) {
 		return 0
 	}
-	return math.Max(x*y, z*x/(1+x))
+	return max(x*y, z*x/(1+x))
 }
 
 // nominalBetaMin bounds IC/IB from below at every nominal point of a
@@ -138,7 +138,7 @@ func (e *evaluator) nominalBetaMin(dv *device) float64 {
 	if !ok {
 		return none
 	}
-	return math.Max(none, bm.betaMin(bm.b1))
+	return max(none, bm.betaMin(bm.b1))
 }
 
 // thermalSlack_K widens junction-temperature bounds past the self-heated
@@ -221,7 +221,7 @@ func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMa
 	bm.vbeCap = vCapLo * (th + 273.15) / bm.tLoK
 	bm.qMin = 1
 	if m.VAF_V > 0 {
-		bm.qMin = 1 - math.Max(0, bm.vbeCap-bm.vceFloor)/m.VAF_V
+		bm.qMin = 1 - max(0, bm.vbeCap-bm.vceFloor)/m.VAF_V
 	}
 	bm.kMin = (1-bm.cp)*bm.qMin - bm.cp/bm.brLo
 	if bm.kMin <= 0 {
@@ -229,7 +229,7 @@ func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMa
 	}
 	// ∂VBE/∂T = VBE/T − NF(EG + XTI·VT)/T·Ibe/(Ibe + IS), and VBE/T at a
 	// fixed current is largest at the coolest junction.
-	bm.kappa = math.Max(m.NF*(m.EG_eV+m.XTI*vtHi), vCapLo) / bm.tLoK
+	bm.kappa = max(m.NF*(m.EG_eV+m.XTI*vtHi), vCapLo) / bm.tLoK
 	return bm, true
 }
 
@@ -252,7 +252,7 @@ func (e *evaluator) hotVBECap(dv *device, reOhm float64) float64 {
 	}
 	ibeMax := vcc / reOhm / hc.den
 	vCapLo := hc.nvtLo * math.Log(ibeMax/hc.is+1)
-	return math.Min(vcc, vCapLo*hc.heat)
+	return min(vcc, vCapLo*hc.heat)
 }
 
 // hotCap is what hotVBECap takes of a device whatever RE is.
@@ -345,7 +345,7 @@ func (bm *betaModel) cnAt(icLo float64) float64 {
 	if !(d > 0) {
 		return bm.cnOn
 	}
-	return math.Min(bm.cnOn, bm.isHi*bm.qMax/d)
+	return min(bm.cnOn, bm.isHi*bm.qMax/d)
 }
 
 // kMaxFor bounds IC/Ibe from above at a point whose IS/Ibe is at most cn.
@@ -379,7 +379,7 @@ func (bm *betaModel) gRatio(bA, bB, phiBMin, phiBMax, rho float64) float64 {
 	if wHi := bm.aMax / phiBMin; !math.IsInf(wHi, 1) {
 		hi = h(wHi)
 	}
-	return math.Min(h(bm.a/phiBMax), hi)
+	return min(h(bm.a/phiBMax), hi)
 }
 
 // vbeRise bounds VBE_A − VBE_B from above for two points at one junction
@@ -432,14 +432,14 @@ func (bm *betaModel) upRatio(b, cnA float64, pt betaPoint) float64 {
 		return math.Inf(1)
 	}
 	h := func(a float64) float64 { return (a/btMin + bm.re) / (a/bMax + bm.re) }
-	hr := math.Max(h(bm.a), bMax/btMin)
+	hr := max(h(bm.a), bMax/btMin)
 	if !math.IsInf(bm.aMax, 1) {
-		hr = math.Max(h(bm.a), h(bm.aMax))
+		hr = max(h(bm.a), h(bm.aMax))
 	}
 	aT := bm.icLo * (bm.a/(bm.bt*pt.phiMax) + bm.re)
 	rise, _ := bm.vbeRise(bm.kMaxFor(cnA)/bm.kMin, pt.cn)
-	spread := math.Max(0, rise) + bm.kappa*bm.dT
-	return math.Max(1, hr*(1+spread/aT))
+	spread := max(0, rise) + bm.kappa*bm.dT
+	return max(1, hr*(1+spread/aT))
 }
 
 // leastFixedPoint returns a lower bound on the fixed point v* = f(v*) of
@@ -452,11 +452,11 @@ func (bm *betaModel) upRatio(b, cnA float64, pt betaPoint) float64 {
 func leastFixedPoint(fdf func(float64) (float64, float64), guess float64) float64 {
 	f := func(x float64) float64 { v, _ := fdf(x); return v }
 	best := 0.0
-	x := math.Max(guess, 1e-12)
+	x := max(guess, 1e-12)
 	for range 12 {
 		fx, dfx := fdf(x)
 		if fx >= x {
-			best = math.Max(best, x)
+			best = max(best, x)
 		}
 		d := dfx - 1
 		if !(d < 0) || math.IsInf(d, 0) {
@@ -468,7 +468,7 @@ func leastFixedPoint(fdf func(float64) (float64, float64), guess float64) float6
 		}
 		if math.Abs(next-x) <= 1e-8*x {
 			if f(next) >= next {
-				best = math.Max(best, next)
+				best = max(best, next)
 			}
 			break
 		}
@@ -477,7 +477,7 @@ func leastFixedPoint(fdf func(float64) (float64, float64), guess float64) float6
 	if best > 0 {
 		return best
 	}
-	hi := math.Max(guess, 1e-12)
+	hi := max(guess, 1e-12)
 	for i := 0; f(hi) > hi; i++ {
 		if i == 200 {
 			return 0
@@ -518,10 +518,10 @@ type betaPoint struct {
 // IC·RE)/VAF.
 func (bm *betaModel) point(b, cn, icLo, icUp float64) betaPoint {
 	p := betaPoint{b: b, cn: cn, icLo: icLo, icUp: icUp}
-	p.ibUp = math.Min(icUp/bm.betaMin(b), bm.vcc/bm.a)
-	p.pUp = math.Min(bm.vcc*icUp, bm.vcc*bm.vcc/(4*(bm.rcMin+bm.re))) + bm.vbeCap*p.ibUp
-	tHi := math.Min(bm.th, NominalAmbient_C+bm.theta*p.pUp+thermalSlack_K)
-	p.fHi = math.Max(bm.f25, bm.factorUp(tHi))
+	p.ibUp = min(icUp/bm.betaMin(b), bm.vcc/bm.a)
+	p.pUp = min(bm.vcc*icUp, bm.vcc*bm.vcc/(4*(bm.rcMin+bm.re))) + bm.vbeCap*p.ibUp
+	tHi := min(bm.th, NominalAmbient_C+bm.theta*p.pUp+thermalSlack_K)
+	p.fHi = max(bm.f25, bm.factorUp(tHi))
 	return bm.withLow(p, icLo)
 }
 
@@ -531,7 +531,7 @@ func (bm *betaModel) withLow(p betaPoint, icLo float64) betaPoint {
 	p.icLo = icLo
 	q := 1.0
 	if bm.m.VAF_V > 0 {
-		q = 1 + math.Max(0, bm.vcc-icLo*bm.re)/bm.m.VAF_V
+		q = 1 + max(0, bm.vcc-icLo*bm.re)/bm.m.VAF_V
 	}
 	p.phiMax = math.Inf(1)
 	if d := 1 - p.cn*p.b/bm.br; d > 0 {
@@ -553,12 +553,12 @@ func (bm *betaModel) withLow(p betaPoint, icLo float64) betaPoint {
 //     VBE_A − VBE_B ≤ vbeRise(Ibe_A/Ibe_B) + κ·ΔT;
 //   - the c parts of k and of 1 + c·b/BR within their extremes.
 func (bm *betaModel) ratio(pa, pb betaPoint) (rho, qk, dT float64) {
-	dIC := math.Max(0, math.Max(pa.icUp-pb.icLo, pb.icUp-pa.icLo))
-	dT = math.Min(bm.dT, bm.theta*(bm.vcc*dIC+(pa.ibUp+pb.ibUp)*math.Max(bm.vbeCap, bm.vcc))+2*thermalSlack_K)
+	dIC := max(0, max(pa.icUp-pb.icLo, pb.icUp-pa.icLo))
+	dT = min(bm.dT, bm.theta*(bm.vcc*dIC+(pa.ibUp+pb.ibUp)*max(bm.vbeCap, bm.vcc))+2*thermalSlack_K)
 	// (1 − y)^a with y = ΔT/T ≤ 1 is at least 1 − a·y for a ≥ 1
 	// (Bernoulli) and at least 1 − y for a < 1: within a(a − 1)y²/2 of
 	// it, without a power
-	fRatio := math.Max(0, 1-math.Max(1, math.Abs(bm.m.XTB))*math.Min(1, dT/bm.tLoK))
+	fRatio := max(0, 1-max(1, math.Abs(bm.m.XTB))*min(1, dT/bm.tLoK))
 	qRatio := 1.0
 	if vaf := bm.m.VAF_V; vaf > 0 {
 		n := pa.ibUp * bm.re
@@ -566,7 +566,7 @@ func (bm *betaModel) ratio(pa, pb betaPoint) (rho, qk, dT float64) {
 			n += up * (bm.rcMax + bm.re)
 		}
 		rise, _ := bm.vbeRise(pa.icUp/pb.icLo*bm.kMaxFor(pb.cn)/bm.kMin, pa.cn)
-		n += math.Max(0, rise) + bm.kappa*dT
+		n += max(0, rise) + bm.kappa*dT
 		den := vaf + bm.vceFloor - bm.vbeCap
 		if !(den > 0) || !(n < den) {
 			return 0, math.Inf(1), dT

@@ -29,17 +29,17 @@ func (e *evaluator) vbeBounds(dv *device, icLo, icHi float64) (lo, hi float64) {
 	if m.ICBO_A > 0 || icLo <= 0 {
 		return 0, hi
 	}
-	tj := math.Min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*e.s.vcc*icHi*2)
+	tj := min(dv.tjMax_C, NominalAmbient_C+dv.thetaJA*e.s.vcc*icHi*2)
 	isT, _, br, _ := m.At(tj)
 	early := 1.0
 	if m.VAF_V > 0 {
 		early += e.s.vcc / m.VAF_V
 	}
-	num := icLo - isT/math.Max(br, 1e-9)
+	num := icLo - isT/max(br, 1e-9)
 	if num <= 0 {
 		return 0, hi
 	}
-	lo = math.Max(0, m.NF*solver.ThermalVoltage_V(tj)*math.Log(num/(isT*early))*(1-1e-9))
+	lo = max(0, m.NF*solver.ThermalVoltage_V(tj)*math.Log(num/(isT*early))*(1-1e-9))
 	return lo, hi
 }
 
@@ -59,8 +59,8 @@ func (e *evaluator) dividerPowerBound(r2 int, vbLo, vbHi float64) float64 {
 	u := vbLo * vbLo / r2Ohm / e.vs.levels[r2].allowHot_W
 	vcc := e.s.vcc
 	if vbHi < vcc && vbLo > 0 {
-		p1 := math.Min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi) / r2Ohm
-		u = math.Max(u, p1/e.vs.allowHotMax_W)
+		p1 := min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi) / r2Ohm
+		u = max(u, p1/e.vs.allowHotMax_W)
 	}
 	return u
 }
@@ -73,7 +73,7 @@ func (e *evaluator) dividerPowerBoundWeak(r2 int, vbLo, vbHi float64) float64 {
 	p := vbLo * vbLo / r2Ohm
 	vcc := e.s.vcc
 	if vbHi < vcc && vbLo > 0 {
-		p = math.Max(p, math.Min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi)/r2Ohm)
+		p = max(p, min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi)/r2Ohm)
 	}
 	return p / e.vs.allowHotMax_W
 }
@@ -118,7 +118,7 @@ func firstFrom(n, guess int, f func(int) bool) int {
 // R_TH ≥ R2(1 − vbHi/VCC)/(1 + R2·ibHi/VCC).
 func (e *evaluator) rthFloor(r2Ohm, vbHi, ibHi float64) float64 {
 	vcc := e.s.vcc
-	return math.Max(0, r2Ohm*(1-vbHi/vcc)/(1+r2Ohm*ibHi/vcc))
+	return max(0, r2Ohm*(1-vbHi/vcc)/(1+r2Ohm*ibHi/vcc))
 }
 
 // transistorUseFloor is bound U-Q (doc.go): a lower bound on the

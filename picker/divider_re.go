@@ -43,7 +43,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	// of every build at this RE.
 	reFloors := func(bd bounds) (uRE, eLo float64) {
 		uRE = bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-		eLo = math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+		eLo = max(0, max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
 		return uRE, eLo
 	}
 	// r2Beta bounds the beta term of every build with R2 in levels
@@ -126,7 +126,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			var uRE float64
 			uRE, eLo = reFloors(bd)
 			pRC = bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
-			if pf2+e.useAndPartsFloor(math.Max(uRE, uDiv), pRC)+w.Emitter*eLo > bd.thr {
+			if pf2+e.useAndPartsFloor(max(uRE, uDiv), pRC)+w.Emitter*eLo > bd.thr {
 				continue // settled without bound B
 			}
 			// Bound B is taken per block of r2Block R2 levels: a floor
@@ -144,8 +144,8 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			}
 			// Bound U-Q: the transistor's own dissipation.
 			uQ := e.transistorUseFloor(dv, bd, vceLo, pf2+w.Beta*bLo+w.Emitter*eLo)
-			uNoRC = math.Max(math.Max(uRE, uDiv), uQ)
-			uBase = math.Max(uNoRC, pRC/e.vs.allowHotMax_W)
+			uNoRC = max(max(uRE, uDiv), uQ)
+			uBase = max(uNoRC, pRC/e.vs.allowHotMax_W)
 			// base (the floor scanRC takes, RC open) and baseUP, with
 			// RC as one part or a pair (bound U-P), which only cuts.
 			base = pf2 + w.Beta*bLo + w.Utilization*uBase + w.Emitter*eLo
@@ -261,10 +261,10 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 				if vbHi < e.s.vcc {
 					uR1 = (e.s.vcc - vbHi) * (e.s.vcc - vbHi) / r1Ohm / e.vs.levels[r1].allowHot_W
 				}
-				use1 = math.Max(uBase, uR1)
-				b1 = pf2 + e.partsFloor(r1) + w.Beta*math.Max(bLo, bR1) + w.Utilization*use1 + w.Emitter*eLo
+				use1 = max(uBase, uR1)
+				b1 = pf2 + e.partsFloor(r1) + w.Beta*max(bLo, bR1) + w.Utilization*use1 + w.Emitter*eLo
 				// bound U-P with RC as one part or a pair
-				if b1-w.Utilization*use1+e.useAndPartsFloor(math.Max(uNoRC, uR1), pRC) > p.threshold() {
+				if b1-w.Utilization*use1+e.useAndPartsFloor(max(uNoRC, uR1), pRC) > p.threshold() {
 					continue
 				}
 			}

@@ -86,7 +86,7 @@ func (f *feedbackPlan) setGrid() {
 	lv := f.e.vs.levels
 	step := 0.005
 	if n := len(lv); n > 1 {
-		step = math.Min(step, math.Log(lv[n-1].ohm/lv[0].ohm)/float64(n-1)/gridPoints)
+		step = min(step, math.Log(lv[n-1].ohm/lv[0].ohm)/float64(n-1)/gridPoints)
 	}
 	f.lnStep = math.Log1p(step)
 	if f.grid == nil {
@@ -233,8 +233,8 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				// Bound F-RF over RC levels rc..last, with RE's
 				// utilization, emitter and parts floors.
 				last := min(rc+skip-1, rcHi)
-				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-				uRE := math.Max(math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)),
+				eLo := max(0, max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+				uRE := max(max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)),
 					e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
 				xLo := f.icFloorAbove(di, e.vs.levels[last].ohm+reOhm, cnt)
 				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
@@ -260,17 +260,17 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				// QPoint term, so the IC window narrows. The
 				// QPoint term itself is at least qFloor (F-Q).
 				uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-				eLo := math.Max(0, math.Max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+				eLo := max(0, max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
 				// and the transistor's (U-Q): none of these floors falls
 				// as RC rises
-				uRE = math.Max(uRE, e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
-				base := pfRE + w.Utilization*math.Max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
+				uRE = max(uRE, e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
+				base := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
 				if base > bd.thr {
 					break
 				}
 				// U-RC with this level's own best allowance (not
 				// monotone in RC, so it only skips this RC)
-				uOwn := math.Max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
+				uOwn := max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
 				base = pf + w.Utilization*uOwn + w.Emitter*eLo
 				r := e.vs.levels[rc].ohm + reOhm
 				// Every build here has IC at least xLo (F-RF per
@@ -319,12 +319,12 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
 					RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
 				uQ := e.transistorUseFloor(dv, bd, vceLo, pf+w.Beta*bLo)
-				base := pf + w.Utilization*math.Max(math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
+				base := pf + w.Utilization*max(max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
 					bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W), uQ) + w.Beta*bLo
 				if base > bd.thr {
 					continue
 				}
-				fl = math.Max(fl, base)
+				fl = max(fl, base)
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
 					within := e.boundsWithin(bd.thr, d2)
@@ -392,7 +392,7 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 	if rfMin <= 0 {
 		return 0
 	}
-	return e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: math.Max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: r,
+	return e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: r,
 		ICLo: bd.icLo, ICHi: bd.icHi})
 }
 
@@ -416,8 +416,8 @@ func (e *evaluator) feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi float64)
 // [VCC − kE·x·rHi, VCC − x·rLo] from the band [vceLo, vceHi] over the span.
 func (e *evaluator) feedbackQAt(x, rLo, rHi, xLo, kE, vceLo, vceHi float64) float64 {
 	vcc, it := e.s.vcc, e.s.icT
-	x = math.Max(math.Max(0, xLo), x)
-	d := math.Max(0, math.Max(vcc-kE*x*rHi-vceHi, vceLo-(vcc-x*rLo)))
+	x = max(max(0, xLo), x)
+	d := max(0, max(vcc-kE*x*rHi-vceHi, vceLo-(vcc-x*rLo)))
 	return math.Abs(x-it)/it + d/e.span
 }
 
@@ -426,11 +426,11 @@ func (e *evaluator) feedbackQAt(x, rLo, rHi, xLo, kE, vceLo, vceHi float64) floa
 // its least value at a breakpoint (feedbackQFloorBlock says which).
 func (e *evaluator) feedbackQLeast(rLo, rHi, xLo, kE, vceLo, vceHi float64) (q, at float64) {
 	vcc, it := e.s.vcc, e.s.icT
-	at = math.Max(math.Max(0, xLo), it)
+	at = max(max(0, xLo), it)
 	q = e.feedbackQAt(at, rLo, rHi, xLo, kE, vceLo, vceHi)
 	for _, x := range []float64{xLo, (vcc - vceLo) / rLo, (vcc - vceHi) / (kE * rHi), (vcc - vceHi) / rLo, (vcc - vceLo) / (kE * rHi),
 		(2*vcc - vceHi - vceLo) / (kE*rHi + rLo)} {
-		x = math.Max(math.Max(0, xLo), x)
+		x = max(max(0, xLo), x)
 		if v := e.feedbackQAt(x, rLo, rHi, xLo, kE, vceLo, vceHi); v < q {
 			q, at = v, x
 		}
@@ -451,9 +451,9 @@ func (e *evaluator) feedbackICWindow(r, xLo, kE, vceLo, vceHi, d, icLo, icHi flo
 		return 0, 0, false
 	}
 	over := func(x float64) bool { return e.feedbackQAt(x, r, r, xLo, kE, vceLo, vceHi)*(1-1e-12) > d }
-	lo = math.Max(edgeOver(icLo, x0, over), xLo)
+	lo = max(edgeOver(icLo, x0, over), xLo)
 	hi = edgeOver(icHi, x0, over)
-	return math.Max(lo, icLo), math.Min(hi, icHi), math.Max(lo, icLo) <= math.Min(hi, icHi)
+	return max(lo, icLo), min(hi, icHi), max(lo, icLo) <= min(hi, icHi)
 }
 
 // edgeOver returns, for a predicate over that holds at out and not at in

@@ -41,9 +41,9 @@ choices:
 			if allow <= 0 {
 				continue choices // no such value
 			}
-			v = math.Max(v, p/allow)
+			v = max(v, p/allow)
 		}
-		best = math.Min(best, f+w.Utilization*v)
+		best = min(best, f+w.Utilization*v)
 	}
 	return best
 }

@@ -346,7 +346,7 @@ func (e *evaluator) boundsNow(p *pool) bounds {
 // most d under threshold thr: IC within ±d of the target and VCE within
 // d·span of its target band.
 func (e *evaluator) boundsWithin(thr, d float64) bounds {
-	return bounds{thr: thr, delta: d, icLo: e.s.icT * math.Max(0, 1-d), icHi: e.s.icT * (1 + d), finite: true}
+	return bounds{thr: thr, delta: d, icLo: e.s.icT * max(0, 1-d), icHi: e.s.icT * (1 + d), finite: true}
 }
 
 // targetBand returns bounds on the VCE target over all builds of device

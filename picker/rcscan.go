@@ -113,7 +113,7 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 	}
 	// the QPoint term's IC part is at least the envelope's distance
 	// from the target; with the other terms' floor that may settle it
-	if base+w.QPoint*math.Max(0, math.Max(icDn-ict, ict-icUp))/ict > p.threshold() {
+	if base+w.QPoint*max(0, max(icDn-ict, ict-icUp))/ict > p.threshold() {
 		return
 	}
 	// What is left of the threshold over base bounds the QPoint term of
@@ -136,9 +136,9 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 	own := func(rc int) float64 {
 		ic := icDn
 		if thr := p.threshold(); w.QPoint > 0 && !math.IsInf(thr, 1) {
-			ic = math.Max(ic, e.boundsWithin(thr, (thr-base)/w.QPoint).icLo)
+			ic = max(ic, e.boundsWithin(thr, (thr-base)/w.QPoint).icLo)
 		}
-		return base + e.partsFloor(rc) + w.Utilization*math.Max(0, e.levelUseFloor(rc, ic)-use)
+		return base + e.partsFloor(rc) + w.Utilization*max(0, e.levelUseFloor(rc, ic)-use)
 	}
 	singles := e.singlesOnly(base, p.threshold()) // bound P: probe singles only
 	split := e.vs.firstIn(rcLo, rcHi, *guess, singles, func(rc int) bool { return tup(rc).vceAtMost(vceHi) })
@@ -157,7 +157,7 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		}
 		t := tup(rc)
 		if t.ok {
-			icOff := math.Max(0, math.Max(t.op.IC_A-ict, ict-icUp)) / ict
+			icOff := max(0, max(t.op.IC_A-ict, ict-icUp)) / ict
 			if base+w.QPoint*((t.op.VCE_V-vceHi)/vcc+icOff) > p.threshold() {
 				break
 			}
@@ -177,7 +177,7 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 			continue
 		}
 		t := tup(rc)
-		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+math.Max(0, ict-t.op.IC_A)/ict) > p.threshold() {
+		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+max(0, ict-t.op.IC_A)/ict) > p.threshold() {
 			break
 		}
 		e.scoreVariants(t, p, p.add, cnt)

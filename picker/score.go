@@ -119,8 +119,8 @@ func (e *evaluator) scoreBlock(ts []*tuple, pos int, pf float64, p *pool, cnt *c
 				continue
 			}
 			rth, re, rc := e.baseLoop(t.r)
-			win.RTH, win.RTHMax = math.Min(win.RTH, rth), math.Max(win.RTHMax, rth)
-			win.ICLo, win.ICHi = math.Min(win.ICLo, t.op.IC_A), math.Max(win.ICHi, t.op.IC_A)
+			win.RTH, win.RTHMax = min(win.RTH, rth), max(win.RTHMax, rth)
+			win.ICLo, win.ICHi = min(win.ICLo, t.op.IC_A), max(win.ICHi, t.op.IC_A)
 			win.RE, win.RCMin, win.RCMax = re, rc, rc
 		}
 		if win.ICHi > 0 {

@@ -1,9 +1,5 @@
 package picker
 
-import (
-	"math"
-)
-
 // Positions of a split-supply build's arrays (splitLayout).
 const (
 	sRB = iota
@@ -93,12 +89,12 @@ func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
 			// bottom level (with the best allowance of any value)
 			// and U-Q: the transistor's own dissipation
 			uQ := e.transistorUseFloor(dv, bd, vceLo, base)
-			uOwn := math.Max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, uQ)
+			uOwn := max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, uQ)
 			pRC := bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
 			// baseUP: with RC as one part or a pair (bound U-P); base,
 			// RC open, is the floor the RC scan takes
 			baseUP := base + e.useAndPartsFloor(uOwn, pRC)
-			use = math.Max(uOwn, pRC/e.vs.allowHotMax_W)
+			use = max(uOwn, pRC/e.vs.allowHotMax_W)
 			base += w.Utilization * use
 			if baseUP > bd.thr {
 				return
