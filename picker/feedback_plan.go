@@ -20,19 +20,20 @@ type feedbackPlan struct {
 	seeds seedOrder
 	// grid holds the solved IC of the device being searched at (grid
 	// point of RC + RE, RF level) (rfWindow); lnStep is the grid's step
-	grid   map[[2]int]float64
+	grid   map[uint64]float64 // keyed by gridKey
 	lnStep float64
 	// fb memoizes betaFloorRC of the device being searched by sum RC + RE
 	// and IC window: series pairs give many (RC, RE) pairs the same sum
 	// (a third of them on an E12 wall with pairs)
-	fb map[fbKey]float64
+	fb map[uint64]fbEntry
 }
 
 // fbMemo caps feedbackPlan.fb (about 16 MB per worker).
 const fbMemo = 1 << 18
 
-// fbKey is what betaFloorRC depends on besides the device.
-type fbKey struct{ r, icLo, icHi float64 }
+// fbEntry is betaFloorRC at one sum (the memo's key, its bits) for the IC
+// window [icLo, icHi]: what it depends on besides the device.
+type fbEntry struct{ floor, icLo, icHi float64 }
 
 // tuple returns the (cached) solved level tuple of device di.
 func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
@@ -90,7 +91,7 @@ func (f *feedbackPlan) setGrid() {
 	}
 	f.lnStep = math.Log1p(step)
 	if f.grid == nil {
-		f.grid, f.fb = map[[2]int]float64{}, map[fbKey]float64{}
+		f.grid, f.fb = map[uint64]float64{}, map[uint64]fbEntry{}
 	}
 	clear(f.grid)
 	clear(f.fb)
@@ -123,11 +124,15 @@ func (f *feedbackPlan) icFloorAbove(di int, r float64, cnt *counters) float64 {
 	return 0
 }
 
+// gridKey is the grid's key of (grid point g, RF level rf): one word
+// hashes faster than two.
+func gridKey(g, rf int) uint64 { return uint64(int64(g))<<32 ^ uint64(uint32(rf)) }
+
 // gridIC is the nominal IC of device di with RF at level rf and RC + RE
 // at the grid's point g (split evenly: only the sum counts), NaN when it
 // cannot be solved; solved once per device.
 func (f *feedbackPlan) gridIC(di, g, rf int, cnt *counters) float64 {
-	key := [2]int{g, rf}
+	key := gridKey(g, rf)
 	if v, ok := f.grid[key]; ok {
 		return v
 	}
@@ -282,16 +287,16 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				}
 				nonBeta = base + qFloor
 				if w.Beta > 0 {
-					k := fbKey{r, bd.icLo, bd.icHi}
+					k := math.Float64bits(r)
 					fb, ok := f.fb[k]
-					if !ok {
-						fb = f.betaFloorRC(dv, bd, r)
+					if !ok || fb.icLo != bd.icLo || fb.icHi != bd.icHi {
+						fb = fbEntry{f.betaFloorRC(dv, bd, r), bd.icLo, bd.icHi}
 						if len(f.fb) == fbMemo {
 							clear(f.fb) // a memo: only the work changes
 						}
 						f.fb[k] = fb
 					}
-					base += w.Beta * fb
+					base += w.Beta * fb.floor
 				}
 				if base+qFloor > bd.thr {
 					continue
