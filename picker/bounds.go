@@ -21,11 +21,7 @@ import (
 //     adds to IC without VBE, the lower bound is 0.
 func (e *evaluator) vbeBounds(dv *device, icLo, icHi float64) (lo, hi float64) {
 	m := dv.typ
-	vt := solver.ThermalVoltage_V(NominalAmbient_C)
-	is25, _, _, _ := m.At(NominalAmbient_C)
-	// Both ends are widened by 1e-9 relative: with no self-heating they are
-	// the solved VBE itself, up to round-off.
-	hi = m.NF * vt * math.Log(icHi/is25+1) * (1 + 1e-9)
+	hi = vbeHi(dv, icHi)
 	if m.ICBO_A > 0 || icLo <= 0 {
 		return 0, hi
 	}
@@ -41,6 +37,18 @@ func (e *evaluator) vbeBounds(dv *device, icLo, icHi float64) (lo, hi float64) {
 	}
 	lo = max(0, m.NF*solver.ThermalVoltage_V(tj)*math.Log(num/(isT*early))*(1-1e-9))
 	return lo, hi
+}
+
+// vbeHi is vbeBounds' upper end alone: NF·VT(25 °C)·ln(icHi/IS(25 °C) +
+// 1), widened by 1e-9 relative (with no self-heating both ends are the
+// solved VBE itself, up to round-off).
+func vbeHi(dv *device, icHi float64) float64 {
+	m := dv.typ
+	is25 := dv.isNominal
+	if is25 == 0 { // a device made without newEvaluator
+		is25, _, _, _ = m.At(NominalAmbient_C)
+	}
+	return m.NF * solver.ThermalVoltage_V(NominalAmbient_C) * math.Log(icHi/is25+1) * (1 + 1e-9)
 }
 
 // dividerPowerBound is a lower bound on the larger utilization of R1 and

@@ -391,9 +391,9 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 // kE·icHi·r)/icHi; R_TH runs from there to the largest level.
 func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 	e := f.e
-	_, vbeHi := e.vbeBounds(dv, bd.icLo, bd.icHi)
+	vHi := vbeHi(dv, bd.icHi)
 	kE := 1 + 1/dv.betaNomMin
-	rfMin := dv.betaNomMin * (e.s.vcc - vbeHi - kE*bd.icHi*r) / bd.icHi
+	rfMin := dv.betaNomMin * (e.s.vcc - vHi - kE*bd.icHi*r) / bd.icHi
 	if rfMin <= 0 {
 		return 0
 	}

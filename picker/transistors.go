@@ -23,6 +23,8 @@ type device struct {
 	// hotCap is what hotVBECap takes of the device whatever RE is
 	// (evaluator.newHotCap).
 	hotCap hotCap
+	// isNominal is IS at the nominal ambient (vbeHi).
+	isNominal float64
 	// xtb tabulates the temperature factor for betaFloor (newXTBTable).
 	xtb xtbTable
 	// labelGroup is the index of the first device with this label
