@@ -186,9 +186,18 @@ func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMa
 	bm.dT = th - bm.tLo_C
 	at := dv.nominal()
 	bm.f25 = at.factor
-	isHi, bfHi, _, _ := m.At(th)
+	// IS and the factor at th, or on the device's table at the next
+	// point hotter than th: IS rises with T, so that is at least IS(th);
+	// the factor is monotonic in T, so it is beyond factor(th) on the
+	// side away from f25, and the range [fLo, fHi] still holds it
+	isHi, fTh, ok := dv.xtb.hotter(th)
+	if !ok {
+		var bfHi float64
+		isHi, bfHi, _, _ = m.At(th)
+		fTh = bfHi / m.BF // the solver's own factor at th
+	}
 	bm.isHi = isHi
-	bm.fLo, bm.fHi = bm.f25, bfHi/m.BF // the solver's own factor at th
+	bm.fLo, bm.fHi = bm.f25, fTh
 	if bm.fLo > bm.fHi {
 		bm.fLo, bm.fHi = bm.fHi, bm.fLo
 	}
@@ -313,11 +322,22 @@ func (bm *betaModel) factorUp(t_C float64) float64 {
 	return tab.f[int(x)]
 }
 
-// xtbTable holds a device's temperature factor every xtbStep_K from t0
-// (betaModel's lowest junction temperature) past Tj max.
+// xtbTable holds a device's temperature factor and IS every xtbStep_K
+// from t0 (betaModel's lowest junction temperature) past Tj max.
 type xtbTable struct {
-	t0 float64
-	f  []float64
+	t0    float64
+	f, is []float64
+}
+
+// hotter returns IS and the factor at the table's first point at or above
+// t_C; ok is false off the table.
+func (tab *xtbTable) hotter(t_C float64) (is, f float64, ok bool) {
+	x := (t_C - tab.t0) / xtbStep_K
+	if !(x >= 0) || x >= float64(len(tab.f)-1) {
+		return 0, 0, false
+	}
+	i := int(math.Ceil(x))
+	return tab.is[i], tab.f[i], true
 }
 
 // xtbStep_K is xtbTable's step: the factor it gives for a temperature is
@@ -330,9 +350,11 @@ func newXTBTable(dv *device) xtbTable {
 	bm := betaModel{m: dv.typ}
 	t0 := NominalAmbient_C - thermalSlack_K
 	n := int(math.Ceil((dv.tjMax_C+2*thermalSlack_K-t0)/xtbStep_K)) + 2
-	tab := xtbTable{t0: t0, f: make([]float64, n)}
+	tab := xtbTable{t0: t0, f: make([]float64, n), is: make([]float64, n)}
 	for i := range tab.f {
-		tab.f[i] = bm.factor(t0 + float64(i)*xtbStep_K)
+		t := t0 + float64(i)*xtbStep_K
+		tab.f[i] = bm.factor(t)
+		tab.is[i], _, _, _ = dv.typ.At(t)
 	}
 	return tab
 }

@@ -292,9 +292,11 @@ func TestPartsFloorAndSingleIndex(t *testing.T) {
 // TestFactorUpBoundsFactor: betaFloor takes the temperature factor of a
 // point's hottest junction from a table (factorUp), which must never be
 // under the factor itself, for a rising and a falling factor, and not over
-// it by more than one table step's worth. source: the SPICE BJT model's
-// temperature law of BF, BF·(T/TNOM)^XTB (ngspice manual, BJT temperature
-// effects), monotonic in T.
+// it by more than one table step's worth; and the model's IS and factor
+// at its hottest (25 °C and up) from the table's next hotter point
+// (hotter), which must not be under IS, nor the factor on 25 °C's side of
+// it. source: the SPICE BJT model's temperature laws of BF, BF·(T/TNOM)^XTB,
+// and of IS, rising with T (ngspice manual, BJT temperature effects).
 func TestFactorUpBoundsFactor(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 1))
 	for _, xtb := range []float64{1.5, 0, -0.7} {
@@ -314,6 +316,13 @@ func TestFactorUpBoundsFactor(t *testing.T) {
 			got, want := bm.factorUp(tc), bm.factor(tc)
 			if got < want || got > want*(1+math.Abs(xtb)*xtbStep_K/250) {
 				t.Fatalf("XTB %g at %.4f °C: table %.12g, factor %.12g", xtb, tc, got, want)
+			}
+			// hotter: IS at least IS(T), the factor beyond factor(T) on
+			// the side away from 25 °C's
+			is, f, ok := dv.xtb.hotter(tc)
+			isT, _, _, _ := dv.typ.At(tc)
+			if ok && tc >= NominalAmbient_C && (is < isT || (f-want)*(want-bm.factor(NominalAmbient_C)) < 0) {
+				t.Fatalf("XTB %g at %.4f °C: hotter point IS %.6g factor %.12g, at T IS %.6g factor %.12g", xtb, tc, is, f, isT, want)
 			}
 		}
 	}
