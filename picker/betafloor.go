@@ -488,7 +488,7 @@ func leastFixedPoint(fdf func(float64) (float64, float64), guess float64) float6
 		if !(next > 0) {
 			next = 0.5 * x
 		}
-		if math.Abs(next-x) <= 1e-8*x {
+		if math.Abs(next-x) <= 1e-6*x {
 			if f(next) >= next {
 				best = max(best, next)
 			}
