@@ -251,7 +251,8 @@
 //     where U-RC alone takes the pair's allowance without its part: on a
 //     wall with pairs at several milliamperes a build whose RC must be a
 //     pair to run cool pays the pair's part. It only cuts and narrows the
-//     IC window; the RC scan takes the floor with RC open.
+//     IC window; the RC scan takes the floor with RC open. At a divider R2
+//     level it is tried with U-RE, U-R2 and E-RE before bound B is taken.
 //     TestUseAndPartsFloorHolds checks it on random builds.
 //   - U-Q: the transistor dissipates VCE·IC + VBE·IB ≥ VCE·IC at its
 //     nominal point (VBE and IB share their sign). With IC ≥ IC_lo, and
