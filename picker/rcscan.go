@@ -91,8 +91,9 @@ func (vs *valueSet) icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi floa
 // down an IC already over the target only moves further off, and going up
 // one already under it likewise. guess is where the last scan split.
 // base bounds the other terms of every build of lv from below, the parts
-// floors of its fixed positions included; a pair-only RC level is stepped
-// over when base + w_Parts is over the threshold (bound P).
+// floors of its fixed positions included, and use is the utilization
+// floor within it; a pair-only RC level is stepped over when base +
+// w_Parts is over the threshold (bound P).
 func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [maxPos]int, rcPos int, guess *int, rcLo, rcHi int, vceLo, vceHi, kE, base, use float64) {
 	w, vcc, ict := e.s.w, e.span, e.s.icT
 	at := func(rc int) [maxPos]int { lv[rcPos] = rc; return lv }
