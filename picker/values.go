@@ -76,6 +76,9 @@ type valueSet struct {
 	// when none). With them a loop whose budget leaves no room for a
 	// pair's extra part steps over the pair-only levels at no cost.
 	nextSingle, prevSingle []int
+	// ohms is every level's resistance, in level order: a search over
+	// them reads one word per level, not a whole level.
+	ohms []float64
 	// singleLevels lists the levels holding a single, ascending;
 	// singleRank[i] is how many of them lie below level i (i ≤ len(levels)).
 	singleLevels, singleRank []int
@@ -216,6 +219,10 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 		vs.prevSingle[i] = prev
 	}
 	vs.singleRank[n] = len(vs.singleLevels)
+	vs.ohms = make([]float64, n)
+	for i, l := range vs.levels {
+		vs.ohms[i] = l.ohm
+	}
 	return vs
 }
 
@@ -280,6 +287,6 @@ func allowance(s solver.ResistorSpec, ambient_C float64, lim solver.Limits) floa
 // levelAtOrAbove returns the index of the first level with ohm >= r
 // (len(levels) when none).
 func (vs *valueSet) levelAtOrAbove(r float64) int {
-	i, _ := slices.BinarySearchFunc(vs.levels, r, func(l level, r float64) int { return cmp.Compare(l.ohm, r) })
+	i, _ := slices.BinarySearch(vs.ohms, r)
 	return i
 }
