@@ -65,6 +65,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	skip := 1
 	r2Lo, r2Hi := e.clampRange(iR2, start, n-1)
 	r2BlockEnd, r2BlockB := -1, 0.0
+	bandLo, bandHi, bandThr := 0, -1, math.NaN()
 	for r2 := r2Lo; r2 <= r2Hi; r2++ {
 		if e.stopped() {
 			return
@@ -78,7 +79,12 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			r2 = e.vs.nextSingle[r2] - 1 // bound P: no room for a pair in R2
 			continue
 		}
-		rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
+		if bd.thr != bandThr {
+			// the RC band depends on the threshold alone here
+			bandLo, bandHi = e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
+			bandThr = bd.thr
+		}
+		rcLo, rcHi := bandLo, bandHi
 		if rcLo > rcHi {
 			break // the band only narrows as the threshold falls
 		}
