@@ -8,6 +8,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"sync"
 	"sync/atomic"
 	"time"
 
@@ -316,6 +317,23 @@ type finalists struct {
 // is topoRun.settled's question).
 func (f *finalists) rank(items []*evaluated) (done bool, err error) {
 	e, k := f.e, f.k
+	// Until k builds are ranked no build's run has a failure limit, so
+	// those first runs do not depend on one another: they run at once
+	// and are taken in order below, as if one at a time.
+	type early struct {
+		c       Candidate
+		stopped bool
+		err     error
+	}
+	var pre []early
+	if m := min(k-len(f.fs), len(items)); m > 1 {
+		pre = make([]early, m)
+		var wg sync.WaitGroup
+		for j := range pre {
+			wg.Go(func() { pre[j].c, pre[j].stopped, pre[j].err = e.candidate(items[j], 0) })
+		}
+		wg.Wait()
+	}
 	for i, ev := range items {
 		f.ranked++
 		limit := 0
@@ -325,7 +343,13 @@ func (f *finalists) rank(items []*evaluated) (done bool, err error) {
 				continue
 			}
 		}
-		c, stopped, err := e.candidate(ev, limit)
+		var c Candidate
+		var stopped bool
+		if i < len(pre) {
+			c, stopped, err = pre[i].c, pre[i].stopped, pre[i].err
+		} else {
+			c, stopped, err = e.candidate(ev, limit)
+		}
 		if err != nil {
 			return false, err
 		}
