@@ -459,5 +459,6 @@
 // they arrive in, so the result does not depend on the scheduling (only
 // Result.Evaluated and Solved, the work done, vary). The finalists' Monte
 // Carlo judges its boards on every CPU with the one-at-a-time result
-// (solver.EvalYieldWith).
+// (solver.EvalYieldWith), and the first k runs, which have no failure
+// limit, run at once (finalists.rank).
 package picker
