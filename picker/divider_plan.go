@@ -167,6 +167,13 @@ func (d *dividerPlan) search(p *pool, cnt *counters) {
 	e.progress(total, total)
 }
 
+// emitterFloor is bound E-RE: VE = IE·RE lies in [icLo·RE, kE·icHi·RE]
+// whatever the other positions are, so the emitter term of every build at
+// this RE is at least its distance from [VE min, VE max] over VCC.
+func (e *evaluator) emitterFloor(bd bounds, reOhm, kE float64) float64 {
+	return max(0, max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+}
+
 // reCuts applies the bounds of one RE level (doc.go) for any topology
 // whose VCE is at most span − IC·(RC + RE) and whose every build carries
 // RE: U-RE (RE dissipates IE²·RE ≥ icLo²·RE), Q-RE (VCE ≤ span −

@@ -43,7 +43,7 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	// of every build at this RE.
 	reFloors := func(bd bounds) (uRE, eLo float64) {
 		uRE = bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-		eLo = max(0, max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
+		eLo = e.emitterFloor(bd, reOhm, kE)
 		return uRE, eLo
 	}
 	// r2Beta bounds the beta term of every build with R2 in levels

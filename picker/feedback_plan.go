@@ -31,9 +31,12 @@ type feedbackPlan struct {
 // fbMemo caps feedbackPlan.fb (about 16 MB per worker).
 const fbMemo = 1 << 18
 
-// fbEntry is betaFloorRC at one sum (the memo's key, its bits) for the IC
-// window [icLo, icHi]: what it depends on besides the device.
-type fbEntry struct{ floor, icLo, icHi float64 }
+// fbEntry is betaFloorRC of device dv at one sum (the memo's key, its
+// bits) for the IC window [icLo, icHi]: everything it depends on.
+type fbEntry struct {
+	dv                *device
+	floor, icLo, icHi float64
+}
 
 // tuple returns the (cached) solved level tuple of device di.
 func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
@@ -91,7 +94,7 @@ func (f *feedbackPlan) setGrid() {
 	}
 	f.lnStep = math.Log1p(step)
 	if f.grid == nil {
-		f.grid, f.fb = map[uint64]float64{}, map[uint64]fbEntry{}
+		f.grid = map[uint64]float64{}
 	}
 	clear(f.grid)
 	clear(f.fb)
@@ -234,16 +237,21 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
 				continue
 			}
+			// RE's utilization and the emitter term bound every build at
+			// this RE from below (bounds U-RE and E-RE), and so does the
+			// transistor's (U-Q): none of these floors falls as RC rises
+			var uRE, eLo float64
+			if bd.finite {
+				eLo = e.emitterFloor(bd, reOhm, kE)
+				uRE = max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
+			}
 			if bd.finite && w.QPoint > 0 {
 				// Bound F-RF over RC levels rc..last, with RE's
 				// utilization, emitter and parts floors.
 				last := min(rc+skip-1, rcHi)
-				eLo := max(0, max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-				uRE := max(max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, f.uRC(bd, rc)),
-					e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
 				xLo := f.icFloorAbove(di, e.vs.levels[last].ohm+reOhm, cnt)
 				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
-				if pfRE+w.Utilization*uRE+w.Emitter*eLo+w.QPoint*q > bd.thr {
+				if pfRE+w.Utilization*max(uRE, f.uRC(bd, rc))+w.Emitter*eLo+w.QPoint*q > bd.thr {
 					rc = last
 					skip *= 2
 					continue
@@ -258,17 +266,10 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 			// nonBeta bounds every term but Beta of every build here
 			nonBeta := pf
 			if bd.finite {
-				// RE's utilization and the emitter term bound every
-				// build at this RE from below (bounds U-RE and
-				// E-RE), and bound B every build at this RC and RE
-				// (F-B); what is left of the threshold bounds the
-				// QPoint term, so the IC window narrows. The
-				// QPoint term itself is at least qFloor (F-Q).
-				uRE := bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
-				eLo := max(0, max(bd.icLo*reOhm-e.s.veHi, e.s.veLo-kE*bd.icHi*reOhm)) / e.s.vcc
-				// and the transistor's (U-Q): none of these floors falls
-				// as RC rises
-				uRE = max(uRE, e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
+				// With RE's floors (above) and bound B every build at
+				// this RC and RE (F-B); what is left of the threshold
+				// bounds the QPoint term, so the IC window narrows.
+				// The QPoint term itself is at least qFloor (F-Q).
 				base := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
 				if base > bd.thr {
 					break
@@ -287,16 +288,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				}
 				nonBeta = base + qFloor
 				if w.Beta > 0 {
-					k := math.Float64bits(r)
-					fb, ok := f.fb[k]
-					if !ok || fb.icLo != bd.icLo || fb.icHi != bd.icHi {
-						fb = fbEntry{f.betaFloorRC(dv, bd, r), bd.icLo, bd.icHi}
-						if len(f.fb) == fbMemo {
-							clear(f.fb) // a memo: only the work changes
-						}
-						f.fb[k] = fb
-					}
-					base += w.Beta * fb.floor
+					base += w.Beta * f.betaFloorRC(dv, bd, r)
 				}
 				if base+qFloor > bd.thr {
 					continue
@@ -388,17 +380,28 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 // RC + RE = r whose nominal IC lies in the window of bd (bound F-B). The
 // base loop is VCC − VBE = IB·RF + IE·r (baseLoop), so with IB ≤ IC/β_min
 // (β_min = betaNomMin) every such build has RF ≥ β_min·(VCC − VBE_hi −
-// kE·icHi·r)/icHi; R_TH runs from there to the largest level.
+// kE·icHi·r)/icHi; R_TH runs from there to the largest level. It is kept
+// in f.fb.
 func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
+	k := math.Float64bits(r)
+	if m, ok := f.fb[k]; ok && m.dv == dv && m.icLo == bd.icLo && m.icHi == bd.icHi {
+		return m.floor
+	}
 	e := f.e
 	vHi := vbeHi(dv, bd.icHi)
 	kE := 1 + 1/dv.betaNomMin
-	rfMin := dv.betaNomMin * (e.s.vcc - vHi - kE*bd.icHi*r) / bd.icHi
-	if rfMin <= 0 {
-		return 0
+	fl := 0.0
+	if rfMin := dv.betaNomMin * (e.s.vcc - vHi - kE*bd.icHi*r) / bd.icHi; rfMin > 0 {
+		fl = e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: r,
+			ICLo: bd.icLo, ICHi: bd.icHi})
 	}
-	return e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: r,
-		ICLo: bd.icLo, ICHi: bd.icHi})
+	if f.fb == nil {
+		f.fb = map[uint64]fbEntry{}
+	} else if len(f.fb) == fbMemo {
+		clear(f.fb) // a memo: only the work changes
+	}
+	f.fb[k] = fbEntry{dv, fl, bd.icLo, bd.icHi}
+	return fl
 }
 
 // feedbackQFloorBlock is bound F-Q: a lower bound on the QPoint term of
