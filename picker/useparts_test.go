@@ -22,43 +22,40 @@ func TestPairedPositionsMatchExhaustive(t *testing.T) {
 	}
 	var lines []Resistor
 	for i, v := range []float64{180, 390, 1.5e3, 4.7e3} {
-		lines = append(lines, Resistor{ID: int64(100 + i), Ohm: v, Tol: 0.05, TCR_PPMPerK: 100, Rated_W: 0.16, Qty: 10, Bin: "B"})
+		lines = append(lines, Resistor{ID: int64(100 + i), Ohm: v, Tol: 0.05, TCR_PPMPerK: 100, Rated_W: 0.125, Qty: 10, Bin: "B"})
 	}
 	st := Stock{Resistors: lines, Transistors: []Transistor{smallNPN(1, 100, 300), smallNPN(2, 60, 240)}}
 	for _, req := range []Request{
 		{VCC_V: 12, IC_A: 10e-3, Top: 10, Pairs: true},
 		{Topology: solver.SplitSupply, VCC_V: 12, VEE_V: -12, IC_A: 10e-3, Top: 10, Pairs: true},
 	} {
+		s, err := normalize(req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		topo := s.topo // the request's topology, its default filled in
 		fast, full, err := bothModes(st, req)
 		if err != nil {
 			t.Fatal(err)
 		}
 		if len(full.Candidates) != req.Top || len(fast.Candidates) != req.Top {
-			t.Fatalf("%v: default %d builds, exhaustive %d", topoName(req), len(fast.Candidates), len(full.Candidates))
+			t.Fatalf("%v: default %d builds, exhaustive %d", topo, len(fast.Candidates), len(full.Candidates))
 		}
 		paired := 0
 		for i := range full.Candidates {
 			a, b := fast.Candidates[i], full.Candidates[i]
 			if a.ID != b.ID || a.Score != b.Score {
-				t.Errorf("%v rank %d: default %s (%.6g), exhaustive %s (%.6g)", topoName(req), i+1, a.ID, a.Score, b.ID, b.Score)
+				t.Errorf("%v rank %d: default %s (%.6g), exhaustive %s (%.6g)", topo, i+1, a.ID, a.Score, b.ID, b.Score)
 			}
 			if b.Positions["rc"].Arrangement != "single" {
 				paired++
 			}
 		}
 		if paired == 0 {
-			t.Errorf("%v: fixture too weak: no build of the top 10 has a pair for RC", topoName(req))
+			t.Errorf("%v: fixture too weak: no build of the top 10 has a pair for RC", topo)
 		}
-		t.Logf("%v: default solved %d tuples, exhaustive %d; RC paired in %d of 10", topoName(req), fast.Solved, full.Solved, paired)
+		t.Logf("%v: default solved %d tuples, exhaustive %d; RC paired in %d of 10", topo, fast.Solved, full.Solved, paired)
 	}
-}
-
-// topoName names a request's topology, the default included.
-func topoName(req Request) string {
-	if req.Topology == 0 {
-		return solver.Divider.String()
-	}
-	return req.Topology.String()
 }
 
 // TestUseAndPartsFloorHolds checks bound U-P and the RC scan's floor per
