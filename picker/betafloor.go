@@ -246,8 +246,8 @@ func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMa
 // temperature.
 func newNominalDevice(m solver.Model) nominalDevice {
 	t := NominalAmbient_C - thermalSlack_K
-	is, _, _, _ := m.At(t)
-	return nominalDevice{is: is, factor: math.Pow((t+273.15)/(m.TNOM_C+273.15), m.XTB)}
+	is, bf, _, _ := m.At(t)
+	return nominalDevice{is: is, factor: bf / m.BF} // the solver's own factor
 }
 
 // hotVBECap is newBetaModel's VBE bound for junctions up to Tj max with
@@ -302,9 +302,11 @@ func (d *device) nominal() nominalDevice {
 	return d.at25
 }
 
-// factor is BF's (and BR's) temperature factor (T/TNOM)^XTB.
+// factor is BF's (and BR's) temperature factor (T/TNOM)^XTB, the
+// solver's own.
 func (bm *betaModel) factor(t_C float64) float64 {
-	return math.Pow((t_C+273.15)/(bm.m.TNOM_C+273.15), bm.m.XTB)
+	_, bf, _, _ := bm.m.At(t_C)
+	return bf / bm.m.BF
 }
 
 // factorUp is at least factor(t_C): the factor at the next point of the
@@ -347,14 +349,13 @@ const xtbStep_K = 0.05
 
 // newXTBTable tabulates dv's temperature factor.
 func newXTBTable(dv *device) xtbTable {
-	bm := betaModel{m: dv.typ}
 	t0 := NominalAmbient_C - thermalSlack_K
 	n := int(math.Ceil((dv.tjMax_C+2*thermalSlack_K-t0)/xtbStep_K)) + 2
 	tab := xtbTable{t0: t0, f: make([]float64, n), is: make([]float64, n)}
 	for i := range tab.f {
-		t := t0 + float64(i)*xtbStep_K
-		tab.f[i] = bm.factor(t)
-		tab.is[i], _, _, _ = dv.typ.At(t)
+		var bf float64
+		tab.is[i], bf, _, _ = dv.typ.At(t0 + float64(i)*xtbStep_K)
+		tab.f[i] = bf / dv.typ.BF // factor's value
 	}
 	return tab
 }
