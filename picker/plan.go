@@ -59,11 +59,7 @@ func searchByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker
 // search's).
 func seedByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, seed func(w P, cnt *counters, di int)) {
 	so.reset(len(e.devs))
-	order := make([]int, len(e.devs))
-	for i := range order {
-		order[i] = i
-	}
-	byDevice(e, order, false, cnt, newWorker, seed)
+	byDevice(e, indexes(len(e.devs)), false, cnt, newWorker, seed)
 }
 
 // byDevice runs fn for the devices of order on the search's workers
@@ -256,11 +252,7 @@ func (e *evaluator) polish(p *pool, cnt *counters) {
 	// the climbs are independent: they run on the search's workers, each
 	// with a tuple cache of its own
 	tcs := make([]tupleCache, searchWorkers)
-	items := make([]int, len(starts))
-	for i := range items {
-		items[i] = i
-	}
-	e.onWorkers(items, false, cnt, func(k, i int, wc *counters) { e.climb(p, &tcs[k], starts[i].c, starts[i].score, wc) })
+	e.onWorkers(indexes(len(starts)), false, cnt, func(k, i int, wc *counters) { e.climb(p, &tcs[k], starts[i].c, starts[i].score, wc) })
 }
 
 // climb is polish's hill climb from build c, whose score is score.
@@ -306,6 +298,15 @@ const (
 	polishStarts   = 5
 	maxPolishSteps = 40
 )
+
+// indexes returns 0, 1, …, n − 1.
+func indexes(n int) []int {
+	out := make([]int, n)
+	for i := range out {
+		out[i] = i
+	}
+	return out
+}
 
 // clampLevel keeps a level index inside [0, n).
 func clampLevel(i, n int) int { return max(0, min(i, n-1)) }
@@ -389,10 +390,7 @@ func (so *seedOrder) note(di, re int, ev *evaluated) {
 
 // order returns the device indexes from the best seed.
 func (so *seedOrder) order(nDev int) []int {
-	order := make([]int, nDev)
-	for i := range order {
-		order[i] = i
-	}
+	order := indexes(nDev)
 	if len(so.best) == nDev {
 		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(so.best[a], so.best[b]) })
 	}

@@ -148,10 +148,7 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 		}
 		return lines[v.lines[k]].ID
 	}
-	order := make([]int, len(vs.values))
-	for i := range order {
-		order[i] = i
-	}
+	order := indexes(len(vs.values))
 	slices.SortStableFunc(order, func(x, y int) int {
 		a, b := vs.values[x], vs.values[y]
 		if !sameOhm(a.ohm, b.ohm) {
