@@ -403,8 +403,38 @@ func TestOverloadedEverywhere(t *testing.T) {
 	t.Logf("reasons %+v, buy %+v", res.Shortfall.Reasons, res.Shortfall.Purchases)
 }
 
+// TestPurchaseRatedForWorstCorner: on an eighth-watt wall, a split-supply
+// stage at 10 mA needs an RE that dissipates over 100 mW (VEE across
+// about 1.1 kΩ), more at the worst corner (rail high, RE low) than at the
+// nominal point; the suggested purchase must carry a rating that holds
+// at that corner, so buying it gives a passing build. The allowance is
+// 50 % of the derated rating (REFERENCE.md §3, common practice).
+func TestPurchaseRatedForWorstCorner(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E12, 100, 22e3, 0.05, 0.125, 50, 1), Transistors: []Transistor{smallNPN(1, 60, 200)}}
+	req := Request{Topology: solver.SplitSupply, VCC_V: 12, VCCTol: 0.05, VEE_V: -12, IC_A: 10e-3, Top: 3}
+	res, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.Shortfall == nil || len(res.Shortfall.Purchases) == 0 {
+		t.Fatalf("no purchase suggested: %+v", res.Shortfall)
+	}
+	for i, p := range res.Shortfall.Purchases {
+		st.Resistors = append(st.Resistors, Resistor{ID: 900 + int64(i), Ohm: p.Ohm, Tol: p.Tol, Rated_W: p.Rated_W, TCR_PPMPerK: buyTCR_PPMPerK, Qty: p.Qty})
+	}
+	after, err := Pick(st, req)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if after.Shortfall != nil || len(after.Candidates) == 0 || len(after.Candidates[0].Failing) > 0 {
+		t.Errorf("after buying %+v the stock still has no passing build: %+v", res.Shortfall.Purchases, after.Shortfall)
+	}
+	t.Logf("buy %+v", res.Shortfall.Purchases)
+}
+
 // TestShowFailing: failing builds are listed only on request and never
 // above a passing one; the progress callback reaches the total.
+
 func TestShowFailing(t *testing.T) {
 	st := Stock{Resistors: seriesStock(eseries.E3, 100, 100e3, 0.2, 0.002, 20, 100), Transistors: []Transistor{smallNPN(1, 100, 300)}}
 	var last, total int64

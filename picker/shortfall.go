@@ -34,7 +34,7 @@ type Purchase struct {
 
 // Purchase defaults: E24 at ±5 % (the customary pairing, IEC 60063:2015
 // Table 1 and REFERENCE.md §1), the smallest common rating that keeps the
-// part within the design margin.
+// part within the design margin at every worst-case corner.
 var buyRatings_W = []float64{0.125, 0.25, 0.5, 1, 2}
 
 const (
@@ -148,23 +148,50 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 	// the two stocked levels nearest the ideal value (on a log scale), on
 	// the transistor of the hand method; the purchase counts when one of
 	// these builds fits (passes every hard limit with its nominal point
-	// inside the yield window).
-	try := func(slots ...int) bool {
+	// inside the yield window). The rating estimated above is the nominal
+	// point's: when a bought part is what runs over its allowance at the
+	// worst corner, it is tried again at the next rating up.
+	try := func(slots ...int) []Purchase {
 		bought := map[int]Purchase{}
 		for _, i := range slots {
 			bought[i] = parts[i]
 		}
-		return e.fitsWith(d, id, bought)
+		for {
+			fits, hot := e.fitsWith(d, id, bought)
+			if fits {
+				out := make([]Purchase, len(slots))
+				for k, i := range slots {
+					out[k] = bought[i]
+				}
+				return out
+			}
+			p, ok := bought[hot]
+			if !ok {
+				return nil
+			}
+			up := slices.IndexFunc(buyRatings_W, func(w float64) bool { return w > p.Rated_W })
+			if up < 0 {
+				return nil
+			}
+			p.Rated_W = buyRatings_W[up]
+			bought[hot] = p
+		}
 	}
 	for i := range np {
-		if !e.kept[i] && try(i) {
-			return []Purchase{parts[i]}
+		if e.kept[i] {
+			continue
+		}
+		if ps := try(i); ps != nil {
+			return ps
 		}
 	}
 	for i := range np {
 		for j := i + 1; j < np; j++ {
-			if !e.kept[i] && !e.kept[j] && try(i, j) {
-				return []Purchase{parts[i], parts[j]}
+			if e.kept[i] || e.kept[j] {
+				continue
+			}
+			if ps := try(i, j); ps != nil {
+				return ps
 			}
 		}
 	}
@@ -173,8 +200,10 @@ func (e *evaluator) buyResistors(nearest []Candidate) []Purchase {
 
 // fitsWith reports whether some build made of the bought values (in their
 // slots) and the stocked levels nearest the ideal values (two per other
-// slot) fits, on device d.
-func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Purchase) bool {
+// slot) fits, on device d. When none does, hot is a bought slot that is
+// the one limit some of these builds break (its part over its allowance),
+// else -1.
+func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Purchase) (fits bool, hot int) {
 	lines := append([]Resistor(nil), e.vs.lines...)
 	for k, p := range bought {
 		lines = append(lines, Resistor{ID: -1 - int64(k), Ohm: p.Ohm, Tol: p.Tol, TCR_PPMPerK: buyTCR_PPMPerK, Rated_W: p.Rated_W,
@@ -182,8 +211,9 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 	}
 	kept, at := e.s.keptSpecs(e.lay)
 	vs := buildValues(lines, e.s.boards, false, e.s.ambMax, e.s.lim, kept...)
+	hot = -1
 	if len(vs.levels) == 0 {
-		return false
+		return false, hot
 	}
 	ev := &evaluator{s: e.s, lay: e.lay, vs: &vs, devs: []device{*d}, span: e.span}
 	ev.pinKept(at)
@@ -202,7 +232,7 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 		}
 		choices[i] = nearestLevels(&vs, ideal[i])
 		if len(choices[i]) == 0 {
-			return false
+			return false, hot
 		}
 	}
 	// k walks every choice combination
@@ -215,6 +245,13 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 		t := ev.newTuple(0, lv)
 		found := false
 		ev.scoreVariants(t, open, func(x *evaluated) {
+			if f := x.failing; len(f) == 1 && f[0].Kind == FailAllowance && hot < 0 {
+				if i := slices.Index(e.lay.names[:np], f[0].Part); i >= 0 {
+					if _, ok := bought[i]; ok {
+						hot = i
+					}
+				}
+			}
 			if found || len(x.failing) > 0 {
 				return
 			}
@@ -222,7 +259,7 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 			found = ev.fits(cand)
 		}, &counters{})
 		if found {
-			return true
+			return true, -1
 		}
 		i := np - 1
 		for ; i >= 0; i-- {
@@ -232,7 +269,7 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 			k[i] = 0
 		}
 		if i < 0 {
-			return false
+			return false, hot
 		}
 	}
 }
