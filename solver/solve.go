@@ -67,36 +67,34 @@ func solveChecked(s Stage, m Model, tj_C float64, guess *[2]float64) (OperatingP
 	sg := m.Polarity.sign()
 	ck := reduce(s, sg)
 	d := m.at(tj_C)
-	x, ok := ck.junctions(&d, guess)
+	x, ib, ic, ok := ck.junctions(&d, guess)
 	if !ok {
 		return OperatingPoint{}, errNoConvergence(s, m.Polarity, tj_C)
 	}
-	ib, ic, _, _, _, _ := d.currents(x[0], x[1])
 	return ck.point(s, &d, x, ib, ic, sg, m.Polarity, tj_C)
 }
 
 // junctions solves the junction voltages (VBE, VBC) of ck with device d by
 // Newton's method: from guess when it is not nil and not zero, else (or
 // when that fails) from the hand estimate, and by source stepping when
-// both fail. guess, when not nil, receives the solution.
-func (ck *circuit) junctions(d *device, guess *[2]float64) ([2]float64, bool) {
-	var x [2]float64
-	ok := false
+// both fail. It returns them with the terminal currents IB and IC there;
+// guess, when not nil, receives the solution.
+func (ck *circuit) junctions(d *device, guess *[2]float64) (x [2]float64, ib, ic float64, ok bool) {
 	if guess != nil && (guess[0] != 0 || guess[1] != 0) {
 		x = *guess
-		ok = ck.newton(d, &x, 1)
+		ib, ic, ok = ck.newton(d, &x, 1)
 	}
 	if !ok {
 		x = ck.initialGuess(d)
-		ok = ck.newton(d, &x, 1)
+		ib, ic, ok = ck.newton(d, &x, 1)
 	}
 	if !ok {
-		ok = ck.sourceStepping(d, &x)
+		ib, ic, ok = ck.sourceStepping(d, &x)
 	}
 	if ok && guess != nil {
 		*guess = x
 	}
-	return x, ok
+	return x, ib, ic, ok
 }
 
 // point fills the result at the converged junction voltages x, where the
@@ -208,8 +206,12 @@ func expLin(a float64) (e, de float64) {
 }
 
 // newton runs the damped Newton iteration from x with the sources scaled
-// by lambda; it reports whether it converged, leaving the solution in x.
-func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
+// by lambda; it reports whether it converged, leaving the solution in x
+// and returning the terminal currents there: those at the point the
+// converged step starts from, carried along the step to first order (the
+// step is under newtonTol_V, so what is left, of the order of
+// (step/VT)², is far below a float64 ulp of the currents).
+func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) (ib, ic float64, ok bool) {
 	a0 := lambda * (ck.b0 - ck.e0)
 	ab, ac := ck.bb-ck.eb, ck.bc-ck.ec
 	b0 := lambda * (ck.b0 - ck.c0)
@@ -223,7 +225,8 @@ func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
 	critBE, critBC := d.critBE, d.critBC
 	vbe, vbc := x[0], x[1]
 	for it := 0; it < newtonMaxIter; it++ {
-		ib, ic, gbb, gbc, gcb, gcc := dd.currents(vbe, vbc)
+		var gbb, gbc, gcb, gcc float64
+		ib, ic, gbb, gbc, gcb, gcc = dd.currents(vbe, vbc)
 		f1 := a0 + ab*ib + ac*ic - vbe
 		f2 := b0 + bb*ib + bc*ic - vbc
 		j11 := ab*gbb + ac*gcb - 1
@@ -232,29 +235,32 @@ func (ck *circuit) newton(d *device, x *[2]float64, lambda float64) bool {
 		j22 := bb*gbc + bc*gcc - 1
 		det := j11*j22 - j12*j21
 		if det == 0 || math.IsNaN(det) || math.IsInf(det, 0) {
-			return false
+			return 0, 0, false
 		}
 		dbe := (-f1*j22 + f2*j12) / det
 		dbc := (-f2*j11 + f1*j21) / det
 		nbe, limBE := pnjlim(vbe+dbe, vbe, d.nvt, critBE)
 		nbc, limBC := pnjlim(vbc+dbc, vbc, d.vt, critBC)
 		if math.IsNaN(nbe) || math.IsNaN(nbc) {
-			return false
+			return 0, 0, false
 		}
 		stepBE, stepBC := math.Abs(nbe-vbe), math.Abs(nbc-vbc)
-		vbe, vbc = nbe, nbc
 		if limBE || limBC || stepBE > newtonTol_V || stepBC > newtonTol_V {
+			vbe, vbc = nbe, nbc
 			continue
 		}
+		stepIB := gbb*(nbe-vbe) + gbc*(nbc-vbc)
+		stepIC := gcb*(nbe-vbe) + gcc*(nbc-vbc)
 		// Residual floor: what one ulp of each junction voltage moves f by.
 		ulpBE, ulpBC := ulpFloor*max(1, math.Abs(vbe)), ulpFloor*max(1, math.Abs(vbc))
 		if math.Abs(f1) <= newtonResRel*(1+math.Abs(a0)+math.Abs(ab*ib)+math.Abs(ac*ic))+math.Abs(j11)*ulpBE+math.Abs(j12)*ulpBC &&
 			math.Abs(f2) <= newtonResRel*(1+math.Abs(b0)+math.Abs(bb*ib)+math.Abs(bc*ic))+math.Abs(j21)*ulpBE+math.Abs(j22)*ulpBC {
-			x[0], x[1] = vbe, vbc
-			return true
+			x[0], x[1] = nbe, nbc
+			return ib + stepIB, ic + stepIC, true
 		}
+		vbe, vbc = nbe, nbc
 	}
-	return false
+	return 0, 0, false
 }
 
 // pnjlim is SPICE's junction-voltage limiting (ngspice devsup.c
@@ -315,25 +321,27 @@ func (ck *circuit) initialGuess(d *device) [2]float64 {
 }
 
 // sourceStepping ramps every source from zero to its value, solving at
-// each step from the previous solution; the step shrinks on failure.
-func (ck *circuit) sourceStepping(d *device, x *[2]float64) bool {
+// each step from the previous solution; the step shrinks on failure. It
+// returns the terminal currents at the solution (the last step's, at the
+// full sources).
+func (ck *circuit) sourceStepping(d *device, x *[2]float64) (ib, ic float64, ok bool) {
 	cur := [2]float64{0, 0}
 	lambda, step := 0.0, 0.1
 	for lambda < 1 {
 		next := min(1, lambda+step)
 		try := cur
-		if ck.newton(d, &try, next) {
-			cur, lambda = try, next
+		if b, c, ok := ck.newton(d, &try, next); ok {
+			cur, lambda, ib, ic = try, next, b, c
 			step = min(0.5, step*2)
 			continue
 		}
 		step /= 4
 		if step < 1e-6 {
-			return false
+			return 0, 0, false
 		}
 	}
 	*x = cur
-	return true
+	return ib, ic, true
 }
 
 // operatingPoint fills the result from converged junction voltages x and

@@ -133,11 +133,11 @@ func TestSourceSteppingAgreesWithNewton(t *testing.T) {
 		ck := reduce(s, m.Polarity.sign())
 		d := m.at(tj)
 		direct := ck.initialGuess(&d)
-		if !ck.newton(&d, &direct, 1) {
+		if _, _, ok := ck.newton(&d, &direct, 1); !ok {
 			t.Fatalf("#%d: direct Newton failed", i)
 		}
 		var stepped [2]float64
-		if !ck.sourceStepping(&d, &stepped) {
+		if _, _, ok := ck.sourceStepping(&d, &stepped); !ok {
 			t.Fatalf("#%d: source stepping failed", i)
 		}
 		for k := range 2 {

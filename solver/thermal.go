@@ -106,12 +106,11 @@ type thermalProblem struct {
 // the result.
 func (th *thermalProblem) solve(tj float64) error {
 	th.t = tj
-	x, ok := th.ck.junctions(&th.d, &th.guess)
+	x, ib, ic, ok := th.ck.junctions(&th.d, &th.guess)
 	if !ok {
 		return errNoConvergence(th.s, th.m.Polarity, tj)
 	}
-	th.x = x
-	th.ib, th.ic, _, _, _, _ = th.d.currents(x[0], x[1])
+	th.x, th.ib, th.ic = x, ib, ic
 	vb, vc, ve := th.ck.nodes(th.ib, th.ic)
 	th.p = transistorPower(th.ib, th.ic, vb, vc, ve)
 	if !finite(th.ib) || !finite(th.ic) || !finite(th.p) {
