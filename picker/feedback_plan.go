@@ -22,18 +22,23 @@ type feedbackPlan struct {
 	// point of RC + RE, RF level) (rfWindow); lnStep is the grid's step
 	grid   map[uint64]float64 // keyed by gridKey
 	lnStep float64
-	// fb memoizes betaFloorRC of the device being searched by sum RC + RE
-	// and IC window: series pairs give many (RC, RE) pairs the same sum
-	// (a third of them on an E12 wall with pairs)
-	fb map[uint64]fbEntry
+	// fb memoizes betaFloorRC by sum RC + RE, device and IC window:
+	// series pairs give many (RC, RE) pairs the same sum (a third of
+	// them on an E12 wall with pairs). It is direct-mapped: a sum's
+	// entry is at a hash of its bits, and a newer sum takes the slot.
+	fb []fbEntry
 }
 
-// fbMemo caps feedbackPlan.fb (about 16 MB per worker).
-const fbMemo = 1 << 18
+// fbMemo is the number of slots of feedbackPlan.fb (10 MB per worker).
+const fbMemo = 1 << fbMemoBits
 
-// fbEntry is betaFloorRC of device dv at one sum (the memo's key, its
-// bits) for the IC window [icLo, icHi]: everything it depends on.
+// fbMemoBits is log2 of fbMemo.
+const fbMemoBits = 18
+
+// fbEntry is betaFloorRC of device dv at the sum whose bits are key for
+// the IC window [icLo, icHi]: everything it depends on.
 type fbEntry struct {
+	key               uint64
 	dv                *device
 	floor, icLo, icHi float64
 }
@@ -384,8 +389,12 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 // in f.fb.
 func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 	k := math.Float64bits(r)
-	if m, ok := f.fb[k]; ok && m.dv == dv && m.icLo == bd.icLo && m.icHi == bd.icHi {
-		return m.floor
+	if f.fb == nil {
+		f.fb = make([]fbEntry, fbMemo)
+	}
+	slot := &f.fb[(k*0x9e3779b97f4a7c15)>>(64-fbMemoBits)]
+	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
+		return slot.floor
 	}
 	e := f.e
 	vHi := vbeHi(dv, bd.icHi)
@@ -395,12 +404,7 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 		fl = e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: r,
 			ICLo: bd.icLo, ICHi: bd.icHi})
 	}
-	if f.fb == nil {
-		f.fb = map[uint64]fbEntry{}
-	} else if len(f.fb) == fbMemo {
-		clear(f.fb) // a memo: only the work changes
-	}
-	f.fb[k] = fbEntry{dv, fl, bd.icLo, bd.icHi}
+	*slot = fbEntry{k, dv, fl, bd.icLo, bd.icHi}
 	return fl
 }
 
