@@ -7,11 +7,11 @@ import (
 )
 
 // betaWindow is the set of builds betaFloor bounds: R_TH in [RTH,
-// RTHMax], this RE, RC in [RCMin, RCMax] and the typical-hFE nominal IC
-// in [ICLo, ICHi].
+// RTHMax], RE in [RE, REMax] (REMax 0: RE alone), RC in [RCMin, RCMax]
+// and the typical-hFE nominal IC in [ICLo, ICHi].
 type betaWindow struct {
 	RTH, RTHMax  float64
-	RE           float64
+	RE, REMax    float64
 	RCMin, RCMax float64
 	ICLo, ICHi   float64
 }
@@ -53,13 +53,21 @@ type betaWindow struct {
 //     A1 = IC1,min·g(β1,max);
 //   - the term is X·y and also X/(1 + X)·z; the larger bound is returned.
 //
+// Over a range of RE every step takes RE at the end that keeps it an
+// inequality: the least RE where a quantity is bounded from above and RE
+// enters it falling (power, base drive, the Early factor) or from below
+// and RE enters it rising (V_TH − VBE's lower end), the largest in the
+// other cases, and g's ratios at whichever end is worse (each is
+// monotonic in RE).
+//
 // TestBoundsHoldOnRandomBuilds checks it against the exact beta term of
 // random builds.
 func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	m := dv.typ
 	rth, rthMax, reOhm, rcMin, rcMax, icLo, icHi := w.RTH, w.RTHMax, w.RE, w.RCMin, w.RCMax, w.ICLo, w.ICHi
+	reMax := max(reOhm, w.REMax)
 	if m.ICBO_A > 0 || m.NF != 1 || icLo <= 0 || icHi < icLo || reOhm <= 0 || rth < 0 || rthMax < rth || !(rcMin >= 0) || rcMax < rcMin ||
-		m.XTI < 0 || m.EG_eV < 0 {
+		m.XTI < 0 || m.EG_eV < 0 || math.IsInf(reMax, 0) {
 		return 0
 	}
 	// A first junction bound for every point, from the circuit alone:
@@ -77,7 +85,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	var p1, pt, p2 betaPoint
 	for range 2 {
 		var ok bool
-		if bm, ok = e.newBetaModel(dv, th, reOhm, rth, rthMax, rcMin, rcMax, icLo); !ok {
+		if bm, ok = e.newBetaModel(dv, th, reOhm, reMax, rth, rthMax, rcMin, rcMax, icLo); !ok {
 			return 0
 		}
 		pt = bm.point(bm.bt, bm.cnAt(icLo), icLo, icHi)
@@ -108,13 +116,9 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	p1, p2 = bm.withLow(p1, y*icLo), bm.withLow(p2, z*icLo)
 	rho, qk, dT = bm.ratio(p2, p1)
 	gr := bm.gRatio(bm.b2, bm.b1, bm.betaMin(bm.b1)/bm.b1, p1.phiMax, rho)
-	// V_TH − VBE1 = IC1·g(β1) lies between a1Lo and a1Hi.
-	a1Lo := p1.icLo * (bm.a/(bm.b1*p1.phiMax) + reOhm)
-	a1Hi := p1.icUp * (bm.aMax/bm.betaMin(bm.b1) + reOhm)
-	x := leastFixedPoint(func(v float64) (float64, float64) {
-		rise, slope := bm.vbeRise(v*qk, p2.cn)
-		return bm.headroom(gr, rise+bm.kappa*dT, slope, v, a1Lo, a1Hi)
-	}, gr) - 1
+	a1Lo, a1Hi := bm.loopDrop(p1)
+	xm := fixedMap{bm: &bm, h: gr, qk: qk, cn: p2.cn, kdT: bm.kappa * dT, aLo: a1Lo, aHi: a1Hi}
+	x := leastFixedPoint(xm.at, gr) - 1
 	if !(x > 0) {
 		return 0
 	}
@@ -134,7 +138,7 @@ func (e *evaluator) nominalBetaMin(dv *device) float64 {
 	if len(e.vs.levels) == 0 || dv.typ.NF != 1 || dv.typ.XTI < 0 || dv.typ.EG_eV < 0 {
 		return none
 	}
-	bm, ok := e.newBetaModel(dv, dv.tjMax_C+thermalSlack_K, e.vs.levels[0].ohm, 0, math.Inf(1), 0, math.Inf(1), 0)
+	bm, ok := e.newBetaModel(dv, dv.tjMax_C+thermalSlack_K, e.vs.levels[0].ohm, e.vs.levels[0].ohm, 0, math.Inf(1), 0, math.Inf(1), 0)
 	if !ok {
 		return none
 	}
@@ -166,21 +170,22 @@ type betaModel struct {
 	vbeCap     float64 // VBE of any point is at most this
 	kappa      float64 // |∂VBE/∂T| at a fixed current, V/K
 	vceFloor   float64
-	vcc, re    float64
+	vcc        float64
+	re, reMax  float64 // RE's range
 	rcMin      float64
 	rcMax      float64
-	a, aMax    float64 // R_TH + RE at the least and the largest R_TH
+	a, aMax    float64 // R_TH + RE at its least and at its largest
 	icLo       float64 // the typical point's IC is at least this
 	theta      float64 // K/W
 	xtb        *xtbTable
 }
 
-// newBetaModel computes the bounds for junctions in [25 °C, th] (see
-// betaFloor); ok is false where they give nothing.
-func (e *evaluator) newBetaModel(dv *device, th, reOhm, rth, rthMax, rcMin, rcMax, icLo float64) (betaModel, bool) {
+// newBetaModel computes the bounds for junctions in [25 °C, th] and RE in
+// [reOhm, reMax] (see betaFloor); ok is false where they give nothing.
+func (e *evaluator) newBetaModel(dv *device, th, reOhm, reMax, rth, rthMax, rcMin, rcMax, icLo float64) (betaModel, bool) {
 	m := dv.typ
 	bm := betaModel{m: m, b1: dv.lo.BF, bt: m.BF, b2: dv.hi.BF, br: m.BR, th: th,
-		vcc: e.span, re: reOhm, rcMin: rcMin, rcMax: rcMax, a: rth + reOhm, aMax: rthMax + reOhm, icLo: icLo, theta: dv.thetaJA, xtb: &dv.xtb}
+		vcc: e.span, re: reOhm, reMax: reMax, rcMin: rcMin, rcMax: rcMax, a: rth + reOhm, aMax: rthMax + reMax, icLo: icLo, theta: dv.thetaJA, xtb: &dv.xtb}
 	bm.tLo_C = NominalAmbient_C - thermalSlack_K
 	bm.tLoK = bm.tLo_C + 273.15
 	bm.dT = th - bm.tLo_C
@@ -391,18 +396,26 @@ func (bm *betaModel) betaMax(b, cn float64) float64 {
 	return b * bm.fHi * bm.kMaxFor(cn) / d
 }
 
-// gRatio bounds g(β_B)/g(β_A) from below over every R_TH in the range,
-// for points whose hFE at TNOM are bA and bB, φ_B in [phiBMin, phiBMax]
-// and φ_A/φ_B at least rho: with w = (R_TH + RE)/φ_B the ratio is at
-// least h(w) = (w/bB + RE)/(w/(bA·rho) + RE), monotonic in w, so at least
-// the smaller of h at the two ends of w's range.
+// gRatio bounds g(β_B)/g(β_A) from below over every R_TH and RE in the
+// ranges, for points whose hFE at TNOM are bA and bB, φ_B in [phiBMin,
+// phiBMax] and φ_A/φ_B at least rho: with w = (R_TH + RE)/φ_B the ratio
+// is at least h(w, RE) = (w/bB + RE)/(w/(bA·rho) + RE), monotonic in w
+// and in RE, so at least the least of h at the corners of their ranges.
 func (bm *betaModel) gRatio(bA, bB, phiBMin, phiBMax, rho float64) float64 {
-	h := func(w float64) float64 { return (w/bB + bm.re) / (w/(bA*rho) + bm.re) }
-	hi := bA * rho / bB // the limit of h
-	if wHi := bm.aMax / phiBMin; !math.IsInf(wHi, 1) {
-		hi = h(wHi)
+	lim := bA * rho / bB // the limit of h as w grows
+	least := math.Inf(1)
+	for _, re := range [2]float64{bm.re, bm.reMax} {
+		h := func(w float64) float64 { return (w/bB + re) / (w/(bA*rho) + re) }
+		hi := lim
+		if wHi := bm.aMax / phiBMin; !math.IsInf(wHi, 1) {
+			hi = h(wHi)
+		}
+		least = min(least, h(bm.a/phiBMax), hi)
+		if bm.reMax == bm.re {
+			break
+		}
 	}
-	return min(h(bm.a/phiBMax), hi)
+	return least
 }
 
 // vbeRise bounds VBE_A − VBE_B from above for two points at one junction
@@ -420,17 +433,42 @@ func (bm *betaModel) vbeRise(u, cnA float64) (rise, slope float64) {
 
 // lowRatio bounds IC_A/IC (the typical point pt) from below for the point
 // whose hFE at TNOM is b and IS/Ibe at most cnA, given k_t/k_A ≤ qk,
-// |T_A − T_t| ≤ dT and φ_A/φ_t ≥ rho: the least fixed point of y =
-// H(1 − (vbeRise(y·qk) + κ·dT)/A).
+// |T_A − T_t| ≤ dT and φ_A/φ_t ≥ rho: a lower bound on the fixed point of
+// lowRatioMap.
 func (bm *betaModel) lowRatio(b, cnA, qk, dT, rho float64, pt betaPoint) float64 {
+	m := bm.lowRatioMap(b, cnA, qk, dT, rho, pt)
+	return leastFixedPoint(m.at, m.h)
+}
+
+// lowRatioMap is lowRatio's map y ↦ H(1 − (vbeRise(y·qk) + κ·dT)/A), with
+// H the g ratio against the typical point and A its loop drop.
+func (bm *betaModel) lowRatioMap(b, cnA, qk, dT, rho float64, pt betaPoint) fixedMap {
 	h := bm.gRatio(b, bm.bt, bm.betaMin(bm.bt)/bm.bt, pt.phiMax, rho)
-	// V_TH − VBE at the typical point is IC·g(βt): between aLo and aHi.
-	aLo := bm.icLo * (bm.a/(bm.bt*pt.phiMax) + bm.re)
-	aHi := pt.icUp * (bm.aMax/bm.betaMin(bm.bt) + bm.re)
-	return leastFixedPoint(func(y float64) (float64, float64) {
-		rise, slope := bm.vbeRise(y*qk, cnA)
-		return bm.headroom(h, rise+bm.kappa*dT, slope, y, aLo, aHi)
-	}, h)
+	aLo, aHi := bm.loopDrop(pt)
+	return fixedMap{bm: bm, h: h, qk: qk, cn: cnA, kdT: bm.kappa * dT, aLo: aLo, aHi: aHi}
+}
+
+// fixedMap is the map y ↦ h·(1 − (vbeRise(y·qk) + κ·ΔT)/A) whose fixed
+// point bounds a current ratio (lowRatio, betaFloor's 1 + X), with A =
+// V_TH − VBE in [aLo, aHi] taken as headroom does: nonincreasing in y, so
+// any y with at(y) ≥ y is at most the fixed point.
+type fixedMap struct {
+	bm             *betaModel
+	h, qk, cn, kdT float64 // kdT is κ·ΔT
+	aLo, aHi       float64
+}
+
+// at is the map at y and its derivative.
+func (m fixedMap) at(y float64) (float64, float64) {
+	rise, slope := m.bm.vbeRise(y*m.qk, m.cn)
+	return m.bm.headroom(m.h, rise+m.kdT, slope, y, m.aLo, m.aHi)
+}
+
+// loopDrop bounds V_TH − VBE = IC·g(β) at point p: IC in [p.icLo,
+// p.icUp], β = b·φ between betaMin(b) and b·p.phiMax, R_TH + RE in [a,
+// aMax] and RE in [re, reMax].
+func (bm *betaModel) loopDrop(p betaPoint) (lo, hi float64) {
+	return p.icLo * (bm.a/(p.b*p.phiMax) + bm.re), p.icUp * (bm.aMax/bm.betaMin(p.b) + bm.reMax)
 }
 
 // headroom is h·(1 − n/A) and its derivative in x, for a rise n ≥ or < 0
@@ -447,7 +485,8 @@ func (bm *betaModel) headroom(h, n, slope, x, aLo, aHi float64) (float64, float6
 
 // upRatio bounds IC_A/IC (the typical point pt) from above for the point
 // whose hFE at TNOM is b and IS/Ibe at most cnA: g(βt)/g(β_A) is at most
-// its bound with βt,min and β_A,max at either end of R_TH's range, and
+// its bound with βt,min and β_A,max at either end of R_TH's range (with
+// the least RE: the ratio is over 1 and falls as RE rises), and
 // once IC_A ≥ IC, VBEt − VBE_A ≤ vbeRise(k_A,max/k_min) + κ·ΔT.
 func (bm *betaModel) upRatio(b, cnA float64, pt betaPoint) float64 {
 	btMin, bMax := bm.betaMin(bm.bt), bm.betaMax(b, cnA)
@@ -584,9 +623,9 @@ func (bm *betaModel) ratio(pa, pb betaPoint) (rho, qk, dT float64) {
 	fRatio := max(0, 1-max(1, math.Abs(bm.m.XTB))*min(1, dT/bm.tLoK))
 	qRatio := 1.0
 	if vaf := bm.m.VAF_V; vaf > 0 {
-		n := pa.ibUp * bm.re
+		n := pa.ibUp * bm.reMax
 		if up := pa.icUp - pb.icLo; up > 0 {
-			n += up * (bm.rcMax + bm.re)
+			n += up * (bm.rcMax + bm.reMax)
 		}
 		rise, _ := bm.vbeRise(pa.icUp/pb.icLo*bm.kMaxFor(pb.cn)/bm.kMin, pa.cn)
 		n += max(0, rise) + bm.kappa*dT

@@ -33,7 +33,7 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 	pnp := smallPNP(40, 80, 320)
 	pnp.Sheet.ThetaJA_KPerW = 400
 	st.Transistors = append(st.Transistors, pnp)
-	checked, positive := 0, 0
+	checked, positive, positiveRange := 0, 0, 0
 	sumRatio := 0.0
 	for _, vcc := range []float64{5, 12, 30, -15} {
 		s, err := normalize(Request{VCC_V: vcc, IC_A: 1e-3})
@@ -86,15 +86,37 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 				t.Errorf("divider bound %.6g above the divider's utilization %.6g (%v)", f, u, r)
 			}
 			// The floor for a window around IC and an R_TH below the build's
-			// must hold too: the search uses it that way.
+			// must hold too, and for a range of RE around the build's: the
+			// search uses it that way.
+			// The build's RE sits at either end of the range, where a
+			// step that took RE at the wrong end would show.
 			for _, k := range []float64{1, 0.5} {
-				f := e.betaFloor(dv, betaWindow{RTH: rth * k, RTHMax: r[iR2], RE: r[iRE], RCMin: r[iRC] * k, RCMax: r[iRC] / k, ICLo: ic * (1 - (1-k)/4), ICHi: ic * (1 + (1-k)/4)})
-				if f > math.Abs(a.beta) {
-					t.Errorf("beta floor %.6g above the beta term %.6g (vcc %g, %s, %v, VCE %.3g, window %g)", f, math.Abs(a.beta), vcc, dv.line.Sheet.Label, r, op.VCE_V, k)
-				}
-				if k == 1 && f > 0 {
-					positive++
-					sumRatio += f / math.Abs(a.beta)
+				for _, reRange := range [][2]float64{{1, 1}, {0.5, 1}, {1, 2}} {
+					f := e.betaFloor(dv, betaWindow{RTH: rth * k, RTHMax: r[iR2], RE: r[iRE] * reRange[0], REMax: r[iRE] * reRange[1], RCMin: r[iRC] * k, RCMax: r[iRC] / k, ICLo: ic * (1 - (1-k)/4), ICHi: ic * (1 + (1-k)/4)})
+					if f > math.Abs(a.beta) {
+						t.Errorf("beta floor %.6g above the beta term %.6g (vcc %g, %s, %v, VCE %.3g, window %g, RE ×%v)", f, math.Abs(a.beta), vcc, dv.line.Sheet.Label, r, op.VCE_V, k, reRange)
+					}
+					// Over a range of RE the floor is at most the floor at
+					// each RE in it (each step takes the worse end), up
+					// to the half kelvin the model's junction bound may
+					// settle apart.
+					if reRange[0] != reRange[1] {
+						single := math.Inf(1)
+						for _, x := range []float64{reRange[0], math.Sqrt(reRange[0] * reRange[1]), reRange[1]} {
+							single = min(single, e.betaFloor(dv, betaWindow{RTH: rth * k, RTHMax: r[iR2], RE: r[iRE] * x, RCMin: r[iRC] * k, RCMax: r[iRC] / k, ICLo: ic * (1 - (1-k)/4), ICHi: ic * (1 + (1-k)/4)}))
+						}
+						if f > single*(1+1e-3)+1e-12 {
+							t.Errorf("beta floor %.6g over RE ×%v above the least floor %.6g at single values in it (vcc %g, %s, %v)", f, reRange, single, vcc, dv.line.Sheet.Label, r)
+						}
+					}
+					if k == 1 && reRange[1] == 1 && f > 0 {
+						if reRange[0] == 1 {
+							positive++
+							sumRatio += f / math.Abs(a.beta)
+						} else {
+							positiveRange++
+						}
+					}
 				}
 			}
 		}
@@ -106,7 +128,10 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 	if positive < checked/2 {
 		t.Errorf("beta floor positive on only %d of %d builds", positive, checked)
 	}
-	t.Logf("%d builds checked; beta floor positive on %d, on average %.2f of the exact term", checked, positive, sumRatio/float64(max(positive, 1)))
+	if positiveRange < checked/4 {
+		t.Errorf("beta floor over a range of RE positive on only %d of %d builds", positiveRange, checked)
+	}
+	t.Logf("%d builds checked; beta floor positive on %d, on average %.2f of the exact term; with RE from half the build's positive on %d", checked, positive, sumRatio/float64(max(positive, 1)), positiveRange)
 }
 
 // TestOtherTopologyBoundsHold checks the bounds of the collector-feedback
@@ -325,5 +350,100 @@ func TestFactorUpBoundsFactor(t *testing.T) {
 				t.Fatalf("XTB %g at %.4f °C: hotter point IS %.6g factor %.12g, at T IS %.6g factor %.12g", xtb, tc, is, f, isT, want)
 			}
 		}
+	}
+}
+
+// TestBetaModelOverRangeIsConservative checks bound B's model over a range
+// of RE step by step (a fact of the bound's construction, not of any one
+// build): the model for RE in [lo, hi] is never less conservative than the
+// model at either end alone, field by field and method by method with the
+// same inputs (R_TH + RE's range and the loop drop wider, the power,
+// VBE, Early and base-current bounds no smaller, every lower bound no
+// larger, every upper bound no smaller). TestBoundsHoldOnRandomBuilds
+// checks the whole floor against exact builds; this catches a step that
+// takes RE at the wrong end where the floor has room to spare.
+func TestBetaModelOverRangeIsConservative(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}
+	st.Transistors[2].Sheet.PD25_W = 0 // no self-heating
+	st.Transistors[3].Sheet.VAF_V = 25
+	st.Transistors[4].Sheet.ThetaJA_KPerW = 500
+	s, err := normalize(Request{VCC_V: 12, IC_A: 1e-3})
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, _ := newEvaluator(s, st, s.topo)
+	rng := rand.New(rand.NewPCG(5, 9))
+	logU := func(lo, hi float64) float64 { return lo * math.Pow(hi/lo, rng.Float64()) }
+	const tol = 1e-12
+	le := func(a, b float64) bool { return a <= b+tol*math.Abs(b) || math.IsInf(b, 1) }
+	checked := 0
+	for range 3000 {
+		dv := &e.devs[rng.IntN(len(e.devs))]
+		th := NominalAmbient_C + (dv.tjMax_C-NominalAmbient_C)*rng.Float64()
+		reLo := logU(10, 10e3)
+		reHi := reLo * logU(1, 4)
+		rth := logU(100, 1e6)
+		rthMax := rth * logU(1, 4)
+		rc := logU(100, 20e3)
+		icLo := logU(1e-5, 1e-2)
+		icHi := icLo * logU(1, 1.3)
+		r, ok := e.newBetaModel(dv, th, reLo, reHi, rth, rthMax, 0, rc, icLo)
+		if !ok {
+			continue
+		}
+		for _, x := range []float64{reLo, reHi} {
+			m, ok := e.newBetaModel(dv, th, x, x, rth, rthMax, 0, rc, icLo)
+			if !ok {
+				t.Fatalf("RE %g: no model where the range %g..%g has one", x, reLo, reHi)
+			}
+			checked++
+			fail := func(what string, a, b float64) {
+				t.Errorf("RE %g of %g..%g (%s): %s %g vs %g at the single RE", x, reLo, reHi, dv.line.Sheet.Label, what, a, b)
+			}
+			if !le(r.a, m.a) || !le(m.aMax, r.aMax) {
+				fail("R_TH + RE range", r.a, m.a)
+			}
+			if !le(m.vbeCap, r.vbeCap) || !le(r.qMin, m.qMin) || !le(r.kMin, m.kMin) || !le(m.kappa, r.kappa) {
+				fail("VBE cap, q min, k min or κ", r.vbeCap, m.vbeCap)
+			}
+			cn := r.cnAt(icLo)
+			pr, pm := r.point(r.bt, cn, icLo, icHi), m.point(r.bt, cn, icLo, icHi)
+			if !le(pm.pUp, pr.pUp) || !le(pm.ibUp, pr.ibUp) || !le(pm.phiMax, pr.phiMax) {
+				fail("point power, base current or φ max", pr.pUp, pm.pUp)
+			}
+			lr, hr := r.loopDrop(pr)
+			lm, hm := m.loopDrop(pr)
+			if !le(lr, lm) || !le(hm, hr) {
+				fail("loop drop low end", lr, lm)
+			}
+			rho := 0.9 + 0.1*rng.Float64()
+			if gr, gm := r.gRatio(r.b2, r.b1, r.betaMin(r.b1)/r.b1, pr.phiMax, rho), m.gRatio(r.b2, r.b1, r.betaMin(r.b1)/r.b1, pr.phiMax, rho); !le(gr, gm) {
+				fail("g ratio", gr, gm)
+			}
+			if gr, gm := r.gRatio(r.b1, r.bt, r.betaMin(r.bt)/r.bt, pr.phiMax, rho), m.gRatio(r.b1, r.bt, r.betaMin(r.bt)/r.bt, pr.phiMax, rho); !le(gr, gm) {
+				fail("g ratio, hFE min against typical", gr, gm)
+			}
+			if ur, um := r.upRatio(r.b2, cn, pr), m.upRatio(r.b2, cn, pr); !le(um, ur) {
+				fail("up ratio", ur, um)
+			}
+			qk, dT := 1+0.1*rng.Float64(), r.dT*rng.Float64()
+			// the range's low ratio is at most the single model's fixed
+			// point: the single model's map does not fall below it there
+			// (the map is nonincreasing)
+			if yr := r.lowRatio(r.b1, cn, qk, dT, rho, pr); yr > 0 {
+				if fm, _ := m.lowRatioMap(r.b1, cn, qk, dT, rho, pr).at(yr); !le(yr, fm) {
+					fail("low ratio against the single model's map there", yr, fm)
+				}
+			}
+			p2 := r.point(r.b2, cn, icLo, icHi*1.5)
+			rhoR, qkR, _ := r.ratio(p2, pr)
+			rhoM, qkM, _ := m.ratio(p2, pr)
+			if !le(rhoR, rhoM) || !le(qkM, qkR) {
+				fail("φ ratio", rhoR, rhoM)
+			}
+		}
+	}
+	if checked < 1000 {
+		t.Fatalf("only %d models compared", checked)
 	}
 }
