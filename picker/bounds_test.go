@@ -214,6 +214,19 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			if fl := f.betaFloorRC(dv, bd, r); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-B floor %g over the beta term %g", a.r, fl, math.Abs(a.beta))
 			}
+			// F-B over a block of sums with this build's at either end,
+			// and at most F-B at either end alone (the block's floor
+			// covers both; up to the half kelvin betaFloor's junction
+			// bound may settle apart)
+			for _, rr := range [][2]float64{{r * 0.7, r}, {r, r * 1.4}} {
+				fl := f.betaFloorSums(dv, bd, rr[0], rr[1])
+				if fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
+					t.Errorf("%v: F-B floor %g over sums %g..%g above the beta term %g", a.r, fl, rr[0], rr[1], math.Abs(a.beta))
+				}
+				if ends := min(f.betaFloorSums(dv, bd, rr[0], rr[0]), f.betaFloorSums(dv, bd, rr[1], rr[1])); fl > ends*(1+1e-3)+1e-12 {
+					t.Errorf("%v: F-B floor %g over sums %g..%g above the least at its ends %g", a.r, fl, rr[0], rr[1], ends)
+				}
+			}
 		}
 	}
 	for _, topo := range []solver.Topology{solver.CollectorFeedback, solver.SplitSupply} {

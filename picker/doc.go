@@ -285,8 +285,10 @@
 //     are forward-active with VCE above VCE(sat) + margin, which the
 //     corner argument gives when the ambient range holds 25 °C (otherwise
 //     the bound is not used). TestBoundsHoldOnRandomBuilds checks it
-//     against the exact beta term of random builds. It is taken over a
-//     window of R_TH: per block of eight R2 levels, R_TH between rthFloor
+//     against the exact beta term of random builds. It also takes a range
+//     of RE, each step at the end of it that keeps the step an inequality
+//     (TestBetaModelOverRangeIsConservative checks each step against the
+//     model at either end). It is taken over a window of R_TH: per block of eight R2 levels, R_TH between rthFloor
 //     of the block's first R2 and its last R2 (taken once, at the
 //     threshold of the block's first level: a wider IC window and RC band
 //     only lower it, so it stays a floor at every level of the block); with
@@ -358,7 +360,11 @@
 //     bound B over R_TH from there up bounds the beta term of every build
 //     at (RC, RE). With RE's utilization and emitter floors it skips an RC
 //     and narrows the IC window. It depends on RC + RE and the IC window
-//     only, so it is kept per sum (series pairs repeat sums).
+//     only, so it is kept per sum (series pairs repeat sums). Over a
+//     block of RC levels it is bound B with RE' between the block's sums
+//     and RF from the largest sum's floor up (bound B over a range of
+//     RE); once it settles one level, F-RF's blocks take it too, so the
+//     low sums whose base is not stiff enough fall block by block.
 //   - F-G, the RF window: by F1 the RF levels with IC in the window are
 //     found by two searches, run not at the build's own sum r = RC + RE
 //     but at its two neighbours on a grid of sums (gridPoints points per
@@ -388,8 +394,9 @@
 //     levels every build has IC ≥ x0, the IC at the largest RF and the
 //     block's largest RC, and RC + RE between the block's ends: F-Q over
 //     x ≥ x0 with VCE in [VCC − kE·x·r_hi, VCC − x·r_lo] bounds its QPoint
-//     term (feedbackQFloorBlock). With RE's floors it skips the block;
-//     blocks double while they fall. This is the bound that matters when
+//     term (feedbackQFloorBlock). With RE's floors (and F-B over the
+//     block once F-B has settled a level) it skips the block; blocks
+//     double while they fall. This is the bound that matters when
 //     the stock's largest value cannot bring IC down to a small target
 //     (the best builds then sit at the largest RF, off target).
 //

@@ -252,11 +252,15 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 			}
 			if bd.finite && w.QPoint > 0 {
 				// Bound F-RF over RC levels rc..last, with RE's
-				// utilization, emitter and parts floors.
+				// utilization, emitter and parts floors, and past a
+				// level that bound F-B settled, F-B over the block's
+				// sums.
 				last := min(rc+skip-1, rcHi)
-				xLo := f.icFloorAbove(di, e.vs.levels[last].ohm+reOhm, cnt)
-				q := e.feedbackQFloorBlock(e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm, xLo, kE, vceLo, vceHi)
-				if pfRE+w.Utilization*max(uRE, f.uRC(bd, rc))+w.Emitter*eLo+w.QPoint*q > bd.thr {
+				rLo, rHi := e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm
+				xLo := f.icFloorAbove(di, rHi, cnt)
+				q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
+				fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
+				if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr {
 					rc = last
 					skip *= 2
 					continue
@@ -296,6 +300,10 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 					base += w.Beta * f.betaFloorRC(dv, bd, r)
 				}
 				if base+qFloor > bd.thr {
+					// F-B settled it: the next levels are tried in
+					// blocks (F-B falls as the sum rises, so a block
+					// often falls whole)
+					skip = 2
 					continue
 				}
 				if w.QPoint > 0 {
@@ -381,12 +389,7 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 	return bd.icLo * bd.icLo * f.e.vs.levels[rc].ohm / f.e.vs.allowHotMax_W
 }
 
-// betaFloorRC is bound B (betaFloor) over every build of dv with
-// RC + RE = r whose nominal IC lies in the window of bd (bound F-B). The
-// base loop is VCC − VBE = IB·RF + IE·r (baseLoop), so with IB ≤ IC/β_min
-// (β_min = betaNomMin) every such build has RF ≥ β_min·(VCC − VBE_hi −
-// kE·icHi·r)/icHi; R_TH runs from there to the largest level. It is kept
-// in f.fb.
+// betaFloorRC is betaFloorSums at the one sum RC + RE = r, kept in f.fb.
 func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 	k := math.Float64bits(r)
 	if f.fb == nil {
@@ -396,16 +399,27 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
 		return slot.floor
 	}
+	fl := f.betaFloorSums(dv, bd, r, r)
+	*slot = fbEntry{k, dv, fl, bd.icLo, bd.icHi}
+	return fl
+}
+
+// betaFloorSums is bound B (betaFloor) over every build of dv with RC + RE
+// in [rLo, rHi] whose nominal IC lies in the window of bd (bound F-B; the
+// sum plays RE's part, baseLoop). The base loop is VCC − VBE = IB·RF +
+// IE·(RC + RE), so with IB ≤ IC/β_min (β_min = betaNomMin) every such
+// build has RF ≥ β_min·(VCC − VBE_hi − kE·icHi·rHi)/icHi; R_TH runs from
+// there to the largest level.
+func (f *feedbackPlan) betaFloorSums(dv *device, bd bounds, rLo, rHi float64) float64 {
 	e := f.e
 	vHi := vbeHi(dv, bd.icHi)
 	kE := 1 + 1/dv.betaNomMin
-	fl := 0.0
-	if rfMin := dv.betaNomMin * (e.s.vcc - vHi - kE*bd.icHi*r) / bd.icHi; rfMin > 0 {
-		fl = e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: r,
-			ICLo: bd.icLo, ICHi: bd.icHi})
+	rfMin := dv.betaNomMin * (e.s.vcc - vHi - kE*bd.icHi*rHi) / bd.icHi
+	if !(rfMin > 0) {
+		return 0
 	}
-	*slot = fbEntry{k, dv, fl, bd.icLo, bd.icHi}
-	return fl
+	return e.betaFloor(dv, betaWindow{RTH: rfMin, RTHMax: max(rfMin, e.vs.levels[len(e.vs.levels)-1].ohm), RE: rLo, REMax: rHi,
+		ICLo: bd.icLo, ICHi: bd.icHi})
 }
 
 // feedbackQFloorBlock is bound F-Q: a lower bound on the QPoint term of
