@@ -132,15 +132,17 @@ func newBoardJudge(b *Build, w Window) *boardJudge {
 	return j
 }
 
-// at solves bd at ambient ta.
-func (j *boardJudge) at(bd *board, ta float64) (OperatingPoint, error) {
-	return SolveSelfHeated(j.b.resolveTCR(&bd.dev, &bd.tcr, bd.vccFactor, bd.veeFactor, ta), bd.m, ta, j.theta, j.tjMax)
+// at solves bd at ambient ta, Newton starting from start (a solve of the
+// same board at a nearby ambient; nil or zero: the hand estimate), which
+// then holds this solve's start for the next.
+func (j *boardJudge) at(bd *board, ta float64, start *junctionStart) (OperatingPoint, error) {
+	return solveSelfHeatedFrom(j.b.resolveTCR(&bd.dev, &bd.tcr, bd.vccFactor, bd.veeFactor, ta), bd.m, ta, j.theta, j.tjMax, start)
 }
 
-// end solves bd at one end of the ambient range and keeps the point when
-// asked.
-func (j *boardJudge) end(bd *board, ta float64) (OperatingPoint, error) {
-	op, err := j.at(bd, ta)
+// end solves bd at one end of the ambient range (as at) and keeps the
+// point when asked.
+func (j *boardJudge) end(bd *board, ta float64, start *junctionStart) (OperatingPoint, error) {
+	op, err := j.at(bd, ta, start)
 	if err == nil && j.keep != nil {
 		j.keep.Points = append(j.keep.Points, SamplePoint{Ambient_C: ta, IC_A: op.IC_A, VCE_V: op.VCE_V})
 	}
@@ -151,7 +153,10 @@ func (j *boardJudge) end(bd *board, ta float64) (OperatingPoint, error) {
 // range, and whether a turning point had to be solved. A failed solve is
 // returned as the error (the board fails).
 func (j *boardJudge) judge(bd *board) (pass, turned bool, err error) {
-	lo, err := j.end(bd, j.lo)
+	// each end's solve warm-starts the solve next to it (and the
+	// middle's)
+	var cold, hot junctionStart
+	lo, err := j.end(bd, j.lo, &cold)
 	if err != nil {
 		return false, false, err
 	}
@@ -162,7 +167,7 @@ func (j *boardJudge) judge(bd *board) (pass, turned bool, err error) {
 		return false, false, nil
 	}
 	// Both ends are solved when the points are kept.
-	hi, err := j.end(bd, j.hi)
+	hi, err := j.end(bd, j.hi, &hot)
 	if !j.w.Contains(&lo) {
 		return false, false, nil // failed at the cold end, whatever the hot end did
 	}
@@ -174,17 +179,17 @@ func (j *boardJudge) judge(bd *board) (pass, turned bool, err error) {
 	}
 	if j.hi-j.lo <= 2*j.h {
 		// Too narrow for end slopes: check the middle as well.
-		mid, err := j.at(bd, 0.5*(j.lo+j.hi))
+		mid, err := j.at(bd, 0.5*(j.lo+j.hi), &cold)
 		if err != nil {
 			return false, false, err
 		}
 		return j.w.Contains(&mid), false, nil
 	}
-	lo2, err := j.at(bd, j.lo+j.h)
+	lo2, err := j.at(bd, j.lo+j.h, &cold)
 	if err != nil {
 		return false, false, err
 	}
-	hi2, err := j.at(bd, j.hi-j.h)
+	hi2, err := j.at(bd, j.hi-j.h, &hot)
 	if err != nil {
 		return false, false, err
 	}
@@ -222,7 +227,7 @@ func (j *boardJudge) turningInside(bd *board, vce, max bool) (bool, error) {
 	const r = 0.6180339887498949 // (√5 − 1)/2
 	a, c := j.lo, j.hi
 	f := func(t float64) (float64, bool, error) {
-		op, err := j.at(bd, t)
+		op, err := j.at(bd, t, nil)
 		if err != nil {
 			return 0, false, err
 		}

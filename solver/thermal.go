@@ -26,6 +26,24 @@ const thermalScan = 32
 // runaway the returned OperatingPoint is the one solved at tjMax_C, for
 // reporting only.
 func SolveSelfHeated(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64) (OperatingPoint, error) {
+	return solveSelfHeatedFrom(s, m, ambient_C, thetaJA_KPerW, tjMax_C, nil)
+}
+
+// junctionStart carries a warm start from one self-heated solve to the
+// next of a nearby circuit (the same board at a nearby ambient): the
+// junction voltages of the earlier solve at its ambient, before any
+// self-heating, and that ambient. The zero value is no start (the hand
+// estimate). Only where Newton starts changes; the solution is the same
+// to the solver's tolerance.
+type junctionStart struct {
+	x [2]float64
+	t float64
+}
+
+// solveSelfHeatedFrom is SolveSelfHeated with the ambient solve's Newton
+// started from start (moved to the ambient along the junctions'
+// tempco), which then receives this solve's ambient junction voltages.
+func solveSelfHeatedFrom(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64, start *junctionStart) (OperatingPoint, error) {
 	if tjMax_C == 0 {
 		tjMax_C = DefaultTjMax_C
 	}
@@ -33,7 +51,7 @@ func SolveSelfHeated(s Stage, m Model, ambient_C, thetaJA_KPerW, tjMax_C float64
 		return OperatingPoint{}, err
 	}
 	d := m.at(ambient_C)
-	return solveSelfHeated(s, &m, &d, ambient_C, thetaJA_KPerW, tjMax_C)
+	return solveSelfHeated(s, &m, &d, ambient_C, thetaJA_KPerW, tjMax_C, start)
 }
 
 // checkSelfHeated is SolveSelfHeated's input check of everything but the
@@ -56,16 +74,25 @@ func checkSelfHeated(m *Model, ambient_C, thetaJA_KPerW, tjMax_C float64) error 
 
 // solveSelfHeated is SolveSelfHeated after checkSelfHeated has passed,
 // with the device at the ambient, dAmb = m.at(ambient_C), given (callers
-// solving many stages share it). It checks the stage.
-func solveSelfHeated(s Stage, m *Model, dAmb *device, ambient_C, thetaJA_KPerW, tjMax_C float64) (OperatingPoint, error) {
+// solving many stages share it), and a warm start when start is not nil
+// (solveSelfHeatedFrom). It checks the stage.
+func solveSelfHeated(s Stage, m *Model, dAmb *device, ambient_C, thetaJA_KPerW, tjMax_C float64, start *junctionStart) (OperatingPoint, error) {
 	if err := s.Validate(m.Polarity); err != nil {
 		return OperatingPoint{}, fmt.Errorf("self-heated solve: solve: %v stage: %w", s.Topology, err)
 	}
 	sg := m.Polarity.sign()
 	th := thermalProblem{s: s, m: m, ck: reduce(s, sg), sg: sg, ta: ambient_C, theta: thetaJA_KPerW}
 	th.d, th.lastT = *dAmb, ambient_C
+	if start != nil && start.x != ([2]float64{}) {
+		th.guess, th.lastT = start.x, start.t
+		th.extrapolate(ambient_C)
+		th.lastT = ambient_C
+	}
 	if err := th.solve(ambient_C); err != nil {
 		return OperatingPoint{}, err
+	}
+	if start != nil {
+		*start = junctionStart{x: th.x, t: ambient_C}
 	}
 	if thetaJA_KPerW == 0 {
 		return th.point()

@@ -290,7 +290,7 @@ func (p *cornerPlan) solve(k int) (Corner, error) {
 	err := p.check[mi][ai]
 	var op OperatingPoint
 	if err == nil {
-		op, err = solveSelfHeated(s, m, &p.dev[mi][ai], ambient, p.theta, p.tjMax)
+		op, err = solveSelfHeated(s, m, &p.dev[mi][ai], ambient, p.theta, p.tjMax, nil)
 	}
 	if err != nil {
 		return c, fmt.Errorf("worst case: corner %d (hFE %g, ambient %g °C, vcc %.4g V): %w", k, m.BF, ambient, s.VCC_V, err)

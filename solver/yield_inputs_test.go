@@ -179,7 +179,7 @@ func TestYieldSweepAgrees(t *testing.T) {
 			}
 			for k := 0; k <= 120; k++ {
 				ta := b.AmbientMin_C + (b.AmbientMax_C-b.AmbientMin_C)*float64(k)/120
-				op, err := j.at(&bd, ta)
+				op, err := j.at(&bd, ta, nil)
 				if err != nil || !w.Contains(&op) {
 					t.Fatalf("board passed but at %.2f °C IC %g A, VCE %g V (err %v) is outside %+v", ta, op.IC_A, op.VCE_V, err, w)
 				}
@@ -231,7 +231,7 @@ func TestYieldTurningPoint(t *testing.T) {
 			var ops [4]OperatingPoint
 			bad := false
 			for k, ta := range [4]float64{b.AmbientMin_C, b.AmbientMin_C + h, b.AmbientMax_C - h, b.AmbientMax_C} {
-				op, err := j.at(&bd, ta)
+				op, err := j.at(&bd, ta, nil)
 				bad = bad || err != nil || op.Region != Active
 				ops[k] = op
 			}
@@ -254,7 +254,7 @@ func TestYieldTurningPoint(t *testing.T) {
 			out := 0.0 // the largest relative excursion outside the span
 			for k := 0; k <= 240; k++ {
 				ta := b.AmbientMin_C + (b.AmbientMax_C-b.AmbientMin_C)*float64(k)/240
-				op, err := j.at(&bd, ta)
+				op, err := j.at(&bd, ta, nil)
 				if err != nil {
 					t.Fatal(err)
 				}
