@@ -118,6 +118,12 @@ func Pick(stock Stock, req Request) (Result, error) {
 		c.Rank = i + 1
 		res.Candidates = append(res.Candidates, c)
 	}
+	// the shown builds' full worst cases are independent: at once
+	var wg sync.WaitGroup
+	for i := range res.Candidates {
+		wg.Go(func() { all[i].ev.e.completeWorst(&res.Candidates[i]) })
+	}
+	wg.Wait()
 	if len(s.topos) > 1 && len(res.Candidates) > 0 {
 		res.Rivals = rivals(s, res.Candidates[0], best)
 	}
@@ -466,12 +472,17 @@ func (e *evaluator) candidate(ev *evaluated, failLimit int) (c Candidate, stoppe
 		}
 		c.Positions[e.lay.names[i]] = pos
 	}
-	if wc, err := solver.EvalWorstCase(b, e.s.lim); err == nil {
-		c.Worst = wc
-	} else {
-		c.Worst = ev.worst
-	}
+	c.Worst = ev.worst // the shown builds get the full one (completeWorst)
 	return c, false, nil
+}
+
+// completeWorst gives c, a build to be shown, its full worst case (with
+// every corner and the RSS spread), which ranking does not need: the
+// worst case it was scored with stays where that cannot be solved.
+func (e *evaluator) completeWorst(c *Candidate) {
+	if wc, err := solver.EvalWorstCase(c.Build, e.s.lim); err == nil {
+		c.Worst = wc
+	}
 }
 
 // keySeed derives a per-build seed from its key, so a build's yield does
