@@ -18,10 +18,10 @@ const (
 )
 
 // headroomFloor solves two of the worst-case corners of b — the one
-// expected to give the lowest VCE (hFE max, hot, supply low, an emitter
-// rail high, each resistor at the end of its tolerance the layout's lowVCE
-// names) and the one expected to give the lowest IC (hFE min, cold,
-// supplies low, lowIC) —
+// expected to give the lowest VCE (hFE max, VBE(on) and VAF low, hot,
+// supply low, an emitter rail high, each resistor at the end of its
+// tolerance the layout's lowVCE names) and the one expected to give the
+// lowest IC (hFE min, VBE(on) and VAF high, cold, supplies low, lowIC) —
 // and returns the headroom term those two alone give. The lowest VCE and
 // IC over all corners are at most these corners' values and the term
 // falls as they rise, so it is a lower bound on the build's headroom term
@@ -42,11 +42,11 @@ func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h flo
 	}
 	cnt.solves += 2
 	floor := d.vceSat + e.s.lim.VCEMargin_V
-	opV, err := solver.SolveSelfHeated(b.ResolveRails(e.lay.slotsOf(devVCE), lowV, 1+veeTol, e.s.ambMax), d.hi, e.s.ambMax, d.thetaJA, d.tjMax_C)
+	opV, err := solver.SolveSelfHeated(b.ResolveRails(e.lay.slotsOf(devVCE), lowV, 1+veeTol, e.s.ambMax), d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
 	if err != nil || opV.Region != solver.Active || opV.VCE_V < floor || !solver.EvalDissipation(b, opV, e.s.ambMax, e.s.lim).Ok {
 		return 0, true
 	}
-	opI, err := solver.SolveSelfHeated(b.ResolveRails(e.lay.slotsOf(devIC), lowV, 1-veeTol, e.s.ambMin), d.lo, e.s.ambMin, d.thetaJA, d.tjMax_C)
+	opI, err := solver.SolveSelfHeated(b.ResolveRails(e.lay.slotsOf(devIC), lowV, 1-veeTol, e.s.ambMin), d.icLow, e.s.ambMin, d.thetaJA, d.tjMax_C)
 	if err != nil || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
 		return 0, true
 	}

@@ -8,15 +8,20 @@ import (
 
 // device is one usable transistor line with its models prepared.
 type device struct {
-	line     Transistor
-	typ      solver.Model // at the typical hFE
-	lo, hi   solver.Model // at hFE min and max
-	thetaJA  float64      // K/W; 0 = no self-heating
-	tjMax_C  float64
-	vceSat   float64
-	hfeMin   float64
-	allowHot float64 // transistor allowance at the hottest ambient (W), +Inf when unrated
-	at25     nominalDevice
+	line   Transistor
+	typ    solver.Model // at the typical hFE
+	lo, hi solver.Model // at hFE min and max
+	// vceLow and icLow are the models of the two worst-case corners
+	// headroomFloor solves: hFE max with VBE(on) and VAF at the low end
+	// of their ranges (the most IC, the least VCE), hFE min with both
+	// at the high end (the least IC)
+	vceLow, icLow solver.Model
+	thetaJA       float64 // K/W; 0 = no self-heating
+	tjMax_C       float64
+	vceSat        float64
+	hfeMin        float64
+	allowHot      float64 // transistor allowance at the hottest ambient (W), +Inf when unrated
+	at25          nominalDevice
 	// betaNomMin bounds IC/IB from below at every nominal point of a
 	// passing build (evaluator.nominalBetaMin).
 	betaNomMin float64
@@ -99,8 +104,18 @@ func (s settings) transistorCandidates(ts []Transistor, split bool) (devs []devi
 			reject(Rejection{Kind: RejectDatasheet, Err: err})
 			continue
 		}
+		vl, err := solver.CornerModel(d, true, false, false)
+		if err != nil {
+			reject(Rejection{Kind: RejectDatasheet, Err: err})
+			continue
+		}
+		il, err := solver.CornerModel(d, false, true, true)
+		if err != nil {
+			reject(Rejection{Kind: RejectDatasheet, Err: err})
+			continue
+		}
 		dv := device{
-			line: t, typ: mt, lo: ml, hi: mh,
+			line: t, typ: mt, lo: ml, hi: mh, vceLow: vl, icLow: il,
 			thetaJA: solver.ThermalResistance(d), tjMax_C: d.TjMaxOrDefault_C(),
 			vceSat: d.VCESatOrDefault_V(), hfeMin: d.HFEMin, allowHot: allowHot,
 		}

@@ -186,13 +186,7 @@ func newCornerPlan(b Build, lim Limits) (cornerPlan, error) {
 		return p, err
 	}
 	for i := range p.models {
-		m := base
-		if i&1 != 0 {
-			m.BF = b.Device.HFEMax // ModelFor depends on bf only through BF
-		}
-		m.IS_A = isFor(b.Device, p.vbe[i>>1&1])
-		m.VAF_V = p.vaf[i>>2&1]
-		p.models[i] = m
+		p.models[i] = cornerModel(base, b.Device, i&1 != 0, i>>1&1 != 0, i>>2&1 != 0)
 		for j, amb := range [2]float64{b.AmbientMin_C, b.AmbientMax_C} {
 			if p.check[i][j] = checkSelfHeated(&p.models[i], amb, p.theta, p.tjMax); p.check[i][j] == nil {
 				p.dev[i][j] = p.models[i].at(amb)
@@ -200,6 +194,37 @@ func newCornerPlan(b Build, lim Limits) (cornerPlan, error) {
 		}
 	}
 	return p, nil
+}
+
+// CornerModel returns the transistor model of d at one worst-case corner
+// (EvalWorstCase): hFE at its max when hfeHigh (else its min), VBE(on) and
+// VAF at the high end of their ranges when vbeHigh and vafHigh (else the
+// low end; VBEOnRange, VAFRange).
+func CornerModel(d Datasheet, hfeHigh, vbeHigh, vafHigh bool) (Model, error) {
+	base, err := ModelFor(d, d.HFEMin)
+	if err != nil {
+		return Model{}, err
+	}
+	return cornerModel(base, d, hfeHigh, vbeHigh, vafHigh), nil
+}
+
+// cornerModel is CornerModel from base = ModelFor(d, d.HFEMin).
+func cornerModel(base Model, d Datasheet, hfeHigh, vbeHigh, vafHigh bool) Model {
+	m := base
+	if hfeHigh {
+		m.BF = d.HFEMax // ModelFor depends on bf only through BF
+	}
+	vbeLo, vbeHi, _ := VBEOnRange(d)
+	m.IS_A = isFor(d, vbeLo)
+	if vbeHigh {
+		m.IS_A = isFor(d, vbeHi)
+	}
+	vafLo, vafHi := VAFRange(d)
+	m.VAF_V = vafLo
+	if vafHigh {
+		m.VAF_V = vafHi
+	}
+	return m
 }
 
 // CornerCount returns the number of corners EvalWorstCase solves for b.
