@@ -150,6 +150,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	pnp.Sheet.ThetaJA_KPerW = 400
 	st.Transistors = append(st.Transistors, pnp)
 	checked := map[solver.Topology]int{}
+	rsChecked, rsPositive := 0, 0
 	for _, req := range []Request{
 		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3},
 		{Topology: solver.CollectorFeedback, VCC_V: -9, IC_A: 1e-3},
@@ -214,6 +215,30 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			if fl := f.betaFloorRC(dv, bd, r); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-B floor %g over the beta term %g", a.r, fl, math.Abs(a.beta))
 			}
+			// F-RS: the headroom floor of the builds below an RF level
+			// holds for this build, one level below (and at the level
+			// itself, the nearest the bound comes)
+			c := a.c // the build of the levels' first values (singles here)
+			for i := range e.lay.n {
+				c.val[i] = e.vs.levels[c.lv[i]].values[0]
+			}
+			if wc, err := solver.EvalWorstCase(e.build(c), e.s.lim); err == nil {
+				h := e.headroom(dv, wc)
+				for _, top := range []int{lv[fRF] + 1, min(lv[fRF]+4, n-1)} {
+					if top <= lv[fRF] {
+						continue
+					}
+					if fl := f.headroomBelow(di, top, lv[fRC], lv[fRE], &cnt2); fl > h*(1+1e-9)+1e-12 {
+						t.Errorf("%v: F-RS headroom floor %g (RF below level %d) over the headroom term %g", a.r, fl, top, h)
+					}
+					if top == lv[fRF]+1 && h > 0 {
+						rsChecked++
+						if f.headroomBelow(di, top, lv[fRC], lv[fRE], &cnt2) > 0 {
+							rsPositive++
+						}
+					}
+				}
+			}
 			// F-B over a block of sums with this build's at either end,
 			// and at most F-B at either end alone (the block's floor
 			// covers both; up to the half kelvin betaFloor's junction
@@ -234,6 +259,88 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			t.Errorf("%v: only %d builds checked", topo, checked[topo])
 		}
 	}
+	t.Logf("F-RS headroom floor positive on %d of %d builds with a headroom term", rsPositive, rsChecked)
+}
+
+// TestFeedbackHeadroomBelowHolds checks bound F-RS's headroom floor
+// (headroomBelow), and headroomFloor, against the exact worst case (solver.EvalWorstCase, the
+// search's own reference) of collector-feedback builds that come near
+// saturation at some corner: a small target current with RF near the
+// largest level and RC + RE taking most of the supply, on an E96 wall at
+// 1 % and one at 5 % with TCRs of 100 and 250 ppm/K, so the corners' TCR
+// and tolerance ends matter. For the build at RF level j the floor of
+// the builds below level j + 1 (and j + 3) must be at most its headroom
+// term, and positive on most builds whose term is.
+func TestFeedbackHeadroomBelowHolds(t *testing.T) {
+	walls := [][]Resistor{seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000), seriesStock(eseries.E24, 10, 1e6, 0.05, 0.25, 100, 1000)}
+	for i := range walls[1] {
+		walls[1][i].TCR_PPMPerK = 250
+	}
+	checked, positive := 0, 0
+	for wi, wall := range walls {
+		st := Stock{Resistors: wall, Transistors: benchTransistors(6)}
+		st.Transistors[4].Sheet.ThetaJA_KPerW = 500
+		s, err := normalize(Request{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 0.1e-3})
+		if err != nil {
+			t.Fatal(err)
+		}
+		e, _ := newEvaluator(s, st, s.topo)
+		f := &feedbackPlan{e: e}
+		n := len(e.vs.levels)
+		rng := rand.New(rand.NewPCG(uint64(wi), 17))
+		for range 1500 {
+			di := rng.IntN(len(e.devs))
+			rf := n - 1 - rng.IntN(n/8)
+			re := rng.IntN(n * 3 / 4)
+			// RC so that RC + RE is 60..140 kΩ
+			rc := e.vs.levelAtOrAbove(max(10, 60e3+80e3*rng.Float64()-e.vs.levels[re].ohm))
+			if rc >= n {
+				continue
+			}
+			lv := [maxPos]int{rf, rc, re}
+			a := e.newTuple(di, lv)
+			if !a.ok {
+				continue
+			}
+			c := a.c // the build of the levels' values (singles here)
+			for i := range e.lay.n {
+				c.val[i] = e.vs.levels[c.lv[i]].values[0]
+			}
+			wc, err := solver.EvalWorstCase(e.build(c), e.s.lim)
+			if err != nil {
+				continue
+			}
+			h := e.headroom(&e.devs[di], wc)
+			var cnt counters
+			// headroomFloor's two corners are corners of the worst case
+			if hf, fails := e.headroomFloor(di, e.build(c), &cnt); !fails && hf > h*(1+1e-9)+1e-12 {
+				t.Errorf("%v (%s): headroom floor %g over the headroom term %g", a.r, e.devs[di].line.Sheet.Label, hf, h)
+			}
+			for _, top := range []int{rf + 1, rf + 3} {
+				if top >= n {
+					continue
+				}
+				fl := f.headroomBelow(di, top, rc, re, &cnt)
+				if fl > h*(1+1e-9)+1e-12 {
+					t.Errorf("%v (%s): F-RS headroom floor %g below level %d over the headroom term %g", a.r, e.devs[di].line.Sheet.Label, fl, top, h)
+				}
+				if top == rf+1 && h > 0.05 {
+					checked++
+					if fl > 0 {
+						positive++
+					}
+				}
+			}
+		}
+	}
+	if checked < 200 {
+		t.Fatalf("only %d builds near saturation checked", checked)
+	}
+	// a floor that is always 0 would hold and settle nothing
+	if positive < checked/2 {
+		t.Errorf("F-RS headroom floor positive on only %d of %d builds near saturation", positive, checked)
+	}
+	t.Logf("%d builds near saturation checked; floor positive on %d", checked, positive)
 }
 
 // checkTransistorUse checks bound U-Q on the build of tuple a: at the

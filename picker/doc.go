@@ -385,6 +385,19 @@
 //     least and largest of its active tuples) with each tuple's exact
 //     QPoint and emitter terms and the parts floor settles most tuples
 //     before the floor at each one alone is taken (scoreBlock).
+//   - F-RS: the window is solved from its top down. By F1 every RF below
+//     the lowest one solved has IC at least that one's, so F-Q over
+//     currents from there up, with the other terms' floors, settles the
+//     rest of the window. Near saturation the headroom term counts too
+//     (headroomBelow): at the worst case's corner with hFE max, VBE(on)
+//     and VAF low, hot, the supply low, RF and RE low and RC high (each
+//     with its TCR the same way), any RF below level k is at most R(k − 1)
+//     raised by the largest TCR, so by F1 IC there is at least IC_up of
+//     that corner at R(k − 1), and the corner's VCE = VCC − IE·(RC + RE)
+//     is at most VCC − IC_up·(RC + RE), which bounds the lowest corner VCE
+//     and so the headroom term (RC's and RE's levels must each admit one
+//     value). This is what settles a target the largest RF cannot reach,
+//     where every split of RC + RE near saturation scores alike.
 //   - F-RF per pair: every build at (RC, RE) has IC at least IC at the
 //     largest RF and the grid point above RC + RE (F1, F-G), so F-Q and
 //     F-QW are taken over currents from there up.

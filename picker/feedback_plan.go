@@ -2,6 +2,8 @@ package picker
 
 import (
 	"math"
+
+	"biasbin/solver"
 )
 
 // Positions of a collector-feedback build's arrays (feedbackLayout).
@@ -27,6 +29,10 @@ type feedbackPlan struct {
 	// them on an E12 wall with pairs). It is direct-mapped: a sum's
 	// entry is at a hash of its bits, and a newer sum takes the slot.
 	fb []fbEntry
+	// tcrMax is the largest |TCR| of any value, ppm/K, once tcrTaken
+	// (headroomBelow)
+	tcrMax   float64
+	tcrTaken bool
 }
 
 // fbMemo is the number of slots of feedbackPlan.fb (10 MB per worker).
@@ -360,22 +366,100 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				hi = lo + k - 1
 			}
 			// The window's tuples go to scoring a block of rfBlock
-			// visited levels at a time, with bound B over the block.
+			// visited levels at a time, with bound B over the block,
+			// from the top of the window down. Bound F-RS: by F1 every
+			// RF below the lowest one solved has IC at least that one's,
+			// so F-Q over currents from there up and the headroom floor
+			// below it (headroomBelow), with the other terms' floors,
+			// settle the rest of the window once they are over.
+			r := e.vs.levels[rc].ohm + reOhm
 			var blk [rfBlock]*tuple
-			for rf := lo; rf <= hi; {
+			xSeen, vceSeen := 0.0, 0.0
+			for rf := hi; rf >= lo; {
+				if xSeen > 0 && bd.finite {
+					sweep := fl + w.QPoint*e.feedbackQFloorBlock(r, r, xSeen, kE, vceLo, vceHi)
+					if sweep > p.threshold() {
+						break
+					}
+					// the headroom floor costs a solve: taken only where
+					// the nominal VCE is near enough saturation for a
+					// corner to reach the band
+					if w.Headroom > 0 && vceSeen-dv.vceSat-e.s.lim.VCEMargin_V < 3*headroomSatBand*e.span &&
+						sweep+w.Headroom*f.headroomBelow(di, rf+1, rc, re, cnt) > p.threshold() {
+						break
+					}
+				}
 				n := 0
-				for ; rf <= hi && n < rfBlock; rf++ {
+				for ; rf >= lo && n < rfBlock; rf-- {
 					if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
-						rf = e.vs.nextSingle[rf] - 1 // bound P: no room for a pair in RF
+						rf = e.vs.prevSingle[rf] + 1 // bound P: no room for a pair in RF
 						continue
 					}
 					blk[n] = f.tuple(di, rf, rc, re, cnt)
 					n++
 				}
+				for _, t := range blk[:n] {
+					if t.ok {
+						xSeen, vceSeen = t.op.IC_A, t.op.VCE_V // the lowest RF solved so far
+					}
+				}
 				e.scoreBlock(blk[:n], fRF, pf, p, cnt)
 			}
 		}
 	})
+}
+
+// headroomBelow is the headroom term's floor of bound F-RS: a lower
+// bound on the headroom term of every build of device di with RC level
+// rc, RE level re and RF below level top (0 where it gives none). The
+// worst case's lowest VCE is at most VCE at its corner with hFE max,
+// VBE(on) and VAF low (device.vceLow), the hottest ambient, the supply
+// low, RF and RE at the low end of their
+// tolerance and RC at the high end (each with its TCR bound the same way,
+// as the corners take it). There RF is at most R_up = R(top − 1)·(1 +
+// |TCR|max·|ΔT|) whatever the build's RF, so by F1 IC there is at least
+// IC_up, the IC of that corner with RF = R_up, and VCE = VCC − IE·(RC +
+// RE) ≤ VCC − IC_up·(RC + RE). It needs RC's and RE's values known: it
+// gives 0 unless each of the two levels admits one value.
+func (f *feedbackPlan) headroomBelow(di, top, rc, re int, cnt *counters) float64 {
+	e := f.e
+	if top <= 0 || top >= len(e.vs.levels) {
+		return 0
+	}
+	vRC, vRE := e.admitted(fRC, rc), e.admitted(fRE, re)
+	if len(vRC) != 1 || len(vRE) != 1 {
+		return 0
+	}
+	d := &e.devs[di]
+	b := e.build(combo{dev: di, lv: [maxPos]int{top, rc, re}, val: [maxPos]int{e.vs.levels[top].values[0], vRC[0], vRE[0]}})
+	lowV := 1 - e.s.vccTol
+	st := b.ResolveRails([solver.NumSlots]float64{}, lowV, 1, e.s.ambMax)
+	dt := math.Abs(e.s.ambMax-solver.TCRReference_C) * 1e-6
+	// a resistor's corner value at the hottest ambient, at the end of its
+	// tolerance that sign names (a resistor without tolerance at its top)
+	corner := func(spec solver.ResistorSpec, sign float64) float64 {
+		if spec.Tol <= 0 {
+			sign = 1
+		}
+		return spec.Nominal_Ohm * (1 + sign*spec.Tol) * (1 + sign*math.Abs(spec.TCR_PPMPerK)*dt)
+	}
+	st.R_Ohm[solver.RC] = corner(b.Resistors[solver.RC], 1)
+	st.R_Ohm[solver.RE] = corner(b.Resistors[solver.RE], -1)
+	if !f.tcrTaken {
+		f.tcrTaken = true
+		for _, v := range e.vs.values {
+			f.tcrMax = max(f.tcrMax, math.Abs(v.spec.TCR_PPMPerK))
+		}
+	}
+	st.R_Ohm[solver.RF] = e.vs.levels[top-1].ohm * (1 + f.tcrMax*dt)
+	cnt.solves++
+	op, err := solver.SolveSelfHeated(st, d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
+	if err != nil || op.Region != solver.Active {
+		return 0
+	}
+	vce := e.s.vcc*lowV - op.IC_A*(st.R_Ohm[solver.RC]+st.R_Ohm[solver.RE])
+	sat := (vce - d.vceSat - e.s.lim.VCEMargin_V) / e.span
+	return max(0, 1-sat/headroomSatBand)
 }
 
 // rfBlock is how many RF levels of a window share one beta floor

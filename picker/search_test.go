@@ -220,3 +220,42 @@ func TestPairsMatchExhaustive(t *testing.T) {
 		t.Run(fmt.Sprintf("case%02d_%v_%d_lines", k, topo, nVals), func(t *testing.T) { matchExhaustive(t, st, req) })
 	}
 }
+
+// TestFeedbackNearSaturationMatchesExhaustive: a collector-feedback target
+// the largest stocked RF cannot bring IC down to (0.1 mA from 12 V) puts
+// the best builds at the largest RF, near saturation, with scores near 1
+// and the headroom term large, where bound F-RS (the RF window swept
+// from the top, with headroomBelow) does the cutting. The default search
+// gives the exhaustive top K on E6 10 Ω–1 MΩ at 1 % and at 5 % with
+// 250 ppm/K (top 40), with the supply's tolerance and a wide ambient
+// range, and with RC and RE kept on an E96 wall (top 10), also with a
+// heavy beta weight.
+func TestFeedbackNearSaturationMatchesExhaustive(t *testing.T) {
+	for _, c := range []struct {
+		tol, tcr float64
+		amb      [2]float64
+	}{{0.01, 100, [2]float64{0, 50}}, {0.05, 250, [2]float64{-20, 70}}} {
+		res := seriesStock(eseries.E6, 10, 1e6, c.tol, 0.25, 100, 1000)
+		for i := range res {
+			res[i].TCR_PPMPerK = c.tcr
+		}
+		st := Stock{Resistors: res, Transistors: benchTransistors(2)}
+		req := Request{Topology: solver.CollectorFeedback, VCC_V: 12, VCCTol: 0.05, IC_A: 0.1e-3, Top: 40,
+			AmbientMin_C: c.amb[0], AmbientMax_C: c.amb[1]}
+		t.Run(fmt.Sprintf("tol%g", c.tol), func(t *testing.T) { matchExhaustive(t, st, req) })
+	}
+	// RC and RE kept at a sum that leaves the transistor near saturation,
+	// RF from an E96 wall (1 % apart): the top 10 are the RF levels from
+	// the largest down, where the sweep settles the rest of the window
+	// just below the last of them
+	for _, keep := range [][]KeptPart{{{Position: "rc", Ohm: 82e3}, {Position: "re", Ohm: 18e3}}, {{Position: "rc", Ohm: 56e3, Tol: 0.05, Rated_W: 0.25}, {Position: "re", Ohm: 39e3}}} {
+		st := Stock{Resistors: seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(2)}
+		req := Request{Topology: solver.CollectorFeedback, VCC_V: 12, VCCTol: 0.05, IC_A: 0.1e-3, Top: 10, Keep: keep}
+		t.Run(fmt.Sprintf("kept%g", keep[0].Ohm), func(t *testing.T) { matchExhaustive(t, st, req) })
+		// a heavy beta weight: lower RF is stiffer, so the order along
+		// the window is no longer the order of the scores
+		req.Weights = DefaultWeights()
+		req.Weights.Beta = 12
+		t.Run(fmt.Sprintf("kept%g_beta", keep[0].Ohm), func(t *testing.T) { matchExhaustive(t, st, req) })
+	}
+}
