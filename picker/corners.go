@@ -17,11 +17,12 @@ const (
 	headroomCutBand = 0.50
 )
 
-// headroomFloor solves two of the worst-case corners of b — the one
-// expected to give the lowest VCE (hFE max, VBE(on) and VAF low, hot,
-// supply low, an emitter rail high, each resistor at the end of its
-// tolerance the layout's lowVCE names) and the one expected to give the
-// lowest IC (hFE min, VBE(on) and VAF high, cold, supplies low, lowIC) —
+// headroomFloor solves two of the worst-case corners of b
+// (solver.Build.CornerStage, solver.CornerModel) — the one expected to
+// give the lowest VCE (hFE max, VBE(on) and VAF low, hot, supply low, an
+// emitter rail high, each resistor at the end of its tolerance the
+// layout's lowVCE names) and the one expected to give the lowest IC (hFE
+// min, VBE(on) and VAF high, cold, supplies low, lowIC) —
 // and returns the headroom term those two alone give. The lowest VCE and
 // IC over all corners are at most these corners' values and the term
 // falls as they rise, so it is a lower bound on the build's headroom term
@@ -31,22 +32,15 @@ const (
 // fails for certain, and the headroom floor is then 0.
 func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h float64, fails bool) {
 	d := &e.devs[dev]
-	lowV := 1 - e.s.vccTol
-	// the emitter rail (split supply only) is a supply of its own: each
-	// corner takes it at an end of its own tolerance, so both stay corners
-	veeTol := b.EmitterRailTol()
-	var devVCE, devIC [maxPos]float64
-	for i := range e.lay.n {
-		tol := b.Resistors[e.lay.slots[i]].Tol
-		devVCE[i], devIC[i] = e.lay.lowVCE[i]*tol, e.lay.lowIC[i]*tol
-	}
 	cnt.solves += 2
 	floor := d.vceSat + e.s.lim.VCEMargin_V
-	opV, err := solver.SolveSelfHeated(b.ResolveRails(e.lay.slotsOf(devVCE), lowV, 1+veeTol, e.s.ambMax), d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
+	// (an emitter rail of its own, split supply only, is high at the
+	// first corner and low at the second)
+	opV, err := solver.SolveSelfHeated(b.CornerStage(e.lay.highEnds(e.lay.lowVCE), false, true, true), d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
 	if err != nil || opV.Region != solver.Active || opV.VCE_V < floor || !solver.EvalDissipation(b, opV, e.s.ambMax, e.s.lim).Ok {
 		return 0, true
 	}
-	opI, err := solver.SolveSelfHeated(b.ResolveRails(e.lay.slotsOf(devIC), lowV, 1-veeTol, e.s.ambMin), d.icLow, e.s.ambMin, d.thetaJA, d.tjMax_C)
+	opI, err := solver.SolveSelfHeated(b.CornerStage(e.lay.highEnds(e.lay.lowIC), false, false, false), d.icLow, e.s.ambMin, d.thetaJA, d.tjMax_C)
 	if err != nil || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
 		return 0, true
 	}

@@ -29,10 +29,6 @@ type feedbackPlan struct {
 	// them on an E12 wall with pairs). It is direct-mapped: a sum's
 	// entry is at a hash of its bits, and a newer sum takes the slot.
 	fb []fbEntry
-	// tcrMax is the largest |TCR| of any value, ppm/K, once tcrTaken
-	// (headroomBelow)
-	tcrMax   float64
-	tcrTaken bool
 }
 
 // fbMemo is the number of slots of feedbackPlan.fb (10 MB per worker).
@@ -414,13 +410,12 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 // rc, RE level re and RF below level top (0 where it gives none). The
 // worst case's lowest VCE is at most VCE at its corner with hFE max,
 // VBE(on) and VAF low (device.vceLow), the hottest ambient, the supply
-// low, RF and RE at the low end of their
-// tolerance and RC at the high end (each with its TCR bound the same way,
-// as the corners take it). There RF is at most R_up = R(top − 1)·(1 +
-// |TCR|max·|ΔT|) whatever the build's RF, so by F1 IC there is at least
-// IC_up, the IC of that corner with RF = R_up, and VCE = VCC − IE·(RC +
-// RE) ≤ VCC − IC_up·(RC + RE). It needs RC's and RE's values known: it
-// gives 0 unless each of the two levels admits one value.
+// low, RF and RE at the low end of their tolerance and RC at the high
+// end (solver.Build.CornerStage). There RF is at most R_up = R(top −
+// 1)·(1 + |TCR|max·|ΔT|) whatever the build's RF, so by F1 IC there is
+// at least IC_up, the IC of that corner with RF = R_up, and VCE = VCC −
+// IE·(RC + RE) ≤ VCC − IC_up·(RC + RE). It needs RC's and RE's values
+// known: it gives 0 unless each of the two levels admits one value.
 func (f *feedbackPlan) headroomBelow(di, top, rc, re int, cnt *counters) float64 {
 	e := f.e
 	if top <= 0 || top >= len(e.vs.levels) {
@@ -432,32 +427,14 @@ func (f *feedbackPlan) headroomBelow(di, top, rc, re int, cnt *counters) float64
 	}
 	d := &e.devs[di]
 	b := e.build(combo{dev: di, lv: [maxPos]int{top, rc, re}, val: [maxPos]int{e.vs.levels[top].values[0], vRC[0], vRE[0]}})
-	lowV := 1 - e.s.vccTol
-	st := b.ResolveRails([solver.NumSlots]float64{}, lowV, 1, e.s.ambMax)
-	dt := math.Abs(e.s.ambMax-solver.TCRReference_C) * 1e-6
-	// a resistor's corner value at the hottest ambient, at the end of its
-	// tolerance that sign names (a resistor without tolerance at its top)
-	corner := func(spec solver.ResistorSpec, sign float64) float64 {
-		if spec.Tol <= 0 {
-			sign = 1
-		}
-		return spec.Nominal_Ohm * (1 + sign*spec.Tol) * (1 + sign*math.Abs(spec.TCR_PPMPerK)*dt)
-	}
-	st.R_Ohm[solver.RC] = corner(b.Resistors[solver.RC], 1)
-	st.R_Ohm[solver.RE] = corner(b.Resistors[solver.RE], -1)
-	if !f.tcrTaken {
-		f.tcrTaken = true
-		for _, v := range e.vs.values {
-			f.tcrMax = max(f.tcrMax, math.Abs(v.spec.TCR_PPMPerK))
-		}
-	}
-	st.R_Ohm[solver.RF] = e.vs.levels[top-1].ohm * (1 + f.tcrMax*dt)
+	st := b.CornerStage(e.lay.highEnds(e.lay.lowVCE), false, true, true)
+	st.R_Ohm[solver.RF] = e.vs.levels[top-1].ohm * (1 + e.vs.tcrMax_PPMPerK*1e-6*math.Abs(e.s.ambMax-solver.TCRReference_C))
 	cnt.solves++
 	op, err := solver.SolveSelfHeated(st, d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
 	if err != nil || op.Region != solver.Active {
 		return 0
 	}
-	vce := e.s.vcc*lowV - op.IC_A*(st.R_Ohm[solver.RC]+st.R_Ohm[solver.RE])
+	vce := math.Abs(st.VCC_V) - op.IC_A*(st.R_Ohm[solver.RC]+st.R_Ohm[solver.RE])
 	sat := (vce - d.vceSat - e.s.lim.VCEMargin_V) / e.span
 	return max(0, 1-sat/headroomSatBand)
 }

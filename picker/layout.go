@@ -79,11 +79,12 @@ func layoutOf(t solver.Topology) *layout {
 	return &dividerLayout
 }
 
-// slotsOf maps per-position deviations onto the solver's slot array.
-func (l *layout) slotsOf(v [maxPos]float64) [solver.NumSlots]float64 {
-	var out [solver.NumSlots]float64
+// highEnds is the corner of solver.Build.CornerStage whose tolerance
+// signs per position are signs (+1 the high end, −1 the low end), by slot.
+func (l *layout) highEnds(signs [maxPos]float64) [solver.NumSlots]bool {
+	var out [solver.NumSlots]bool
 	for i := range l.n {
-		out[l.slots[i]] = v[i]
+		out[l.slots[i]] = signs[i] > 0
 	}
 	return out
 }

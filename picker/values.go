@@ -68,6 +68,8 @@ type valueSet struct {
 	// allowHotOneMax_W the largest allowance of a value that is one part
 	// (a single or a kept part: no extra part), 0 when there is none.
 	allowHotMax_W, allowHotOneMax_W float64
+	// tcrMax_PPMPerK is the largest |TCR| of any value.
+	tcrMax_PPMPerK float64
 	// kept are the value indexes of the kept parts, in the order given
 	// to buildValues.
 	kept []int
@@ -176,6 +178,7 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 			vs.levels = append(vs.levels, level{ohm: v.ohm, values: order[k : k+1 : len(order)], allowHot_W: allow})
 		}
 		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
+		vs.tcrMax_PPMPerK = math.Max(vs.tcrMax_PPMPerK, math.Abs(v.spec.TCR_PPMPerK))
 		if v.lines[1] < 0 {
 			vs.allowHotOneMax_W = math.Max(vs.allowHotOneMax_W, allow)
 		}

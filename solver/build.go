@@ -137,12 +137,6 @@ func (b Build) Resolve(dev [NumSlots]float64, vccFactor, temp_C float64) Stage {
 	return b.resolve(&dev, vccFactor, temp_C)
 }
 
-// ResolveRails is Resolve with the emitter rail (split supply) multiplied
-// by veeFactor of its own.
-func (b Build) ResolveRails(dev [NumSlots]float64, vccFactor, veeFactor, temp_C float64) Stage {
-	return b.resolveTCR(&dev, nil, vccFactor, veeFactor, temp_C)
-}
-
 // resolve is Resolve without copying the build.
 func (b *Build) resolve(dev *[NumSlots]float64, vccFactor, temp_C float64) Stage {
 	return b.resolveTCR(dev, nil, vccFactor, vccFactor, temp_C)

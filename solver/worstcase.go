@@ -249,36 +249,18 @@ func CornerCount(b Build) int {
 // gives what SolveSelfHeated gives at the corner, with the models, their
 // devices at the two ambients and the input checks shared by all corners.
 func (p *cornerPlan) solve(k int) (Corner, error) {
-	var dev, tcr [NumSlots]float64
+	var high [NumSlots]bool
 	vccFactor, veeFactor, ambient := 1.0, 0.0, p.b.AmbientMin_C
 	mi, ai := 0, 0
-	for j := 0; j < p.n; j++ {
-		if p.axes[j].kind == axisAmbient && k>>j&1 == 1 {
-			ambient, ai = p.b.AmbientMax_C, 1
-		}
-	}
-	// The TCR sign that moves R the way of the level at this ambient.
-	tcrSign := 1.0
-	if ambient < TCRReference_C {
-		tcrSign = -1
-	}
-	// A resistor without tolerance has no axis; its TCR bound still
-	// spreads it: take the end that moves it up.
-	for i := range NumSlots {
-		if r := &p.b.Resistors[i]; p.b.usedSlot(i) && r.Tol <= 0 {
-			tcr[i] = tcrSign * math.Abs(r.TCR_PPMPerK)
-		}
-	}
 	for j := 0; j < p.n; j++ {
 		hi := k>>j&1 == 1
 		ax := p.axes[j]
 		switch ax.kind {
 		case axisResistor:
-			r := &p.b.Resistors[ax.slot]
+			high[ax.slot] = hi
+		case axisAmbient:
 			if hi {
-				dev[ax.slot], tcr[ax.slot] = r.Tol, tcrSign*math.Abs(r.TCR_PPMPerK)
-			} else {
-				dev[ax.slot], tcr[ax.slot] = -r.Tol, -tcrSign*math.Abs(r.TCR_PPMPerK)
+				ambient, ai = p.b.AmbientMax_C, 1
 			}
 		case axisSupply:
 			if hi {
@@ -310,7 +292,7 @@ func (p *cornerPlan) solve(k int) (Corner, error) {
 	if veeFactor == 0 { // no rail of its own: it moves with VCC
 		veeFactor = vccFactor
 	}
-	s := p.b.resolveTCR(&dev, &tcr, vccFactor, veeFactor, ambient)
+	s := p.b.cornerStage(&high, vccFactor, veeFactor, ambient)
 	c := Corner{BF: m.BF, VBEOn_V: p.vbe[mi>>1&1], VAF_V: m.VAF_V, IS_A: m.IS_A, Temp_C: ambient, VCC_V: s.VCC_V, VEE_V: s.VEE_V, R_Ohm: s.R_Ohm}
 	err := p.check[mi][ai]
 	var op OperatingPoint
@@ -323,6 +305,62 @@ func (p *cornerPlan) solve(k int) (Corner, error) {
 	c.OP = op
 	c.Tj_C = op.Tj_C
 	return c, nil
+}
+
+// CornerStage returns the stage of b at one worst-case corner
+// (EvalWorstCase): each used resistor with a tolerance at the high end of
+// it where high says so, else at the low end, its TCR bound moving it the
+// same way at the corner's ambient, and one without tolerance at the end
+// its TCR bound moves it up; the supply at VCC·(1 ± VCCTol), high when
+// vccHigh; the emitter rail of a split supply at its own tolerance's high
+// end when veeHigh (a rail without a tolerance of its own moves with the
+// supply); the ambient at AmbientMax_C when ambHigh, else AmbientMin_C.
+func (b Build) CornerStage(high [NumSlots]bool, vccHigh, veeHigh, ambHigh bool) Stage {
+	vcc := 1 - b.VCCTol
+	if vccHigh {
+		vcc = 1 + b.VCCTol
+	}
+	vee := vcc
+	if b.railsApart() {
+		vee = 1 - b.EmitterRailTol()
+		if veeHigh {
+			vee = 1 + b.EmitterRailTol()
+		}
+	}
+	amb := b.AmbientMin_C
+	if ambHigh {
+		amb = b.AmbientMax_C
+	}
+	return b.cornerStage(&high, vcc, vee, amb)
+}
+
+// cornerStage is the stage of b at a corner (CornerStage) with the
+// supply and rail factors and the ambient given.
+func (b *Build) cornerStage(high *[NumSlots]bool, vccFactor, veeFactor, ambient float64) Stage {
+	var dev, tcr [NumSlots]float64
+	// The TCR sign that moves R the way of the level at this ambient.
+	tcrSign := 1.0
+	if ambient < TCRReference_C {
+		tcrSign = -1
+	}
+	for i := range NumSlots {
+		r := &b.Resistors[i]
+		if !b.usedSlot(i) {
+			continue
+		}
+		a := tcrSign * math.Abs(r.TCR_PPMPerK)
+		switch {
+		case r.Tol <= 0:
+			// no tolerance, no axis; its TCR bound still spreads it:
+			// take the end that moves it up
+			tcr[i] = a
+		case high[i]:
+			dev[i], tcr[i] = r.Tol, a
+		default:
+			dev[i], tcr[i] = -r.Tol, -a
+		}
+	}
+	return b.resolveTCR(&dev, &tcr, vccFactor, veeFactor, ambient)
 }
 
 // EvalWorstCaseWith is EvalWorstCase with options.

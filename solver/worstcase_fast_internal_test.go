@@ -226,3 +226,50 @@ func TestWorstCaseFastPathMatchesReferencePath(t *testing.T) {
 		t.Fatalf("no build evaluated")
 	}
 }
+
+// TestCornerStageIsTheCorner: CornerStage, the one home of a corner's
+// circuit for callers outside the enumeration, gives exactly the
+// resistances and rails of the corner EvalWorstCase solves with the same
+// ends (axes in the documented order: the toleranced resistors by slot,
+// the supply, a split supply's own rail, hFE, VBE(on), VAF, the ambient),
+// over random builds. The outside reference for the corners themselves is
+// TestWorstCaseFastPathMatchesReferencePath.
+func TestCornerStageIsTheCorner(t *testing.T) {
+	rng := rand.New(rand.NewPCG(47, 53))
+	compared := 0
+	for i := range 400 {
+		b := randomBuild(rng)
+		wc, err := EvalWorstCase(b, Limits{})
+		if err != nil {
+			continue
+		}
+		k := rng.IntN(wc.Count)
+		j := 0
+		bit := func() bool { hi := k>>j&1 == 1; j++; return hi }
+		var high [NumSlots]bool
+		for s := range NumSlots {
+			if b.usedSlot(s) && b.Resistors[s].Tol > 0 {
+				high[s] = bit()
+			}
+		}
+		vccHigh := b.VCCTol > 0 && bit()
+		veeHigh := b.railsApart() && bit()
+		vbeLo, vbeHi, _ := VBEOnRange(b.Device)
+		vafLo, vafHi := VAFRange(b.Device)
+		for _, axis := range []bool{b.Device.HFEMax > b.Device.HFEMin, vbeHi > vbeLo, vafHi > vafLo} {
+			if axis {
+				bit()
+			}
+		}
+		ambHigh := b.AmbientMax_C > b.AmbientMin_C && bit()
+		s := b.CornerStage(high, vccHigh, veeHigh, ambHigh)
+		c := wc.Corners[k]
+		if s.R_Ohm != c.R_Ohm || s.VCC_V != c.VCC_V || s.VEE_V != c.VEE_V {
+			t.Fatalf("#%d corner %d: CornerStage R %v VCC %g VEE %g, the corner's %v %g %g", i, k, s.R_Ohm, s.VCC_V, s.VEE_V, c.R_Ohm, c.VCC_V, c.VEE_V)
+		}
+		compared++
+	}
+	if compared < 200 {
+		t.Fatalf("only %d builds compared", compared)
+	}
+}
