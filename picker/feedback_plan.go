@@ -2,6 +2,7 @@ package picker
 
 import (
 	"math"
+	"math/bits"
 
 	"biasbin/solver"
 )
@@ -28,13 +29,13 @@ type feedbackPlan struct {
 	// series pairs give many (RC, RE) pairs the same sum (a third of
 	// them on an E12 wall with pairs). It is direct-mapped: a sum's
 	// entry is at a hash of its bits, and a newer sum takes the slot.
-	fb []fbEntry
+	// It has 2^fbBits slots, about twice as many as there are sums of two
+	// levels, and at most 2^fbMemoBits.
+	fb     []fbEntry
+	fbBits int
 }
 
-// fbMemo is the number of slots of feedbackPlan.fb (10 MB per worker).
-const fbMemo = 1 << fbMemoBits
-
-// fbMemoBits is log2 of fbMemo.
+// fbMemoBits caps feedbackPlan.fbBits (2^18 slots, 10 MB per worker).
 const fbMemoBits = 18
 
 // fbEntry is betaFloorRC of device dv at the sum whose bits are key for
@@ -454,9 +455,11 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 	k := math.Float64bits(r)
 	if f.fb == nil {
-		f.fb = make([]fbEntry, fbMemo)
+		n := uint64(len(f.e.vs.levels))
+		f.fbBits = min(fbMemoBits, bits.Len64(n*n)+1)
+		f.fb = make([]fbEntry, 1<<f.fbBits)
 	}
-	slot := &f.fb[(k*0x9e3779b97f4a7c15)>>(64-fbMemoBits)]
+	slot := &f.fb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits)]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
 		return slot.floor
 	}
