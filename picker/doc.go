@@ -385,7 +385,8 @@
 //     least and largest of its active tuples) with each tuple's exact
 //     QPoint and emitter terms and the parts floor settles most tuples
 //     before the floor at each one alone is taken (scoreBlock).
-//   - F-RS: the window is solved from its top down. By F1 every RF below
+//   - F-RS: the window is solved from its top down, in blocks that grow
+//     from two levels to rfBlock. By F1 every RF below
 //     the lowest one solved has IC at least that one's, so F-Q over
 //     currents from there up, with the other terms' floors, settles the
 //     rest of the window. Near saturation the headroom term counts too

@@ -372,7 +372,10 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 			r := e.vs.levels[rc].ohm + reOhm
 			var blk [rfBlock]*tuple
 			xSeen, vceSeen := 0.0, 0.0
-			for rf := hi; rf >= lo; {
+			// blocks grow from two levels to rfBlock, so F-RS can settle
+			// a window after its first levels
+			size := 2
+			for rf := hi; rf >= lo; size = min(2*size, rfBlock) {
 				if xSeen > 0 && bd.finite {
 					sweep := fl + w.QPoint*e.feedbackQFloorBlock(r, r, xSeen, kE, vceLo, vceHi)
 					if sweep > p.threshold() {
@@ -387,7 +390,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 					}
 				}
 				n := 0
-				for ; rf >= lo && n < rfBlock; rf-- {
+				for ; rf >= lo && n < size; rf-- {
 					if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
 						rf = e.vs.prevSingle[rf] + 1 // bound P: no room for a pair in RF
 						continue
