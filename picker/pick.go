@@ -118,12 +118,11 @@ func Pick(stock Stock, req Request) (Result, error) {
 		c.Rank = i + 1
 		res.Candidates = append(res.Candidates, c)
 	}
-	// the shown builds' full worst cases are independent: at once
-	var wg sync.WaitGroup
-	for i := range res.Candidates {
-		wg.Go(func() { all[i].ev.e.completeWorst(&res.Candidates[i]) })
-	}
-	wg.Wait()
+	// the shown builds' full worst cases are independent: they go to the
+	// search's workers
+	runs[0].e.onWorkers(indexes(len(res.Candidates)), false, &counters{}, func(_, i int, _ *counters) {
+		all[i].ev.e.completeWorst(&res.Candidates[i])
+	})
 	if len(s.topos) > 1 && len(res.Candidates) > 0 {
 		res.Rivals = rivals(s, res.Candidates[0], best)
 	}
