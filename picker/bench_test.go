@@ -167,7 +167,7 @@ const (
 	// before the yield term); the threshold then admits IC within about
 	// ±70 %, and where RC + RE sets the current RF barely moves it: about
 	// 300 RF levels per (RC, RE) pair lie inside the window. Bound F-RS
-	// settles most of each window (E96 singles: over a minute to 1.4 s),
+	// settles most pairs and windows (E96 singles: over a minute to 0.4 s),
 	// but with pairs the (RC, RE) pairs near saturation are many.
 	rfCap = "the largest RF cannot reach the target: the best builds score about 1, the window is wide"
 	// noPass: no build near the target passes (RE's dissipation at 10 mA

@@ -263,14 +263,15 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 }
 
 // TestFeedbackHeadroomBelowHolds checks bound F-RS's headroom floor
-// (headroomBelow), and headroomFloor, against the exact worst case (solver.EvalWorstCase, the
-// search's own reference) of collector-feedback builds that come near
+// (headroomBelow), and headroomFloor, against the exact worst case
+// (solver.EvalWorstCase, the search's own reference) of collector-feedback builds that come near
 // saturation at some corner: a small target current with RF near the
 // largest level and RC + RE taking most of the supply, on an E96 wall at
 // 1 % and one at 5 % with TCRs of 100 and 250 ppm/K, so the corners' TCR
 // and tolerance ends matter. For the build at RF level j the floor of
-// the builds below level j + 1 (and j + 3) must be at most its headroom
-// term, and positive on most builds whose term is.
+// the builds below level j + 1 (and j + 3, and below the top: every
+// level) must be at most its headroom term, and positive on most builds
+// whose term is.
 func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 	walls := [][]Resistor{seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000), seriesStock(eseries.E24, 10, 1e6, 0.05, 0.25, 100, 1000)}
 	for i := range walls[1] {
@@ -316,8 +317,9 @@ func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 			if hf, fails := e.headroomFloor(di, e.build(c), &cnt); !fails && hf > h*(1+1e-9)+1e-12 {
 				t.Errorf("%v (%s): headroom floor %g over the headroom term %g", a.r, e.devs[di].line.Sheet.Label, hf, h)
 			}
-			for _, top := range []int{rf + 1, rf + 3} {
-				if top >= n {
+			// (top n: every RF level, the floor of the pair)
+			for _, top := range []int{rf + 1, rf + 3, n} {
+				if top > n {
 					continue
 				}
 				fl := f.headroomBelow(di, top, rc, re, &cnt)

@@ -397,7 +397,9 @@
 //     that corner at R(k − 1), and the corner's VCE = VCC − IE·(RC + RE)
 //     is at most VCC − IC_up·(RC + RE), which bounds the lowest corner VCE
 //     and so the headroom term (RC's and RE's levels must each admit one
-//     value). This is what settles a target the largest RF cannot reach,
+//     value). Taken below the largest level + 1, it bounds every build of
+//     the pair (one solve), which settles a pair before its RF window is
+//     searched. This is what settles a target the largest RF cannot reach,
 //     where every split of RC + RE near saturation scores alike.
 //   - F-RF per pair: every build at (RC, RE) has IC at least IC at the
 //     largest RF and the grid point above RC + RE (F1, F-G), so F-Q and

@@ -309,6 +309,12 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 					skip = 2
 					continue
 				}
+				// F-RS over every RF level, near saturation (VCE ≤ VCC −
+				// xLo·(RC + RE)): one solve for the pair
+				if w.Headroom > 0 && e.s.vcc-xLo*r-dv.vceSat-e.s.lim.VCEMargin_V < 3*headroomSatBand*e.span &&
+					base+qFloor+w.Headroom*f.headroomBelow(di, n, rc, re, cnt) > bd.thr {
+					continue
+				}
 				if w.QPoint > 0 {
 					d2 := (bd.thr - base) / w.QPoint
 					var ok bool
@@ -411,7 +417,8 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 
 // headroomBelow is the headroom term's floor of bound F-RS: a lower
 // bound on the headroom term of every build of device di with RC level
-// rc, RE level re and RF below level top (0 where it gives none). The
+// rc, RE level re and RF below level top (top = len(levels): any RF; 0
+// where it gives none). The
 // worst case's lowest VCE is at most VCE at its corner with hFE max,
 // VBE(on) and VAF low (device.vceLow), the hottest ambient, the supply
 // low, RF and RE at the low end of their tolerance and RC at the high
@@ -422,7 +429,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 // known: it gives 0 unless each of the two levels admits one value.
 func (f *feedbackPlan) headroomBelow(di, top, rc, re int, cnt *counters) float64 {
 	e := f.e
-	if top <= 0 || top >= len(e.vs.levels) {
+	if top <= 0 || top > len(e.vs.levels) {
 		return 0
 	}
 	vRC, vRE := e.admitted(fRC, rc), e.admitted(fRE, re)
@@ -430,7 +437,7 @@ func (f *feedbackPlan) headroomBelow(di, top, rc, re int, cnt *counters) float64
 		return 0
 	}
 	d := &e.devs[di]
-	b := e.build(combo{dev: di, lv: [maxPos]int{top, rc, re}, val: [maxPos]int{e.vs.levels[top].values[0], vRC[0], vRE[0]}})
+	b := e.build(combo{dev: di, lv: [maxPos]int{top - 1, rc, re}, val: [maxPos]int{e.vs.levels[top-1].values[0], vRC[0], vRE[0]}})
 	st := b.CornerStage(e.lay.highEnds(e.lay.lowVCE), false, true, true)
 	st.R_Ohm[solver.RF] = e.vs.levels[top-1].ohm * (1 + e.vs.tcrMax_PPMPerK*1e-6*math.Abs(e.s.ambMax-solver.TCRReference_C))
 	cnt.solves++
