@@ -44,9 +44,7 @@ func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h flo
 	if err != nil || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
 		return 0, true
 	}
-	sat := (opV.VCE_V - d.vceSat - e.s.lim.VCEMargin_V) / e.span
-	h = math.Max(0, 1-sat/headroomSatBand)
-	return h + math.Max(0, 1-opI.IC_A/e.s.icT/headroomCutBand), false
+	return e.headroomAt(d, opV.VCE_V, opI.IC_A), false
 }
 
 // finish runs the worst-case corners of a build and completes its
@@ -89,10 +87,30 @@ func (e *evaluator) missesWindow(d *device, t *tuple, wc solver.WorstCase) bool 
 // beyond), plus a cut-off part growing from 0 when the lowest corner IC is
 // headroomCutBand of the target to 1 at IC = 0.
 func (e *evaluator) headroom(d *device, wc solver.WorstCase) float64 {
-	sat := (wc.VCEMin_V - d.vceSat - e.s.lim.VCEMargin_V) / e.span
-	h := math.Max(0, 1-sat/headroomSatBand)
-	cut := wc.ICMin_A / e.s.icT
-	return h + math.Max(0, 1-cut/headroomCutBand)
+	return e.headroomAt(d, wc.VCEMin_V, wc.ICMin_A)
+}
+
+// headroomAt is the headroom term with the lowest corner VCE vceMin and
+// the lowest corner IC icMin.
+func (e *evaluator) headroomAt(d *device, vceMin, icMin float64) float64 {
+	cut := icMin / e.s.icT
+	return e.headroomSat(d, vceMin) + math.Max(0, 1-cut/headroomCutBand)
+}
+
+// headroomSat is the headroom term's saturation part with the lowest
+// corner VCE vceMin.
+func (e *evaluator) headroomSat(d *device, vceMin float64) float64 {
+	sat := (vceMin - d.vceSat - e.s.lim.VCEMargin_V) / e.span
+	return math.Max(0, 1-sat/headroomSatBand)
+}
+
+// nearSaturation reports whether a build whose VCE is at most vce can
+// come near enough saturation at a corner for the headroom term's
+// saturation part to count: vce within three times the band of VCE(sat)
+// plus the margin. It only decides whether that part's floor is worth a
+// solve.
+func (e *evaluator) nearSaturation(d *device, vce float64) bool {
+	return vce-d.vceSat-e.s.lim.VCEMargin_V < 3*headroomSatBand*e.span
 }
 
 // hardLimits lists why a build fails: a corner outside the active region

@@ -311,7 +311,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 				}
 				// F-RS over every RF level, near saturation (VCE ≤ VCC −
 				// xLo·(RC + RE)): one solve for the pair
-				if w.Headroom > 0 && e.s.vcc-xLo*r-dv.vceSat-e.s.lim.VCEMargin_V < 3*headroomSatBand*e.span &&
+				if w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*r) &&
 					base+qFloor+w.Headroom*f.headroomBelow(di, n, rc, re, cnt) > bd.thr {
 					continue
 				}
@@ -390,7 +390,7 @@ func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
 					// the headroom floor costs a solve: taken only where
 					// the nominal VCE is near enough saturation for a
 					// corner to reach the band
-					if w.Headroom > 0 && vceSeen-dv.vceSat-e.s.lim.VCEMargin_V < 3*headroomSatBand*e.span &&
+					if w.Headroom > 0 && e.nearSaturation(dv, vceSeen) &&
 						sweep+w.Headroom*f.headroomBelow(di, rf+1, rc, re, cnt) > p.threshold() {
 						break
 					}
@@ -445,9 +445,7 @@ func (f *feedbackPlan) headroomBelow(di, top, rc, re int, cnt *counters) float64
 	if err != nil || op.Region != solver.Active {
 		return 0
 	}
-	vce := math.Abs(st.VCC_V) - op.IC_A*(st.R_Ohm[solver.RC]+st.R_Ohm[solver.RE])
-	sat := (vce - d.vceSat - e.s.lim.VCEMargin_V) / e.span
-	return max(0, 1-sat/headroomSatBand)
+	return e.headroomSat(d, math.Abs(st.VCC_V)-op.IC_A*(st.R_Ohm[solver.RC]+st.R_Ohm[solver.RE]))
 }
 
 // rfBlock is how many RF levels of a window share one beta floor
