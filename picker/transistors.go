@@ -88,39 +88,37 @@ func (s settings) transistorCandidates(ts []Transistor, split bool) (devs []devi
 				continue
 			}
 		}
-		typ := solver.TypicalHFE(d)
-		mt, err := solver.ModelFor(d, typ)
+		dv, err := withModels(d)
 		if err != nil {
 			reject(Rejection{Kind: RejectDatasheet, Err: err})
 			continue
 		}
-		ml, err := solver.ModelFor(d, d.HFEMin)
-		if err != nil {
-			reject(Rejection{Kind: RejectDatasheet, Err: err})
-			continue
-		}
-		mh, err := solver.ModelFor(d, d.HFEMax)
-		if err != nil {
-			reject(Rejection{Kind: RejectDatasheet, Err: err})
-			continue
-		}
-		vl, err := solver.CornerModel(d, true, false, false)
-		if err != nil {
-			reject(Rejection{Kind: RejectDatasheet, Err: err})
-			continue
-		}
-		il, err := solver.CornerModel(d, false, true, true)
-		if err != nil {
-			reject(Rejection{Kind: RejectDatasheet, Err: err})
-			continue
-		}
-		dv := device{
-			line: t, typ: mt, lo: ml, hi: mh, vceLow: vl, icLow: il,
-			thetaJA: solver.ThermalResistance(d), tjMax_C: d.TjMaxOrDefault_C(),
-			vceSat: d.VCESatOrDefault_V(), hfeMin: d.HFEMin, allowHot: allowHot,
-		}
-		dv.at25 = newNominalDevice(mt)
+		dv.line, dv.thetaJA, dv.tjMax_C = t, solver.ThermalResistance(d), d.TjMaxOrDefault_C()
+		dv.vceSat, dv.hfeMin, dv.allowHot = d.VCESatOrDefault_V(), d.HFEMin, allowHot
+		dv.at25 = newNominalDevice(dv.typ)
 		devs = append(devs, dv)
 	}
 	return devs, rejected
+}
+
+// withModels returns a device holding d's models: at the typical hFE, at
+// hFE min and max, and the two corners headroomFloor solves.
+func withModels(d solver.Datasheet) (device, error) {
+	var dv device
+	var err error
+	for _, m := range []struct {
+		to *solver.Model
+		mk func() (solver.Model, error)
+	}{
+		{&dv.typ, func() (solver.Model, error) { return solver.ModelFor(d, solver.TypicalHFE(d)) }},
+		{&dv.lo, func() (solver.Model, error) { return solver.ModelFor(d, d.HFEMin) }},
+		{&dv.hi, func() (solver.Model, error) { return solver.ModelFor(d, d.HFEMax) }},
+		{&dv.vceLow, func() (solver.Model, error) { return solver.CornerModel(d, true, false, false) }},
+		{&dv.icLow, func() (solver.Model, error) { return solver.CornerModel(d, false, true, true) }},
+	} {
+		if *m.to, err = m.mk(); err != nil {
+			return dv, err
+		}
+	}
+	return dv, nil
 }
