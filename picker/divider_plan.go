@@ -2,9 +2,6 @@ package picker
 
 import (
 	"math"
-	"runtime"
-	"sync"
-	"sync/atomic"
 )
 
 // Positions of a divider build's arrays: R1, R2, RC, RE (dividerLayout).
@@ -84,87 +81,10 @@ func (d *dividerPlan) seedDevice(p *pool, cnt *counters, di int) {
 // search is the branch and bound over (device, RE, R2, R1, RC); doc.go
 // states each bound and why it is sound.
 func (d *dividerPlan) search(p *pool, cnt *counters) {
-	e := d.e
-	n := len(e.vs.levels)
-	if n == 0 {
-		return
-	}
-	order := d.seeds.order(len(e.devs))
-	// The work: per device, RE levels from the best seed upward, then
-	// downward below it. Workers take items in this order; an upward run
-	// ends for everyone once one RE in it fails a bound that rises with
-	// RE (U-RE, Q-RE), whatever worker found it.
-	type item struct {
-		di, re int
-		up     bool
-	}
-	var items []item
-	reLo, reHi := e.levelRange(iRE)
-	for _, di := range order {
-		start := max(reLo, min(d.seeds.start(di), reHi))
-		for re := start; re <= reHi; re++ {
-			items = append(items, item{di, re, true})
-		}
-		for re := start - 1; re >= reLo; re-- {
-			items = append(items, item{di, re, false})
-		}
-	}
-	upStop := make([]atomic.Int64, len(e.devs))
-	for i := range upStop {
-		upStop[i].Store(int64(n))
-	}
-	total := int64(len(items))
-	var next atomic.Int64
-	var progressMu sync.Mutex
-	worker := func(wd *dividerPlan, wc *counters) {
-		for {
-			i := next.Add(1) - 1
-			if i >= total {
-				return
-			}
-			if e.stopped() {
-				return
-			}
-			it := items[i]
-			if i%64 == 0 {
-				progressMu.Lock()
-				e.progress(i, total)
-				progressMu.Unlock()
-			}
-			if it.up && int64(it.re) >= upStop[it.di].Load() {
-				continue
-			}
-			dv := &e.devs[it.di]
-			vceLo, vceHi := e.targetBand(dv)
-			kE := 1 + 1/dv.betaNomMin // IE ≤ kE·IC at the nominal point
-			bd := e.boundsNow(p)
-			if stop, skip := e.reCuts(bd, it.re, kE, vceLo); skip {
-				if stop && it.up {
-					for {
-						cur := upStop[it.di].Load()
-						if int64(it.re) >= cur || upStop[it.di].CompareAndSwap(cur, int64(it.re)) {
-							break
-						}
-					}
-				}
-				continue
-			}
-			wd.searchRE(e, p, wc, it.di, it.re, kE, vceLo, vceHi)
-		}
-	}
-	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0)))
-	var wg sync.WaitGroup
-	wcnt := make([]counters, workers)
-	for k := range workers {
-		wd := &dividerPlan{e: e}
-		wg.Go(func() { worker(wd, &wcnt[k]) })
-	}
-	wg.Wait()
-	for _, c := range wcnt {
-		cnt.evaluated += c.evaluated
-		cnt.solves += c.solves
-	}
-	e.progress(total, total)
+	searchByRE(d.e, p, &d.seeds, cnt, func() *dividerPlan { return &dividerPlan{e: d.e} },
+		func(w *dividerPlan, wc *counters, di, re int, kE, vceLo, vceHi float64, _ bounds) {
+			w.searchRE(w.e, p, wc, di, re, kE, vceLo, vceHi)
+		})
 }
 
 // emitterFloor is bound E-RE: VE = IE·RE lies in [icLo·RE, kE·icHi·RE]

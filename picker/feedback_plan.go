@@ -25,6 +25,8 @@ type feedbackPlan struct {
 	// point of RC + RE, RF level) (rfWindow); lnStep is the grid's step
 	grid   map[uint64]float64 // keyed by gridKey
 	lnStep float64
+	// gridDev is the device whose solves grid holds, plus one (0: none)
+	gridDev int
 	// fb memoizes betaFloorRC by sum RC + RE, device and IC window:
 	// series pairs give many (RC, RE) pairs the same sum (a third of
 	// them on an E12 wall with pairs). It is direct-mapped: a sum's
@@ -212,207 +214,212 @@ func (f *feedbackPlan) seedDevice(p *pool, cnt *counters, di int) {
 
 // search is the branch and bound over (device, RE, RC, RF).
 func (f *feedbackPlan) search(p *pool, cnt *counters) {
-	searchByDevice(f.e, &f.seeds, cnt, func() *feedbackPlan { return &feedbackPlan{e: f.e, seeds: f.seeds} },
-		func(w *feedbackPlan, wc *counters, di int) { w.searchDevice(p, wc, di) })
+	searchByRE(f.e, p, &f.seeds, cnt, func() *feedbackPlan { return &feedbackPlan{e: f.e, seeds: f.seeds} },
+		func(w *feedbackPlan, wc *counters, di, re int, kE, vceLo, vceHi float64, bd bounds) {
+			w.searchRE(p, wc, di, re, kE, vceLo, vceHi, bd)
+		})
 }
 
-// searchDevice is search over the builds of device di (each worker of
-// search has its own plan, so its own tuple cache).
-func (f *feedbackPlan) searchDevice(p *pool, cnt *counters, di int) {
+// searchRE is search over the builds of device di at RE level re, with
+// the bounds bd in force (each worker of search has its own plan, so its
+// own tuple cache and grid).
+func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, vceHi float64, bd bounds) {
 	e := f.e
-	f.setGrid()
+	if f.gridDev != di+1 {
+		f.setGrid()
+		f.gridDev = di + 1
+	}
 	n := len(e.vs.levels)
 	w := e.s.w
-	e.walkRE(p, &f.seeds, di, func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds) {
-		reOhm := e.vs.levels[re].ohm
-		pfRE := e.partsFloor(re) // bound P
-		// Bound RC (kRC = kE: RC carries IE = IC + IB).
-		rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
-		gLo, gHi := n/2, n/2
-		// skip is how many RC levels the next block floor (bound
-		// F-RF) tries to settle at once: it doubles while blocks
-		// fall and drops to 1 when one does not.
-		skip := 1
-		for rc := rcLo; rc <= rcHi; rc++ {
-			if e.stopped() {
-				return
-			}
-			// every tuple below has this RC and RE: the cache holds one
-			// RC level's at a time (the RF window reads the grid)
-			f.cache.reset()
-			bd := e.boundsNow(p)
-			if e.vs.levels[rc].pairOnly && e.singlesOnly(pfRE, bd.thr) {
-				rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
+	dv := &e.devs[di]
+	reOhm := e.vs.levels[re].ohm
+	pfRE := e.partsFloor(re) // bound P
+	// Bound RC (kRC = kE: RC carries IE = IC + IB).
+	rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
+	gLo, gHi := n/2, n/2
+	// skip is how many RC levels the next block floor (bound
+	// F-RF) tries to settle at once: it doubles while blocks
+	// fall and drops to 1 when one does not.
+	skip := 1
+	for rc := rcLo; rc <= rcHi; rc++ {
+		if e.stopped() {
+			return
+		}
+		// every tuple below has this RC and RE: the cache holds one
+		// RC level's at a time (the RF window reads the grid)
+		f.cache.reset()
+		bd := e.boundsNow(p)
+		if e.vs.levels[rc].pairOnly && e.singlesOnly(pfRE, bd.thr) {
+			rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
+			continue
+		}
+		// RE's utilization and the emitter term bound every build at
+		// this RE from below (bounds U-RE and E-RE), and so does the
+		// transistor's (U-Q): none of these floors falls as RC rises
+		var uRE, eLo float64
+		if bd.finite {
+			eLo = e.emitterFloor(bd, reOhm, kE)
+			uRE = max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
+		}
+		if bd.finite && w.QPoint > 0 {
+			// Bound F-RF over RC levels rc..last, with RE's
+			// utilization, emitter and parts floors, and past a
+			// level that bound F-B settled, F-B over the block's
+			// sums.
+			last := min(rc+skip-1, rcHi)
+			rLo, rHi := e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm
+			xLo := f.icFloorAbove(di, rHi, cnt)
+			q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
+			fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
+			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr {
+				rc = last
+				skip *= 2
 				continue
 			}
-			// RE's utilization and the emitter term bound every build at
-			// this RE from below (bounds U-RE and E-RE), and so does the
-			// transistor's (U-Q): none of these floors falls as RC rises
-			var uRE, eLo float64
-			if bd.finite {
-				eLo = e.emitterFloor(bd, reOhm, kE)
-				uRE = max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, e.transistorUseFloor(dv, bd, vceLo, pfRE+w.Emitter*eLo))
+			skip = 1
+		}
+		icLo, icHi := bd.icLo, bd.icHi
+		// pf is the parts floor of RE and RC (bound P); fl bounds
+		// every other term of every build at (RC, RE) from below.
+		pf := pfRE + e.partsFloor(rc)
+		fl := pf
+		// nonBeta bounds every term but Beta of every build here
+		nonBeta := pf
+		if bd.finite {
+			// With RE's floors (above) and bound B every build at
+			// this RC and RE (F-B); what is left of the threshold
+			// bounds the QPoint term, so the IC window narrows.
+			// The QPoint term itself is at least qFloor (F-Q).
+			base := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
+			if base > bd.thr {
+				break
 			}
-			if bd.finite && w.QPoint > 0 {
-				// Bound F-RF over RC levels rc..last, with RE's
-				// utilization, emitter and parts floors, and past a
-				// level that bound F-B settled, F-B over the block's
-				// sums.
-				last := min(rc+skip-1, rcHi)
-				rLo, rHi := e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm
-				xLo := f.icFloorAbove(di, rHi, cnt)
-				q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
-				fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
-				if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr {
-					rc = last
-					skip *= 2
-					continue
-				}
-				skip = 1
-			}
-			icLo, icHi := bd.icLo, bd.icHi
-			// pf is the parts floor of RE and RC (bound P); fl bounds
-			// every other term of every build at (RC, RE) from below.
-			pf := pfRE + e.partsFloor(rc)
-			fl := pf
-			// nonBeta bounds every term but Beta of every build here
-			nonBeta := pf
-			if bd.finite {
-				// With RE's floors (above) and bound B every build at
-				// this RC and RE (F-B); what is left of the threshold
-				// bounds the QPoint term, so the IC window narrows.
-				// The QPoint term itself is at least qFloor (F-Q).
-				base := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo
-				if base > bd.thr {
-					break
-				}
-				// U-RC with this level's own best allowance (not
-				// monotone in RC, so it only skips this RC)
-				uOwn := max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
-				base = pf + w.Utilization*uOwn + w.Emitter*eLo
-				r := e.vs.levels[rc].ohm + reOhm
-				// Every build here has IC at least xLo (F-RF per
-				// pair): F-Q over x ≥ xLo first (cheap), then with F-B.
-				xLo := f.icFloorAbove(di, r, cnt)
-				qFloor := w.QPoint * e.feedbackQFloorBlock(r, r, xLo, kE, vceLo, vceHi)
-				if base+qFloor > bd.thr {
-					continue
-				}
-				nonBeta = base + qFloor
-				if w.Beta > 0 {
-					base += w.Beta * f.betaFloorRC(dv, bd, r)
-				}
-				if base+qFloor > bd.thr {
-					// F-B settled it: the next levels are tried in
-					// blocks (F-B falls as the sum rises, so a block
-					// often falls whole)
-					skip = 2
-					continue
-				}
-				// F-RS over every RF level, near saturation (VCE ≤ VCC −
-				// xLo·(RC + RE)): one solve for the pair
-				if w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*r) &&
-					base+qFloor+w.Headroom*f.headroomBelow(di, n, rc, re, cnt) > bd.thr {
-					continue
-				}
-				if w.QPoint > 0 {
-					d2 := (bd.thr - base) / w.QPoint
-					var ok bool
-					within := e.boundsWithin(bd.thr, d2)
-					icLo, icHi, ok = e.feedbackICWindow(r, xLo, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
-					if !ok {
-						continue
-					}
-				}
-				fl = base
-			}
-			lo, hi := f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
-			gLo, gHi = lo, hi+1
-			if lo > hi {
-				continue
-			}
-			if bd.finite && w.Beta > 0 {
-				// Bound B over the window, with R_TH = RF between
-				// its ends and RE' = RC + RE (baseLoop): what is
-				// left of the threshold narrows the window again.
-				bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
-					RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
-				uQ := e.transistorUseFloor(dv, bd, vceLo, pf+w.Beta*bLo)
-				base := pf + w.Utilization*max(max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
-					bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W), uQ) + w.Beta*bLo
-				if base > bd.thr {
-					continue
-				}
-				fl = max(fl, base)
-				if w.QPoint > 0 {
-					d2 := (bd.thr - base) / w.QPoint
-					within := e.boundsWithin(bd.thr, d2)
-					wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, 0, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
-					if !ok {
-						continue
-					}
-					lo, hi = f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
-				}
-			}
-			if bd.finite && w.Beta > 0 && lo < hi {
-				// Bound B over the top of the window: the levels from
-				// k to hi are settled by the floor over RF in [k, hi]
-				// (with the IC window and the other terms' floors).
-				// The bisection assumes nothing of the floor's shape:
-				// the k it returns below the end is one whose floor
-				// was computed and settles.
-				r := e.vs.levels[rc].ohm + reOhm
-				k := firstLevel(hi-lo+1, func(i int) bool {
-					return nonBeta+w.Beta*e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo+i].ohm, RTHMax: e.vs.levels[hi].ohm,
-						RE: r, ICLo: icLo, ICHi: icHi}) > p.threshold()
-				})
-				hi = lo + k - 1
-			}
-			// The window's tuples go to scoring a block of rfBlock
-			// visited levels at a time, with bound B over the block,
-			// from the top of the window down. Bound F-RS: by F1 every
-			// RF below the lowest one solved has IC at least that one's,
-			// so F-Q over currents from there up and the headroom floor
-			// below it (headroomBelow), with the other terms' floors,
-			// settle the rest of the window once they are over.
+			// U-RC with this level's own best allowance (not
+			// monotone in RC, so it only skips this RC)
+			uOwn := max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
+			base = pf + w.Utilization*uOwn + w.Emitter*eLo
 			r := e.vs.levels[rc].ohm + reOhm
-			var blk [rfBlock]*tuple
-			xSeen, vceSeen := 0.0, 0.0
-			// blocks grow from two levels to rfBlock, so F-RS can settle
-			// a window after its first levels
-			size := 2
-			for rf := hi; rf >= lo; size = min(2*size, rfBlock) {
-				if xSeen > 0 && bd.finite {
-					sweep := fl + w.QPoint*e.feedbackQFloorBlock(r, r, xSeen, kE, vceLo, vceHi)
-					if sweep > p.threshold() {
-						break
-					}
-					// the headroom floor costs a solve: taken only where
-					// the nominal VCE is near enough saturation for a
-					// corner to reach the band
-					if w.Headroom > 0 && e.nearSaturation(dv, vceSeen) &&
-						sweep+w.Headroom*f.headroomBelow(di, rf+1, rc, re, cnt) > p.threshold() {
-						break
-					}
+			// Every build here has IC at least xLo (F-RF per
+			// pair): F-Q over x ≥ xLo first (cheap), then with F-B.
+			xLo := f.icFloorAbove(di, r, cnt)
+			qFloor := w.QPoint * e.feedbackQFloorBlock(r, r, xLo, kE, vceLo, vceHi)
+			if base+qFloor > bd.thr {
+				continue
+			}
+			nonBeta = base + qFloor
+			if w.Beta > 0 {
+				base += w.Beta * f.betaFloorRC(dv, bd, r)
+			}
+			if base+qFloor > bd.thr {
+				// F-B settled it: the next levels are tried in
+				// blocks (F-B falls as the sum rises, so a block
+				// often falls whole)
+				skip = 2
+				continue
+			}
+			// F-RS over every RF level, near saturation (VCE ≤ VCC −
+			// xLo·(RC + RE)): one solve for the pair
+			if w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*r) &&
+				base+qFloor+w.Headroom*f.headroomBelow(di, n, rc, re, cnt) > bd.thr {
+				continue
+			}
+			if w.QPoint > 0 {
+				d2 := (bd.thr - base) / w.QPoint
+				var ok bool
+				within := e.boundsWithin(bd.thr, d2)
+				icLo, icHi, ok = e.feedbackICWindow(r, xLo, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
+				if !ok {
+					continue
 				}
-				n := 0
-				for ; rf >= lo && n < size; rf-- {
-					if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
-						rf = e.vs.prevSingle[rf] + 1 // bound P: no room for a pair in RF
-						continue
-					}
-					blk[n] = f.tuple(di, rf, rc, re, cnt)
-					n++
+			}
+			fl = base
+		}
+		lo, hi := f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
+		gLo, gHi = lo, hi+1
+		if lo > hi {
+			continue
+		}
+		if bd.finite && w.Beta > 0 {
+			// Bound B over the window, with R_TH = RF between
+			// its ends and RE' = RC + RE (baseLoop): what is
+			// left of the threshold narrows the window again.
+			bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
+				RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
+			uQ := e.transistorUseFloor(dv, bd, vceLo, pf+w.Beta*bLo)
+			base := pf + w.Utilization*max(max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
+				bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W), uQ) + w.Beta*bLo
+			if base > bd.thr {
+				continue
+			}
+			fl = max(fl, base)
+			if w.QPoint > 0 {
+				d2 := (bd.thr - base) / w.QPoint
+				within := e.boundsWithin(bd.thr, d2)
+				wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, 0, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
+				if !ok {
+					continue
 				}
-				for _, t := range blk[:n] {
-					if t.ok {
-						xSeen, vceSeen = t.op.IC_A, t.op.VCE_V // the lowest RF solved so far
-					}
-				}
-				e.scoreBlock(blk[:n], fRF, pf, p, cnt)
+				lo, hi = f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
 			}
 		}
-	})
+		if bd.finite && w.Beta > 0 && lo < hi {
+			// Bound B over the top of the window: the levels from
+			// k to hi are settled by the floor over RF in [k, hi]
+			// (with the IC window and the other terms' floors).
+			// The bisection assumes nothing of the floor's shape:
+			// the k it returns below the end is one whose floor
+			// was computed and settles.
+			r := e.vs.levels[rc].ohm + reOhm
+			k := firstLevel(hi-lo+1, func(i int) bool {
+				return nonBeta+w.Beta*e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo+i].ohm, RTHMax: e.vs.levels[hi].ohm,
+					RE: r, ICLo: icLo, ICHi: icHi}) > p.threshold()
+			})
+			hi = lo + k - 1
+		}
+		// The window's tuples go to scoring a block of rfBlock
+		// visited levels at a time, with bound B over the block,
+		// from the top of the window down. Bound F-RS: by F1 every
+		// RF below the lowest one solved has IC at least that one's,
+		// so F-Q over currents from there up and the headroom floor
+		// below it (headroomBelow), with the other terms' floors,
+		// settle the rest of the window once they are over.
+		r := e.vs.levels[rc].ohm + reOhm
+		var blk [rfBlock]*tuple
+		xSeen, vceSeen := 0.0, 0.0
+		// blocks grow from two levels to rfBlock, so F-RS can settle
+		// a window after its first levels
+		size := 2
+		for rf := hi; rf >= lo; size = min(2*size, rfBlock) {
+			if xSeen > 0 && bd.finite {
+				sweep := fl + w.QPoint*e.feedbackQFloorBlock(r, r, xSeen, kE, vceLo, vceHi)
+				if sweep > p.threshold() {
+					break
+				}
+				// the headroom floor costs a solve: taken only where
+				// the nominal VCE is near enough saturation for a
+				// corner to reach the band
+				if w.Headroom > 0 && e.nearSaturation(dv, vceSeen) &&
+					sweep+w.Headroom*f.headroomBelow(di, rf+1, rc, re, cnt) > p.threshold() {
+					break
+				}
+			}
+			n := 0
+			for ; rf >= lo && n < size; rf-- {
+				if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
+					rf = e.vs.prevSingle[rf] + 1 // bound P: no room for a pair in RF
+					continue
+				}
+				blk[n] = f.tuple(di, rf, rc, re, cnt)
+				n++
+			}
+			for _, t := range blk[:n] {
+				if t.ok {
+					xSeen, vceSeen = t.op.IC_A, t.op.VCE_V // the lowest RF solved so far
+				}
+			}
+			e.scoreBlock(blk[:n], fRF, pf, p, cnt)
+		}
+	}
 }
 
 // headroomBelow is the headroom term's floor of bound F-RS: a lower

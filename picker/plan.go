@@ -44,12 +44,110 @@ func planFor(e *evaluator) plan {
 	return &dividerPlan{e: e}
 }
 
-// searchByDevice runs a plan's search of one device (search) for every
-// device, from the best seed, on the search's workers (onWorkers), each
-// with a plan of its own that newWorker makes (so a tuple cache of its
-// own).
-func searchByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, search func(w P, cnt *counters, di int)) {
-	byDevice(e, so.order(len(e.devs)), true, cnt, newWorker, search)
+// searchByRE runs a plan's search of one RE level of one device (visit)
+// for every device and RE level on the search's workers, each with a plan
+// of its own that newWorker makes (so a tuple cache of its own). Each
+// device's run is its RE levels from its best seed upward, then downward
+// below it. A worker takes the next device's run not yet begun, in the
+// order of the best seeds (seedOrder), and works through it level by
+// level; once every run has begun, it joins the run with the most levels
+// left, so the last device's search is shared too. An upward run ends
+// for everyone once one RE in it fails a bound that rises with RE
+// (reCuts' stop), whatever worker found it; a level reCuts skips is not
+// visited. visit gets the device's VCE target band, kE = 1 + 1/β_min
+// (IE ≤ kE·IC at the nominal point) and the bounds in force. The result
+// does not depend on which worker takes what (onWorkers).
+func searchByRE[P any](e *evaluator, p *pool, so *seedOrder, cnt *counters, newWorker func() P,
+	visit func(w P, wc *counters, di, re int, kE, vceLo, vceHi float64, bd bounds)) {
+	n := len(e.vs.levels)
+	if n == 0 {
+		return
+	}
+	type run struct {
+		di   int
+		res  []int // RE levels in order
+		up   int   // res[:up] is the upward run
+		next atomic.Int64
+		// stop is the least level of the upward run that reCuts stopped
+		stop atomic.Int64
+	}
+	reLo, reHi := e.levelRange(e.lay.re)
+	order := so.order(len(e.devs))
+	runs := make([]run, len(order))
+	total := int64(0)
+	for k, di := range order {
+		r := &runs[k]
+		r.di = di
+		start := max(reLo, min(so.start(di), reHi))
+		for re := start; re <= reHi; re++ {
+			r.res = append(r.res, re)
+		}
+		r.up = len(r.res)
+		for re := start - 1; re >= reLo; re-- {
+			r.res = append(r.res, re)
+		}
+		r.stop.Store(int64(n))
+		total += int64(len(r.res))
+	}
+	var begun, done atomic.Int64
+	var progressMu sync.Mutex
+	// item visits level i of run r
+	item := func(w P, wc *counters, r *run, i int) {
+		if d := done.Add(1); d%64 == 0 {
+			progressMu.Lock()
+			e.progress(d, total)
+			progressMu.Unlock()
+		}
+		re := r.res[i]
+		up := i < r.up
+		if up && int64(re) >= r.stop.Load() {
+			return
+		}
+		dv := &e.devs[r.di]
+		vceLo, vceHi := e.targetBand(dv)
+		kE := 1 + 1/dv.betaNomMin
+		bd := e.boundsNow(p)
+		if stop, skip := e.reCuts(bd, re, kE, vceLo); skip {
+			for stop && up {
+				cur := r.stop.Load()
+				if int64(re) >= cur || r.stop.CompareAndSwap(cur, int64(re)) {
+					break
+				}
+			}
+			return
+		}
+		visit(w, wc, r.di, re, kE, vceLo, vceHi, bd)
+	}
+	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0)))
+	e.onWorkers(indexes(workers), false, cnt, func(_, _ int, wc *counters) {
+		w := newWorker()
+		var r *run
+		for !e.stopped() {
+			if r != nil {
+				if i := int(r.next.Add(1) - 1); i < len(r.res) {
+					item(w, wc, r, i)
+					continue
+				}
+			}
+			// this run is done: begin the next, else join the one with
+			// the most levels left
+			if k := int(begun.Add(1) - 1); k < len(runs) {
+				r = &runs[k]
+				continue
+			}
+			r = nil
+			most := 0
+			for k := range runs {
+				if left := len(runs[k].res) - int(runs[k].next.Load()); left > most {
+					r, most = &runs[k], left
+				}
+			}
+			if r == nil {
+				break
+			}
+		}
+	})
+	e.progress(total, total)
 }
 
 // seedByDevice resets so and runs a plan's seeding of one device (seed)
@@ -75,18 +173,8 @@ func byDevice[P any](e *evaluator, order []int, report bool, cnt *counters, newW
 	e.onWorkers(order, report, cnt, func(k, di int, wc *counters) { fn(workers[k], wc, di) })
 }
 
-// walkRE runs visit over the RE levels of device di (eachRE, from the
-// device's best seed), with the device's VCE target band and kE =
-// 1 + 1/β_min (IE ≤ kE·IC at the nominal point).
-func (e *evaluator) walkRE(p *pool, so *seedOrder, di int, visit func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds)) {
-	dv := &e.devs[di]
-	vceLo, vceHi := e.targetBand(dv)
-	kE := 1 + 1/dv.betaNomMin
-	e.eachRE(p, so.start(di), kE, vceLo, func(re int, bd bounds) { visit(dv, vceLo, vceHi, kE, re, bd) })
-}
-
-// onWorkers runs fn for every item of order (device indexes, or the
-// starts of polish), each going to the next free worker (at most
+// onWorkers runs fn for every item of order (device indexes, the
+// search's items of searchByRE, or the starts of polish), each going to the next free worker (at most
 // searchWorkers goroutines, numbered from 0), with counters of its own
 // that are added to cnt at the end; with report it reports progress. The
 // result does not depend on the order the items finish in: the pool
@@ -403,34 +491,4 @@ func (so *seedOrder) start(di int) int {
 		return so.re[di]
 	}
 	return 0
-}
-
-// eachRE visits the RE levels from start upward, until reCuts says no
-// larger RE can enter, then from start − 1 downward, skipping the levels
-// reCuts settles; visit gets the bounds in force.
-func (e *evaluator) eachRE(p *pool, start int, kE, vceLo float64, visit func(re int, bd bounds)) {
-	lo, hi := e.levelRange(e.lay.re)
-	start = max(lo, min(start, hi))
-	for re := start; re <= hi; re++ {
-		if e.stopped() {
-			return
-		}
-		bd := e.boundsNow(p)
-		stop, skip := e.reCuts(bd, re, kE, vceLo)
-		if stop {
-			break
-		}
-		if !skip {
-			visit(re, bd)
-		}
-	}
-	for re := start - 1; re >= lo; re-- {
-		if e.stopped() {
-			return
-		}
-		bd := e.boundsNow(p)
-		if _, skip := e.reCuts(bd, re, kE, vceLo); !skip {
-			visit(re, bd)
-		}
-	}
 }

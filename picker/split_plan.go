@@ -61,116 +61,118 @@ const rbBlock = 8
 
 // search is the branch and bound over (device, RE, RB, RC).
 func (sp *splitPlan) search(p *pool, cnt *counters) {
-	searchByDevice(sp.e, &sp.seeds, cnt, func() *splitPlan { return &splitPlan{e: sp.e, seeds: sp.seeds, splitGuess: sp.splitGuess} },
-		func(w *splitPlan, wc *counters, di int) { w.searchDevice(p, wc, di) })
+	searchByRE(sp.e, p, &sp.seeds, cnt, func() *splitPlan { return &splitPlan{e: sp.e, seeds: sp.seeds, splitGuess: sp.splitGuess} },
+		func(w *splitPlan, wc *counters, di, re int, kE, vceLo, vceHi float64, bd bounds) {
+			w.searchRE(p, wc, di, re, kE, vceLo, vceHi, bd)
+		})
 }
 
-// searchDevice is search over the builds of device di (each worker of
-// search has its own plan, so its own tuple cache).
-func (sp *splitPlan) searchDevice(p *pool, cnt *counters, di int) {
+// searchRE is search over the builds of device di at RE level re, with
+// the bounds bd in force (each worker of search has its own plan, so its
+// own tuple cache).
+func (sp *splitPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, vceHi float64, bd bounds) {
 	e := sp.e
 	n := len(e.vs.levels)
 	w := e.s.w
-	e.walkRE(p, &sp.seeds, di, func(dv *device, vceLo, vceHi, kE float64, re int, bd bounds) {
-		sp.cache.reset()
-		reOhm := e.vs.levels[re].ohm
-		rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
+	dv := &e.devs[di]
+	sp.cache.reset()
+	reOhm := e.vs.levels[re].ohm
+	rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi)
+	if rcLo > rcHi {
+		return
+	}
+	icLo, icHi := bd.icLo, bd.icHi
+	base := e.partsFloor(re) // bound P
+	use := 0.0               // the utilization floor in base
+	if bd.finite {
+		// RE's utilization bounds every build at this RE from
+		// below (U-RE); what is left of the threshold bounds
+		// the QPoint term, so the IC window narrows.
+		// and U-RC: RC carries IC and is at least the band's
+		// bottom level (with the best allowance of any value)
+		// and U-Q: the transistor's own dissipation
+		uQ := e.transistorUseFloor(dv, bd, vceLo, base)
+		uOwn := max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, uQ)
+		pRC := bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
+		// baseUP: with RC as one part or a pair (bound U-P); base,
+		// RC open, is the floor the RC scan takes
+		baseUP := base + e.useAndPartsFloor(uOwn, pRC)
+		use = max(uOwn, pRC/e.vs.allowHotMax_W)
+		base += w.Utilization * use
+		if baseUP > bd.thr {
+			return
+		}
+		if w.QPoint > 0 {
+			d2 := (bd.thr - baseUP) / w.QPoint
+			within := e.boundsWithin(bd.thr, d2)
+			icLo, icHi = within.icLo, within.icHi
+			// and the RC band narrows to it (bound RC with δ = d2)
+			lo, hi := e.rcBandAll(within, reOhm, 1, kE, vceLo, vceHi)
+			if rcLo, rcHi = max(rcLo, lo), min(rcHi, hi); rcLo > rcHi {
+				return
+			}
+		}
+	}
+	// Bound IC-RB: IC falls with RB (lemma L1 with R_TH = RB)
+	// and with RC (L2). IC at the band's bottom RC bounds every
+	// band build from above, so RB past the first where it is
+	// under the window is out; the IC of the band's largest
+	// active RC bounds the active builds from below, so RB
+	// before the first where that floor is within the window is
+	// out.
+	// (Only once the pool is full of passing builds: before, a
+	// failing build may still enter.)
+	rbLo, rbHi := 0, n-1
+	// bound P: with no room for a pair's extra part, RB and RC
+	// hold singles, and only those levels are probed
+	singles := bd.finite && e.singlesOnly(base, bd.thr)
+	if singles {
+		rcLo, rcHi = e.vs.up(rcLo, true), e.vs.down(rcHi, true)
 		if rcLo > rcHi {
 			return
 		}
-		icLo, icHi := bd.icLo, bd.icHi
-		base := e.partsFloor(re) // bound P
-		use := 0.0               // the utilization floor in base
-		if bd.finite {
-			// RE's utilization bounds every build at this RE from
-			// below (U-RE); what is left of the threshold bounds
-			// the QPoint term, so the IC window narrows.
-			// and U-RC: RC carries IC and is at least the band's
-			// bottom level (with the best allowance of any value)
-			// and U-Q: the transistor's own dissipation
-			uQ := e.transistorUseFloor(dv, bd, vceLo, base)
-			uOwn := max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W, uQ)
-			pRC := bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
-			// baseUP: with RC as one part or a pair (bound U-P); base,
-			// RC open, is the floor the RC scan takes
-			baseUP := base + e.useAndPartsFloor(uOwn, pRC)
-			use = max(uOwn, pRC/e.vs.allowHotMax_W)
-			base += w.Utilization * use
-			if baseUP > bd.thr {
-				return
-			}
-			if w.QPoint > 0 {
-				d2 := (bd.thr - baseUP) / w.QPoint
-				within := e.boundsWithin(bd.thr, d2)
-				icLo, icHi = within.icLo, within.icHi
-				// and the RC band narrows to it (bound RC with δ = d2)
-				lo, hi := e.rcBandAll(within, reOhm, 1, kE, vceLo, vceHi)
-				if rcLo, rcHi = max(rcLo, lo), min(rcHi, hi); rcLo > rcHi {
-					return
+	}
+	if bd.finite {
+		rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
+			return sp.tuple(di, i, rcLo, re, cnt).icUnder(icLo)
+		}) - 1
+		rbLo = e.vs.firstIn(0, rbHi, 0, singles, func(i int) bool {
+			ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
+			return any && ic <= icHi
+		})
+	}
+	rbLo, rbHi = e.clampRange(sRB, rbLo, rbHi)
+	// bRB is bound B over the block of RB levels up to blockEnd
+	blockEnd, bRB := -1, 0.0
+	for rb := rbLo; rb <= rbHi; rb++ {
+		if e.stopped() {
+			return
+		}
+		if bd.finite && e.vs.levels[rb].pairOnly && e.singlesOnly(base, p.threshold()) {
+			rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
+			continue
+		}
+		if bd := e.boundsNow(p); bd.finite && w.Beta > 0 && rb > blockEnd {
+			// Bound B over RB (R_TH = RB, baseLoop), per block of
+			// rbBlock levels: the beta term of every build in the
+			// block is at least the floor over it (taken at the
+			// block's first threshold: a wider window only lowers
+			// it); when that settles the block, the floor over the
+			// block and every level above it may settle them all.
+			blockEnd = min(rb+rbBlock-1, rbHi)
+			bw := betaWindow{RTH: e.vs.levels[rb].ohm, RTHMax: e.vs.levels[blockEnd].ohm, RE: reOhm,
+				RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
+			if bRB = e.betaFloor(dv, bw); base+w.Beta*bRB > bd.thr {
+				if bw.RTHMax = e.vs.levels[rbHi].ohm; base+w.Beta*e.betaFloor(dv, bw) > bd.thr {
+					break
 				}
-			}
-		}
-		// Bound IC-RB: IC falls with RB (lemma L1 with R_TH = RB)
-		// and with RC (L2). IC at the band's bottom RC bounds every
-		// band build from above, so RB past the first where it is
-		// under the window is out; the IC of the band's largest
-		// active RC bounds the active builds from below, so RB
-		// before the first where that floor is within the window is
-		// out.
-		// (Only once the pool is full of passing builds: before, a
-		// failing build may still enter.)
-		rbLo, rbHi := 0, n-1
-		// bound P: with no room for a pair's extra part, RB and RC
-		// hold singles, and only those levels are probed
-		singles := bd.finite && e.singlesOnly(base, bd.thr)
-		if singles {
-			rcLo, rcHi = e.vs.up(rcLo, true), e.vs.down(rcHi, true)
-			if rcLo > rcHi {
-				return
-			}
-		}
-		if bd.finite {
-			rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
-				return sp.tuple(di, i, rcLo, re, cnt).icUnder(icLo)
-			}) - 1
-			rbLo = e.vs.firstIn(0, rbHi, 0, singles, func(i int) bool {
-				ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
-				return any && ic <= icHi
-			})
-		}
-		rbLo, rbHi = e.clampRange(sRB, rbLo, rbHi)
-		// bRB is bound B over the block of RB levels up to blockEnd
-		blockEnd, bRB := -1, 0.0
-		for rb := rbLo; rb <= rbHi; rb++ {
-			if e.stopped() {
-				return
-			}
-			if bd.finite && e.vs.levels[rb].pairOnly && e.singlesOnly(base, p.threshold()) {
-				rb = e.vs.nextSingle[rb] - 1 // bound P: no room for a pair in RB
+				rb = blockEnd
 				continue
 			}
-			if bd := e.boundsNow(p); bd.finite && w.Beta > 0 && rb > blockEnd {
-				// Bound B over RB (R_TH = RB, baseLoop), per block of
-				// rbBlock levels: the beta term of every build in the
-				// block is at least the floor over it (taken at the
-				// block's first threshold: a wider window only lowers
-				// it); when that settles the block, the floor over the
-				// block and every level above it may settle them all.
-				blockEnd = min(rb+rbBlock-1, rbHi)
-				bw := betaWindow{RTH: e.vs.levels[rb].ohm, RTHMax: e.vs.levels[blockEnd].ohm, RE: reOhm,
-					RCMin: e.vs.levels[rcLo].ohm, RCMax: e.vs.levels[rcHi].ohm, ICLo: bd.icLo, ICHi: bd.icHi}
-				if bRB = e.betaFloor(dv, bw); base+w.Beta*bRB > bd.thr {
-					if bw.RTHMax = e.vs.levels[rbHi].ohm; base+w.Beta*e.betaFloor(dv, bw) > bd.thr {
-						break
-					}
-					rb = blockEnd
-					continue
-				}
-			}
-			// tuples of one RB level serve only its RC scan: the
-			// cache starts again, so it holds one level's at a time
-			sp.cache.reset()
-			e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb)+w.Beta*bRB, use)
 		}
-	})
+		// tuples of one RB level serve only its RC scan: the
+		// cache starts again, so it holds one level's at a time
+		sp.cache.reset()
+		e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb)+w.Beta*bRB, use)
+	}
 }
