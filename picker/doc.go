@@ -458,8 +458,8 @@
 // level are over the set with the kept values in it, so they only
 // weaken), and the pool holds only admitted builds, so a cut that is
 // sound for every build is sound for them. The plans clamp each
-// position's level range to the kept level (levelRange: eachRE, the
-// divider's RE items, its R2 loop and R1 range, rfWindow, the RB range,
+// position's level range to the kept level (levelRange: searchByRE's
+// RE runs, the divider's R2 loop and R1 range, rfWindow, the RB range,
 // rcBand, the exhaustive odometer), so nothing is solved twice; the seeds
 // and the hill-climb solve a kept position at its kept level whatever
 // level they asked for (tupleCache.get), which changes only the order.
@@ -474,9 +474,11 @@
 // each topology other than the first's, with the term it trails the first
 // in most. Every term's share of the supply is of the build's own span.
 //
-// The default search runs on two goroutines sharing the pool: the
-// divider's take (device, RE) items in order, the other plans' whole
-// devices (onWorkers), each worker with its own tuple cache; so do every
+// The default search runs on two goroutines sharing the pool, each with
+// its own tuple cache (searchByRE): a worker takes the next device's run
+// of RE levels (from its best seed up, then down), and once every run has
+// begun it joins the one with the most levels left, so a device that
+// holds most of the work is shared level by level; so do every
 // plan's seeds (seedByDevice, a device each) and the hill climbs of polish
 // (a start each). The pool keeps the exact best builds whatever order
 // they arrive in, so the result does not depend on the scheduling (only
