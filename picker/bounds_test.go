@@ -228,12 +228,12 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 					if top <= lv[fRF] {
 						continue
 					}
-					if fl := f.headroomBelow(di, top, lv[fRC], lv[fRE], &cnt2); fl > h*(1+1e-9)+1e-12 {
+					if fl := f.headroomBelow(di, top, lv[fRC], lv[fRC], lv[fRE], &cnt2); fl > h*(1+1e-9)+1e-12 {
 						t.Errorf("%v: F-RS headroom floor %g (RF below level %d) over the headroom term %g", a.r, fl, top, h)
 					}
 					if top == lv[fRF]+1 && h > 0 {
 						rsChecked++
-						if f.headroomBelow(di, top, lv[fRC], lv[fRE], &cnt2) > 0 {
+						if f.headroomBelow(di, top, lv[fRC], lv[fRC], lv[fRE], &cnt2) > 0 {
 							rsPositive++
 						}
 					}
@@ -277,7 +277,7 @@ func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 	for i := range walls[1] {
 		walls[1][i].TCR_PPMPerK = 250
 	}
-	checked, positive := 0, 0
+	checked, positive, blocks, blocksPositive := 0, 0, 0, 0
 	for wi, wall := range walls {
 		st := Stock{Resistors: wall, Transistors: benchTransistors(6)}
 		st.Transistors[4].Sheet.ThetaJA_KPerW = 500
@@ -322,7 +322,7 @@ func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 				if top > n {
 					continue
 				}
-				fl := f.headroomBelow(di, top, rc, re, &cnt)
+				fl := f.headroomBelow(di, top, rc, rc, re, &cnt)
 				if fl > h*(1+1e-9)+1e-12 {
 					t.Errorf("%v (%s): F-RS headroom floor %g below level %d over the headroom term %g", a.r, e.devs[di].line.Sheet.Label, fl, top, h)
 				}
@@ -330,6 +330,27 @@ func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 					checked++
 					if fl > 0 {
 						positive++
+					}
+				}
+			}
+			// over a block of RC levels that holds rc (F-RF's blocks):
+			// at most the term, and at most the pair's own floor (the
+			// block's corner IC is at its largest RC, its sum at its
+			// least)
+			own := f.headroomBelow(di, n, rc, rc, re, &cnt)
+			for _, blk := range [][2]int{{rc - 1, rc}, {rc, rc + 1}, {rc - 2, rc + 3}} {
+				lo, hi := max(blk[0], 0), min(blk[1], n-1)
+				fb := f.headroomBelow(di, n, lo, hi, re, &cnt)
+				if fb > h*(1+1e-9)+1e-12 {
+					t.Errorf("%v (%s): F-RS headroom floor %g over RC levels %d..%d over the headroom term %g", a.r, e.devs[di].line.Sheet.Label, fb, lo, hi, h)
+				}
+				if fb > own*(1+1e-9)+1e-12 {
+					t.Errorf("%v (%s): F-RS headroom floor %g over RC levels %d..%d over the pair's own %g", a.r, e.devs[di].line.Sheet.Label, fb, lo, hi, own)
+				}
+				if h > 0.05 {
+					blocks++
+					if fb > 0 {
+						blocksPositive++
 					}
 				}
 			}
@@ -342,7 +363,10 @@ func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 	if positive < checked/2 {
 		t.Errorf("F-RS headroom floor positive on only %d of %d builds near saturation", positive, checked)
 	}
-	t.Logf("%d builds near saturation checked; floor positive on %d", checked, positive)
+	if blocksPositive < blocks/2 {
+		t.Errorf("F-RS headroom floor over RC blocks positive on only %d of %d", blocksPositive, blocks)
+	}
+	t.Logf("%d builds near saturation checked; floor positive on %d, over RC blocks on %d of %d", checked, positive, blocksPositive, blocks)
 }
 
 // checkTransistorUse checks bound U-Q on the build of tuple a: at the

@@ -399,7 +399,10 @@
 //     and so the headroom term (RC's and RE's levels must each admit one
 //     value). Taken below the largest level + 1, it bounds every build of
 //     the pair (one solve), which settles a pair before its RF window is
-//     searched. This is what settles a target the largest RF cannot reach,
+//     searched. Over a block of RC levels it solves the corner at the
+//     block's largest corner RC, whose IC is the least (L1 with RE' = RC +
+//     RE), and takes VCE ≤ VCC − IC_up·(RC'min + RE) with the least; once
+//     it settles a pair, F-RF's blocks take it too. This is what settles a target the largest RF cannot reach,
 //     where every split of RC + RE near saturation scores alike.
 //   - F-RF per pair: every build at (RC, RE) has IC at least IC at the
 //     largest RF and the grid point above RC + RE (F1, F-G), so F-Q and

@@ -271,7 +271,8 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			xLo := f.icFloorAbove(di, rHi, cnt)
 			q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
 			fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
-			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr {
+			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr ||
+				skip > 1 && w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*rLo) && fl+w.Headroom*f.headroomBelow(di, n, rc, last, re, cnt) > bd.thr {
 				rc = last
 				skip *= 2
 				continue
@@ -320,7 +321,8 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// F-RS over every RF level, near saturation (VCE ≤ VCC −
 			// xLo·(RC + RE)): one solve for the pair
 			if w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*r) &&
-				base+qFloor+w.Headroom*f.headroomBelow(di, n, rc, re, cnt) > bd.thr {
+				base+qFloor+w.Headroom*f.headroomBelow(di, n, rc, rc, re, cnt) > bd.thr {
+				skip = 2
 				continue
 			}
 			if w.QPoint > 0 {
@@ -399,7 +401,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				// the nominal VCE is near enough saturation for a
 				// corner to reach the band
 				if w.Headroom > 0 && e.nearSaturation(dv, vceSeen) &&
-					sweep+w.Headroom*f.headroomBelow(di, rf+1, rc, re, cnt) > p.threshold() {
+					sweep+w.Headroom*f.headroomBelow(di, rf+1, rc, rc, re, cnt) > p.threshold() {
 					break
 				}
 			}
@@ -424,35 +426,50 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 
 // headroomBelow is the headroom term's floor of bound F-RS: a lower
 // bound on the headroom term of every build of device di with RC level
-// rc, RE level re and RF below level top (top = len(levels): any RF; 0
-// where it gives none). The
-// worst case's lowest VCE is at most VCE at its corner with hFE max,
-// VBE(on) and VAF low (device.vceLow), the hottest ambient, the supply
-// low, RF and RE at the low end of their tolerance and RC at the high
-// end (solver.Build.CornerStage). There RF is at most R_up = R(top −
-// 1)·(1 + |TCR|max·|ΔT|) whatever the build's RF, so by F1 IC there is
-// at least IC_up, the IC of that corner with RF = R_up, and VCE = VCC −
-// IE·(RC + RE) ≤ VCC − IC_up·(RC + RE). It needs RC's and RE's values
-// known: it gives 0 unless each of the two levels admits one value.
-func (f *feedbackPlan) headroomBelow(di, top, rc, re int, cnt *counters) float64 {
+// in [rcLo, rcHi], RE level re and RF below level top (top =
+// len(levels): any RF; 0 where it gives none). The worst case's lowest
+// VCE is at most VCE at its corner with hFE max, VBE(on) and VAF low
+// (device.vceLow), the hottest ambient, the supply low, RF and RE at the
+// low end of their tolerance and RC at the high end
+// (solver.Build.CornerStage). There RF is at most R_up = R(top −
+// 1)·(1 + |TCR|max·|ΔT|) whatever the build's RF, and RC at most RC'max,
+// the largest of the levels' corner values, so by F1 and L1 (RE' = RC +
+// RE) IC there is at least IC_up, the IC of that corner with RF = R_up
+// and RC = RC'max, and VCE = VCC − IE·(RC + RE) ≤ VCC − IC_up·(RC'min +
+// RE) with RC'min the least corner value. It needs each RC level's and
+// RE's value known: it gives 0 unless each of those levels admits one
+// value.
+func (f *feedbackPlan) headroomBelow(di, top, rcLo, rcHi, re int, cnt *counters) float64 {
 	e := f.e
 	if top <= 0 || top > len(e.vs.levels) {
 		return 0
 	}
-	vRC, vRE := e.admitted(fRC, rc), e.admitted(fRE, re)
-	if len(vRC) != 1 || len(vRE) != 1 {
+	vRE := e.admitted(fRE, re)
+	if len(vRE) != 1 {
 		return 0
 	}
 	d := &e.devs[di]
-	b := e.build(combo{dev: di, lv: [maxPos]int{top - 1, rc, re}, val: [maxPos]int{e.vs.levels[top-1].values[0], vRC[0], vRE[0]}})
-	st := b.CornerStage(e.lay.highEnds(e.lay.lowVCE), false, true, true)
+	high := e.lay.highEnds(e.lay.lowVCE)
+	b := e.build(combo{dev: di, lv: [maxPos]int{top - 1, rcLo, re}, val: [maxPos]int{e.vs.levels[top-1].values[0], 0, vRE[0]}})
+	var st solver.Stage
+	rcMin, rcMax := math.Inf(1), 0.0
+	for rc := rcLo; rc <= rcHi; rc++ {
+		vRC := e.admitted(fRC, rc)
+		if len(vRC) != 1 {
+			return 0
+		}
+		b.Resistors[solver.RC] = e.vs.values[vRC[0]].spec
+		st = b.CornerStage(high, false, true, true)
+		rcMin, rcMax = min(rcMin, st.R_Ohm[solver.RC]), max(rcMax, st.R_Ohm[solver.RC])
+	}
+	st.R_Ohm[solver.RC] = rcMax
 	st.R_Ohm[solver.RF] = e.vs.levels[top-1].ohm * (1 + e.vs.tcrMax_PPMPerK*1e-6*math.Abs(e.s.ambMax-solver.TCRReference_C))
 	cnt.solves++
 	op, err := solver.SolveSelfHeated(st, d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
 	if err != nil || op.Region != solver.Active {
 		return 0
 	}
-	return e.headroomSat(d, math.Abs(st.VCC_V)-op.IC_A*(st.R_Ohm[solver.RC]+st.R_Ohm[solver.RE]))
+	return e.headroomSat(d, math.Abs(st.VCC_V)-op.IC_A*(rcMin+st.R_Ohm[solver.RE]))
 }
 
 // rfBlock is how many RF levels of a window share one beta floor
