@@ -488,5 +488,9 @@
 // Result.Evaluated and Solved, the work done, vary). The finalists' Monte
 // Carlo judges its boards on every CPU with the one-at-a-time result
 // (solver.EvalYieldWith), and the first k runs, which have no failure
-// limit, run at once (finalists.rank).
+// limit, run at once; past them rankAhead runs go at once, each with the
+// failure limit against the k-th when it began, which is no tighter than
+// its turn's (the k-th only improves), and each is checked against its
+// turn's limit when taken, so the ranking is that of one run at a time
+// (finalists.rank, TestRankAheadSameAsOneAtATime).
 package picker

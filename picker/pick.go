@@ -1,6 +1,7 @@
 package picker
 
 import (
+	"cmp"
 	"crypto/sha256"
 	"encoding/binary"
 	"encoding/hex"
@@ -314,30 +315,54 @@ type finalists struct {
 	k      int
 	fs     []fin
 	ranked int // builds whose yield was run or bounded
+	ahead  int // yield runs started at once past the first k; 0: rankAhead
 }
 
 // rank ranks a batch of builds, in order, after those already ranked; it
 // reports whether it stopped before the batch's end because no later
 // build can move ahead of the k-th (whether a build after the batch can
 // is topoRun.settled's question).
+//
+// The yield runs go ahead of the order, several at once (runAhead), each
+// with the failure limit against the k-th as it stood when the run
+// began. The k-th only improves as builds are ranked, so that limit is no
+// tighter than the one the build would have had in its turn: a run it
+// stops would have stopped in its turn too, and a completed run is
+// checked against the limit of its turn when it is taken. The result is
+// the same as one build at a time; only work after the last build taken
+// is wasted.
 func (f *finalists) rank(items []*evaluated) (done bool, err error) {
 	e, k := f.e, f.k
-	// Until k builds are ranked no build's run has a failure limit, so
-	// those first runs do not depend on one another: they run at once
-	// and are taken in order below, as if one at a time.
-	type early struct {
+	type ahead struct {
 		c       Candidate
 		stopped bool
 		err     error
 	}
-	var pre []early
-	if m := min(k-len(f.fs), len(items)); m > 1 {
-		pre = make([]early, m)
+	runs := make([]*ahead, len(items))
+	// runAhead runs the yields of items[i:i+m] at once, each with its
+	// failure limit against the k-th now (none before k are ranked);
+	// those that cannot come before the k-th whatever their yield are
+	// left out.
+	runAhead := func(i, m int) {
 		var wg sync.WaitGroup
-		for j := range pre {
-			wg.Go(func() { pre[j].c, pre[j].stopped, pre[j].err = e.candidate(items[j], 0) })
+		for j := i; j < min(i+m, len(items)); j++ {
+			limit := 0
+			if len(f.fs) >= k {
+				var skip bool
+				if limit, skip = e.failLimit(f.fs[k-1], items[j]); skip {
+					continue
+				}
+			}
+			r := &ahead{}
+			runs[j] = r
+			wg.Go(func() { r.c, r.stopped, r.err = e.candidate(items[j], limit) })
 		}
 		wg.Wait()
+	}
+	// Until k builds are ranked no build's run has a failure limit: the
+	// first runs go at once.
+	if m := min(k-len(f.fs), len(items)); m > 1 {
+		runAhead(0, m)
 	}
 	for i, ev := range items {
 		f.ranked++
@@ -348,19 +373,17 @@ func (f *finalists) rank(items []*evaluated) (done bool, err error) {
 				continue
 			}
 		}
-		var c Candidate
-		var stopped bool
-		if i < len(pre) {
-			c, stopped, err = pre[i].c, pre[i].stopped, pre[i].err
-		} else {
-			c, stopped, err = e.candidate(ev, limit)
+		if runs[i] == nil {
+			runAhead(i, cmp.Or(f.ahead, rankAhead))
 		}
-		if err != nil {
-			return false, err
+		r := runs[i]
+		if r.err != nil {
+			return false, r.err
 		}
-		if stopped {
-			continue
+		if r.stopped || limit > 0 && r.c.Yield.Boards-r.c.Yield.Pass > limit {
+			continue // more failures than its turn's limit allows
 		}
+		c := r.c
 		c.Terms.Yield = 1 - c.Yield.Yield
 		c.Score = ev.score + e.s.w.Yield*c.Terms.Yield
 		fn := fin{ev: ev, c: c}
@@ -372,6 +395,10 @@ func (f *finalists) rank(items []*evaluated) (done bool, err error) {
 	}
 	return false, nil
 }
+
+// rankAhead is how many yield runs finalists.rank starts at once past the
+// first k.
+const rankAhead = 2
 
 // finBefore reports whether a (final) comes before the order of ev
 // without its yield term, or is the same build.
