@@ -214,6 +214,10 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			}
 			if fl := f.betaFloorRC(dv, bd, r); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-B floor %g over the beta term %g", a.r, fl, math.Abs(a.beta))
+			} else if at := f.betaFloorSums(dv, bd, r, r); fl > at*(1+1e-3)+1e-12 {
+				// kept per grid cell of sums: the cell's floor covers
+				// this sum, so it is at most the floor at the sum alone
+				t.Errorf("%v: F-B floor %g of the grid cell over the floor %g at the sum %g", a.r, fl, at, r)
 			}
 			// F-RS: the headroom floor of the builds below an RF level
 			// holds for this build, one level below (and at the level

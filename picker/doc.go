@@ -360,7 +360,10 @@
 //     bound B over R_TH from there up bounds the beta term of every build
 //     at (RC, RE). With RE's utilization and emitter floors it skips an RC
 //     and narrows the IC window. It depends on RC + RE and the IC window
-//     only, so it is kept per sum (series pairs repeat sums). Over a
+//     only, so it is taken over the cell of F-G's grid of sums that holds
+//     the pair's sum (bound B over a range of RE, a floor at every sum in
+//     the cell) and kept per cell, which the pairs of neighbouring sums
+//     share. Over a
 //     block of RC levels it is bound B with RE' between the block's sums
 //     and RF from the largest sum's floor up (bound B over a range of
 //     RE); once it settles one level, F-RF's blocks take it too, so the

@@ -27,12 +27,13 @@ type feedbackPlan struct {
 	lnStep float64
 	// gridDev is the device whose solves grid holds, plus one (0: none)
 	gridDev int
-	// fb memoizes betaFloorRC by sum RC + RE, device and IC window:
-	// series pairs give many (RC, RE) pairs the same sum (a third of
-	// them on an E12 wall with pairs). It is direct-mapped: a sum's
-	// entry is at a hash of its bits, and a newer sum takes the slot.
-	// It has 2^fbBits slots, about twice as many as there are sums of two
-	// levels, and at most 2^fbMemoBits.
+	// fb memoizes betaFloorRC by grid cell of sums RC + RE (the grid of
+	// rfWindow), device and IC window: the (RC, RE) pairs whose sums
+	// share a cell share its floor. It is direct-mapped: a cell's entry
+	// is at a hash of its index, and a newer cell takes the slot. It has
+	// 2^fbBits slots, about twice as many as the grid has cells between
+	// the least and the largest sum of two levels, and at most
+	// 2^fbMemoBits.
 	fb     []fbEntry
 	fbBits int
 }
@@ -40,8 +41,8 @@ type feedbackPlan struct {
 // fbMemoBits caps feedbackPlan.fbBits (2^18 slots, 10 MB per worker).
 const fbMemoBits = 18
 
-// fbEntry is betaFloorRC of device dv at the sum whose bits are key for
-// the IC window [icLo, icHi]: everything it depends on.
+// fbEntry is betaFloorRC of device dv at the grid cell key for the IC
+// window [icLo, icHi]: everything it depends on.
 type fbEntry struct {
 	key               uint64
 	dv                *device
@@ -483,19 +484,23 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 	return bd.icLo * bd.icLo * f.e.vs.levels[rc].ohm / f.e.vs.allowHotMax_W
 }
 
-// betaFloorRC is betaFloorSums at the one sum RC + RE = r, kept in f.fb.
+// betaFloorRC is bound F-B at the sum RC + RE = r: betaFloorSums over
+// r's cell of the grid of sums, [R(g), R(g+1)] ∋ r, a floor over every
+// sum in the cell and so at r, kept in f.fb.
 func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
-	k := math.Float64bits(r)
+	g := f.gridIndex(r)
+	k := uint64(int64(g))
 	if f.fb == nil {
-		n := uint64(len(f.e.vs.levels))
-		f.fbBits = min(fbMemoBits, bits.Len64(n*n)+1)
+		lv := f.e.vs.levels
+		cells := uint64(math.Log(lv[len(lv)-1].ohm/lv[0].ohm)/f.lnStep) + 2
+		f.fbBits = min(fbMemoBits, bits.Len64(cells)+1)
 		f.fb = make([]fbEntry, 1<<f.fbBits)
 	}
 	slot := &f.fb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits)]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
 		return slot.floor
 	}
-	fl := f.betaFloorSums(dv, bd, r, r)
+	fl := f.betaFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1))
 	*slot = fbEntry{k, dv, fl, bd.icLo, bd.icHi}
 	return fl
 }
