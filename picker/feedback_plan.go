@@ -266,13 +266,16 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// Bound F-RF over RC levels rc..last, with RE's
 			// utilization, emitter and parts floors, and past a
 			// level that bound F-B settled, F-B over the block's
-			// sums.
+			// sums. That floor is taken only where F-B at the
+			// block's largest sum (kept per cell) settles: F-B falls
+			// as the sum rises, so where that one does not the
+			// block's does not either (it only saves the work).
 			last := min(rc+skip-1, rcHi)
 			rLo, rHi := e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm
 			xLo := f.icFloorAbove(di, rHi, cnt)
 			q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
 			fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
-			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr ||
+			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorRC(dv, bd, rHi) > bd.thr && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr ||
 				skip > 1 && w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*rLo) && fl+w.Headroom*f.headroomBelow(di, n, rc, last, re, cnt) > bd.thr {
 				rc = last
 				skip *= 2
