@@ -121,7 +121,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 	}
 	// the shown builds' full worst cases are independent: they go to the
 	// search's workers
-	runs[0].e.onWorkers(indexes(len(res.Candidates)), false, &counters{}, func(_, i int, _ *counters) {
+	runs[0].e.onWorkers(len(res.Candidates), &counters{}, func(_, i int, _ *counters) {
 		all[i].ev.e.completeWorst(&res.Candidates[i])
 	})
 	if len(s.topos) > 1 && len(res.Candidates) > 0 {

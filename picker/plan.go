@@ -119,7 +119,7 @@ func searchByRE[P any](e *evaluator, p *pool, so *seedOrder, cnt *counters, newW
 		visit(w, wc, r.di, re, kE, vceLo, vceHi, bd)
 	}
 	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0)))
-	e.onWorkers(indexes(workers), false, cnt, func(_, _ int, wc *counters) {
+	e.onWorkers(workers, cnt, func(_, _ int, wc *counters) {
 		w := newWorker()
 		var r *run
 		for !e.stopped() {
@@ -157,12 +157,6 @@ func searchByRE[P any](e *evaluator, p *pool, so *seedOrder, cnt *counters, newW
 // search's).
 func seedByDevice[P any](e *evaluator, so *seedOrder, cnt *counters, newWorker func() P, seed func(w P, cnt *counters, di int)) {
 	so.reset(len(e.devs))
-	byDevice(e, indexes(len(e.devs)), false, cnt, newWorker, seed)
-}
-
-// byDevice runs fn for the devices of order on the search's workers
-// (onWorkers), each with a plan of its own that newWorker makes.
-func byDevice[P any](e *evaluator, order []int, report bool, cnt *counters, newWorker func() P, fn func(w P, cnt *counters, di int)) {
 	if len(e.vs.levels) == 0 {
 		return
 	}
@@ -170,35 +164,24 @@ func byDevice[P any](e *evaluator, order []int, report bool, cnt *counters, newW
 	for k := range workers {
 		workers[k] = newWorker()
 	}
-	e.onWorkers(order, report, cnt, func(k, di int, wc *counters) { fn(workers[k], wc, di) })
+	e.onWorkers(len(e.devs), cnt, func(k, di int, wc *counters) { seed(workers[k], wc, di) })
 }
 
-// onWorkers runs fn for every item of order (device indexes, the
-// search's items of searchByRE, or the starts of polish), each going to the next free worker (at most
-// searchWorkers goroutines, numbered from 0), with counters of its own
-// that are added to cnt at the end; with report it reports progress. The
-// result does not depend on the order the items finish in: the pool
-// keeps the exact best builds whatever order they arrive in.
-func (e *evaluator) onWorkers(order []int, report bool, cnt *counters, fn func(worker, item int, wc *counters)) {
-	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0), len(order)))
-	total := int64(len(order))
+// onWorkers runs fn for every item 0..n−1 (a device, a shown build, a
+// start of polish, or one of searchByRE's worker loops), each going to the
+// next free worker (at most searchWorkers goroutines, numbered from 0),
+// with counters of its own that are added to cnt at the end. The result
+// does not depend on the order the items finish in: the pool keeps the
+// exact best builds whatever order they arrive in.
+func (e *evaluator) onWorkers(n int, cnt *counters, fn func(worker, item int, wc *counters)) {
+	workers := max(1, min(searchWorkers, runtime.GOMAXPROCS(0), n))
 	var next atomic.Int64
-	var progressMu sync.Mutex
 	wcnt := make([]counters, workers)
 	var wg sync.WaitGroup
 	for k := range workers {
 		wg.Go(func() {
-			for {
-				i := next.Add(1) - 1
-				if i >= total {
-					return
-				}
-				if report {
-					progressMu.Lock()
-					e.progress(i, total)
-					progressMu.Unlock()
-				}
-				fn(k, order[i], &wcnt[k])
+			for i := int(next.Add(1) - 1); i < n; i = int(next.Add(1) - 1) {
+				fn(k, i, &wcnt[k])
 			}
 		})
 	}
@@ -206,9 +189,6 @@ func (e *evaluator) onWorkers(order []int, report bool, cnt *counters, fn func(w
 	for _, c := range wcnt {
 		cnt.evaluated += c.evaluated
 		cnt.solves += c.solves
-	}
-	if report {
-		e.progress(total, total)
 	}
 }
 
@@ -340,7 +320,7 @@ func (e *evaluator) polish(p *pool, cnt *counters) {
 	// the climbs are independent: they run on the search's workers, each
 	// with a tuple cache of its own
 	tcs := make([]tupleCache, searchWorkers)
-	e.onWorkers(indexes(len(starts)), false, cnt, func(k, i int, wc *counters) { e.climb(p, &tcs[k], starts[i].c, starts[i].score, wc) })
+	e.onWorkers(len(starts), cnt, func(k, i int, wc *counters) { e.climb(p, &tcs[k], starts[i].c, starts[i].score, wc) })
 }
 
 // climb is polish's hill climb from build c, whose score is score.
