@@ -597,3 +597,70 @@ func TestBetaModelOverRangeIsConservative(t *testing.T) {
 		t.Fatalf("only %d models compared", checked)
 	}
 }
+
+// TestFeedbackICWindowHoldsTheSublevelSet checks bound F-QW's window
+// against a dense scan of F-Q's floor (feedbackQAt, convex in the current)
+// over random sums, current floors, IC windows and thresholds: every
+// scanned current inside [icLo, icHi] whose floor is at most d lies in the
+// window (it must hold them all), and the window reaches no further than
+// one scan step (and the edges' margin) beyond the outermost such current
+// (it must narrow).
+func TestFeedbackICWindowHoldsTheSublevelSet(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(2)}
+	rng := rand.New(rand.NewPCG(5, 11))
+	checked, narrowed := 0, 0
+	for _, vcc := range []float64{5, 12, 24} {
+		for _, ic := range []float64{0.1e-3, 1e-3, 10e-3} {
+			s, err := normalize(Request{Topology: solver.CollectorFeedback, VCC_V: vcc, IC_A: ic})
+			if err != nil {
+				t.Fatal(err)
+			}
+			e, _ := newEvaluator(s, st, s.topo)
+			dv := &e.devs[0]
+			vceLo, vceHi := e.targetBand(dv)
+			kE := 1 + 1/dv.betaNomMin
+			for range 400 {
+				r := (vcc / ic) * math.Exp(rng.Float64()*3-2.5) // RC + RE around the target's
+				xLo := 0.0
+				if rng.IntN(2) == 0 {
+					xLo = ic * rng.Float64() * 1.5
+				}
+				d := rng.Float64() * 1.5
+				icLo, icHi := ic*rng.Float64()*0.9, ic*(1.1+rng.Float64()*2)
+				lo, hi, ok := e.feedbackICWindow(r, xLo, kE, vceLo, vceHi, d, icLo, icHi)
+				const steps = 20000
+				in, first, last := 0, math.Inf(1), math.Inf(-1)
+				for i := range steps + 1 {
+					x := min(icHi, icLo+(icHi-icLo)*float64(i)/steps)
+					if x < xLo || e.feedbackQAt(x, r, r, xLo, kE, vceLo, vceHi) > d {
+						continue
+					}
+					in++
+					first, last = min(first, x), max(last, x)
+					if !ok || x < lo || x > hi {
+						t.Fatalf("r %g Ω, xLo %g, d %g, IC window [%g, %g]: current %g has floor %g ≤ d but F-QW gives [%g, %g] (ok %v)",
+							r, xLo, d, icLo, icHi, x, e.feedbackQAt(x, r, r, xLo, kE, vceLo, vceHi), lo, hi, ok)
+					}
+				}
+				checked++
+				if in == 0 {
+					continue
+				}
+				// one scan step, and the edge's outward margin of 2⁻²⁴
+				// of the window (against rounding)
+				step := (icHi - icLo) / steps
+				slack := step*(1+1e-6) + (icHi-icLo)*0x1p-24
+				if lo < first-slack || hi > last+slack {
+					t.Errorf("r %g Ω, xLo %g, d %g: F-QW window [%g, %g] wider than the scanned set [%g, %g] by over a step %g", r, xLo, d, lo, hi, first, last, step)
+				}
+				if hi-lo < (icHi-icLo)*0.99 {
+					narrowed++
+				}
+			}
+		}
+	}
+	if narrowed < checked/4 {
+		t.Errorf("F-QW narrowed only %d of %d windows", narrowed, checked)
+	}
+	t.Logf("%d windows checked, %d narrowed", checked, narrowed)
+}

@@ -352,8 +352,10 @@
 //     (feedbackQFloor).
 //   - F-QW: F-Q's floor at a current x is convex in x, so the currents
 //     where it is at most what the threshold leaves for the QPoint term
-//     form an interval (feedbackICWindow, by bisection from its least
-//     point); it replaces the plain ±(T − floors)/w_QPoint IC window of
+//     form an interval (feedbackICWindow: the floor is piecewise linear,
+//     its pieces ending at IC_t, xLo and where the VCE interval's ends
+//     meet the band's, so each end of the interval is solved on the piece
+//     it lies on); it replaces the plain ±(T − floors)/w_QPoint IC window of
 //     every build at (RC, RE), so a sum RC + RE whose VCE is off target
 //     admits fewer currents, and fewer RF levels.
 //   - F-B: IB ≤ IC/β_min gives RF ≥ β_min(VCC − VBE_hi − kE·icHi·r)/icHi;

@@ -570,38 +570,63 @@ func (e *evaluator) feedbackQLeast(rLo, rHi, xLo, kE, vceLo, vceHi float64) (q, 
 
 // feedbackICWindow narrows the IC window of the builds with RC + RE = r
 // and IC at least xLo (0: no such bound) whose QPoint term can be at most
-// d (bound F-QW): F-Q's floor at a current x ≥ xLo is convex in x, so the
-// currents where it is at most d form an interval around its least
-// point, found by bisection on each side. It returns [icLo, icHi] ∩ that
-// interval, widened by the bisection's last step (every current outside
-// has a floor over d), and ok false when the interval is empty.
+// d (bound F-QW): F-Q's floor at a current x ≥ xLo is convex and piecewise
+// linear in x, so the currents where it is at most d form an interval
+// around its least point, whose ends lie on the linear pieces next to it
+// (feedbackQEdge). It returns [icLo, icHi] ∩ that interval, and ok false
+// when the interval is empty.
 func (e *evaluator) feedbackICWindow(r, xLo, kE, vceLo, vceHi, d, icLo, icHi float64) (lo, hi float64, ok bool) {
 	q, x0 := e.feedbackQLeast(r, r, xLo, kE, vceLo, vceHi)
 	if q*(1-1e-12) > d {
 		return 0, 0, false
 	}
-	over := func(x float64) bool { return e.feedbackQAt(x, r, r, xLo, kE, vceLo, vceHi)*(1-1e-12) > d }
-	lo = max(edgeOver(icLo, x0, over), xLo)
-	hi = edgeOver(icHi, x0, over)
+	vcc := e.s.vcc
+	// the pieces' ends: IC_t, where the VCE interval's ends meet the
+	// band's, and xLo, below which the floor is constant
+	bp := [4]float64{e.s.icT, (vcc - vceHi) / (kE * r), (vcc - vceLo) / r, xLo}
+	f := func(x float64) float64 { return e.feedbackQAt(x, r, r, xLo, kE, vceLo, vceHi) * (1 - 1e-12) }
+	lo = max(feedbackQEdge(f, d, x0, icLo, bp), xLo)
+	hi = feedbackQEdge(f, d, x0, icHi, bp)
 	return max(lo, icLo), min(hi, icHi), max(lo, icLo) <= min(hi, icHi)
 }
 
-// edgeOver returns, for a predicate over that holds at out and not at in
-// and changes once between them, a point where it still holds within
-// 2⁻²⁴ of |out − in| of the change (out itself when over(out) is false):
-// bisection that keeps the side where over holds. (The window it bounds
-// is then wider than the exact one by far less than a level's step.)
-func edgeOver(out, in float64, over func(float64) bool) float64 {
-	if !over(out) {
+// feedbackQEdge returns, for a convex piecewise-linear f whose pieces end
+// at the points bp (in any order) with f(in) ≤ d, the point between in and
+// out where f crosses d going from in toward out (out itself when f(out) ≤
+// d): the first piece end where f is over d closes the piece the crossing
+// lies on, and the crossing is solved on it. It is moved outward by 2⁻²⁴
+// of |out − in| against rounding, so every point beyond it has f over d.
+func feedbackQEdge(f func(float64) float64, d, in, out float64, bp [4]float64) float64 {
+	fOut := f(out)
+	if fOut <= d {
 		return out
 	}
-	for range 24 {
-		m := (out + in) / 2
-		if over(m) {
-			out = m
-		} else {
-			in = m
+	dir := 1.0
+	if out < in {
+		dir = -1
+	}
+	a, fa := in, f(in)
+	b, fb := out, fOut
+	// the nearest piece end past in toward out where f is over d
+	for _, x := range bp {
+		if t := (x - in) * dir; t > 0 && t < (b-in)*dir {
+			if fx := f(x); fx > d {
+				b, fb = x, fx
+			}
 		}
 	}
-	return out
+	// the last piece end before b where f is at most d
+	for _, x := range bp {
+		if t := (x - in) * dir; t > (a-in)*dir && t < (b-in)*dir {
+			if fx := f(x); fx <= d {
+				a, fa = x, fx
+			}
+		}
+	}
+	x := a + (d-fa)*(b-a)/(fb-fa)
+	x += dir * math.Abs(out-in) * 0x1p-24
+	if (x-out)*dir > 0 {
+		return out
+	}
+	return x
 }
