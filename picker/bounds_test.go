@@ -151,6 +151,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	st.Transistors = append(st.Transistors, pnp)
 	checked := map[solver.Topology]int{}
 	rsChecked, rsPositive := 0, 0
+	windowChecked, windowPositive := 0, 0
 	for _, req := range []Request{
 		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3},
 		{Topology: solver.CollectorFeedback, VCC_V: -9, IC_A: 1e-3},
@@ -219,6 +220,24 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 				// this sum, so it is at most the floor at the sum alone
 				t.Errorf("%v: F-B floor %g of the grid cell over the floor %g at the sum %g", a.r, fl, at, r)
 			}
+			// bound B over an RF window that holds the build's level, by
+			// grid cell of sums: at most the term, and at most the floor
+			// at the sum alone
+			for _, w := range [][2]int{{lv[fRF], lv[fRF]}, {lv[fRF] - 2, lv[fRF] + 1}, {lv[fRF] - 1, lv[fRF] + 5}} {
+				lo, hi := max(w[0], 0), min(w[1], n-1)
+				fl := f.betaFloorWindow(dv, bd, r, lo, hi)
+				if fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
+					t.Errorf("%v: B floor %g over RF levels %d..%d over the beta term %g", a.r, fl, lo, hi, math.Abs(a.beta))
+				}
+				at := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm, RE: r, ICLo: bd.icLo, ICHi: bd.icHi})
+				if fl > at*(1+1e-3)+1e-12 {
+					t.Errorf("%v: B floor %g over RF levels %d..%d of the grid cell over the floor %g at the sum %g", a.r, fl, lo, hi, at, r)
+				}
+				if fl > 0 {
+					windowPositive++
+				}
+				windowChecked++
+			}
 			// F-RS: the headroom floor of the builds below an RF level
 			// holds for this build, one level below (and at the level
 			// itself, the nearest the bound comes)
@@ -263,7 +282,10 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			t.Errorf("%v: only %d builds checked", topo, checked[topo])
 		}
 	}
-	t.Logf("F-RS headroom floor positive on %d of %d builds with a headroom term", rsPositive, rsChecked)
+	if windowPositive < windowChecked/4 {
+		t.Errorf("B floor over RF windows positive on only %d of %d", windowPositive, windowChecked)
+	}
+	t.Logf("F-RS headroom floor positive on %d of %d builds with a headroom term; B over RF windows positive on %d of %d", rsPositive, rsChecked, windowPositive, windowChecked)
 }
 
 // TestFeedbackHeadroomBelowHolds checks bound F-RS's headroom floor

@@ -379,9 +379,10 @@
 //     or whose IC at R(g) is under it, is out. Every (RC, RE) pair whose
 //     sum falls in one grid cell shares that cell's solves, and the
 //     window so found holds the exact one and is about a level wider at
-//     most. Bound B over the window narrows it again, and bound B over
-//     RF in [k, top of the window] with the other terms' floors (F-Q
-//     included) settles the top of the window from the k a bisection
+//     most. Bound B over the window (taken over the pair's cell of sums
+//     and kept per cell and window, which pairs of neighbouring sums
+//     share) narrows it again, and bound B over RF in [k, top of the
+//     window] with the other terms' floors (F-Q included) settles the top of the window from the k a bisection
 //     finds (the beta term grows as the base loses stiffness; the
 //     bisection assumes nothing of the floor's shape, and the k it uses
 //     is one whose floor was computed and settles).

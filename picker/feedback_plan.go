@@ -36,9 +36,21 @@ type feedbackPlan struct {
 	// 2^fbMemoBits.
 	fb     []fbEntry
 	fbBits int
+	// wb memoizes betaFloorWindow by device, grid cell of sums, RF window
+	// and IC window, direct-mapped like fb, with as many slots.
+	wb []wbEntry
 }
 
-// fbMemoBits caps feedbackPlan.fbBits (2^18 slots, 10 MB per worker).
+// wbEntry is betaFloorWindow of device dv at grid cell g and RF levels
+// lo..hi for the IC window [icLo, icHi]: everything it depends on.
+type wbEntry struct {
+	g, lo, hi         int
+	dv                *device
+	floor, icLo, icHi float64
+}
+
+// fbMemoBits caps feedbackPlan.fbBits (2^18 slots: 10 MB of fb and 15 MB
+// of wb per worker).
 const fbMemoBits = 18
 
 // fbEntry is betaFloorRC of device dv at the grid cell key for the IC
@@ -96,7 +108,8 @@ const gridPoints = 4
 const gridMax = 1 << 18
 
 // setGrid sets the grid's step from the stock's levels (gridPoints per
-// mean level spacing, at most 0.5 %) and empties the grid's solves.
+// mean level spacing, at most 0.5 %) and empties the grid's solves and
+// the memos by grid cell (fb, wb).
 func (f *feedbackPlan) setGrid() {
 	lv := f.e.vs.levels
 	step := 0.005
@@ -107,8 +120,16 @@ func (f *feedbackPlan) setGrid() {
 	if f.grid == nil {
 		f.grid = map[uint64]float64{}
 	}
+	if f.fb == nil && len(lv) > 0 {
+		// the memos by grid cell of sums
+		cells := uint64(math.Log(lv[len(lv)-1].ohm/lv[0].ohm)/f.lnStep) + 2
+		f.fbBits = min(fbMemoBits, bits.Len64(cells)+1)
+		f.fb = make([]fbEntry, 1<<f.fbBits)
+		f.wb = make([]wbEntry, 1<<f.fbBits)
+	}
 	clear(f.grid)
 	clear(f.fb)
+	clear(f.wb)
 }
 
 // gridOhm is the grid's point g: e^(g·lnStep) Ω.
@@ -349,8 +370,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// Bound B over the window, with R_TH = RF between
 			// its ends and RE' = RC + RE (baseLoop): what is
 			// left of the threshold narrows the window again.
-			bLo := e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo].ohm, RTHMax: e.vs.levels[hi].ohm,
-				RE: e.vs.levels[rc].ohm + reOhm, ICLo: bd.icLo, ICHi: bd.icHi})
+			bLo := f.betaFloorWindow(dv, bd, e.vs.levels[rc].ohm+reOhm, lo, hi)
 			uQ := e.transistorUseFloor(dv, bd, vceLo, pf+w.Beta*bLo)
 			base := pf + w.Utilization*max(max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
 				bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W), uQ) + w.Beta*bLo
@@ -493,18 +513,31 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 	g := f.gridIndex(r)
 	k := uint64(int64(g))
-	if f.fb == nil {
-		lv := f.e.vs.levels
-		cells := uint64(math.Log(lv[len(lv)-1].ohm/lv[0].ohm)/f.lnStep) + 2
-		f.fbBits = min(fbMemoBits, bits.Len64(cells)+1)
-		f.fb = make([]fbEntry, 1<<f.fbBits)
-	}
 	slot := &f.fb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits)]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
 		return slot.floor
 	}
 	fl := f.betaFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1))
 	*slot = fbEntry{k, dv, fl, bd.icLo, bd.icHi}
+	return fl
+}
+
+// betaFloorWindow is bound B over the RF window lo..hi of the builds of
+// dv whose RC + RE = r (R_TH = RF between the window's ends, RE' = RC +
+// RE, baseLoop) with nominal IC in the window of bd: taken over r's cell
+// of the grid of sums, [R(g), R(g+1)] ∋ r (bound B over a range of RE, a
+// floor at every sum in the cell), and kept in f.wb, so the pairs of
+// neighbouring sums with the same RF window share it.
+func (f *feedbackPlan) betaFloorWindow(dv *device, bd bounds, r float64, lo, hi int) float64 {
+	g := f.gridIndex(r)
+	h := (uint64(int64(g))*0x9e3779b97f4a7c15 ^ uint64(lo)*0xc2b2ae3d27d4eb4f ^ uint64(hi)*0x165667b19e3779f9) >> (64 - f.fbBits)
+	slot := &f.wb[h]
+	if slot.g == g && slot.lo == lo && slot.hi == hi && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
+		return slot.floor
+	}
+	lv := f.e.vs.levels
+	fl := f.e.betaFloor(dv, betaWindow{RTH: lv[lo].ohm, RTHMax: lv[hi].ohm, RE: f.gridOhm(g), REMax: f.gridOhm(g + 1), ICLo: bd.icLo, ICHi: bd.icHi})
+	*slot = wbEntry{g, lo, hi, dv, fl, bd.icLo, bd.icHi}
 	return fl
 }
 
