@@ -104,10 +104,8 @@ const gridSlack = 1e-7
 // at most about one level wider than the exact one on each side.
 const gridPoints = 4
 
-// gridMax bounds the grid's solves kept at once (about 40 bytes each, so
-// at most about 40 MB per worker; a user's E24 wall with pairs keeps over
-// 2^18).
-const gridMax = 1 << 20
+// gridMax bounds the grid's solves kept at once (about 40 bytes each).
+const gridMax = 1 << 18
 
 // setGrid sets the grid's step from the stock's levels (gridPoints per
 // mean level spacing, at most 0.5 %) and empties the grid's solves and
