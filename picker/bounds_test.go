@@ -209,11 +209,11 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			f.setGrid()
 			var cnt2 counters
 			for _, w := range [][2]float64{{ic, ic}, {ic * 0.999, ic * 1.001}, {ic * 0.9, ic * 1.1}} {
-				if lo, hi := f.rfWindow(di, r, w[0], w[1], rng.IntN(n), rng.IntN(n), false, &cnt2); lv[fRF] < lo || lv[fRF] > hi {
+				if lo, hi := f.rfWindow(di, f.gridIndex(r), w[0], w[1], rng.IntN(n), rng.IntN(n), false, &cnt2); lv[fRF] < lo || lv[fRF] > hi {
 					t.Errorf("%v: RF level %d outside the F-G window [%d, %d] for IC %g in [%g, %g]", a.r, lv[fRF], lo, hi, ic, w[0], w[1])
 				}
 			}
-			if fl := f.betaFloorRC(dv, bd, r); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
+			if fl := f.betaFloorRC(dv, bd, f.gridIndex(r)); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-B floor %g over the beta term %g", a.r, fl, math.Abs(a.beta))
 			} else if at := f.betaFloorSums(dv, bd, r, r); fl > at*(1+1e-3)+1e-12 {
 				// kept per grid cell of sums: the cell's floor covers
@@ -225,7 +225,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			// at the sum alone
 			for _, w := range [][2]int{{lv[fRF], lv[fRF]}, {lv[fRF] - 2, lv[fRF] + 1}, {lv[fRF] - 1, lv[fRF] + 5}} {
 				lo, hi := max(w[0], 0), min(w[1], n-1)
-				fl := f.betaFloorWindow(dv, bd, r, lo, hi)
+				fl := f.betaFloorWindow(dv, bd, f.gridIndex(r), lo, hi)
 				if fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 					t.Errorf("%v: B floor %g over RF levels %d..%d over the beta term %g", a.r, fl, lo, hi, math.Abs(a.beta))
 				}

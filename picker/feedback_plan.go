@@ -66,7 +66,8 @@ func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
 	return f.cache.get(f.e, di, [maxPos]int{rf, rc, re}, cnt)
 }
 
-// rfWindow returns the RF levels whose builds with RC + RE = r can have a
+// rfWindow returns the RF levels whose builds with RC + RE = r, in the
+// grid cell g of sums (R(g) ≤ r < R(g+1), gridIndex), can have a
 // nominal IC in [icLo, icHi] (bound F-G): IC falls as RF rises (lemma F1)
 // and as RC + RE rises (L1 in the divider picture, RE' = RC + RE), and
 // depends on RC and RE only through their sum (both carry IE). So with
@@ -78,10 +79,9 @@ func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
 // never narrows the window, and a relative slack of gridSlack covers the
 // solver's tolerance. With singles (no room for a pair in RF, bound P)
 // only the levels holding a single are probed.
-func (f *feedbackPlan) rfWindow(di int, r, icLo, icHi float64, gLo, gHi int, singles bool, cnt *counters) (lo, hi int) {
+func (f *feedbackPlan) rfWindow(di, g int, icLo, icHi float64, gLo, gHi int, singles bool, cnt *counters) (lo, hi int) {
 	vs := f.e.vs
 	n := len(vs.levels)
-	g := f.gridIndex(r)
 	lo = vs.firstIn(0, n-1, gLo, singles, func(i int) bool {
 		v := f.gridIC(di, g+1, i, cnt)
 		return math.IsNaN(v) || v <= icHi*(1+gridSlack)
@@ -148,12 +148,13 @@ func (f *feedbackPlan) gridIndex(r float64) int {
 }
 
 // icFloorAbove bounds from below the nominal IC of every build of device
-// di with RC + RE at most r (0 when it gives nothing): IC at the largest
-// RF level and the grid point above r (F1, F-G), read on the grid so that
-// every RE shares it, less the grid's slack.
-func (f *feedbackPlan) icFloorAbove(di int, r float64, cnt *counters) float64 {
+// di with RC + RE at most R(g + 1), the top of grid cell g (0 when it
+// gives nothing): IC at the largest RF level and that grid point (F1,
+// F-G), read on the grid so that every RE shares it, less the grid's
+// slack.
+func (f *feedbackPlan) icFloorAbove(di, g int, cnt *counters) float64 {
 	_, rfTop := f.e.levelRange(fRF)
-	if v := f.gridIC(di, f.gridIndex(r)+1, rfTop, cnt); !math.IsNaN(v) {
+	if v := f.gridIC(di, g+1, rfTop, cnt); !math.IsNaN(v) {
 		return v * (1 - gridSlack)
 	}
 	return 0
@@ -293,10 +294,11 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// block's does not either (it only saves the work).
 			last := min(rc+skip-1, rcHi)
 			rLo, rHi := e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm
-			xLo := f.icFloorAbove(di, rHi, cnt)
+			gHi := f.gridIndex(rHi)
+			xLo := f.icFloorAbove(di, gHi, cnt)
 			q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
 			fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
-			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorRC(dv, bd, rHi) > bd.thr && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr ||
+			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorRC(dv, bd, gHi) > bd.thr && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr ||
 				skip > 1 && w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*rLo) && fl+w.Headroom*f.headroomBelow(di, n, rc, last, re, cnt) > bd.thr {
 				rc = last
 				skip *= 2
@@ -311,6 +313,9 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		fl := pf
 		// nonBeta bounds every term but Beta of every build here
 		nonBeta := pf
+		// the pair's sum and its cell of the grid of sums
+		r := e.vs.levels[rc].ohm + reOhm
+		g := f.gridIndex(r)
 		if bd.finite {
 			// With RE's floors (above) and bound B every build at
 			// this RC and RE (F-B); what is left of the threshold
@@ -324,17 +329,16 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// monotone in RC, so it only skips this RC)
 			uOwn := max(uRE, bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W)
 			base = pf + w.Utilization*uOwn + w.Emitter*eLo
-			r := e.vs.levels[rc].ohm + reOhm
 			// Every build here has IC at least xLo (F-RF per
 			// pair): F-Q over x ≥ xLo first (cheap), then with F-B.
-			xLo := f.icFloorAbove(di, r, cnt)
+			xLo := f.icFloorAbove(di, g, cnt)
 			qFloor := w.QPoint * e.feedbackQFloorBlock(r, r, xLo, kE, vceLo, vceHi)
 			if base+qFloor > bd.thr {
 				continue
 			}
 			nonBeta = base + qFloor
 			if w.Beta > 0 {
-				base += w.Beta * f.betaFloorRC(dv, bd, r)
+				base += w.Beta * f.betaFloorRC(dv, bd, g)
 			}
 			if base+qFloor > bd.thr {
 				// F-B settled it: the next levels are tried in
@@ -361,7 +365,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			}
 			fl = base
 		}
-		lo, hi := f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
+		lo, hi := f.rfWindow(di, g, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
 		gLo, gHi = lo, hi+1
 		if lo > hi {
 			continue
@@ -370,7 +374,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// Bound B over the window, with R_TH = RF between
 			// its ends and RE' = RC + RE (baseLoop): what is
 			// left of the threshold narrows the window again.
-			bLo := f.betaFloorWindow(dv, bd, e.vs.levels[rc].ohm+reOhm, lo, hi)
+			bLo := f.betaFloorWindow(dv, bd, g, lo, hi)
 			uQ := e.transistorUseFloor(dv, bd, vceLo, pf+w.Beta*bLo)
 			base := pf + w.Utilization*max(max(bd.icLo*bd.icLo*reOhm/e.vs.levels[re].allowHot_W,
 				bd.icLo*bd.icLo*e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W), uQ) + w.Beta*bLo
@@ -381,11 +385,11 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			if w.QPoint > 0 {
 				d2 := (bd.thr - base) / w.QPoint
 				within := e.boundsWithin(bd.thr, d2)
-				wLo, wHi, ok := e.feedbackICWindow(e.vs.levels[rc].ohm+reOhm, 0, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
+				wLo, wHi, ok := e.feedbackICWindow(r, 0, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
 				if !ok {
 					continue
 				}
-				lo, hi = f.rfWindow(di, e.vs.levels[rc].ohm+reOhm, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
+				lo, hi = f.rfWindow(di, g, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
 			}
 		}
 		if bd.finite && w.Beta > 0 && lo < hi {
@@ -395,7 +399,6 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// The bisection assumes nothing of the floor's shape:
 			// the k it returns below the end is one whose floor
 			// was computed and settles.
-			r := e.vs.levels[rc].ohm + reOhm
 			k := firstLevel(hi-lo+1, func(i int) bool {
 				return nonBeta+w.Beta*e.betaFloor(dv, betaWindow{RTH: e.vs.levels[lo+i].ohm, RTHMax: e.vs.levels[hi].ohm,
 					RE: r, ICLo: icLo, ICHi: icHi}) > p.threshold()
@@ -409,7 +412,6 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		// so F-Q over currents from there up and the headroom floor
 		// below it (headroomBelow), with the other terms' floors,
 		// settle the rest of the window once they are over.
-		r := e.vs.levels[rc].ohm + reOhm
 		var blk [rfBlock]*tuple
 		xSeen, vceSeen := 0.0, 0.0
 		// blocks grow from two levels to rfBlock, so F-RS can settle
@@ -507,11 +509,10 @@ func (f *feedbackPlan) uRC(bd bounds, rc int) float64 {
 	return bd.icLo * bd.icLo * f.e.vs.levels[rc].ohm / f.e.vs.allowHotMax_W
 }
 
-// betaFloorRC is bound F-B at the sum RC + RE = r: betaFloorSums over
-// r's cell of the grid of sums, [R(g), R(g+1)] ∋ r, a floor over every
-// sum in the cell and so at r, kept in f.fb.
-func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
-	g := f.gridIndex(r)
+// betaFloorRC is bound F-B at a sum RC + RE in grid cell g:
+// betaFloorSums over the cell, [R(g), R(g+1)], a floor at every sum in
+// it, kept in f.fb.
+func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, g int) float64 {
 	k := uint64(int64(g))
 	slot := &f.fb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits)]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
@@ -523,13 +524,12 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, r float64) float64 {
 }
 
 // betaFloorWindow is bound B over the RF window lo..hi of the builds of
-// dv whose RC + RE = r (R_TH = RF between the window's ends, RE' = RC +
-// RE, baseLoop) with nominal IC in the window of bd: taken over r's cell
-// of the grid of sums, [R(g), R(g+1)] ∋ r (bound B over a range of RE, a
-// floor at every sum in the cell), and kept in f.wb, so the pairs of
+// dv whose RC + RE lies in grid cell g (R_TH = RF between the window's
+// ends, RE' = RC + RE, baseLoop) with nominal IC in the window of bd:
+// taken over the cell, [R(g), R(g+1)] (bound B over a range of RE, a
+// floor at every sum in it), and kept in f.wb, so the pairs of
 // neighbouring sums with the same RF window share it.
-func (f *feedbackPlan) betaFloorWindow(dv *device, bd bounds, r float64, lo, hi int) float64 {
-	g := f.gridIndex(r)
+func (f *feedbackPlan) betaFloorWindow(dv *device, bd bounds, g, lo, hi int) float64 {
 	h := (uint64(int64(g))*0x9e3779b97f4a7c15 ^ uint64(lo)*0xc2b2ae3d27d4eb4f ^ uint64(hi)*0x165667b19e3779f9) >> (64 - f.fbBits)
 	slot := &f.wb[h]
 	if slot.g == g && slot.lo == lo && slot.hi == hi && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi {
