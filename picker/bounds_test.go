@@ -85,6 +85,13 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 			if f := e.dividerPowerBound(lv[iR2], op.V_V[solver.R2], op.V_V[solver.R2]); f > u*(1+1e-9) {
 				t.Errorf("divider bound %.6g above the divider's utilization %.6g (%v)", f, u, r)
 			}
+			// the weak bound at any level at or above R2's too (the search
+			// takes it at the last level of a run of pair-only levels)
+			for j := lv[iR2]; j < min(lv[iR2]+4, len(e.vs.levels)); j++ {
+				if f := e.dividerPowerBoundWeak(j, op.V_V[solver.R2], op.V_V[solver.R2]); f > u*(1+1e-9) {
+					t.Errorf("weak divider bound %.6g at level %d (R2 at %d) above the divider's utilization %.6g (%v)", f, j, lv[iR2], u, r)
+				}
+			}
 			// The floor for a window around IC and an R_TH below the build's
 			// must hold too, and for a range of RE around the build's: the
 			// search uses it that way.

@@ -133,6 +133,16 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			uRE, eLo = reFloors(bd)
 			pRC = bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
 			if pf2+e.useAndPartsFloor(max(uRE, uDiv), pRC)+w.Emitter*eLo > bd.thr {
+				// Over the run of pair-only levels up to the next single
+				// every build carries the same parts floor pf2 and at least
+				// the weak divider power at the run's last level (it falls
+				// with R2): when that settles too, the run is stepped over.
+				if e.vs.levels[r2].pairOnly {
+					end := e.vs.nextSingle[r2] - 1
+					if pf2+e.useAndPartsFloor(max(uRE, e.dividerPowerBoundWeak(end, vbeLo+bd.icLo*reOhm, vbHi)), pRC)+w.Emitter*eLo > bd.thr {
+						r2 = end
+					}
+				}
 				continue // settled without bound B
 			}
 			// Bound B is taken per block of r2Block R2 levels: a floor
