@@ -22,39 +22,58 @@ func (e *evaluator) scoreVariants(t *tuple, p *pool, keep func(*evaluated), cnt 
 		return
 	}
 	n := e.lay.n
+	// bound P: a combination with more positions filled by a pair than
+	// the threshold leaves room for, with the terms already known, cannot
+	// enter (scoreOne's first check, with the same sum), so only the
+	// combinations with at most maxPairs pairs are formed: a level's
+	// singles come first in its stock, and a kept part is one part.
+	base, thr := e.s.w.QPoint*t.q+e.s.w.Emitter*t.em, p.threshold()
+	maxPairs := 0
+	if e.s.w.Parts <= 0 {
+		maxPairs = n
+	}
+	for maxPairs < n && base+e.s.w.Parts*float64(maxPairs+1) <= thr {
+		maxPairs++
+	}
 	var L [maxPos][]int
-	// bound P: when one pair's extra part is over the threshold with the
-	// terms already known, only the singles of each level are scored
-	// (they come first in a level's stock)
-	singles := e.singlesOnly(e.s.w.QPoint*t.q+e.s.w.Emitter*t.em, p.threshold())
+	var one [maxPos]int // L[i][:one[i]] are one part each
 	for i := range n {
-		// a kept position takes its kept part, a free one stock (only
-		// its singles when there is no room for a pair)
+		// a kept position takes its kept part, a free one stock
 		L[i] = e.admitted(i, t.c.lv[i])
-		if singles && !e.kept[i] {
-			L[i] = L[i][:e.vs.levels[t.c.lv[i]].singles]
+		one[i] = len(L[i])
+		if !e.kept[i] {
+			one[i] = e.vs.levels[t.c.lv[i]].singles
+		}
+		if maxPairs == 0 {
+			L[i] = L[i][:one[i]]
 		}
 		if len(L[i]) == 0 {
 			return
 		}
 	}
-	// k walks every value combination, the last position fastest.
-	var k [maxPos]int
 	c := t.c
-	for {
-		for i := range n {
-			c.val[i] = L[i][k[i]]
-		}
-		e.scoreOne(t, c, p, keep, cnt)
-		i := n - 1
-		for ; i >= 0; i-- {
-			if k[i]++; k[i] < len(L[i]) {
-				break
-			}
-			k[i] = 0
-		}
-		if i < 0 {
-			return
+	e.eachVariant(&L, &one, n, maxPairs, &c, 0, 0, func() { e.scoreOne(t, c, p, keep, cnt) })
+}
+
+// eachVariant sets c.val[i:n] to every combination of the values L[i:n]
+// with at most maxPairs positions (pairs of them already in c.val[:i])
+// outside their one-part prefix L[j][:one[j]], the last position fastest,
+// and calls fn on each.
+func (e *evaluator) eachVariant(L *[maxPos][]int, one *[maxPos]int, n, maxPairs int, c *combo, i, pairs int, fn func()) {
+	if i == n {
+		fn()
+		return
+	}
+	vals := L[i]
+	if pairs == maxPairs {
+		vals = vals[:one[i]]
+	}
+	for k, v := range vals {
+		c.val[i] = v
+		if k < one[i] {
+			e.eachVariant(L, one, n, maxPairs, c, i+1, pairs, fn)
+		} else {
+			e.eachVariant(L, one, n, maxPairs, c, i+1, pairs+1, fn)
 		}
 	}
 }
