@@ -159,6 +159,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	checked := map[solver.Topology]int{}
 	rsChecked, rsPositive := 0, 0
 	windowChecked, windowPositive := 0, 0
+	rbNear := 0 // split-supply builds with RB within 25 % of the RB-IB floor
 	for _, req := range []Request{
 		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3},
 		{Topology: solver.CollectorFeedback, VCC_V: -9, IC_A: 1e-3},
@@ -193,11 +194,23 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 				t.Errorf("%v %v: beta floor %g over the beta term %g", req.Topology, a.r, f, math.Abs(a.beta))
 			}
 			checkTransistorUse(t, e, dv, a)
+			kE := 1 + 1/dv.betaNomMin
+			if req.Topology == solver.SplitSupply {
+				// RB-IB: RB at least the floor at the build's own IC, at
+				// its nominal point and at hFE min (the closest to it)
+				lo, err := e.solveAt(dv, dv.lo, a.r)
+				for _, op := range []solver.OperatingPoint{a.op, lo} {
+					if f := e.splitRBFloor(dv, op.IC_A, a.r[sRE], kE); err == nil && a.r[sRB] < f*(1-1e-9) {
+						t.Errorf("%v: RB under the RB-IB floor %g at IC %g", a.r, f, op.IC_A)
+					} else if err == nil && a.r[sRB] < 1.25*f {
+						rbNear++
+					}
+				}
+			}
 			if req.Topology != solver.CollectorFeedback {
 				continue
 			}
 			vceLo, vceHi := e.targetBand(dv)
-			kE := 1 + 1/dv.betaNomMin
 			r := a.r[fRC] + a.r[fRE]
 			if f := e.feedbackQFloorBlock(r, r, 0, kE, vceLo, vceHi); f > a.q*(1+1e-9) {
 				t.Errorf("%v: QPoint floor %g over the term %g", a.r, f, a.q)
@@ -292,7 +305,10 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	if windowPositive < windowChecked/4 {
 		t.Errorf("B floor over RF windows positive on only %d of %d", windowPositive, windowChecked)
 	}
-	t.Logf("F-RS headroom floor positive on %d of %d builds with a headroom term; B over RF windows positive on %d of %d", rsPositive, rsChecked, windowPositive, windowChecked)
+	if rbNear == 0 {
+		t.Errorf("no split-supply build has RB within 25 %% of the RB-IB floor: the check does not reach it")
+	}
+	t.Logf("F-RS headroom floor positive on %d of %d builds with a headroom term; B over RF windows positive on %d of %d; %d split-supply builds within 25 %% of the RB-IB floor", rsPositive, rsChecked, windowPositive, windowChecked, rbNear)
 }
 
 // TestFeedbackHeadroomBelowHolds checks bound F-RS's headroom floor

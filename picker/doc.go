@@ -438,7 +438,11 @@
 // of the supply is set by VEE, not by the parts). RB's range comes from
 // the envelopes as R1's does for the divider: IC at the band's bottom RC
 // falls with RB, and IC at the band's largest active RC bounds the active
-// builds from below. Bound B over RB: bound B with R_TH over a block of
+// builds from below. Bound RB-IB (splitRBFloor) starts both searches: an
+// active build with IC ≤ IC max draws IB ≤ IC max/β_nom,min, so RB ≥
+// β_nom,min(|VEE| − VBE max − kE·IC max·RE)/IC max; below it builds
+// saturate or their base current heats the junction past Tj max, and
+// each such probe is a failed solve the envelopes cannot use. Bound B over RB: bound B with R_TH over a block of
 // eight RB levels bounds the beta term of every build in it (taken at the
 // block's first threshold), so it settles the block or joins the floor
 // each level's RC scan starts from; when it settles the block, bound B

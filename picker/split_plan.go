@@ -133,10 +133,14 @@ func (sp *splitPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, vce
 		}
 	}
 	if bd.finite {
-		rbHi = e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
+		// Bound RB-IB (splitRBFloor). Below it a build saturates, or its
+		// base current heats the junction past Tj max: a solve each
+		// that the IC bounds below cannot tell from an active build.
+		rbFrom := e.vs.levelAtOrAbove(e.splitRBFloor(dv, icHi, reOhm, kE))
+		rbHi = e.vs.firstIn(rbFrom, n-1, max(rbFrom, n/2), singles, func(i int) bool {
 			return sp.tuple(di, i, rcLo, re, cnt).icUnder(icLo)
 		}) - 1
-		rbLo = e.vs.firstIn(0, rbHi, 0, singles, func(i int) bool {
+		rbLo = e.vs.firstIn(rbFrom, rbHi, rbFrom, singles, func(i int) bool {
 			ic, any := e.vs.icFloor(func(rc int) *tuple { return sp.tuple(di, i, rc, re, cnt) }, rcLo, rcHi, icHi, singles)
 			return any && ic <= icHi
 		})
@@ -175,4 +179,17 @@ func (sp *splitPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, vce
 		sp.cache.reset()
 		e.scanRC(p, &sp.cache, cnt, di, [maxPos]int{rb, 0, re}, sRC, &sp.splitGuess, rcLo, rcHi, vceLo, vceHi, kE, base+e.partsFloor(rb)+w.Beta*bRB, use)
 	}
+}
+
+// splitRBFloor is bound RB-IB: a build of dv active at its nominal point
+// with IC ≤ icHi draws IB ≤ icHi/β_nom,min through RB, and RB·IB = |VEE|
+// − VBE − IE·RE with VBE ≤ vbeHi(icHi) and IE·RE ≤ kE·icHi·RE, so RB is
+// at least β_nom,min(|VEE| − vbeHi − kE·icHi·RE)/icHi (0 when that is
+// not positive).
+func (e *evaluator) splitRBFloor(dv *device, icHi, reOhm, kE float64) float64 {
+	v := e.s.vee - vbeHi(dv, icHi) - kE*icHi*reOhm
+	if v <= 0 {
+		return 0
+	}
+	return dv.betaNomMin * v / icHi
 }
