@@ -433,17 +433,20 @@ func (e *evaluator) targetBand(dv *device) (lo, hi float64) {
 	return dv.vceSat, mid
 }
 
-// seedOrder keeps, per device, the best passing seed's score and RE
-// level: plans visit devices from the best seed and RE levels outward from
-// it (any order is sound; this one tightens the threshold early).
+// seedOrder keeps, per device, the best seed's score and RE level, a
+// passing seed before any failing one: plans visit devices from the best
+// seed and RE levels outward from it (any order is sound; this one
+// tightens the threshold early, and where no seed passes it still starts
+// at the hand method's RE, not at the smallest level).
 type seedOrder struct {
 	best []float64
+	pass []bool
 	re   []int
 }
 
 // reset prepares for nDev devices.
 func (so *seedOrder) reset(nDev int) {
-	so.best, so.re = make([]float64, nDev), make([]int, nDev)
+	so.best, so.pass, so.re = make([]float64, nDev), make([]bool, nDev), make([]int, nDev)
 	for i := range so.best {
 		so.best[i] = math.Inf(1)
 	}
@@ -451,8 +454,9 @@ func (so *seedOrder) reset(nDev int) {
 
 // note records a seed build of device di at RE level re.
 func (so *seedOrder) note(di, re int, ev *evaluated) {
-	if len(ev.failing) == 0 && ev.score < so.best[di] {
-		so.best[di], so.re[di] = ev.score, re
+	pass := len(ev.failing) == 0
+	if pass && !so.pass[di] || pass == so.pass[di] && ev.score < so.best[di] {
+		so.best[di], so.pass[di], so.re[di] = ev.score, pass, re
 	}
 }
 
@@ -460,7 +464,15 @@ func (so *seedOrder) note(di, re int, ev *evaluated) {
 func (so *seedOrder) order(nDev int) []int {
 	order := indexes(nDev)
 	if len(so.best) == nDev {
-		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(so.best[a], so.best[b]) })
+		slices.SortStableFunc(order, func(a, b int) int {
+			if so.pass[a] != so.pass[b] {
+				if so.pass[a] {
+					return -1
+				}
+				return 1
+			}
+			return cmp.Compare(so.best[a], so.best[b])
+		})
 	}
 	return order
 }
