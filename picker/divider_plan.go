@@ -64,7 +64,7 @@ func (d *dividerPlan) seedDevice(p *pool, cnt *counters, di int) {
 			})
 			r1 = clampLevel(r1, n)
 			rc = firstLevel(n, func(i int) bool {
-				return d.tuple(di, [maxPos]int{r1, r2, i, re}, cnt).vceAtMost(vceHi)
+				return d.tuple(di, [maxPos]int{r1, r2, i, re}, cnt).vceSolvedAtMost(vceHi)
 			})
 			for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
 				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {

@@ -213,7 +213,7 @@ func (f *feedbackPlan) seedDevice(p *pool, cnt *counters, di int) {
 		var rf int
 		for range 2 {
 			rf = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(e.s.icT) }), n)
-			rc = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceAtMost(vceHi) }), n)
+			rc = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceSolvedAtMost(vceHi) }), n)
 		}
 		starts := [][2]int{{rf, rc}}
 		if rf == n-1 {

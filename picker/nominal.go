@@ -183,16 +183,23 @@ func (e *evaluator) betaSpread(t *tuple, cnt *counters) {
 	}
 }
 
-// icAtMost reports whether the tuple's nominal IC is at most ic; a tuple
-// that could not be solved counts as "at most" (it never bounds). A
-// saturated tuple does not: deep in saturation a stiff base drive pulls
+// icAtMost reports whether the tuple was solved and its nominal IC is at
+// most ic: the seeds' search for the target current. A tuple that could
+// not be solved counts as over: with small resistances the base or
+// collector current heats the junction past Tj max (runaway), and a seed
+// taken there would start the search at the smallest levels. A saturated
+// tuple counts as over too: deep in saturation a stiff base drive pulls
 // the emitter, and so the collector, up towards the supply and IC falls
 // as the drive grows, so its IC is not the active-region current that
 // lemmas L1 and F1 order, and a search for the first level at or under a
 // current must pass over it (its nominal point fails the bench limit).
 func (t *tuple) icAtMost(ic float64) bool {
-	return !t.ok || t.op.Region != solver.Saturation && t.op.IC_A <= ic
+	return t.ok && t.op.Region != solver.Saturation && t.op.IC_A <= ic
 }
+
+// vceSolvedAtMost is vceAtMost for the seeds: a tuple that could not be
+// solved counts as over (icAtMost says why).
+func (t *tuple) vceSolvedAtMost(v float64) bool { return t.ok && t.op.VCE_V <= v }
 
 // icUnder reports whether the tuple was solved, is not saturated and its
 // nominal IC is under ic: the envelope probes' test (L1 orders only

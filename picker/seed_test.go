@@ -12,20 +12,24 @@ import (
 // TestSeedsPassOnPairWalls: on a wall with pairs, the hand-method seeds
 // of every topology put passing builds in the pool, so the search starts
 // with a finite threshold. The stock is every E96 value 10 Ω–1 MΩ
-// (IEC 60063:2015, Table 1) with six transistor types, at 0.1 and 1 mA
-// on 12 V. A seed's search for the first level at or under the target
+// (IEC 60063:2015, Table 1) with six transistor types, at 0.1, 1 and
+// 10 mA on 12 V. A seed's search for the first level at or under the target
 // current used to stop at a saturated tuple: deep in saturation a stiff
 // divider pulls the emitter, and so the collector, up to the supply and
 // IC is small (common practice: a saturated stage's IC is set by its
 // collector load, not by its base drive), so R1 came out at 5 Ω and every
-// seed failed.
+// seed failed. At 10 mA a split-supply seed's RE came out at 10 Ω: with
+// the smallest RE a base current of about (|VEE| − VBE)/RB heats the
+// junction past Tj max (common practice: the junction's rise is P·θJA),
+// the tuple cannot be solved, and a tuple that cannot be solved read as
+// under the target.
 func TestSeedsPassOnPairWalls(t *testing.T) {
 	if testing.Short() {
 		t.Skip("builds an E96 pair wall")
 	}
 	st := Stock{Resistors: seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}
 	for _, topo := range []solver.Topology{solver.Divider, solver.CollectorFeedback, solver.SplitSupply} {
-		for _, ic := range []float64{0.1e-3, 1e-3} {
+		for _, ic := range []float64{0.1e-3, 1e-3, 10e-3} {
 			t.Run(fmt.Sprintf("%v/%gmA", topo, ic*1e3), func(t *testing.T) {
 				req := Request{Topology: topo, VCC_V: 12, IC_A: ic, Top: 10, Pairs: true}
 				if topo == solver.SplitSupply {

@@ -44,7 +44,7 @@ func (sp *splitPlan) seedDevice(p *pool, cnt *counters, di int) {
 	for _, stiff := range []float64{0.1, 0.03, 0.3} {
 		rb := clampLevel(e.vs.levelAtOrAbove(stiff*dv.hfeMin*e.vs.levels[re0].ohm), n)
 		re := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, rc, i, cnt).icAtMost(e.s.icT) }), n)
-		rc := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, i, re, cnt).vceAtMost(vceHi) }), n)
+		rc := clampLevel(firstLevel(n, func(i int) bool { return sp.tuple(di, rb, i, re, cnt).vceSolvedAtMost(vceHi) }), n)
 		for a := max(re-1, 0); a <= min(re+1, n-1); a++ {
 			for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
 				e.scoreVariants(sp.tuple(di, rb, c, a, cnt), p, func(ev *evaluated) {
