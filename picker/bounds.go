@@ -129,6 +129,29 @@ func (e *evaluator) rthFloor(r2Ohm, vbHi, ibHi float64) float64 {
 	return max(0, r2Ohm*(1-vbHi/vcc)/(1+r2Ohm*ibHi/vcc))
 }
 
+// transistorUse is the transistor's utilization at op, the same for every
+// value combination of a level tuple: its dissipation over its margined
+// allowance at the hottest ambient, as solver.EvalDissipation rates it
+// (0 for an unrated transistor).
+func (e *evaluator) transistorUse(dv *device, op solver.OperatingPoint) float64 {
+	if math.IsInf(dv.allowHot, 1) {
+		return 0
+	}
+	return op.PTransistor_W / dv.allowHot
+}
+
+// transistorUseAtRC is bound U-Q at an RC level before it is solved, for
+// a topology whose VCE is span − IC·RC − IE·RE (scanRC's): the transistor
+// dissipates at least IC·VCE, and a build with IC in [icLo, icHi], active
+// at its nominal point (IE ≤ kE·IC), has VCE ≥ span − icHi·(RC + kE·RE).
+// It rises as RC falls; 0 for an unrated transistor.
+func (e *evaluator) transistorUseAtRC(dv *device, rcOhm, reOhm, kE, icLo, icHi float64) float64 {
+	if math.IsInf(dv.allowHot, 1) {
+		return 0
+	}
+	return icLo * max(0, e.span-icHi*(rcOhm+kE*reOhm)) / dv.allowHot
+}
+
 // transistorUseFloor is bound U-Q (doc.go): a lower bound on the
 // transistor's utilization at the nominal point of every build of dv that
 // can enter under bd when the terms other than QPoint and Utilization add

@@ -429,6 +429,22 @@ func checkTransistorUse(t *testing.T, e *evaluator, dv *device, a *tuple) {
 		return
 	}
 	use := a.op.PTransistor_W / dv.allowHot
+	// transistorUse is the transistor's utilization as EvalDissipation
+	// rates it, for any value combination of the tuple
+	c := a.c
+	for i := range e.lay.n {
+		c.val[i] = e.vs.levels[c.lv[i]].values[0]
+	}
+	if dis := solver.EvalDissipation(e.build(c), a.op, e.s.ambMax, e.s.lim); math.Abs(e.transistorUse(dv, a.op)-dis.Transistor.Utilization) > 1e-12*use {
+		t.Errorf("%v: transistorUse %g, EvalDissipation's transistor utilization %g", a.r, e.transistorUse(dv, a.op), dis.Transistor.Utilization)
+	}
+	// at an RC level before it is solved (divider and split supply)
+	if rc, re, ok := rcAndRE(e, a.r); ok {
+		kE := 1 + 1/dv.betaNomMin
+		if f := e.transistorUseAtRC(dv, rc, re, kE, a.op.IC_A, a.op.IC_A); f > use*(1+1e-9) {
+			t.Errorf("%v: U-Q floor at RC %g over the transistor's utilization %g (VCE %g, IC %g)", a.r, f, use, a.op.VCE_V, a.op.IC_A)
+		}
+	}
 	vceLo, _ := e.targetBand(dv)
 	for _, other := range []float64{0, 0.02} {
 		bd := bounds{thr: e.s.w.QPoint*a.q + other, icLo: a.op.IC_A, finite: true}
@@ -436,6 +452,18 @@ func checkTransistorUse(t *testing.T, e *evaluator, dv *device, a *tuple) {
 			t.Errorf("%v: U-Q floor %g over the transistor's utilization %g (VCE %g, IC %g)", a.r, f, use, a.op.VCE_V, a.op.IC_A)
 		}
 	}
+}
+
+// rcAndRE returns a divider's or split-supply build's RC and RE (false
+// for collector feedback, whose RC carries the base current too).
+func rcAndRE(e *evaluator, r [maxPos]float64) (rc, re float64, ok bool) {
+	switch e.lay.topo {
+	case solver.Divider:
+		return r[iRC], r[iRE], true
+	case solver.SplitSupply:
+		return r[sRC], r[sRE], true
+	}
+	return 0, 0, false
 }
 
 // TestPartsFloorAndSingleIndex checks bound P's pieces on an E24 wall

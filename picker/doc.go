@@ -264,9 +264,14 @@
 //     (the larger counts) of every plan: per R2 in the divider, per RE and
 //     per (RC, RE) in collector feedback, per RE in split supply. Where
 //     the transistor is the hottest part (a stage at several
-//     milliamperes) it is the utilization floor that prunes;
-//     TestBoundsHoldOnRandomBuilds and TestOtherTopologyBoundsHold check
-//     it against the exact point of random builds.
+//     milliamperes) it is the utilization floor that prunes. The RC scan
+//     (divider, split supply) also takes it per RC level before the solve,
+//     with VCE ≥ span − IC_hi·(RC + kE·RE) (transistorUseAtRC: it rises
+//     as RC falls, so going down it ends the scan), and scoreVariants
+//     takes the exact one (transistorUse) once per level tuple, not per
+//     value combination; TestBoundsHoldOnRandomBuilds and
+//     TestOtherTopologyBoundsHold check all three against the exact point
+//     of random builds and EvalDissipation.
 //   - U-R2: R2 dissipates VB²/R2 and, since base current flows into the
 //     base (VB ≤ V_TH), R1 dissipates at least (|VCC| − VB)·VB/R2; VB lies
 //     between VBE_lo + IC_lo·RE and VBE_hi + IC_hi·k·RE, with VBE bounded

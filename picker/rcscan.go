@@ -134,12 +134,18 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 	// allowance where that is over use, the utilization floor in base
 	// (bound U-RC per level; not monotone in RC, so it only skips the
 	// level).
+	dv := &e.devs[di]
+	qUse := func(rc int, icLo, icHi float64) float64 {
+		return e.transistorUseAtRC(dv, e.vs.levels[rc].ohm, reOhm, kE, icLo, icHi)
+	}
 	own := func(rc int) float64 {
-		ic := icDn
+		ic, uQ := icDn, 0.0
 		if thr := p.threshold(); w.QPoint > 0 && !math.IsInf(thr, 1) {
-			ic = max(ic, e.boundsWithin(thr, (thr-base)/w.QPoint).icLo)
+			win := e.boundsWithin(thr, (thr-base)/w.QPoint)
+			ic = max(ic, win.icLo)
+			uQ = qUse(rc, ic, min(icUp, win.icHi))
 		}
-		return base + e.partsFloor(rc) + w.Utilization*max(0, e.levelUseFloor(rc, ic)-use)
+		return base + e.partsFloor(rc) + w.Utilization*max(0, max(e.levelUseFloor(rc, ic), uQ)-use)
 	}
 	singles := e.singlesOnly(base, p.threshold()) // bound P: probe singles only
 	split := e.vs.firstIn(rcLo, rcHi, *guess, singles, func(rc int) bool { return tup(rc).vceAtMost(vceHi) })
@@ -148,6 +154,14 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		rcOhm := e.vs.levels[rc].ohm
 		if vceMin := vcc - icUp*(rcOhm+kE*reOhm); base+w.QPoint*(vceMin-vceHi)/vcc > p.threshold() {
 			break
+		}
+		if thr := p.threshold(); w.QPoint > 0 && !math.IsInf(thr, 1) {
+			// bound U-Q at the level (transistorUseAtRC) only rises
+			// going down
+			win := e.boundsWithin(thr, (thr-base)/w.QPoint)
+			if base+w.Utilization*max(0, qUse(rc, max(icDn, win.icLo), min(icUp, win.icHi))-use) > thr {
+				break
+			}
 		}
 		if e.vs.levels[rc].pairOnly && e.singlesOnly(base, p.threshold()) {
 			rc = e.vs.prevSingle[rc] + 1 // bound P: no room for a pair in RC

@@ -28,6 +28,12 @@ func (e *evaluator) scoreVariants(t *tuple, p *pool, keep func(*evaluated), cnt 
 	// combinations with at most maxPairs pairs are formed: a level's
 	// singles come first in its stock, and a kept part is one part.
 	base, thr := e.s.w.QPoint*t.q+e.s.w.Emitter*t.em, p.threshold()
+	// bound U-Q at the tuple: the transistor's utilization is the same
+	// for every combination and part of each one's (scoreOne's second
+	// check, with the same terms)
+	if base+e.s.w.Utilization*e.transistorUse(&e.devs[t.c.dev], t.op) > thr {
+		return
+	}
 	maxPairs := 0
 	if e.s.w.Parts <= 0 {
 		maxPairs = n
