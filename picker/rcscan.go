@@ -128,22 +128,32 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		}
 	}
 	// own is base with an RC level's own floors before it is solved:
-	// its parts floor (bound P) and, as it carries IC ≥ icDn (active
-	// builds) and IC ≥ IC_t(1 − d) (a build with less has a QPoint term
-	// over d = (T − base)/w_QPoint), its utilization over its own best
-	// allowance where that is over use, the utilization floor in base
-	// (bound U-RC per level; not monotone in RC, so it only skips the
-	// level).
+	// its parts floor (bound P) and its utilization where that is over
+	// use, the utilization floor in base: the level's own, as it carries
+	// IC ≥ icDn (active builds) and IC ≥ IC_t(1 − d) (a build with less
+	// has a QPoint term over d = (T − base)/w_QPoint), over its own best
+	// allowance (bound U-RC per level; not monotone in RC, so it only
+	// skips the level), and the transistor's (bound U-Q at the level,
+	// transistorUseAtRC) with IC in that window.
 	dv := &e.devs[di]
+	// window is the IC range of every build that can enter: within the
+	// envelope [icDn, icUp] and within d of the target (false while the
+	// threshold is +Inf).
+	window := func() (icLo, icHi float64, ok bool) {
+		thr := p.threshold()
+		if w.QPoint <= 0 || math.IsInf(thr, 1) {
+			return icDn, icUp, false
+		}
+		win := e.boundsWithin(thr, (thr-base)/w.QPoint)
+		return max(icDn, win.icLo), min(icUp, win.icHi), true
+	}
 	qUse := func(rc int, icLo, icHi float64) float64 {
 		return e.transistorUseAtRC(dv, e.vs.levels[rc].ohm, reOhm, kE, icLo, icHi)
 	}
 	own := func(rc int) float64 {
 		ic, uQ := icDn, 0.0
-		if thr := p.threshold(); w.QPoint > 0 && !math.IsInf(thr, 1) {
-			win := e.boundsWithin(thr, (thr-base)/w.QPoint)
-			ic = max(ic, win.icLo)
-			uQ = qUse(rc, ic, min(icUp, win.icHi))
+		if lo, hi, ok := window(); ok {
+			ic, uQ = lo, qUse(rc, lo, hi)
 		}
 		return base + e.partsFloor(rc) + w.Utilization*max(0, max(e.levelUseFloor(rc, ic), uQ)-use)
 	}
@@ -155,13 +165,9 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		if vceMin := vcc - icUp*(rcOhm+kE*reOhm); base+w.QPoint*(vceMin-vceHi)/vcc > p.threshold() {
 			break
 		}
-		if thr := p.threshold(); w.QPoint > 0 && !math.IsInf(thr, 1) {
-			// bound U-Q at the level (transistorUseAtRC) only rises
-			// going down
-			win := e.boundsWithin(thr, (thr-base)/w.QPoint)
-			if base+w.Utilization*max(0, qUse(rc, max(icDn, win.icLo), min(icUp, win.icHi))-use) > thr {
-				break
-			}
+		// bound U-Q at the level only rises going down
+		if lo, hi, ok := window(); ok && base+w.Utilization*max(0, qUse(rc, lo, hi)-use) > p.threshold() {
+			break
 		}
 		if e.vs.levels[rc].pairOnly && e.singlesOnly(base, p.threshold()) {
 			rc = e.vs.prevSingle[rc] + 1 // bound P: no room for a pair in RC

@@ -22,11 +22,6 @@ func (e *evaluator) scoreVariants(t *tuple, p *pool, keep func(*evaluated), cnt 
 		return
 	}
 	n := e.lay.n
-	// bound P: a combination with more positions filled by a pair than
-	// the threshold leaves room for, with the terms already known, cannot
-	// enter (scoreOne's first check, with the same sum), so only the
-	// combinations with at most maxPairs pairs are formed: a level's
-	// singles come first in its stock, and a kept part is one part.
 	base, thr := e.s.w.QPoint*t.q+e.s.w.Emitter*t.em, p.threshold()
 	// bound U-Q at the tuple: the transistor's utilization is the same
 	// for every combination and part of each one's (scoreOne's second
@@ -34,6 +29,11 @@ func (e *evaluator) scoreVariants(t *tuple, p *pool, keep func(*evaluated), cnt 
 	if base+e.s.w.Utilization*e.transistorUse(&e.devs[t.c.dev], t.op) > thr {
 		return
 	}
+	// bound P: a combination with more positions filled by a pair than
+	// the threshold leaves room for, with the terms already known, cannot
+	// enter (scoreOne's first check, with the same sum), so only the
+	// combinations with at most maxPairs pairs are formed: a level's
+	// singles come first in its stock, and a kept part is one part.
 	maxPairs := 0
 	if e.s.w.Parts <= 0 {
 		maxPairs = n
