@@ -737,3 +737,78 @@ func TestFeedbackICWindowHoldsTheSublevelSet(t *testing.T) {
 	}
 	t.Logf("%d windows checked, %d narrowed", checked, narrowed)
 }
+
+// TestICFloorHoldsAcrossBands checks valueSet.icFloor and bandFloor.covers
+// against the exact self-heated solutions (solver.SolveSelfHeated is the
+// reference) of every RC level of random divider bands: icFloor's IC is
+// at most the IC of every build in the band that can pass (any false only
+// when there is none), and a floor taken at one R2 holds at a larger R2 for
+// every band it covers. The stock is E24 10 Ω–1 MΩ (IEC 60063:2015,
+// Table 1) with six transistor types at 12 V, where small R1 and large
+// RC saturate often, and the window's top icHi is drawn so that a band
+// saturated at its top but active at its bottom under icHi occurs (the
+// case where IC at the bottom is no floor).
+func TestICFloorHoldsAcrossBands(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}
+	s, err := normalize(Request{VCC_V: 12, IC_A: 1e-3})
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, _ := newEvaluator(s, st, solver.Divider)
+	n := len(e.vs.levels)
+	rng := rand.New(rand.NewPCG(7, 12))
+	// floorOf is the least IC of the band's builds that can pass (+Inf:
+	// none): active at the nominal point with VCE at least VCE(sat) plus
+	// the margin (the premise of the bounds; nearer saturation IC may
+	// fall as the drive grows, and such a build fails its bench limit)
+	floorOf := func(di, r1, r2, re, lo, hi int) float64 {
+		f := math.Inf(1)
+		for rc := lo; rc <= hi; rc++ {
+			a := e.newTuple(di, [maxPos]int{r1, r2, rc, re})
+			if a.ok && a.op.Region == solver.Active && a.op.VCE_V >= e.devs[di].vceSat+e.s.lim.VCEMargin_V {
+				f = min(f, a.op.IC_A)
+			}
+		}
+		return f
+	}
+	bottomOnly, covered, checked := 0, 0, 0
+	for range 1500 {
+		di := rng.IntN(len(e.devs))
+		r1, r2, re := rng.IntN(n), rng.IntN(n-8), rng.IntN(n/2)
+		lo := rng.IntN(n - 12)
+		hi := lo + rng.IntN(12)
+		probe := func(rc int) *tuple { return e.newTuple(di, [maxPos]int{r1, r2, rc, re}) }
+		bot := probe(lo)
+		icHi := 10 * e.s.icT
+		if bot.ok && bot.op.Region != solver.Saturation && rng.IntN(2) == 0 {
+			icHi = bot.op.IC_A * 1.01 // the bottom is under the window's top
+		}
+		ic, any := e.vs.icFloor(probe, lo, hi, icHi, false)
+		truth := floorOf(di, r1, r2, re, lo, hi)
+		checked++
+		if !math.IsInf(truth, 1) && (!any || ic > truth*(1+1e-12)) {
+			t.Fatalf("icFloor (%g, %v) over RC %d..%d at R1 %d, R2 %d, RE %d; least active IC %g", ic, any, lo, hi, r1, r2, re, truth)
+		}
+		if top := probe(hi); top.ok && top.op.Region == solver.Saturation && bot.ok && bot.op.Region != solver.Saturation && bot.op.IC_A <= icHi {
+			bottomOnly++
+		}
+		if !any {
+			ic = math.Inf(1)
+		}
+		f := bandFloor{ic: ic, rcLo: lo, rcHi: hi}
+		// a larger R2 and a band moved by up to three levels each way
+		r2b := r2 + 1 + rng.IntN(7)
+		lob, hib := max(0, lo+rng.IntN(7)-3), min(n-1, hi+rng.IntN(7)-3)
+		if lob > hib || !f.covers(lob, hib, false) {
+			continue
+		}
+		covered++
+		if truth := floorOf(di, r1, r2b, re, lob, hib); f.ic > truth*(1+1e-12) {
+			t.Errorf("floor %g of RC %d..%d at R2 %d over the least active IC %g of RC %d..%d at R2 %d (R1 %d, RE %d)", f.ic, lo, hi, r2, truth, lob, hib, r2b, r1, re)
+		}
+	}
+	if bottomOnly == 0 || covered < checked/4 {
+		t.Errorf("%d bands saturated at the top and active under icHi at the bottom, %d of %d floors carried: the test does not reach its cases", bottomOnly, covered, checked)
+	}
+	t.Logf("%d bands, %d saturated at the top with the bottom under icHi, %d floors carried to a larger R2", checked, bottomOnly, covered)
+}

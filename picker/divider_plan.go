@@ -21,7 +21,8 @@ type dividerPlan struct {
 	// splitGuess is where the last RC scan split (a start for the next)
 	splitGuess int
 	// per-RE memos of searchRE, kept to reuse their storage
-	upSeen, floorSeen map[int]float64
+	upSeen    map[int]float64
+	floorSeen map[int]bandFloor
 	// seeds orders the devices and each device's RE levels from its
 	// best seed
 	seeds seedOrder

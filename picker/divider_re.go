@@ -18,10 +18,11 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	guessLo, guessHi := n/2, n/2
 	var vbeLo, vbeHi, lastThr float64
 	// upSeen and floorSeen hold, per R1 level, the IC at the band's bottom RC and the
-	// IC floor seen at the last R2 probed: lower bounds at every larger R2
-	// (IC rises with R2; the band only narrows, raising the floor).
+	// IC floor over the band seen at the last R2 probed: lower bounds at
+	// every larger R2 (IC rises with R2), the floor for a band whose RC
+	// levels are among those it was taken over (floorSeen).
 	if d.upSeen == nil {
-		d.upSeen, d.floorSeen = map[int]float64{}, map[int]float64{}
+		d.upSeen, d.floorSeen = map[int]float64{}, map[int]bandFloor{}
 	}
 	upSeen, floorSeen := d.upSeen, d.floorSeen
 	clear(upSeen)
@@ -236,14 +237,14 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 			// (most visits near the threshold, whose IC window is narrower
 			// than one R1 step) at the cost of one probe.
 			r1Lo = e.vs.firstIn(0, r1Hi, guessLo, singles, func(i int) bool {
-				if v, ok := floorSeen[i]; ok && v > icHi {
+				if f, ok := floorSeen[i]; ok && f.ic > icHi && f.covers(rcLo, rcHi, rcSingles) {
 					return false
 				}
 				ic, any := e.vs.icFloor(func(rc int) *tuple { return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt) }, rcLo, rcHi, icHi, rcSingles)
 				if !any {
 					ic = math.Inf(1)
 				}
-				floorSeen[i] = ic
+				floorSeen[i] = bandFloor{ic: ic, rcLo: rcLo, rcHi: rcHi, singles: rcSingles}
 				return any && ic <= icHi
 			})
 			guessLo, guessHi = r1Lo, r1Hi+1
@@ -296,3 +297,22 @@ const r1Block = 8
 // r2Block is how many R2 levels share one beta floor in searchRE (the
 // floor over the block's R_TH range is a floor at each of its levels).
 const r2Block = 8
+
+// bandFloor is an IC floor over the builds of an RC band at one R1 and R2
+// level (valueSet.icFloor): at most the IC of every build in the band
+// active at its nominal point, +Inf when none is active.
+type bandFloor struct {
+	ic         float64
+	rcLo, rcHi int  // the band
+	singles    bool // taken over the band's singles alone
+}
+
+// covers reports whether the floor bounds from below the active builds of
+// the band [rcLo, rcHi] (singles alone with singles) at this R1 and a
+// larger R2 (IC rises with R2, L1). A band reaching higher, or holding
+// pairs where the floor's held singles alone, may have an active build
+// with less IC; one reaching lower only adds builds with more IC (L2),
+// unless none was active (+Inf): a smaller RC may be.
+func (f bandFloor) covers(rcLo, rcHi int, singles bool) bool {
+	return rcHi <= f.rcHi && (singles || !f.singles) && (!math.IsInf(f.ic, 1) || rcLo >= f.rcLo)
+}

@@ -58,13 +58,14 @@ func (vs *valueSet) icFloor(probe func(rc int) *tuple, rcLo, rcHi int, icHi floa
 	// Saturated at the top of the band. If the bottom is saturated too,
 	// so is every band RC; if the bottom is active with IC at most icHi,
 	// the floor (IC at the last active RC, at most IC at the bottom) is
-	// too, which is all the caller asks.
+	// too, which is all the caller asks: 0 stands for it then, a floor
+	// still (IC at the bottom is not one, and a caller may keep it).
 	if bot := probe(rcLo); bot.ok {
 		if bot.op.Region == solver.Saturation {
 			return 0, false
 		}
 		if bot.op.IC_A <= icHi {
-			return bot.op.IC_A, true
+			return 0, true
 		}
 	}
 	// first band RC that saturates; the one below it is the last active
