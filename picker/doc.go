@@ -154,6 +154,10 @@
 // plus w_Parts. Each loop adds the parts floors of the positions it has
 // fixed to the floors it compares with T, and where floor + w_Parts
 // exceeds T it visits only the levels holding a single (see "Pairs").
+// scoreVariants forms only the value combinations of a level tuple with
+// at most as many pairs as T leaves room for over its exact QPoint and
+// emitter terms (a wall with pairs may hold dozens of values per level,
+// so most combinations would fail that check).
 //
 // TestSearchMatchesExhaustive compares every plan with the exhaustive
 // evaluation on random stocks, TestPairsMatchExhaustive on E96 sub-walls
@@ -277,7 +281,10 @@
 //     between VBE_lo + IC_lo·RE and VBE_hi + IC_hi·k·RE, with VBE bounded
 //     from the device model (vbeBounds). R2 levels below the first one
 //     this weaker-with-the-best-allowance bound admits are skipped by
-//     bisection (the bound falls with R2).
+//     bisection (the bound falls with R2); where the per-level bound
+//     settles a pair-only level, the weak bound at the last pair-only
+//     level before the next single (with the run's parts floor) may
+//     settle the whole run at once.
 //   - B: betaFloor (betafloor.go) bounds the beta term from below. It
 //     writes the base loop of the hFE-min, typical and hFE-max points as
 //     V_TH − VBE = IC·g(β) and bounds every quantity that differs between
