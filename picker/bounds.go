@@ -140,6 +140,33 @@ func (e *evaluator) transistorUse(dv *device, op solver.OperatingPoint) float64 
 	return op.PTransistor_W / dv.allowHot
 }
 
+// rcQPointUseFloor is a joint floor on w_QPoint·q + w_Utilization·max(0,
+// U − use) for a build whose IC lies in [lo, hi] and whose RC, of
+// resistance rcOhm and best allowance allow, carries IC (divider, split
+// supply): q ≥ |IC − IC_t|/IC_t and U ≥ IC²·RC/allow. The two pull IC
+// apart (a lower IC eases RC and moves off the target), so the floor is
+// the least of their sum over the window, a convex function of IC whose
+// least lies at an end, at a kink (IC_t, or where RC's utilization
+// reaches use) or where its slope is 0 (IC = w_QPoint·allow/(2
+// w_Utilization·RC·IC_t)); per term, the floors at the window's ends
+// are weaker.
+func (e *evaluator) rcQPointUseFloor(rcOhm, allow, use, lo, hi float64) float64 {
+	w, it := e.s.w, e.s.icT
+	if lo > hi || allow <= 0 || rcOhm <= 0 {
+		return 0
+	}
+	f := func(ic float64) float64 {
+		return w.QPoint*math.Abs(ic-it)/it + w.Utilization*max(0, ic*ic*rcOhm/allow-use)
+	}
+	least := min(f(lo), f(hi))
+	for _, x := range []float64{it, math.Sqrt(use * allow / rcOhm), w.QPoint * allow / (2 * w.Utilization * rcOhm * it)} {
+		if x > lo && x < hi {
+			least = min(least, f(x))
+		}
+	}
+	return least
+}
+
 // transistorUseAtRC is bound U-Q at an RC level before it is solved, for
 // a topology whose VCE is span − IC·RC − IE·RE (scanRC's): the transistor
 // dissipates at least IC·VCE, and a build with IC in [icLo, icHi], active

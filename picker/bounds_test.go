@@ -444,12 +444,40 @@ func checkTransistorUse(t *testing.T, e *evaluator, dv *device, a *tuple) {
 		if f := e.transistorUseAtRC(dv, rc, re, kE, a.op.IC_A, a.op.IC_A); f > use*(1+1e-9) {
 			t.Errorf("%v: U-Q floor at RC %g over the transistor's utilization %g (VCE %g, IC %g)", a.r, f, use, a.op.VCE_V, a.op.IC_A)
 		}
+		checkRCQPointUse(t, e, a, rc)
 	}
 	vceLo, _ := e.targetBand(dv)
 	for _, other := range []float64{0, 0.02} {
 		bd := bounds{thr: e.s.w.QPoint*a.q + other, icLo: a.op.IC_A, finite: true}
 		if f := e.transistorUseFloor(dv, bd, vceLo, other); f > use*(1+1e-9) {
 			t.Errorf("%v: U-Q floor %g over the transistor's utilization %g (VCE %g, IC %g)", a.r, f, use, a.op.VCE_V, a.op.IC_A)
+		}
+	}
+}
+
+// checkRCQPointUse checks rcQPointUseFloor against a divider or
+// split-supply build's exact QPoint term and RC utilization (its level's
+// best allowance), for IC windows around the build's IC and utilization
+// floors from 0 to well over RC's, where the floor's least lies at an
+// end, at a kink or inside. Builds under 1 mA on a heavy RC are rare, so
+// the utilization weight is raised for part of the checks (the floor is
+// per weight).
+func checkRCQPointUse(t *testing.T, e *evaluator, a *tuple, rcOhm float64) {
+	t.Helper()
+	lv := a.c.lv[e.lay.rc]
+	allow := e.vs.levels[lv].allowHot_W
+	ic := a.op.IC_A
+	uRC := ic * ic * rcOhm / allow
+	for _, wu := range []float64{e.s.w.Utilization, 40, 4000} {
+		f := *e
+		f.s.w.Utilization = wu
+		for _, use := range []float64{0, uRC / 2, uRC * 0.99, uRC * 2} {
+			exact := f.s.w.QPoint*a.q + wu*max(0, uRC-use)
+			for _, win := range [][2]float64{{ic, ic}, {ic * 0.5, ic * 2}, {ic * 0.9, ic * 1.01}, {ic * 0.2, ic}} {
+				if got := f.rcQPointUseFloor(rcOhm, allow, use, win[0], win[1]); got > exact*(1+1e-9)+1e-15 {
+					t.Errorf("%v: QPoint and RC utilization floor %g over the exact %g (w_U %g, use %g, IC %g in [%g, %g])", a.r, got, exact, wu, use, ic, win[0], win[1])
+				}
+			}
 		}
 	}
 }

@@ -273,7 +273,11 @@
 //     with VCE ≥ span − IC_hi·(RC + kE·RE) (transistorUseAtRC: it rises
 //     as RC falls, so going down it ends the scan), and scoreVariants
 //     takes the exact one (transistorUse) once per level tuple, not per
-//     value combination; TestBoundsHoldOnRandomBuilds and
+//     value combination. The RC scan's level floor also takes the
+//     QPoint term's IC part and RC's utilization together
+//     (rcQPointUseFloor): a lower IC eases RC but moves off the target,
+//     and the least of their sum over the IC window is over the sum of
+//     their floors at the window's ends; TestBoundsHoldOnRandomBuilds and
 //     TestOtherTopologyBoundsHold check all three against the exact point
 //     of random builds and EvalDissipation.
 //   - U-R2: R2 dissipates VB²/R2 and, since base current flows into the

@@ -152,11 +152,12 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		return e.transistorUseAtRC(dv, e.vs.levels[rc].ohm, reOhm, kE, icLo, icHi)
 	}
 	own := func(rc int) float64 {
-		ic, uQ := icDn, 0.0
+		ic, uQ, joint := icDn, 0.0, 0.0
 		if lo, hi, ok := window(); ok {
 			ic, uQ = lo, qUse(rc, lo, hi)
+			joint = e.rcQPointUseFloor(e.vs.levels[rc].ohm, e.vs.levels[rc].allowHot_W, use, lo, hi)
 		}
-		return base + e.partsFloor(rc) + w.Utilization*max(0, max(e.levelUseFloor(rc, ic), uQ)-use)
+		return base + e.partsFloor(rc) + max(w.Utilization*max(0, max(e.levelUseFloor(rc, ic), uQ)-use), joint)
 	}
 	singles := e.singlesOnly(base, p.threshold()) // bound P: probe singles only
 	split := e.vs.firstIn(rcLo, rcHi, *guess, singles, func(rc int) bool { return tup(rc).vceAtMost(vceHi) })
