@@ -47,16 +47,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 		}
 		r := &topoRun{e: e, fl: finalists{e: e, k: s.top}, size: s.pool, rounds: 1}
 		p := newPool(s.pool, !s.req.ShowAll)
-		if len(e.devs) > 0 && len(e.vs.levels) > 0 {
-			if s.req.Exhaustive {
-				e.exhaustive(p, &r.cnt)
-			} else {
-				r.pl = planFor(e)
-				r.pl.seed(p, &r.cnt)
-				e.polish(p, &r.cnt)
-				r.pl.search(p, &r.cnt)
-			}
-		}
+		r.pl = e.firstSearch(p, &r.cnt, s.req.Exhaustive)
 		if err := r.rank(p); err != nil {
 			return Result{}, err
 		}
@@ -536,4 +527,23 @@ func (e *evaluator) id(c combo) string {
 	}
 	h := sha256.Sum256([]byte(sb.String()))
 	return "b" + hex.EncodeToString(h[:6])
+}
+
+// firstSearch fills p with the stock's best builds by the score without
+// the yield term: the exhaustive evaluation, or the plan's seed, polish
+// and branch and bound, whose plan it returns for later rounds (nil for
+// the exhaustive one, or with no transistor or value to search).
+func (e *evaluator) firstSearch(p *pool, cnt *counters, exhaustive bool) plan {
+	if len(e.devs) == 0 || len(e.vs.levels) == 0 {
+		return nil
+	}
+	if exhaustive {
+		e.exhaustive(p, cnt)
+		return nil
+	}
+	pl := planFor(e)
+	pl.seed(p, cnt)
+	e.polish(p, cnt)
+	pl.search(p, cnt)
+	return pl
 }

@@ -250,16 +250,7 @@ func matchExhaustivePool(t *testing.T, st Stock, req Request) {
 		e, _ := newEvaluator(s, st, req.Topology)
 		p := newPool(s.pool, true)
 		var cnt counters
-		if len(e.devs) > 0 && len(e.vs.levels) > 0 {
-			if i == 0 {
-				pl := planFor(e)
-				pl.seed(p, &cnt)
-				e.polish(p, &cnt)
-				pl.search(p, &cnt)
-			} else {
-				e.exhaustive(p, &cnt)
-			}
-		}
+		e.firstSearch(p, &cnt, i == 1)
 		pools[i] = p
 	}
 	fast, full := pools[0].items, pools[1].items
