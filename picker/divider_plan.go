@@ -33,11 +33,13 @@ func (d *dividerPlan) tuple(dev int, lv [maxPos]int, cnt *counters) *tuple {
 	return d.cache.get(d.e, dev, lv, cnt)
 }
 
-// seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2,
-// 0.3, 0.4 and 0.05 of VCC; R_TH = 0.1, 0.03 and 0.3 (hFE min + 1)·RE with
-// VBE 0.65 V (common practice); R1 then set by a search for the target
-// current, RC for the target VCE, and the 3×3 R1, RC levels around them
-// scored. Like polish it changes only the order of the search.
+// seed evaluates, for every device, hand-method builds: VE = 0.05, 0.1,
+// 0.15, 0.2, 0.25, 0.3 and 0.4 of VCC; R_TH = 0.1, 0.03 and 0.3 (hFE min
+// + 1)·RE with VBE 0.65 V (common practice); R1 then set by a search for
+// the target current, RC for the target VCE, and the 3×3 R1, RC levels
+// around them scored; with pairs, once more with every level snapped to
+// one holding a single (valueSet.seedSnaps). Like polish it changes only
+// the order of the search.
 func (d *dividerPlan) seed(p *pool, cnt *counters) {
 	e := d.e
 	seedByDevice(e, &d.seeds, cnt, func() *dividerPlan { return &dividerPlan{e: e, seeds: d.seeds} },
@@ -51,29 +53,30 @@ func (d *dividerPlan) seedDevice(p *pool, cnt *counters, di int) {
 	d.cache.reset()
 	dv := &e.devs[di]
 	_, vceHi := e.targetBand(dv)
-	for _, veShare := range []float64{0.1, 0.2, 0.3, 0.4, 0.05} {
-		for _, stiff := range []float64{0.1, 0.03, 0.3} {
-			ve := e.s.vcc * veShare
-			re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
-			rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
-			rth := stiff * (dv.hfeMin + 1) * e.vs.levels[re].ohm
-			vb := ve + 0.65
-			r2 := clampLevel(e.vs.levelAtOrAbove(rth*e.s.vcc/(e.s.vcc-vb)), n)
-			// R1: first level whose IC is at or below the target.
-			r1 := firstLevel(n, func(i int) bool {
-				return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt).icAtMost(e.s.icT)
-			})
-			r1 = clampLevel(r1, n)
-			rc = firstLevel(n, func(i int) bool {
-				return d.tuple(di, [maxPos]int{r1, r2, i, re}, cnt).vceSolvedAtMost(vceHi)
-			})
-			for a := max(r1-1, 0); a <= min(r1+1, n-1); a++ {
-				for c := max(rc-1, 0); c <= min(rc+1, n-1); c++ {
+	for _, singles := range e.vs.seedSnaps() {
+		for _, veShare := range []float64{0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.4} {
+			for _, stiff := range []float64{0.1, 0.03, 0.3} {
+				ve := e.s.vcc * veShare
+				re := clampLevel(e.vs.up(e.vs.levelAtOrAbove(ve/e.s.icT), singles), n)
+				rc := clampLevel(e.vs.up(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), singles), n)
+				rth := stiff * (dv.hfeMin + 1) * e.vs.levels[re].ohm
+				vb := ve + 0.65
+				r2 := clampLevel(e.vs.up(e.vs.levelAtOrAbove(rth*e.s.vcc/(e.s.vcc-vb)), singles), n)
+				// R1: first level whose IC is at or below the target.
+				r1 := e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool {
+					return d.tuple(di, [maxPos]int{i, r2, rc, re}, cnt).icAtMost(e.s.icT)
+				})
+				r1 = clampLevel(r1, n)
+				rc = e.vs.firstIn(0, n-1, rc, singles, func(i int) bool {
+					return d.tuple(di, [maxPos]int{r1, r2, i, re}, cnt).vceSolvedAtMost(vceHi)
+				})
+				rc = clampLevel(rc, n)
+				e.vs.eachAround(r1, rc, singles, func(a, c int) {
 					e.scoreVariants(d.tuple(di, [maxPos]int{a, r2, c, re}, cnt), p, func(ev *evaluated) {
 						d.seeds.note(di, re, ev)
 						p.add(ev)
 					}, cnt)
-				}
+				})
 			}
 		}
 	}

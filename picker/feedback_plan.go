@@ -189,11 +189,13 @@ func (f *feedbackPlan) gridIC(di, g, rf int, cnt *counters) float64 {
 	return v
 }
 
-// seed evaluates, for every device, hand-method builds: VE = 0.1, 0.2
-// and 0.05 of VCC, RE = VE/IC, RC for the target VCE, RF by a search for
-// the target current (then RC and RF once more), and the 3×3 RF, RC
+// seed evaluates, for every device, hand-method builds: VE = 0.05, 0.1,
+// 0.15 and 0.2 of VCC, RE = VE/IC, RC for the target VCE, RF by a search
+// for the target current (then RC and RF once more), and the 3×3 RF, RC
 // levels around them; when even the largest RF leaves IC over the target,
-// also the 3×3 around it and the RC that brings IC to the target. It changes only the order of the search.
+// also the 3×3 around it and the RC that brings IC to the target; with
+// pairs, all of it once more with every level snapped to one holding a
+// single (valueSet.seedSnaps). It changes only the order of the search.
 func (f *feedbackPlan) seed(p *pool, cnt *counters) {
 	e := f.e
 	seedByDevice(e, &f.seeds, cnt, func() *feedbackPlan { return &feedbackPlan{e: e, seeds: f.seeds} },
@@ -206,30 +208,30 @@ func (f *feedbackPlan) seedDevice(p *pool, cnt *counters, di int) {
 	n := len(e.vs.levels)
 	f.cache.reset()
 	_, vceHi := e.targetBand(&e.devs[di])
-	for _, veShare := range []float64{0.1, 0.2, 0.05} {
-		ve := e.s.vcc * veShare
-		re := clampLevel(e.vs.levelAtOrAbove(ve/e.s.icT), n)
-		rc := clampLevel(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), n)
-		var rf int
-		for range 2 {
-			rf = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(e.s.icT) }), n)
-			rc = clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceSolvedAtMost(vceHi) }), n)
-		}
-		starts := [][2]int{{rf, rc}}
-		if rf == n-1 {
-			// the largest RF cannot bring IC down to the target:
-			// RC then sets the current instead (at the cost of VCE)
-			rcIC := clampLevel(firstLevel(n, func(i int) bool { return f.tuple(di, rf, i, re, cnt).icAtMost(e.s.icT) }), n)
-			starts = append(starts, [2]int{rf, rcIC})
-		}
-		for _, s := range starts {
-			for a := max(s[0]-1, 0); a <= min(s[0]+1, n-1); a++ {
-				for c := max(s[1]-1, 0); c <= min(s[1]+1, n-1); c++ {
+	for _, singles := range e.vs.seedSnaps() {
+		for _, veShare := range []float64{0.05, 0.1, 0.15, 0.2} {
+			ve := e.s.vcc * veShare
+			re := clampLevel(e.vs.up(e.vs.levelAtOrAbove(ve/e.s.icT), singles), n)
+			rc := clampLevel(e.vs.up(e.vs.levelAtOrAbove((e.s.vcc-vceHi-ve)/e.s.icT), singles), n)
+			var rf int
+			for range 2 {
+				rf = clampLevel(e.vs.firstIn(0, n-1, n/2, singles, func(i int) bool { return f.tuple(di, i, rc, re, cnt).icAtMost(e.s.icT) }), n)
+				rc = clampLevel(e.vs.firstIn(0, n-1, rc, singles, func(i int) bool { return f.tuple(di, rf, i, re, cnt).vceSolvedAtMost(vceHi) }), n)
+			}
+			starts := [][2]int{{rf, rc}}
+			if rf == n-1 {
+				// the largest RF cannot bring IC down to the target:
+				// RC then sets the current instead (at the cost of VCE)
+				rcIC := clampLevel(e.vs.firstIn(0, n-1, rc, singles, func(i int) bool { return f.tuple(di, rf, i, re, cnt).icAtMost(e.s.icT) }), n)
+				starts = append(starts, [2]int{rf, rcIC})
+			}
+			for _, s := range starts {
+				e.vs.eachAround(s[0], s[1], singles, func(a, c int) {
 					e.scoreVariants(f.tuple(di, a, c, re, cnt), p, func(ev *evaluated) {
 						f.seeds.note(di, re, ev)
 						p.add(ev)
 					}, cnt)
-				}
+				})
 			}
 		}
 	}

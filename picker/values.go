@@ -248,6 +248,32 @@ func (vs *valueSet) firstIn(lo, hi, guess int, singles bool, f func(int) bool) i
 	return vs.singleLevels[a+k]
 }
 
+// seedSnaps lists the ways a plan's seed takes its levels: as the hand
+// method puts them (false) and, when some level holds only pairs, also
+// snapped to levels holding a single (true). A pair costs a placement
+// (bound P), so the best builds of a wall with pairs mostly hold singles,
+// and seeds among pairs alone leave the threshold high for long.
+func (vs *valueSet) seedSnaps() []bool {
+	if len(vs.singleLevels) == len(vs.levels) {
+		return []bool{false}
+	}
+	return []bool{false, true}
+}
+
+// eachAround calls fn on every pair of levels (a, c) with a among level
+// x and the levels next to it below and above, and c the same for y (with
+// singles, the nearest levels holding a single): the 3×3 a seed scores.
+func (vs *valueSet) eachAround(x, y int, singles bool, fn func(a, c int)) {
+	around := func(i int) [3]int { return [3]int{vs.down(i-1, singles), i, vs.up(i+1, singles)} }
+	for _, a := range around(x) {
+		for _, c := range around(y) {
+			if a >= 0 && a < len(vs.levels) && c >= 0 && c < len(vs.levels) {
+				fn(a, c)
+			}
+		}
+	}
+}
+
 // partsFloor is the least parts term (extra parts) of any value of level i.
 func (vs *valueSet) partsFloor(i int) float64 {
 	if vs.levels[i].pairOnly {
