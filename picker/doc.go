@@ -121,9 +121,14 @@
 // values of one level share one nominal point) and level tuples, one
 // level per position. Request.Exhaustive solves the nominal point of
 // every level tuple and scores every build. The default search first
-// scores a few hand-method builds per device (the plan's seed) and
-// hill-climbs from the best (order only, shared by every topology), then
-// runs the plan's branch and bound.
+// scores a few hand-method builds per device (the plan's seed; with
+// pairs, also with every level snapped to one holding a single) and
+// hill-climbs from the best (order only, shared by every topology); with
+// pairs, it then runs the whole search over single parts alone and scores
+// the level tuples of the builds that search keeps (singlesFirst: a pair
+// costs a placement, so the best builds mostly hold singles, and the far
+// larger search over pairs starts from a threshold near its last one);
+// then it runs the plan's branch and bound.
 //
 // # How a topology plugs in
 //

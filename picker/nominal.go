@@ -22,6 +22,9 @@ type evaluator struct {
 	kept    [maxPos]bool
 	keepLv  [maxPos]int
 	keepOne [maxPos][]int
+	// stock is the stock it was made from (singlesFirst makes an
+	// evaluator of its singles alone).
+	stock Stock
 }
 
 // tuple holds what depends only on the device and the level tuple.

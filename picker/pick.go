@@ -219,7 +219,7 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 	}
 	devs, rejected := s.transistorCandidates(stock.Transistors, lay.split)
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
-	e := &evaluator{s: s, lay: lay, vs: &vs, devs: devs, span: span}
+	e := &evaluator{s: s, lay: lay, vs: &vs, devs: devs, span: span, stock: stock}
 	e.pinKept(at)
 	e.setLabelGroups()
 	for i := range e.devs {
@@ -544,6 +544,45 @@ func (e *evaluator) firstSearch(p *pool, cnt *counters, exhaustive bool) plan {
 	pl := planFor(e)
 	pl.seed(p, cnt)
 	e.polish(p, cnt)
+	e.singlesFirst(p, cnt)
 	pl.search(p, cnt)
 	return pl
+}
+
+// singlesFirst, when some level holds only pairs and a pair costs a
+// placement, runs the whole search over the builds of single parts alone
+// (an evaluator of the stock without pairs, with a pool of its own that
+// starts from p's threshold) and scores here the level tuples of the
+// builds it keeps. A pair costs a placement, so the best builds mostly
+// hold singles, and the search over pairs, far larger, starts from a
+// threshold near its last one. Like the seeds it changes only the order
+// of the search.
+func (e *evaluator) singlesFirst(p *pool, cnt *counters) {
+	if e.s.w.Parts <= 0 || len(e.vs.singleLevels) == len(e.vs.levels) {
+		return
+	}
+	s := e.s
+	s.req.Pairs, s.req.Progress = false, nil
+	se, _ := newEvaluator(s, e.stock, e.lay.topo)
+	if len(se.devs) != len(e.devs) || len(se.vs.levels) == 0 {
+		return
+	}
+	sp := newRoundPool(p.size, p.fold, p.threshold(), true, nil)
+	pl := planFor(se)
+	pl.seed(sp, cnt)
+	se.polish(sp, cnt)
+	pl.search(sp, cnt)
+	var tc tupleCache
+	for _, ev := range sp.items {
+		var lv [maxPos]int
+		for i := range e.lay.n {
+			ohm := se.vs.levels[ev.c.lv[i]].ohm
+			lv[i] = e.vs.levelAtOrAbove(ohm)
+			if lv[i] == len(e.vs.levels) || !sameOhm(e.vs.levels[lv[i]].ohm, ohm) {
+				return // not the same levels: leave the order as it is
+			}
+		}
+		tc.reset() // it holds one device's tuples
+		e.scoreVariants(tc.get(e, ev.c.dev, lv, cnt), p, p.add, cnt)
+	}
 }
