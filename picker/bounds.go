@@ -63,27 +63,28 @@ func vbeHi(dv *device, icHi float64) float64 {
 //
 // R1's allowance is bounded by the largest allowance of any value.
 func (e *evaluator) dividerPowerBound(r2 int, vbLo, vbHi float64) float64 {
-	r2Ohm := e.vs.levels[r2].ohm
-	u := vbLo * vbLo / r2Ohm / e.vs.levels[r2].allowHot_W
-	vcc := e.s.vcc
-	if vbHi < vcc && vbLo > 0 {
-		p1 := min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi) / r2Ohm
-		u = max(u, p1/e.vs.allowHotMax_W)
-	}
-	return u
+	pR2, pR1 := e.dividerPowers(r2, vbLo, vbHi)
+	return max(pR2/e.vs.levels[r2].allowHot_W, pR1/e.vs.allowHotMax_W)
 }
 
 // dividerPowerBoundWeak is dividerPowerBound with R2's allowance
 // replaced by the best of any value: weaker, but falling with R2, so the
 // first R2 it admits can be found by bisection.
 func (e *evaluator) dividerPowerBoundWeak(r2 int, vbLo, vbHi float64) float64 {
+	pR2, pR1 := e.dividerPowers(r2, vbLo, vbHi)
+	return max(pR2, pR1) / e.vs.allowHotMax_W
+}
+
+// dividerPowers returns the powers of dividerPowerBound's two floors at R2
+// level r2: R2 dissipates at least pR2 and R1 at least pR1 (watts). Both
+// fall as R2 rises.
+func (e *evaluator) dividerPowers(r2 int, vbLo, vbHi float64) (pR2, pR1 float64) {
 	r2Ohm := e.vs.levels[r2].ohm
-	p := vbLo * vbLo / r2Ohm
-	vcc := e.s.vcc
-	if vbHi < vcc && vbLo > 0 {
-		p = max(p, min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi)/r2Ohm)
+	pR2 = vbLo * vbLo / r2Ohm
+	if vcc := e.s.vcc; vbHi < vcc && vbLo > 0 {
+		pR1 = min((vcc-vbLo)*vbLo, (vcc-vbHi)*vbHi) / r2Ohm
 	}
-	return p / e.vs.allowHotMax_W
+	return pR2, pR1
 }
 
 // firstFrom returns the first index in [0, n) where the monotone

@@ -87,9 +87,15 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 			}
 			// the weak bound at any level at or above R2's too (the search
 			// takes it at the last level of a run of pair-only levels)
+			// (and the search's first R2 takes the powers at any level up
+			// to R2's, each against its own part)
 			for j := lv[iR2]; j < min(lv[iR2]+4, len(e.vs.levels)); j++ {
 				if f := e.dividerPowerBoundWeak(j, op.V_V[solver.R2], op.V_V[solver.R2]); f > u*(1+1e-9) {
 					t.Errorf("weak divider bound %.6g at level %d (R2 at %d) above the divider's utilization %.6g (%v)", f, j, lv[iR2], u, r)
+				}
+				pR2, pR1 := e.dividerPowers(j, op.V_V[solver.R2], op.V_V[solver.R2])
+				if pR2 > op.P_W[solver.R2]*(1+1e-9) || pR1 > op.P_W[solver.R1]*(1+1e-9) {
+					t.Errorf("divider power floors R2 %.6g, R1 %.6g W at level %d (R2 at %d) above R2's %.6g, R1's %.6g W (%v)", pR2, pR1, j, lv[iR2], op.P_W[solver.R2], op.P_W[solver.R1], r)
 				}
 			}
 			// The floor for a window around IC and an R_TH below the build's

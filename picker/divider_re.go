@@ -28,16 +28,6 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 	clear(upSeen)
 	clear(floorSeen)
 	lastRcLo := -1
-	start := 0
-	if bd := e.boundsNow(p); bd.finite {
-		// Skip the R2 levels whose divider bound, with the best allowance
-		// of any value (a weaker bound that falls with R2), is over.
-		lo, hi := e.vbeBounds(dv, bd.icLo, bd.icHi)
-		vbLo, vbHi := lo+bd.icLo*reOhm, hi+bd.icHi*kE*reOhm
-		start = firstLevel(n, func(i int) bool {
-			return pfRE+w.Utilization*e.dividerPowerBoundWeak(i, vbLo, vbHi) <= bd.thr
-		})
-	}
 	// reFloors bounds RE's utilization (every build carries RE:
 	// icLo²·RE over RE's best allowance) and the emitter term (bound E-RE:
 	// VE = IE·RE lies in [icLo·RE, kE·icHi·RE] whatever R1, R2 and RC are)
@@ -46,6 +36,26 @@ func (d *dividerPlan) searchRE(e *evaluator, p *pool, cnt *counters, di, re int,
 		uRE = bd.icLo * bd.icLo * reOhm / e.vs.levels[re].allowHot_W
 		eLo = e.emitterFloor(bd, reOhm, kE)
 		return uRE, eLo
+	}
+	start := 0
+	if bd := e.boundsNow(p); bd.finite {
+		// Skip the R2 levels that bound U-P settles with the divider's
+		// powers (bound U-R2), RC's at the band's bottom (U-RC), RE's
+		// utilization and emitter floors and RE's parts floor, each of
+		// R1, R2 and RC one part or a pair: the powers fall as R2
+		// rises, so the floor does, and the first level it admits is
+		// found by bisection.
+		lo, hi := e.vbeBounds(dv, bd.icLo, bd.icHi)
+		vbLo, vbHi := lo+bd.icLo*reOhm, hi+bd.icHi*kE*reOhm
+		uRE, eLo := reFloors(bd)
+		pRC := 0.0
+		if rcLo, rcHi := e.rcBand(bd, reOhm, 1, kE, vceLo, vceHi); rcLo <= rcHi {
+			pRC = bd.icLo * bd.icLo * e.vs.levels[rcLo].ohm
+		}
+		start = firstLevel(n, func(i int) bool {
+			pR2, pR1 := e.dividerPowers(i, vbLo, vbHi)
+			return pfRE+e.useAndPartsFloor(uRE, pR2, pR1, pRC)+w.Emitter*eLo <= bd.thr
+		})
 	}
 	// r2Beta bounds the beta term of every build with R2 in levels
 	// [first, last] (bound B with R_TH between rthFloor of the first R2,

@@ -289,8 +289,10 @@
 //     base (VB ≤ V_TH), R1 dissipates at least (|VCC| − VB)·VB/R2; VB lies
 //     between VBE_lo + IC_lo·RE and VBE_hi + IC_hi·k·RE, with VBE bounded
 //     from the device model (vbeBounds). R2 levels below the first one
-//     this weaker-with-the-best-allowance bound admits are skipped by
-//     bisection (the bound falls with R2); where the per-level bound
+//     bound U-P admits with these two powers, RC's at the band's bottom,
+//     RE's utilization, the emitter floor and RE's parts floor (each of
+//     R1, R2 and RC one part or a pair) are skipped by bisection (the
+//     powers fall with R2, so the floor does); where the per-level bound
 //     settles a pair-only level, the weak bound at the last pair-only
 //     level before the next single (with the run's parts floor) may
 //     settle the whole run at once.

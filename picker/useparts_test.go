@@ -64,7 +64,7 @@ func TestPairedPositionsMatchExhaustive(t *testing.T) {
 // with pairs. With every part's dissipation exact, w_Utilization·U +
 // w_Parts·(extra parts of RC and R1) is at least useAndPartsFloor of the
 // other parts' utilization and RC's and R1's powers, whichever of them
-// are pairs; and RC's utilization is at least levelUseFloor at the least
+// are pairs (and so with R2 open too); and RC's utilization is at least levelUseFloor at the least
 // IC of a build whose QPoint term is at most the build's own
 // (boundsWithin). source: the terms' definitions (doc.go): a pair's
 // allowance is at most the best of any value, a single's at most the best
@@ -115,6 +115,15 @@ func TestUseAndPartsFloorHolds(t *testing.T) {
 		// IC of a build whose QPoint term is at most its own
 		if f := e.levelUseFloor(lv[iRC], e.boundsWithin(1, tp.q).icLo); f > d.Resistor[solver.RC].Utilization*(1+1e-12) {
 			t.Errorf("RC level floor %.6g above RC's utilization %.6g (levels %v, QPoint term %.4g)", f, d.Resistor[solver.RC].Utilization, lv, tp.q)
+		}
+		// with R2 open too (the divider's first R2 takes it so)
+		others3 := math.Max(d.Resistor[solver.RE].Utilization, d.Transistor.Utilization)
+		extra3 := extra
+		if e.vs.values[c.val[iR2]].lines[1] >= 0 {
+			extra3++
+		}
+		if f := e.useAndPartsFloor(others3, tp.op.P_W[solver.RC], tp.op.P_W[solver.R1], tp.op.P_W[solver.R2]); f > (w.Utilization*d.MaxUtilization+w.Parts*extra3)*(1+1e-12) {
+			t.Errorf("U-P floor with R2 open %.6g above the terms %.6g (levels %v, values %v)", f, w.Utilization*d.MaxUtilization+w.Parts*extra3, lv, c.val)
 		}
 		if floor > w.Utilization*math.Max(others, math.Max(tp.op.P_W[solver.RC], tp.op.P_W[solver.R1])/e.vs.allowHotMax_W)*(1+1e-9) {
 			tight++ // the choice raised the floor over the one without it
