@@ -133,16 +133,19 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 // factor). The search takes IE ≤ (1 + 1/betaNomMin)·IC from it. Where the
 // model gives no bound (an Early voltage below the supply, a model with
 // NF ≠ 1) it is 0.01, which leaves the cuts that use it all but off.
-func (e *evaluator) nominalBetaMin(dv *device) float64 {
+// atTyp is the same floor with hFE typical, the nominal point's own model
+// (device.betaTypMin).
+func (e *evaluator) nominalBetaMin(dv *device) (atMin, atTyp float64) {
 	const none = 0.01
 	if len(e.vs.levels) == 0 || dv.typ.NF != 1 || dv.typ.XTI < 0 || dv.typ.EG_eV < 0 {
-		return none
+		return none, none
 	}
 	bm, ok := e.newBetaModel(dv, dv.tjMax_C+thermalSlack_K, e.vs.levels[0].ohm, e.vs.levels[0].ohm, 0, math.Inf(1), 0, math.Inf(1), 0)
 	if !ok {
-		return none
+		return none, none
 	}
-	return max(none, bm.betaMin(bm.b1))
+	atMin = max(none, bm.betaMin(bm.b1))
+	return atMin, max(atMin, bm.betaMin(bm.bt))
 }
 
 // thermalSlack_K widens junction-temperature bounds past the self-heated

@@ -165,7 +165,8 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	checked := map[solver.Topology]int{}
 	rsChecked, rsPositive := 0, 0
 	windowChecked, windowPositive := 0, 0
-	rbNear := 0 // split-supply builds with RB within 25 % of the RB-IB floor
+	rbNear := 0                // split-supply builds with RB within 25 % of the RB-IB floor
+	qbChecked, qbJoint := 0, 0 // F-QB checks, and those where it beat F-Q and F-B apart
 	for _, req := range []Request{
 		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3},
 		{Topology: solver.CollectorFeedback, VCC_V: -9, IC_A: 1e-3},
@@ -193,8 +194,8 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			}
 			checked[req.Topology]++
 			dv := &e.devs[di]
-			if b := a.op.IC_A / a.op.IB_A; b < dv.betaNomMin*(1-1e-9) {
-				t.Errorf("%v %v: IC/IB %g under nominalBetaMin %g", req.Topology, a.r, b, dv.betaNomMin)
+			if b := a.op.IC_A / a.op.IB_A; b < dv.betaNomMin*(1-1e-9) || b < dv.betaTypMin*(1-1e-9) {
+				t.Errorf("%v %v: IC/IB %g under nominalBetaMin %g or its typical-model floor %g", req.Topology, a.r, b, dv.betaNomMin, dv.betaTypMin)
 			}
 			if f := e.betaFloorAt(a); f > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v %v: beta floor %g over the beta term %g", req.Topology, a.r, f, math.Abs(a.beta))
@@ -239,6 +240,28 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 					t.Errorf("%v: RF level %d outside the F-G window [%d, %d] for IC %g in [%g, %g]", a.r, lv[fRF], lo, hi, ic, w[0], w[1])
 				}
 			}
+			// F-QB: F-Q and F-B together over parts of the IC window, at
+			// the grid cell, from a current floor at or under IC, and over
+			// a block of sums around r
+			wt := e.s.w
+			both := wt.QPoint*a.q + wt.Beta*math.Abs(a.beta)
+			for _, xLo := range []float64{0, ic * 0.97, ic} {
+				if fl := f.betaQFloorRC(dv, bd, f.gridIndex(r), xLo, kE, vceLo, vceHi); fl > both*(1+1e-9)+1e-12 {
+					t.Errorf("%v: F-QB floor %g (currents from %g) over the terms %g", a.r, fl, xLo, both)
+				}
+			}
+			if fl := f.betaQFloorSums(dv, bd, r*0.99, r*1.01, 0, kE, vceLo, vceHi); fl > both*(1+1e-9)+1e-12 {
+				t.Errorf("%v: F-QB floor %g over sums ±1 %% over the terms %g", a.r, fl, both)
+			} else if fl > wt.QPoint*e.feedbackQFloorBlock(r*0.99, r*1.01, 0, kE, vceLo, vceHi)+wt.Beta*f.betaFloorSums(dv, bd, r*0.99, r*1.01)+1e-9 {
+				qbJoint++ // the parts raised the floor over the two apart
+			}
+			// and at most the two floors at the build's own IC and sum
+			// (every part covers the currents it is taken over)
+			at := bounds{icLo: ic, icHi: ic, finite: true}
+			if fl, own := f.betaQFloorSums(dv, bd, r, r, 0, kE, vceLo, vceHi), wt.QPoint*e.feedbackQAt(ic, r, r, 0, kE, vceLo, vceHi)+wt.Beta*f.betaFloorSums(dv, at, r, r); fl > own*(1+1e-3)+1e-12 {
+				t.Errorf("%v: F-QB floor %g over the floors %g at the build's IC %g", a.r, fl, own, ic)
+			}
+			qbChecked++
 			if fl := f.betaFloorRC(dv, bd, f.gridIndex(r)); fl > math.Abs(a.beta)*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-B floor %g over the beta term %g", a.r, fl, math.Abs(a.beta))
 			} else if at := f.betaFloorSums(dv, bd, r, r); fl > at*(1+1e-3)+1e-12 {
@@ -311,6 +334,10 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	if windowPositive < windowChecked/4 {
 		t.Errorf("B floor over RF windows positive on only %d of %d", windowPositive, windowChecked)
 	}
+	if qbChecked == 0 || qbJoint == 0 {
+		t.Errorf("fixture too weak: F-QB checked on %d builds, above F-Q and F-B apart on %d", qbChecked, qbJoint)
+	}
+	t.Logf("F-QB checked on %d builds, above F-Q and F-B apart on %d", qbChecked, qbJoint)
 	if rbNear == 0 {
 		t.Errorf("no split-supply build has RB within 25 %% of the RB-IB floor: the check does not reach it")
 	}

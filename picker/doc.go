@@ -381,7 +381,10 @@
 //     it lies on); it replaces the plain ±(T − floors)/w_QPoint IC window of
 //     every build at (RC, RE), so a sum RC + RE whose VCE is off target
 //     admits fewer currents, and fewer RF levels.
-//   - F-B: IB ≤ IC/β_min gives RF ≥ β_min(VCC − VBE_hi − kE·icHi·r)/icHi;
+//   - F-B: IB ≤ IC/β_min gives RF ≥ β_min(VCC − VBE_hi − kE·icHi·r)/icHi,
+//     with β_min the typical model's floor on IC/IB at the nominal point
+//     (device.betaTypMin: the nominal point is the typical model's, so
+//     the floor with hFE typical holds there, not only hFE min's);
 //     bound B over R_TH from there up bounds the beta term of every build
 //     at (RC, RE). With RE's utilization and emitter floors it skips an RC
 //     and narrows the IC window. It depends on RC + RE and the IC window
@@ -393,6 +396,18 @@
 //     and RF from the largest sum's floor up (bound B over a range of
 //     RE); once it settles one level, F-RF's blocks take it too, so the
 //     low sums whose base is not stiff enough fall block by block.
+//   - F-QB: F-Q and F-B apart each take their floor where the other's
+//     is least (F-B at the top of the IC window, F-Q at the target), so
+//     together they bound the two terms' sum loosely. F-QB splits the IC
+//     window into qbParts equal parts and takes, on each, F-Q's least over
+//     the currents in the part plus F-B with the part as the window; the
+//     least over the parts bounds w_QPoint·q + w_Beta·β. Per grid cell
+//     it skips an RC and decides whether a pair in RF can enter; over
+//     the whole RC band of an RE, in blocks of sums (sumsQBAbove), it
+//     decides whether a pair in RC can enter and whether the RE can hold
+//     anything at all: collector feedback's beta term is set mostly by
+//     how far VCE lies above VBE, so where the best builds all hold
+//     singles a pair's placement cost puts every pair over.
 //   - F-G, the RF window: by F1 the RF levels with IC in the window are
 //     found by two searches, run not at the build's own sum r = RC + RE
 //     but at its two neighbours on a grid of sums (gridPoints points per

@@ -39,6 +39,20 @@ type feedbackPlan struct {
 	// wb memoizes betaFloorWindow by device, grid cell of sums, RF window
 	// and IC window, direct-mapped like fb, with as many slots.
 	wb []wbEntry
+	// qb memoizes betaQFloorRC like fb (the same key with xLo).
+	qb []qbEntry
+	// blocks memoizes sumsQBAbove's blocks: blocks[i] is block
+	// blockBase + i (ln R/qbBlockStep), from the least level to twice the
+	// largest.
+	blocks    []fbEntry
+	blockBase int
+}
+
+// qbEntry is betaQFloorRC of device dv at the grid cell key for the IC
+// window [icLo, icHi] and currents at least xLo.
+type qbEntry struct {
+	fbEntry
+	xLo float64
 }
 
 // wbEntry is betaFloorWindow of device dv at grid cell g and RF levels
@@ -126,10 +140,15 @@ func (f *feedbackPlan) setGrid() {
 		f.fbBits = min(fbMemoBits, bits.Len64(cells)+1)
 		f.fb = make([]fbEntry, 1<<f.fbBits)
 		f.wb = make([]wbEntry, 1<<f.fbBits)
+		f.qb = make([]qbEntry, 1<<f.fbBits)
+		f.blockBase = int(math.Floor(math.Log(lv[0].ohm) / qbBlockStep))
+		f.blocks = make([]fbEntry, int(math.Floor(math.Log(2*lv[len(lv)-1].ohm)/qbBlockStep))-f.blockBase+1)
 	}
 	clear(f.grid)
 	clear(f.fb)
 	clear(f.wb)
+	clear(f.qb)
+	clear(f.blocks)
 }
 
 // gridOhm is the grid's point g: e^(g·lnStep) Ω.
@@ -261,6 +280,22 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 	pfRE := e.partsFloor(re) // bound P
 	// Bound RC (kRC = kE: RC carries IE = IC + IB).
 	rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
+	// RE's parts floor and F-QB over every sum of the RC band
+	// (sumsQBAbove) bound every build at this RE from below: where a
+	// pair in RC would put that over the threshold, RC takes singles
+	// alone (rcSingles), and where it is over, nothing here can enter.
+	// The threshold only falls, so both stay true.
+	rcSingles := false
+	if bd.finite && w.Beta > 0 && w.QPoint > 0 && w.Parts > 0 && rcLo <= rcHi {
+		rLo, rHi := e.vs.levels[rcLo].ohm+reOhm, e.vs.levels[rcHi].ohm+reOhm
+		rAt := (e.s.vcc - (vceLo+vceHi)/2) / e.s.icT
+		if f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-pfRE-w.Parts, kE, vceLo, vceHi) {
+			rcSingles = true
+			if f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-pfRE, kE, vceLo, vceHi) {
+				return
+			}
+		}
+	}
 	gLo, gHi := n/2, n/2
 	// skip is how many RC levels the next block floor (bound
 	// F-RF) tries to settle at once: it doubles while blocks
@@ -274,7 +309,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		// RC level's at a time (the RF window reads the grid)
 		f.cache.reset()
 		bd := e.boundsNow(p)
-		if e.vs.levels[rc].pairOnly && e.singlesOnly(pfRE, bd.thr) {
+		if e.vs.levels[rc].pairOnly && (rcSingles || e.singlesOnly(pfRE, bd.thr)) {
 			rc = e.vs.nextSingle[rc] - 1 // bound P: no room for a pair in RC
 			continue
 		}
@@ -315,6 +350,9 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		fl := pf
 		// nonBeta bounds every term but Beta of every build here
 		nonBeta := pf
+		// sf bounds every term but RF's parts of every build here (with
+		// F-QB): it decides whether a pair in RF can enter
+		sf := pf
 		// the pair's sum and its cell of the grid of sums
 		r := e.vs.levels[rc].ohm + reOhm
 		g := f.gridIndex(r)
@@ -339,6 +377,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				continue
 			}
 			nonBeta = base + qFloor
+			nonBQ := base
 			if w.Beta > 0 {
 				base += w.Beta * f.betaFloorRC(dv, bd, g)
 			}
@@ -348,6 +387,14 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				// often falls whole)
 				skip = 2
 				continue
+			}
+			// F-QB: the two together, over parts of the IC window
+			if w.Beta > 0 && w.QPoint > 0 {
+				sf = nonBQ + f.betaQFloorRC(dv, bd, g, xLo, kE, vceLo, vceHi)
+				if sf > bd.thr {
+					skip = 2
+					continue
+				}
 			}
 			// F-RS over every RF level, near saturation (VCE ≤ VCC −
 			// xLo·(RC + RE)): one solve for the pair
@@ -367,7 +414,8 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			}
 			fl = base
 		}
-		lo, hi := f.rfWindow(di, g, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(fl, bd.thr), cnt)
+		sf = max(sf, fl)
+		lo, hi := f.rfWindow(di, g, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(sf, bd.thr), cnt)
 		gLo, gHi = lo, hi+1
 		if lo > hi {
 			continue
@@ -384,6 +432,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				continue
 			}
 			fl = max(fl, base)
+			sf = max(sf, fl)
 			if w.QPoint > 0 {
 				d2 := (bd.thr - base) / w.QPoint
 				within := e.boundsWithin(bd.thr, d2)
@@ -391,7 +440,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				if !ok {
 					continue
 				}
-				lo, hi = f.rfWindow(di, g, wLo, wHi, lo, hi+1, e.singlesOnly(fl, bd.thr), cnt)
+				lo, hi = f.rfWindow(di, g, wLo, wHi, lo, hi+1, e.singlesOnly(sf, bd.thr), cnt)
 			}
 		}
 		if bd.finite && w.Beta > 0 && lo < hi {
@@ -435,7 +484,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			}
 			n := 0
 			for ; rf >= lo && n < size; rf-- {
-				if e.vs.levels[rf].pairOnly && e.singlesOnly(fl, p.threshold()) {
+				if e.vs.levels[rf].pairOnly && e.singlesOnly(sf, p.threshold()) {
 					rf = e.vs.prevSingle[rf] + 1 // bound P: no room for a pair in RF
 					continue
 				}
@@ -525,6 +574,86 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, g int) float64 {
 	return fl
 }
 
+// qbParts is how many equal parts of the IC window betaQFloorSums takes.
+const qbParts = 8
+
+// betaQFloorSums is bounds F-Q and F-B together (F-QB) over the sums RC +
+// RE in [rLo, rHi], for the builds of dv whose nominal IC lies in the
+// window of bd and is at least xLo: on each of qbParts equal parts [a, b]
+// of the window from max(icLo, xLo) up, the QPoint term is at least F-Q's
+// least over the sums and the currents in the part (convex in the
+// current: the least over x ≥ a, or the value at b when that least lies
+// above b), and the beta term at least F-B with [a, b] as the window
+// (betaFloorSums). The least over the parts of w_QPoint·q + w_Beta·β
+// floors the two terms' sum; taken apart, each term's floor lies where
+// the other's is least (far off target F-B is least, at the target F-Q).
+func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, vceLo, vceHi float64) float64 {
+	e, w := f.e, f.e.s.w
+	lo := min(max(bd.icLo, xLo), bd.icHi)
+	least := math.Inf(1)
+	for i := range qbParts {
+		a := lo + (bd.icHi-lo)*float64(i)/qbParts
+		b := lo + (bd.icHi-lo)*float64(i+1)/qbParts
+		q, at := e.feedbackQLeast(rLo, rHi, a, kE, vceLo, vceHi)
+		if at > b {
+			q = e.feedbackQAt(b, rLo, rHi, a, kE, vceLo, vceHi)
+		}
+		part := bd
+		part.icLo, part.icHi = a, b
+		least = min(least, w.QPoint*q*(1-1e-12)+w.Beta*f.betaFloorSums(dv, part, rLo, rHi))
+	}
+	return least
+}
+
+// betaQFloorRC is betaQFloorSums over grid cell g, [R(g), R(g+1)] (a
+// floor at every sum in it), memoized in f.qb like fb.
+func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) float64 {
+	k := uint64(int64(g))
+	slot := &f.qb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits)]
+	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi && slot.xLo == xLo {
+		return slot.floor
+	}
+	least := f.betaQFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1), xLo, kE, vceLo, vceHi)
+	*slot = qbEntry{fbEntry{k, dv, least, bd.icLo, bd.icHi}, xLo}
+	return least
+}
+
+// qbBlockStep is the width (in ln Ω) of the blocks of sums sumsQBFloor
+// takes F-QB over: 0.25 %.
+const qbBlockStep = 0.0025
+
+// sumsQBAbove reports whether F-QB (betaQFloorSums, currents from 0) is
+// over need at every sum in [rLo, rHi]: over each block of qbBlockStep
+// that covers it, memoized in f.blocks for the device and the IC window
+// it was taken for (a floor taken over a wider window, at a higher
+// threshold, holds for a narrower one and is kept while it is over need).
+// The blocks are taken outward from the one holding rAt, where the floor
+// tends to be least, so a floor that does not settle is found out early.
+func (f *feedbackPlan) sumsQBAbove(dv *device, bd bounds, rLo, rHi, rAt, need, kE, vceLo, vceHi float64) bool {
+	block := func(r float64) int { return int(math.Floor(math.Log(r)/qbBlockStep)) - f.blockBase }
+	b0, b1 := block(rLo), block(rHi)
+	if b0 < 0 || b1 >= len(f.blocks) {
+		return false // outside the sums of two levels: no floor kept
+	}
+	above := func(b int) bool {
+		v := &f.blocks[b]
+		if v.dv == dv && v.icLo <= bd.icLo && v.icHi >= bd.icHi && (v.floor > need || v.icLo == bd.icLo && v.icHi == bd.icHi) {
+			return v.floor > need
+		}
+		k := b + f.blockBase
+		lo, hi := math.Exp(float64(k)*qbBlockStep), math.Exp(float64(k+1)*qbBlockStep)
+		*v = fbEntry{uint64(int64(k)), dv, f.betaQFloorSums(dv, bd, lo*(1-1e-12), hi*(1+1e-12), 0, kE, vceLo, vceHi), bd.icLo, bd.icHi}
+		return v.floor > need
+	}
+	start := min(max(block(rAt), b0), b1)
+	for d := 0; start-d >= b0 || start+d <= b1; d++ {
+		if start-d >= b0 && !above(start-d) || d > 0 && start+d <= b1 && !above(start+d) {
+			return false
+		}
+	}
+	return true
+}
+
 // betaFloorWindow is bound B over the RF window lo..hi of the builds of
 // dv whose RC + RE lies in grid cell g (R_TH = RF between the window's
 // ends, RE' = RC + RE, baseLoop) with nominal IC in the window of bd:
@@ -546,14 +675,15 @@ func (f *feedbackPlan) betaFloorWindow(dv *device, bd bounds, g, lo, hi int) flo
 // betaFloorSums is bound B (betaFloor) over every build of dv with RC + RE
 // in [rLo, rHi] whose nominal IC lies in the window of bd (bound F-B; the
 // sum plays RE's part, baseLoop). The base loop is VCC − VBE = IB·RF +
-// IE·(RC + RE), so with IB ≤ IC/β_min (β_min = betaNomMin) every such
-// build has RF ≥ β_min·(VCC − VBE_hi − kE·icHi·rHi)/icHi; R_TH runs from
-// there to the largest level.
+// IE·(RC + RE), so with IB ≤ IC/β_min at the nominal point (β_min =
+// betaTypMin, the typical model's floor) every such build has RF ≥
+// β_min·(VCC − VBE_hi − kE·icHi·rHi)/icHi (kE = 1 + 1/β_min); R_TH runs
+// from there to the largest level.
 func (f *feedbackPlan) betaFloorSums(dv *device, bd bounds, rLo, rHi float64) float64 {
 	e := f.e
 	vHi := vbeHi(dv, bd.icHi)
-	kE := 1 + 1/dv.betaNomMin
-	rfMin := dv.betaNomMin * (e.s.vcc - vHi - kE*bd.icHi*rHi) / bd.icHi
+	kE := 1 + 1/dv.betaTypMin
+	rfMin := dv.betaTypMin * (e.s.vcc - vHi - kE*bd.icHi*rHi) / bd.icHi
 	if !(rfMin > 0) {
 		return 0
 	}

@@ -223,7 +223,7 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 	e.pinKept(at)
 	e.setLabelGroups()
 	for i := range e.devs {
-		e.devs[i].betaNomMin = e.nominalBetaMin(&e.devs[i])
+		e.devs[i].betaNomMin, e.devs[i].betaTypMin = e.nominalBetaMin(&e.devs[i])
 		e.devs[i].hotCap = e.newHotCap(&e.devs[i])
 		e.devs[i].xtb = newXTBTable(&e.devs[i])
 		e.devs[i].isNominal, _, _, _ = e.devs[i].typ.At(NominalAmbient_C)

@@ -217,8 +217,8 @@ func (e *evaluator) fitsWith(d *device, ideal [maxPos]float64, bought map[int]Pu
 	}
 	ev := &evaluator{s: e.s, lay: e.lay, vs: &vs, devs: []device{*d}, span: e.span}
 	ev.pinKept(at)
-	ev.devs[0].betaNomMin = ev.nominalBetaMin(&ev.devs[0]) // over these values
-	open := newPool(math.MaxInt, false)                    // never fills: its threshold stays +Inf
+	ev.devs[0].betaNomMin, ev.devs[0].betaTypMin = ev.nominalBetaMin(&ev.devs[0]) // over these values
+	open := newPool(math.MaxInt, false)                                           // never fills: its threshold stays +Inf
 	var choices [maxPos][]int
 	np := e.lay.n
 	for i := range np {

@@ -25,6 +25,10 @@ type device struct {
 	// betaNomMin bounds IC/IB from below at every nominal point of a
 	// passing build (evaluator.nominalBetaMin).
 	betaNomMin float64
+	// betaTypMin bounds IC/IB from below at every nominal point of a
+	// passing build: the nominal point is the typical model's, so
+	// nominalBetaMin's floor taken with hFE typical (at least betaNomMin).
+	betaTypMin float64
 	// hotCap is what hotVBECap takes of the device whatever RE is
 	// (evaluator.newHotCap).
 	hotCap hotCap
