@@ -391,11 +391,9 @@
 //     only, so it is taken over the cell of F-G's grid of sums that holds
 //     the pair's sum (bound B over a range of RE, a floor at every sum in
 //     the cell) and kept per cell, which the pairs of neighbouring sums
-//     share. Over a
-//     block of RC levels it is bound B with RE' between the block's sums
-//     and RF from the largest sum's floor up (bound B over a range of
-//     RE); once it settles one level, F-RF's blocks take it too, so the
-//     low sums whose base is not stiff enough fall block by block.
+//     share. Once it settles one level, F-RF's blocks of RC levels take
+//     it too, as F-QB over the block's sums, so the low sums whose base
+//     is not stiff enough fall block by block.
 //   - F-QB: F-Q and F-B apart each take their floor where the other's
 //     is least (F-B at the top of the IC window, F-Q at the target), so
 //     together they bound the two terms' sum loosely. F-QB splits the IC

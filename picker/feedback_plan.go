@@ -286,9 +286,9 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 	// alone (rcSingles), and where it is over, nothing here can enter.
 	// The threshold only falls, so both stay true.
 	rcSingles := false
+	rAt := (e.s.vcc - (vceLo+vceHi)/2) / e.s.icT
 	if bd.finite && w.Beta > 0 && w.QPoint > 0 && w.Parts > 0 && rcLo <= rcHi {
 		rLo, rHi := e.vs.levels[rcLo].ohm+reOhm, e.vs.levels[rcHi].ohm+reOhm
-		rAt := (e.s.vcc - (vceLo+vceHi)/2) / e.s.icT
 		if f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-pfRE-w.Parts, kE, vceLo, vceHi) {
 			rcSingles = true
 			if f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-pfRE, kE, vceLo, vceHi) {
@@ -324,18 +324,20 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		if bd.finite && w.QPoint > 0 {
 			// Bound F-RF over RC levels rc..last, with RE's
 			// utilization, emitter and parts floors, and past a
-			// level that bound F-B settled, F-B over the block's
-			// sums. That floor is taken only where F-B at the
-			// block's largest sum (kept per cell) settles: F-B falls
-			// as the sum rises, so where that one does not the
-			// block's does not either (it only saves the work).
+			// level that bound F-B settled, F-QB over the block's
+			// sums (sumsQBAbove, in place of F-Q and F-B apart).
+			// That floor is taken only where F-B at the block's
+			// largest sum (kept per cell) settles: F-B falls as the
+			// sum rises, so where that one does not the block's
+			// does not either (it only saves the work).
 			last := min(rc+skip-1, rcHi)
 			rLo, rHi := e.vs.levels[rc].ohm+reOhm, e.vs.levels[last].ohm+reOhm
 			gHi := f.gridIndex(rHi)
 			xLo := f.icFloorAbove(di, gHi, cnt)
 			q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
 			fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
-			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorRC(dv, bd, gHi) > bd.thr && fl+w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr ||
+			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorRC(dv, bd, gHi) > bd.thr &&
+				f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-(fl-w.QPoint*q), kE, vceLo, vceHi) ||
 				skip > 1 && w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*rLo) && fl+w.Headroom*f.headroomBelow(di, n, rc, last, re, cnt) > bd.thr {
 				rc = last
 				skip *= 2
