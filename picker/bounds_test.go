@@ -167,6 +167,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	windowChecked, windowPositive := 0, 0
 	rbNear := 0                // split-supply builds with RB within 25 % of the RB-IB floor
 	qbChecked, qbJoint := 0, 0 // F-QB checks, and those where it beat F-Q and F-B apart
+	qbNarrow := 0              // F-QB windows narrower than the IC window
 	for _, req := range []Request{
 		{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3},
 		{Topology: solver.CollectorFeedback, VCC_V: -9, IC_A: 1e-3},
@@ -246,11 +247,19 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			wt := e.s.w
 			both := wt.QPoint*a.q + wt.Beta*math.Abs(a.beta)
 			for _, xLo := range []float64{0, ic * 0.97, ic} {
-				if fl := f.betaQFloorRC(dv, bd, f.gridIndex(r), xLo, kE, vceLo, vceHi); fl > both*(1+1e-9)+1e-12 {
+				qf := f.betaQFloorRC(dv, bd, f.gridIndex(r), xLo, kE, vceLo, vceHi)
+				if fl := qf.least(); fl > both*(1+1e-9)+1e-12 {
 					t.Errorf("%v: F-QB floor %g (currents from %g) over the terms %g", a.r, fl, xLo, both)
 				}
+				// the window of the parts that can hold a build whose two
+				// terms are this one's holds its IC
+				if lo, hi, ok := qf.window(both * (1 + 1e-9)); !ok || ic < lo*(1-1e-12) || ic > hi*(1+1e-12) {
+					t.Errorf("%v: IC %g outside F-QB's window [%g, %g] (ok %v, currents from %g)", a.r, ic, lo, hi, ok, xLo)
+				} else if hi-lo < 0.999*(bd.icHi-max(bd.icLo, xLo)) {
+					qbNarrow++
+				}
 			}
-			if fl := f.betaQFloorSums(dv, bd, r*0.99, r*1.01, 0, kE, vceLo, vceHi); fl > both*(1+1e-9)+1e-12 {
+			if fl := f.betaQFloorSums(dv, bd, r*0.99, r*1.01, 0, kE, vceLo, vceHi).least(); fl > both*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-QB floor %g over sums ±1 %% over the terms %g", a.r, fl, both)
 			} else if fl > wt.QPoint*e.feedbackQFloorBlock(r*0.99, r*1.01, 0, kE, vceLo, vceHi)+wt.Beta*f.betaFloorSums(dv, bd, r*0.99, r*1.01)+1e-9 {
 				qbJoint++ // the parts raised the floor over the two apart
@@ -258,7 +267,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			// and at most the two floors at the build's own IC and sum
 			// (every part covers the currents it is taken over)
 			at := bounds{icLo: ic, icHi: ic, finite: true}
-			if fl, own := f.betaQFloorSums(dv, bd, r, r, 0, kE, vceLo, vceHi), wt.QPoint*e.feedbackQAt(ic, r, r, 0, kE, vceLo, vceHi)+wt.Beta*f.betaFloorSums(dv, at, r, r); fl > own*(1+1e-3)+1e-12 {
+			if fl, own := f.betaQFloorSums(dv, bd, r, r, 0, kE, vceLo, vceHi).least(), wt.QPoint*e.feedbackQAt(ic, r, r, 0, kE, vceLo, vceHi)+wt.Beta*f.betaFloorSums(dv, at, r, r); fl > own*(1+1e-3)+1e-12 {
 				t.Errorf("%v: F-QB floor %g over the floors %g at the build's IC %g", a.r, fl, own, ic)
 			}
 			qbChecked++
@@ -334,10 +343,10 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 	if windowPositive < windowChecked/4 {
 		t.Errorf("B floor over RF windows positive on only %d of %d", windowPositive, windowChecked)
 	}
-	if qbChecked == 0 || qbJoint == 0 {
-		t.Errorf("fixture too weak: F-QB checked on %d builds, above F-Q and F-B apart on %d", qbChecked, qbJoint)
+	if qbChecked == 0 || qbJoint == 0 || qbNarrow == 0 {
+		t.Errorf("fixture too weak: F-QB checked on %d builds, above F-Q and F-B apart on %d, its window narrower on %d", qbChecked, qbJoint, qbNarrow)
 	}
-	t.Logf("F-QB checked on %d builds, above F-Q and F-B apart on %d", qbChecked, qbJoint)
+	t.Logf("F-QB checked on %d builds, above F-Q and F-B apart on %d, its window narrower than the IC window on %d", qbChecked, qbJoint, qbNarrow)
 	if rbNear == 0 {
 		t.Errorf("no split-supply build has RB within 25 %% of the RB-IB floor: the check does not reach it")
 	}

@@ -3,6 +3,7 @@ package picker
 import (
 	"math"
 	"math/bits"
+	"slices"
 
 	"biasbin/solver"
 )
@@ -51,8 +52,10 @@ type feedbackPlan struct {
 // qbEntry is betaQFloorRC of device dv at the grid cell key for the IC
 // window [icLo, icHi] and currents at least xLo.
 type qbEntry struct {
-	fbEntry
-	xLo float64
+	key             uint64
+	dv              *device
+	icLo, icHi, xLo float64
+	parts           qbFloors
 }
 
 // wbEntry is betaFloorWindow of device dv at grid cell g and RF levels
@@ -355,6 +358,9 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		// sf bounds every term but RF's parts of every build here (with
 		// F-QB): it decides whether a pair in RF can enter
 		sf := pf
+		// [qbLo, qbHi] holds the IC of every build here that can enter
+		// by F-QB's parts
+		qbLo, qbHi := 0.0, math.Inf(1)
 		// the pair's sum and its cell of the grid of sums
 		r := e.vs.levels[rc].ohm + reOhm
 		g := f.gridIndex(r)
@@ -390,10 +396,13 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				skip = 2
 				continue
 			}
-			// F-QB: the two together, over parts of the IC window
+			// F-QB: the two together, over parts of the IC window; the
+			// parts that cannot enter narrow the window (qbLo, qbHi)
 			if w.Beta > 0 && w.QPoint > 0 {
-				sf = nonBQ + f.betaQFloorRC(dv, bd, g, xLo, kE, vceLo, vceHi)
-				if sf > bd.thr {
+				qf := f.betaQFloorRC(dv, bd, g, xLo, kE, vceLo, vceHi)
+				sf = nonBQ + qf.least()
+				var ok bool
+				if qbLo, qbHi, ok = qf.window(bd.thr - nonBQ); sf > bd.thr || !ok {
 					skip = 2
 					continue
 				}
@@ -410,7 +419,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				var ok bool
 				within := e.boundsWithin(bd.thr, d2)
 				icLo, icHi, ok = e.feedbackICWindow(r, xLo, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
-				if !ok {
+				if icLo, icHi = max(icLo, qbLo), min(icHi, qbHi); !ok || icLo > icHi {
 					continue
 				}
 			}
@@ -439,7 +448,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				d2 := (bd.thr - base) / w.QPoint
 				within := e.boundsWithin(bd.thr, d2)
 				wLo, wHi, ok := e.feedbackICWindow(r, 0, kE, vceLo, vceHi, d2, within.icLo, within.icHi)
-				if !ok {
+				if wLo, wHi = max(wLo, qbLo), min(wHi, qbHi); !ok || wLo > wHi {
 					continue
 				}
 				lo, hi = f.rfWindow(di, g, wLo, wHi, lo, hi+1, e.singlesOnly(sf, bd.thr), cnt)
@@ -579,6 +588,35 @@ func (f *feedbackPlan) betaFloorRC(dv *device, bd bounds, g int) float64 {
 // qbParts is how many equal parts of the IC window betaQFloorSums takes.
 const qbParts = 8
 
+// qbFloors is F-QB's floor on each part of an IC window: part i covers
+// [lo + i·step, lo + (i+1)·step].
+type qbFloors struct {
+	lo, step float64
+	floor    [qbParts]float64
+}
+
+// least is the least floor over the parts: F-QB over the whole window.
+func (qf qbFloors) least() float64 { return slices.Min(qf.floor[:]) }
+
+// window returns the currents of the parts whose floor is at most need:
+// every build whose w_QPoint·q + w_Beta·β is at most need has its IC in
+// [lo, hi]; ok is false when no part is.
+func (qf qbFloors) window(need float64) (lo, hi float64, ok bool) {
+	first, last := -1, -1
+	for i, v := range qf.floor {
+		if v <= need {
+			if first < 0 {
+				first = i
+			}
+			last = i
+		}
+	}
+	if first < 0 {
+		return 0, 0, false
+	}
+	return qf.lo + float64(first)*qf.step, qf.lo + float64(last+1)*qf.step, true
+}
+
 // betaQFloorSums is bounds F-Q and F-B together (F-QB) over the sums RC +
 // RE in [rLo, rHi], for the builds of dv whose nominal IC lies in the
 // window of bd and is at least xLo: on each of qbParts equal parts [a, b]
@@ -589,10 +627,11 @@ const qbParts = 8
 // (betaFloorSums). The least over the parts of w_QPoint·q + w_Beta·β
 // floors the two terms' sum; taken apart, each term's floor lies where
 // the other's is least (far off target F-B is least, at the target F-Q).
-func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, vceLo, vceHi float64) float64 {
+// The parts over what is left of the threshold narrow the IC window.
+func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, vceLo, vceHi float64) qbFloors {
 	e, w := f.e, f.e.s.w
 	lo := min(max(bd.icLo, xLo), bd.icHi)
-	least := math.Inf(1)
+	qf := qbFloors{lo: lo, step: (bd.icHi - lo) / qbParts}
 	for i := range qbParts {
 		a := lo + (bd.icHi-lo)*float64(i)/qbParts
 		b := lo + (bd.icHi-lo)*float64(i+1)/qbParts
@@ -602,22 +641,22 @@ func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, 
 		}
 		part := bd
 		part.icLo, part.icHi = a, b
-		least = min(least, w.QPoint*q*(1-1e-12)+w.Beta*f.betaFloorSums(dv, part, rLo, rHi))
+		qf.floor[i] = w.QPoint*q*(1-1e-12) + w.Beta*f.betaFloorSums(dv, part, rLo, rHi)
 	}
-	return least
+	return qf
 }
 
 // betaQFloorRC is betaQFloorSums over grid cell g, [R(g), R(g+1)] (a
 // floor at every sum in it), memoized in f.qb like fb.
-func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) float64 {
+func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) *qbFloors {
 	k := uint64(int64(g))
 	slot := &f.qb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits)]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi && slot.xLo == xLo {
-		return slot.floor
+		return &slot.parts
 	}
-	least := f.betaQFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1), xLo, kE, vceLo, vceHi)
-	*slot = qbEntry{fbEntry{k, dv, least, bd.icLo, bd.icHi}, xLo}
-	return least
+	*slot = qbEntry{key: k, dv: dv, icLo: bd.icLo, icHi: bd.icHi, xLo: xLo,
+		parts: f.betaQFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1), xLo, kE, vceLo, vceHi)}
+	return &slot.parts
 }
 
 // qbBlockStep is the width (in ln Ω) of the blocks of sums sumsQBFloor
@@ -644,7 +683,8 @@ func (f *feedbackPlan) sumsQBAbove(dv *device, bd bounds, rLo, rHi, rAt, need, k
 		}
 		k := b + f.blockBase
 		lo, hi := math.Exp(float64(k)*qbBlockStep), math.Exp(float64(k+1)*qbBlockStep)
-		*v = fbEntry{uint64(int64(k)), dv, f.betaQFloorSums(dv, bd, lo*(1-1e-12), hi*(1+1e-12), 0, kE, vceLo, vceHi), bd.icLo, bd.icHi}
+		qf := f.betaQFloorSums(dv, bd, lo*(1-1e-12), hi*(1+1e-12), 0, kE, vceLo, vceHi)
+		*v = fbEntry{uint64(int64(k)), dv, qf.least(), bd.icLo, bd.icHi}
 		return v.floor > need
 	}
 	start := min(max(block(rAt), b0), b1)
