@@ -150,10 +150,8 @@ func BenchmarkBetaFloor(b *testing.B) {
 var benchSlow = map[string]string{
 	"E96pairs/split-supply/10mA":        rbTies,
 	"E96pairs/collector-feedback/0.1mA": rfCap,
-	"E96pairs/collector-feedback/1mA":   feedbackTies,
 	"E96pairs/collector-feedback/10mA":  feedbackTies,
 	"E96pairs/any/0.1mA":                rfCap,
-	"E96pairs/any/1mA":                  feedbackTies,
 	"E96pairs/any/10mA":                 rbTies,
 }
 
@@ -169,7 +167,12 @@ const (
 	rfCap = "the largest RF cannot reach the target: the best builds score about 1, the window is wide"
 	// feedbackTies: collector feedback's nominal point depends on RF and
 	// RC + RE only, so every split of RC + RE ties on the Q-point and
-	// beta terms; with pairs the plan visits the (RE, RC) pairs one by one.
+	// beta terms; with pairs the plan visits the (RE, RC) pairs one by
+	// one. At 1 mA bound F-QB shows that no pair can enter (the best
+	// builds all hold singles) and the case runs in about 2–3 s; at 10 mA
+	// F-QB lies further under the two terms (0.22 against 0.32 for the
+	// best device: the junction's temperature range is wider), so it
+	// cannot (over 5 minutes at 84e9cbb).
 	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
 	// rbTies: a split-supply stage's RB enters IC only through IB·RB, so
 	// every stiff RB level ties on the Q-point and only the beta term
