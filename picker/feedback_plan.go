@@ -40,7 +40,9 @@ type feedbackPlan struct {
 	// wb memoizes betaFloorWindow by device, grid cell of sums, RF window
 	// and IC window, direct-mapped like fb, with as many slots.
 	wb []wbEntry
-	// qb memoizes betaQFloorRC like fb (the same key with xLo).
+	// qb memoizes betaQFloorRC like fb (the same key with xLo), with a
+	// quarter of fb's slots (an entry is three times the size, and only
+	// the cells that pass the cheaper bounds reach it).
 	qb []qbEntry
 	// blocks memoizes sumsQBAbove's blocks: blocks[i] is block
 	// blockBase + i (ln R/qbBlockStep), from the least level to twice the
@@ -65,6 +67,9 @@ type wbEntry struct {
 	dv                *device
 	floor, icLo, icHi float64
 }
+
+// qbFewerBits is how many bits fewer qb's slots take than fb's.
+const qbFewerBits = 2
 
 // fbMemoBits caps feedbackPlan.fbBits (2^18 slots: 10 MB of fb and 15 MB
 // of wb per worker).
@@ -143,7 +148,7 @@ func (f *feedbackPlan) setGrid() {
 		f.fbBits = min(fbMemoBits, bits.Len64(cells)+1)
 		f.fb = make([]fbEntry, 1<<f.fbBits)
 		f.wb = make([]wbEntry, 1<<f.fbBits)
-		f.qb = make([]qbEntry, 1<<f.fbBits)
+		f.qb = make([]qbEntry, 1<<(f.fbBits-qbFewerBits))
 		f.blockBase = int(math.Floor(math.Log(lv[0].ohm) / qbBlockStep))
 		f.blocks = make([]fbEntry, int(math.Floor(math.Log(2*lv[len(lv)-1].ohm)/qbBlockStep))-f.blockBase+1)
 	}
@@ -650,7 +655,7 @@ func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, 
 // floor at every sum in it), memoized in f.qb like fb.
 func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) *qbFloors {
 	k := uint64(int64(g))
-	slot := &f.qb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits)]
+	slot := &f.qb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits+qbFewerBits)]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi && slot.xLo == xLo {
 		return &slot.parts
 	}

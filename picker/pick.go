@@ -558,7 +558,7 @@ func (e *evaluator) firstSearch(p *pool, cnt *counters, exhaustive bool) plan {
 // threshold near its last one. Like the seeds it changes only the order
 // of the search.
 func (e *evaluator) singlesFirst(p *pool, cnt *counters) {
-	if e.s.w.Parts <= 0 || len(e.vs.singleLevels) == len(e.vs.levels) {
+	if e.s.w.Parts <= 0 || !e.vs.hasPairOnly() {
 		return
 	}
 	s := e.s

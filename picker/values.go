@@ -254,11 +254,14 @@ func (vs *valueSet) firstIn(lo, hi, guess int, singles bool, f func(int) bool) i
 // (bound P), so the best builds of a wall with pairs mostly hold singles,
 // and seeds among pairs alone leave the threshold high for long.
 func (vs *valueSet) seedSnaps() []bool {
-	if len(vs.singleLevels) == len(vs.levels) {
+	if !vs.hasPairOnly() {
 		return []bool{false}
 	}
 	return []bool{false, true}
 }
+
+// hasPairOnly reports whether some level holds only pairs.
+func (vs *valueSet) hasPairOnly() bool { return len(vs.singleLevels) < len(vs.levels) }
 
 // eachAround calls fn on every pair of levels (a, c) with a among level
 // x and the levels next to it below and above, and c the same for y (with
