@@ -292,10 +292,12 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 	// (sumsQBAbove) bound every build at this RE from below: where a
 	// pair in RC would put that over the threshold, RC takes singles
 	// alone (rcSingles), and where it is over, nothing here can enter.
-	// The threshold only falls, so both stay true.
+	// The threshold only falls, so both stay true. It is taken only
+	// where some level holds only pairs: on singles alone it costs more
+	// than it saves.
 	rcSingles := false
 	rAt := (e.s.vcc - (vceLo+vceHi)/2) / e.s.icT
-	if bd.finite && w.Beta > 0 && w.QPoint > 0 && w.Parts > 0 && rcLo <= rcHi {
+	if bd.finite && w.Beta > 0 && w.QPoint > 0 && w.Parts > 0 && e.vs.hasPairOnly() && rcLo <= rcHi {
 		rLo, rHi := e.vs.levels[rcLo].ohm+reOhm, e.vs.levels[rcHi].ohm+reOhm
 		if f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-pfRE-w.Parts, kE, vceLo, vceHi) {
 			rcSingles = true
@@ -332,8 +334,8 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		if bd.finite && w.QPoint > 0 {
 			// Bound F-RF over RC levels rc..last, with RE's
 			// utilization, emitter and parts floors, and past a
-			// level that bound F-B settled, F-QB over the block's
-			// sums (sumsQBAbove, in place of F-Q and F-B apart).
+			// level that bound F-B settled, F-B over the block's
+			// sums (blockSettles: with pairs, F-QB).
 			// That floor is taken only where F-B at the block's
 			// largest sum (kept per cell) settles: F-B falls as the
 			// sum rises, so where that one does not the block's
@@ -345,7 +347,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			q := e.feedbackQFloorBlock(rLo, rHi, xLo, kE, vceLo, vceHi)
 			fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
 			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorRC(dv, bd, gHi) > bd.thr &&
-				f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-(fl-w.QPoint*q), kE, vceLo, vceHi) ||
+				f.blockSettles(dv, bd, rLo, rHi, rAt, fl, w.QPoint*q, kE, vceLo, vceHi) ||
 				skip > 1 && w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*rLo) && fl+w.Headroom*f.headroomBelow(di, n, rc, last, re, cnt) > bd.thr {
 				rc = last
 				skip *= 2
@@ -699,6 +701,19 @@ func (f *feedbackPlan) sumsQBAbove(dv *device, bd bounds, rLo, rHi, rAt, need, k
 		}
 	}
 	return true
+}
+
+// blockSettles reports whether F-RF's block of RC levels with sums in
+// [rLo, rHi] is over the threshold by its other floors fl, of which qfl
+// is F-Q's, and the beta term's: with pairs, F-QB from the kept blocks of
+// sums (sumsQBAbove) in place of F-Q; with singles alone, whose RC levels
+// are few, F-B over the block taken afresh (betaFloorSums), which costs
+// less than F-QB's blocks.
+func (f *feedbackPlan) blockSettles(dv *device, bd bounds, rLo, rHi, rAt, fl, qfl, kE, vceLo, vceHi float64) bool {
+	if f.e.vs.hasPairOnly() {
+		return f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-(fl-qfl), kE, vceLo, vceHi)
+	}
+	return fl+f.e.s.w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr
 }
 
 // betaFloorWindow is bound B over the RF window lo..hi of the builds of
