@@ -122,7 +122,8 @@
 // level per position. Request.Exhaustive solves the nominal point of
 // every level tuple and scores every build. The default search first
 // scores a few hand-method builds per device (the plan's seed; with
-// pairs, also with every level snapped to one holding a single) and
+// pairs, the divider's and collector feedback's also with every level
+// snapped to one holding a single) and
 // hill-climbs from the best (order only, shared by every topology); with
 // pairs, it then runs the whole search over single parts alone and scores
 // the level tuples of the builds that search keeps (singlesFirst: a pair
