@@ -259,6 +259,13 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 					qbNarrow++
 				}
 			}
+			// over the kept blocks of sums of a band around r, scanned in
+			// full, and from the block the scan starts at
+			for _, rAt := range []float64{r, r * 2, r / 2} {
+				if fl := f.sumsQBLeast(dv, bd, r/1.1, r*1.1, rAt, math.Inf(-1), kE, vceLo, vceHi); fl > both*(1+1e-9)+1e-12 {
+					t.Errorf("%v: F-QB over blocks of sums %g over the terms %g", a.r, fl, both)
+				}
+			}
 			if fl := f.betaQFloorSums(dv, bd, r*0.99, r*1.01, 0, kE, vceLo, vceHi).least(); fl > both*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-QB floor %g over sums ±1 %% over the terms %g", a.r, fl, both)
 			} else if fl > wt.QPoint*e.feedbackQFloorBlock(r*0.99, r*1.01, 0, kE, vceLo, vceHi)+wt.Beta*f.betaFloorSums(dv, bd, r*0.99, r*1.01)+1e-9 {

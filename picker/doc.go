@@ -402,7 +402,7 @@
 //     the currents in the part plus F-B with the part as the window; the
 //     least over the parts bounds w_QPoint·q + w_Beta·β. Per grid cell
 //     it skips an RC and decides whether a pair in RF can enter; over
-//     the whole RC band of an RE, in blocks of sums (sumsQBAbove), it
+//     the whole RC band of an RE, in blocks of sums (sumsQBLeast), it
 //     decides whether a pair in RC can enter and whether the RE can hold
 //     anything at all: collector feedback's beta term is set mostly by
 //     how far VCE lies above VBE, so where the best builds all hold

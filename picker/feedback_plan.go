@@ -44,7 +44,7 @@ type feedbackPlan struct {
 	// quarter of fb's slots (an entry is three times the size, and only
 	// the cells that pass the cheaper bounds reach it).
 	qb []qbEntry
-	// blocks memoizes sumsQBAbove's blocks: blocks[i] is block
+	// blocks memoizes sumsQBLeast's blocks: blocks[i] is block
 	// blockBase + i (ln R/qbBlockStep), from the least level to twice the
 	// largest.
 	blocks    []fbEntry
@@ -289,7 +289,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 	// Bound RC (kRC = kE: RC carries IE = IC + IB).
 	rcLo, rcHi := e.rcBand(bd, reOhm, kE, kE, vceLo, vceHi)
 	// RE's parts floor and F-QB over every sum of the RC band
-	// (sumsQBAbove) bound every build at this RE from below: where a
+	// (sumsQBLeast) bound every build at this RE from below: where a
 	// pair in RC would put that over the threshold, RC takes singles
 	// alone (rcSingles), and where it is over, nothing here can enter.
 	// The threshold only falls, so both stay true. It is taken only
@@ -299,11 +299,9 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 	rAt := (e.s.vcc - (vceLo+vceHi)/2) / e.s.icT
 	if bd.finite && w.Beta > 0 && w.QPoint > 0 && w.Parts > 0 && e.vs.hasPairOnly() && rcLo <= rcHi {
 		rLo, rHi := e.vs.levels[rcLo].ohm+reOhm, e.vs.levels[rcHi].ohm+reOhm
-		if f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-pfRE-w.Parts, kE, vceLo, vceHi) {
-			rcSingles = true
-			if f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-pfRE, kE, vceLo, vceHi) {
-				return
-			}
+		least := f.sumsQBLeast(dv, bd, rLo, rHi, rAt, bd.thr-pfRE-w.Parts, kE, vceLo, vceHi)
+		if rcSingles = pfRE+w.Parts+least > bd.thr; pfRE+least > bd.thr {
+			return
 		}
 	}
 	gLo, gHi := n/2, n/2
@@ -670,48 +668,58 @@ func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo
 // takes F-QB over: 0.25 %.
 const qbBlockStep = 0.0025
 
-// sumsQBAbove reports whether F-QB (betaQFloorSums, currents from 0) is
-// over need at every sum in [rLo, rHi]: over each block of qbBlockStep
-// that covers it, memoized in f.blocks for the device and the IC window
-// it was taken for (a floor taken over a wider window, at a higher
-// threshold, holds for a narrower one and is kept while it is over need).
-// The blocks are taken outward from the one holding rAt, where the floor
-// tends to be least, so a floor that does not settle is found out early.
-func (f *feedbackPlan) sumsQBAbove(dv *device, bd bounds, rLo, rHi, rAt, need, kE, vceLo, vceHi float64) bool {
+// sumsQBLeast is F-QB (betaQFloorSums, currents from 0) over every sum
+// in [rLo, rHi]: the least over the blocks of qbBlockStep that cover it,
+// each memoized in f.blocks for the device and the IC window it was taken
+// for (a floor taken over a wider window, at a higher threshold, holds
+// for a narrower one and is kept while it is over stop). The blocks are
+// taken outward from the one holding rAt, where the floor tends to be
+// least, and the scan returns at the first block at or under stop (its
+// floor, then an upper end of the least, which is all a caller asking
+// whether the least is over stop needs).
+func (f *feedbackPlan) sumsQBLeast(dv *device, bd bounds, rLo, rHi, rAt, stop, kE, vceLo, vceHi float64) float64 {
 	block := func(r float64) int { return int(math.Floor(math.Log(r)/qbBlockStep)) - f.blockBase }
 	b0, b1 := block(rLo), block(rHi)
 	if b0 < 0 || b1 >= len(f.blocks) {
-		return false // outside the sums of two levels: no floor kept
+		return 0 // outside the sums of two levels: no floor kept
 	}
-	above := func(b int) bool {
+	floorAt := func(b int) float64 {
 		v := &f.blocks[b]
-		if v.dv == dv && v.icLo <= bd.icLo && v.icHi >= bd.icHi && (v.floor > need || v.icLo == bd.icLo && v.icHi == bd.icHi) {
-			return v.floor > need
+		if v.dv == dv && v.icLo <= bd.icLo && v.icHi >= bd.icHi && (v.floor > stop || v.icLo == bd.icLo && v.icHi == bd.icHi) {
+			return v.floor
 		}
 		k := b + f.blockBase
 		lo, hi := math.Exp(float64(k)*qbBlockStep), math.Exp(float64(k+1)*qbBlockStep)
 		qf := f.betaQFloorSums(dv, bd, lo*(1-1e-12), hi*(1+1e-12), 0, kE, vceLo, vceHi)
 		*v = fbEntry{uint64(int64(k)), dv, qf.least(), bd.icLo, bd.icHi}
-		return v.floor > need
+		return v.floor
 	}
+	least := math.Inf(1)
 	start := min(max(block(rAt), b0), b1)
 	for d := 0; start-d >= b0 || start+d <= b1; d++ {
-		if start-d >= b0 && !above(start-d) || d > 0 && start+d <= b1 && !above(start+d) {
-			return false
+		if start-d >= b0 {
+			least = min(least, floorAt(start-d))
+		}
+		if d > 0 && start+d <= b1 {
+			least = min(least, floorAt(start+d))
+		}
+		if least <= stop {
+			return least
 		}
 	}
-	return true
+	return least
 }
 
 // blockSettles reports whether F-RF's block of RC levels with sums in
 // [rLo, rHi] is over the threshold by its other floors fl, of which qfl
 // is F-Q's, and the beta term's: with pairs, F-QB from the kept blocks of
-// sums (sumsQBAbove) in place of F-Q; with singles alone, whose RC levels
+// sums (sumsQBLeast) in place of F-Q; with singles alone, whose RC levels
 // are few, F-B over the block taken afresh (betaFloorSums), which costs
 // less than F-QB's blocks.
 func (f *feedbackPlan) blockSettles(dv *device, bd bounds, rLo, rHi, rAt, fl, qfl, kE, vceLo, vceHi float64) bool {
 	if f.e.vs.hasPairOnly() {
-		return f.sumsQBAbove(dv, bd, rLo, rHi, rAt, bd.thr-(fl-qfl), kE, vceLo, vceHi)
+		need := bd.thr - (fl - qfl)
+		return f.sumsQBLeast(dv, bd, rLo, rHi, rAt, need, kE, vceLo, vceHi) > need
 	}
 	return fl+f.e.s.w.Beta*f.betaFloorSums(dv, bd, rLo, rHi) > bd.thr
 }
