@@ -266,6 +266,19 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 					t.Errorf("%v: F-QB over blocks of sums %g over the terms %g", a.r, fl, both)
 				}
 			}
+			// a least kept for a window that misses the build's IC is
+			// not taken for one that holds it (over the whole group of
+			// blocks that holds r, which keeps one)
+			g := (int(math.Floor(math.Log(r)/qbBlockStep)) - f.blockBase) / qbGroup
+			gLo := math.Exp(float64(g*qbGroup+f.blockBase)*qbBlockStep) * (1 + 1e-9)
+			gHi := math.Exp(float64((g+1)*qbGroup+f.blockBase)*qbBlockStep) * (1 - 1e-9)
+			far := 3 * math.Max(ic, e.s.icT) // a window whose QPoint term is well over this build's
+			f2 := &feedbackPlan{e: e}        // memos with nothing kept yet
+			f2.setGrid()
+			f2.sumsQBLeast(dv, bounds{icLo: far, icHi: far * 1.05, finite: true}, gLo, gHi, r, math.Inf(-1), kE, vceLo, vceHi)
+			if fl := f2.sumsQBLeast(dv, bd, gLo, gHi, r, math.Inf(-1), kE, vceLo, vceHi); fl > both*(1+1e-9)+1e-12 {
+				t.Errorf("%v: F-QB over blocks of sums %g, after a window that misses IC, over the terms %g", a.r, fl, both)
+			}
 			if fl := f.betaQFloorSums(dv, bd, r*0.99, r*1.01, 0, kE, vceLo, vceHi).least(); fl > both*(1+1e-9)+1e-12 {
 				t.Errorf("%v: F-QB floor %g over sums ±1 %% over the terms %g", a.r, fl, both)
 			} else if fl > wt.QPoint*e.feedbackQFloorBlock(r*0.99, r*1.01, 0, kE, vceLo, vceHi)+wt.Beta*f.betaFloorSums(dv, bd, r*0.99, r*1.01)+1e-9 {

@@ -49,6 +49,9 @@ type feedbackPlan struct {
 	// largest.
 	blocks    []fbEntry
 	blockBase int
+	// groups keeps, per group of qbGroup blocks, their least floor and
+	// the IC window it holds for (the blocks' windows' intersection).
+	groups []fbEntry
 }
 
 // qbEntry is betaQFloorRC of device dv at the grid cell key for the IC
@@ -151,12 +154,14 @@ func (f *feedbackPlan) setGrid() {
 		f.qb = make([]qbEntry, 1<<(f.fbBits-qbFewerBits))
 		f.blockBase = int(math.Floor(math.Log(lv[0].ohm) / qbBlockStep))
 		f.blocks = make([]fbEntry, int(math.Floor(math.Log(2*lv[len(lv)-1].ohm)/qbBlockStep))-f.blockBase+1)
+		f.groups = make([]fbEntry, (len(f.blocks)+qbGroup-1)/qbGroup)
 	}
 	clear(f.grid)
 	clear(f.fb)
 	clear(f.wb)
 	clear(f.qb)
 	clear(f.blocks)
+	clear(f.groups)
 }
 
 // gridOhm is the grid's point g: e^(g·lnStep) Ω.
@@ -694,14 +699,37 @@ func (f *feedbackPlan) sumsQBLeast(dv *device, bd bounds, rLo, rHi, rAt, stop, k
 		*v = fbEntry{uint64(int64(k)), dv, qf.least(), bd.icLo, bd.icHi}
 		return v.floor
 	}
+	// The blocks go by groups of qbGroup, outward from the one holding
+	// rAt; a whole group inside the range takes its kept least (f.groups)
+	// when that holds for this window and is over stop.
+	start := min(max(block(rAt), b0), b1) / qbGroup
+	g0, g1 := b0/qbGroup, b1/qbGroup
 	least := math.Inf(1)
-	start := min(max(block(rAt), b0), b1)
-	for d := 0; start-d >= b0 || start+d <= b1; d++ {
-		if start-d >= b0 {
-			least = min(least, floorAt(start-d))
+	group := func(g int) float64 {
+		lo, hi := max(g*qbGroup, b0), min((g+1)*qbGroup-1, b1, len(f.blocks)-1)
+		whole := lo == g*qbGroup && hi == (g+1)*qbGroup-1
+		ge := &f.groups[g]
+		if whole && ge.dv == dv && ge.icLo <= bd.icLo && ge.icHi >= bd.icHi && ge.floor > stop {
+			return ge.floor
 		}
-		if d > 0 && start+d <= b1 {
-			least = min(least, floorAt(start+d))
+		v, wLo, wHi := math.Inf(1), 0.0, math.Inf(1)
+		for b := lo; b <= hi; b++ {
+			v = min(v, floorAt(b))
+			wLo, wHi = max(wLo, f.blocks[b].icLo), min(wHi, f.blocks[b].icHi)
+		}
+		if whole {
+			// each block's floor holds for every window inside its own,
+			// so the least holds inside all of them
+			*ge = fbEntry{uint64(int64(g)), dv, v, wLo, wHi}
+		}
+		return v
+	}
+	for d := 0; start-d >= g0 || start+d <= g1; d++ {
+		if start-d >= g0 {
+			least = min(least, group(start-d))
+		}
+		if d > 0 && start+d <= g1 {
+			least = min(least, group(start+d))
 		}
 		if least <= stop {
 			return least
@@ -709,6 +737,10 @@ func (f *feedbackPlan) sumsQBLeast(dv *device, bd bounds, rLo, rHi, rAt, stop, k
 	}
 	return least
 }
+
+// qbGroup is how many blocks of sums share one kept least in
+// sumsQBLeast.
+const qbGroup = 32
 
 // blockSettles reports whether F-RF's block of RC levels with sums in
 // [rLo, rHi] is over the threshold by its other floors fl, of which qfl
