@@ -47,11 +47,25 @@ type feedbackPlan struct {
 	// blocks memoizes sumsQBLeast's blocks: blocks[i] is block
 	// blockBase + i (ln R/qbBlockStep), from the least level to twice the
 	// largest.
-	blocks    []fbEntry
+	blocks    []keptFloor
 	blockBase int
 	// groups keeps, per group of qbGroup blocks, their least floor and
 	// the IC window it holds for (the blocks' windows' intersection).
-	groups []fbEntry
+	groups []keptFloor
+}
+
+// keptFloor is a floor of device dv's builds kept with the IC window
+// [icLo, icHi] it was taken for; it holds for every window inside that
+// one (a floor over more builds is a floor over fewer).
+type keptFloor struct {
+	dv                *device
+	floor, icLo, icHi float64
+}
+
+// holds reports whether the kept floor is one for device dv's builds in
+// the window of bd.
+func (k *keptFloor) holds(dv *device, bd bounds) bool {
+	return k.dv == dv && k.icLo <= bd.icLo && k.icHi >= bd.icHi
 }
 
 // qbEntry is betaQFloorRC of device dv at the grid cell key for the IC
@@ -153,8 +167,8 @@ func (f *feedbackPlan) setGrid() {
 		f.wb = make([]wbEntry, 1<<f.fbBits)
 		f.qb = make([]qbEntry, 1<<(f.fbBits-qbFewerBits))
 		f.blockBase = int(math.Floor(math.Log(lv[0].ohm) / qbBlockStep))
-		f.blocks = make([]fbEntry, int(math.Floor(math.Log(2*lv[len(lv)-1].ohm)/qbBlockStep))-f.blockBase+1)
-		f.groups = make([]fbEntry, (len(f.blocks)+qbGroup-1)/qbGroup)
+		f.blocks = make([]keptFloor, int(math.Floor(math.Log(2*lv[len(lv)-1].ohm)/qbBlockStep))-f.blockBase+1)
+		f.groups = make([]keptFloor, (len(f.blocks)+qbGroup-1)/qbGroup)
 	}
 	clear(f.grid)
 	clear(f.fb)
@@ -658,18 +672,18 @@ func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, 
 
 // betaQFloorRC is betaQFloorSums over grid cell g, [R(g), R(g+1)] (a
 // floor at every sum in it), memoized in f.qb like fb.
-func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) *qbFloors {
+func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) qbFloors {
 	k := uint64(int64(g))
 	slot := &f.qb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits+qbFewerBits)]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi && slot.xLo == xLo {
-		return &slot.parts
+		return slot.parts
 	}
 	*slot = qbEntry{key: k, dv: dv, icLo: bd.icLo, icHi: bd.icHi, xLo: xLo,
 		parts: f.betaQFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1), xLo, kE, vceLo, vceHi)}
-	return &slot.parts
+	return slot.parts
 }
 
-// qbBlockStep is the width (in ln Ω) of the blocks of sums sumsQBFloor
+// qbBlockStep is the width (in ln Ω) of the blocks of sums sumsQBLeast
 // takes F-QB over: 0.25 %.
 const qbBlockStep = 0.0025
 
@@ -690,13 +704,13 @@ func (f *feedbackPlan) sumsQBLeast(dv *device, bd bounds, rLo, rHi, rAt, stop, k
 	}
 	floorAt := func(b int) float64 {
 		v := &f.blocks[b]
-		if v.dv == dv && v.icLo <= bd.icLo && v.icHi >= bd.icHi && (v.floor > stop || v.icLo == bd.icLo && v.icHi == bd.icHi) {
+		if v.holds(dv, bd) && (v.floor > stop || v.icLo == bd.icLo && v.icHi == bd.icHi) {
 			return v.floor
 		}
 		k := b + f.blockBase
 		lo, hi := math.Exp(float64(k)*qbBlockStep), math.Exp(float64(k+1)*qbBlockStep)
 		qf := f.betaQFloorSums(dv, bd, lo*(1-1e-12), hi*(1+1e-12), 0, kE, vceLo, vceHi)
-		*v = fbEntry{uint64(int64(k)), dv, qf.least(), bd.icLo, bd.icHi}
+		*v = keptFloor{dv, qf.least(), bd.icLo, bd.icHi}
 		return v.floor
 	}
 	// The blocks go by groups of qbGroup, outward from the one holding
@@ -706,10 +720,10 @@ func (f *feedbackPlan) sumsQBLeast(dv *device, bd bounds, rLo, rHi, rAt, stop, k
 	g0, g1 := b0/qbGroup, b1/qbGroup
 	least := math.Inf(1)
 	group := func(g int) float64 {
-		lo, hi := max(g*qbGroup, b0), min((g+1)*qbGroup-1, b1, len(f.blocks)-1)
+		lo, hi := max(g*qbGroup, b0), min((g+1)*qbGroup-1, b1)
 		whole := lo == g*qbGroup && hi == (g+1)*qbGroup-1
 		ge := &f.groups[g]
-		if whole && ge.dv == dv && ge.icLo <= bd.icLo && ge.icHi >= bd.icHi && ge.floor > stop {
+		if whole && ge.holds(dv, bd) && ge.floor > stop {
 			return ge.floor
 		}
 		v, wLo, wHi := math.Inf(1), 0.0, math.Inf(1)
@@ -720,7 +734,7 @@ func (f *feedbackPlan) sumsQBLeast(dv *device, bd bounds, rLo, rHi, rAt, stop, k
 		if whole {
 			// each block's floor holds for every window inside its own,
 			// so the least holds inside all of them
-			*ge = fbEntry{uint64(int64(g)), dv, v, wLo, wHi}
+			*ge = keptFloor{dv, v, wLo, wHi}
 		}
 		return v
 	}
