@@ -141,31 +141,108 @@ func (e *evaluator) transistorUse(dv *device, op solver.OperatingPoint) float64 
 	return op.PTransistor_W / dv.allowHot
 }
 
-// rcQPointUseFloor is a joint floor on w_QPoint·q + w_Utilization·max(0,
-// U − use) for a build whose IC lies in [lo, hi] and whose RC, of
-// resistance rcOhm and best allowance allow, carries IC (divider, split
-// supply): q ≥ |IC − IC_t|/IC_t and U ≥ IC²·RC/allow. The two pull IC
-// apart (a lower IC eases RC and moves off the target), so the floor is
+// qPointUseFloor is a joint floor on w_QPoint·q + w_Utilization·max(0,
+// U − use) for a build whose IC lies in [lo, hi] and one of whose parts
+// carries at least IC with a utilization of at least coef·IC² (coef its
+// resistance over its best allowance: RC in the divider and split supply,
+// RE anywhere, as IE ≥ IC): q ≥ |IC − IC_t|/IC_t. The two pull IC apart
+// (a lower IC eases the part and moves off the target), so the floor is
 // the least of their sum over the window, a convex function of IC whose
-// least lies at an end, at a kink (IC_t, or where RC's utilization
-// reaches use) or where its slope is 0 (IC = w_QPoint·allow/(2
-// w_Utilization·RC·IC_t)); per term, the floors at the window's ends
+// least lies at an end, at a kink (IC_t, or where the part's utilization
+// reaches use) or where its slope is 0 (IC = w_QPoint/(2
+// w_Utilization·coef·IC_t)); per term, the floors at the window's ends
 // are weaker.
-func (e *evaluator) rcQPointUseFloor(rcOhm, allow, use, lo, hi float64) float64 {
+func (e *evaluator) qPointUseFloor(coef, use, lo, hi float64) float64 {
 	w, it := e.s.w, e.s.icT
-	if lo > hi || allow <= 0 || rcOhm <= 0 {
+	if lo > hi || coef <= 0 {
 		return 0
 	}
 	f := func(ic float64) float64 {
-		return w.QPoint*math.Abs(ic-it)/it + w.Utilization*max(0, ic*ic*rcOhm/allow-use)
+		return w.QPoint*math.Abs(ic-it)/it + w.Utilization*max(0, ic*ic*coef-use)
 	}
 	least := min(f(lo), f(hi))
-	for _, x := range []float64{it, math.Sqrt(use * allow / rcOhm), w.QPoint * allow / (2 * w.Utilization * rcOhm * it)} {
+	for _, x := range []float64{it, math.Sqrt(use / coef), w.QPoint / (2 * w.Utilization * coef * it)} {
 		if x > lo && x < hi {
 			least = min(least, f(x))
 		}
 	}
 	return least
+}
+
+// qPointUseWindow is the IC window of qPointUseFloor with use 0: the IC
+// where w_QPoint·|IC − IC_t|/IC_t + w_Utilization·coef·IC² is at most
+// room, an interval as the sum is convex in IC (lo > hi when it is
+// empty). A build outside it has those two terms over room.
+func (e *evaluator) qPointUseWindow(coef, room float64) (lo, hi float64) {
+	w, it := e.s.w, e.s.icT
+	a, q := w.Utilization*coef, w.QPoint/it
+	if room < 0 || q <= 0 {
+		return 1, 0
+	}
+	if a <= 0 {
+		return max(0, it-room/q), it + room/q
+	}
+	// over IC_t: a·IC² + q·IC − (w_QPoint + room) ≤ 0; under it:
+	// a·IC² − q·IC + (w_QPoint − room) ≤ 0
+	disc := q*q - 4*a*(w.QPoint-room)
+	if disc < 0 {
+		return 1, 0
+	}
+	lo = max(0, (q-math.Sqrt(disc))/(2*a))
+	switch {
+	case a*it*it <= room: // IC_t is inside
+		hi = (-q + math.Sqrt(q*q+4*a*(w.QPoint+room))) / (2 * a)
+	case q/(2*a) < it: // the sum is least under IC_t, the window too
+		hi = (q + math.Sqrt(disc)) / (2 * a)
+	default: // least at IC_t, and over room there
+		return 1, 0
+	}
+	return lo, hi
+}
+
+// reUse is what bound QU-RE (reUseWindow) leaves of an RE level.
+type reUse struct {
+	// icLo, icHi is the IC window of the builds that can fit (icLo >
+	// icHi when none can)
+	icLo, icHi float64
+	// coef is the least utilization coefficient of RE (its resistance
+	// over an allowance) among the choices that fit
+	coef float64
+	// floor is the least of the QPoint, utilization and parts terms over
+	// the window among them (the parts term of RE alone)
+	floor float64
+	// parts is the least weighted parts term of RE among them: w_Parts
+	// where only a pair fits
+	parts float64
+}
+
+// reUseWindow is bound QU-RE at RE level re: RE carries IE ≥ IC, so a
+// build's QPoint term and RE's utilization are at least those of
+// qPointUseFloor with coef RE over the allowance of the value RE holds,
+// and a pair there adds its extra part. Per choice (one part, a pair)
+// the builds whose three terms fit in room have IC in qPointUseWindow;
+// the result spans the choices that can fit.
+func (e *evaluator) reUseWindow(re int, room float64) reUse {
+	l := &e.vs.levels[re]
+	r := reUse{icLo: 1, icHi: 0, coef: math.Inf(1), floor: math.Inf(1), parts: math.Inf(1)}
+	type choice struct{ allow, parts float64 }
+	for _, c := range []choice{{l.allowHotOne_W, 0}, {l.allowHotPair_W, e.s.w.Parts}} {
+		if c.allow <= 0 {
+			continue
+		}
+		k := l.ohm / c.allow
+		a, b := e.qPointUseWindow(k, room-c.parts)
+		if a > b {
+			continue
+		}
+		if r.icLo > r.icHi {
+			r.icLo, r.icHi = a, b
+		}
+		r.icLo, r.icHi, r.coef = min(r.icLo, a), max(r.icHi, b), min(r.coef, k)
+		r.floor = min(r.floor, c.parts+e.qPointUseFloor(k, 0, a, b))
+		r.parts = min(r.parts, c.parts)
+	}
+	return r
 }
 
 // transistorUseAtRC is bound U-Q at an RC level before it is solved, for

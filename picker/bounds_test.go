@@ -214,6 +214,15 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 						rbNear++
 					}
 				}
+				// B-RB: RB at or over the floor's level, the beta term
+				// over bound B from there up, for windows around the
+				// build's IC and RC
+				for _, k := range []float64{1, 1.1} {
+					from, f := e.splitRBBeta(dv, a.r[sRE], kE, a.r[sRC]/k, a.r[sRC]*k, a.op.IC_A/k, a.op.IC_A*k)
+					if lv[sRB] < from || f > math.Abs(a.beta)*(1+1e-9)+1e-12 {
+						t.Errorf("%v: RB level %d under B-RB's %d, or its floor %g over the beta term %g", a.r, lv[sRB], from, f, math.Abs(a.beta))
+					}
+				}
 			}
 			if req.Topology != solver.CollectorFeedback {
 				continue
@@ -517,7 +526,7 @@ func checkTransistorUse(t *testing.T, e *evaluator, dv *device, a *tuple) {
 	}
 }
 
-// checkRCQPointUse checks rcQPointUseFloor against a divider or
+// checkRCQPointUse checks qPointUseFloor with RC's coefficient against a divider or
 // split-supply build's exact QPoint term and RC utilization (its level's
 // best allowance), for IC windows around the build's IC and utilization
 // floors from 0 to well over RC's, where the floor's least lies at an
@@ -536,7 +545,7 @@ func checkRCQPointUse(t *testing.T, e *evaluator, a *tuple, rcOhm float64) {
 		for _, use := range []float64{0, uRC / 2, uRC * 0.99, uRC * 2} {
 			exact := f.s.w.QPoint*a.q + wu*max(0, uRC-use)
 			for _, win := range [][2]float64{{ic, ic}, {ic * 0.5, ic * 2}, {ic * 0.9, ic * 1.01}, {ic * 0.2, ic}} {
-				if got := f.rcQPointUseFloor(rcOhm, allow, use, win[0], win[1]); got > exact*(1+1e-9)+1e-15 {
+				if got := f.qPointUseFloor(rcOhm/allow, use, win[0], win[1]); got > exact*(1+1e-9)+1e-15 {
 					t.Errorf("%v: QPoint and RC utilization floor %g over the exact %g (w_U %g, use %g, IC %g in [%g, %g])", a.r, got, exact, wu, use, ic, win[0], win[1])
 				}
 			}

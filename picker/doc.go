@@ -280,8 +280,9 @@
 //     as RC falls, so going down it ends the scan), and scoreVariants
 //     takes the exact one (transistorUse) once per level tuple, not per
 //     value combination. The RC scan's level floor also takes the
-//     QPoint term's IC part and RC's utilization together
-//     (rcQPointUseFloor): a lower IC eases RC but moves off the target,
+//     QPoint term's IC part and RC's or RE's utilization (the larger
+//     coefficient; bound QU-RE) together
+//     (qPointUseFloor): a lower IC eases RC but moves off the target,
 //     and the least of their sum over the IC window is over the sum of
 //     their floors at the window's ends; TestBoundsHoldOnRandomBuilds and
 //     TestOtherTopologyBoundsHold check all three against the exact point
@@ -484,9 +485,30 @@
 // block's first threshold), so it settles the block or joins the floor
 // each level's RC scan starts from; when it settles the block, bound B
 // with R_TH from there to the largest level may settle every level above
-// it too. (RB enters IC only
-// through IB·RB, so stiff RB levels tie on the Q-point; the beta term is
-// what separates them.)
+// it too, and before RB's range is searched, bound B with R_TH from RB-IB's
+// level to the largest settles an RE whose builds all lean on beta (a
+// small RE leaves a large drop across RB, so IC follows IB). (RB enters IC
+// only through IB·RB, so stiff RB levels tie on the Q-point; the beta term
+// is what separates them.)
+//
+// Bound QU-RE (reUseWindow): RE carries IE ≥ IC and, with |VEE| set, its
+// dissipation is about (|VEE| − VBE)·IC whatever RE is, so at several
+// milliamperes RE's utilization is the largest term of the best builds
+// and nearly fixed: the QPoint term's IC part and RE's utilization
+// together bound every build at an RE level from below
+// (qPointUseFloor), and the IC where they fit within the threshold are
+// an interval (qPointUseWindow, the sum being convex in IC). Per choice
+// of RE (one part, or a pair with the best pair's allowance and its
+// extra part) the window narrows the IC window, raises the utilization
+// floor to its bottom and leaves the VCE part only what the floor leaves;
+// where only a pair fits (a single there runs too hot), RE's extra part
+// joins the floor and RB and RC hold singles (bound P). The RC scan
+// (divider and split supply) takes RE's utilization with the QPoint
+// term's IC part in the same way per level and, once a level is solved,
+// over the IC the levels beyond it can have (IC rises as RC falls, L2).
+// TestREUseWindowHolds and TestQPointUseWindowIsTheSublevelSet check it.
+// On E96 with pairs at 10 mA it took the split-supply search from over 8
+// minutes to under a second.
 //
 // # Kept parts
 //

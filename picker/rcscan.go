@@ -137,6 +137,8 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 	// skips the level), and the transistor's (bound U-Q at the level,
 	// transistorUseAtRC) with IC in that window.
 	dv := &e.devs[di]
+	// RE carries IE ≥ IC: its utilization is at least coefRE·IC²
+	coefRE := reOhm / e.vs.levels[re].allowHot_W
 	// window is the IC range of every build that can enter: within the
 	// envelope [icDn, icUp] and within d of the target (false while the
 	// threshold is +Inf).
@@ -155,7 +157,7 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 		ic, uQ, joint := icDn, 0.0, 0.0
 		if lo, hi, ok := window(); ok {
 			ic, uQ = lo, qUse(rc, lo, hi)
-			joint = e.rcQPointUseFloor(e.vs.levels[rc].ohm, e.vs.levels[rc].allowHot_W, use, lo, hi)
+			joint = e.qPointUseFloor(max(e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W, coefRE), use, lo, hi)
 		}
 		return base + e.partsFloor(rc) + max(w.Utilization*max(0, max(e.levelUseFloor(rc, ic), uQ)-use), joint)
 	}
@@ -179,11 +181,9 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 			continue
 		}
 		t := tup(rc)
-		if t.ok {
-			icOff := max(0, max(t.op.IC_A-ict, ict-icUp)) / ict
-			if base+w.QPoint*((t.op.VCE_V-vceHi)/vcc+icOff) > p.threshold() {
-				break
-			}
+		// IC only rises going down, and RE's utilization with it
+		if t.ok && base+w.QPoint*(t.op.VCE_V-vceHi)/vcc+e.qPointUseFloor(coefRE, use, t.op.IC_A, max(icUp, t.op.IC_A)) > p.threshold() {
+			break
 		}
 		e.scoreVariants(t, p, p.add, cnt)
 	}
@@ -200,7 +200,7 @@ func (e *evaluator) scanRC(p *pool, tc *tupleCache, cnt *counters, di int, lv [m
 			continue
 		}
 		t := tup(rc)
-		if t.ok && base+w.QPoint*((vceLo-t.op.VCE_V)/vcc+max(0, ict-t.op.IC_A)/ict) > p.threshold() {
+		if t.ok && base+w.QPoint*(vceLo-t.op.VCE_V)/vcc+e.qPointUseFloor(coefRE, use, 0, t.op.IC_A) > p.threshold() {
 			break
 		}
 		e.scoreVariants(t, p, p.add, cnt)

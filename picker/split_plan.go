@@ -105,8 +105,20 @@ func (sp *splitPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, vce
 		if w.QPoint > 0 {
 			d2 := (bd.thr - baseUP) / w.QPoint
 			within := e.boundsWithin(bd.thr, d2)
+			// and RE's utilization with the QPoint term's IC part
+			// (bound QU-RE)
+			ru, ok := e.reWindow(&within, re)
+			if !ok {
+				return
+			}
 			icLo, icHi = within.icLo, within.icHi
-			// and the RC band narrows to it (bound RC with δ = d2)
+			base += max(0, ru.parts-e.partsFloor(re))
+			if u := icLo * icLo * ru.coef; u > use {
+				base += w.Utilization * (u - use)
+				use = u
+			}
+			// and the RC band narrows to it (bound RC with δ the
+			// VCE part's room)
 			lo, hi := e.rcBandAll(within, reOhm, 1, kE, vceLo, vceHi)
 			if rcLo, rcHi = max(rcLo, lo), min(rcHi, hi); rcLo > rcHi {
 				return
@@ -136,7 +148,12 @@ func (sp *splitPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, vce
 		// Bound RB-IB (splitRBFloor). Below it a build saturates, or its
 		// base current heats the junction past Tj max: a solve each
 		// that the IC bounds below cannot tell from an active build.
-		rbFrom := e.vs.levelAtOrAbove(e.splitRBFloor(dv, icHi, reOhm, kE))
+		// Bound B-RB: a stage that needs a large RB to drop what RE
+		// does not leans on beta
+		rbFrom, bAll := e.splitRBBeta(dv, reOhm, kE, e.vs.levels[rcLo].ohm, e.vs.levels[rcHi].ohm, icLo, icHi)
+		if rbFrom >= n || base+w.Beta*bAll > bd.thr {
+			return
+		}
 		rbHi = e.vs.firstIn(rbFrom, n-1, max(rbFrom, n/2), singles, func(i int) bool {
 			return sp.tuple(di, i, rcLo, re, cnt).icUnder(icLo)
 		}) - 1
@@ -192,4 +209,34 @@ func (e *evaluator) splitRBFloor(dv *device, icHi, reOhm, kE float64) float64 {
 		return 0
 	}
 	return dv.betaNomMin * v / icHi
+}
+
+// splitRBBeta is bound B-RB: bound RB-IB's level (the first an active
+// build of dv at RE with IC ≤ icHi can hold; n when none) and bound B
+// with R_TH from it to the largest level, for builds with RC in [rcMin,
+// rcMax] and IC in [icLo, icHi] (0 where w_Beta is 0): a floor on the
+// beta term of every such build whatever its RB.
+func (e *evaluator) splitRBBeta(dv *device, reOhm, kE, rcMin, rcMax, icLo, icHi float64) (from int, floor float64) {
+	n := len(e.vs.levels)
+	from = e.vs.levelAtOrAbove(e.splitRBFloor(dv, icHi, reOhm, kE))
+	if from >= n || e.s.w.Beta == 0 {
+		return from, 0
+	}
+	return from, e.betaFloor(dv, betaWindow{RTH: e.vs.levels[from].ohm, RTHMax: e.vs.levels[n-1].ohm, RE: reOhm,
+		RCMin: rcMin, RCMax: rcMax, ICLo: icLo, ICHi: icHi})
+}
+
+// reWindow narrows within (bounds of the builds at RE level re that can
+// enter, its delta the room of the QPoint term's VCE part) by bound QU-RE
+// (reUseWindow, with room within.thr): the IC window to the choices' and
+// the VCE part to what their floor leaves. It returns what the bound
+// leaves, and false when no build at re can enter.
+func (e *evaluator) reWindow(within *bounds, re int) (reUse, bool) {
+	ru := e.reUseWindow(re, within.thr)
+	within.icLo, within.icHi = max(within.icLo, ru.icLo), min(within.icHi, ru.icHi)
+	if within.icLo > within.icHi || e.s.w.QPoint <= 0 {
+		return ru, within.icLo <= within.icHi
+	}
+	within.delta = min(within.delta, (within.thr-ru.floor)/e.s.w.QPoint)
+	return ru, true
 }

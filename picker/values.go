@@ -50,6 +50,10 @@ type level struct {
 	// allowHot_W is the largest derated, margined allowance at the hottest
 	// ambient among the level's values (for utilization bounds).
 	allowHot_W float64
+	// allowHotOne_W and allowHotPair_W split it: the largest among the
+	// values that are one part (a single or a kept part) and among the
+	// pairs, 0 where the level holds none.
+	allowHotOne_W, allowHotPair_W float64
 	// singles is how many of stock are singles (they come first).
 	// pairOnly is true when every value of the level is a pair (no
 	// stocked single, no kept part): any build with this level in a
@@ -176,6 +180,11 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 			l.allowHot_W = math.Max(l.allowHot_W, allow)
 		} else {
 			vs.levels = append(vs.levels, level{ohm: v.ohm, values: order[k : k+1 : len(order)], allowHot_W: allow})
+		}
+		if l := &vs.levels[len(vs.levels)-1]; v.lines[1] < 0 {
+			l.allowHotOne_W = math.Max(l.allowHotOne_W, allow)
+		} else {
+			l.allowHotPair_W = math.Max(l.allowHotPair_W, allow)
 		}
 		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
 		vs.tcrMax_PPMPerK = math.Max(vs.tcrMax_PPMPerK, math.Abs(v.spec.TCR_PPMPerK))
