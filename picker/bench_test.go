@@ -148,11 +148,10 @@ func BenchmarkBetaFloor(b *testing.B) {
 // they run only with BIASBIN_BENCH_SLOW=1, so that .ci/bench finishes in
 // a bounded time; each says why it is slow.
 var benchSlow = map[string]string{
-	"E96pairs/split-supply/10mA":        rbTies,
 	"E96pairs/collector-feedback/0.1mA": rfCap,
 	"E96pairs/collector-feedback/10mA":  feedbackTies,
 	"E96pairs/any/0.1mA":                rfCap,
-	"E96pairs/any/10mA":                 rbTies,
+	"E96pairs/any/10mA":                 feedbackTies,
 }
 
 // Why the benchSlow cases are slow (measured, issue 12).
@@ -174,12 +173,6 @@ const (
 	// best device: the junction's temperature range is wider), so it
 	// cannot (over 5 minutes at 84e9cbb).
 	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
-	// rbTies: a split-supply stage's RB enters IC only through IB·RB, so
-	// every stiff RB level ties on the Q-point and only the beta term
-	// (bound B over RB) separates them; with pairs thousands of RB levels
-	// each take an RC scan, and each tuple's many pair variants are
-	// scored one by one (498 s, 184 million solves, at 2155a97).
-	rbTies = "split supply ties the stiff RB levels; with pairs each of thousands takes an RC scan"
 )
 
 // BenchmarkTopologies: stocks as users have them — six transistor types,
