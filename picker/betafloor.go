@@ -608,9 +608,12 @@ func (bm *betaModel) withLow(p betaPoint, icLo float64) betaPoint {
 // ratio bounds what points A and B share: rho ≤ φ_A/φ_B, qk ≥ k_B/k_A
 // and dT ≥ |T_A − T_B|.
 //
-//   - |P_A − P_B| ≤ VCC·|ΔIC| + (IB_A + IB_B)·max(VBEcap, VCC): P =
-//     IC·VCC − IC²(RC + RE) − IC·IB·RE + VBE·IB and the first part has a
-//     slope within ±VCC while VCE ≥ 0; so |T_A − T_B| ≤ θ|ΔP| + 2·slack,
+//   - |P_A − P_B| ≤ s·|ΔIC| + (IB_A + IB_B)·max(VBEcap, VCC): P =
+//     IC·VCC − IC²(RC + RE) − IC·IB·RE + VBE·IB and the first part has
+//     the slope VCC − 2·IC(RC + RE), within ±VCC while VCE ≥ 0 and, with
+//     IC between the two points' extremes and RC + RE in the window's
+//     range, at most s in size (powerSlope: near mid-supply the power
+//     barely moves with IC); so |T_A − T_B| ≤ θ|ΔP| + 2·slack,
 //     and the ratio of the XTB factors is at least (1 − ΔT/T)^|XTB|, at
 //     least 1 − max(1, |XTB|)·ΔT/T (Bernoulli's inequality);
 //   - q_A/q_B = 1 − (VCE_B − VCE_A + VBE_A − VBE_B)/(VAF + VCE_B − VBE_B),
@@ -619,7 +622,7 @@ func (bm *betaModel) withLow(p betaPoint, icLo float64) betaPoint {
 //   - the c parts of k and of 1 + c·b/BR within their extremes.
 func (bm *betaModel) ratio(pa, pb betaPoint) (rho, qk, dT float64) {
 	dIC := max(0, max(pa.icUp-pb.icLo, pb.icUp-pa.icLo))
-	dT = min(bm.dT, bm.theta*(bm.vcc*dIC+(pa.ibUp+pb.ibUp)*max(bm.vbeCap, bm.vcc))+2*thermalSlack_K)
+	dT = min(bm.dT, bm.theta*(bm.powerSlope(pa, pb)*dIC+(pa.ibUp+pb.ibUp)*max(bm.vbeCap, bm.vcc))+2*thermalSlack_K)
 	// (1 − y)^a with y = ΔT/T ≤ 1 is at least 1 − a·y for a ≥ 1
 	// (Bernoulli) and at least 1 − y for a < 1: within a(a − 1)y²/2 of
 	// it, without a power
@@ -644,4 +647,18 @@ func (bm *betaModel) ratio(pa, pb betaPoint) (rho, qk, dT float64) {
 	rho = fRatio * qRatio * kc * cRatio
 	qk = 1 / (qRatio * kc)
 	return rho, qk, dT
+}
+
+// powerSlope bounds |VCC − 2·IC(RC + RE)|, the slope of IC·VCC −
+// IC²(RC + RE) in IC, for IC within both points' ranges and RC + RE
+// within the model's: the slope falls with IC and with RC + RE, so its
+// size is largest at a corner; and it is at most VCC while VCE ≥ 0.
+func (bm *betaModel) powerSlope(pa, pb betaPoint) float64 {
+	icLo, icUp := min(pa.icLo, pb.icLo), max(pa.icUp, pb.icUp)
+	rLo, rUp := bm.rcMin+bm.re, bm.rcMax+bm.reMax
+	s := max(math.Abs(bm.vcc-2*icUp*rUp), math.Abs(bm.vcc-2*icLo*rLo))
+	if math.IsNaN(s) {
+		return bm.vcc
+	}
+	return min(bm.vcc, s)
 }

@@ -3,6 +3,7 @@ package picker
 import (
 	"math"
 	"math/rand/v2"
+	"slices"
 	"testing"
 
 	"biasbin/solver"
@@ -77,6 +78,7 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 				t.Errorf("VBE %.6g outside [%.6g, %.6g] (vcc %g, %v)", op.VBE_V, vbeLo, vbeHi, vcc, r)
 			}
 			checkTransistorUse(t, e, dv, a)
+			checkPointTemperatures(t, e, dv, a, lo, hi)
 			rth := r[iR1] * r[iR2] / (r[iR1] + r[iR2])
 			if f := e.rthFloor(r[iR2], op.V_V[solver.R2], op.IB_A); f > rth*(1+1e-12) {
 				t.Errorf("R_TH floor %.6g above R_TH %.6g (%v)", f, rth, r)
@@ -202,6 +204,11 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 				t.Errorf("%v %v: beta floor %g over the beta term %g", req.Topology, a.r, f, math.Abs(a.beta))
 			}
 			checkTransistorUse(t, e, dv, a)
+			if lo, err := e.solveAt(dv, dv.lo, a.r); err == nil {
+				if hi, err := e.solveAt(dv, dv.hi, a.r); err == nil {
+					checkPointTemperatures(t, e, dv, a, lo, hi)
+				}
+			}
 			kE := 1 + 1/dv.betaNomMin
 			if req.Topology == solver.SplitSupply {
 				// RB-IB: RB at least the floor at the build's own IC, at
@@ -522,6 +529,35 @@ func checkTransistorUse(t *testing.T, e *evaluator, dv *device, a *tuple) {
 		bd := bounds{thr: e.s.w.QPoint*a.q + other, icLo: a.op.IC_A, finite: true}
 		if f := e.transistorUseFloor(dv, bd, vceLo, other); f > use*(1+1e-9) {
 			t.Errorf("%v: U-Q floor %g over the transistor's utilization %g (VCE %g, IC %g)", a.r, f, use, a.op.VCE_V, a.op.IC_A)
+		}
+	}
+}
+
+// checkPointTemperatures checks bound B's temperature step
+// (betaModel.ratio) against the junction temperatures of a build's
+// nominal points at hFE min (lo), typical (a) and max (hi): for each two,
+// the bound on how far apart their junctions are, with each point's IC
+// range its exact IC, is at least the solved difference.
+func checkPointTemperatures(t *testing.T, e *evaluator, dv *device, a *tuple, lo, hi solver.OperatingPoint) {
+	t.Helper()
+	rth, re, rc := e.baseLoop(a.r)
+	ics := []float64{lo.IC_A, a.op.IC_A, hi.IC_A}
+	bm, ok := e.newBetaModel(dv, dv.tjMax_C+thermalSlack_K, re, re, rth, rth, rc, rc, slices.Min(ics))
+	if !ok {
+		return
+	}
+	ops := []solver.OperatingPoint{lo, a.op, hi}
+	bs := []float64{bm.b1, bm.bt, bm.b2}
+	for i := range ops {
+		for j := range ops {
+			if i == j {
+				continue
+			}
+			pa := bm.point(bs[i], bm.cnAt(ops[i].IC_A), ops[i].IC_A, ops[i].IC_A)
+			pb := bm.point(bs[j], bm.cnAt(ops[j].IC_A), ops[j].IC_A, ops[j].IC_A)
+			if _, _, dT := bm.ratio(pa, pb); dT < math.Abs(ops[i].Tj_C-ops[j].Tj_C)-1e-6 {
+				t.Errorf("%v %s: junctions %.6g and %.6g °C (IC %.6g, %.6g A) apart by more than bound B's %.6g K", a.r, dv.line.Sheet.Label, ops[i].Tj_C, ops[j].Tj_C, ops[i].IC_A, ops[j].IC_A, dT)
+			}
 		}
 	}
 }
