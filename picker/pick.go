@@ -31,6 +31,7 @@ func Pick(stock Stock, req Request) (Result, error) {
 		return Result{}, err
 	}
 	s.stop, s.hit = &atomic.Bool{}, &atomic.Bool{}
+	s.values = &valueMemo{}
 	if req.TimeLimit > 0 {
 		t := time.AfterFunc(req.TimeLimit, func() { s.stop.Store(true) })
 		defer t.Stop()
@@ -212,14 +213,17 @@ func newEvaluator(s settings, stock Stock, topo solver.Topology) (*evaluator, []
 	}
 	lay := layoutOf(topo)
 	kept, at := s.keptSpecs(lay)
-	vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim, kept...)
+	vs := s.values.get(s.req.Pairs, kept, func() *valueSet {
+		vs := buildValues(lines, s.boards, s.req.Pairs, s.ambMax, s.lim, kept...)
+		return &vs
+	})
 	span := s.vcc
 	if lay.split {
 		span += s.vee
 	}
 	devs, rejected := s.transistorCandidates(stock.Transistors, lay.split)
 	slices.SortStableFunc(devs, func(a, b device) int { return int(sign64(a.line.ID - b.line.ID)) })
-	e := &evaluator{s: s, lay: lay, vs: &vs, devs: devs, span: span, stock: stock}
+	e := &evaluator{s: s, lay: lay, vs: vs, devs: devs, span: span, stock: stock}
 	e.pinKept(at)
 	e.setLabelGroups()
 	for i := range e.devs {

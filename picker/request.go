@@ -109,6 +109,9 @@ type settings struct {
 	// stop is set when Request.TimeLimit has run out; hit once a search
 	// has seen it and left work undone (evaluator.stopped)
 	stop, hit *atomic.Bool
+	// values shares the value sets of one Pick between its topologies
+	// and passes (nil: each evaluator builds its own)
+	values *valueMemo
 }
 
 // SettledRail is the rail req's single-supply builds are built on

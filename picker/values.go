@@ -4,6 +4,7 @@ import (
 	"cmp"
 	"math"
 	"slices"
+	"sync"
 
 	"biasbin/solver"
 )
@@ -60,6 +61,41 @@ type level struct {
 	// position carries at least one extra part there (bound P, doc.go).
 	singles  int
 	pairOnly bool
+}
+
+// valueMemo keeps the value sets one Pick has built: a set depends on the
+// stock lines, the boards, the limits and the hottest ambient (the same
+// for every search of one request), whether pairs are searched and the
+// kept parts, so the topologies of AnyTopology and the singles pass share
+// theirs instead of building each anew. A set is read-only once built.
+type valueMemo struct {
+	mu   sync.Mutex
+	sets []memoSet
+}
+
+// memoSet is one kept value set and what it was built for.
+type memoSet struct {
+	pairs bool
+	kept  []solver.ResistorSpec
+	vs    *valueSet
+}
+
+// get returns the set built for pairs and kept, building it with build
+// the first time (every time on a nil memo).
+func (m *valueMemo) get(pairs bool, kept []solver.ResistorSpec, build func() *valueSet) *valueSet {
+	if m == nil {
+		return build()
+	}
+	m.mu.Lock()
+	defer m.mu.Unlock()
+	for _, s := range m.sets {
+		if s.pairs == pairs && slices.Equal(s.kept, kept) {
+			return s.vs
+		}
+	}
+	vs := build()
+	m.sets = append(m.sets, memoSet{pairs: pairs, kept: slices.Clone(kept), vs: vs})
+	return vs
 }
 
 // valueSet is every value the search may put in a position, grouped into

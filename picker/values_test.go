@@ -1,6 +1,7 @@
 package picker
 
 import (
+	"slices"
 	"testing"
 
 	"biasbin/solver"
@@ -100,5 +101,43 @@ func TestValueOrder(t *testing.T) {
 	}
 	if first := vs.values[vs.levels[l].values[0]]; lines[first.lines[0]].ID != 3 {
 		t.Errorf("first single at 2000 ohm is line %d, want the 1 %% line 3", lines[first.lines[0]].ID)
+	}
+}
+
+// TestValueMemoSharesBySetting: one Pick's searches share a value set
+// only when it was built for the same pairs setting and the same kept
+// parts, and a nil memo builds every time.
+func TestValueMemoSharesBySetting(t *testing.T) {
+	builds := 0
+	build := func() *valueSet { builds++; return &valueSet{} }
+	k1 := []solver.ResistorSpec{{Nominal_Ohm: 4700, Tol: 0.05}}
+	k2 := []solver.ResistorSpec{{Nominal_Ohm: 4700, Tol: 0.1}}
+	m := &valueMemo{}
+	a := m.get(true, nil, build)
+	cases := []struct {
+		name  string
+		pairs bool
+		kept  []solver.ResistorSpec
+		same  bool // the first set again
+	}{
+		{"same setting", true, nil, true},
+		{"no pairs", false, nil, false},
+		{"a kept part", true, k1, false},
+		{"another tolerance", true, k2, false},
+	}
+	for _, c := range cases {
+		if got := m.get(c.pairs, c.kept, build); (got == a) != c.same {
+			t.Errorf("%s: shared %v, want %v", c.name, got == a, c.same)
+		}
+	}
+	if m.get(true, slices.Clone(k1), build) == m.get(true, k2, build) {
+		t.Error("the sets of two kept parts are shared")
+	}
+	if builds != 4 {
+		t.Errorf("%d sets built, want 4 (one per setting)", builds)
+	}
+	var none *valueMemo
+	if none.get(true, nil, build) == none.get(true, nil, build) {
+		t.Error("a nil memo shared a set")
 	}
 }
