@@ -83,7 +83,7 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 	}
 	var bm betaModel
 	var p1, pt, p2 betaPoint
-	for range 2 {
+	for iter := 0; ; iter++ {
 		var ok bool
 		if bm, ok = e.newBetaModel(dv, th, reOhm, reMax, rth, rthMax, rcMin, rcMax, icLo); !ok {
 			return 0
@@ -98,11 +98,21 @@ func (e *evaluator) betaFloor(dv *device, w betaWindow) float64 {
 		cn1, cn2 := bm.cnAt(y*icLo), bm.cnAt(z*icLo)
 		p1 = bm.point(bm.b1, cn1, y*icLo, bm.upRatio(bm.b1, cn1, pt)*icHi)
 		p2 = bm.point(bm.b2, cn2, z*icLo, bm.upRatio(bm.b2, cn2, pt)*icHi)
-		next := min(th, NominalAmbient_C+dv.thetaJA*max(max(p1.pUp, p2.pUp), pt.pUp)+thermalSlack_K)
-		if next >= th-0.5 {
-			break // less than half a kelvin to gain
+		if iter == 2 {
+			break
 		}
-		th = next
+		again := false
+		// Bound B-RTH (rthCap): a window open to the largest level is
+		// no wider than the builds in it can be.
+		if c := bm.rthCap(pt); c < rthMax*(1-1e-9) {
+			rthMax, again = max(rth, c), true
+		}
+		if next := min(th, NominalAmbient_C+dv.thetaJA*max(max(p1.pUp, p2.pUp), pt.pUp)+thermalSlack_K); next < th-0.5 {
+			th, again = next, true // at least half a kelvin to gain
+		}
+		if !again {
+			break
+		}
 	}
 	if math.IsInf(p1.phiMax, 1) || math.IsInf(p2.phiMax, 1) {
 		return 0
@@ -661,4 +671,13 @@ func (bm *betaModel) powerSlope(pa, pb betaPoint) float64 {
 		return bm.vcc
 	}
 	return min(bm.vcc, s)
+}
+
+// rthCap is bound B-RTH: the largest R_TH of a build whose typical point
+// is pt. Its base loop is V_TH − VBE = IB·R_TH + IE·RE with V_TH at most
+// the span, VBE > 0, IE ≥ IC ≥ pt.icLo, RE at least the model's least
+// and IB ≥ IC/(b_t·φ_max), so R_TH ≤ b_t·φ_max·(span − IC·RE)/IC, which
+// falls with IC.
+func (bm *betaModel) rthCap(pt betaPoint) float64 {
+	return bm.bt * pt.phiMax * (bm.vcc - pt.icLo*bm.re) / pt.icLo
 }

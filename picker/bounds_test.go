@@ -262,8 +262,27 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			// a block of sums around r
 			wt := e.s.w
 			both := wt.QPoint*a.q + wt.Beta*math.Abs(a.beta)
+			// F-QBU: with the utilization term of RC and RE (each
+			// carries IE ≥ IC) joined per part, from several floors
+			// already taken
+			cu := a.c
+			for i := range e.lay.n {
+				cu.val[i] = e.vs.levels[cu.lv[i]].values[0]
+			}
+			uExact := solver.EvalDissipation(e.build(cu), a.op, e.s.ambMax, e.s.lim).MaxUtilization
+			coef := max(e.vs.levels[lv[fRC]].ohm/e.vs.levels[lv[fRC]].allowHot_W, e.vs.levels[lv[fRE]].ohm/e.vs.levels[lv[fRE]].allowHot_W)
 			for _, xLo := range []float64{0, ic * 0.97, ic} {
 				qf := f.betaQFloorRC(dv, bd, f.gridIndex(r), xLo, kE, vceLo, vceHi)
+				for _, use := range []float64{0, uExact / 2, uExact} {
+					three := both + wt.Utilization*max(0, uExact-use)
+					qfu := qf.withUse(coef, use, wt.Utilization)
+					if fl := qfu.least(); fl > three*(1+1e-9)+1e-12 {
+						t.Errorf("%v: F-QBU floor %g (use %g) over the terms %g", a.r, fl, use, three)
+					}
+					if lo, hi, ok := qfu.window(three * (1 + 1e-9)); !ok || ic < lo*(1-1e-12) || ic > hi*(1+1e-12) {
+						t.Errorf("%v: IC %g outside F-QBU's window [%g, %g] (ok %v, use %g)", a.r, ic, lo, hi, ok, use)
+					}
+				}
 				if fl := qf.least(); fl > both*(1+1e-9)+1e-12 {
 					t.Errorf("%v: F-QB floor %g (currents from %g) over the terms %g", a.r, fl, xLo, both)
 				}
@@ -533,11 +552,12 @@ func checkTransistorUse(t *testing.T, e *evaluator, dv *device, a *tuple) {
 	}
 }
 
-// checkPointTemperatures checks bound B's temperature step
-// (betaModel.ratio) against the junction temperatures of a build's
-// nominal points at hFE min (lo), typical (a) and max (hi): for each two,
-// the bound on how far apart their junctions are, with each point's IC
-// range its exact IC, is at least the solved difference.
+// checkPointTemperatures checks two steps of bound B against a build's
+// nominal points at hFE min (lo), typical (a) and max (hi): the
+// temperature step (betaModel.ratio), for each two, bounds how far apart
+// their junctions are (each point's IC range its exact IC) by at least
+// the solved difference; and R_TH is at most bound B-RTH's cap
+// (betaModel.rthCap) at the typical point.
 func checkPointTemperatures(t *testing.T, e *evaluator, dv *device, a *tuple, lo, hi solver.OperatingPoint) {
 	t.Helper()
 	rth, re, rc := e.baseLoop(a.r)
@@ -545,6 +565,10 @@ func checkPointTemperatures(t *testing.T, e *evaluator, dv *device, a *tuple, lo
 	bm, ok := e.newBetaModel(dv, dv.tjMax_C+thermalSlack_K, re, re, rth, rth, rc, rc, slices.Min(ics))
 	if !ok {
 		return
+	}
+	// bound B-RTH: R_TH under the cap at the typical point
+	if c := bm.rthCap(bm.point(bm.bt, bm.cnAt(a.op.IC_A), a.op.IC_A, a.op.IC_A)); rth > c*(1+1e-9) {
+		t.Errorf("%v %s: R_TH %.6g over bound B-RTH's %.6g (IC %.6g A)", a.r, dv.line.Sheet.Label, rth, c, a.op.IC_A)
 	}
 	ops := []solver.OperatingPoint{lo, a.op, hi}
 	bs := []float64{bm.b1, bm.bt, bm.b2}

@@ -423,7 +423,9 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			// F-QB: the two together, over parts of the IC window; the
 			// parts that cannot enter narrow the window (qbLo, qbHi)
 			if w.Beta > 0 && w.QPoint > 0 {
-				qf := f.betaQFloorRC(dv, bd, g, xLo, kE, vceLo, vceHi)
+				// with RC's and RE's utilization per part (F-QBU)
+				coef := max(e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W, reOhm/e.vs.levels[re].allowHot_W)
+				qf := f.betaQFloorRC(dv, bd, g, xLo, kE, vceLo, vceHi).withUse(coef, uOwn, w.Utilization)
 				sf = nonBQ + qf.least()
 				var ok bool
 				if qbLo, qbHi, ok = qf.window(bd.thr - nonBQ); sf > bd.thr || !ok {
@@ -639,6 +641,19 @@ func (qf qbFloors) window(need float64) (lo, hi float64, ok bool) {
 		return 0, 0, false
 	}
 	return qf.lo + float64(first)*qf.step, qf.lo + float64(last+1)*qf.step, true
+}
+
+// withUse is qf with the utilization term joined to each part (bound
+// F-QBU): a build whose hottest part carries at least coef·IC² of
+// utilization (RC and RE carry IE ≥ IC in collector feedback) and whose
+// IC lies in part i has w_Utilization·max(0, U − use) at least
+// w_Utilization·max(0, coef·a² − use), a the part's least current.
+func (qf qbFloors) withUse(coef, use, wU float64) qbFloors {
+	for i := range qf.floor {
+		a := qf.lo + float64(i)*qf.step
+		qf.floor[i] += wU * max(0, coef*a*a-use)
+	}
+	return qf
 }
 
 // betaQFloorSums is bounds F-Q and F-B together (F-QB) over the sums RC +
