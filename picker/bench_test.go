@@ -157,21 +157,26 @@ var benchSlow = map[string]string{
 // Why the benchSlow cases are slow (measured, issue 12).
 const (
 	// rfCap: the largest RF cannot bring IC down to the target at a
-	// useful VCE, so the best builds are far off target (score about 1
-	// before the yield term); the threshold then admits IC within about
-	// ±70 %, and where RC + RE sets the current RF barely moves it: about
-	// 300 RF levels per (RC, RE) pair lie inside the window. Bound F-RS
-	// settles most pairs and windows (E96 singles: over a minute to 0.4 s),
-	// but with pairs the (RC, RE) pairs near saturation are many.
-	rfCap = "the largest RF cannot reach the target: the best builds score about 1, the window is wide"
+	// useful VCE, so the best builds are far off target (score about
+	// 0.73, the QPoint term about 0.27); the threshold then admits IC
+	// within about ±70 %, the RC band of every RE is every level, and the
+	// (RC, RE) pairs whose sum is near the best are many. Bound F-RS
+	// settles most pairs and windows (E96 singles: over a minute to
+	// 0.4 s); with pairs the search visits about 490 000 RE levels with
+	// over 100 block tries of F-RF each (E96 pairs at 0.1 mA: 74 s at
+	// c673903, 28–42 s once F-RS's block tries stopped costing a solve
+	// each with pairs).
+	rfCap = "the largest RF cannot reach the target: the best builds score about 0.73, the window is wide"
 	// feedbackTies: collector feedback's nominal point depends on RF and
 	// RC + RE only, so every split of RC + RE ties on the Q-point and
 	// beta terms; with pairs the plan visits the (RE, RC) pairs one by
 	// one. At 1 mA bound F-QB shows that no pair can enter (the best
-	// builds all hold singles) and the case runs in about 2–3 s; at 10 mA
-	// F-QB lies further under the two terms (0.22 against 0.32 for the
-	// best device: the junction's temperature range is wider), so it
-	// cannot (over 5 minutes at 84e9cbb).
+	// builds all hold singles) and the case runs in about 2 s; at 10 mA
+	// on E96 with pairs a single RE with a pair in RC scores about 0.45
+	// against a threshold of 0.41, but F-QB over the IC window's parts
+	// (0.26–0.28 against the beta term's 0.32; 0.30 at the build's own
+	// point) leaves the floor under the threshold, so each single RE
+	// visits some 30 000 RC levels (over a minute).
 	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
 )
 
