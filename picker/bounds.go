@@ -224,7 +224,8 @@ type reUse struct {
 // the result spans the choices that can fit.
 func (e *evaluator) reUseWindow(re int, room float64) reUse {
 	l := &e.vs.levels[re]
-	r := reUse{icLo: 1, icHi: 0, coef: math.Inf(1), floor: math.Inf(1), parts: math.Inf(1)}
+	inf := math.Inf(1)
+	r := reUse{icLo: inf, icHi: -inf, coef: inf, floor: inf, parts: inf}
 	type choice struct{ allow, parts float64 }
 	for _, c := range []choice{{l.allowHotOne_W, 0}, {l.allowHotPair_W, e.s.w.Parts}} {
 		if c.allow <= 0 {
@@ -234,9 +235,6 @@ func (e *evaluator) reUseWindow(re int, room float64) reUse {
 		a, b := e.qPointUseWindow(k, room-c.parts)
 		if a > b {
 			continue
-		}
-		if r.icLo > r.icHi {
-			r.icLo, r.icHi = a, b
 		}
 		r.icLo, r.icHi, r.coef = min(r.icLo, a), max(r.icHi, b), min(r.coef, k)
 		r.floor = min(r.floor, c.parts+e.qPointUseFloor(k, 0, a, b))

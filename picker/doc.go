@@ -313,7 +313,16 @@
 //     against the exact beta term of random builds. It also takes a range
 //     of RE, each step at the end of it that keeps the step an inequality
 //     (TestBetaModelOverRangeIsConservative checks each step against the
-//     model at either end). It is taken over a window of R_TH: per block of eight R2 levels, R_TH between rthFloor
+//     model at either end). Two steps matter most where the transistor
+//     heats: the points' junctions lie apart by θ times their power
+//     difference, and the power IC·V − IC²(RC + RE) has the slope V −
+//     2·IC(RC + RE), small near mid-supply, so the slope's size at the
+//     corners of the points' IC range bounds it (powerSlope), not V; and
+//     a window of R_TH open upward is capped at the R_TH a build whose
+//     typical point is in the IC window can have, b_t·φ_max·(span −
+//     IC·RE)/IC (bound B-RTH, rthCap: collector feedback's F-B takes RF
+//     up to the largest level). checkPointTemperatures checks both
+//     against random builds. It is taken over a window of R_TH: per block of eight R2 levels, R_TH between rthFloor
 //     of the block's first R2 and its last R2 (taken once, at the
 //     threshold of the block's first level: a wider IC window and RC band
 //     only lower it, so it stays a floor at every level of the block); with
@@ -407,7 +416,10 @@
 //     decides whether a pair in RC can enter and whether the RE can hold
 //     anything at all: collector feedback's beta term is set mostly by
 //     how far VCE lies above VBE, so where the best builds all hold
-//     singles a pair's placement cost puts every pair over.
+//     singles a pair's placement cost puts every pair over. Per grid
+//     cell it also takes RC's and RE's utilization per part (F-QBU,
+//     qbFloors.withUse: both carry IE ≥ IC, so a part's least current
+//     bounds the hotter one's).
 //   - F-G, the RF window: by F1 the RF levels with IC in the window are
 //     found by two searches, run not at the build's own sum r = RC + RE
 //     but at its two neighbours on a grid of sums (gridPoints points per
