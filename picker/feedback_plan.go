@@ -325,8 +325,8 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 	}
 	// F-RS over a block of RC levels costs a solve per try; on a stock
 	// with pairs the tries are many and seldom settle (E96 with pairs,
-	// 0.1 mA: 46 million solves, 70 s without this; 28 s with), so
-	// there F-RF's blocks go without it
+	// 0.1 mA: 46 million solves and 70 s with it, 1.8 million and 28–42 s
+	// without), so there F-RF's blocks go without it
 	rsBlocks := !e.vs.hasPairOnly()
 	gLo, gHi := n/2, n/2
 	// skip is how many RC levels the next block floor (bound

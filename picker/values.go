@@ -73,7 +73,7 @@ type valueMemo struct {
 	sets []memoSet
 }
 
-// memoSet is one kept value set and what it was built for.
+// memoSet is one value set the memo holds and what it was built for.
 type memoSet struct {
 	pairs bool
 	kept  []solver.ResistorSpec
