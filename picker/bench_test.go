@@ -175,8 +175,10 @@ const (
 	// on E96 with pairs a single RE with a pair in RC scores about 0.45
 	// against a threshold of 0.41, but F-QB over the IC window's parts
 	// (0.26–0.28 against the beta term's 0.32; 0.30 at the build's own
-	// point) leaves the floor under the threshold, so each single RE
-	// visits some 30 000 RC levels (over a minute).
+	// point) leaves the floor under the threshold; and a pair in RE, which
+	// runs cooler, brings its builds to about 0.41 too, so some 20 000
+	// pair-only RE levels each enter about 40 (RC, RE) cells (135 s and
+	// 10 million solves at 1490f67; over 5 minutes at c673903).
 	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
 )
 
