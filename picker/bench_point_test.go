@@ -20,11 +20,7 @@ import (
 func TestBenchPointsHold(t *testing.T) {
 	onlyBench := 0
 	for _, amb := range [][2]float64{{-40, 0}, {0, 50}, {35, 70}} {
-		s, err := normalize(Request{VCC_V: 9, IC_A: 2e-3, AmbientMin_C: amb[0], AmbientMax_C: amb[1]})
-		if err != nil {
-			t.Fatal(err)
-		}
-		e, _ := newEvaluator(s, mixedStock(), s.topo)
+		e := newTestEvaluator(t, mixedStock(), Request{VCC_V: 9, IC_A: 2e-3, AmbientMin_C: amb[0], AmbientMax_C: amb[1]})
 		rng := rand.New(rand.NewPCG(uint64(amb[0]+100), 5))
 		n := len(e.vs.levels)
 		for range 3000 {

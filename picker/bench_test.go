@@ -129,11 +129,7 @@ const defaultRuns = 5
 // near its target, the work the search does per R1 and R2 level.
 func BenchmarkBetaFloor(b *testing.B) {
 	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(1)}
-	s, err := normalize(Request{VCC_V: 12, IC_A: 1e-3})
-	if err != nil {
-		b.Fatal(err)
-	}
-	e, _ := newEvaluator(s, st, s.topo)
+	e := newTestEvaluator(b, st, Request{VCC_V: 12, IC_A: 1e-3})
 	w := betaWindow{RTH: 20e3, RTHMax: 20e3, RE: 1e3, RCMin: 4.7e3, RCMax: 4.7e3, ICLo: 0.95e-3, ICHi: 1.05e-3}
 	if e.betaFloor(&e.devs[0], w) <= 0 {
 		b.Fatal("no floor")

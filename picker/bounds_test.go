@@ -37,11 +37,7 @@ func TestBoundsHoldOnRandomBuilds(t *testing.T) {
 	checked, positive, positiveRange := 0, 0, 0
 	sumRatio := 0.0
 	for _, vcc := range []float64{5, 12, 30, -15} {
-		s, err := normalize(Request{VCC_V: vcc, IC_A: 1e-3})
-		if err != nil {
-			t.Fatal(err)
-		}
-		e, _ := newEvaluator(s, st, s.topo)
+		e := newTestEvaluator(t, st, Request{VCC_V: vcc, IC_A: 1e-3})
 		rng := rand.New(rand.NewPCG(uint64(math.Abs(vcc)), 1))
 		n := len(e.vs.levels)
 		for range 6000 {
@@ -176,11 +172,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 		{Topology: solver.SplitSupply, VCC_V: 12, VEE_V: -12, IC_A: 1e-3},
 		{Topology: solver.SplitSupply, VCC_V: -15, VEE_V: 5, IC_A: 1e-3},
 	} {
-		s, err := normalize(req)
-		if err != nil {
-			t.Fatal(err)
-		}
-		e, _ := newEvaluator(s, st, s.topo)
+		e := newTestEvaluator(t, st, req)
 		rng := rand.New(rand.NewPCG(uint64(math.Abs(req.VCC_V)), 2))
 		n := len(e.vs.levels)
 		for range 6000 {
@@ -427,11 +419,7 @@ func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 	for wi, wall := range walls {
 		st := Stock{Resistors: wall, Transistors: benchTransistors(6)}
 		st.Transistors[4].Sheet.ThetaJA_KPerW = 500
-		s, err := normalize(Request{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 0.1e-3})
-		if err != nil {
-			t.Fatal(err)
-		}
-		e, _ := newEvaluator(s, st, s.topo)
+		e := newTestEvaluator(t, st, Request{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 0.1e-3})
 		f := &feedbackPlan{e: e}
 		n := len(e.vs.levels)
 		rng := rand.New(rand.NewPCG(uint64(wi), 17))
@@ -709,11 +697,7 @@ func TestFactorUpBoundsFactor(t *testing.T) {
 	for _, xtb := range []float64{1.5, 0, -0.7} {
 		tr := smallNPN(1, 100, 300)
 		st := Stock{Transistors: []Transistor{tr}}
-		s, err := normalize(Request{VCC_V: 12, IC_A: 1e-3})
-		if err != nil {
-			t.Fatal(err)
-		}
-		e, _ := newEvaluator(s, st, s.topo)
+		e := newTestEvaluator(t, st, Request{VCC_V: 12, IC_A: 1e-3})
 		dv := &e.devs[0]
 		dv.typ.XTB = xtb
 		dv.xtb = newXTBTable(dv)
@@ -749,11 +733,7 @@ func TestBetaModelOverRangeIsConservative(t *testing.T) {
 	st.Transistors[2].Sheet.PD25_W = 0 // no self-heating
 	st.Transistors[3].Sheet.VAF_V = 25
 	st.Transistors[4].Sheet.ThetaJA_KPerW = 500
-	s, err := normalize(Request{VCC_V: 12, IC_A: 1e-3})
-	if err != nil {
-		t.Fatal(err)
-	}
-	e, _ := newEvaluator(s, st, s.topo)
+	e := newTestEvaluator(t, st, Request{VCC_V: 12, IC_A: 1e-3})
 	rng := rand.New(rand.NewPCG(5, 9))
 	logU := func(lo, hi float64) float64 { return lo * math.Pow(hi/lo, rng.Float64()) }
 	const tol = 1e-12
@@ -843,11 +823,7 @@ func TestFeedbackICWindowHoldsTheSublevelSet(t *testing.T) {
 	checked, narrowed := 0, 0
 	for _, vcc := range []float64{5, 12, 24} {
 		for _, ic := range []float64{0.1e-3, 1e-3, 10e-3} {
-			s, err := normalize(Request{Topology: solver.CollectorFeedback, VCC_V: vcc, IC_A: ic})
-			if err != nil {
-				t.Fatal(err)
-			}
-			e, _ := newEvaluator(s, st, s.topo)
+			e := newTestEvaluator(t, st, Request{Topology: solver.CollectorFeedback, VCC_V: vcc, IC_A: ic})
 			dv := &e.devs[0]
 			vceLo, vceHi := e.targetBand(dv)
 			kE := 1 + 1/dv.betaNomMin
@@ -909,11 +885,7 @@ func TestFeedbackICWindowHoldsTheSublevelSet(t *testing.T) {
 // case where IC at the bottom is no floor).
 func TestICFloorHoldsAcrossBands(t *testing.T) {
 	st := Stock{Resistors: seriesStock(eseries.E24, 10, 1e6, 0.01, 0.25, 100, 1000), Transistors: benchTransistors(6)}
-	s, err := normalize(Request{VCC_V: 12, IC_A: 1e-3})
-	if err != nil {
-		t.Fatal(err)
-	}
-	e, _ := newEvaluator(s, st, solver.Divider)
+	e := newTestEvaluator(t, st, Request{VCC_V: 12, IC_A: 1e-3})
 	n := len(e.vs.levels)
 	rng := rand.New(rand.NewPCG(7, 12))
 	// floorOf is the least IC of the band's builds that can pass (+Inf:

@@ -2,6 +2,7 @@ package picker
 
 import (
 	"math/rand/v2"
+	"testing"
 
 	"biasbin/solver"
 	"biasbin/solver/eseries"
@@ -53,4 +54,16 @@ func randomStock(rng *rand.Rand, nVals, nT int) Stock {
 		st.Transistors = append(st.Transistors, smallNPN(int64(1+i), hmin, hmin*(2+rng.Float64()*2)))
 	}
 	return st
+}
+
+// newTestEvaluator is the evaluator a Pick of req on st would search with
+// (req normalized, its topology's defaults filled in); bad input fails tb.
+func newTestEvaluator(tb testing.TB, st Stock, req Request) *evaluator {
+	tb.Helper()
+	s, err := normalize(req)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	e, _ := newEvaluator(s, st, s.topo)
+	return e
 }

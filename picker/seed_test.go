@@ -64,11 +64,7 @@ func TestSeedsPassOnPairWalls(t *testing.T) {
 // icUnder are false for it.
 func TestSaturatedTupleNeverBounds(t *testing.T) {
 	st := Stock{Resistors: seriesStock(eseries.E12, 10, 1e6, 0.05, 0.25, 100, 1000), Transistors: benchTransistors(1)}
-	s, err := normalize(Request{VCC_V: 12, IC_A: 0.1e-3})
-	if err != nil {
-		t.Fatal(err)
-	}
-	e, _ := newEvaluator(s, st, solver.Divider)
+	e := newTestEvaluator(t, st, Request{VCC_V: 12, IC_A: 0.1e-3})
 	lvl := func(ohm float64) int {
 		i := e.vs.levelAtOrAbove(ohm)
 		if got := e.vs.levels[i].ohm; math.Abs(got-ohm) > 1e-9*ohm {

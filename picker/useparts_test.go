@@ -76,11 +76,7 @@ func TestUseAndPartsFloorHolds(t *testing.T) {
 		lines = append(lines, Resistor{ID: int64(100 + i), Ohm: v, Tol: 0.05, TCR_PPMPerK: 100, Rated_W: rated, Qty: 10, Bin: "B"})
 	}
 	st := Stock{Resistors: lines, Transistors: []Transistor{smallNPN(1, 100, 300)}}
-	s, err := normalize(Request{VCC_V: 12, IC_A: 10e-3, Pairs: true})
-	if err != nil {
-		t.Fatal(err)
-	}
-	e, _ := newEvaluator(s, st, s.topo)
+	e := newTestEvaluator(t, st, Request{VCC_V: 12, IC_A: 10e-3, Pairs: true})
 	w := e.s.w
 	rng := rand.New(rand.NewPCG(7, 1))
 	n := len(e.vs.levels)
@@ -164,11 +160,7 @@ func TestREUseWindowHolds(t *testing.T) {
 		{Request{Topology: solver.SplitSupply, VCC_V: 9, VEE_V: -9, IC_A: 1e-3, Pairs: true}, near{}},
 	} {
 		req := cs.req
-		s, err := normalize(req)
-		if err != nil {
-			t.Fatal(err)
-		}
-		e, _ := newEvaluator(s, st, s.topo)
+		e := newTestEvaluator(t, st, req)
 		w, it := e.s.w, e.s.icT
 		rng := rand.New(rand.NewPCG(11, uint64(req.IC_A*1e6)))
 		n := len(e.vs.levels)
@@ -250,11 +242,7 @@ func TestREUseWindowHolds(t *testing.T) {
 // the window's definition (doc.go, bound QU-RE): the sum is convex in IC,
 // so the IC where it is at most the room are an interval.
 func TestQPointUseWindowIsTheSublevelSet(t *testing.T) {
-	s, err := normalize(Request{VCC_V: 12, IC_A: 10e-3})
-	if err != nil {
-		t.Fatal(err)
-	}
-	e, _ := newEvaluator(s, Stock{Transistors: []Transistor{smallNPN(1, 100, 300)}}, s.topo)
+	e := newTestEvaluator(t, Stock{Transistors: []Transistor{smallNPN(1, 100, 300)}}, Request{VCC_V: 12, IC_A: 10e-3})
 	w, it := e.s.w, e.s.icT
 	f := func(coef, ic float64) float64 {
 		return w.QPoint*math.Abs(ic-it)/it + w.Utilization*coef*ic*ic
