@@ -39,6 +39,10 @@ type tuple struct {
 	betaDone bool
 	betaOK   bool
 	beta     float64 // signed relative spread
+	// floorAt caches betaFloorAt for the tuple's value variants (valid
+	// when floorDone)
+	floorAt   float64
+	floorDone bool
 	// bench is why the 25 °C points at hFE min, typical or max break the
 	// VCE margin or leave the active region (nil when none does; set
 	// with the beta spread).

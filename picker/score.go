@@ -26,12 +26,21 @@ func (e *evaluator) scoreVariants(t *tuple, p *pool, keep func(*evaluated), cnt 
 	// bound U-Q at the tuple: the transistor's utilization is the same
 	// for every combination and part of each one's (scoreOne's second
 	// check, with the same terms)
-	if base+e.s.w.Utilization*e.transistorUse(&e.devs[t.c.dev], t.op) > thr {
+	base += e.s.w.Utilization * e.transistorUse(&e.devs[t.c.dev], t.op)
+	if base > thr {
 		return
 	}
+	// bound B at the tuple: the floor of the beta term is the same for
+	// every combination too (scoreOne's third check, with the same terms
+	// and the floor it takes from the same cache)
+	if w := e.s.w; !t.betaDone && w.Beta > 0 && !math.IsInf(thr, 1) {
+		if base += w.Beta * e.betaFloorAt(t); base > thr {
+			return
+		}
+	}
 	// bound P: a combination with more positions filled by a pair than
-	// the threshold leaves room for, with the terms already known, cannot
-	// enter (scoreOne's first check, with the same sum), so only the
+	// the threshold leaves room for, with the terms and floors already
+	// known, cannot enter (scoreOne's checks, with the same sums), so only the
 	// combinations with at most maxPairs pairs are formed: a level's
 	// singles come first in its stock, and a kept part is one part.
 	maxPairs := 0
@@ -176,13 +185,21 @@ func (e *evaluator) extraParts(c combo) float64 {
 // betaFloorAt is betaFloor at a solved tuple: its exact base-loop
 // resistances (baseLoop) and nominal IC (0 unless the tuple is active at
 // its nominal point).
+//
+// It depends on the tuple alone, so it is computed once and kept on the
+// tuple for all of its value variants.
 func (e *evaluator) betaFloorAt(t *tuple) float64 {
+	if t.floorDone {
+		return t.floorAt
+	}
+	t.floorDone = true
 	if t.op.Region != solver.Active {
 		return 0
 	}
 	ic := t.op.IC_A
 	rth, re, rc := e.baseLoop(t.r)
-	return e.betaFloor(&e.devs[t.c.dev], betaWindow{RTH: rth, RTHMax: rth, RE: re, RCMin: rc, RCMax: rc, ICLo: ic, ICHi: ic})
+	t.floorAt = e.betaFloor(&e.devs[t.c.dev], betaWindow{RTH: rth, RTHMax: rth, RE: re, RCMin: rc, RCMax: rc, ICLo: ic, ICHi: ic})
+	return t.floorAt
 }
 
 // baseLoop maps a build's resistances onto the divider's base loop that
