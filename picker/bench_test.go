@@ -158,23 +158,22 @@ const (
 	// within about ±70 %, the RC band of every RE is every level, and the
 	// (RC, RE) pairs whose sum is near the best are many. Bound F-RS
 	// settles most pairs and windows (E96 singles: over a minute to
-	// 0.4 s); with pairs the search visits about 490 000 RE levels with
-	// over 100 block tries of F-RF each (E96 pairs at 0.1 mA: 74 s at
-	// c673903, 28–42 s once F-RS's block tries stopped costing a solve
-	// each with pairs).
+	// 0.4 s); with pairs the search visits about 490 000 RE levels, and
+	// F-RF's blocks of RC levels, taken cell by cell of the grid of sums
+	// with F-QBU (cellsSettle), bring it to about 16–20 s (E96 pairs at
+	// 0.1 mA: 74 s at c673903, 28–42 s at f826b68).
 	rfCap = "the largest RF cannot reach the target: the best builds score about 0.73, the window is wide"
 	// feedbackTies: collector feedback's nominal point depends on RF and
 	// RC + RE only, so every split of RC + RE ties on the Q-point and
 	// beta terms; with pairs the plan visits the (RE, RC) pairs one by
 	// one. At 1 mA bound F-QB shows that no pair can enter (the best
-	// builds all hold singles) and the case runs in about 2 s; at 10 mA
+	// builds all hold singles) and the case runs in about 1.3 s; at 10 mA
 	// on E96 with pairs a single RE with a pair in RC scores about 0.45
-	// against a threshold of 0.41, but F-QB over the IC window's parts
-	// (0.26–0.28 against the beta term's 0.32; 0.30 at the build's own
-	// point) leaves the floor under the threshold; and a pair in RE, which
-	// runs cooler, brings its builds to about 0.41 too, so some 20 000
-	// pair-only RE levels each enter about 40 (RC, RE) cells (135 s and
-	// 10 million solves at 1490f67; over 5 minutes at c673903).
+	// against a threshold of 0.41, and a pair in RE, which runs cooler,
+	// brings its builds to about 0.41 too, so some 450 000 (RC, RE)
+	// pairs reach their RF window and 10 million tuples are solved, each
+	// settled by bound B at the tuple (22–25 s: 135 s at f826b68, over 5
+	// minutes at c673903).
 	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
 )
 

@@ -178,13 +178,8 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 		for range 6000 {
 			di := rng.IntN(len(e.devs))
 			lv := [maxPos]int{rng.IntN(n), rng.IntN(n), rng.IntN(n)}
-			a := e.newTuple(di, lv)
-			if !a.ok || a.op.Region != solver.Active {
-				continue
-			}
-			var cnt counters
-			e.betaSpread(a, &cnt)
-			if !a.betaOK || a.bench != nil {
+			a, ok := benchedTuple(e, di, lv)
+			if !ok {
 				continue
 			}
 			checked[req.Topology]++
@@ -264,7 +259,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			uExact := solver.EvalDissipation(e.build(cu), a.op, e.s.ambMax, e.s.lim).MaxUtilization
 			coef := max(e.vs.levels[lv[fRC]].ohm/e.vs.levels[lv[fRC]].allowHot_W, e.vs.levels[lv[fRE]].ohm/e.vs.levels[lv[fRE]].allowHot_W)
 			for _, xLo := range []float64{0, ic * 0.97, ic} {
-				qf := f.betaQFloorRC(dv, bd, f.gridIndex(r), xLo, kE, vceLo, vceHi)
+				qf := f.betaQFloorRC(dv, bd, f.gridIndex(r), xLo, kE, vceLo, vceHi).parts
 				for _, use := range []float64{0, uExact / 2, uExact} {
 					three := both + wt.Utilization*max(0, uExact-use)
 					qfu := qf.withUse(coef, use, wt.Utilization)
@@ -284,6 +279,18 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 					t.Errorf("%v: IC %g outside F-QB's window [%g, %g] (ok %v, currents from %g)", a.r, ic, lo, hi, ok, xLo)
 				} else if hi-lo < 0.999*(bd.icHi-max(bd.icLo, xLo)) {
 					qbNarrow++
+				}
+			}
+			// F-QBU over a block of RC levels, cell by cell of the grid of
+			// sums (cellsSettle, kept least per group of cells included):
+			// a block that holds this build's RC level does not settle
+			// at a threshold of the terms it bounds
+			for _, span := range []int{0, 2, 60} {
+				rc0, last := max(0, lv[fRC]-span), min(n-1, lv[fRC]+span)
+				at := bd
+				at.thr = (both+wt.Utilization*uExact)*(1+1e-9) + 1e-12
+				if f.cellsSettle(di, at, rc0, last, lv[fRE], 0, 0, kE, vceLo, vceHi, &cnt2) {
+					t.Errorf("%v: F-QBU over RC levels %d..%d settles at the build's own terms %g", a.r, rc0, last, at.thr)
 				}
 			}
 			// over the kept blocks of sums of a band around r, scanned in
@@ -942,4 +949,82 @@ func TestICFloorHoldsAcrossBands(t *testing.T) {
 		t.Errorf("%d bands saturated at the top and active under icHi at the bottom, %d of %d floors carried: the test does not reach its cases", bottomOnly, covered, checked)
 	}
 	t.Logf("%d bands, %d saturated at the top with the bottom under icHi, %d floors carried to a larger R2", checked, bottomOnly, covered)
+}
+
+// TestCellsSettleHoldsWithPairs checks cellsSettle on a stock with
+// pairs: a block of RC levels that holds a build's RC level does not
+// settle at a threshold of the terms it bounds for that build (solved by
+// solver.SolveSelfHeated, the reference). Half the blocks start at a
+// pair-only level below a single (RC's parts floor is the least over the
+// block); half have RF at the top levels and reach far up (the IC floor
+// of each cell and of whole groups of cells).
+func TestCellsSettleHoldsWithPairs(t *testing.T) {
+	st := Stock{Resistors: seriesStock(eseries.E12, 10, 1e6, 0.05, 0.25, 100, 1000), Transistors: benchTransistors(3)}
+	req := Request{Topology: solver.CollectorFeedback, VCC_V: 12, IC_A: 1e-3, Pairs: true}
+	e := newTestEvaluator(t, st, req)
+	rng := rand.New(rand.NewPCG(7, 11))
+	n := len(e.vs.levels)
+	wt := e.s.w
+	checked, top := 0, 0
+	for i := range 40000 {
+		di := rng.IntN(len(e.devs))
+		lv := [maxPos]int{rng.IntN(n), rng.IntN(n), rng.IntN(n)}
+		rc := lv[fRC]
+		if e.vs.levels[rc].pairOnly || rc < 3 {
+			continue
+		}
+		// every other build has RF at the top levels, where the IC
+		// floor of a cell (icFloorAbove) is close to the build's own,
+		// and its block of RC levels reaches far up (whole groups of
+		// cells)
+		rc0, last := rc-1-rng.IntN(3), rc
+		if i%2 == 1 {
+			lv[fRF] = n - 1 - rng.IntN(3)
+			rc0, last = rc-rng.IntN(3), min(n-1, rc+rng.IntN(400))
+		}
+		if i%2 == 0 && !e.vs.levels[rc0].pairOnly {
+			continue
+		}
+		a, ok := benchedTuple(e, di, lv)
+		if !ok {
+			continue
+		}
+		var cnt counters
+		dv := &e.devs[di]
+		kE := 1 + 1/dv.betaNomMin
+		vceLo, vceHi := e.targetBand(dv)
+		c := a.c
+		for i := range e.lay.n {
+			c.val[i] = e.vs.levels[c.lv[i]].values[0] // RC's is a single
+		}
+		u := solver.EvalDissipation(e.build(c), a.op, e.s.ambMax, e.s.lim).MaxUtilization
+		ic := a.op.IC_A
+		f := &feedbackPlan{e: e}
+		f.setGrid()
+		for _, k := range []float64{1.1, 1.001} {
+			bd := bounds{icLo: ic / k, icHi: ic * k, finite: true}
+			bd.thr = (wt.QPoint*a.q+wt.Beta*math.Abs(a.beta)+wt.Utilization*u)*(1+1e-9) + 1e-12
+			if f.cellsSettle(di, bd, rc0, last, lv[fRE], 0, 0, kE, vceLo, vceHi, &cnt) {
+				t.Errorf("%v: F-QBU over RC levels %d..%d settles at the build's own terms %g (IC window ×/÷ %g)", a.r, rc0, last, bd.thr, k)
+			}
+		}
+		checked++
+		top += i % 2
+	}
+	if checked < 400 || top < 200 {
+		t.Fatalf("only %d builds checked, %d at the top RF levels", checked, top)
+	}
+}
+
+// benchedTuple solves the level tuple lv of device di with its beta
+// spread; ok is false unless it is active at its nominal point and its
+// three bench points keep the VCE margin (the premise of the bounds).
+func benchedTuple(e *evaluator, di int, lv [maxPos]int) (*tuple, bool) {
+	a := e.newTuple(di, lv)
+	if !a.ok || a.op.Region != solver.Active {
+		return a, false
+	}
+	var cnt counters
+	e.betaSpread(a, &cnt)
+	return a, a.betaOK && a.bench == nil
 }

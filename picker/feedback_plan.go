@@ -26,6 +26,15 @@ type feedbackPlan struct {
 	// point of RC + RE, RF level) (rfWindow); lnStep is the grid's step
 	grid   map[uint64]float64 // keyed by gridKey
 	lnStep float64
+	// gridA and gridB give the grid's points without an exponential
+	// (gridOhm): R(g) = gridA[g >> gridSplit]·gridB[g & (2^gridSplit −
+	// 1)] for g ≥ 0 up to above twice the largest level
+	gridA, gridB []float64
+	// above memoizes icFloorAbove of the device being searched by grid
+	// point, direct-mapped at slot g & cellMask: neighbouring points,
+	// which the search visits in a row, never take each other's slot
+	above    []aboveEntry
+	cellMask uint64
 	// gridDev is the device whose solves grid holds, plus one (0: none)
 	gridDev int
 	// fb memoizes betaFloorRC by grid cell of sums RC + RE (the grid of
@@ -40,10 +49,15 @@ type feedbackPlan struct {
 	// wb memoizes betaFloorWindow by device, grid cell of sums, RF window
 	// and IC window, direct-mapped like fb, with as many slots.
 	wb []wbEntry
-	// qb memoizes betaQFloorRC like fb (the same key with xLo), with a
-	// quarter of fb's slots (an entry is three times the size, and only
-	// the cells that pass the cheaper bounds reach it).
+	// qb memoizes betaQFloorRC by grid cell (the same key as fb's, with
+	// xLo), direct-mapped like above.
 	qb []qbEntry
+	// cellGroups keeps, per group of cellGroup neighbouring cells (g /
+	// cellGroup, direct-mapped with a slot for every group between the
+	// least level and twice the largest, not capped like qb), the
+	// least of their qb entries' least, with the device and IC window it
+	// holds for (cellsSettle).
+	cellGroups []cellGroupEntry
 	// blocks memoizes sumsQBLeast's blocks: blocks[i] is block
 	// blockBase + i (ln R/qbBlockStep), from the least level to twice the
 	// largest.
@@ -68,6 +82,19 @@ func (k *keptFloor) holds(dv *device, bd bounds) bool {
 	return k.dv == dv && k.icLo <= bd.icLo && k.icHi >= bd.icHi
 }
 
+// aboveEntry is icFloorAbove's value x at grid point g for device dev
+// (feedbackPlan.gridDev: 0 is none).
+type aboveEntry struct {
+	g, dev int
+	x      float64
+}
+
+// cellGroupEntry is the kept least of the cells of group k (cellsSettle).
+type cellGroupEntry struct {
+	k int
+	keptFloor
+}
+
 // qbEntry is betaQFloorRC of device dv at the grid cell key for the IC
 // window [icLo, icHi] and currents at least xLo.
 type qbEntry struct {
@@ -75,6 +102,7 @@ type qbEntry struct {
 	dv              *device
 	icLo, icHi, xLo float64
 	parts           qbFloors
+	least           float64 // parts.least()
 }
 
 // wbEntry is betaFloorWindow of device dv at grid cell g and RF levels
@@ -84,9 +112,6 @@ type wbEntry struct {
 	dv                *device
 	floor, icLo, icHi float64
 }
-
-// qbFewerBits is how many bits fewer qb's slots take than fb's.
-const qbFewerBits = 2
 
 // fbMemoBits caps feedbackPlan.fbBits (2^18 slots: 10 MB of fb and 15 MB
 // of wb per worker).
@@ -156,6 +181,26 @@ func (f *feedbackPlan) setGrid() {
 		step = min(step, math.Log(lv[n-1].ohm/lv[0].ohm)/float64(n-1)/gridPoints)
 	}
 	f.lnStep = math.Log1p(step)
+	if f.gridA == nil && len(lv) > 0 {
+		top := int(math.Ceil(math.Log(2*lv[len(lv)-1].ohm)/f.lnStep)) + 2
+		for k := 0; k <= top>>gridSplit; k++ {
+			f.gridA = append(f.gridA, math.Exp(float64(k<<gridSplit)*f.lnStep))
+		}
+		f.gridB = make([]float64, 1<<gridSplit)
+		for j := range f.gridB {
+			f.gridB[j] = math.Exp(float64(j) * f.lnStep)
+		}
+		// the memos by grid point: about twice as many slots as the
+		// points between the least level and twice the largest, at most
+		// 2^cellMemoBits
+		cells := uint64(math.Log(2*lv[len(lv)-1].ohm/lv[0].ohm)/f.lnStep) + 2
+		b := min(cellMemoBits, bits.Len64(cells)+1)
+		f.cellMask = 1<<b - 1
+		f.above = make([]aboveEntry, 1<<b)
+		f.qb = make([]qbEntry, 1<<b)
+		f.cellGroups = make([]cellGroupEntry, 1<<bits.Len64(cells>>cellGroupBits+1))
+	}
+	clear(f.above)
 	if f.grid == nil {
 		f.grid = map[uint64]float64{}
 	}
@@ -165,7 +210,6 @@ func (f *feedbackPlan) setGrid() {
 		f.fbBits = min(fbMemoBits, bits.Len64(cells)+1)
 		f.fb = make([]fbEntry, 1<<f.fbBits)
 		f.wb = make([]wbEntry, 1<<f.fbBits)
-		f.qb = make([]qbEntry, 1<<(f.fbBits-qbFewerBits))
 		f.blockBase = int(math.Floor(math.Log(lv[0].ohm) / qbBlockStep))
 		f.blocks = make([]keptFloor, int(math.Floor(math.Log(2*lv[len(lv)-1].ohm)/qbBlockStep))-f.blockBase+1)
 		f.groups = make([]keptFloor, (len(f.blocks)+qbGroup-1)/qbGroup)
@@ -174,12 +218,28 @@ func (f *feedbackPlan) setGrid() {
 	clear(f.fb)
 	clear(f.wb)
 	clear(f.qb)
+	clear(f.cellGroups)
 	clear(f.blocks)
 	clear(f.groups)
 }
 
-// gridOhm is the grid's point g: e^(g·lnStep) Ω.
-func (f *feedbackPlan) gridOhm(g int) float64 { return math.Exp(float64(g) * f.lnStep) }
+// gridOhm is the grid's point g: e^(g·lnStep) Ω, for g ≥ 0 the product
+// of gridA's and gridB's entries (within rounding of the exponential: the
+// grid only needs to rise with g and to be read the same everywhere).
+func (f *feedbackPlan) gridOhm(g int) float64 {
+	if k := g >> gridSplit; g >= 0 && k < len(f.gridA) {
+		return f.gridA[k] * f.gridB[g&(1<<gridSplit-1)]
+	}
+	return math.Exp(float64(g) * f.lnStep)
+}
+
+// gridSplit is how many low bits of a grid point gridOhm reads from
+// gridB.
+const gridSplit = 10
+
+// cellMemoBits caps the memos by grid point (2^16 slots: 14 MB of qb
+// per worker).
+const cellMemoBits = 16
 
 // gridIndex is the grid point g with R(g) ≤ r < R(g+1).
 func (f *feedbackPlan) gridIndex(r float64) int {
@@ -199,11 +259,22 @@ func (f *feedbackPlan) gridIndex(r float64) int {
 // F-G), read on the grid so that every RE shares it, less the grid's
 // slack.
 func (f *feedbackPlan) icFloorAbove(di, g int, cnt *counters) float64 {
-	_, rfTop := f.e.levelRange(fRF)
-	if v := f.gridIC(di, g+1, rfTop, cnt); !math.IsNaN(v) {
-		return v * (1 - gridSlack)
+	var slot *aboveEntry
+	if f.gridDev == di+1 && f.above != nil {
+		slot = &f.above[uint64(int64(g))&f.cellMask]
+		if slot.dev == f.gridDev && slot.g == g {
+			return slot.x
+		}
 	}
-	return 0
+	_, rfTop := f.e.levelRange(fRF)
+	x := 0.0
+	if v := f.gridIC(di, g+1, rfTop, cnt); !math.IsNaN(v) {
+		x = v * (1 - gridSlack)
+	}
+	if slot != nil {
+		*slot = aboveEntry{g, f.gridDev, x}
+	}
+	return x
 }
 
 // gridKey is the grid's key of (grid point g, RF level rf): one word
@@ -370,7 +441,8 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			fl := pfRE + w.Utilization*max(uRE, f.uRC(bd, rc)) + w.Emitter*eLo + w.QPoint*q
 			if fl > bd.thr || skip > 1 && w.Beta > 0 && fl+w.Beta*f.betaFloorRC(dv, bd, gHi) > bd.thr &&
 				f.blockSettles(dv, bd, rLo, rHi, rAt, fl, w.QPoint*q, kE, vceLo, vceHi) ||
-				rsBlocks && skip > 1 && w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*rLo) && fl+w.Headroom*f.headroomBelow(di, n, rc, last, re, cnt) > bd.thr {
+				rsBlocks && skip > 1 && w.Headroom > 0 && e.nearSaturation(dv, e.s.vcc-xLo*rLo) && fl+w.Headroom*f.headroomBelow(di, n, rc, last, re, cnt) > bd.thr ||
+				!rsBlocks && skip > 1 && w.Beta > 0 && w.QPoint > 0 && f.cellsSettle(di, bd, rc, last, re, uRE, w.Emitter*eLo+pfRE, kE, vceLo, vceHi, cnt) {
 				rc = last
 				skip *= 2
 				continue
@@ -430,7 +502,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			if w.Beta > 0 && w.QPoint > 0 {
 				// with RC's and RE's utilization per part (F-QBU)
 				coef := max(e.vs.levels[rc].ohm/e.vs.levels[rc].allowHot_W, reOhm/e.vs.levels[re].allowHot_W)
-				qf := f.betaQFloorRC(dv, bd, g, xLo, kE, vceLo, vceHi).withUse(coef, uOwn, w.Utilization)
+				qf := f.betaQFloorRC(dv, bd, g, xLo, kE, vceLo, vceHi).parts.withUse(coef, uOwn, w.Utilization)
 				sf = nonBQ + qf.least()
 				var ok bool
 				if qbLo, qbHi, ok = qf.window(bd.thr - nonBQ); sf > bd.thr || !ok {
@@ -542,6 +614,62 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		}
 	}
 }
+
+// cellsSettle is bound F-QBU over a block of RC levels rc..last at RE
+// level re (bound F-RF's block, taken cell by cell of the grid of sums):
+// every build there has RC + RE in one of the cells g its sums span, IC
+// at least icFloorAbove(g) (F-RF), its QPoint and beta terms at least
+// F-QB over the cell with that floor (betaQFloorRC, the per-pair floor's
+// own), RC's parts floor the least over the block's levels, and RC or
+// RE carrying IE ≥ IC with at least coef·IC² of utilization, coef the
+// larger of RC's least resistance over the best allowance of any value
+// and RE's over its own (F-QBU); other is the floors of the emitter term
+// and RE's parts, and uRE RE's utilization floor. It reports whether
+// every cell's floor is over the threshold.
+func (f *feedbackPlan) cellsSettle(di int, bd bounds, rc, last, re int, uRE, other, kE, vceLo, vceHi float64, cnt *counters) bool {
+	e := f.e
+	w, lv, dv := e.s.w, e.vs.levels, &e.devs[di]
+	pfRC := e.partsFloor(rc)
+	if s := e.vs.nextSingle[rc]; s <= last {
+		pfRC = min(pfRC, e.partsFloor(s))
+	}
+	use := max(uRE, f.uRC(bd, rc))
+	coef := max(lv[rc].ohm/e.vs.allowHotMax_W, lv[re].ohm/lv[re].allowHot_W)
+	other += pfRC + w.Utilization*use
+	over := func(qb *qbEntry) bool {
+		return other+qb.least > bd.thr || other+qb.parts.withUse(coef, use, w.Utilization).least() > bd.thr
+	}
+	for g, gHi := f.gridIndex(lv[rc].ohm+lv[re].ohm), f.gridIndex(lv[last].ohm+lv[re].ohm); g <= gHi; g++ {
+		if g%cellGroup == 0 && g+cellGroup-1 <= gHi && f.cellGroups != nil {
+			// a whole group of cells inside the range first takes F-QB
+			// over the group's sums, [R(g), R(g + cellGroup)], with the
+			// current floor at its top (withUse only adds, so that
+			// floor holds under it too): one floor for cellGroup cells
+			k := &f.cellGroups[uint64(int64(g/cellGroup))&uint64(len(f.cellGroups)-1)]
+			if k.k != g/cellGroup || !k.holds(dv, bd) {
+				top := g + cellGroup - 1
+				qf := f.betaQFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(top+1), f.icFloorAbove(di, top, cnt), kE, vceLo, vceHi)
+				*k = cellGroupEntry{g / cellGroup, keptFloor{dv, qf.least(), bd.icLo, bd.icHi}}
+			}
+			if other+k.floor > bd.thr {
+				g += cellGroup - 1
+				continue
+			}
+		}
+		// withUse only adds: a cell already over without it is over
+		if !over(f.betaQFloorRC(dv, bd, g, f.icFloorAbove(di, g, cnt), kE, vceLo, vceHi)) {
+			return false
+		}
+	}
+	return true
+}
+
+// cellGroup is how many neighbouring cells of the grid of sums share one
+// kept least in cellsSettle: 2^cellGroupBits.
+const (
+	cellGroupBits = 5
+	cellGroup     = 1 << cellGroupBits
+)
 
 // headroomBelow is the headroom term's floor of bound F-RS: a lower
 // bound on the headroom term of every build of device di with RC level
@@ -695,15 +823,20 @@ func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, 
 
 // betaQFloorRC is betaQFloorSums over grid cell g, [R(g), R(g+1)] (a
 // floor at every sum in it), memoized in f.qb like fb.
-func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) qbFloors {
+func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) *qbEntry {
 	k := uint64(int64(g))
-	slot := &f.qb[(k*0x9e3779b97f4a7c15)>>(64-f.fbBits+qbFewerBits)]
-	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi && slot.xLo == xLo {
-		return slot.parts
+	var slot *qbEntry
+	if f.qb != nil {
+		slot = &f.qb[uint64(int64(g))&f.cellMask]
+	} else {
+		slot = new(qbEntry) // no memo yet (setGrid)
 	}
-	*slot = qbEntry{key: k, dv: dv, icLo: bd.icLo, icHi: bd.icHi, xLo: xLo,
-		parts: f.betaQFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1), xLo, kE, vceLo, vceHi)}
-	return slot.parts
+	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi && slot.xLo == xLo {
+		return slot
+	}
+	parts := f.betaQFloorSums(dv, bd, f.gridOhm(g), f.gridOhm(g+1), xLo, kE, vceLo, vceHi)
+	*slot = qbEntry{key: k, dv: dv, icLo: bd.icLo, icHi: bd.icHi, xLo: xLo, parts: parts, least: parts.least()}
+	return slot
 }
 
 // qbBlockStep is the width (in ln Ω) of the blocks of sums sumsQBLeast
