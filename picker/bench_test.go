@@ -140,7 +140,8 @@ func BenchmarkBetaFloor(b *testing.B) {
 }
 
 // benchSlow names the BenchmarkTopologies cases that miss their goal by
-// far (over half a minute on a shared machine when measured, issue 12):
+// far (16–26 s against 2 s on a shared two-core machine when last
+// measured, issue 12):
 // they run only with BIASBIN_BENCH_SLOW=1, so that .ci/bench finishes in
 // a bounded time; each says why it is slow.
 var benchSlow = map[string]string{

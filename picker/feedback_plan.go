@@ -396,8 +396,9 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 	}
 	// F-RS over a block of RC levels costs a solve per try; on a stock
 	// with pairs the tries are many and seldom settle (E96 with pairs,
-	// 0.1 mA: 46 million solves and 70 s with it, 1.8 million and 28–42 s
-	// without), so there F-RF's blocks go without it
+	// 0.1 mA at f826b68: 46 million solves and 70 s with it, 1.8 million
+	// and 28–42 s without), so there F-RF's blocks go without it (and
+	// take F-QBU cell by cell instead, cellsSettle)
 	rsBlocks := !e.vs.hasPairOnly()
 	gLo, gHi := n/2, n/2
 	// skip is how many RC levels the next block floor (bound

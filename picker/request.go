@@ -30,8 +30,8 @@ const (
 	DefaultVCEWindow = 0.20
 	// DefaultTimeLimit is the search time limit a front end offers by
 	// default (Request.TimeLimit; the zero Request has none): long enough
-	// for every benchmark case but those in benchSlow (over half a
-	// minute), short enough that a technician is never left waiting for
+	// for every benchmark case, those in benchSlow included (16–26 s when
+	// last measured), short enough that a technician is never left waiting for
 	// minutes.
 	DefaultTimeLimit = 30 * time.Second
 	// DefaultYieldBoards is the Monte Carlo size per finalist when
