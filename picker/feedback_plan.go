@@ -54,9 +54,9 @@ type feedbackPlan struct {
 	qb []qbEntry
 	// cellGroups keeps, per group of cellGroup neighbouring cells (g /
 	// cellGroup, direct-mapped with a slot for every group between the
-	// least level and twice the largest, not capped like qb), the
-	// least of their qb entries' least, with the device and IC window it
-	// holds for (cellsSettle).
+	// least level and twice the largest, not capped like qb), F-QB's
+	// least over the group's sums, with the device and IC window it holds
+	// for (cellsSettle).
 	cellGroups []cellGroupEntry
 	// blocks memoizes sumsQBLeast's blocks: blocks[i] is block
 	// blockBase + i (ln R/qbBlockStep), from the least level to twice the
@@ -89,7 +89,8 @@ type aboveEntry struct {
 	x      float64
 }
 
-// cellGroupEntry is the kept least of the cells of group k (cellsSettle).
+// cellGroupEntry is F-QB's kept least over the sums of group k of cells
+// (cellsSettle).
 type cellGroupEntry struct {
 	k int
 	keptFloor
@@ -172,8 +173,9 @@ const gridPoints = 4
 const gridMax = 1 << 18
 
 // setGrid sets the grid's step from the stock's levels (gridPoints per
-// mean level spacing, at most 0.5 %) and empties the grid's solves and
-// the memos by grid cell (fb, wb).
+// mean level spacing, at most 0.5 %), allocates the tables and memos
+// once (gridOhm's, by grid cell and by grid point) and empties the grid's
+// solves and every memo.
 func (f *feedbackPlan) setGrid() {
 	lv := f.e.vs.levels
 	step := 0.005
@@ -181,8 +183,12 @@ func (f *feedbackPlan) setGrid() {
 		step = min(step, math.Log(lv[n-1].ohm/lv[0].ohm)/float64(n-1)/gridPoints)
 	}
 	f.lnStep = math.Log1p(step)
-	if f.gridA == nil && len(lv) > 0 {
-		top := int(math.Ceil(math.Log(2*lv[len(lv)-1].ohm)/f.lnStep)) + 2
+	if f.grid == nil {
+		f.grid = map[uint64]float64{}
+	}
+	if f.fb == nil && len(lv) > 0 {
+		least, largest := lv[0].ohm, lv[len(lv)-1].ohm
+		top := int(math.Ceil(math.Log(2*largest)/f.lnStep)) + 2
 		for k := 0; k <= top>>gridSplit; k++ {
 			f.gridA = append(f.gridA, math.Exp(float64(k<<gridSplit)*f.lnStep))
 		}
@@ -190,30 +196,25 @@ func (f *feedbackPlan) setGrid() {
 		for j := range f.gridB {
 			f.gridB[j] = math.Exp(float64(j) * f.lnStep)
 		}
-		// the memos by grid point: about twice as many slots as the
-		// points between the least level and twice the largest, at most
-		// 2^cellMemoBits
-		cells := uint64(math.Log(2*lv[len(lv)-1].ohm/lv[0].ohm)/f.lnStep) + 2
-		b := min(cellMemoBits, bits.Len64(cells)+1)
-		f.cellMask = 1<<b - 1
-		f.above = make([]aboveEntry, 1<<b)
-		f.qb = make([]qbEntry, 1<<b)
-		f.cellGroups = make([]cellGroupEntry, 1<<bits.Len64(cells>>cellGroupBits+1))
-	}
-	clear(f.above)
-	if f.grid == nil {
-		f.grid = map[uint64]float64{}
-	}
-	if f.fb == nil && len(lv) > 0 {
 		// the memos by grid cell of sums
-		cells := uint64(math.Log(lv[len(lv)-1].ohm/lv[0].ohm)/f.lnStep) + 2
+		cells := uint64(math.Log(largest/least)/f.lnStep) + 2
 		f.fbBits = min(fbMemoBits, bits.Len64(cells)+1)
 		f.fb = make([]fbEntry, 1<<f.fbBits)
 		f.wb = make([]wbEntry, 1<<f.fbBits)
-		f.blockBase = int(math.Floor(math.Log(lv[0].ohm) / qbBlockStep))
-		f.blocks = make([]keptFloor, int(math.Floor(math.Log(2*lv[len(lv)-1].ohm)/qbBlockStep))-f.blockBase+1)
+		// the memos by grid point: about twice as many slots as the
+		// points between the least level and twice the largest, at most
+		// 2^cellMemoBits (cellGroups not capped)
+		points := uint64(math.Log(2*largest/least)/f.lnStep) + 2
+		b := min(cellMemoBits, bits.Len64(points)+1)
+		f.cellMask = 1<<b - 1
+		f.above = make([]aboveEntry, 1<<b)
+		f.qb = make([]qbEntry, 1<<b)
+		f.cellGroups = make([]cellGroupEntry, 1<<bits.Len64(points>>cellGroupBits+1))
+		f.blockBase = int(math.Floor(math.Log(least) / qbBlockStep))
+		f.blocks = make([]keptFloor, int(math.Floor(math.Log(2*largest)/qbBlockStep))-f.blockBase+1)
 		f.groups = make([]keptFloor, (len(f.blocks)+qbGroup-1)/qbGroup)
 	}
+	clear(f.above)
 	clear(f.grid)
 	clear(f.fb)
 	clear(f.wb)
@@ -625,8 +626,11 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 // RE carrying IE ≥ IC with at least coef·IC² of utilization, coef the
 // larger of RC's least resistance over the best allowance of any value
 // and RE's over its own (F-QBU); other is the floors of the emitter term
-// and RE's parts, and uRE RE's utilization floor. It reports whether
-// every cell's floor is over the threshold.
+// and RE's parts, and uRE RE's utilization floor. A whole group of
+// cellGroup cells first takes F-QB once over the group's sums, with the
+// IC floor at its top (kept per group); only a group that does not
+// settle so is taken cell by cell. It reports whether every cell's floor
+// is over the threshold.
 func (f *feedbackPlan) cellsSettle(di int, bd bounds, rc, last, re int, uRE, other, kE, vceLo, vceHi float64, cnt *counters) bool {
 	e := f.e
 	w, lv, dv := e.s.w, e.vs.levels, &e.devs[di]
@@ -637,9 +641,6 @@ func (f *feedbackPlan) cellsSettle(di int, bd bounds, rc, last, re int, uRE, oth
 	use := max(uRE, f.uRC(bd, rc))
 	coef := max(lv[rc].ohm/e.vs.allowHotMax_W, lv[re].ohm/lv[re].allowHot_W)
 	other += pfRC + w.Utilization*use
-	over := func(qb *qbEntry) bool {
-		return other+qb.least > bd.thr || other+qb.parts.withUse(coef, use, w.Utilization).least() > bd.thr
-	}
 	for g, gHi := f.gridIndex(lv[rc].ohm+lv[re].ohm), f.gridIndex(lv[last].ohm+lv[re].ohm); g <= gHi; g++ {
 		if g%cellGroup == 0 && g+cellGroup-1 <= gHi && f.cellGroups != nil {
 			// a whole group of cells inside the range first takes F-QB
@@ -658,7 +659,8 @@ func (f *feedbackPlan) cellsSettle(di int, bd bounds, rc, last, re int, uRE, oth
 			}
 		}
 		// withUse only adds: a cell already over without it is over
-		if !over(f.betaQFloorRC(dv, bd, g, f.icFloorAbove(di, g, cnt), kE, vceLo, vceHi)) {
+		qb := f.betaQFloorRC(dv, bd, g, f.icFloorAbove(di, g, cnt), kE, vceLo, vceHi)
+		if other+qb.least <= bd.thr && other+qb.parts.withUse(coef, use, w.Utilization).least() <= bd.thr {
 			return false
 		}
 	}
@@ -826,12 +828,7 @@ func (f *feedbackPlan) betaQFloorSums(dv *device, bd bounds, rLo, rHi, xLo, kE, 
 // floor at every sum in it), memoized in f.qb like fb.
 func (f *feedbackPlan) betaQFloorRC(dv *device, bd bounds, g int, xLo, kE, vceLo, vceHi float64) *qbEntry {
 	k := uint64(int64(g))
-	var slot *qbEntry
-	if f.qb != nil {
-		slot = &f.qb[uint64(int64(g))&f.cellMask]
-	} else {
-		slot = new(qbEntry) // no memo yet (setGrid)
-	}
+	slot := &f.qb[k&f.cellMask]
 	if slot.key == k && slot.dv == dv && slot.icLo == bd.icLo && slot.icHi == bd.icHi && slot.xLo == xLo {
 		return slot
 	}
