@@ -1,0 +1,285 @@
+package picker
+
+import "math"
+
+// Bound F-T: floors on the terms of the builds whose RC + RE lies in a
+// span of the grid of sums and whose RF lies in a range of levels, taken
+// from the grid's solves at the two corners, before any build there is
+// solved (doc.go, "The collector-feedback plan").
+
+// sumRFFloor is bound F-T over the builds of device di with RC + RE in
+// [R(gLo), R(gHi)) and RF in levels a..b.
+type sumRFFloor struct {
+	ok bool // false: the corners could not be solved, no floor
+	// icLo and ieHi bound the nominal IC from below and IE from above
+	icLo, ieHi float64
+	// qb bounds w_QPoint·q + w_Beta·β from below, use the transistor's
+	// utilization
+	qb, use float64
+}
+
+// sumRFFloorOf is bound F-T. By F1 and F-G the nominal IC of such a build
+// lies between IC at (R(gHi), RF b) and at (R(gLo), RF a). KVL round the
+// loop RF–base–emitter gives VCE = VBE + IB·RF, KCL IE = IC + IB, and
+// VCE = VCC − IE·(RC + RE), so with r = RC + RE
+//
+//	VCE = (VCC − r·IC + r·VBE/RF)/(1 + r/RF),
+//
+// which falls as r or IC rises and rises with VBE whatever the others
+// are, and is monotonic in RF for fixed others: over the box of r, IC,
+// VBE (vbeBounds) and RF its least and largest values lie at corners.
+// The QPoint term is at least IC's distance from the target plus VCE's
+// from the target band [vceLo, vceHi] over the span; bound B with R_TH
+// over RF's range, RE' over the sums' and IC's range bounds the beta
+// term; the transistor dissipates at least IC·VCE; and IE ≤ IC + (VCE −
+// VBE)/RF.
+func (f *feedbackPlan) sumRFFloorOf(di, gLo, gHi, a, b int, vceLo, vceHi float64, cnt *counters) sumRFFloor {
+	top, bottom := f.gridIC(di, gLo, a, cnt), f.gridIC(di, gHi, b, cnt)
+	if math.IsNaN(top) || math.IsNaN(bottom) || !(bottom > 0) {
+		return sumRFFloor{}
+	}
+	e := f.e
+	dv := &e.devs[di]
+	w, vcc, it := e.s.w, e.s.vcc, e.s.icT
+	icLo, icHi := bottom*(1-gridSlack), top*(1+gridSlack)
+	rLo, rHi := f.gridOhm(gLo), f.gridOhm(gHi)
+	fLo, fHi := e.vs.levels[a].ohm, e.vs.levels[b].ohm
+	vbeLo, vbeHi := e.vbeBounds(dv, icLo, icHi)
+	vce := func(r, ic, vbe, rf float64) float64 { return (vcc - r*ic + r*vbe/rf) / (1 + r/rf) }
+	vceMin := min(vce(rHi, icHi, vbeLo, fLo), vce(rHi, icHi, vbeLo, fHi)) - vcc*1e-9
+	vceMax := max(vce(rLo, icLo, vbeHi, fLo), vce(rLo, icLo, vbeHi, fHi)) + vcc*1e-9
+	q := max(0, icLo-it, it-icHi)/it + max(0, vceMin-vceHi, vceLo-vceMax)/e.span
+	beta := 0.0
+	if w.Beta > 0 {
+		beta = e.betaFloor(dv, betaWindow{RTH: fLo, RTHMax: fHi, RE: rLo, REMax: rHi, ICLo: icLo, ICHi: icHi})
+	}
+	fl := sumRFFloor{ok: true, icLo: icLo, ieHi: icHi + max(0, vceMax-vbeLo)/fLo, qb: (w.QPoint*q + w.Beta*beta) * (1 - 1e-12)}
+	if !math.IsInf(dv.allowHot, 1) {
+		fl.use = icLo * max(0, vceMin) / dv.allowHot
+	}
+	return fl
+}
+
+// rfCellEntry is bound F-T of the device being searched (dev:
+// feedbackPlan.gridDev) over the sums of span g (rfCellPoints grid
+// cells) and the RF levels of block rf (rfCellLevels levels).
+type rfCellEntry struct {
+	g, rf, dev int
+	sumRFFloor
+}
+
+// The spans of bound F-T per tuple: 2^rfCellShift grid cells of sums
+// (about 0.02 % of the sum on the E96 wall with pairs) by rfCellLevels
+// RF levels. Wider spans share more and settle less.
+const (
+	rfCellShift  = 3
+	rfCellLevels = 8
+)
+
+// rfCellMemoBits caps feedbackPlan.rfCellBits (2^18 slots: 17 MB per
+// worker).
+const rfCellMemoBits = 18
+
+// rfCell is bound F-T over the span of sums holding grid cell g and the
+// block of RF levels holding rf, kept in f.rfCells (direct-mapped at a
+// hash of the two), which every (RC, RE) pair whose sum falls in the span
+// shares.
+func (f *feedbackPlan) rfCell(di, g, rf int, vceLo, vceHi float64, cnt *counters) *rfCellEntry {
+	g, rf = g>>rfCellShift, rf/rfCellLevels
+	k := gridKey(g, rf)
+	slot := &f.rfCells[(k*0x9e3779b97f4a7c15)>>(64-f.rfCellBits)]
+	if slot.dev == f.gridDev && slot.g == g && slot.rf == rf {
+		return slot
+	}
+	a, b := rf*rfCellLevels, min((rf+1)*rfCellLevels, len(f.e.vs.levels))-1
+	*slot = rfCellEntry{g, rf, f.gridDev, f.sumRFFloorOf(di, g<<rfCellShift, (g+1)<<rfCellShift, a, b, vceLo, vceHi, cnt)}
+	return slot
+}
+
+// rfCellSettles reports whether bound F-T settles every build of device
+// di at levels (rf, rc, re), whose sum RC + RE lies in grid cell g: the
+// floors of rfCell with the emitter term's from IC's and IE's bounds,
+// RC's and RE's utilization (each carries IE ≥ IC) over its own level's
+// best allowance, and the parts floors pf (RC and RE) and RF's. It
+// returns the floors too.
+func (f *feedbackPlan) rfCellSettles(di, g, rf, rc, re int, pf, vceLo, vceHi, thr float64, cnt *counters) (*rfCellEntry, bool) {
+	c := f.rfCell(di, g, rf, vceLo, vceHi, cnt)
+	if !c.ok {
+		return c, false
+	}
+	e := f.e
+	w, lv := e.s.w, e.vs.levels
+	fl := pf + e.partsFloor(rf) + c.qb
+	if fl > thr {
+		return c, true
+	}
+	reOhm := lv[re].ohm
+	if e.lay.emitterBand {
+		fl += w.Emitter * (max(0, c.icLo*reOhm-e.s.veHi) + max(0, e.s.veLo-c.ieHi*reOhm)) / e.s.vcc
+	}
+	u := max(c.use, c.icLo*c.icLo*max(lv[rc].ohm/lv[rc].allowHot_W, reOhm/lv[re].allowHot_W))
+	return c, fl+w.Utilization*u > thr
+}
+
+// sumCellEntry is bound F-T's least over a span of sums of device dev
+// (feedbackPlan.gridDev), taken at threshold thr (sumCell).
+type sumCellEntry struct {
+	dev     int
+	thr     float64
+	qb, qbu float64
+}
+
+// sumCellShift sets the spans of sumCell: 2^sumCellShift grid cells of
+// sums (about 0.09 % of the sum on the E96 wall with pairs).
+const sumCellShift = 5
+
+// sumCellLevels is the fewest RF levels sumCell splits further.
+const sumCellLevels = 8
+
+// sumCell bounds the builds of device di whose RC + RE lies in span G of
+// the grid of sums (grid cells G·2^sumCellShift up to the next span) from
+// below: qb bounds w_QPoint·q + w_Beta·β and qbu that plus w_Utilization
+// times the transistor's utilization. A build with its nominal IC outside
+// bd's window scores over bd.thr, and by F1 and F-G the others have RF in
+// the levels whose IC at the span's ends can meet the window (as
+// rfWindow). Those are split in halves, bound F-T taken on each, while it
+// is at most bd.thr and the part is wider than sumCellLevels; the least
+// over the parts it leaves (and bd.thr, for the builds the window and the
+// parts over it rule out) is a floor of every build in the span that does
+// not score over bd.thr, so of every build that can enter then or later
+// (the threshold only falls). It is kept per span (f.sumCells).
+func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *counters) *sumCellEntry {
+	slot := &f.sumCells[0]
+	if i := G - f.sumCellBase; i >= 0 && i < len(f.sumCells) {
+		slot = &f.sumCells[i]
+		if slot.dev == f.gridDev {
+			return slot
+		}
+	} else {
+		slot = &sumCellEntry{}
+	}
+	e := f.e
+	w, lv := e.s.w, e.vs.levels
+	n := len(lv)
+	gLo, gHi := G<<sumCellShift, (G+1)<<sumCellShift
+	lo := firstLevel(n, func(i int) bool {
+		v := f.gridIC(di, gHi, i, cnt)
+		return math.IsNaN(v) || v <= bd.icHi*(1+gridSlack)
+	})
+	hi := firstLevel(n, func(i int) bool {
+		v := f.gridIC(di, gLo, i, cnt)
+		return !math.IsNaN(v) && v < bd.icLo*(1-gridSlack)
+	}) - 1
+	lo, hi = e.clampRange(fRF, lo, hi)
+	*slot = sumCellEntry{dev: f.gridDev, thr: bd.thr, qb: bd.thr, qbu: bd.thr}
+	var stack [64][2]int
+	top := 0
+	if lo <= hi {
+		stack[0] = [2]int{lo, hi}
+		top = 1
+	}
+	for top > 0 {
+		top--
+		a, b := stack[top][0], stack[top][1]
+		fl := f.sumRFFloorOf(di, gLo, gHi, a, b, vceLo, vceHi, cnt)
+		if fl.ok && fl.qb > bd.thr {
+			continue
+		}
+		if b-a+1 <= sumCellLevels || top+2 > len(stack) {
+			if !fl.ok {
+				fl = sumRFFloor{}
+			}
+			slot.qb = min(slot.qb, fl.qb)
+			slot.qbu = min(slot.qbu, fl.qb+w.Utilization*fl.use)
+			continue
+		}
+		m := int(uint(a+b) >> 1)
+		stack[top], stack[top+1] = [2]int{m + 1, b}, [2]int{a, m}
+		top += 2
+	}
+	return slot
+}
+
+// sumCellNext is bound F-T over the spans of sums in the RC scan of RE
+// level re: a span's floors (sumCell) with other (RE's parts floor and
+// the emitter term's floor, which hold at this RE) and the utilization
+// floors uRE (RE's and the transistor's) and RC's (U-RC at the span's
+// least RC: it rises with RC) bound every build whose RC + RE lies in
+// the span. It returns the first RC level from rc on that can hold a
+// build under bd: in the first span whose floor is at most bd.thr, and a
+// level holding a single where a pair's part puts the span's floor over
+// (rcHi + 1: none up to rcHi).
+func (f *feedbackPlan) sumCellNext(di, rc, rcHi, re int, bd bounds, other, uRE, vceLo, vceHi float64, cnt *counters) int {
+	e := f.e
+	w, lv := e.s.w, e.vs.levels
+	reOhm := lv[re].ohm
+	top := lv[rcHi].ohm + reOhm
+	G := f.gridIndex(lv[rc].ohm+reOhm) >> sumCellShift
+	for {
+		// skip the spans known to hold nothing that can enter
+		G = f.sumCellBase + f.liveSpan(G-f.sumCellBase)
+		start := f.gridOhm(G << sumCellShift)
+		if start > top {
+			return rcHi + 1
+		}
+		c := f.sumCell(di, G, bd, vceLo, vceHi, cnt)
+		if c.qbu > bd.thr {
+			f.markDead(G - f.sumCellBase)
+			G++
+			continue
+		}
+		uP := max(uRE, bd.icLo*bd.icLo*max(lv[rc].ohm, start*(1-1e-12)-reOhm)/e.vs.allowHotMax_W)
+		if fl := other + max(c.qbu, c.qb+w.Utilization*uP); fl <= bd.thr {
+			// the span can hold a build: its first level from rc on
+			// (rc itself, or the first whose sum lies in the span)
+			if f.gridIndex(lv[rc].ohm+reOhm)>>sumCellShift < G {
+				from := rc
+				rc = max(rc+1, e.vs.levelAtOrAbove(start-reOhm))
+				for rc-1 > from && f.gridIndex(lv[rc-1].ohm+reOhm)>>sumCellShift >= G {
+					rc--
+				}
+				for rc <= rcHi && f.gridIndex(lv[rc].ohm+reOhm)>>sumCellShift < G {
+					rc++
+				}
+				if rc > rcHi {
+					return rc
+				}
+			}
+			if !lv[rc].pairOnly || fl+e.partsFloor(rc) <= bd.thr {
+				return rc
+			}
+			// no room for a pair in RC: the span's first single
+			if s := e.vs.nextSingle[rc]; s <= rcHi && f.gridIndex(lv[s].ohm+reOhm)>>sumCellShift == G {
+				return s
+			}
+		}
+		G++
+	}
+}
+
+// liveSpan is the first span from i on (an index of f.sumCells) not
+// known to hold nothing that can enter: f.spanNext links each such span
+// to the next (union-find with path halving); i itself where i lies
+// outside the memo.
+func (f *feedbackPlan) liveSpan(i int) int {
+	if i < 0 || i >= len(f.spanNext) {
+		return i
+	}
+	for {
+		j := int(f.spanNext[i])
+		if j == i || j >= len(f.spanNext) {
+			return j
+		}
+		k := int(f.spanNext[j])
+		f.spanNext[i] = int32(k)
+		i = k
+	}
+}
+
+// markDead records that span i (an index of f.sumCells) holds nothing
+// that can enter: its floor is over the threshold, which only falls.
+func (f *feedbackPlan) markDead(i int) {
+	if i >= 0 && i < len(f.spanNext) {
+		f.spanNext[i] = int32(i + 1)
+	}
+}
