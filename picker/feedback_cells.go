@@ -143,11 +143,12 @@ const sumCellLevels = 8
 // bd's window scores over bd.thr, and by F1 and F-G the others have RF in
 // the levels whose IC at the span's ends can meet the window (as
 // rfWindow). Those are split in halves, bound F-T taken on each, while it
-// is at most bd.thr and the part is wider than sumCellLevels; the least
-// over the parts it leaves (and bd.thr, for the builds the window and the
-// parts over it rule out) is a floor of every build in the span that does
-// not score over bd.thr, so of every build that can enter then or later
-// (the threshold only falls). It is kept per span (f.sumCells).
+// is at most bd.thr and under the least found so far and the part is
+// wider than sumCellLevels; the least over the parts it leaves (and
+// bd.thr, for the builds the window and the parts over it rule out) is a
+// floor of every build in the span that does not score over bd.thr, so of
+// every build that can enter then or later (the threshold only falls). It
+// is kept per span (f.sumCells).
 func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *counters) *sumCellEntry {
 	slot := &f.sumCells[0]
 	if i := G - f.sumCellBase; i >= 0 && i < len(f.sumCells) {
@@ -162,30 +163,40 @@ func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *
 	w, lv := e.s.w, e.vs.levels
 	n := len(lv)
 	gLo, gHi := G<<sumCellShift, (G+1)<<sumCellShift
-	lo := firstLevel(n, func(i int) bool {
+	// the last span's window is the guess: neighbouring spans' are close
+	lo := firstFrom(n, f.spanRF[0], func(i int) bool {
 		v := f.gridIC(di, gHi, i, cnt)
 		return math.IsNaN(v) || v <= bd.icHi*(1+gridSlack)
 	})
-	hi := firstLevel(n, func(i int) bool {
+	hi := firstFrom(n, f.spanRF[1]+1, func(i int) bool {
 		v := f.gridIC(di, gLo, i, cnt)
 		return !math.IsNaN(v) && v < bd.icLo*(1-gridSlack)
 	}) - 1
+	f.spanRF = [2]int{lo, hi}
 	lo, hi = e.clampRange(fRF, lo, hi)
 	*slot = sumCellEntry{dev: f.gridDev, thr: bd.thr, qb: bd.thr, qbu: bd.thr}
-	var stack [64][2]int
+	// Depth first, the part with the lower floor first: a part whose
+	// floor is over the threshold, or no lower than the least found so
+	// far (both with and without the transistor's utilization), cannot
+	// lower the least and is not split.
+	type part struct {
+		a, b int
+		fl   sumRFFloor
+	}
+	var stack [64]part
 	top := 0
 	if lo <= hi {
-		stack[0] = [2]int{lo, hi}
+		stack[0] = part{lo, hi, f.sumRFFloorOf(di, gLo, gHi, lo, hi, vceLo, vceHi, cnt)}
 		top = 1
 	}
 	for top > 0 {
 		top--
-		a, b := stack[top][0], stack[top][1]
-		fl := f.sumRFFloorOf(di, gLo, gHi, a, b, vceLo, vceHi, cnt)
-		if fl.ok && fl.qb > bd.thr {
+		pt := stack[top]
+		fl := pt.fl
+		if fl.ok && (fl.qb > bd.thr || fl.qb >= slot.qb && fl.qb+w.Utilization*fl.use >= slot.qbu) {
 			continue
 		}
-		if b-a+1 <= sumCellLevels || top+2 > len(stack) {
+		if pt.b-pt.a+1 <= sumCellLevels || top+2 > len(stack) {
 			if !fl.ok {
 				fl = sumRFFloor{}
 			}
@@ -193,8 +204,13 @@ func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *
 			slot.qbu = min(slot.qbu, fl.qb+w.Utilization*fl.use)
 			continue
 		}
-		m := int(uint(a+b) >> 1)
-		stack[top], stack[top+1] = [2]int{m + 1, b}, [2]int{a, m}
+		m := int(uint(pt.a+pt.b) >> 1)
+		l := part{pt.a, m, f.sumRFFloorOf(di, gLo, gHi, pt.a, m, vceLo, vceHi, cnt)}
+		r := part{m + 1, pt.b, f.sumRFFloorOf(di, gLo, gHi, m+1, pt.b, vceLo, vceHi, cnt)}
+		if l.fl.ok && (!r.fl.ok || r.fl.qb < l.fl.qb) {
+			l, r = r, l
+		}
+		stack[top], stack[top+1] = r, l
 		top += 2
 	}
 	return slot
@@ -215,16 +231,22 @@ func (f *feedbackPlan) sumCellNext(di, rc, rcHi, re int, bd bounds, other, uRE, 
 	reOhm := lv[re].ohm
 	top := lv[rcHi].ohm + reOhm
 	G := f.gridIndex(lv[rc].ohm+reOhm) >> sumCellShift
+	// where other holds a pair's part (RE's), the links of the spans a
+	// pair's part puts over
+	links, part := f.spanNext[0], 0.0
+	if w.Parts > 0 && other >= w.Parts {
+		links, part = f.spanNext[1], w.Parts
+	}
 	for {
 		// skip the spans known to hold nothing that can enter
-		G = f.sumCellBase + f.liveSpan(G-f.sumCellBase)
+		G = f.sumCellBase + liveSpan(links, G-f.sumCellBase)
 		start := f.gridOhm(G << sumCellShift)
 		if start > top {
 			return rcHi + 1
 		}
 		c := f.sumCell(di, G, bd, vceLo, vceHi, cnt)
-		if c.qbu > bd.thr {
-			f.markDead(G - f.sumCellBase)
+		if c.qbu+part > bd.thr {
+			markDead(links, G-f.sumCellBase)
 			G++
 			continue
 		}
@@ -257,29 +279,29 @@ func (f *feedbackPlan) sumCellNext(di, rc, rcHi, re int, bd bounds, other, uRE, 
 	}
 }
 
-// liveSpan is the first span from i on (an index of f.sumCells) not
-// known to hold nothing that can enter: f.spanNext links each such span
-// to the next (union-find with path halving); i itself where i lies
-// outside the memo.
-func (f *feedbackPlan) liveSpan(i int) int {
-	if i < 0 || i >= len(f.spanNext) {
+// liveSpan is the first span from i on (an index of
+// feedbackPlan.sumCells) not known to hold nothing that can enter: links
+// ties each such span to the next (union-find with path halving); i
+// itself where i lies outside.
+func liveSpan(links []int32, i int) int {
+	if i < 0 || i >= len(links) {
 		return i
 	}
 	for {
-		j := int(f.spanNext[i])
-		if j == i || j >= len(f.spanNext) {
+		j := int(links[i])
+		if j == i || j >= len(links) {
 			return j
 		}
-		k := int(f.spanNext[j])
-		f.spanNext[i] = int32(k)
+		k := int(links[j])
+		links[i] = int32(k)
 		i = k
 	}
 }
 
-// markDead records that span i (an index of f.sumCells) holds nothing
-// that can enter: its floor is over the threshold, which only falls.
-func (f *feedbackPlan) markDead(i int) {
-	if i >= 0 && i < len(f.spanNext) {
-		f.spanNext[i] = int32(i + 1)
+// markDead records in links that span i holds nothing that can enter:
+// its floor is over the threshold, which only falls.
+func markDead(links []int32, i int) {
+	if i >= 0 && i < len(links) {
+		links[i] = int32(i + 1)
 	}
 }

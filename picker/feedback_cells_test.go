@@ -129,7 +129,5 @@ func TestSumFloorsHoldWithPairs(t *testing.T) {
 // for the window and threshold they were taken at.
 func resetSpans(f *feedbackPlan) {
 	clear(f.sumCells)
-	for i := range f.spanNext {
-		f.spanNext[i] = int32(i)
-	}
+	f.resetLinks()
 }

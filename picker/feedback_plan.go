@@ -63,9 +63,11 @@ type feedbackPlan struct {
 	sumCells    []sumCellEntry
 	sumCellBase int
 	// spanNext links the spans of sumCells known to hold nothing that
-	// can enter to the next one (liveSpan); a span not so known is its
-	// own link
-	spanNext []int32
+	// can enter to the next one (liveSpan): [0] for every build, [1] for
+	// builds with a pair's part; a span not so known is its own link
+	spanNext [2][]int32
+	// spanRF is the RF window sumCell found last, its next guess
+	spanRF [2]int
 	// rfCells memoizes rfCell by (span of 2^rfCellShift grid cells of
 	// sums, block of rfCellLevels RF levels) of the device being
 	// searched, direct-mapped at a hash of the two
@@ -188,7 +190,7 @@ const gridMax = 1 << 18
 // setGrid sets the grid's step from the stock's levels (gridPoints per
 // mean level spacing, at most 0.5 %), allocates the tables and memos
 // once (gridOhm's, by grid cell and by grid point) and empties the grid's
-// solves and every memo.
+// solves and the spans' links for a new device.
 func (f *feedbackPlan) setGrid() {
 	lv := f.e.vs.levels
 	step := 0.005
@@ -228,23 +230,26 @@ func (f *feedbackPlan) setGrid() {
 		f.groups = make([]keptFloor, (len(f.blocks)+qbGroup-1)/qbGroup)
 		f.sumCellBase = int(math.Floor(math.Log(least)/f.lnStep)) >> sumCellShift
 		f.sumCells = make([]sumCellEntry, (top>>sumCellShift)-f.sumCellBase+2)
-		f.spanNext = make([]int32, len(f.sumCells))
+		f.spanNext = [2][]int32{make([]int32, len(f.sumCells)), make([]int32, len(f.sumCells))}
 		f.rfCellBits = min(rfCellMemoBits, b+2)
 		f.rfCells = make([]rfCellEntry, 1<<f.rfCellBits)
 	}
-	clear(f.rfCells)
-	clear(f.sumCells)
-	for i := range f.spanNext {
-		f.spanNext[i] = int32(i)
-	}
-	clear(f.above)
+	// The other memos' entries name the device they hold for (and the
+	// IC window, where they depend on it), so they stay: a worker that
+	// comes back to a device finds them again, and clearing them cost
+	// tens of megabytes per change of device. The grid's solves and the
+	// spans' links do not name it.
 	clear(f.grid)
-	clear(f.fb)
-	clear(f.wb)
-	clear(f.qb)
-	clear(f.cellGroups)
-	clear(f.blocks)
-	clear(f.groups)
+	f.resetLinks()
+}
+
+// resetLinks makes every span of sumCells its own link (spanNext).
+func (f *feedbackPlan) resetLinks() {
+	for _, links := range f.spanNext {
+		for i := range links {
+			links[i] = int32(i)
+		}
+	}
 }
 
 // gridOhm is the grid's point g: e^(g·lnStep) Ω, for g ≥ 0 the product
