@@ -2,7 +2,6 @@ package picker
 
 import (
 	"fmt"
-	"os"
 	"slices"
 	"testing"
 	"time"
@@ -139,52 +138,12 @@ func BenchmarkBetaFloor(b *testing.B) {
 	}
 }
 
-// benchSlow names the BenchmarkTopologies cases that miss their goal by
-// far (16–26 s against 2 s on a shared two-core machine when last
-// measured, issue 12):
-// they run only with BIASBIN_BENCH_SLOW=1, so that .ci/bench finishes in
-// a bounded time; each says why it is slow.
-var benchSlow = map[string]string{
-	"E96pairs/collector-feedback/0.1mA": rfCap,
-	"E96pairs/collector-feedback/10mA":  feedbackTies,
-	"E96pairs/any/0.1mA":                rfCap,
-	"E96pairs/any/10mA":                 feedbackTies,
-}
-
-// Why the benchSlow cases are slow (measured, issue 12).
-const (
-	// rfCap: the largest RF cannot bring IC down to the target at a
-	// useful VCE, so the best builds are far off target (score about
-	// 0.73, the QPoint term about 0.27); the threshold then admits IC
-	// within about ±70 %, the RC band of every RE is every level, and the
-	// (RC, RE) pairs whose sum is near the best are many. Bound F-RS
-	// settles most pairs and windows (E96 singles: over a minute to
-	// 0.4 s); with pairs the search visits about 490 000 RE levels, and
-	// F-RF's blocks of RC levels, taken cell by cell of the grid of sums
-	// with F-QBU (cellsSettle), bring it to about 16–20 s (E96 pairs at
-	// 0.1 mA: 74 s at c673903, 28–42 s at f826b68).
-	rfCap = "the largest RF cannot reach the target: the best builds score about 0.73, the window is wide"
-	// feedbackTies: collector feedback's nominal point depends on RF and
-	// RC + RE only, so every split of RC + RE ties on the Q-point and
-	// beta terms; with pairs the plan visits the (RE, RC) pairs one by
-	// one. At 1 mA bound F-QB shows that no pair can enter (the best
-	// builds all hold singles) and the case runs in about 1.3 s; at 10 mA
-	// on E96 with pairs a single RE with a pair in RC scores about 0.45
-	// against a threshold of 0.41, and a pair in RE, which runs cooler,
-	// brings its builds to about 0.41 too, so some 450 000 (RC, RE)
-	// pairs reach their RF window and 10 million tuples are solved, each
-	// settled by bound B at the tuple (22–25 s: 135 s at f826b68, over 5
-	// minutes at c673903).
-	feedbackTies = "collector feedback ties every split of RC + RE; with pairs the (RE, RC) pairs are many"
-)
-
 // BenchmarkTopologies: stocks as users have them — six transistor types,
 // every E96 value 10 Ω–1 MΩ at 1 % (481 lines) with and without pairs,
 // and E12 10 Ω–1 MΩ with pairs — for every topology and --topology any,
 // at IC 0.1, 1 and 10 mA on 12 V (split supply −12 V), top 10, default
 // weights (goals: E96 singles under 300 ms, E12 with pairs under 1 s, E96
 // with pairs under 2 s per topology; any within the sum of the three).
-// The cases in benchSlow are skipped unless BIASBIN_BENCH_SLOW=1.
 func BenchmarkTopologies(b *testing.B) {
 	e96 := seriesStock(eseries.E96, 10, 1e6, 0.01, 0.25, 100, 1000)
 	stocks := []struct {
@@ -204,9 +163,6 @@ func BenchmarkTopologies(b *testing.B) {
 					name = fmt.Sprintf("%s/any/%gmA", sk.name, ic*1e3)
 				}
 				b.Run(name, func(b *testing.B) {
-					if why, slow := benchSlow[name]; slow && os.Getenv("BIASBIN_BENCH_SLOW") != "1" {
-						b.Skipf("misses its goal by far (%s); BIASBIN_BENCH_SLOW=1 runs it", why)
-					}
 					req := Request{Topology: topo, VCC_V: 12, IC_A: ic, Top: 10, Pairs: sk.pairs}
 					if topo == solver.SplitSupply || topo == AnyTopology {
 						req.VEE_V = -12

@@ -461,17 +461,20 @@
 //     VBE)/RF for the emitter term. Per tuple it is taken over 8 grid
 //     cells by 8 RF levels (rfCell) and settles the tuple unsolved;
 //     per span of 32 grid cells (sumCell) the RF levels whose IC can
-//     meet the window are split in halves while the floor is under the
-//     threshold, down to 8 levels, and the least over the parts left
+//     meet the window are split in halves, the lower-floored first,
+//     while the floor is under the threshold and under the least found
+//     so far, down to 8 levels, and the least over the parts left
 //     bounds every build of the span. The RC scan (sumCellNext) steps
 //     from span to span, with RE's parts, emitter and utilization floors
 //     and RC's utilization at the span's least RC, and visits only the
 //     levels of spans that can hold a build (the singles alone where a
 //     pair's part puts the span over); a span over the threshold is
-//     linked past for every later RE (liveSpan). E96 with pairs at 10
+//     linked past for every later RE, and one a pair's part puts over
+//     for every later RE holding one (liveSpan). E96 with pairs at 10
 //     mA: 452 000 (RC, RE) pairs reached their RF window and 10 million
-//     tuples were solved without it; 46 000 and 0.6 million with it. It
-//     replaces there the bisection of bound B over the window's top.
+//     tuples were solved without it (22–25 s); 46 000 and 0.4–0.6
+//     million with it (1.3 s). It replaces there the bisection of bound
+//     B over the window's top.
 //     TestSumFloorsHoldWithPairs checks it against solved builds.
 //   - F-BB: the window's tuples are solved in blocks of rfBlock levels,
 //     and bound B over a block (R_TH = RF and the nominal IC between the

@@ -29,9 +29,9 @@ const (
 	// VCE target (±20 %) when Request.Window is zero.
 	DefaultVCEWindow = 0.20
 	// DefaultTimeLimit is the search time limit a front end offers by
-	// default (Request.TimeLimit; the zero Request has none): long enough
-	// for every benchmark case, those in benchSlow included (16–26 s when
-	// last measured), short enough that a technician is never left waiting for
+	// default (Request.TimeLimit; the zero Request has none): over ten
+	// times the slowest benchmark case (about 2 s on a shared two-core
+	// machine), short enough that a technician is never left waiting for
 	// minutes.
 	DefaultTimeLimit = 30 * time.Second
 	// DefaultYieldBoards is the Monte Carlo size per finalist when
