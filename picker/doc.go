@@ -596,7 +596,10 @@
 // # Several topologies
 //
 // With AnyTopology each topology (split supply only with an emitter rail)
-// is searched with its own pool and finalists, exactly as alone; the
+// is searched with its own pool and finalists, exactly as alone, and all
+// at once (one search's serial stretches, its seeds and ranking, leave
+// the cores to the others; Request.Progress then reports their sum,
+// through progressSum, one call at a time); the
 // finalists of all are ranked together by the final score (every term is
 // a share, so the scale is one), and Result.Rivals holds the best build of
 // each topology other than the first's, with the term it trails the first

@@ -8,7 +8,9 @@ import (
 
 // evaluator scores builds of one topology for one request.
 type evaluator struct {
-	s    settings
+	s settings
+	// slot is the topology's place in settings.topos (its progress)
+	slot int
 	lay  *layout
 	vs   *valueSet
 	devs []device

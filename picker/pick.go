@@ -38,21 +38,38 @@ func Pick(stock Stock, req Request) (Result, error) {
 	}
 	var res Result
 	var rejected []Rejection
-	var runs []*topoRun
-	for _, topo := range s.topos {
-		e, rej := newEvaluator(s, stock, topo)
-		for _, r := range rej {
+	// Each topology is searched exactly as alone, so they run at once:
+	// one search's serial stretches (seeds, ranking) leave the other
+	// cores to the others.
+	if len(s.topos) > 1 && req.Progress != nil {
+		s.progress = newProgressSum(req.Progress, len(s.topos))
+	}
+	runs := make([]*topoRun, len(s.topos))
+	rejs := make([][]Rejection, len(s.topos))
+	errs := make([]error, len(s.topos))
+	var wg sync.WaitGroup
+	for i, topo := range s.topos {
+		wg.Go(func() {
+			e, rej := newEvaluator(s, stock, topo)
+			e.slot = i
+			rejs[i] = rej
+			r := &topoRun{e: e, fl: finalists{e: e, k: s.top}, size: s.pool, rounds: 1}
+			p := newPool(s.pool, !s.req.ShowAll)
+			r.pl = e.firstSearch(p, &r.cnt, s.req.Exhaustive)
+			errs[i] = r.rank(p)
+			runs[i] = r
+		})
+	}
+	wg.Wait()
+	for i := range runs {
+		if errs[i] != nil {
+			return Result{}, errs[i]
+		}
+		for _, r := range rejs[i] {
 			if !slices.ContainsFunc(rejected, func(x Rejection) bool { return x.Line.ID == r.Line.ID }) {
 				rejected = append(rejected, r)
 			}
 		}
-		r := &topoRun{e: e, fl: finalists{e: e, k: s.top}, size: s.pool, rounds: 1}
-		p := newPool(s.pool, !s.req.ShowAll)
-		r.pl = e.firstSearch(p, &r.cnt, s.req.Exhaustive)
-		if err := r.rank(p); err != nil {
-			return Result{}, err
-		}
-		runs = append(runs, r)
 	}
 	// Further rounds, each topology's against the k-th of all.
 	res.Ranking.Proven = true

@@ -194,9 +194,43 @@ func (e *evaluator) onWorkers(n int, cnt *counters, fn func(worker, item int, wc
 
 // progress reports the search's progress when the request asks for it.
 func (e *evaluator) progress(done, total int64) {
-	if e.s.req.Progress != nil {
+	if e.s.progress != nil {
+		e.s.progress.report(e.slot, done, total)
+	} else if e.s.req.Progress != nil {
 		e.s.req.Progress(done, total)
 	}
+}
+
+// progressSum reports the progress of several searches run at once (one
+// per topology) through one callback, one call at a time: the steps done
+// and, once every search has counted its steps, their total (0 before:
+// unknown, so the share never runs backwards).
+type progressSum struct {
+	mu          sync.Mutex
+	fn          func(done, total int64)
+	done, total []int64
+}
+
+// newProgressSum gathers n searches' progress for fn.
+func newProgressSum(fn func(done, total int64), n int) *progressSum {
+	return &progressSum{fn: fn, done: make([]int64, n), total: make([]int64, n)}
+}
+
+// report records search i's progress and passes on the sum.
+func (ps *progressSum) report(i int, done, total int64) {
+	ps.mu.Lock()
+	defer ps.mu.Unlock()
+	ps.done[i], ps.total[i] = done, total
+	var d, t int64
+	for k := range ps.done {
+		d += ps.done[k]
+		if t >= 0 && ps.total[k] > 0 {
+			t += ps.total[k]
+		} else {
+			t = -1
+		}
+	}
+	ps.fn(d, max(t, 0))
 }
 
 // exhaustive evaluates every build of every device: the nominal point of

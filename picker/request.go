@@ -112,6 +112,9 @@ type settings struct {
 	// values shares the value sets of one Pick between its topologies
 	// and passes (nil: each evaluator builds its own)
 	values *valueMemo
+	// progress gathers the progress of the topologies searched at once
+	// (nil: Request.Progress is called directly)
+	progress *progressSum
 }
 
 // SettledRail is the rail req's single-supply builds are built on
