@@ -76,9 +76,10 @@ const (
 	rfCellLevels = 8
 )
 
-// rfCellMemoBits caps feedbackPlan.rfCellBits (2^18 slots: 17 MB per
-// worker).
-const rfCellMemoBits = 18
+// rfCellMemoBits caps feedbackPlan.rfCellBits (2^16 slots: 4 MB per
+// worker; E96 with pairs, collector feedback at 10 mA, solves no more
+// than with 2^18 and peaks 40 MB lower).
+const rfCellMemoBits = 16
 
 // rfCell is bound F-T over the span of sums holding grid cell g and the
 // block of RF levels holding rf, kept in f.rfCells (direct-mapped at a
