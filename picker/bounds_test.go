@@ -455,7 +455,7 @@ func TestFeedbackHeadroomBelowHolds(t *testing.T) {
 			h := e.headroom(&e.devs[di], wc)
 			var cnt counters
 			// headroomFloor's two corners are corners of the worst case
-			if hf, fails := e.headroomFloor(di, e.build(c), nil, &cnt); !fails && hf > h*(1+1e-9)+1e-12 {
+			if hf, fails := e.headroomFloor(di, e.build(c), &cnt); !fails && hf > h*(1+1e-9)+1e-12 {
 				t.Errorf("%v (%s): headroom floor %g over the headroom term %g", a.r, e.devs[di].line.Sheet.Label, hf, h)
 			}
 			// (top n: every RF level, the floor of the pair)

@@ -29,64 +29,22 @@ const (
 // whatever the true extreme corners are. fails is true when either corner
 // already breaks a hard limit (outside the active region or the VCE
 // margin, a part over its allowance, or not solvable): the build then
-// fails for certain, and the headroom floor is then 0. The corners are
-// kept on the build's tuple t (cornersOf; nil: not kept).
-func (e *evaluator) headroomFloor(dev int, b solver.Build, t *tuple, cnt *counters) (h float64, fails bool) {
+// fails for certain, and the headroom floor is then 0.
+func (e *evaluator) headroomFloor(dev int, b solver.Build, cnt *counters) (h float64, fails bool) {
 	d := &e.devs[dev]
+	cnt.solves += 2
 	floor := d.vceSat + e.s.lim.VCEMargin_V
-	cm := e.cornersOf(dev, b, t, cnt)
-	opV, opI := cm.opV, cm.opI
-	if cm.errV || opV.Region != solver.Active || opV.VCE_V < floor || !solver.EvalDissipation(b, opV, e.s.ambMax, e.s.lim).Ok {
+	// (an emitter rail of its own, split supply only, is high at the
+	// first corner and low at the second)
+	opV, err := solver.SolveSelfHeated(b.CornerStage(e.lay.highEnds(e.lay.lowVCE), false, true, true), d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
+	if err != nil || opV.Region != solver.Active || opV.VCE_V < floor || !solver.EvalDissipation(b, opV, e.s.ambMax, e.s.lim).Ok {
 		return 0, true
 	}
-	if cm.errI || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
+	opI, err := solver.SolveSelfHeated(b.CornerStage(e.lay.highEnds(e.lay.lowIC), false, false, false), d.icLow, e.s.ambMin, d.thetaJA, d.tjMax_C)
+	if err != nil || opI.Region != solver.Active || opI.VCE_V < floor || !solver.EvalDissipation(b, opI, e.s.ambMin, e.s.lim).Ok {
 		return 0, true
 	}
 	return e.headroomAt(d, opV.VCE_V, opI.IC_A), false
-}
-
-// cornerMemo is the two corners headroomFloor solves for a build, kept on
-// its tuple per choice of the resistors' tolerance and TCR (key): the
-// corner stages depend on the build only through each resistor's value,
-// tolerance and TCR magnitude (solver.Build.CornerStage), so the value
-// combinations of a tuple with the same values, tolerances and TCRs (a
-// wall of one grade, its pairs included, differ only in ratings and
-// stock lines) share two solves.
-type cornerMemo struct {
-	key        [maxPos][3]float64
-	opV, opI   solver.OperatingPoint
-	errV, errI bool
-}
-
-// cornersOf returns the two corners of headroomFloor for build b of
-// device dev at tuple t (nil: no memo), solving them the first time.
-func (e *evaluator) cornersOf(dev int, b solver.Build, t *tuple, cnt *counters) cornerMemo {
-	var key [maxPos][3]float64
-	for i := range e.lay.n {
-		r := b.Resistors[e.lay.slots[i]]
-		key[i] = [3]float64{r.Nominal_Ohm, r.Tol, math.Abs(r.TCR_PPMPerK)}
-	}
-	if t != nil {
-		for _, m := range t.corners {
-			if m.key == key {
-				return m
-			}
-		}
-	}
-	d := &e.devs[dev]
-	cnt.solves += 2
-	m := cornerMemo{key: key}
-	// (an emitter rail of its own, split supply only, is high at the
-	// first corner and low at the second)
-	var err error
-	m.opV, err = solver.SolveSelfHeated(b.CornerStage(e.lay.highEnds(e.lay.lowVCE), false, true, true), d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C)
-	m.errV = err != nil
-	m.opI, err = solver.SolveSelfHeated(b.CornerStage(e.lay.highEnds(e.lay.lowIC), false, false, false), d.icLow, e.s.ambMin, d.thetaJA, d.tjMax_C)
-	m.errI = err != nil
-	if t != nil {
-		t.corners = append(t.corners, m)
-	}
-	return m
 }
 
 // finish runs the worst-case corners of a build and completes its

@@ -49,9 +49,6 @@ type tuple struct {
 	// VCE margin or leave the active region (nil when none does; set
 	// with the beta spread).
 	bench *Failure
-	// corners keeps headroomFloor's corners per choice of tolerances and
-	// TCRs (cornersOf)
-	corners []cornerMemo
 }
 
 // ohms returns the nominal resistances of a level tuple.

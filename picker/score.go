@@ -120,7 +120,7 @@ func (e *evaluator) scoreOne(t *tuple, c combo, p *pool, keep func(*evaluated), 
 	if partial > thr() {
 		return
 	}
-	hlb, fails := e.headroomFloor(c.dev, b, t, cnt)
+	hlb, fails := e.headroomFloor(c.dev, b, cnt)
 	fails = fails || t.bench != nil
 	if th := thr(); fails && !math.IsInf(th, 1) && !p.failOK || partial+w.Headroom*hlb > th {
 		return
