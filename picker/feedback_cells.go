@@ -116,17 +116,16 @@ func (f *feedbackPlan) rfCellSettles(di, g, rf, rc, re int, pf, vceLo, vceHi, th
 	}
 	reOhm := lv[re].ohm
 	if e.lay.emitterBand {
-		fl += w.Emitter * (max(0, c.icLo*reOhm-e.s.veHi) + max(0, e.s.veLo-c.ieHi*reOhm)) / e.s.vcc
+		fl += w.Emitter * e.emitterFloor(bounds{icLo: c.icLo, icHi: c.ieHi}, reOhm, 1)
 	}
 	u := max(c.use, c.icLo*c.icLo*max(lv[rc].ohm/lv[rc].allowHot_W, reOhm/lv[re].allowHot_W))
 	return c, fl+w.Utilization*u > thr
 }
 
 // sumCellEntry is bound F-T's least over a span of sums of device dev
-// (feedbackPlan.gridDev), taken at threshold thr (sumCell).
+// (feedbackPlan.gridDev) (sumCell).
 type sumCellEntry struct {
 	dev     int
-	thr     float64
 	qb, qbu float64
 }
 
@@ -151,14 +150,11 @@ const sumCellLevels = 8
 // every build that can enter then or later (the threshold only falls). It
 // is kept per span (f.sumCells).
 func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *counters) *sumCellEntry {
-	slot := &f.sumCells[0]
+	slot := &sumCellEntry{} // outside the memo: not kept
 	if i := G - f.sumCellBase; i >= 0 && i < len(f.sumCells) {
-		slot = &f.sumCells[i]
-		if slot.dev == f.gridDev {
+		if slot = &f.sumCells[i]; slot.dev == f.gridDev {
 			return slot
 		}
-	} else {
-		slot = &sumCellEntry{}
 	}
 	e := f.e
 	w, lv := e.s.w, e.vs.levels
@@ -175,7 +171,7 @@ func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *
 	}) - 1
 	f.spanRF = [2]int{lo, hi}
 	lo, hi = e.clampRange(fRF, lo, hi)
-	*slot = sumCellEntry{dev: f.gridDev, thr: bd.thr, qb: bd.thr, qbu: bd.thr}
+	*slot = sumCellEntry{dev: f.gridDev, qb: bd.thr, qbu: bd.thr}
 	// Depth first, the part with the lower floor first: a part whose
 	// floor is over the threshold, or no lower than the least found so
 	// far (both with and without the transistor's utilization), cannot
