@@ -338,29 +338,41 @@ func (b Build) CornerStage(high [NumSlots]bool, vccHigh, veeHigh, ambHigh bool) 
 // supply and rail factors and the ambient given.
 func (b *Build) cornerStage(high *[NumSlots]bool, vccFactor, veeFactor, ambient float64) Stage {
 	var dev, tcr [NumSlots]float64
-	// The TCR sign that moves R the way of the level at this ambient.
-	tcrSign := 1.0
-	if ambient < TCRReference_C {
-		tcrSign = -1
-	}
 	for i := range NumSlots {
-		r := &b.Resistors[i]
-		if !b.usedSlot(i) {
-			continue
-		}
-		a := tcrSign * math.Abs(r.TCR_PPMPerK)
-		switch {
-		case r.Tol <= 0:
-			// no tolerance, no axis; its TCR bound still spreads it:
-			// take the end that moves it up
-			tcr[i] = a
-		case high[i]:
-			dev[i], tcr[i] = r.Tol, a
-		default:
-			dev[i], tcr[i] = -r.Tol, -a
+		if b.usedSlot(i) {
+			dev[i], tcr[i] = b.Resistors[i].cornerEnds(high[i], ambient)
 		}
 	}
 	return b.resolveTCR(&dev, &tcr, vccFactor, veeFactor, ambient)
+}
+
+// cornerEnds is where a worst-case corner puts resistor r: its relative
+// deviation dev and the TCR tcr (ppm/K) that moves it from there at the
+// corner's ambient. With a tolerance it sits at the high end when high
+// says so, else at the low end, its TCR bound moving it the same way at
+// that ambient; without one it has no axis, and its TCR bound still
+// spreads it: it takes the end that moves it up.
+func (r ResistorSpec) cornerEnds(high bool, ambient float64) (dev, tcr float64) {
+	// The TCR sign that moves R the way of the level at this ambient.
+	a := math.Abs(r.TCR_PPMPerK)
+	if ambient < TCRReference_C {
+		a = -a
+	}
+	switch {
+	case r.Tol <= 0:
+		return 0, a
+	case high:
+		return r.Tol, a
+	}
+	return -r.Tol, -a
+}
+
+// CornerFactor is what a worst-case corner at the ambient multiplies r's
+// marked value by (CornerStage): its tolerance's end, high when high says
+// so, moved by its TCR bound the same way (without a tolerance, up).
+func (r ResistorSpec) CornerFactor(high bool, ambient float64) float64 {
+	dev, tcr := r.cornerEnds(high, ambient)
+	return (1 + dev) * (1 + tcr*1e-6*(ambient-TCRReference_C))
 }
 
 // EvalWorstCaseWith is EvalWorstCase with options.

@@ -267,9 +267,48 @@ func TestCornerStageIsTheCorner(t *testing.T) {
 		if s.R_Ohm != c.R_Ohm || s.VCC_V != c.VCC_V || s.VEE_V != c.VEE_V {
 			t.Fatalf("#%d corner %d: CornerStage R %v VCC %g VEE %g, the corner's %v %g %g", i, k, s.R_Ohm, s.VCC_V, s.VEE_V, c.R_Ohm, c.VCC_V, c.VEE_V)
 		}
+		amb := b.AmbientMin_C
+		if ambHigh {
+			amb = b.AmbientMax_C
+		}
+		for sl := range NumSlots {
+			if !b.usedSlot(sl) {
+				continue
+			}
+			// CornerFactor is the same rule, one resistor at a time
+			if f := b.Resistors[sl].Nominal_Ohm * b.Resistors[sl].CornerFactor(high[sl], amb); math.Abs(f-s.R_Ohm[sl]) > 1e-12*s.R_Ohm[sl] {
+				t.Fatalf("#%d corner %d slot %d: CornerFactor gives %g, the corner %g", i, k, sl, f, s.R_Ohm[sl])
+			}
+		}
 		compared++
 	}
 	if compared < 200 {
 		t.Fatalf("only %d builds compared", compared)
+	}
+}
+
+// TestCornerFactor: a part marked with a tolerance lies within (1 ± tol)
+// of its marking at 25 °C, and its TCR (ppm/K, referred to 25 °C) moves it
+// by TCR·ΔT beyond that (common practice: tolerance and TCR as resistor
+// datasheets state them); a worst-case corner takes the end of both that
+// moves it one way.
+func TestCornerFactor(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		r    ResistorSpec
+		high bool
+		amb  float64
+		want float64
+	}{
+		{"5 %, 100 ppm/K, high end at 75 °C", ResistorSpec{Nominal_Ohm: 1e4, Tol: 0.05, TCR_PPMPerK: 100}, true, 75, 1.05 * 1.005},
+		{"5 %, 100 ppm/K, low end at 75 °C", ResistorSpec{Nominal_Ohm: 1e4, Tol: 0.05, TCR_PPMPerK: 100}, false, 75, 0.95 * 0.995},
+		{"1 %, −50 ppm/K, high end at 0 °C", ResistorSpec{Nominal_Ohm: 1e4, Tol: 0.01, TCR_PPMPerK: -50}, true, 0, 1.01 * 1.00125},
+		{"1 %, 50 ppm/K, low end at 0 °C", ResistorSpec{Nominal_Ohm: 1e4, Tol: 0.01, TCR_PPMPerK: 50}, false, 0, 0.99 * 0.99875},
+		{"no tolerance, 200 ppm/K, low asked at 75 °C: up", ResistorSpec{Nominal_Ohm: 1e4, TCR_PPMPerK: 200}, false, 75, 1.01},
+		{"no tolerance, no TCR", ResistorSpec{Nominal_Ohm: 1e4}, true, 75, 1},
+	} {
+		if got := c.r.CornerFactor(c.high, c.amb); math.Abs(got-c.want) > 1e-12 {
+			t.Errorf("%s: %.12g, want %.12g", c.name, got, c.want)
+		}
 	}
 }
