@@ -1,6 +1,10 @@
 package picker
 
-import "math"
+import (
+	"math"
+
+	"biasbin/solver"
+)
 
 // Bound F-T: floors on the terms of the builds whose RC + RE lies in a
 // span of the grid of sums and whose RF lies in a range of levels, taken
@@ -13,9 +17,10 @@ type sumRFFloor struct {
 	ok bool // false: the corners could not be solved, no floor
 	// icLo and ieHi bound the nominal IC from below and IE from above
 	icLo, ieHi float64
-	// qb bounds w_QPoint·q + w_Beta·β from below, use the transistor's
+	// qb bounds w_QPoint·q + w_Beta·β + w_Headroom·h from below, hr is
+	// its headroom part (0 unless near saturation), use the transistor's
 	// utilization
-	qb, use float64
+	qb, hr, use float64
 }
 
 // sumRFFloorOf is bound F-T. By F1 and F-G the nominal IC of such a build
@@ -32,7 +37,8 @@ type sumRFFloor struct {
 // from the target band [vceLo, vceHi] over the span; bound B with R_TH
 // over RF's range, RE' over the sums' and IC's range bounds the beta
 // term; the transistor dissipates at least IC·VCE; and IE ≤ IC + (VCE −
-// VBE)/RF.
+// VBE)/RF. Near saturation the headroom term is at least its saturation
+// part at cornerVCE over the span's least sum and RF's largest level.
 func (f *feedbackPlan) sumRFFloorOf(di, gLo, gHi, a, b int, vceLo, vceHi float64, cnt *counters) sumRFFloor {
 	top, bottom := f.gridIC(di, gLo, a, cnt), f.gridIC(di, gHi, b, cnt)
 	if math.IsNaN(top) || math.IsNaN(bottom) || !(bottom > 0) {
@@ -49,11 +55,19 @@ func (f *feedbackPlan) sumRFFloorOf(di, gLo, gHi, a, b int, vceLo, vceHi float64
 	vceMin := min(vce(rHi, icHi, vbeLo, fLo), vce(rHi, icHi, vbeLo, fHi)) - vcc*1e-9
 	vceMax := max(vce(rLo, icLo, vbeHi, fLo), vce(rLo, icLo, vbeHi, fHi)) + vcc*1e-9
 	q := max(0, icLo-it, it-icHi)/it + max(0, vceMin-vceHi, vceLo-vceMax)/e.span
-	beta := 0.0
+	beta, hr := 0.0, 0.0
 	if w.Beta > 0 {
 		beta = e.betaFloor(dv, betaWindow{RTH: fLo, RTHMax: fHi, RE: rLo, REMax: rHi, ICLo: icLo, ICHi: icHi})
 	}
-	fl := sumRFFloor{ok: true, icLo: icLo, ieHi: icHi + max(0, vceMax-vbeLo)/fLo, qb: (w.QPoint*q + w.Beta*beta) * (1 - 1e-12)}
+	if w.Headroom > 0 && e.nearSaturation(dv, vceMax) {
+		if v := f.cornerVCE(di, gLo, b, cnt); !math.IsNaN(v) {
+			// (with room for the self-heated solve's own tolerance:
+			// near the edge of the active region the corner's VCE
+			// moves by a few millionths with the split of the sum)
+			hr = w.Headroom * e.headroomSat(dv, v+vcc*cornerSlack)
+		}
+	}
+	fl := sumRFFloor{ok: true, icLo: icLo, ieHi: icHi + max(0, vceMax-vbeLo)/fLo, hr: hr, qb: (w.QPoint*q + w.Beta*beta + hr) * (1 - 1e-12)}
 	if !math.IsInf(dv.allowHot, 1) {
 		fl.use = icLo * max(0, vceMin) / dv.allowHot
 	}
@@ -101,8 +115,10 @@ func (f *feedbackPlan) rfCell(di, g, rf int, vceLo, vceHi float64, cnt *counters
 // di at levels (rf, rc, re), whose sum RC + RE lies in grid cell g: the
 // floors of rfCell with the emitter term's from IC's and IE's bounds,
 // RC's and RE's utilization (each carries IE ≥ IC) over its own level's
-// best allowance, and the parts floors pf (RC and RE) and RF's. It
-// returns the floors too.
+// best allowance, and the parts floor pf (of every position). It
+// returns the floors too. Its floor is the same for every RF level of
+// rf's block of rfCellLevels but for pf, so where it settles at the least
+// pf of some of them, it settles them all.
 func (f *feedbackPlan) rfCellSettles(di, g, rf, rc, re int, pf, vceLo, vceHi, thr float64, cnt *counters) (*rfCellEntry, bool) {
 	c := f.rfCell(di, g, rf, vceLo, vceHi, cnt)
 	if !c.ok {
@@ -110,7 +126,7 @@ func (f *feedbackPlan) rfCellSettles(di, g, rf, rc, re int, pf, vceLo, vceHi, th
 	}
 	e := f.e
 	w, lv := e.s.w, e.vs.levels
-	fl := pf + e.partsFloor(rf) + c.qb
+	fl := pf + c.qb
 	if fl > thr {
 		return c, true
 	}
@@ -122,11 +138,28 @@ func (f *feedbackPlan) rfCellSettles(di, g, rf, rc, re int, pf, vceLo, vceHi, th
 	return c, fl+w.Utilization*u > thr
 }
 
+// rfBlockDown is the least level from, no lower than lo, of the levels
+// from rf down that share rf's block of rfCellLevels (so its rfCell), and
+// the least parts floor pfRF among them.
+func (f *feedbackPlan) rfBlockDown(rf, lo int) (from int, pfRF float64) {
+	e := f.e
+	from = max(lo, rf/rfCellLevels*rfCellLevels)
+	if e.vs.prevSingle[rf] < from {
+		pfRF = e.partsFloor(rf) // every level there a pair
+	}
+	return from, pfRF
+}
+
 // sumCellEntry is bound F-T's least over a span of sums of device dev
 // (feedbackPlan.gridDev) (sumCell).
 type sumCellEntry struct {
 	dev     int
 	qb, qbu float64
+	// hull[k] is the least and the largest RF level whose part of the
+	// span's RF window bound F-T leaves at most the threshold less k
+	// parts' weight (hullOf): every build in the span with k extra parts
+	// in RC and RE that can enter has RF in it (empty: lo > hi)
+	hull [2][2]int
 }
 
 // sumCellShift sets the spans of sumCell: 2^sumCellShift grid cells of
@@ -150,16 +183,24 @@ const sumCellLevels = 8
 // every build that can enter then or later (the threshold only falls). It
 // is kept per span (f.sumCells).
 func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *counters) *sumCellEntry {
-	slot := &sumCellEntry{} // outside the memo: not kept
+	var slot *sumCellEntry
 	if i := G - f.sumCellBase; i >= 0 && i < len(f.sumCells) {
 		if slot = &f.sumCells[i]; slot.dev == f.gridDev {
 			return slot
 		}
+	} else {
+		slot = new(sumCellEntry) // outside the memo: not kept
 	}
+	f.sumsFloor(di, G<<sumCellShift, (G+1)<<sumCellShift, bd, vceLo, vceHi, slot, cnt)
+	return slot
+}
+
+// sumsFloor is sumCell's floor over the sums of grid cells gLo up to gHi,
+// written to slot.
+func (f *feedbackPlan) sumsFloor(di, gLo, gHi int, bd bounds, vceLo, vceHi float64, slot *sumCellEntry, cnt *counters) {
 	e := f.e
 	w, lv := e.s.w, e.vs.levels
 	n := len(lv)
-	gLo, gHi := G<<sumCellShift, (G+1)<<sumCellShift
 	// the last span's window is the guess: neighbouring spans' are close
 	lo := firstFrom(n, f.spanRF[0], func(i int) bool {
 		v := f.gridIC(di, gHi, i, cnt)
@@ -190,13 +231,15 @@ func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *
 		top--
 		pt := stack[top]
 		fl := pt.fl
-		if fl.ok && (fl.qb > bd.thr || fl.qb >= slot.qb && fl.qb+w.Utilization*fl.use >= slot.qbu) {
+		if !fl.ok {
+			// no floor here (0), though its parts may have one: it is
+			// split unless the least is 0 already
+			fl = sumRFFloor{}
+		}
+		if fl.qb > bd.thr || fl.qb >= slot.qb && fl.qb+w.Utilization*fl.use >= slot.qbu {
 			continue
 		}
 		if pt.b-pt.a+1 <= sumCellLevels || top+2 > len(stack) {
-			if !fl.ok {
-				fl = sumRFFloor{}
-			}
 			slot.qb = min(slot.qb, fl.qb)
 			slot.qbu = min(slot.qbu, fl.qb+w.Utilization*fl.use)
 			continue
@@ -210,7 +253,52 @@ func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *
 		stack[top], stack[top+1] = r, l
 		top += 2
 	}
-	return slot
+	slot.hull[0] = f.hullOf(di, gLo, gHi, lo, hi, bd.thr, vceLo, vceHi, cnt)
+	slot.hull[1] = slot.hull[0]
+	if w.Parts > 0 {
+		slot.hull[1] = f.hullOf(di, gLo, gHi, slot.hull[0][0], slot.hull[0][1], bd.thr-w.Parts, vceLo, vceHi, cnt)
+	}
+}
+
+// hullOf is the least and the largest RF level in lo..hi that bound F-T
+// over the sums [R(gLo), R(gHi)) does not put over limit, to within
+// sumCellLevels levels: the first and the last part of at most that many
+// levels not over it, found by halving from each end (lo > hi: none).
+func (f *feedbackPlan) hullOf(di, gLo, gHi, lo, hi int, limit, vceLo, vceHi float64, cnt *counters) [2]int {
+	end := func(fromTop bool) int {
+		type part struct{ a, b int }
+		var stack [64]part
+		stack[0] = part{lo, hi}
+		for top := 1; top > 0; {
+			top--
+			pt := stack[top]
+			if fl := f.sumRFFloorOf(di, gLo, gHi, pt.a, pt.b, vceLo, vceHi, cnt); fl.ok && fl.qb > limit {
+				continue
+			}
+			if pt.b-pt.a+1 <= sumCellLevels || top+2 > len(stack) {
+				if fromTop {
+					return pt.b
+				}
+				return pt.a
+			}
+			m := int(uint(pt.a+pt.b) >> 1)
+			l, r := part{pt.a, m}, part{m + 1, pt.b}
+			if fromTop {
+				l, r = r, l
+			}
+			stack[top], stack[top+1] = r, l
+			top += 2
+		}
+		return -1
+	}
+	if lo > hi {
+		return [2]int{lo, hi}
+	}
+	a := end(false)
+	if a < 0 {
+		return [2]int{hi + 1, hi}
+	}
+	return [2]int{a, end(true)}
 }
 
 // sumCellNext is bound F-T over the spans of sums in the RC scan of RE
@@ -301,4 +389,41 @@ func markDead(links []int32, i int) {
 	if i >= 0 && i < len(links) {
 		links[i] = int32(i + 1)
 	}
+}
+
+// cornerSlack is the share of the supply added to cornerVCE before its
+// headroom floor is taken.
+const cornerSlack = 1e-5
+
+// cornerVCE is an upper bound on the lowest worst-case VCE of every build
+// of device di whose RC + RE is at least R(g) and RF at most level rf:
+// VCE at the corner with hFE max, VBE(on) and VAF low (device.vceLow), the
+// hottest ambient, the supply low, RF at the low end of its tolerance and
+// RC and RE at the high end (solver.Build.CornerStage), NaN when that
+// corner cannot be solved or is not active. As at the nominal point (F-T)
+// VCE there depends on RC and RE only through their sum, falls as it
+// rises and rises with RF; at the corner the sum is at least
+// R(g)·hotHighMin and RF at most R(rf)·hotLowMax (valueSet), and the
+// corner is solved there. Solved once per device and point (f.corners).
+func (f *feedbackPlan) cornerVCE(di, g, rf int, cnt *counters) float64 {
+	return gridMemo(f.corners, g, rf, func() float64 {
+		e := f.e
+		if !f.cornerSet {
+			// the stage at that corner; its resistors are set below
+			v0 := e.vs.levels[0].values[0]
+			f.corner = e.build(combo{dev: di, val: [maxPos]int{v0, v0, v0}}).CornerStage(e.lay.highEnds(e.lay.lowVCE), false, true, true)
+			f.corner.RBypass_Ohm = 0 // AC only
+			f.cornerSet = true
+		}
+		st := f.corner
+		sum := f.gridOhm(g) * e.vs.hotHighMin
+		st.R_Ohm[solver.RF] = e.vs.levels[rf].ohm * e.vs.hotLowMax
+		st.R_Ohm[solver.RC], st.R_Ohm[solver.RE] = sum/2, sum/2
+		d := &e.devs[di]
+		cnt.solves++
+		if op, err := solver.SolveSelfHeated(st, d.vceLow, e.s.ambMax, d.thetaJA, d.tjMax_C); err == nil && op.Region == solver.Active {
+			return op.VCE_V
+		}
+		return math.NaN()
+	})
 }

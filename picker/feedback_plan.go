@@ -26,6 +26,12 @@ type feedbackPlan struct {
 	// point of RC + RE, RF level) (rfWindow); lnStep is the grid's step
 	grid   map[uint64]float64 // keyed by gridKey
 	lnStep float64
+	// corners holds cornerVCE of the device being searched, keyed by
+	// gridKey; corner is the stage at that corner (cornerSet: taken for
+	// that device)
+	corners   map[uint64]float64
+	corner    solver.Stage
+	cornerSet bool
 	// gridA and gridB give the grid's points without an exponential
 	// (gridOhm): R(g) = gridA[g >> gridSplit]·gridB[g & (2^gridSplit −
 	// 1)] for g ≥ 0 up to above twice the largest level
@@ -200,6 +206,7 @@ func (f *feedbackPlan) setGrid() {
 	f.lnStep = math.Log1p(step)
 	if f.grid == nil {
 		f.grid = map[uint64]float64{}
+		f.corners = map[uint64]float64{}
 	}
 	if f.fb == nil && len(lv) > 0 {
 		least, largest := lv[0].ohm, lv[len(lv)-1].ohm
@@ -240,6 +247,8 @@ func (f *feedbackPlan) setGrid() {
 	// tens of megabytes per change of device. The grid's solves and the
 	// spans' links do not name it.
 	clear(f.grid)
+	clear(f.corners)
+	f.cornerSet = false // the stage is taken from the device's build
 	f.resetLinks()
 }
 
@@ -314,24 +323,33 @@ func gridKey(g, rf int) uint64 { return uint64(int64(g))<<32 ^ uint64(uint32(rf)
 // at the grid's point g (split evenly: only the sum counts), NaN when it
 // cannot be solved; solved once per device.
 func (f *feedbackPlan) gridIC(di, g, rf int, cnt *counters) float64 {
+	return gridMemo(f.grid, g, rf, func() float64 {
+		e := f.e
+		sum := f.gridOhm(g)
+		var r [maxPos]float64
+		r[fRF], r[fRC], r[fRE] = e.vs.levels[rf].ohm, sum/2, sum/2
+		d := &e.devs[di]
+		cnt.solves++
+		if op, err := e.solveAt(d, d.typ, r); err == nil {
+			return op.IC_A
+		}
+		return math.NaN()
+	})
+}
+
+// gridMemo is m's value at (grid point g, RF level rf), which solve gives
+// the first time; m holds at most gridMax values (a memo of a
+// deterministic solve: emptying it only changes the work).
+func gridMemo(m map[uint64]float64, g, rf int, solve func() float64) float64 {
 	key := gridKey(g, rf)
-	if v, ok := f.grid[key]; ok {
+	if v, ok := m[key]; ok {
 		return v
 	}
-	if len(f.grid) >= gridMax {
-		clear(f.grid) // a memo of a deterministic solve: only the work changes
+	if len(m) >= gridMax {
+		clear(m)
 	}
-	e := f.e
-	sum := f.gridOhm(g)
-	var r [maxPos]float64
-	r[fRF], r[fRC], r[fRE] = e.vs.levels[rf].ohm, sum/2, sum/2
-	d := &e.devs[di]
-	cnt.solves++
-	v := math.NaN()
-	if op, err := e.solveAt(d, d.typ, r); err == nil {
-		v = op.IC_A
-	}
-	f.grid[key] = v
+	v := solve()
+	m[key] = v
 	return v
 }
 
@@ -575,6 +593,16 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 		sf = max(sf, fl)
 		lo, hi := f.rfWindow(di, g, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(sf, bd.thr), cnt)
 		gLo, gHi = lo, hi+1
+		// bound F-T: RF lies in the hull of the span of sums
+		hull := [2]int{0, len(e.vs.levels) - 1}
+		if cellFloors && bd.finite {
+			k := 0
+			if w.Parts > 0 && pf >= w.Parts {
+				k = 1
+			}
+			hull = f.sumCell(di, g>>sumCellShift, bd, vceLo, vceHi, cnt).hull[k]
+			lo, hi = max(lo, hull[0]), min(hi, hull[1])
+		}
 		if lo > hi {
 			continue
 		}
@@ -599,6 +627,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 					continue
 				}
 				lo, hi = f.rfWindow(di, g, wLo, wHi, lo, hi+1, e.singlesOnly(sf, bd.thr), cnt)
+				lo, hi = max(lo, hull[0]), min(hi, hull[1])
 			}
 		}
 		if !cellFloors && bd.finite && w.Beta > 0 && lo < hi {
@@ -650,8 +679,13 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 					// bound F-T: the cell's floors settle the tuple
 					// unsolved; by F1 every RF below has IC at least
 					// the cell's floor (F-RS)
-					if c, ok := f.rfCellSettles(di, g, rf, rc, re, pf, vceLo, vceHi, p.threshold(), cnt); ok {
+					// the levels of rf's block from rf down share its
+					// cell: where the least parts floor among them
+					// settles, the cell settles them all
+					from, pfRF := f.rfBlockDown(rf, lo)
+					if c, ok := f.rfCellSettles(di, g, rf, rc, re, pf+pfRF, vceLo, vceHi, p.threshold(), cnt); ok {
 						xSeen = max(xSeen, c.icLo)
+						rf = from
 						continue
 					}
 				}

@@ -110,6 +110,11 @@ type valueSet struct {
 	allowHotMax_W, allowHotOneMax_W float64
 	// tcrMax_PPMPerK is the largest |TCR| of any value.
 	tcrMax_PPMPerK float64
+	// hotHighMin is the least factor a worst-case corner at the hottest
+	// ambient multiplies any value by at the high end of its tolerance
+	// (solver.ResistorSpec.CornerFactor), hotLowMax the largest at the
+	// low end.
+	hotHighMin, hotLowMax float64
 	// kept are the value indexes of the kept parts, in the order given
 	// to buildValues.
 	kept []int
@@ -224,6 +229,11 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 		}
 		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
 		vs.tcrMax_PPMPerK = math.Max(vs.tcrMax_PPMPerK, math.Abs(v.spec.TCR_PPMPerK))
+		if k == 0 {
+			vs.hotHighMin, vs.hotLowMax = math.Inf(1), 0
+		}
+		vs.hotHighMin = math.Min(vs.hotHighMin, v.spec.CornerFactor(true, hotAmbient_C))
+		vs.hotLowMax = math.Max(vs.hotLowMax, v.spec.CornerFactor(false, hotAmbient_C))
 		if v.lines[1] < 0 {
 			vs.allowHotOneMax_W = math.Max(vs.allowHotOneMax_W, allow)
 		}
