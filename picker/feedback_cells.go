@@ -223,6 +223,7 @@ func (f *feedbackPlan) sumsFloor(di, gLo, gHi int, bd bounds, vceLo, vceHi float
 	}
 	var stack [64]part
 	top := 0
+	found, noFloor := false, false
 	if lo <= hi {
 		stack[0] = part{lo, hi, f.sumRFFloorOf(di, gLo, gHi, lo, hi, vceLo, vceHi, cnt)}
 		top = 1
@@ -240,6 +241,8 @@ func (f *feedbackPlan) sumsFloor(di, gLo, gHi int, bd bounds, vceLo, vceHi float
 			continue
 		}
 		if pt.b-pt.a+1 <= sumCellLevels || top+2 > len(stack) {
+			found = true
+			noFloor = noFloor || !pt.fl.ok
 			slot.qb = min(slot.qb, fl.qb)
 			slot.qbu = min(slot.qbu, fl.qb+w.Utilization*fl.use)
 			continue
@@ -253,10 +256,28 @@ func (f *feedbackPlan) sumsFloor(di, gLo, gHi int, bd bounds, vceLo, vceHi float
 		stack[top], stack[top+1] = r, l
 		top += 2
 	}
+	// the hulls: empty where every part is over (no part of at most
+	// sumCellLevels levels was reached), or the least is over with a
+	// pair's part
+	none := [2]int{hi + 1, hi}
+	slot.hull = [2][2]int{none, none}
+	if !found {
+		return
+	}
+	if noFloor {
+		// a part without a floor (its corners cannot be solved) put
+		// the least at 0: the hull is the window (halving from the
+		// ends would meet such parts too, at a cost)
+		slot.hull = [2][2]int{{lo, hi}, {lo, hi}}
+		return
+	}
 	slot.hull[0] = f.hullOf(di, gLo, gHi, lo, hi, bd.thr, vceLo, vceHi, cnt)
 	slot.hull[1] = slot.hull[0]
 	if w.Parts > 0 {
-		slot.hull[1] = f.hullOf(di, gLo, gHi, slot.hull[0][0], slot.hull[0][1], bd.thr-w.Parts, vceLo, vceHi, cnt)
+		slot.hull[1] = none
+		if slot.qb <= bd.thr-w.Parts {
+			slot.hull[1] = f.hullOf(di, gLo, gHi, slot.hull[0][0], slot.hull[0][1], bd.thr-w.Parts, vceLo, vceHi, cnt)
+		}
 	}
 }
 
