@@ -240,7 +240,7 @@ func TestOtherTopologyBoundsHold(t *testing.T) {
 			f.setGrid()
 			var cnt2 counters
 			for _, w := range [][2]float64{{ic, ic}, {ic * 0.999, ic * 1.001}, {ic * 0.9, ic * 1.1}} {
-				if lo, hi := f.rfWindow(di, f.gridIndex(r), w[0], w[1], rng.IntN(n), rng.IntN(n), false, &cnt2); lv[fRF] < lo || lv[fRF] > hi {
+				if lo, hi := f.rfWindow(di, f.gridIndex(r), w[0], w[1], rng.IntN(n), rng.IntN(n), [2]int{0, n - 1}, false, &cnt2); lv[fRF] < lo || lv[fRF] > hi {
 					t.Errorf("%v: RF level %d outside the F-G window [%d, %d] for IC %g in [%g, %g]", a.r, lv[fRF], lo, hi, ic, w[0], w[1])
 				}
 			}

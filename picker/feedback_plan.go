@@ -164,15 +164,16 @@ func (f *feedbackPlan) tuple(di, rf, rc, re int, cnt *counters) *tuple {
 // share a grid cell share its solves. A grid point that cannot be solved
 // never narrows the window, and a relative slack of gridSlack covers the
 // solver's tolerance. With singles (no room for a pair in RF, bound P)
-// only the levels holding a single are probed.
-func (f *feedbackPlan) rfWindow(di, g int, icLo, icHi float64, gLo, gHi int, singles bool, cnt *counters) (lo, hi int) {
+// only the levels holding a single are probed. It searches only the
+// levels of dom (lo..hi), the window's part there: a window known to lie
+// in dom costs fewer solves.
+func (f *feedbackPlan) rfWindow(di, g int, icLo, icHi float64, gLo, gHi int, dom [2]int, singles bool, cnt *counters) (lo, hi int) {
 	vs := f.e.vs
-	n := len(vs.levels)
-	lo = vs.firstIn(0, n-1, gLo, singles, func(i int) bool {
+	lo = vs.firstIn(dom[0], dom[1], gLo, singles, func(i int) bool {
 		v := f.gridIC(di, g+1, i, cnt)
 		return math.IsNaN(v) || v <= icHi*(1+gridSlack)
 	})
-	hi = vs.firstIn(0, n-1, gHi, singles, func(i int) bool {
+	hi = vs.firstIn(dom[0], dom[1], gHi, singles, func(i int) bool {
 		v := f.gridIC(di, g, i, cnt)
 		return !math.IsNaN(v) && v < icLo*(1-gridSlack)
 	}) - 1
@@ -591,8 +592,6 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			fl = base
 		}
 		sf = max(sf, fl)
-		lo, hi := f.rfWindow(di, g, icLo, icHi, gLo, gHi, bd.finite && e.singlesOnly(sf, bd.thr), cnt)
-		gLo, gHi = lo, hi+1
 		// bound F-T: RF lies in the hull of the span of sums
 		hull := [2]int{0, len(e.vs.levels) - 1}
 		if cellFloors && bd.finite {
@@ -600,9 +599,12 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 			if w.Parts > 0 && pf >= w.Parts {
 				k = 1
 			}
-			hull = f.sumCell(di, g>>sumCellShift, bd, vceLo, vceHi, cnt).hull[k]
-			lo, hi = max(lo, hull[0]), min(hi, hull[1])
+			if hull = f.sumCell(di, g>>sumCellShift, bd, vceLo, vceHi, cnt).hull[k]; hull[0] > hull[1] {
+				continue
+			}
 		}
+		lo, hi := f.rfWindow(di, g, icLo, icHi, gLo, gHi, hull, bd.finite && e.singlesOnly(sf, bd.thr), cnt)
+		gLo, gHi = lo, hi+1
 		if lo > hi {
 			continue
 		}
@@ -626,8 +628,7 @@ func (f *feedbackPlan) searchRE(p *pool, cnt *counters, di, re int, kE, vceLo, v
 				if wLo, wHi = max(wLo, qbLo), min(wHi, qbHi); !ok || wLo > wHi {
 					continue
 				}
-				lo, hi = f.rfWindow(di, g, wLo, wHi, lo, hi+1, e.singlesOnly(sf, bd.thr), cnt)
-				lo, hi = max(lo, hull[0]), min(hi, hull[1])
+				lo, hi = f.rfWindow(di, g, wLo, wHi, lo, hi+1, hull, e.singlesOnly(sf, bd.thr), cnt)
 			}
 		}
 		if !cellFloors && bd.finite && w.Beta > 0 && lo < hi {
