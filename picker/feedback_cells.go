@@ -191,16 +191,10 @@ func (f *feedbackPlan) sumCell(di, G int, bd bounds, vceLo, vceHi float64, cnt *
 	} else {
 		slot = new(sumCellEntry) // outside the memo: not kept
 	}
-	f.sumsFloor(di, G<<sumCellShift, (G+1)<<sumCellShift, bd, vceLo, vceHi, slot, cnt)
-	return slot
-}
-
-// sumsFloor is sumCell's floor over the sums of grid cells gLo up to gHi,
-// written to slot.
-func (f *feedbackPlan) sumsFloor(di, gLo, gHi int, bd bounds, vceLo, vceHi float64, slot *sumCellEntry, cnt *counters) {
 	e := f.e
 	w, lv := e.s.w, e.vs.levels
 	n := len(lv)
+	gLo, gHi := G<<sumCellShift, (G+1)<<sumCellShift
 	// the last span's window is the guess: neighbouring spans' are close
 	lo := firstFrom(n, f.spanRF[0], func(i int) bool {
 		v := f.gridIC(di, gHi, i, cnt)
@@ -262,14 +256,14 @@ func (f *feedbackPlan) sumsFloor(di, gLo, gHi int, bd bounds, vceLo, vceHi float
 	none := [2]int{hi + 1, hi}
 	slot.hull = [2][2]int{none, none}
 	if !found {
-		return
+		return slot
 	}
 	if noFloor {
 		// a part without a floor (its corners cannot be solved) put
 		// the least at 0: the hull is the window (halving from the
 		// ends would meet such parts too, at a cost)
 		slot.hull = [2][2]int{{lo, hi}, {lo, hi}}
-		return
+		return slot
 	}
 	slot.hull[0] = f.hullOf(di, gLo, gHi, lo, hi, bd.thr, vceLo, vceHi, cnt)
 	slot.hull[1] = slot.hull[0]
@@ -279,6 +273,7 @@ func (f *feedbackPlan) sumsFloor(di, gLo, gHi int, bd bounds, vceLo, vceHi float
 			slot.hull[1] = f.hullOf(di, gLo, gHi, slot.hull[0][0], slot.hull[0][1], bd.thr-w.Parts, vceLo, vceHi, cnt)
 		}
 	}
+	return slot
 }
 
 // hullOf is the least and the largest RF level in lo..hi that bound F-T

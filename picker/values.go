@@ -210,6 +210,7 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 			cmp.Compare(idOf(a, 1), idOf(b, 1)),
 		)
 	})
+	vs.hotHighMin = math.Inf(1)
 	// a level's values are a run of order (it is sorted by resistance)
 	for k, vi := range order {
 		v := vs.values[vi]
@@ -229,9 +230,6 @@ func buildValues(lines []Resistor, boards int, pairs bool, hotAmbient_C float64,
 		}
 		vs.allowHotMax_W = math.Max(vs.allowHotMax_W, allow)
 		vs.tcrMax_PPMPerK = math.Max(vs.tcrMax_PPMPerK, math.Abs(v.spec.TCR_PPMPerK))
-		if k == 0 {
-			vs.hotHighMin, vs.hotLowMax = math.Inf(1), 0
-		}
 		vs.hotHighMin = math.Min(vs.hotHighMin, v.spec.CornerFactor(true, hotAmbient_C))
 		vs.hotLowMax = math.Max(vs.hotLowMax, v.spec.CornerFactor(false, hotAmbient_C))
 		if v.lines[1] < 0 {
